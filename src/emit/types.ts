@@ -1,0 +1,46 @@
+/**
+ * What the printers and harness writers receive: the family (for names, the
+ * equation and the box), the program (the arithmetic, printed from the IR) and
+ * the plan's claims (for the header comment and the harness's pass/fail).
+ * Printers never import the planner; the planner fills this plain data in.
+ */
+import type { OpCounts } from '../ir/count.js';
+import type { Program } from '../ir/nodes.js';
+import type { Family } from '../spec/types.js';
+
+export type Target = 'c' | 'ts';
+
+export interface PlanClaims {
+  /** Series order N (every kept term has grade w(m) <= N). */
+  readonly order: number;
+  /** Number of series terms kept. */
+  readonly terms: number;
+  /** One sentence on which root and where the series is centred. */
+  readonly rootNote: string;
+  /** Certified bounds, in the accuracy kind of the spec. */
+  readonly bound: {
+    readonly kind: 'absolute' | 'relative';
+    readonly truncation: number;
+    readonly rounding: number;
+    readonly total: number;
+  };
+  /** Certified absolute error bound over the whole box (also used to bracket the reference when the spec has no bracket). */
+  readonly absoluteBound: number;
+  /** The target accuracy as a number, same kind as `bound`. */
+  readonly target: number;
+  readonly ops: OpCounts;
+}
+
+export interface EmitInput {
+  readonly family: Family;
+  readonly program: Program;
+  readonly claims: PlanClaims;
+  /** Generator name and version, for the header (no time, no machine). */
+  readonly generator: { readonly name: string; readonly version: string };
+}
+
+/** One emitted file: path relative to the output directory, and its exact text. */
+export interface EmittedFile {
+  readonly path: string;
+  readonly text: string;
+}

@@ -1,0 +1,188 @@
+/**
+ * Exact rational numbers over BigInt, always in lowest terms with a positive
+ * denominator. Used wherever a value must be exact: constant folding of spec
+ * expressions, the binary value of a float, the bisection reference.
+ */
+export class Rational {
+  readonly num: bigint;
+  readonly den: bigint;
+
+  private constructor(num: bigint, den: bigint) {
+    this.num = num;
+    this.den = den;
+  }
+
+  static of(num: bigint, den: bigint = 1n): Rational {
+    if (den === 0n) throw new RangeError('Rational: zero denominator');
+    if (den < 0n) {
+      num = -num;
+      den = -den;
+    }
+    const g = gcd(num < 0n ? -num : num, den);
+    return g === 1n ? new Rational(num, den) : new Rational(num / g, den / g);
+  }
+
+  static readonly ZERO = new Rational(0n, 1n);
+  static readonly ONE = new Rational(1n, 1n);
+
+  static int(n: number | bigint): Rational {
+    return new Rational(BigInt(n), 1n);
+  }
+
+  /** Exact value of a decimal literal such as "-3.9083e-3" or "100". */
+  static parseDecimal(text: string): Rational {
+    const m = /^([+-]?)(\d*)(?:\.(\d*))?(?:[eE]([+-]?\d+))?$/.exec(text.trim());
+    if (!m || (m[2] === '' && (m[3] === undefined || m[3] === ''))) {
+      throw new SyntaxError(`not a decimal number: ${text}`);
+    }
+    const digits = (m[2] ?? '') + (m[3] ?? '');
+    let exp = (m[4] ? Number(m[4]) : 0) - (m[3] ?? '').length;
+    let num = BigInt(digits === '' ? '0' : digits);
+    if (m[1] === '-') num = -num;
+    if (Math.abs(exp) > 100000) throw new RangeError(`exponent out of range: ${text}`);
+    if (exp >= 0) return Rational.of(num * 10n ** BigInt(exp));
+    return Rational.of(num, 10n ** BigInt(-exp));
+  }
+
+  /** The exact value of a finite binary floating-point number. */
+  static fromNumber(x: number): Rational {
+    if (!Number.isFinite(x)) throw new RangeError(`not finite: ${x}`);
+    if (x === 0) return Rational.ZERO;
+    const buf = new DataView(new ArrayBuffer(8));
+    buf.setFloat64(0, x);
+    const hi = buf.getUint32(0);
+    const lo = buf.getUint32(4);
+    const sign = hi >>> 31 ? -1n : 1n;
+    const bexp = (hi >>> 20) & 0x7ff;
+    let mant = (BigInt(hi & 0xfffff) << 32n) | BigInt(lo);
+    let e: number;
+    if (bexp === 0) {
+      e = -1074;
+    } else {
+      mant |= 1n << 52n;
+      e = bexp - 1075;
+    }
+    return e >= 0 ? Rational.of(sign * (mant << BigInt(e))) : Rational.of(sign * mant, 1n << BigInt(-e));
+  }
+
+  add(o: Rational): Rational {
+    return Rational.of(this.num * o.den + o.num * this.den, this.den * o.den);
+  }
+  sub(o: Rational): Rational {
+    return Rational.of(this.num * o.den - o.num * this.den, this.den * o.den);
+  }
+  mul(o: Rational): Rational {
+    return Rational.of(this.num * o.num, this.den * o.den);
+  }
+  div(o: Rational): Rational {
+    if (o.num === 0n) throw new RangeError('Rational: division by zero');
+    return Rational.of(this.num * o.den, this.den * o.num);
+  }
+  neg(): Rational {
+    return new Rational(-this.num, this.den);
+  }
+  abs(): Rational {
+    return this.num < 0n ? new Rational(-this.num, this.den) : this;
+  }
+  pow(k: number): Rational {
+    if (!Number.isInteger(k)) throw new RangeError('Rational.pow: integer exponent only');
+    if (k < 0) return Rational.ONE.div(this.pow(-k));
+    return new Rational(this.num ** BigInt(k), this.den ** BigInt(k));
+  }
+  sign(): -1 | 0 | 1 {
+    return this.num < 0n ? -1 : this.num > 0n ? 1 : 0;
+  }
+  isZero(): boolean {
+    return this.num === 0n;
+  }
+  cmp(o: Rational): -1 | 0 | 1 {
+    const d = this.num * o.den - o.num * this.den;
+    return d < 0n ? -1 : d > 0n ? 1 : 0;
+  }
+  eq(o: Rational): boolean {
+    return this.num === o.num && this.den === o.den;
+  }
+
+  /** Nearest float64 (round half to even), correctly rounded. */
+  toNumber(): number {
+    return roundToBinary(this, 53, -1074);
+  }
+  /** Nearest binary32 value, correctly rounded, returned as a JS number. */
+  toFloat32(): number {
+    return roundToBinary(this, 24, -149);
+  }
+  /** Largest float64 <= this (toward -infinity). */
+  toNumberDown(): number {
+    const x = this.toNumber();
+    return Rational.fromNumber(x).cmp(this) <= 0 ? x : nextDown(x);
+  }
+  /** Smallest float64 >= this (toward +infinity). */
+  toNumberUp(): number {
+    const x = this.toNumber();
+    return Rational.fromNumber(x).cmp(this) >= 0 ? x : nextUp(x);
+  }
+
+  toString(): string {
+    return this.den === 1n ? this.num.toString() : `${this.num}/${this.den}`;
+  }
+}
+
+function gcd(a: bigint, b: bigint): bigint {
+  while (b !== 0n) {
+    [a, b] = [b, a % b];
+  }
+  return a === 0n ? 1n : a;
+}
+
+function bitLength(n: bigint): number {
+  return n === 0n ? 0 : n.toString(2).length;
+}
+
+/**
+ * Correct rounding (to nearest, ties to even) of a rational to a binary format
+ * with `precision` significand bits and smallest exponent `minExp` (the exponent
+ * of the least significant bit of the smallest subnormal). Overflow gives
+ * +-Infinity only beyond the format's range, which callers check.
+ */
+function roundToBinary(r: Rational, precision: number, minExp: number): number {
+  if (r.num === 0n) return 0;
+  const neg = r.num < 0n;
+  const n = neg ? -r.num : r.num;
+  const d = r.den;
+  // exponent e such that 2^e <= n/d < 2^(e+1)
+  let e = bitLength(n) - bitLength(d);
+  if ((e >= 0 ? n >= d << BigInt(e) : n << BigInt(-e) >= d) === false) e -= 1;
+  // quantum: 2^(e - precision + 1), not below the subnormal quantum
+  const q = Math.max(e - precision + 1, minExp);
+  // m = round(n/d / 2^q)
+  let num = n;
+  let den = d;
+  if (q >= 0) den = d << BigInt(q);
+  else num = n << BigInt(-q);
+  let m = num / den;
+  const rem = num - m * den;
+  const twice = rem * 2n;
+  if (twice > den || (twice === den && (m & 1n) === 1n)) m += 1n;
+  const value = Number(m) * 2 ** q;
+  // Number(m) is exact: m has at most precision+1 bits; the power of two scaling is exact
+  // unless it over/underflows, which the format range excludes for our uses.
+  const out = precision === 24 ? Math.fround(value) : value;
+  return neg ? -out : out;
+}
+
+const f64 = new Float64Array(1);
+const u64 = new BigUint64Array(f64.buffer);
+
+/** The next float64 above x (x finite). */
+export function nextUp(x: number): number {
+  if (Number.isNaN(x) || x === Infinity) return x;
+  if (x === 0) return Number.MIN_VALUE;
+  f64[0] = x;
+  u64[0] = x > 0 ? u64[0]! + 1n : u64[0]! - 1n;
+  return f64[0]!;
+}
+
+/** The next float64 below x (x finite). */
+export function nextDown(x: number): number {
+  return -nextUp(-x);
+}

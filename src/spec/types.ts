@@ -1,0 +1,63 @@
+/**
+ * The validated equation family that the spec reader hands to the planner.
+ * Every number that came from the spec is kept as its exact decimal text, so
+ * nothing is rounded before the planner decides what to round.
+ */
+export type Arithmetic = 'float32' | 'float64';
+
+export interface Pos {
+  /** 1-based line and column in the spec file. */
+  line: number;
+  column: number;
+}
+
+/** Expression grammar: numbers, names, + - * / ^ (non-negative integer powers), unary minus. */
+export type Expr =
+  | { readonly kind: 'num'; readonly text: string; readonly pos: Pos }
+  | { readonly kind: 'input'; readonly name: string; readonly index: number; readonly pos: Pos }
+  | { readonly kind: 'constant'; readonly name: string; readonly pos: Pos }
+  | { readonly kind: 'neg'; readonly arg: Expr; readonly pos: Pos }
+  | {
+      readonly kind: 'add' | 'sub' | 'mul' | 'div';
+      readonly left: Expr;
+      readonly right: Expr;
+      readonly pos: Pos;
+    }
+  | { readonly kind: 'pow'; readonly base: Expr; readonly exponent: number; readonly pos: Pos };
+
+export interface InputRange {
+  readonly name: string;
+  /** Exact decimal text of the range ends, lo < hi. */
+  readonly lo: string;
+  readonly hi: string;
+}
+
+export interface PlanKnobs {
+  readonly maxOrder: number;
+  readonly segments: 'auto' | number;
+  readonly maxTableBytes: number;
+}
+
+export interface Family {
+  /** Spec path as the user gave it (used in messages and headers, never made absolute). */
+  readonly file: string;
+  /** sha256 (hex) of the spec file's bytes. */
+  readonly specHash: string;
+  readonly functionName: string;
+  readonly unknown: string;
+  readonly degree: number;
+  /** Index = power of the unknown; null where the spec gives no coefficient (zero). */
+  readonly coefficients: readonly (Expr | null)[];
+  /** The coefficient expressions as the user wrote them (for headers), same indexing. */
+  readonly coefficientText: readonly (string | null)[];
+  readonly inputs: readonly InputRange[];
+  /** Constant name -> exact decimal text. */
+  readonly constants: Readonly<Record<string, string>>;
+  /** Exact decimal text of the bracket ends, or null for the series' own root. */
+  readonly bracket: readonly [string, string] | null;
+  readonly accuracy: { readonly kind: 'absolute' | 'relative'; readonly value: string };
+  readonly arithmetic: Arithmetic;
+  readonly plan: PlanKnobs;
+  /** Field path -> position of its value in the file, for messages after parsing. */
+  readonly positions: Readonly<Record<string, Pos>>;
+}
