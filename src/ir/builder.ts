@@ -99,12 +99,22 @@ export class ProgramBuilder {
     return this.push({ kind, a: x, b: y }, `${kind}:${x}:${y}`);
   }
 
+  /** The program that returns `result`, with every node it does not need removed. */
   finish(result: Ref): Program {
+    const pruned = pruneTo(this.nodes, result);
+    return { arithmetic: this.arithmetic, inputs: [...this.inputNames], nodes: pruned.nodes, result: pruned.result };
+  }
+
+  /**
+   * Every node built so far, unpruned and with refs unchanged, for analysis of
+   * intermediate values (never emitted). `result` is the last node.
+   */
+  snapshot(): Program {
     return {
       arithmetic: this.arithmetic,
       inputs: [...this.inputNames],
-      nodes: pruneTo(this.nodes, result).nodes,
-      result: pruneTo(this.nodes, result).result,
+      nodes: [...this.nodes],
+      result: this.nodes.length - 1,
     };
   }
 }

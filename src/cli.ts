@@ -1,0 +1,16 @@
+#!/usr/bin/env node
+/** Entry point of the `rootcast` command. */
+import { main } from './cli/main.js';
+
+main(process.argv.slice(2)).then(
+  (code) => {
+    process.exitCode = code;
+  },
+  (e: unknown) => {
+    // A bug, not a user error: say so in one line and exit 2 (no stack trace unless asked).
+    const detail = e instanceof Error ? e.message : String(e);
+    process.stderr.write(`rootcast: internal error: ${detail} (please report it; set ROOTCAST_DEBUG=1 for details)\n`);
+    if (process.env['ROOTCAST_DEBUG']) process.stderr.write(`${e instanceof Error ? e.stack : ''}\n`);
+    process.exitCode = 2;
+  },
+);

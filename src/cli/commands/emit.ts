@@ -1,0 +1,27 @@
+/** `rootcast emit SPEC --target c|ts|all --out DIR [--check]`. */
+import { staleFiles, writeFiles } from '../files.js';
+import { emitFiles, emitInputOf, planSpec, targetsOf } from '../pipeline.js';
+
+export interface EmitOptions {
+  spec: string;
+  target: string;
+  out: string;
+  check: boolean;
+}
+
+/** Returns the exit code; prints what it wrote or what is stale. */
+export function runEmit(o: EmitOptions, print: (line: string) => void): number {
+  const files = emitFiles(emitInputOf(planSpec(o.spec)), targetsOf(o.target));
+  if (o.check) {
+    const stale = staleFiles(o.out, files);
+    if (stale.length === 0) {
+      print(`up to date: ${files.length} files in ${o.out}`);
+      return 0;
+    }
+    print(`out of date (regenerate with rootcast emit ${o.spec} --target ${o.target} --out ${o.out}): ${stale.join(', ')}`);
+    return 1;
+  }
+  writeFiles(o.out, files);
+  for (const f of files) print(`wrote ${o.out.replace(/\/$/, '')}/${f.path}`);
+  return 0;
+}

@@ -1,0 +1,127 @@
+/**
+ * Interval values and a priori rounding-error bounds of a program over a cell
+ * of the input box (a running error bound in the style of Higham, Accuracy and
+ * Stability of Numerical Algorithms, 2nd ed., section 5.1).
+ *
+ * For every node we carry
+ *   value: an interval enclosing the EXACT value (exact constants, exact
+ *          arithmetic) for every input in the cell, and
+ *   error: e >= |computed - exact|, the computed value being the one the target
+ *          arithmetic produces (constants rounded, every operation rounded).
+ * The standard model fl(a op b) = (a op b)(1 + d) + h, |d| <= u, |h| <= eta
+ * (eta covers underflow) gives, with M = max|exact| and ea, eb the operand errors:
+ *   add/sub: e = ea + eb + u (M + ea + eb) + eta
+ *   mul:     e = (Ma + ea) eb + Mb ea + u (Ma + ea)(Mb + eb) + eta
+ *   div:     e = (ea + Q eb) / (mb - eb) + u (Q + (ea + Q eb)/(mb - eb)) + eta,
+ *            Q = max|a/b|, mb = min|b| > eb
+ *   neg:     e = ea (exact)
+ *   const:   e = |stored - exact|;  input: e = 0 (inputs are taken as received).
+ * Every bound is computed with upward rounding, so the result is rigorous.
+ * Fused multiply-add contraction by a compiler only removes roundings, but the
+ * bound is stated for the unfused program that the printers emit.
+ */
+import { addUp, divUp, mulUp, subDown } from '../math/directed.js';
+import { iadd, idiv, imul, ineg, isub, mag, mig, containsZero, type Interval } from '../math/interval.js';
+import { Rational } from '../math/rational.js';
+import { UnknownNodeError, type Program } from './nodes.js';
+import { FORMATS } from './round.js';
+
+export interface Analysis {
+  readonly values: Interval[];
+  readonly errors: number[];
+  /** Index of the first node whose error bound is not finite (a divisor that may vanish), or -1. */
+  readonly unbounded: number;
+}
+
+const WHOLE: Interval = { lo: -Infinity, hi: Infinity };
+
+/** Options: `flushToZero` for arithmetic that flushes subnormal results (larger eta). */
+export function analyse(program: Program, cell: readonly Interval[], opts: { flushToZero?: boolean } = {}): Analysis {
+  const f = FORMATS[program.arithmetic];
+  const u = f.u;
+  const eta = opts.flushToZero ? f.minSubnormal * 2 ** (f.bits - 1) : f.minSubnormal / 2;
+  const values: Interval[] = new Array(program.nodes.length);
+  const errors: number[] = new Array(program.nodes.length);
+  let unbounded = -1;
+  for (let i = 0; i < program.nodes.length; i++) {
+    const n = program.nodes[i]!;
+    let v: Interval;
+    let e: number;
+    switch (n.kind) {
+      case 'const':
+        v = { lo: n.exact.toNumberDown(), hi: n.exact.toNumberUp() };
+        e = constError(n.value, n.exact);
+        break;
+      case 'input':
+        v = cell[n.index]!;
+        e = 0;
+        break;
+      case 'neg':
+        v = ineg(values[n.a]!);
+        e = errors[n.a]!;
+        break;
+      case 'add':
+      case 'sub': {
+        const a = values[n.a]!;
+        const b = values[n.b]!;
+        v = n.kind === 'add' ? iadd(a, b) : isub(a, b);
+        const ee = addUp(errors[n.a]!, errors[n.b]!);
+        e = addUp(addUp(ee, mulUp(u, addUp(mag(v), ee))), eta);
+        break;
+      }
+      case 'mul': {
+        const a = values[n.a]!;
+        const b = values[n.b]!;
+        v = imul(a, b);
+        const ea = errors[n.a]!;
+        const eb = errors[n.b]!;
+        const ma = addUp(mag(a), ea);
+        const mb = addUp(mag(b), eb);
+        const prop = addUp(mulUp(ma, eb), mulUp(mag(b), ea));
+        e = addUp(addUp(prop, mulUp(u, mulUp(ma, mb))), eta);
+        break;
+      }
+      case 'div': {
+        const a = values[n.a]!;
+        const b = values[n.b]!;
+        const ea = errors[n.a]!;
+        const eb = errors[n.b]!;
+        const room = subDown(mig(b), eb);
+        if (containsZero(b) || !(room > 0)) {
+          v = WHOLE;
+          e = Infinity;
+          if (unbounded < 0) unbounded = i;
+          break;
+        }
+        v = idiv(a, b);
+        const q = mag(v);
+        const prop = divUp(addUp(ea, mulUp(q, eb)), room);
+        e = addUp(addUp(prop, mulUp(u, addUp(q, prop))), eta);
+        break;
+      }
+      default:
+        throw new UnknownNodeError(n);
+    }
+    if (!Number.isFinite(v.lo) || !Number.isFinite(v.hi)) {
+      v = WHOLE;
+      e = Infinity;
+      if (unbounded < 0) unbounded = i;
+    }
+    values[i] = v;
+    errors[i] = e;
+  }
+  return { values, errors, unbounded };
+}
+
+/** |stored - exact| rounded up. */
+function constError(stored: number, exact: Rational): number {
+  const d = Rational.fromNumber(stored).sub(exact).abs();
+  return d.isZero() ? 0 : d.toNumberUp();
+}
+
+/** Largest magnitude any computed value can reach: exact magnitude plus error, per node. */
+export function largestComputed(a: Analysis): number {
+  let m = 0;
+  for (let i = 0; i < a.values.length; i++) m = Math.max(m, addUp(mag(a.values[i]!), a.errors[i]!));
+  return m;
+}

@@ -1,0 +1,81 @@
+/**
+ * The input box as the analysis sees it, and its cells.
+ *
+ * The emitted function receives its inputs in the target arithmetic, so an
+ * input range [lo, hi] written in decimal is widened to also hold the target
+ * numbers nearest to lo and hi (and the float64 ones the harnesses start from):
+ * every value a caller can pass for an in-range input lies in the analysed box.
+ */
+import type { Interval } from '../math/interval.js';
+import { Rational } from '../math/rational.js';
+import { roundNumber, roundTo } from '../ir/round.js';
+import type { Family } from '../spec/types.js';
+
+export type Cell = Interval[];
+
+export interface Box {
+  /** Exact decimal ends, as the spec wrote them. */
+  readonly exact: readonly { lo: Rational; hi: Rational }[];
+  /** float64 enclosure used by the analysis. */
+  readonly cell: Cell;
+}
+
+export function boxOf(family: Family): Box {
+  const exact = family.inputs.map((i) => ({ lo: Rational.parseDecimal(i.lo), hi: Rational.parseDecimal(i.hi) }));
+  const cell = exact.map(({ lo, hi }) => ({
+    lo: Math.min(lo.toNumberDown(), roundTo(lo, family.arithmetic), roundNumber(lo.toNumber(), family.arithmetic)),
+    hi: Math.max(hi.toNumberUp(), roundTo(hi, family.arithmetic), roundNumber(hi.toNumber(), family.arithmetic)),
+  }));
+  return { exact, cell };
+}
+
+/** Splits a cell in two halves along input `dim` (the halves share the midpoint). */
+export function split(cell: Cell, dim: number): [Cell, Cell] {
+  const { lo, hi } = cell[dim]!;
+  const mid = lo + (hi - lo) / 2;
+  const a = cell.map((c, i) => (i === dim ? { lo, hi: mid } : c));
+  const b = cell.map((c, i) => (i === dim ? { lo: mid, hi } : c));
+  return [a, b];
+}
+
+/** A uniform grid of about `target` cells over the box (the same count per input). */
+export function grid(box: Cell, target: number): Cell[] {
+  const d = box.length;
+  const per = Math.max(1, Math.floor(Math.pow(target, 1 / d) + 1e-9));
+  let cells: Cell[] = [[]];
+  for (let dim = 0; dim < d; dim++) {
+    const { lo, hi } = box[dim]!;
+    const next: Cell[] = [];
+    for (const c of cells) {
+      for (let i = 0; i < per; i++) {
+        const a = i === 0 ? lo : lo + ((hi - lo) * i) / per;
+        const b = i === per - 1 ? hi : lo + ((hi - lo) * (i + 1)) / per;
+        next.push([...c, { lo: a, hi: b }]);
+      }
+    }
+    cells = next;
+  }
+  return cells;
+}
+
+/** The input whose side is widest relative to the box (the one to split). */
+export function widestDim(cell: Cell, box: Cell): number {
+  let best = 0;
+  let bestW = -1;
+  cell.forEach((c, i) => {
+    const w = (c.hi - c.lo) / (box[i]!.hi - box[i]!.lo);
+    if (w > bestW) {
+      bestW = w;
+      best = i;
+    }
+  });
+  return best;
+}
+
+export function describeCell(family: Family, cell: Cell): string {
+  return family.inputs.map((inp, i) => `${inp.name} in [${short(cell[i]!.lo)}, ${short(cell[i]!.hi)}]`).join(', ');
+}
+
+export function short(x: number): string {
+  return Number(x.toPrecision(6)).toString();
+}

@@ -1,0 +1,75 @@
+/** The planner's one-line refusals (exit code 2), each saying what to change. */
+import { RootcastError } from '../errors.js';
+import { criticalT } from '../series/hyper-catalan.js';
+import type { Family } from '../spec/types.js';
+import { describeCell, short } from './box.js';
+import type { CellFacts } from './cell-bound.js';
+import { LIMITS } from './limits.js';
+import { locate } from './locate.js';
+
+export function refuseBadCells(family: Family, cells: readonly CellFacts[], relative: boolean): void {
+  const slope = cells.filter((c) => c.state.kind === 'slope-vanishes');
+  if (slope.length > 0) {
+    throw new RootcastError(
+      `the slope c1 = P'(${family.unknown}0) can vanish for ${region(family, slope)}: the series needs a simple root there; narrow the input ranges${family.bracket ? ' or move root.bracket' : ' or add root.bracket'}`,
+      locate(family, 'inputs'),
+    );
+  }
+  const div = cells.filter((c) => c.state.kind === 'diverges');
+  if (div.length > 0) {
+    const worst = div.reduce((a, b) => (maxRatio(b) > maxRatio(a) ? b : a));
+    const T = worst.state.kind === 'diverges' ? worst.state.T : worst.T;
+    let k = 2;
+    for (let j = 2; j < T.length; j++) if (T[j]! / criticalT(j) > T[k]! / criticalT(k)) k = j;
+    throw new RootcastError(
+      `the series does not converge for ${describeCell(family, worst.cell)}: |t${k}| reaches ${short(T[k]!)} there (alone it must stay below ${short(criticalT(k))}); ${family.bracket ? 'narrow the input ranges' : 'add root.bracket to recentre the series, or narrow the input ranges'}`,
+      locate(family, 'inputs'),
+    );
+  }
+  if (relative) {
+    const zero = cells.filter((c) => !(c.rootMin > 0));
+    if (zero.length > 0) {
+      throw new RootcastError(
+        `the root can be zero for ${region(family, zero)}, so a relative accuracy cannot be certified there; use accuracy.absolute or narrow the input ranges`,
+        locate(family, 'accuracy.relative'),
+      );
+    }
+  }
+}
+
+function maxRatio(c: CellFacts): number {
+  const T = c.state.kind === 'diverges' ? c.state.T : c.T;
+  let m = 0;
+  for (let k = 2; k < T.length; k++) m = Math.max(m, T[k]! / criticalT(k));
+  return m;
+}
+
+/** The hull of some cells, as input ranges. */
+function region(family: Family, cells: readonly CellFacts[]): string {
+  const hull = cells[0]!.cell.map((_, i) => ({
+    lo: Math.min(...cells.map((c) => c.cell[i]!.lo)),
+    hi: Math.max(...cells.map((c) => c.cell[i]!.hi)),
+  }));
+  return describeCell(family, hull);
+}
+
+export function refuseFloor(family: Family, total: number, rounding: number): never {
+  const kind = family.accuracy.kind;
+  throw new RootcastError(
+    `the target ${family.accuracy.value} is below the ${family.arithmetic} rounding floor of this plan: the best certified ${kind} error is ${short(total)} (rounding alone ${short(rounding)}); ${family.arithmetic === 'float32' ? 'use arithmetic: float64, ' : ''}loosen the accuracy or narrow the input ranges`,
+    locate(family, `accuracy.${kind}`),
+  );
+}
+
+export function refuseOrder(family: Family, needed: number | null): never {
+  if (needed === null) {
+    throw new RootcastError(
+      `no order up to ${LIMITS.grade} (or ${LIMITS.terms} terms) meets the target; narrow the input ranges, loosen the accuracy${family.bracket ? '' : ' or add root.bracket to recentre the series'}`,
+      locate(family, `accuracy.${family.accuracy.kind}`),
+    );
+  }
+  throw new RootcastError(
+    `plan.max_order ${family.plan.maxOrder} is too small: order ${needed} is needed to meet the target; set plan.max_order: ${needed} or more`,
+    locate(family, family.positions['plan.max_order'] ? 'plan.max_order' : 'plan'),
+  );
+}

@@ -1,0 +1,140 @@
+/**
+ * Turns a truncated hyper-Catalan series into a straight-line program.
+ *
+ * With P(x0 + y) = c'0 + c'1 y + ... + c'n y^n, r = c'0 / c'1 and q_k = c'k / c'1,
+ * the substitution y = -r a gives 1 - a + t2 a^2 + ... + tn a^n = 0 with
+ * t_k = (-1)^k r^(k-1) q_k, and the root is y = -r a(t) (DESIGN.md 1.1, 1.4).
+ *
+ * Two evaluation shapes, both exact rearrangements of the same kept terms:
+ * - every q_k constant (only c'0 varies, the inverse-function case):
+ *     a = sum_w D_w r^w with exact constants D_w = sum_{w(m) = w} H(m) prod ((-1)^k q_k)^m_k,
+ *   evaluated by Horner's rule in z = r^g, g the gcd of the active (k - 1);
+ * - otherwise a polynomial in u_k = r^(k-1) q_k with signed coefficients
+ *   (-1)^(sum k m_k) H(m), evaluated by nested (recursive) Horner's rule.
+ * Then x = x0 - r a.
+ */
+import { Rational } from '../math/rational.js';
+import { ProgramBuilder, type Ref } from '../ir/builder.js';
+import type { Program } from '../ir/nodes.js';
+import type { SeriesTerm } from '../series/hyper-catalan.js';
+import type { Family } from '../spec/types.js';
+import { shiftedForms } from '../series/recenter.js';
+import { addForms, constantForm, formOf, isConstant, isZero, materialise, powerOf, scaleForm, type LinearForm } from './linear-form.js';
+
+export interface SeriesSetup {
+  /** Coefficients of P(x0 + y) as affine forms, index = power of y. */
+  readonly shifted: readonly LinearForm[];
+  /** Powers k >= 2 whose shifted coefficient is not identically zero. */
+  readonly active: readonly number[];
+  readonly x0: Rational;
+}
+
+interface Prefix {
+  readonly r: Ref;
+  readonly q: ReadonlyMap<number, Ref>;
+  /** The shifted slope c'1 when it varies with the inputs, else null. */
+  readonly c1: Ref | null;
+}
+
+/** Affine forms of the spec's coefficients, recentred at x0. */
+export function setupSeries(family: Family, x0: Rational, b: ProgramBuilder): SeriesSetup {
+  const forms = family.coefficients.map((e) => (e === null ? constantForm(Rational.ZERO) : formOf(b, e, family.constants)));
+  const shifted = shiftedForms(forms, x0, addForms, scaleForm);
+  const active: number[] = [];
+  for (let k = 2; k < shifted.length; k++) if (!isZero(shifted[k]!)) active.push(k);
+  return { shifted, active, x0 };
+}
+
+function buildPrefix(b: ProgramBuilder, s: SeriesSetup): Prefix {
+  const c1 = s.shifted[1]!;
+  const q = new Map<number, Ref>();
+  if (isConstant(c1)) {
+    if (c1.constant.isZero()) throw new RangeError('zero slope');
+    const inv = Rational.ONE.div(c1.constant);
+    const r = materialise(b, scaleForm(s.shifted[0]!, inv));
+    for (const k of s.active) q.set(k, materialise(b, scaleForm(s.shifted[k]!, inv)));
+    return { r, q, c1: null };
+  }
+  const c1Ref = materialise(b, c1);
+  const inv = b.div(b.const(Rational.ONE), c1Ref);
+  const r = b.mul(materialise(b, s.shifted[0]!), inv);
+  for (const k of s.active) q.set(k, b.mul(materialise(b, s.shifted[k]!), inv));
+  return { r, q, c1: c1Ref };
+}
+
+export interface AnalysisProgram {
+  readonly program: Program;
+  readonly r: Ref;
+  readonly q: ReadonlyMap<number, Ref>;
+  readonly c1: Ref | null;
+}
+
+/** The unpruned program computing r, q_k (and c'1): what the truncation bound needs per cell. */
+export function analysisProgram(family: Family, x0: Rational): AnalysisProgram {
+  const b = new ProgramBuilder(family.arithmetic, family.inputs.map((i) => i.name));
+  const s = setupSeries(family, x0, b);
+  const p = buildPrefix(b, s);
+  return { program: b.snapshot(), r: p.r, q: p.q, c1: p.c1 };
+}
+
+/** The emitted program for the kept terms (ordered by grade, as termsUpToGrade gives them). */
+export function seriesProgram(family: Family, x0: Rational, terms: readonly SeriesTerm[]): Program {
+  const b = new ProgramBuilder(family.arithmetic, family.inputs.map((i) => i.name));
+  const s = setupSeries(family, x0, b);
+  const p = buildPrefix(b, s);
+  const qConst = [...p.q.values()].every((ref) => b.constValue(ref) !== null);
+  const a = qConst ? hornerInR(b, p, terms, s.active) : nestedHorner(b, p, terms, s.active);
+  const y = b.mul(p.r, a);
+  return b.finish(b.sub(b.const(x0), y));
+}
+
+function signedCoefficient(t: SeriesTerm): Rational {
+  let parity = 0;
+  for (let k = 2; k < t.m.length; k++) parity += k * t.m[k]!;
+  const h = Rational.of(t.coefficient);
+  return parity % 2 === 0 ? h : h.neg();
+}
+
+function gcd(a: number, b: number): number {
+  return b === 0 ? a : gcd(b, a % b);
+}
+
+function hornerInR(b: ProgramBuilder, p: Prefix, terms: readonly SeriesTerm[], active: readonly number[]): Ref {
+  const D = new Map<number, Rational>();
+  for (const t of terms) {
+    let v = signedCoefficient(t);
+    for (const k of active) v = v.mul(b.constValue(p.q.get(k)!)!.pow(t.m[k]!));
+    D.set(t.grade, (D.get(t.grade) ?? Rational.ZERO).add(v));
+  }
+  const g = active.reduce((acc, k) => gcd(acc, k - 1), 0) || 1;
+  const top = Math.max(0, ...D.keys());
+  const z = powerOf(b, p.r, g);
+  let acc = b.const(D.get(top) ?? Rational.ZERO);
+  for (let w = top - g; w >= 0; w -= g) acc = b.add(b.mul(acc, z), b.const(D.get(w) ?? Rational.ZERO));
+  return acc;
+}
+
+function nestedHorner(b: ProgramBuilder, p: Prefix, terms: readonly SeriesTerm[], active: readonly number[]): Ref {
+  const vars = active.map((k) => b.mul(powerOf(b, p.r, k - 1), p.q.get(k)!));
+  const rows = terms.map((t) => ({ exps: active.map((k) => t.m[k]!), coef: signedCoefficient(t) }));
+  return horner(b, vars, rows, 0);
+}
+
+/** Recursive Horner's rule in vars[i], vars[i+1], ... over rows of (exponents, coefficient). */
+function horner(b: ProgramBuilder, vars: readonly Ref[], rows: readonly { exps: number[]; coef: Rational }[], i: number): Ref {
+  if (i === vars.length) return b.const(rows.reduce((s, r) => s.add(r.coef), Rational.ZERO));
+  const groups = new Map<number, { exps: number[]; coef: Rational }[]>();
+  for (const r of rows) {
+    const e = r.exps[i]!;
+    if (!groups.has(e)) groups.set(e, []);
+    groups.get(e)!.push(r);
+  }
+  const top = Math.max(...groups.keys());
+  let acc = horner(b, vars, groups.get(top)!, i + 1);
+  for (let e = top - 1; e >= 0; e--) {
+    const g = groups.get(e);
+    acc = b.mul(acc, vars[i]!);
+    if (g) acc = b.add(acc, horner(b, vars, g, i + 1));
+  }
+  return acc;
+}

@@ -1,0 +1,94 @@
+/**
+ * The majorant remainder bound (DESIGN.md 1.2). Every hyper-Catalan number is
+ * positive, so for kept terms S and any T_k >= |t_k|:
+ *     |a(t) - a_S(t)| <= a(T) - a_S(T),
+ * where a(T) is the smallest positive root of f(a) = 1 - a + T2 a^2 + ... + Tn a^n.
+ * f(0) = 1 > 0 and f is convex on a > 0, so the root exists exactly when the
+ * minimum of f over a > 0 is <= 0; otherwise the majorant series diverges and no
+ * bound exists.
+ *
+ * All arithmetic here is float64 with directed rounding (src/math/directed.ts):
+ * a(T) is bounded from above (a point where f is certainly <= 0), and a_S(T)
+ * is summed from below (every term and every partial sum rounded down).
+ */
+import { addDown, addUp, mulDown, mulUp, nextDown } from '../math/directed.js';
+import type { SeriesTerm } from './hyper-catalan.js';
+
+/** f(a) evaluated with rounding up: an upper bound of the exact f(a), a >= 0. */
+function fUpper(T: readonly number[], a: number): number {
+  // 1 - a + sum T_k a^k, Horner from the top power with every step rounded up.
+  let acc = 0;
+  for (let k = T.length - 1; k >= 2; k--) acc = mulUp(addUp(acc, T[k]!), a);
+  acc = mulUp(acc, a); // acc = sum_{k>=2} T_k a^k
+  return addUp(acc, -nextDown(a - 1)); // 1 - a <= -(nextDown(a - 1)), a >= 1
+}
+
+/** f(a) to nearest (for steering the search only; never trusted for the bound). */
+function fNear(T: readonly number[], a: number): number {
+  let acc = 0;
+  for (let k = T.length - 1; k >= 2; k--) acc = (acc + T[k]!) * a;
+  return acc * a + 1 - a;
+}
+
+function fPrimeNear(T: readonly number[], a: number): number {
+  let acc = 0;
+  for (let k = T.length - 1; k >= 2; k--) acc = acc * a + k * T[k]!;
+  return acc * a - 1;
+}
+
+export type MajorantRoot = { converges: true; upper: number } | { converges: false; minimum: number };
+
+/**
+ * A rigorous upper bound of a(T), the smallest positive root of the majorant,
+ * or the (approximate) positive minimum of f when there is no root.
+ * T is indexed by power: T[k] >= 0 for k >= 2 (entries 0 and 1 ignored).
+ */
+export function majorantRoot(T: readonly number[]): MajorantRoot {
+  if (T.slice(2).every((t) => t === 0)) return { converges: true, upper: 1 };
+  // a* (the minimiser of f) is where f' changes sign; f' is increasing for a > 0.
+  let lo = 1;
+  let hi = 2;
+  if (fPrimeNear(T, lo) >= 0) {
+    // f increases from a = 1 on, and f(a) > 0 on [0, 1]: only f(1) = sum T_k could vanish.
+    return { converges: false, minimum: fNear(T, 1) };
+  }
+  while (fPrimeNear(T, hi) < 0) {
+    hi *= 2;
+    if (hi > 1e300) return { converges: false, minimum: fNear(T, hi) };
+  }
+  for (let i = 0; i < 200 && hi - lo > 1e-15 * hi; i++) {
+    const mid = 0.5 * (lo + hi);
+    if (fPrimeNear(T, mid) < 0) lo = mid;
+    else hi = mid;
+  }
+  const aStar = lo;
+  if (fUpper(T, aStar) > 0) return { converges: false, minimum: fNear(T, aStar) };
+  // Bisection for the root in [1, a*]: f(1) >= 0 and f(a*) <= 0 (certified).
+  let left = 1;
+  let right = aStar;
+  for (let i = 0; i < 80; i++) {
+    const mid = 0.5 * (left + right);
+    if (mid <= left || mid >= right) break;
+    if (fUpper(T, mid) <= 0) right = mid; // certified: the smallest root is <= mid
+    else left = mid;
+  }
+  return { converges: true, upper: right };
+}
+
+/**
+ * Lower bounds of the grade sums G_w = sum over kept terms of grade w of H(m) T^m,
+ * for w = 0..maxGrade. `terms` must be ordered by grade (termsUpToGrade does).
+ */
+export function gradeSumsLower(terms: readonly SeriesTerm[], T: readonly number[], maxGrade: number, hDown: (t: SeriesTerm) => number): number[] {
+  const sums = new Array<number>(maxGrade + 1).fill(0);
+  for (const term of terms) {
+    if (term.grade > maxGrade) break;
+    let v = hDown(term);
+    for (let k = 2; k < term.m.length; k++) {
+      const e = term.m[k]!;
+      for (let j = 0; j < e; j++) v = mulDown(v, T[k]!);
+    }
+    sums[term.grade] = addDown(sums[term.grade]!, v);
+  }
+  return sums;
+}

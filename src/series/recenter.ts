@@ -1,0 +1,66 @@
+/**
+ * Recentring (DESIGN.md 1.4): with x = x0 + y,
+ *     P(x0 + y) = sum_j c'_j y^j,   c'_j = sum_{k >= j} binom(k, j) x0^(k - j) c_k.
+ * At the expansion point c'_0 nearly vanishes, so the series in y converges fast
+ * there, and c'_1 = P'(x0) is the slope at the root, non-zero for a simple root.
+ * x0 is a number of the target arithmetic, so the constant in the emitted code
+ * and the one the bound is computed for are the same number.
+ */
+import { Rational } from '../math/rational.js';
+
+export function binomial(n: number, k: number): bigint {
+  if (k < 0 || k > n) return 0n;
+  let r = 1n;
+  for (let i = 1; i <= k; i++) r = (r * BigInt(n - k + i)) / BigInt(i);
+  return r;
+}
+
+/** The shifted coefficients, generic over the coefficient type (exact rationals or affine forms). */
+export function shiftedForms<F>(
+  c: readonly F[],
+  x0: Rational,
+  add: (a: F, b: F) => F,
+  scale: (a: F, s: Rational) => F,
+): F[] {
+  const n = c.length - 1;
+  const out: F[] = [];
+  for (let j = 0; j <= n; j++) {
+    let acc = scale(c[j]!, Rational.ONE);
+    for (let k = j + 1; k <= n; k++) {
+      const w = Rational.of(binomial(k, j)).mul(x0.pow(k - j));
+      if (!w.isZero()) acc = add(acc, scale(c[k]!, w));
+    }
+    out.push(acc);
+  }
+  return out;
+}
+
+/** Sign of P(x) = sum c_k x^k, exactly. */
+export function signAt(c: readonly Rational[], x: Rational): -1 | 0 | 1 {
+  let acc = Rational.ZERO;
+  for (let k = c.length - 1; k >= 0; k--) acc = acc.mul(x).add(c[k]!);
+  return acc.sign();
+}
+
+/**
+ * The root of P in [lo, hi] by bisection in exact arithmetic, to within `width`;
+ * null if P has no sign change on the bracket.
+ */
+export function bisectExact(c: readonly Rational[], lo: Rational, hi: Rational, width: Rational): Rational | null {
+  let sLo = signAt(c, lo);
+  const sHi = signAt(c, hi);
+  if (sLo === 0) return lo;
+  if (sHi === 0) return hi;
+  if (sLo === sHi) return null;
+  const half = Rational.of(1n, 2n);
+  while (hi.sub(lo).cmp(width) > 0) {
+    const mid = lo.add(hi).mul(half);
+    const s = signAt(c, mid);
+    if (s === 0) return mid;
+    if (s === sLo) {
+      lo = mid;
+      sLo = s;
+    } else hi = mid;
+  }
+  return lo.add(hi).mul(half);
+}
