@@ -1,0 +1,79 @@
+/**
+ * The body of the C function, printed from the IR: one `const` line per
+ * computed node, in program order, and a return. Constants print inline as
+ * literals (cLiteral: shortest digits strtof reads back exactly, `f` suffix in
+ * float32), inputs by name, computed values as `v<index>`.
+ *
+ * Each operation is its own full expression assigned to a variable, so an
+ * ISO C compiler rounds every result to the declared type (C99 5.1.2.3 and
+ * 6.3.1.8: assignment and initialisation remove any extra range and
+ * precision); with -std=c99 gcc also does not contract a*b+c into a fused
+ * multiply-add. The C result is then bit-identical to evaluate().
+ */
+import { UnknownNodeError, type Node, type Program } from '../../ir/nodes.js';
+import { cLiteral, cOperand } from '../literals/c.js';
+import { valueName } from '../names.js';
+import { readInputs } from '../read-inputs.js';
+
+export const C_TYPE = { float32: 'float', float64: 'double' } as const;
+
+export function cBodyLines(program: Program): string[] {
+  const type = C_TYPE[program.arithmetic];
+  const lines: string[] = [];
+  const read = readInputs(program);
+  program.inputs.forEach((name, i) => {
+    if (!read.has(i)) lines.push(`(void)${name};`);
+  });
+  program.nodes.forEach((node, i) => {
+    const rhs = cExpression(program, node, i);
+    if (rhs !== null) lines.push(`const ${type} ${valueName(i)} = ${rhs};`);
+  });
+  lines.push(`return ${cResult(program)};`);
+  return lines;
+}
+
+/** The right-hand side for a computed node; null for constants and inputs, which print inline. */
+function cExpression(program: Program, node: Node, at: number): string | null {
+  const ref = (r: number): string => cReference(program, r, at);
+  switch (node.kind) {
+    case 'const':
+    case 'input':
+      return null;
+    case 'neg':
+      return `-${ref(node.a)}`;
+    case 'add':
+      return `${ref(node.a)} + ${ref(node.b)}`;
+    case 'sub':
+      return `${ref(node.a)} - ${ref(node.b)}`;
+    case 'mul':
+      return `${ref(node.a)} * ${ref(node.b)}`;
+    case 'div':
+      return `${ref(node.a)} / ${ref(node.b)}`;
+    default:
+      throw new UnknownNodeError(node);
+  }
+}
+
+/** How node `r` appears as an operand of node `at`: a literal, an argument name or a local. */
+function cReference(program: Program, r: number, at: number): string {
+  if (!Number.isInteger(r) || r < 0 || r >= at) throw new RangeError(`node ${at} refers to node ${r}, which is not defined before it`);
+  const n = program.nodes[r]!;
+  if (n.kind === 'const') return cOperand(n.value, program.arithmetic);
+  if (n.kind === 'input') return inputName(program, n.index);
+  return valueName(r);
+}
+
+function cResult(program: Program): string {
+  const r = program.result;
+  const n = program.nodes[r];
+  if (!n) throw new RangeError(`result refers to node ${r}, which does not exist`);
+  if (n.kind === 'const') return cLiteral(n.value, program.arithmetic);
+  if (n.kind === 'input') return inputName(program, n.index);
+  return valueName(r);
+}
+
+function inputName(program: Program, index: number): string {
+  const name = program.inputs[index];
+  if (name === undefined) throw new RangeError(`no input ${index}`);
+  return name;
+}

@@ -1,0 +1,37 @@
+/**
+ * The C function file NAME.h: C99, an include guard, the header comment, and
+ * one `static inline` function with no branches, loops, library calls or
+ * allocation. The framing comes from templates/c/function.h.hbs; the body is
+ * printed from the IR (body.ts).
+ */
+import { assertCommentSafe, headerLines } from '../header.js';
+import { assertUserName } from '../names.js';
+import { renderTemplate } from '../templates.js';
+import type { EmitInput, EmittedFile } from '../types.js';
+import { C_TYPE, cBodyLines } from './body.js';
+
+export function cFunction(input: EmitInput): EmittedFile {
+  const { program, family } = input;
+  const name = family.functionName;
+  assertUserName(name, 'function name');
+  program.inputs.forEach((n) => assertUserName(n, 'input name'));
+  const type = C_TYPE[program.arithmetic];
+  const parameters = program.inputs.length === 0 ? 'void' : program.inputs.map((n) => `${type} ${n}`).join(', ');
+  const text = renderTemplate('c/function.h.hbs', {
+    guard: `ROOTCAST_${name.toUpperCase()}_H`,
+    commentLines: cCommentLines(headerLines(input, 'C function (C99, static inline, branch-free)')),
+    returnType: type,
+    name,
+    parameters,
+    bodyLines: cBodyLines(program),
+  });
+  return { path: `${name}.h`, text };
+}
+
+/** Header lines as the inside of a C block comment (` * text`, ` *` for a blank). */
+export function cCommentLines(lines: readonly string[]): string[] {
+  return lines.map((line) => {
+    assertCommentSafe(line);
+    return line === '' ? ' *' : ` * ${line}`;
+  });
+}

@@ -1,0 +1,48 @@
+/**
+ * The TypeScript verification harness NAME.check.ts: an ES module that
+ * imports NAME from ./NAME.js and nothing else, sweeps the sample points of
+ * src/verify/samples.ts, finds each reference root by exact BigInt rational
+ * bisection, prints the summary line of src/verify/summary.ts and sets exit
+ * code 0 on pass, 1 on fail. The machinery is templates/ts/check.ts.hbs; this
+ * file fills in the family: box, bounds, constants and coefficient expressions.
+ */
+import { tsLiteral } from '../literals/ts.js';
+import { renderTemplate } from '../templates.js';
+import type { EmitInput, EmittedFile } from '../types.js';
+import { harnessParts } from './family-parts.js';
+import { tsConstantName, tsRationalDecimal, tsRationalExpr } from './ts-expr.js';
+
+/** How the harness is built (also printed in its header comment). */
+export function tsHarnessCompileCommand(name: string): string {
+  return `tsc --strict --target es2022 --module nodenext ${name}.ts ${name}.check.ts`;
+}
+
+export function tsHarness(input: EmitInput): EmittedFile {
+  const { family, claims } = input;
+  const parts = harnessParts(input, 'TypeScript verification harness (exact BigInt bisection reference)');
+  const { name } = parts;
+  const double = (v: number): string => tsLiteral(v, 'float64');
+  const text = renderTemplate('ts/check.ts.hbs', {
+    commentLines: parts.commentLines,
+    compileCommand: `${tsHarnessCompileCommand(name)}   (in a folder whose package.json says "type": "module")`,
+    name,
+    inputNames: parts.inputNames.map((n) => `'${n}'`).join(', '),
+    boxLo: parts.lo.map(double).join(', '),
+    boxHi: parts.hi.map(double).join(', '),
+    bound: double(claims.bound.total),
+    target: double(claims.target),
+    absoluteBound: double(claims.absoluteBound),
+    relative: claims.bound.kind === 'relative' ? 'true' : 'false',
+    float32: family.arithmetic === 'float32' ? 'true' : 'false',
+    constantLines: parts.usedConstants.map((c) => `const ${tsConstantName(c)}: RcQ = ${tsRationalDecimal(family.constants[c]!)};`),
+    bracket: family.bracket ? `[${tsRationalDecimal(family.bracket[0])}, ${tsRationalDecimal(family.bracket[1])}]` : 'null',
+    coefficients: Array.from({ length: family.degree + 1 }, (_, k) => {
+      const e = family.coefficients[k];
+      return e ? tsRationalExpr(e) : 'rc_q(0n, 1n)';
+    }).join(', '),
+    callArguments: parts.inputNames.map((_, j) => `x[${j}]!`).join(', '),
+    arithmetic: family.arithmetic,
+    kind: claims.bound.kind,
+  });
+  return { path: `${name}.check.ts`, text };
+}

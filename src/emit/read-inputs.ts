@@ -1,0 +1,17 @@
+/** Which function arguments a program actually reads (as an operand or as its result). */
+import type { Program } from '../ir/nodes.js';
+
+export function readInputs(program: Program): Set<number> {
+  const used = new Set<number>();
+  const mark = (ref: number): void => {
+    const n = program.nodes[ref];
+    if (n?.kind === 'input') used.add(n.index);
+  };
+  for (const n of program.nodes) {
+    if (n.kind === 'const' || n.kind === 'input') continue;
+    mark(n.a);
+    if (n.kind !== 'neg') mark(n.b);
+  }
+  mark(program.result);
+  return used;
+}

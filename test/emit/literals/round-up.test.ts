@@ -1,0 +1,65 @@
+/**
+ * Bounds print rounded UP. Reference: decimal.js rounding the exact decimal
+ * expansion of the double to two significant digits with ROUND_UP.
+ */
+import { describe, expect, test } from '@jest/globals';
+import { Decimal } from 'decimal.js';
+import fc from 'fast-check';
+import { formatBoundUp, roundUpDigits } from '../../../src/emit/literals/round-up.js';
+import { Rational } from '../../../src/math/rational.js';
+
+/** The exact decimal expansion of a positive double (mantissa * 2^e = mantissa * 5^-e / 10^-e). */
+function exactDecimal(x: number): string {
+  const r = Rational.fromNumber(x);
+  let den = r.den;
+  let k = 0;
+  while (den % 2n === 0n) {
+    den /= 2n;
+    k++;
+  }
+  if (den !== 1n) throw new Error('not a dyadic rational');
+  const scaled = (r.num * 5n ** BigInt(k)).toString().padStart(k + 1, '0');
+  return k === 0 ? scaled : `${scaled.slice(0, scaled.length - k)}.${scaled.slice(scaled.length - k)}`;
+}
+
+const positives = fc.double({ min: Number.MIN_VALUE, max: 1e300, noNaN: true });
+
+describe('formatBoundUp', () => {
+  test('prints the smallest two-significant-digit decimal not below the value, as decimal.js ROUND_UP does', () => {
+    fc.assert(
+      fc.property(positives, (x) => {
+        const printed = Rational.parseDecimal(formatBoundUp(x));
+        const reference = new Decimal(exactDecimal(x)).toSignificantDigits(2, Decimal.ROUND_UP);
+        expect(printed.eq(Rational.parseDecimal(reference.toString()))).toBe(true);
+        expect(printed.cmp(Rational.fromNumber(x))).toBeGreaterThanOrEqual(0);
+      }),
+      { numRuns: 3000, seed: 20261207 },
+    );
+  });
+
+  test('never prints a double below its exact value, even when the decimal looks round', () => {
+    // The double nearest 0.001 is 0.001000000000000000020816681711721685... > 1/1000, so it prints as 0.0011.
+    expect(exactDecimal(0.001).startsWith('0.00100000000000000002081668171172168')).toBe(true);
+    expect(formatBoundUp(0.001)).toBe('0.0011');
+    expect(formatBoundUp(1.234e-5)).toBe('1.3e-5');
+    expect(formatBoundUp(0.5)).toBe('0.50');
+    expect(formatBoundUp(1)).toBe('1.0');
+    expect(formatBoundUp(0.751)).toBe('0.76');
+    expect(formatBoundUp(99.5)).toBe('100');
+    expect(formatBoundUp(123456)).toBe('1.3e+5');
+    expect(formatBoundUp(2 ** -30)).toBe('9.4e-10');
+    expect(formatBoundUp(0)).toBe('0');
+  });
+
+  test('keeps both digits, trailing zero included', () => {
+    expect(roundUpDigits(0.25, 2)).toEqual({ negative: false, digits: '25', point: 0 });
+    expect(roundUpDigits(2 ** -20, 3).digits).toBe('954');
+    expect(formatBoundUp(2 ** -3, 3)).toBe('0.125');
+  });
+
+  test('refuses negative and non-finite numbers', () => {
+    expect(() => formatBoundUp(-1e-9)).toThrow(RangeError);
+    expect(() => formatBoundUp(NaN)).toThrow(RangeError);
+    expect(() => formatBoundUp(Infinity)).toThrow(RangeError);
+  });
+});

@@ -1,0 +1,42 @@
+/** Templates fill framing slots only, and a missing or unknown slot is an error, never a blank. */
+import { describe, expect, test } from '@jest/globals';
+import { readTemplate, renderTemplate, TemplateSlotError } from '../../src/emit/templates.js';
+
+const slots = {
+  guard: 'ROOTCAST_DEMO_H',
+  commentLines: [' * demo'],
+  returnType: 'float',
+  name: 'demo',
+  parameters: 'float x',
+  bodyLines: ['return x;'],
+};
+
+describe('renderTemplate', () => {
+  test('places the slots of the C function template', () => {
+    const text = renderTemplate('c/function.h.hbs', slots);
+    expect(text).toBe(
+      '#ifndef ROOTCAST_DEMO_H\n#define ROOTCAST_DEMO_H\n\n/*\n * demo\n */\n\nstatic inline float demo(float x)\n{\n    return x;\n}\n\n#endif /* ROOTCAST_DEMO_H */\n',
+    );
+  });
+
+  test('a slot the caller leaves unfilled is an error', () => {
+    const { guard: _guard, ...missing } = slots;
+    expect(() => renderTemplate('c/function.h.hbs', missing)).toThrow(TemplateSlotError);
+  });
+
+  test('a value the template never names is an error', () => {
+    expect(() => renderTemplate('c/function.h.hbs', { ...slots, gaurd: 'X' })).toThrow(/has no slot named gaurd/);
+  });
+
+  test('does not HTML-escape code', () => {
+    expect(renderTemplate('c/function.h.hbs', { ...slots, parameters: 'float a, float b', bodyLines: ['return a < b ? a : b & 1;'] })).toContain(
+      'return a < b ? a : b & 1;',
+    );
+  });
+
+  test('the C template holds no arithmetic, only slots and framing', () => {
+    const source = readTemplate('c/function.h.hbs');
+    expect(source).not.toMatch(/\bconst\b|\breturn\b|\{\{\s*[a-zA-Z]+\s*\}\}\s*[-+*/]\s*\{\{/);
+    expect(() => readTemplate('../package.json')).toThrow(RangeError);
+  });
+});
