@@ -1,0 +1,28 @@
+/** Which inputs and constants an expression mentions. */
+import type { Expr } from './types.js';
+
+/** Indices of the inputs `e` depends on. */
+export function inputsUsed(e: Expr, into: Set<number> = new Set()): Set<number> {
+  switch (e.kind) {
+    case 'input':
+      into.add(e.index);
+      break;
+    case 'neg':
+      inputsUsed(e.arg, into);
+      break;
+    case 'pow':
+      inputsUsed(e.base, into);
+      break;
+    case 'add':
+    case 'sub':
+    case 'mul':
+    case 'div':
+      inputsUsed(e.left, into);
+      inputsUsed(e.right, into);
+      break;
+    case 'num':
+    case 'constant':
+      break;
+  }
+  return into;
+}

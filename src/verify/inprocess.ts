@@ -1,0 +1,62 @@
+/**
+ * The in-process check: the program evaluated in the target arithmetic
+ * (src/ir/evaluate.ts, every operation rounded as IEEE does it) at every
+ * sample point, each result judged against the exact bisection reference.
+ * The same verdict rules as the harnesses: every measured error <= the
+ * certified total bound, the bound <= the target, and a sign change in the
+ * bracket at every point.
+ */
+import type { EmitInput } from '../emit/types.js';
+import { evaluate } from '../ir/evaluate.js';
+import { compareFractions, fractionOfNumber, type Fraction } from './fraction.js';
+import { makeMeasurer } from './measure.js';
+import { inputBox, samplePoints } from './samples.js';
+import type { CheckSummary } from './summary.js';
+
+export interface CheckOptions {
+  readonly samples: number;
+  readonly seed: number;
+}
+
+export function checkInProcess(input: EmitInput, opts: CheckOptions): CheckSummary {
+  const { family, program, claims } = input;
+  const points = samplePoints(inputBox(family), opts.samples, opts.seed, family.arithmetic);
+  const measureAt = makeMeasurer(family, claims.absoluteBound);
+  const relative = claims.bound.kind === 'relative';
+  const boundExact = fractionOfNumber(claims.bound.total);
+
+  // The worst error is compared exactly (null = infinite), first strict maximum wins,
+  // so the TypeScript harness, which does the same, names the same point.
+  let worst: { exact: Fraction | null; value: number; at: number[] } | null = null;
+  let withinBound = true;
+  let noSignChangeCount = 0;
+  let noSignChangeAt: number[] | undefined;
+
+  for (const p of points) {
+    const m = measureAt(evaluate(program, p), p);
+    if (m.kind === 'no-sign-change') {
+      noSignChangeCount++;
+      noSignChangeAt ??= p;
+      continue;
+    }
+    const exact = m.kind === 'not-finite' ? null : relative ? m.relativeExact : m.absoluteExact;
+    const value = m.kind === 'not-finite' ? Infinity : relative ? m.relative : m.absolute;
+    if (exact === null || compareFractions(exact, boundExact) > 0) withinBound = false;
+    if (worst === null || (worst.exact !== null && (exact === null || compareFractions(exact, worst.exact) > 0))) {
+      worst = { exact, value, at: p };
+    }
+  }
+
+  return {
+    target: 'in-process',
+    inputNames: family.inputs.map((r) => r.name),
+    points: points.length,
+    worstError: worst ? worst.value : 0,
+    worstAt: worst ? worst.at : [],
+    kind: claims.bound.kind,
+    bound: claims.bound.total,
+    targetAccuracy: claims.target,
+    pass: worst !== null && withinBound && noSignChangeCount === 0 && claims.bound.total <= claims.target,
+    ...(noSignChangeAt ? { noSignChangeAt, noSignChangeCount } : {}),
+  };
+}

@@ -1,0 +1,142 @@
+/**
+ * Measuring one computed root against the exact reference (DESIGN.md 1.8):
+ * the polynomial's coefficients come exactly from the input values as the
+ * function received them; the bracket is the spec's, or the computed value
+ * widened by twice the certified absolute bound.
+ *
+ * The same three rules are written into both harnesses; keep them in step:
+ *   bracket     spec bracket if any, else [x - 2B - tiny, x + 2B + tiny],
+ *               tiny = 2^-60 * max(1, |x|) (a non-empty bracket even when B = 0);
+ *   resolution  2^(e - REFERENCE_BITS), 2^e <= max(|x|, B, 2^-1000) < 2^(e+1):
+ *               the reference is 100 bits finer than the value it judges, so
+ *               the measured error is exact to far more than the two digits
+ *               printed (an error at the level of one ulp of x is still known
+ *               to about 2^-47 of itself in float64);
+ *   reference   the midpoint of the final grid cell (reference.ts; the value under
+ *               test is the hint of its Newton shortcut).
+ * Per point everything after the coefficients is unreduced fractions (no gcd).
+ */
+import { Rational } from '../math/rational.js';
+import type { Family } from '../spec/types.js';
+import { coefficientEvaluator } from './coefficients.js';
+import {
+  absFraction,
+  addFractions,
+  divFractions,
+  fractionOfNumber,
+  fractionOfRational,
+  fractionToNumberUp,
+  midpoint,
+  scaleFraction,
+  subFractions,
+  type Fraction,
+} from './fraction.js';
+import { bisectRoot, integerCoefficients } from './reference.js';
+
+/** Bits of the reference beyond the magnitude of the value it judges. */
+export const REFERENCE_BITS = 100;
+
+/** Floor of the scale used for the resolution (keeps the grid finite at x = 0). */
+const SCALE_FLOOR = 2 ** -1000;
+
+export interface FractionInterval {
+  readonly lo: Fraction;
+  readonly hi: Fraction;
+}
+
+export type PointMeasure =
+  | {
+      readonly kind: 'measured';
+      /** The final reference interval and its midpoint (the reference value). */
+      readonly root: FractionInterval;
+      readonly reference: Fraction;
+      /** |x - reference|, exact and rounded up to a double. */
+      readonly absoluteExact: Fraction;
+      readonly absolute: number;
+      /** |x - reference| / |reference|; null (and Infinity) when the reference is 0 and x is not. */
+      readonly relativeExact: Fraction | null;
+      readonly relative: number;
+    }
+  /** The function returned an infinity or a NaN. */
+  | { readonly kind: 'not-finite' }
+  /** The polynomial has one sign at both bracket ends (a spec error at that point, or a result too far off). */
+  | { readonly kind: 'no-sign-change'; readonly bracket: FractionInterval };
+
+/** e with 2^e <= max(|x|, B, 2^-1000) < 2^(e+1), found by doubling and halving (exact in binary64). */
+function scaleExponent(x: number, absoluteBound: number): number {
+  const scale = Math.max(Math.abs(x), absoluteBound, SCALE_FLOOR);
+  let e = 0;
+  let p = 1;
+  while (p * 2 <= scale) {
+    p *= 2;
+    e++;
+  }
+  while (p > scale) {
+    p /= 2;
+    e--;
+  }
+  return e;
+}
+
+/** The grid exponent s >= 0 of the bisection: 2^-s = the resolution described above (or finer). */
+export function referenceGridExponent(x: number, absoluteBound: number): number {
+  return Math.max(0, REFERENCE_BITS - scaleExponent(x, absoluteBound));
+}
+
+/** The resolution 2^(e - REFERENCE_BITS) described above, as an exact value. */
+export function referenceResolution(x: number, absoluteBound: number): Rational {
+  const k = scaleExponent(x, absoluteBound) - REFERENCE_BITS;
+  return k >= 0 ? Rational.of(1n << BigInt(k)) : Rational.of(1n, 1n << BigInt(-k));
+}
+
+/** The bracket of the reference search, as described above. */
+export function referenceBracket(bracket: FractionInterval | null, x: number, absoluteBound: number): FractionInterval {
+  if (bracket) return bracket;
+  const xe = fractionOfNumber(x);
+  const tiny = scaleFraction(fractionOfNumber(Math.max(1, Math.abs(x))), -60);
+  const half = addFractions(scaleFraction(fractionOfNumber(absoluteBound), 1), tiny);
+  return { lo: subFractions(xe, half), hi: addFractions(xe, half) };
+}
+
+/**
+ * A measurer for one family: (computed value, inputs as the function received
+ * them) -> the point's measure. Constants and the spec bracket are parsed once.
+ */
+export function makeMeasurer(
+  family: Family,
+  absoluteBound: number,
+): (computed: number, inputs: readonly number[]) => PointMeasure {
+  const coefficients = coefficientEvaluator(family);
+  const specBracket = family.bracket
+    ? {
+        lo: fractionOfRational(Rational.parseDecimal(family.bracket[0])),
+        hi: fractionOfRational(Rational.parseDecimal(family.bracket[1])),
+      }
+    : null;
+  return (computed, inputs) => {
+    if (!Number.isFinite(computed)) return { kind: 'not-finite' };
+    const c = integerCoefficients(coefficients(inputs.map((v) => Rational.fromNumber(v))));
+    const bracket = referenceBracket(specBracket, computed, absoluteBound);
+    const xf = fractionOfNumber(computed);
+    const root = bisectRoot(c, bracket.lo, bracket.hi, referenceGridExponent(computed, absoluteBound), xf);
+    if (root === 'no-sign-change') return { kind: 'no-sign-change', bracket };
+    const reference = midpoint(root.lo, root.hi);
+    const absoluteExact = absFraction(subFractions(xf, reference));
+    const relativeExact =
+      reference.num === 0n ? (absoluteExact.num === 0n ? absoluteExact : null) : divFractions(absoluteExact, absFraction(reference));
+    return {
+      kind: 'measured',
+      root,
+      reference,
+      absoluteExact,
+      absolute: fractionToNumberUp(absoluteExact),
+      relativeExact,
+      relative: relativeExact === null ? Infinity : fractionToNumberUp(relativeExact),
+    };
+  };
+}
+
+/** One-off measurement (parses the family each call; use makeMeasurer in loops). */
+export function measure(family: Family, absoluteBound: number, computed: number, inputs: readonly number[]): PointMeasure {
+  return makeMeasurer(family, absoluteBound)(computed, inputs);
+}

@@ -1,0 +1,122 @@
+/**
+ * The sample points every check visits: the in-process check here, and the C
+ * and TypeScript harnesses, which hard-code this same algorithm so that all
+ * three see bit-identical inputs. Everything is IEEE binary64 arithmetic with
+ * no library calls, so C (compiled with -std=c99, no contraction) and
+ * JavaScript agree bit for bit.
+ *
+ * For d inputs and a request of n points, total = max(n, 2 * 2^d):
+ *   1. the 2^d corners, in corner-index order; bit j of the index picks hi for
+ *      input j;
+ *   2. a grid of g^d points, g the largest integer >= 2 with 2 * g^d <=
+ *      total - 2^d, at lo + (hi - lo) * (i / (g - 1)), input 0 varying fastest;
+ *   3. random points up to the total, from xorshift32 (Marsaglia, "Xorshift
+ *      RNGs", J. Stat. Softw. 8(14), 2003, shifts 13, 17, 5): for each input in
+ *      order the state steps once and u = (x >>> 8) / 2^24 in [0, 1), value
+ *      lo + (hi - lo) * u. The state starts at the seed (seed 0 would stay 0
+ *      forever, so it becomes 2463534242, Marsaglia's example seed).
+ * Every value is clamped to [lo, hi] in binary64, then rounded to the target
+ * arithmetic (Math.fround for float32, as the C `(float)` cast does). A box end
+ * that is not a float32 value may round just outside the box; the reference is
+ * computed for the value the function received, so the check stays exact.
+ */
+import { Rational } from '../math/rational.js';
+import { roundNumber } from '../ir/round.js';
+import type { Arithmetic, Family } from '../spec/types.js';
+
+export interface SampleBox {
+  /** Nearest binary64 values of the spec's decimal range ends. */
+  readonly lo: number;
+  readonly hi: number;
+}
+
+/** The state that replaces seed 0 (xorshift32's state must never be 0). */
+export const XORSHIFT_ZERO_SEED = 2463534242;
+
+/** Most inputs a check samples: 2^24 corners is already far beyond any use. */
+export const MAX_SAMPLED_INPUTS = 24;
+
+/** The box of a family, each end the nearest binary64 to the spec's decimal. */
+export function inputBox(family: Family): SampleBox[] {
+  return family.inputs.map((r) => ({
+    lo: Rational.parseDecimal(r.lo).toNumber(),
+    hi: Rational.parseDecimal(r.hi).toNumber(),
+  }));
+}
+
+/** Points actually visited for a request of n: room for the corners and a 2-per-side grid. */
+export function sampleTotal(inputs: number, n: number): number {
+  return Math.max(n, 2 * 2 ** inputs);
+}
+
+/** Grid points per input: the largest g >= 2 with 2 * g^d <= total - 2^d (binary search on integers). */
+export function gridSide(inputs: number, total: number): number {
+  const room = total - 2 ** inputs;
+  const fits = (g: number): boolean => {
+    let p = 2;
+    for (let j = 0; j < inputs; j++) {
+      p *= g;
+      if (p > room) return false;
+    }
+    return true;
+  };
+  let lo = 2;
+  let hi = Math.max(2, Math.floor(room / 2));
+  while (lo < hi) {
+    const mid = lo + Math.ceil((hi - lo) / 2);
+    if (fits(mid)) lo = mid;
+    else hi = mid - 1;
+  }
+  return lo;
+}
+
+/** One xorshift32 step on a uint32 state. */
+export function xorshift32(x: number): number {
+  x = (x ^ (x << 13)) >>> 0;
+  x = (x ^ (x >>> 17)) >>> 0;
+  x = (x ^ (x << 5)) >>> 0;
+  return x;
+}
+
+export function samplePoints(box: readonly SampleBox[], n: number, seed: number, arithmetic: Arithmetic): number[][] {
+  const d = box.length;
+  if (d < 1 || d > MAX_SAMPLED_INPUTS) throw new RangeError(`samplePoints: ${d} inputs (1 to ${MAX_SAMPLED_INPUTS} supported)`);
+  if (!Number.isInteger(n) || n < 1) throw new RangeError(`samplePoints: sample count ${n} is not a positive integer`);
+  if (!Number.isInteger(seed) || seed < 0 || seed > 0xffffffff) throw new RangeError(`samplePoints: seed ${seed} is not a uint32`);
+  const total = sampleTotal(d, n);
+  const out: number[][] = [];
+  const finish = (raw: number[]): number[] =>
+    raw.map((v, j) => {
+      const { lo, hi } = box[j]!;
+      return roundNumber(v < lo ? lo : v > hi ? hi : v, arithmetic);
+    });
+
+  const corners = 2 ** d;
+  for (let c = 0; c < corners; c++) {
+    out.push(finish(box.map((b, j) => ((c >>> j) & 1 ? b.hi : b.lo))));
+  }
+
+  const g = gridSide(d, total);
+  const idx = new Array<number>(d).fill(0);
+  const gridCount = g ** d;
+  for (let k = 0; k < gridCount; k++) {
+    out.push(finish(box.map((b, j) => b.lo + (b.hi - b.lo) * (idx[j]! / (g - 1)))));
+    for (let j = 0; j < d; j++) {
+      if (++idx[j]! < g) break;
+      idx[j] = 0;
+    }
+  }
+
+  let x = seed === 0 ? XORSHIFT_ZERO_SEED : seed;
+  while (out.length < total) {
+    out.push(
+      finish(
+        box.map((b) => {
+          x = xorshift32(x);
+          return b.lo + (b.hi - b.lo) * ((x >>> 8) / 16777216);
+        }),
+      ),
+    );
+  }
+  return out;
+}

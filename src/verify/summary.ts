@@ -1,0 +1,137 @@
+/**
+ * The one summary line every check prints (the in-process check, the C
+ * harness and the TypeScript harness print it identically, numbers in C's
+ * `%.1e` and `%.9g` formats), and its reader, so `rootcast verify` can read a
+ * harness's verdict from its stdout.
+ *
+ *   check NAME (LANGUAGE, ARITHMETIC): N points; worst KIND error E at IN = V[, IN = V];
+ *     [no sign change in the bracket at K point(s), first at IN = V[, ...]; ]
+ *     certified bound B; target T; PASS|FAIL
+ *
+ * (one line; E, B, T in `%.1e`, V in `%.9g`; "worst KIND error none" when no
+ * point could be measured).
+ */
+import type { Arithmetic } from '../spec/types.js';
+import { formatE, formatG } from './printf.js';
+
+export type SummaryLanguage = 'C' | 'TypeScript' | 'in-process';
+export type CheckTarget = 'in-process' | 'c' | 'ts';
+
+export interface CheckSummary {
+  readonly target: CheckTarget;
+  /** Input names, in signature order (for the `at` parts). */
+  readonly inputNames: readonly string[];
+  readonly points: number;
+  /** Worst measured error (rounded up); 0 with an empty `worstAt` when no point was measured. */
+  readonly worstError: number;
+  readonly worstAt: readonly number[];
+  readonly kind: 'absolute' | 'relative';
+  /** Certified total bound and the target accuracy, in `kind`. */
+  readonly bound: number;
+  readonly targetAccuracy: number;
+  /** Every measured error <= bound, bound <= target, no point without a sign change. */
+  readonly pass: boolean;
+  /** First point whose bracket showed no sign change, and how many did. */
+  readonly noSignChangeAt?: readonly number[];
+  readonly noSignChangeCount?: number;
+}
+
+/** A summary read back from a line: the numbers carry the line's printed digits only. */
+export interface ParsedSummary extends CheckSummary {
+  readonly functionName: string;
+  readonly language: SummaryLanguage;
+  readonly arithmetic: Arithmetic;
+}
+
+const LANGUAGE_TARGET: Readonly<Record<SummaryLanguage, CheckTarget>> = {
+  C: 'c',
+  TypeScript: 'ts',
+  'in-process': 'in-process',
+};
+
+function pointText(names: readonly string[], values: readonly number[]): string {
+  return names.map((name, j) => `${name} = ${formatG(values[j]!, 9)}`).join(', ');
+}
+
+function plural(count: number): string {
+  return `${count} point${count === 1 ? '' : 's'}`;
+}
+
+export function formatSummary(
+  s: CheckSummary,
+  functionName: string,
+  arithmetic: Arithmetic,
+  language: SummaryLanguage,
+): string {
+  const worst =
+    s.worstAt.length === 0
+      ? `worst ${s.kind} error none`
+      : `worst ${s.kind} error ${formatE(s.worstError, 1)} at ${pointText(s.inputNames, s.worstAt)}`;
+  const noSign =
+    s.noSignChangeAt && s.noSignChangeCount
+      ? `; no sign change in the bracket at ${plural(s.noSignChangeCount)}, first at ${pointText(s.inputNames, s.noSignChangeAt)}`
+      : '';
+  return (
+    `check ${functionName} (${language}, ${arithmetic}): ${plural(s.points)}; ${worst}${noSign}; ` +
+    `certified bound ${formatE(s.bound, 1)}; target ${formatE(s.targetAccuracy, 1)}; ${s.pass ? 'PASS' : 'FAIL'}`
+  );
+}
+
+const NUMBER = String.raw`(?:-?inf|nan|-?\d+(?:\.\d+)?(?:e[+-]\d+)?)`;
+const POINT = String.raw`\w+ = ${NUMBER}(?:, \w+ = ${NUMBER})*`;
+const LINE = new RegExp(
+  String.raw`^check (\w+) \((C|TypeScript|in-process), (float32|float64)\): (\d+) points?; ` +
+    String.raw`worst (absolute|relative) error (?:none|(${NUMBER}) at (${POINT}))` +
+    String.raw`(?:; no sign change in the bracket at (\d+) points?, first at (${POINT}))?` +
+    String.raw`; certified bound (${NUMBER}); target (${NUMBER}); (PASS|FAIL)$`,
+);
+
+function parseNumber(text: string): number {
+  if (text === 'inf') return Infinity;
+  if (text === '-inf') return -Infinity;
+  if (text === 'nan') return NaN;
+  return Number(text);
+}
+
+function parsePoint(text: string): { names: string[]; values: number[] } {
+  const names: string[] = [];
+  const values: number[] = [];
+  for (const part of text.split(', ')) {
+    const [name, value] = part.split(' = ');
+    names.push(name!);
+    values.push(parseNumber(value!));
+  }
+  return { names, values };
+}
+
+/** Reads a summary line; throws a SyntaxError naming the line when it is not one. */
+export function parseSummary(line: string): ParsedSummary {
+  const m = LINE.exec(line.trim());
+  if (!m) throw new SyntaxError(`not a check summary line: ${JSON.stringify(line)}`);
+  const language = m[2] as SummaryLanguage;
+  const worst = m[7] !== undefined ? parsePoint(m[7]) : null;
+  const noSign = m[9] !== undefined ? parsePoint(m[9]) : null;
+  return {
+    functionName: m[1]!,
+    language,
+    arithmetic: m[3] as Arithmetic,
+    target: LANGUAGE_TARGET[language],
+    inputNames: worst?.names ?? noSign?.names ?? [],
+    points: Number(m[4]),
+    kind: m[5] as 'absolute' | 'relative',
+    worstError: m[6] !== undefined ? parseNumber(m[6]) : 0,
+    worstAt: worst?.values ?? [],
+    ...(noSign ? { noSignChangeAt: noSign.values, noSignChangeCount: Number(m[8]) } : {}),
+    bound: parseNumber(m[10]!),
+    targetAccuracy: parseNumber(m[11]!),
+    pass: m[12] === 'PASS',
+  };
+}
+
+/** The last summary line in a harness's stdout (a `--dump` run prints point lines first). */
+export function summaryLineOf(stdout: string): string {
+  const lines = stdout.split('\n').filter((l) => l.startsWith('check '));
+  const last = lines[lines.length - 1];
+  if (last === undefined) throw new SyntaxError('no check summary line in the output');
+  return last;
+}

@@ -1,0 +1,39 @@
+import { describe, expect, test } from '@jest/globals';
+import { readSpec } from '../../src/spec/read.js';
+import { PLAN_DEFAULTS } from '../../src/spec/section-plan.js';
+import { expectRefusal, withExtra } from './helpers.js';
+
+describe('plan', () => {
+  test('without plan the defaults apply: max_order 40, segments auto, max_table_bytes 4096', () => {
+    expect(readSpec('spec.yaml', withExtra()).plan).toEqual({ maxOrder: 40, segments: 'auto', maxTableBytes: 4096 });
+    expect(PLAN_DEFAULTS).toEqual({ maxOrder: 40, segments: 'auto', maxTableBytes: 4096 });
+  });
+
+  test('given knobs replace the defaults, the others keep theirs', () => {
+    const f = readSpec('spec.yaml', withExtra('plan:', '  max_order: 12', '  segments: 8'));
+    expect(f.plan).toEqual({ maxOrder: 12, segments: 8, maxTableBytes: 4096 });
+    expect(f.positions['plan.segments']).toEqual({ line: 18, column: 13 });
+  });
+
+  test('max_order above 400 is refused', () => {
+    expectRefusal(withExtra('plan:', '  max_order: 401'), 'spec.yaml:17:14: plan.max_order: ', 'expected a whole number from 0 to 400, found 401');
+  });
+
+  test('a fractional max_order is refused', () => {
+    expectRefusal(withExtra('plan:', '  max_order: 4.0'), 'spec.yaml:17:14: plan.max_order: ', 'found 4.0');
+  });
+
+  test('segments that are not a power of two are refused', () => {
+    expectRefusal(withExtra('plan:', '  segments: 3'), 'spec.yaml:17:13: plan.segments: ', 'expected auto or a power of two');
+    expectRefusal(withExtra('plan:', '  segments: 0'), 'spec.yaml:17:13: plan.segments: ', 'expected auto or a power of two');
+    expectRefusal(withExtra('plan:', '  segments: many'), 'spec.yaml:17:13: plan.segments: ', 'found the text `many`');
+  });
+
+  test('max_table_bytes must be a positive whole number', () => {
+    expectRefusal(withExtra('plan:', '  max_table_bytes: 0'), 'spec.yaml:17:20: plan.max_table_bytes: ', 'expected a whole number from 1 to');
+  });
+
+  test('an unknown knob is refused with a suggestion', () => {
+    expectRefusal(withExtra('plan:', '  max_ordr: 3'), 'spec.yaml:17:3: plan.max_ordr: ', 'unknown field `max_ordr`; did you mean `max_order`?');
+  });
+});
