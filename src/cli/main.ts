@@ -6,11 +6,8 @@
 import yargs from 'yargs';
 import { RootcastError } from '../errors.js';
 import { VERSION } from '../version.js';
-import { runEmit } from './commands/emit.js';
-import { runNew } from './commands/new.js';
-import { planJson, planText } from './commands/plan.js';
-import { runVerify } from './commands/verify.js';
-import { planSpec } from './pipeline.js';
+// Commands are loaded when they run, so `plan` and `--help` never load the
+// TypeScript compiler that the TypeScript printer needs (about 2 s).
 
 const out = (line: string): void => {
   process.stdout.write(`${line}\n`);
@@ -30,7 +27,8 @@ export async function main(argv: string[]): Promise<number> {
         y
           .positional('name', { type: 'string', demandOption: true, describe: 'function name (a C, TypeScript and GLSL identifier)' })
           .option('out', { type: 'string', describe: 'file to write instead of NAME.yaml' }),
-      (a) => {
+      async (a) => {
+        const { runNew } = await import('./commands/new.js');
         code = runNew(a.name, a.out, out);
       },
     )
@@ -41,7 +39,9 @@ export async function main(argv: string[]): Promise<number> {
         y
           .positional('spec', { type: 'string', demandOption: true, describe: 'spec file (YAML or JSON)' })
           .option('json', { type: 'boolean', default: false, describe: 'print one JSON object instead of text' }),
-      (a) => {
+      async (a) => {
+        const { planJson, planText } = await import('./commands/plan.js');
+        const { planSpec } = await import('./pipeline.js');
         const plan = planSpec(a.spec);
         out(a.json ? JSON.stringify(planJson(plan), null, 2) : planText(plan));
       },
@@ -59,7 +59,8 @@ export async function main(argv: string[]): Promise<number> {
             default: false,
             describe: 'write nothing; exit 1 and name the files if DIR is out of date',
           }),
-      (a) => {
+      async (a) => {
+        const { runEmit } = await import('./commands/emit.js');
         code = runEmit({ spec: a.spec, target: a.target, out: a.out, check: a.check }, out);
       },
     )
@@ -72,7 +73,8 @@ export async function main(argv: string[]): Promise<number> {
           .option('target', { choices: TARGET_CHOICES, default: 'all' as const, describe: 'harnesses to build and run' })
           .option('samples', { type: 'number', default: 10000, describe: 'sample points (corners, a grid, seeded random)' })
           .option('seed', { type: 'number', default: 1, describe: 'seed of the random sample points' }),
-      (a) => {
+      async (a) => {
+        const { runVerify } = await import('./commands/verify.js');
         if (!Number.isInteger(a.samples) || a.samples < 1) throw new RootcastError('--samples must be a positive integer');
         if (!Number.isInteger(a.seed) || a.seed < 0 || a.seed > 0xffffffff) throw new RootcastError('--seed must be an integer from 0 to 4294967295');
         code = runVerify({ spec: a.spec, target: a.target, samples: a.samples, seed: a.seed }, out);

@@ -94,8 +94,10 @@ export class ProgramBuilder {
     if ((kind === 'mul' || kind === 'div') && cb?.eq(Rational.ONE)) return a;
     if (kind === 'mul' && ca?.eq(Rational.ONE.neg())) return this.neg(b);
     if ((kind === 'mul' || kind === 'div') && cb?.eq(Rational.ONE.neg())) return this.neg(a);
-    // Commutative operations: one canonical operand order for sharing.
-    const [x, y] = (kind === 'add' || kind === 'mul') && a > b ? [b, a] : [a, b];
+    // Commutative operations: one canonical operand order for sharing, a
+    // constant operand on the right (it reads as `v * 2.5f`).
+    const swap = (kind === 'add' || kind === 'mul') && (ca && !cb ? true : !ca && !cb && a > b);
+    const [x, y] = swap ? [b, a] : [a, b];
     return this.push({ kind, a: x, b: y }, `${kind}:${x}:${y}`);
   }
 

@@ -55,8 +55,12 @@ export function materialise(b: ProgramBuilder, f: LinearForm): Ref {
     const w = f.terms.get(ref)!;
     const magnitude = w.abs();
     const scaled = magnitude.eq(Rational.ONE) ? ref : b.mul(b.const(magnitude), ref);
-    if (acc === null) acc = w.sign() < 0 ? b.neg(scaled) : scaled;
-    else acc = w.sign() < 0 ? b.sub(acc, scaled) : b.add(acc, scaled);
+    if (acc === null) acc = w.sign() < 0 ? null : scaled;
+    if (acc === null) {
+      // A leading negative term: subtract it from the constant (one operation, no negation).
+      acc = f.constant.isZero() || atoms.length > 1 ? b.neg(scaled) : b.sub(b.const(f.constant), scaled);
+      if (!f.constant.isZero() && atoms.length === 1) return acc;
+    } else if (acc !== scaled) acc = w.sign() < 0 ? b.sub(acc, scaled) : b.add(acc, scaled);
   }
   if (acc === null) return b.const(f.constant);
   return f.constant.isZero() ? acc : b.add(acc, b.const(f.constant));

@@ -78,13 +78,17 @@ export function makePlan(family: Family): Plan {
   const byGrade: SeriesTerm[][] = [];
   const kept: SeriesTerm[] = [];
   let best: { order: number; total: number; rounding: number } | null = null;
-  for (let order = 0; order <= LIMITS.grade; order++) {
+  const nextGrade = (order: number): boolean => {
     const fresh = termsOfGrade(degree, active, order);
     byGrade.push(fresh);
     kept.push(...fresh);
-    if (kept.length > LIMITS.terms) break;
+    if (kept.length > LIMITS.terms) return false;
     for (const c of set.cells) addGrade(c, fresh, order);
-    set.onNewCell = (c) => byGrade.forEach((ts, w) => addGrade(c, ts, w));
+    return true;
+  };
+  set.onNewCell = (c) => byGrade.forEach((ts, w) => addGrade(c, ts, w));
+  for (let order = 0; order <= family.plan.maxOrder; order++) {
+    if (!nextGrade(order)) break;
     let trunc = set.truncation(order, relative);
     if (trunc > target / 2 && trunc < target * 1e3) {
       set.refineWorst(order, relative, LIMITS.cells);
@@ -94,7 +98,6 @@ export function makePlan(family: Family): Plan {
     const program = seriesProgram(family, root.x0, kept);
     const ev = evaluate(program, set.cells, order, relative);
     if (ev.bound.total <= target) {
-      if (order > family.plan.maxOrder) refuseOrder(family, order);
       return {
         family,
         root,
@@ -112,7 +115,12 @@ export function makePlan(family: Family): Plan {
     // Truncation is already negligible next to rounding: more terms cannot help.
     if (ev.bound.truncation < 0.05 * ev.bound.rounding) refuseFloor(family, best.total, best.rounding);
   }
-  if (best) refuseFloor(family, best.total, best.rounding);
+  if (best && best.rounding > target / 2) refuseFloor(family, best.total, best.rounding);
+  // Past max_order: find the order the truncation bound alone needs (cheap: no programs, no refinement).
+  for (let order = byGrade.length; order <= LIMITS.grade; order++) {
+    if (!nextGrade(order)) break;
+    if (set.truncation(order, relative) <= target) refuseOrder(family, order);
+  }
   refuseOrder(family, null);
 }
 

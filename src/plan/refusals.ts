@@ -64,12 +64,12 @@ export function refuseFloor(family: Family, total: number, rounding: number): ne
 export function refuseOrder(family: Family, needed: number | null): never {
   if (needed === null) {
     throw new RootcastError(
-      `no order up to ${LIMITS.grade} (or ${LIMITS.terms} terms) meets the target; narrow the input ranges, loosen the accuracy${family.bracket ? '' : ' or add root.bracket to recentre the series'}`,
+      `the series needs more than order ${LIMITS.grade} (or ${LIMITS.terms} terms) to meet the target; narrow the input ranges, loosen the accuracy${family.bracket ? '' : ' or add root.bracket to recentre the series'}`,
       locate(family, `accuracy.${family.accuracy.kind}`),
     );
   }
   throw new RootcastError(
-    `plan.max_order ${family.plan.maxOrder} is too small: order ${needed} is needed to meet the target; set plan.max_order: ${needed} or more`,
-    locate(family, family.positions['plan.max_order'] ? 'plan.max_order' : 'plan'),
+    `plan.max_order ${family.plan.maxOrder} is too small: the truncation bound alone needs order ${needed}; set plan.max_order: ${needed} or more`,
+    family.positions['plan.max_order'] ? locate(family, 'plan.max_order') : { ...locate(family, `accuracy.${family.accuracy.kind}`), field: 'plan.max_order' },
   );
 }

@@ -11,7 +11,7 @@
  * a(T) is bounded from above (a point where f is certainly <= 0), and a_S(T)
  * is summed from below (every term and every partial sum rounded down).
  */
-import { addDown, addUp, mulDown, mulUp, nextDown } from '../math/directed.js';
+import { addDown, addUp, mulDown, mulUp, nextDown, nextUp } from '../math/directed.js';
 import type { SeriesTerm } from './hyper-catalan.js';
 
 /** f(a) evaluated with rounding up: an upper bound of the exact f(a), a >= 0. */
@@ -45,12 +45,16 @@ export type MajorantRoot = { converges: true; upper: number } | { converges: fal
  */
 export function majorantRoot(T: readonly number[]): MajorantRoot {
   if (T.slice(2).every((t) => t === 0)) return { converges: true, upper: 1 };
-  // a* (the minimiser of f) is where f' changes sign; f' is increasing for a > 0.
+  // For small T the root is close to 1 + f(1): try a point just beyond it first.
+  const f1 = fNear(T, 1);
+  const guess = Math.max(nextUp(1), nextUp(1 + 2 * f1));
+  if (guess < 2 && fUpper(T, guess) <= 0) return { converges: true, upper: bisectRoot(T, 1, guess) };
+  // Otherwise find a* (the minimiser of f): f' is increasing for a > 0.
   let lo = 1;
   let hi = 2;
   if (fPrimeNear(T, lo) >= 0) {
     // f increases from a = 1 on, and f(a) > 0 on [0, 1]: only f(1) = sum T_k could vanish.
-    return { converges: false, minimum: fNear(T, 1) };
+    return { converges: false, minimum: f1 };
   }
   while (fPrimeNear(T, hi) < 0) {
     hi *= 2;
@@ -63,16 +67,22 @@ export function majorantRoot(T: readonly number[]): MajorantRoot {
   }
   const aStar = lo;
   if (fUpper(T, aStar) > 0) return { converges: false, minimum: fNear(T, aStar) };
-  // Bisection for the root in [1, a*]: f(1) >= 0 and f(a*) <= 0 (certified).
-  let left = 1;
-  let right = aStar;
+  return { converges: true, upper: bisectRoot(T, 1, aStar) };
+}
+
+/**
+ * Bisection for the smallest root in [left, right], given f(left) >= 0 and a
+ * certified f(right) <= 0; `right` only moves to points where the upper bound
+ * of f is <= 0, so the returned value is a certified upper bound of the root.
+ */
+function bisectRoot(T: readonly number[], left: number, right: number): number {
   for (let i = 0; i < 80; i++) {
     const mid = 0.5 * (left + right);
     if (mid <= left || mid >= right) break;
-    if (fUpper(T, mid) <= 0) right = mid; // certified: the smallest root is <= mid
+    if (fUpper(T, mid) <= 0) right = mid;
     else left = mid;
   }
-  return { converges: true, upper: right };
+  return right;
 }
 
 /**

@@ -1,6 +1,7 @@
 /** `rootcast emit SPEC --target c|ts|all --out DIR [--check]`. */
 import { staleFiles, writeFiles } from '../files.js';
-import { emitFiles, emitInputOf, planSpec, targetsOf } from '../pipeline.js';
+import { emitFiles, targetsOf } from '../emit-files.js';
+import { emitInputOf, planSpec } from '../pipeline.js';
 
 export interface EmitOptions {
   spec: string;
