@@ -1,0 +1,32 @@
+/**
+ * Where the examples live. Tests hand the planner the relative spec path
+ * `examples/<file>` (as `npm run samples` does), so the emitted headers name
+ * the spec as the repository reader sees it; that path is read relative to
+ * the repository root, so the root is made the working directory here.
+ */
+import { readdirSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
+
+export const REPO_ROOT = fileURLToPath(new URL('../../..', import.meta.url)).replace(/\/$/, '');
+
+/** Makes the repository root the working directory (jest usually starts there already). */
+export function atRepoRoot(): void {
+  if (process.cwd() !== REPO_ROOT) process.chdir(REPO_ROOT);
+}
+
+/** Every examples/*.yaml file name, sorted (the order `npm run samples` uses). */
+export function exampleFiles(): string[] {
+  return readdirSync(`${REPO_ROOT}/examples`)
+    .filter((f) => f.endsWith('.yaml'))
+    .sort();
+}
+
+/** The relative spec path the emitted headers carry. */
+export function specPathOf(file: string): string {
+  return `examples/${file}`;
+}
+
+/** The generated-samples folder name of an example: its file name without `.yaml`. */
+export function sampleFolderOf(file: string): string {
+  return file.replace(/\.yaml$/, '');
+}

@@ -1,0 +1,50 @@
+import { describe, expect, test } from '@jest/globals';
+import { Rational } from '../../src/math/rational.js';
+import { ProgramBuilder } from '../../src/ir/builder.js';
+import { countOps } from '../../src/ir/count.js';
+
+describe('program builder', () => {
+  test('constant operations fold exactly, then round once: 1/3 + 1/6 stores fl(1/2) = 0.5', () => {
+    const b = new ProgramBuilder('float32', ['x']);
+    const c = b.add(b.const(Rational.of(1n, 3n)), b.const(Rational.of(1n, 6n)));
+    const n = b.node(c);
+    expect(n.kind).toBe('const');
+    if (n.kind === 'const') {
+      expect(n.exact.eq(Rational.of(1n, 2n))).toBe(true);
+      expect(n.value).toBe(0.5);
+    }
+  });
+
+  test('identical operations are built once (hash-consing), commutative ones in either order', () => {
+    const b = new ProgramBuilder('float64', ['x', 'y']);
+    const x = b.input(0);
+    const y = b.input(1);
+    expect(b.mul(x, y)).toBe(b.mul(y, x));
+    expect(b.add(x, y)).toBe(b.add(y, x));
+    expect(b.sub(x, y)).not.toBe(b.sub(y, x));
+  });
+
+  test('identities cost nothing: x * 1, x + 0, 0 - x is a negation, x * -1 too', () => {
+    const b = new ProgramBuilder('float64', ['x']);
+    const x = b.input(0);
+    expect(b.mul(x, b.const(Rational.ONE))).toBe(x);
+    expect(b.add(b.const(Rational.ZERO), x)).toBe(x);
+    expect(b.node(b.sub(b.const(Rational.ZERO), x)).kind).toBe('neg');
+    expect(b.node(b.mul(x, b.const(Rational.ONE.neg()))).kind).toBe('neg');
+  });
+
+  test('finish keeps only what the result needs and counts its operations', () => {
+    const b = new ProgramBuilder('float64', ['x']);
+    const x = b.input(0);
+    b.mul(x, x); // dead
+    const r = b.add(b.mul(x, b.const(Rational.int(3))), b.const(Rational.int(2)));
+    const p = b.finish(r);
+    expect(countOps(p)).toEqual({ add: 1, mul: 1, div: 0, tableReads: 0 });
+    p.nodes.forEach((n, i) => {
+      if (n.kind !== 'const' && n.kind !== 'input') {
+        expect(n.a).toBeLessThan(i);
+        if (n.kind !== 'neg') expect(n.b).toBeLessThan(i);
+      }
+    });
+  });
+});
