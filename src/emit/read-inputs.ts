@@ -1,5 +1,6 @@
 /** Which function arguments a program actually reads (as an operand or as its result). */
 import type { Program } from '../ir/nodes.js';
+import { operands } from '../ir/operands.js';
 
 export function readInputs(program: Program): Set<number> {
   const used = new Set<number>();
@@ -7,11 +8,7 @@ export function readInputs(program: Program): Set<number> {
     const n = program.nodes[ref];
     if (n?.kind === 'input') used.add(n.index);
   };
-  for (const n of program.nodes) {
-    if (n.kind === 'const' || n.kind === 'input') continue;
-    mark(n.a);
-    if (n.kind !== 'neg') mark(n.b);
-  }
+  for (const n of program.nodes) operands(n).forEach(mark);
   mark(program.result);
   return used;
 }

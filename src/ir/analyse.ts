@@ -16,6 +16,7 @@
  *            Q = max|a/b|, mb = min|b| > eb
  *   neg:     e = ea (exact)
  *   const:   e = |stored - exact|;  input: e = 0 (inputs are taken as received).
+ *   table:   as a constant, for the cell's segment (the caller says which).
  * Every bound is computed with upward rounding, so the result is rigorous.
  * Fused multiply-add contraction by a compiler only removes roundings, but the
  * bound is stated for the unfused program that the printers emit.
@@ -36,7 +37,12 @@ export interface Analysis {
 const WHOLE: Interval = { lo: -Infinity, hi: Infinity };
 
 /** Options: `flushToZero` for arithmetic that flushes subnormal results (larger eta). */
-export function analyse(program: Program, cell: readonly Interval[], opts: { flushToZero?: boolean } = {}): Analysis {
+export function analyse(
+  program: Program,
+  cell: readonly Interval[],
+  opts: { flushToZero?: boolean; segment?: number } = {},
+): Analysis {
+  const segment = opts.segment ?? 0;
   const f = FORMATS[program.arithmetic];
   const u = f.u;
   const eta = opts.flushToZero ? f.minSubnormal * 2 ** (f.bits - 1) : f.minSubnormal / 2;
@@ -48,10 +54,12 @@ export function analyse(program: Program, cell: readonly Interval[], opts: { flu
     let v: Interval;
     let e: number;
     switch (n.kind) {
-      case 'const':
-        v = { lo: n.exact.toNumberDown(), hi: n.exact.toNumberUp() };
-        e = constError(n.value, n.exact);
+      case 'const': {
+        const c = constantFacts(n, n.value, n.exact);
+        v = c.value;
+        e = c.error;
         break;
+      }
       case 'input':
         v = cell[n.index]!;
         e = 0;
@@ -99,6 +107,19 @@ export function analyse(program: Program, cell: readonly Interval[], opts: { flu
         e = addUp(addUp(prop, mulUp(u, addUp(q, prop))), eta);
         break;
       }
+      case 'index':
+        // An integer; the cell lies in one segment, given by the caller.
+        v = { lo: segment, hi: segment };
+        e = 0;
+        break;
+      case 'table': {
+        const exact = n.exact[segment];
+        if (exact === undefined) throw new RangeError(`table has no segment ${segment}`);
+        const c = constantFacts(n, n.values[segment]!, exact, segment);
+        v = c.value;
+        e = c.error;
+        break;
+      }
       default:
         throw new UnknownNodeError(n);
     }
@@ -111,6 +132,26 @@ export function analyse(program: Program, cell: readonly Interval[], opts: { flu
     errors[i] = e;
   }
   return { values, errors, unbounded };
+}
+
+/**
+ * Interval and stored-value error of a constant (or a table entry): the same
+ * for every cell, so computed once per node and kept (exact arithmetic is the
+ * costly part of the analysis otherwise).
+ */
+const constantCache = new WeakMap<object, Map<number, { value: Interval; error: number }>>();
+function constantFacts(node: object, stored: number, exact: Rational, segment = 0): { value: Interval; error: number } {
+  let bySegment = constantCache.get(node);
+  if (!bySegment) {
+    bySegment = new Map();
+    constantCache.set(node, bySegment);
+  }
+  let f = bySegment.get(segment);
+  if (!f) {
+    f = { value: { lo: exact.toNumberDown(), hi: exact.toNumberUp() }, error: constError(stored, exact) };
+    bySegment.set(segment, f);
+  }
+  return f;
 }
 
 /** |stored - exact| rounded up. */

@@ -2,22 +2,54 @@
  * Builds a Program node by node, folding constant operations exactly and
  * sharing identical nodes (hash-consing), so the emitted code never computes
  * the same value twice and never spends an operation on two constants.
+ *
+ * Segmented programs: a builder made for S segments works with per-segment
+ * constants (one exact value per segment). A constant equal in every segment
+ * is an ordinary `const`; any other becomes a `table` node read at the
+ * segment number, which the builder computes once, on first need, from the
+ * segmentation it was given. Folding works segment by segment, so a table of
+ * constants combined with a table is again one table.
  */
 import { Rational } from '../math/rational.js';
 import type { Arithmetic } from '../spec/types.js';
 import type { BinaryKind, Node, Program } from './nodes.js';
+import { operands, renumber } from './operands.js';
 import { roundTo } from './round.js';
 
 export type Ref = number;
 
+/** Per-segment values (length = number of segments). */
+export type SegValues = readonly Rational[];
+
+/** How the segment number is computed: for each segmented input, t = (x - c0) * invWidth. */
+export interface Segmentation {
+  readonly parts: readonly {
+    readonly input: number;
+    readonly count: number;
+    /** Centre of the first segment and 1 / segment width, both numbers of the target format. */
+    readonly c0: number;
+    readonly invWidth: number;
+    readonly stride: number;
+  }[];
+  readonly segments: number;
+}
+
+export const SINGLE: Segmentation = { parts: [], segments: 1 };
+
 export class ProgramBuilder {
   private readonly nodes: Node[] = [];
   private readonly memo = new Map<string, Ref>();
+  private indexRef: Ref | null = null;
 
   constructor(
     readonly arithmetic: Arithmetic,
     readonly inputNames: readonly string[],
+    readonly segmentation: Segmentation = SINGLE,
   ) {}
+
+  get segments(): number {
+    return this.segmentation.segments;
+  }
 
   private push(node: Node, key: string): Ref {
     const hit = this.memo.get(key);
@@ -34,15 +66,45 @@ export class ProgramBuilder {
     return n;
   }
 
-  /** The exact value of a node if it is a constant, else null. */
+  /** The exact value of a node if it is a constant equal in every segment, else null. */
   constValue(ref: Ref): Rational | null {
     const n = this.node(ref);
     return n.kind === 'const' ? n.exact : null;
   }
 
-  const(exact: Rational): Ref {
-    const value = roundTo(exact, this.arithmetic);
-    return this.push({ kind: 'const', value, exact }, `c:${exact.toString()}`);
+  /** The per-segment exact values of a constant or table node, else null. */
+  segValues(ref: Ref): SegValues | null {
+    const n = this.node(ref);
+    if (n.kind === 'const') return new Array<Rational>(this.segments).fill(n.exact);
+    if (n.kind === 'table') return n.exact;
+    return null;
+  }
+
+  /** A constant: one exact value for every segment, or one per segment. */
+  const(exact: Rational | SegValues): Ref {
+    const values = exact instanceof Rational ? null : exact;
+    if (values && values.length !== this.segments) throw new RangeError(`expected ${this.segments} segment values`);
+    const uniform = values === null ? (exact as Rational) : values.every((v) => v.eq(values[0]!)) ? values[0]! : null;
+    if (uniform) {
+      const value = roundTo(uniform, this.arithmetic);
+      return this.push({ kind: 'const', value, exact: uniform }, `c:${uniform.toString()}`);
+    }
+    const index = this.segmentIndex();
+    const vs = values!.map((v) => roundTo(v, this.arithmetic));
+    return this.push({ kind: 'table', index, values: vs, exact: values! }, `t:${values!.join(',')}`);
+  }
+
+  private segmentIndex(): Ref {
+    if (this.indexRef !== null) return this.indexRef;
+    const parts = this.segmentation.parts.map((p) => {
+      const x = this.input(p.input);
+      const c0 = this.const(Rational.fromNumber(p.c0));
+      const inv = this.const(Rational.fromNumber(p.invWidth));
+      return { t: this.mul(this.sub(x, c0), inv), count: p.count, stride: p.stride };
+    });
+    if (parts.length === 0) throw new RangeError('per-segment constant in a program without segments');
+    this.indexRef = this.push({ kind: 'index', parts }, 'index');
+    return this.indexRef;
   }
 
   input(index: number): Ref {
@@ -51,8 +113,8 @@ export class ProgramBuilder {
   }
 
   neg(a: Ref): Ref {
-    const ca = this.constValue(a);
-    if (ca) return this.const(ca.neg());
+    const sa = this.segValues(a);
+    if (sa) return this.const(sa.map((v) => v.neg()));
     const na = this.node(a);
     if (na.kind === 'neg') return na.a;
     return this.push({ kind: 'neg', a }, `n:${a}`);
@@ -72,20 +134,14 @@ export class ProgramBuilder {
   }
 
   private binary(kind: BinaryKind, a: Ref, b: Ref): Ref {
+    const sa = this.segValues(a);
+    const sb = this.segValues(b);
+    if (sa && sb) {
+      const f = FOLD[kind];
+      return this.const(sa.map((x, i) => f(x, sb[i]!)));
+    }
     const ca = this.constValue(a);
     const cb = this.constValue(b);
-    if (ca && cb) {
-      switch (kind) {
-        case 'add':
-          return this.const(ca.add(cb));
-        case 'sub':
-          return this.const(ca.sub(cb));
-        case 'mul':
-          return this.const(ca.mul(cb));
-        case 'div':
-          return this.const(ca.div(cb));
-      }
-    }
     // Identities that are exact in IEEE arithmetic too.
     if (kind === 'add' && ca?.isZero()) return b;
     if ((kind === 'add' || kind === 'sub') && cb?.isZero()) return a;
@@ -96,7 +152,7 @@ export class ProgramBuilder {
     if ((kind === 'mul' || kind === 'div') && cb?.eq(Rational.ONE.neg())) return this.neg(a);
     // Commutative operations: one canonical operand order for sharing, a
     // constant operand on the right (it reads as `v * 2.5f`).
-    const swap = (kind === 'add' || kind === 'mul') && (ca && !cb ? true : !ca && !cb && a > b);
+    const swap = (kind === 'add' || kind === 'mul') && (sa && !sb ? true : !sa && !sb && a > b);
     const [x, y] = swap ? [b, a] : [a, b];
     return this.push({ kind, a: x, b: y }, `${kind}:${x}:${y}`);
   }
@@ -121,27 +177,26 @@ export class ProgramBuilder {
   }
 }
 
+const FOLD: Readonly<Record<BinaryKind, (a: Rational, b: Rational) => Rational>> = {
+  add: (a, b) => a.add(b),
+  sub: (a, b) => a.sub(b),
+  mul: (a, b) => a.mul(b),
+  div: (a, b) => a.div(b),
+};
+
 /** Drops nodes the result does not depend on and renumbers the rest in order. */
 function pruneTo(nodes: readonly Node[], result: Ref): { nodes: Node[]; result: Ref } {
   const live = new Array<boolean>(nodes.length).fill(false);
   live[result] = true;
   for (let i = result; i >= 0; i--) {
-    if (!live[i]) continue;
-    const n = nodes[i]!;
-    if (n.kind !== 'const' && n.kind !== 'input') {
-      live[n.a] = true;
-      if (n.kind !== 'neg') live[n.b] = true;
-    }
+    if (live[i]) for (const r of operands(nodes[i]!)) live[r] = true;
   }
-  const renumber = new Array<number>(nodes.length).fill(-1);
+  const map = new Array<number>(nodes.length).fill(-1);
   const out: Node[] = [];
   for (let i = 0; i <= result; i++) {
     if (!live[i]) continue;
-    const n = nodes[i]!;
-    renumber[i] = out.length;
-    if (n.kind === 'const' || n.kind === 'input') out.push(n);
-    else if (n.kind === 'neg') out.push({ kind: 'neg', a: renumber[n.a]! });
-    else out.push({ kind: n.kind, a: renumber[n.a]!, b: renumber[n.b]! });
+    map[i] = out.length;
+    out.push(renumber(nodes[i]!, (r) => map[r]!));
   }
-  return { nodes: out, result: renumber[result]! };
+  return { nodes: out, result: map[result]! };
 }

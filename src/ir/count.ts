@@ -5,12 +5,14 @@ export interface OpCounts {
   add: number;
   mul: number;
   div: number;
-  /** Table reads (segment constants); zero until segmented plans exist. */
+  /** Table reads (per-segment constants). */
   tableReads: number;
+  /** Integer operations of the segment index (round by magic add is counted in add). */
+  intOps: number;
 }
 
 export function countOps(program: Program): OpCounts {
-  const c: OpCounts = { add: 0, mul: 0, div: 0, tableReads: 0 };
+  const c: OpCounts = { add: 0, mul: 0, div: 0, tableReads: 0, intOps: 0 };
   for (const n of program.nodes) {
     switch (n.kind) {
       case 'const':
@@ -26,6 +28,15 @@ export function countOps(program: Program): OpCounts {
         break;
       case 'div':
         c.div++;
+        break;
+      case 'index':
+        // per part: one float add (the magic constant), then mask, subtract, and the
+        // clamp (shift, not, and; subtract, shift, not, and, subtract), times stride and sum.
+        c.add += n.parts.length;
+        c.intOps += n.parts.length * 10 + (n.parts.length - 1) * 2;
+        break;
+      case 'table':
+        c.tableReads++;
         break;
       default:
         throw new UnknownNodeError(n);

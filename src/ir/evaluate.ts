@@ -5,6 +5,7 @@
  * operands rounds correctly to binary32: 53 >= 2*24 + 2).
  */
 import { UnknownNodeError, type Program } from './nodes.js';
+import { segmentNumber } from './segment-index.js';
 
 export function evaluate(program: Program, inputs: readonly number[]): number {
   const f32 = program.arithmetic === 'float32';
@@ -33,6 +34,16 @@ export function evaluate(program: Program, inputs: readonly number[]): number {
         break;
       case 'div':
         v[i] = r(v[n.a]! / v[n.b]!);
+        break;
+      case 'index':
+        v[i] = segmentNumber(
+          n.parts.map((p) => v[p.t]!),
+          n.parts,
+          program.arithmetic,
+        );
+        break;
+      case 'table':
+        v[i] = n.values[v[n.index]!]!;
         break;
       default:
         throw new UnknownNodeError(n);

@@ -18,7 +18,38 @@ export type Node =
   /** The index-th function argument. */
   | { readonly kind: 'input'; readonly index: number }
   | { readonly kind: BinaryKind; readonly a: number; readonly b: number }
-  | { readonly kind: 'neg'; readonly a: number };
+  | { readonly kind: 'neg'; readonly a: number }
+  /**
+   * The segment number, an integer (see SEGMENT INDEX below): for each part k,
+   * i_k = clamp(round(value of node t_k), 0, count_k - 1), combined as sum i_k * stride_k.
+   */
+  | { readonly kind: 'index'; readonly parts: readonly IndexPart[] }
+  /**
+   * A per-segment constant: `values[i]` (stored in the target format) for the
+   * segment number i computed by node `index`; `exact[i]` is the real value it stands for.
+   */
+  | { readonly kind: 'table'; readonly index: number; readonly values: readonly number[]; readonly exact: readonly Rational[] };
+
+export interface IndexPart {
+  /** A float node: the input's position in segment widths, centred on segment 0 (t = (x - c0) / width). */
+  readonly t: number;
+  readonly count: number;
+  readonly stride: number;
+}
+
+/**
+ * SEGMENT INDEX, the same in every target (C, TypeScript, GLSL, evaluate()):
+ * round(t) is taken by adding M = 1.5 * 2^(p-1) (p = 24 for binary32, 53 for
+ * binary64) in the target arithmetic, which rounds t to the nearest integer
+ * (ties to even) whenever |t| < 2^(p-2), and reading the low bits of the sum:
+ *     n = (bits(t + M) & (2^(p-1) - 1)) - 2^(p-2)        (binary32)
+ *     n = int32(low 32 bits of bits(t + M))               (binary64)
+ * For any other t (huge, infinite, NaN) this still yields some integer, never
+ * undefined behaviour. Then n is clamped to [0, count - 1] with integer
+ * operations only (no branch): n &= ~(n >> 31); d = n - (count - 1); n -= d & ~(d >> 31).
+ * So no input, inside the box or not, can read outside a table.
+ */
+export const SEGMENT_MAGIC = { float32: 12582912, float64: 6755399441055744 } as const;
 
 export type NodeKind = Node['kind'];
 

@@ -22,6 +22,8 @@ export type CellState =
 
 export interface CellFacts {
   readonly cell: Cell;
+  /** The segment the cell lies in (0 for an unsegmented plan). */
+  readonly segment: number;
   readonly state: CellState;
   /** Upper bound of |r| over the cell. */
   readonly R: number;
@@ -38,10 +40,10 @@ export interface CellFacts {
   readonly rootMin: number;
 }
 
-export function cellFacts(ap: AnalysisProgram, degree: number, cell: Cell, x0: number): CellFacts {
-  const an = analyse(ap.program, cell);
+export function cellFacts(ap: AnalysisProgram, degree: number, cell: Cell, x0: number, segment: number): CellFacts {
+  const an = analyse(ap.program, cell, { segment });
   const T = new Array<number>(degree + 1).fill(0);
-  const base = { cell, T, gradeSums: [] as number[], rootMin: 0 };
+  const base = { cell, segment, T, gradeSums: [] as number[], rootMin: 0 };
   if (ap.c1 !== null) {
     const v = an.values[ap.c1]!;
     if (v.lo <= 0 && v.hi >= 0) return { ...base, state: { kind: 'slope-vanishes' }, R: Infinity, aUpper: Infinity };

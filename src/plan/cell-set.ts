@@ -18,14 +18,15 @@ export class CellSet {
   /** Called for every cell made by a split (to fill its grade sums). */
   onNewCell: (c: CellFacts) => void = () => {};
 
+  /** `x0[s]` is segment s's expansion point; `initial` lists each cell with its segment. */
   constructor(
     private readonly ap: AnalysisProgram,
     private readonly degree: number,
     private readonly box: Cell,
-    private readonly x0: number,
-    initial: Cell[],
+    private readonly x0: readonly number[],
+    initial: readonly { cell: Cell; segment: number }[],
   ) {
-    this.cells = initial.map((c) => cellFacts(ap, degree, c, x0));
+    this.cells = initial.map((c) => cellFacts(ap, degree, c.cell, x0[c.segment]!, c.segment));
   }
 
   private tooSmall(cell: Cell): boolean {
@@ -35,7 +36,9 @@ export class CellSet {
   private splitAt(index: number): boolean {
     const c = this.cells[index]!;
     if (this.tooSmall(c.cell)) return false;
-    const halves = split(c.cell, widestDim(c.cell, this.box)).map((h) => cellFacts(this.ap, this.degree, h, this.x0));
+    const halves = split(c.cell, widestDim(c.cell, this.box)).map((h) =>
+      cellFacts(this.ap, this.degree, h, this.x0[c.segment]!, c.segment),
+    );
     halves.forEach((h) => this.onNewCell(h));
     this.cells.splice(index, 1, ...halves);
     return true;

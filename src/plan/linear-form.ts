@@ -1,85 +1,95 @@
 /**
  * Affine combinations of IR atoms with exact rational weights:
  *     constant + sum_i weight_i * atom_i
- * Coefficient expressions are brought to this form so that recentring
- * (c'_j = sum_k binom(k, j) x0^(k-j) c_k), the scaling by 1/c1 and the folding of
- * every constant happen exactly, before anything is rounded; only the final
- * materialisation spends operations.
+ * Every weight and the constant hold one exact value per segment (a single
+ * value for an unsegmented plan). Coefficient expressions are brought to this
+ * form so that recentring (c'_j = sum_k binom(k, j) x0^(k-j) c_k), the scaling
+ * by 1/c1 and the folding of every constant happen exactly, before anything is
+ * rounded; only the final materialisation spends operations (and a weight
+ * that differs between segments becomes a table read).
  */
 import { Rational } from '../math/rational.js';
-import type { ProgramBuilder, Ref } from '../ir/builder.js';
+import type { ProgramBuilder, Ref, SegValues } from '../ir/builder.js';
 import type { Expr } from '../spec/types.js';
 
 export interface LinearForm {
-  readonly constant: Rational;
-  /** atom ref -> weight (never zero). */
-  readonly terms: ReadonlyMap<Ref, Rational>;
+  readonly constant: SegValues;
+  /** atom ref -> weight (never zero in every segment). */
+  readonly terms: ReadonlyMap<Ref, SegValues>;
 }
 
-export const constantForm = (c: Rational): LinearForm => ({ constant: c, terms: new Map() });
+export const uniform = (c: Rational, segments: number): SegValues => new Array<Rational>(segments).fill(c);
+const allZero = (w: SegValues): boolean => w.every((v) => v.isZero());
+const isUniform = (w: SegValues): boolean => w.every((v) => v.eq(w[0]!));
+const zip = (a: SegValues, b: SegValues, f: (x: Rational, y: Rational) => Rational): SegValues => a.map((x, i) => f(x, b[i]!));
+
+export const constantForm = (c: SegValues): LinearForm => ({ constant: c, terms: new Map() });
 
 export function isConstant(f: LinearForm): boolean {
   return f.terms.size === 0;
 }
 
 export function isZero(f: LinearForm): boolean {
-  return f.terms.size === 0 && f.constant.isZero();
+  return f.terms.size === 0 && allZero(f.constant);
 }
 
 export function addForms(a: LinearForm, b: LinearForm, sign: 1 | -1 = 1): LinearForm {
+  const op = sign === 1 ? (x: Rational, y: Rational) => x.add(y) : (x: Rational, y: Rational) => x.sub(y);
   const terms = new Map(a.terms);
   for (const [ref, w] of b.terms) {
-    const sum = (terms.get(ref) ?? Rational.ZERO).add(sign === 1 ? w : w.neg());
-    if (sum.isZero()) terms.delete(ref);
+    const sum = zip(terms.get(ref) ?? w.map(() => Rational.ZERO), w, op);
+    if (allZero(sum)) terms.delete(ref);
     else terms.set(ref, sum);
   }
-  return { constant: sign === 1 ? a.constant.add(b.constant) : a.constant.sub(b.constant), terms };
+  return { constant: zip(a.constant, b.constant, op), terms };
 }
 
-export function scaleForm(a: LinearForm, s: Rational): LinearForm {
-  if (s.isZero()) return constantForm(Rational.ZERO);
-  const terms = new Map<Ref, Rational>();
-  for (const [ref, w] of a.terms) terms.set(ref, w.mul(s));
-  return { constant: a.constant.mul(s), terms };
+export function scaleForm(a: LinearForm, s: SegValues): LinearForm {
+  const terms = new Map<Ref, SegValues>();
+  if (!allZero(s)) for (const [ref, w] of a.terms) terms.set(ref, zip(w, s, (x, y) => x.mul(y)));
+  return { constant: zip(a.constant, s, (x, y) => x.mul(y)), terms };
 }
 
 /**
  * Spends the operations: sum of weight * atom in a fixed order (by atom ref),
  * then the constant added last (so a constant that nearly cancels the varying
- * part is added once, after the varying part is known).
+ * part is added once, after the varying part is known). A weight of 1 or -1
+ * in every segment costs no multiplication.
  */
 export function materialise(b: ProgramBuilder, f: LinearForm): Ref {
   const atoms = [...f.terms.keys()].sort((x, y) => x - y);
+  const hasConstant = !allZero(f.constant);
   let acc: Ref | null = null;
   for (const ref of atoms) {
     const w = f.terms.get(ref)!;
-    const magnitude = w.abs();
-    const scaled = magnitude.eq(Rational.ONE) ? ref : b.mul(b.const(magnitude), ref);
-    if (acc === null) acc = w.sign() < 0 ? null : scaled;
+    const negative = isUniform(w) && w[0]!.sign() < 0;
+    const magnitude = negative ? w.map((v) => v.neg()) : w;
+    const scaled = isUniform(magnitude) && magnitude[0]!.eq(Rational.ONE) ? ref : b.mul(b.const(magnitude), ref);
     if (acc === null) {
-      // A leading negative term: subtract it from the constant (one operation, no negation).
-      acc = f.constant.isZero() || atoms.length > 1 ? b.neg(scaled) : b.sub(b.const(f.constant), scaled);
-      if (!f.constant.isZero() && atoms.length === 1) return acc;
-    } else if (acc !== scaled) acc = w.sign() < 0 ? b.sub(acc, scaled) : b.add(acc, scaled);
+      if (!negative) acc = scaled;
+      else if (hasConstant && atoms.length === 1) return b.sub(b.const(f.constant), scaled);
+      else acc = b.neg(scaled);
+    } else acc = negative ? b.sub(acc, scaled) : b.add(acc, scaled);
   }
   if (acc === null) return b.const(f.constant);
-  return f.constant.isZero() ? acc : b.add(acc, b.const(f.constant));
+  return hasConstant ? b.add(acc, b.const(f.constant)) : acc;
 }
 
 /** The form of a spec expression; non-affine parts become atoms (products, quotients, powers). */
 export function formOf(b: ProgramBuilder, e: Expr, constants: Readonly<Record<string, string>>): LinearForm {
+  const S = b.segments;
   switch (e.kind) {
     case 'num':
-      return constantForm(Rational.parseDecimal(e.text));
+      return constantForm(uniform(Rational.parseDecimal(e.text), S));
     case 'constant': {
       const text = constants[e.name];
       if (text === undefined) throw new RangeError(`unknown constant ${e.name}`);
-      return constantForm(Rational.parseDecimal(text));
+      return constantForm(uniform(Rational.parseDecimal(text), S));
     }
     case 'input':
-      return { constant: Rational.ZERO, terms: new Map([[b.input(e.index), Rational.ONE]]) };
+      return { constant: uniform(Rational.ZERO, S), terms: new Map([[b.input(e.index), uniform(Rational.ONE, S)]]) };
     case 'neg':
-      return scaleForm(formOf(b, e.arg, constants), Rational.ONE.neg());
+      return scaleForm(formOf(b, e.arg, constants), uniform(Rational.ONE.neg(), S));
     case 'add':
     case 'sub':
       return addForms(formOf(b, e.left, constants), formOf(b, e.right, constants), e.kind === 'add' ? 1 : -1);
@@ -88,28 +98,28 @@ export function formOf(b: ProgramBuilder, e: Expr, constants: Readonly<Record<st
       const r = formOf(b, e.right, constants);
       if (isConstant(l)) return scaleForm(r, l.constant);
       if (isConstant(r)) return scaleForm(l, r.constant);
-      return atomForm(b.mul(materialise(b, l), materialise(b, r)));
+      return atomForm(b.mul(materialise(b, l), materialise(b, r)), S);
     }
     case 'div': {
       const l = formOf(b, e.left, constants);
       const r = formOf(b, e.right, constants);
       if (isConstant(r)) {
-        if (r.constant.isZero()) throw new RangeError('division by zero');
-        return scaleForm(l, Rational.ONE.div(r.constant));
+        if (r.constant.some((v) => v.isZero())) throw new RangeError('division by zero');
+        return scaleForm(l, r.constant.map((v) => Rational.ONE.div(v)));
       }
-      return atomForm(b.div(materialise(b, l), materialise(b, r)));
+      return atomForm(b.div(materialise(b, l), materialise(b, r)), S);
     }
     case 'pow': {
       const base = formOf(b, e.base, constants);
-      if (isConstant(base)) return constantForm(base.constant.pow(e.exponent));
-      if (e.exponent === 0) return constantForm(Rational.ONE);
-      return atomForm(powerOf(b, materialise(b, base), e.exponent));
+      if (isConstant(base)) return constantForm(base.constant.map((v) => v.pow(e.exponent)));
+      if (e.exponent === 0) return constantForm(uniform(Rational.ONE, S));
+      return atomForm(powerOf(b, materialise(b, base), e.exponent), S);
     }
   }
 }
 
-function atomForm(ref: Ref): LinearForm {
-  return { constant: Rational.ZERO, terms: new Map([[ref, Rational.ONE]]) };
+function atomForm(ref: Ref, segments: number): LinearForm {
+  return { constant: uniform(Rational.ZERO, segments), terms: new Map([[ref, uniform(Rational.ONE, segments)]]) };
 }
 
 /** x^k by binary powering (repeated squaring), shared through the builder. */

@@ -1,31 +1,50 @@
 /**
- * The planner: chooses the smallest series order whose certified truncation
- * bound plus the a priori rounding bound meets the target (DESIGN.md 1.2-1.4,
- * 1.7), and returns the plan with its program. Every refusal is a
- * RootcastError naming the reason in one line.
+ * The planner: for a segmentation of the input box it chooses the smallest
+ * series order whose certified truncation bound plus the a priori rounding
+ * bound meets the target (DESIGN.md 1.2-1.5, 1.7); with `plan.segments: auto`
+ * it also searches segment counts per input (1, 2, 4, ...) and keeps the
+ * cheapest plan by the cost model. Every refusal is a RootcastError naming
+ * the reason in one line.
  */
 import { RootcastError } from '../errors.js';
 import { addUp, divUp } from '../math/directed.js';
+import { Rational } from '../math/rational.js';
 import { analyse } from '../ir/analyse.js';
 import { countOps, type OpCounts } from '../ir/count.js';
 import type { Program } from '../ir/nodes.js';
+import { FORMATS } from '../ir/round.js';
 import { termsOfGrade, type SeriesTerm } from '../series/hyper-catalan.js';
 import type { Family } from '../spec/types.js';
 import { boxOf, grid } from './box.js';
 import { addGrade, cellTail, type CellFacts } from './cell-bound.js';
 import { CellSet } from './cell-set.js';
-import { chooseRoot, type RootChoice } from './root-choice.js';
-import { analysisProgram, seriesProgram } from './series-program.js';
-import { locate } from './locate.js';
+import { programCost } from './cost.js';
 import { LIMITS } from './limits.js';
+import { locate } from './locate.js';
 import { refuseBadCells, refuseFloor, refuseOrder } from './refusals.js';
-
+import { chooseRoot, pointText, rootAt, type RootChoice } from './root-choice.js';
+import { segmentLayout, type SegmentLayout } from './segments.js';
+import { analysisProgram, seriesProgram, ZeroSlopeError, type Expansion } from './series-program.js';
 
 export interface Bound {
   readonly kind: 'absolute' | 'relative';
   readonly truncation: number;
   readonly rounding: number;
   readonly total: number;
+}
+
+/** One plan the search weighed (for `rootcast plan`'s table). */
+export interface Candidate {
+  /** Segments per input, in spec order. */
+  readonly counts: readonly number[];
+  readonly order: number | null;
+  readonly terms: number | null;
+  readonly ops: OpCounts | null;
+  readonly cost: number | null;
+  readonly bound: number | null;
+  /** Why it was not possible, in one line, or null. */
+  readonly refusal: string | null;
+  readonly chosen: boolean;
 }
 
 export interface Plan {
@@ -39,26 +58,131 @@ export interface Plan {
   readonly absoluteBound: number;
   readonly target: number;
   readonly ops: OpCounts;
+  /** Estimated Cortex-M4F cycles (the planner's cost model, src/plan/cost.ts). */
+  readonly cost: number;
   /** Number of cells the bound was certified over. */
   readonly cells: number;
-}
-
-interface Evaluated {
-  readonly bound: Bound;
-  readonly absolute: number;
+  /** Segments per input, in spec order (all 1 for one box), and the table size in bytes. */
+  readonly counts: readonly number[];
+  readonly tableBytes: number;
+  readonly candidates: readonly Candidate[];
 }
 
 export function makePlan(family: Family): Plan {
   const box = boxOf(family);
+  const d = family.inputs.length;
+  const knob = family.plan.segments;
+  if (knob !== 'auto') {
+    const counts = new Array<number>(d).fill(knob);
+    if (knob > 1 && !family.bracket) {
+      throw new RootcastError(
+        'segments need root.bracket: each segment recentres the series at its own root; add root.bracket or set plan.segments: 1',
+        locate(family, 'plan.segments'),
+      );
+    }
+    const p = planWithCounts(family, box.cell, counts);
+    return { ...p, candidates: [candidateOf(p, true)] };
+  }
+  return searchSegments(family, box.cell);
+}
+
+/**
+ * Greedy search over segment counts: start from one box; while the best plan
+ * can still improve, try doubling each input's count and move to the
+ * cheapest (or, when none is possible yet, double every input). Stops at the
+ * table-size limit, 1024 segments per input, or two steps without a gain.
+ */
+function searchSegments(family: Family, box: ReturnType<typeof boxOf>['cell']): Plan {
+  const d = family.inputs.length;
+  const candidates: Candidate[] = [];
+  const found: { best: Plan | null; firstError: RootcastError | null } = { best: null, firstError: null };
+  const attempt = (counts: number[]): Plan | null => {
+    try {
+      const p = planWithCounts(family, box, counts);
+      candidates.push(candidateOf(p, false));
+      if (!found.best || p.cost < found.best.cost) found.best = p;
+      return p;
+    } catch (e) {
+      if (!(e instanceof RootcastError)) throw e;
+      found.firstError ??= e;
+      candidates.push({ counts, order: null, terms: null, ops: null, cost: null, bound: null, refusal: e.message, chosen: false });
+      return null;
+    }
+  };
+  let current = new Array<number>(d).fill(1);
+  const currentPlan = attempt(current);
+  if (!family.bracket) {
+    if (!currentPlan) throw found.firstError!;
+    return { ...currentPlan, candidates: [candidateOf(currentPlan, true)] };
+  }
+  let stale = 0;
+  for (let step = 0; step < 12 && stale < 2; step++) {
+    const before = found.best?.cost ?? Infinity;
+    let next: { counts: number[]; plan: Plan | null } | null = null;
+    for (let i = 0; i < d; i++) {
+      const counts = current.map((k, j) => (j === i ? k * 2 : k));
+      if (counts[i]! > 1024 || !tableFits(family, counts)) continue;
+      const plan = attempt(counts);
+      if (plan && (!next || !next.plan || plan.cost < next.plan.cost)) next = { counts, plan };
+      else if (!next) next = { counts, plan: null };
+    }
+    if (!next) break;
+    if (next.plan) current = next.counts;
+    else {
+      // Nothing possible yet: refine every input at once.
+      const all = current.map((k) => k * 2);
+      if (all.some((k) => k > 1024) || !tableFits(family, all)) break;
+      current = all;
+      attempt(all);
+    }
+    // Two steps in a row without a cheaper plan end the search (none found yet does not count).
+    stale = found.best && found.best.cost >= before ? stale + 1 : 0;
+  }
+  if (!found.best) throw found.firstError!;
+  const chosen: Plan = found.best;
+  const marked = candidates.map((c) => ({ ...c, chosen: c.refusal === null && sameCounts(c.counts, chosen.counts) }));
+  return { ...chosen, candidates: marked };
+}
+
+const sameCounts = (a: readonly number[], b: readonly number[]): boolean => a.every((k, i) => k === b[i]);
+
+/** A coarse check before planning: at least one table of one value per segment must fit. */
+function tableFits(family: Family, counts: readonly number[]): boolean {
+  const segments = counts.reduce((a, b) => a * b, 1);
+  return segments * FORMATS[family.arithmetic].bytes * 2 <= family.plan.maxTableBytes;
+}
+
+function candidateOf(p: Plan, chosen: boolean): Candidate {
+  return { counts: p.counts, order: p.order, terms: p.terms.length, ops: p.ops, cost: p.cost, bound: p.bound.total, refusal: null, chosen };
+}
+
+function tableBytesOf(program: Program): number {
+  let n = 0;
+  for (const node of program.nodes) if (node.kind === 'table') n += node.values.length;
+  return n * FORMATS[program.arithmetic].bytes;
+}
+
+/** The expansion for a segmentation: one x0 per segment (the bracketed root at its centre). */
+function expansionFor(family: Family, layout: SegmentLayout): { expansion: Expansion; root: RootChoice } {
   const root = chooseRoot(family);
+  if (layout.segmentation.segments === 1) return { expansion: { segmentation: layout.segmentation, x0: [root.x0] }, root };
+  const x0 = layout.centres.map((c) => rootAt(family, c));
+  const note = `the root in [${family.bracket![0]}, ${family.bracket![1]}], ${layout.counts.join(' x ')} segments, each recentred at its own root (at the segment centre)`;
+  return { expansion: { segmentation: layout.segmentation, x0 }, root: { ...root, note } };
+}
+
+function planWithCounts(family: Family, box: ReturnType<typeof boxOf>['cell'], counts: readonly number[]): Plan {
+  const layout = segmentLayout(family, box, counts);
+  const S = layout.segmentation.segments;
+  const { expansion, root } = expansionFor(family, layout);
   let ap;
   try {
-    ap = analysisProgram(family, root.x0);
+    ap = analysisProgram(family, expansion);
   } catch (e) {
-    if (e instanceof RangeError && e.message === 'zero slope') {
+    if (e instanceof ZeroSlopeError) {
       throw new RootcastError(
         family.bracket
-          ? `the slope P'(x0) is zero at the expansion point ${family.unknown}0 = ${root.x0.toNumber()}: the bracket holds a multiple root; move root.bracket to a simple root`
+          ? `the slope P'(x0) is zero at the expansion point ${family.unknown}0 = ${expansion.x0[e.segment]!.toNumber()} (at ${pointText(family, layout.centres[e.segment]!)}): the bracket holds a multiple root there; move root.bracket to a simple root`
           : `coefficient 1 (the slope at ${family.unknown} = 0) is zero, so the plain series has no root to follow; add root.bracket around the wanted root`,
         locate(family, family.bracket ? 'root.bracket' : 'coefficients'),
       );
@@ -69,8 +193,10 @@ export function makePlan(family: Family): Plan {
   const d = family.inputs.length;
   const relative = family.accuracy.kind === 'relative';
   const target = Number(family.accuracy.value);
-  const x0 = root.x0.toNumber();
-  const set = new CellSet(ap, degree, box.cell, x0, grid(box.cell, d === 1 ? 64 : d === 2 ? 256 : 512));
+  const perSegment = Math.max(d === 1 ? 4 : 1, Math.floor((d === 1 ? 64 : d === 2 ? 256 : 512) / S));
+  const initial = layout.boxes.flatMap((b, segment) => grid(b, perSegment).map((cell) => ({ cell, segment })));
+  const x0 = expansion.x0.map((v) => v.toNumber());
+  const set = new CellSet(ap, degree, box, x0, initial);
   set.repairBadCells(LIMITS.cells, relative);
   refuseBadCells(family, set.cells, relative);
 
@@ -95,9 +221,17 @@ export function makePlan(family: Family): Plan {
       trunc = set.truncation(order, relative);
     }
     if (trunc > target) continue;
-    const program = seriesProgram(family, root.x0, kept);
+    const program = seriesProgram(family, expansion, kept);
     const ev = evaluate(program, set.cells, order, relative);
     if (ev.bound.total <= target) {
+      const tableBytes = tableBytesOf(program);
+      if (tableBytes > family.plan.maxTableBytes) {
+        throw new RootcastError(
+          `the ${counts.join(' x ')} segment tables need ${tableBytes} bytes, more than plan.max_table_bytes ${family.plan.maxTableBytes}; raise it or use fewer segments`,
+          locate(family, family.positions['plan.max_table_bytes'] ? 'plan.max_table_bytes' : 'plan.segments'),
+        );
+      }
+      const ops = countOps(program);
       return {
         family,
         root,
@@ -107,8 +241,12 @@ export function makePlan(family: Family): Plan {
         bound: ev.bound,
         absoluteBound: ev.absolute,
         target,
-        ops: countOps(program),
+        ops,
+        cost: programCost(program),
         cells: set.cells.length,
+        counts: [...counts],
+        tableBytes,
+        candidates: [],
       };
     }
     if (!best || ev.bound.total < best.total) best = { order, total: ev.bound.total, rounding: ev.bound.rounding };
@@ -124,6 +262,11 @@ export function makePlan(family: Family): Plan {
   refuseOrder(family, null);
 }
 
+interface Evaluated {
+  readonly bound: Bound;
+  readonly absolute: number;
+}
+
 /** Truncation, rounding and total over all cells, in the spec's accuracy kind. */
 function evaluate(program: Program, cells: readonly CellFacts[], order: number, relative: boolean): Evaluated {
   let truncation = 0;
@@ -131,7 +274,7 @@ function evaluate(program: Program, cells: readonly CellFacts[], order: number, 
   let total = 0;
   let absolute = 0;
   for (const c of cells) {
-    const an = analyse(program, c.cell);
+    const an = analyse(program, c.cell, { segment: c.segment });
     const rnd = an.errors[program.result]!;
     const tr = cellTail(c, order);
     const abs = addUp(tr, rnd);
@@ -148,3 +291,5 @@ function evaluate(program: Program, cells: readonly CellFacts[], order: number, 
   }
   return { bound: { kind: relative ? 'relative' : 'absolute', truncation, rounding, total }, absolute };
 }
+
+export { Rational };

@@ -1,15 +1,16 @@
 /**
  * Which root the series follows (DESIGN.md 1.4). Without `root.bracket` the
  * plain series gives the root that tends to -c0/c1, expanded at x0 = 0. With a
- * bracket the root in it is found at the box centre by exact bisection and
- * rounded to the target arithmetic: that number is the expansion point x0.
+ * bracket the root in it is found at a centre point (the box centre, or each
+ * segment's centre) by exact bisection and rounded to the target arithmetic:
+ * that number is the expansion point x0.
  */
 import { RootcastError } from '../errors.js';
 import { Rational } from '../math/rational.js';
 import { roundTo } from '../ir/round.js';
 import { evalExprExact } from '../spec/expr-eval.js';
 import type { Family } from '../spec/types.js';
-import { bisectExact } from '../series/recenter.js';
+import { signAt } from '../series/recenter.js';
 import { locate } from './locate.js';
 
 export interface RootChoice {
@@ -19,31 +20,66 @@ export interface RootChoice {
   readonly note: string;
 }
 
+/** The exact centre of the spec's box. */
+export function boxCentre(family: Family): Rational[] {
+  const half = Rational.of(1n, 2n);
+  return family.inputs.map((i) => Rational.parseDecimal(i.lo).add(Rational.parseDecimal(i.hi)).mul(half));
+}
+
+/** The bracketed root at an input point, rounded to the target arithmetic (exact bisection). */
+export function rootAt(family: Family, point: readonly Rational[]): Rational {
+  if (!family.bracket) throw new RangeError('rootAt needs a bracket');
+  const constants: Record<string, Rational> = {};
+  for (const [k, v] of Object.entries(family.constants)) constants[k] = Rational.parseDecimal(v);
+  const c = family.coefficients.map((e) => (e === null ? Rational.ZERO : evalExprExact(e, point, constants)));
+  const lo = Rational.parseDecimal(family.bracket[0]);
+  const hi = Rational.parseDecimal(family.bracket[1]);
+  // The sign change is checked exactly at the bracket ends; inside, float64
+  // bisection is enough: the expansion point need not be the exact root
+  // (DESIGN.md 1.4), only a number of the target format near it.
+  const root = signAt(c, lo) * signAt(c, hi) > 0 ? null : bisectNear(c, lo, hi);
+  if (root === null) {
+    throw new RootcastError(
+      `the polynomial has no sign change on the bracket at ${pointText(family, point)}; widen or move the bracket so it holds exactly one simple root for every input`,
+      locate(family, 'root.bracket'),
+    );
+  }
+  return Rational.fromNumber(roundTo(root, family.arithmetic));
+}
+
+/** Bisection with float64 signs between ends whose exact signs differ; returns the final midpoint. */
+function bisectNear(c: readonly Rational[], lo: Rational, hi: Rational): Rational {
+  const cf = c.map((v) => v.toNumber());
+  const p = (x: number): number => cf.reduceRight((acc, ck) => acc * x + ck, 0);
+  let a = lo.toNumber();
+  let b = hi.toNumber();
+  const sa = signAt(c, lo);
+  if (sa === 0) return lo;
+  if (signAt(c, hi) === 0) return hi;
+  for (let i = 0; i < 200; i++) {
+    const m = a + (b - a) / 2;
+    if (m <= a || m >= b) break;
+    const sm = Math.sign(p(m));
+    if (sm === 0) return Rational.fromNumber(m);
+    if (sm === sa) a = m;
+    else b = m;
+  }
+  return Rational.fromNumber(a + (b - a) / 2);
+}
+
+export function pointText(family: Family, point: readonly Rational[]): string {
+  return family.inputs.map((inp, i) => `${inp.name} = ${point[i]!.toNumber()}`).join(', ');
+}
+
 export function chooseRoot(family: Family): RootChoice {
   if (!family.bracket) {
     return { x0: Rational.ZERO, centre: null, note: `the root that tends to -c0/c1 (series about ${family.unknown} = 0)` };
   }
-  const half = Rational.of(1n, 2n);
-  const centre = family.inputs.map((i) => Rational.parseDecimal(i.lo).add(Rational.parseDecimal(i.hi)).mul(half));
-  const constants: Record<string, Rational> = {};
-  for (const [k, v] of Object.entries(family.constants)) constants[k] = Rational.parseDecimal(v);
-  const c = family.coefficients.map((e) => (e === null ? Rational.ZERO : evalExprExact(e, centre, constants)));
-  const lo = Rational.parseDecimal(family.bracket[0]);
-  const hi = Rational.parseDecimal(family.bracket[1]);
-  const width = hi.sub(lo).mul(Rational.of(1n, 1n << 80n));
-  const root = bisectExact(c, lo, hi, width);
-  if (root === null) {
-    const at = family.inputs.map((inp, i) => `${inp.name} = ${centre[i]!.toNumber()}`).join(', ');
-    throw new RootcastError(
-      `the polynomial has no sign change on the bracket at the box centre (${at}); widen or move the bracket so it holds exactly one simple root for every input`,
-      locate(family, 'root.bracket'),
-    );
-  }
-  const x0 = Rational.fromNumber(roundTo(root, family.arithmetic));
-  const at = family.inputs.map((inp, i) => `${inp.name} = ${centre[i]!.toNumber()}`).join(', ');
+  const centre = boxCentre(family);
+  const x0 = rootAt(family, centre);
   return {
     x0,
     centre,
-    note: `the root in [${family.bracket[0]}, ${family.bracket[1]}], series recentred at ${family.unknown}0 = ${x0.toNumber()} (the root at the box centre ${at})`,
+    note: `the root in [${family.bracket[0]}, ${family.bracket[1]}], series recentred at ${family.unknown}0 = ${x0.toNumber()} (the root at the box centre ${pointText(family, centre)})`,
   };
 }

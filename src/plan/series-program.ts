@@ -14,20 +14,29 @@
  * Then x = x0 - r a.
  */
 import { Rational } from '../math/rational.js';
-import { ProgramBuilder, type Ref } from '../ir/builder.js';
+import { ProgramBuilder, SINGLE, type Ref, type Segmentation, type SegValues } from '../ir/builder.js';
 import type { Program } from '../ir/nodes.js';
 import type { SeriesTerm } from '../series/hyper-catalan.js';
 import type { Family } from '../spec/types.js';
 import { shiftedForms } from '../series/recenter.js';
-import { addForms, constantForm, formOf, isConstant, isZero, materialise, powerOf, scaleForm, type LinearForm } from './linear-form.js';
+import { addForms, constantForm, formOf, isConstant, isZero, materialise, powerOf, scaleForm, uniform, type LinearForm } from './linear-form.js';
 
 export interface SeriesSetup {
   /** Coefficients of P(x0 + y) as affine forms, index = power of y. */
   readonly shifted: readonly LinearForm[];
   /** Powers k >= 2 whose shifted coefficient is not identically zero. */
   readonly active: readonly number[];
-  readonly x0: Rational;
+  /** The expansion point, one per segment. */
+  readonly x0: SegValues;
 }
+
+/** Where the series is expanded: the segmentation and one x0 per segment. */
+export interface Expansion {
+  readonly segmentation: Segmentation;
+  readonly x0: SegValues;
+}
+
+export const singleExpansion = (x0: Rational): Expansion => ({ segmentation: SINGLE, x0: [x0] });
 
 interface Prefix {
   readonly r: Ref;
@@ -36,10 +45,11 @@ interface Prefix {
   readonly c1: Ref | null;
 }
 
-/** Affine forms of the spec's coefficients, recentred at x0. */
-export function setupSeries(family: Family, x0: Rational, b: ProgramBuilder): SeriesSetup {
-  const forms = family.coefficients.map((e) => (e === null ? constantForm(Rational.ZERO) : formOf(b, e, family.constants)));
-  const shifted = shiftedForms(forms, x0, addForms, scaleForm);
+/** Affine forms of the spec's coefficients, recentred at x0 (per segment). */
+export function setupSeries(family: Family, x0: SegValues, b: ProgramBuilder): SeriesSetup {
+  const S = b.segments;
+  const forms = family.coefficients.map((e) => (e === null ? constantForm(uniform(Rational.ZERO, S)) : formOf(b, e, family.constants)));
+  const shifted = shiftedForms(forms, x0, addForms, scaleForm, (w) => w);
   const active: number[] = [];
   for (let k = 2; k < shifted.length; k++) if (!isZero(shifted[k]!)) active.push(k);
   return { shifted, active, x0 };
@@ -49,8 +59,9 @@ function buildPrefix(b: ProgramBuilder, s: SeriesSetup): Prefix {
   const c1 = s.shifted[1]!;
   const q = new Map<number, Ref>();
   if (isConstant(c1)) {
-    if (c1.constant.isZero()) throw new RangeError('zero slope');
-    const inv = Rational.ONE.div(c1.constant);
+    const zero = c1.constant.findIndex((v) => v.isZero());
+    if (zero >= 0) throw new ZeroSlopeError(zero);
+    const inv = c1.constant.map((v) => Rational.ONE.div(v));
     const r = materialise(b, scaleForm(s.shifted[0]!, inv));
     for (const k of s.active) q.set(k, materialise(b, scaleForm(s.shifted[k]!, inv)));
     return { r, q, c1: null };
@@ -62,6 +73,13 @@ function buildPrefix(b: ProgramBuilder, s: SeriesSetup): Prefix {
   return { r, q, c1: c1Ref };
 }
 
+/** The slope c'1 is exactly zero in a segment (a multiple root at its expansion point). */
+export class ZeroSlopeError extends RangeError {
+  constructor(readonly segment: number) {
+    super('zero slope');
+  }
+}
+
 export interface AnalysisProgram {
   readonly program: Program;
   readonly r: Ref;
@@ -70,22 +88,22 @@ export interface AnalysisProgram {
 }
 
 /** The unpruned program computing r, q_k (and c'1): what the truncation bound needs per cell. */
-export function analysisProgram(family: Family, x0: Rational): AnalysisProgram {
-  const b = new ProgramBuilder(family.arithmetic, family.inputs.map((i) => i.name));
-  const s = setupSeries(family, x0, b);
+export function analysisProgram(family: Family, e: Expansion): AnalysisProgram {
+  const b = new ProgramBuilder(family.arithmetic, family.inputs.map((i) => i.name), e.segmentation);
+  const s = setupSeries(family, e.x0, b);
   const p = buildPrefix(b, s);
   return { program: b.snapshot(), r: p.r, q: p.q, c1: p.c1 };
 }
 
 /** The emitted program for the kept terms (ordered by grade, as termsUpToGrade gives them). */
-export function seriesProgram(family: Family, x0: Rational, terms: readonly SeriesTerm[]): Program {
-  const b = new ProgramBuilder(family.arithmetic, family.inputs.map((i) => i.name));
-  const s = setupSeries(family, x0, b);
+export function seriesProgram(family: Family, e: Expansion, terms: readonly SeriesTerm[]): Program {
+  const b = new ProgramBuilder(family.arithmetic, family.inputs.map((i) => i.name), e.segmentation);
+  const s = setupSeries(family, e.x0, b);
   const p = buildPrefix(b, s);
-  const qConst = [...p.q.values()].every((ref) => b.constValue(ref) !== null);
+  const qConst = [...p.q.values()].every((ref) => b.segValues(ref) !== null);
   const a = qConst ? hornerInR(b, p, terms, s.active) : nestedHorner(b, p, terms, s.active);
   const y = b.mul(p.r, a);
-  return b.finish(b.sub(b.const(x0), y));
+  return b.finish(b.sub(b.const(e.x0), y));
 }
 
 function signedCoefficient(t: SeriesTerm): Rational {
@@ -100,17 +118,24 @@ function gcd(a: number, b: number): number {
 }
 
 function hornerInR(b: ProgramBuilder, p: Prefix, terms: readonly SeriesTerm[], active: readonly number[]): Ref {
-  const D = new Map<number, Rational>();
+  const S = b.segments;
+  const D = new Map<number, Rational[]>();
   for (const t of terms) {
-    let v = signedCoefficient(t);
-    for (const k of active) v = v.mul(b.constValue(p.q.get(k)!)!.pow(t.m[k]!));
-    D.set(t.grade, (D.get(t.grade) ?? Rational.ZERO).add(v));
+    const c = signedCoefficient(t);
+    const sum = D.get(t.grade) ?? new Array<Rational>(S).fill(Rational.ZERO);
+    for (let seg = 0; seg < S; seg++) {
+      let v = c;
+      for (const k of active) v = v.mul(b.segValues(p.q.get(k)!)![seg]!.pow(t.m[k]!));
+      sum[seg] = sum[seg]!.add(v);
+    }
+    D.set(t.grade, sum);
   }
+  const zero = new Array<Rational>(S).fill(Rational.ZERO);
   const g = active.reduce((acc, k) => gcd(acc, k - 1), 0) || 1;
   const top = Math.max(0, ...D.keys());
   const z = powerOf(b, p.r, g);
-  let acc = b.const(D.get(top) ?? Rational.ZERO);
-  for (let w = top - g; w >= 0; w -= g) acc = b.add(b.mul(acc, z), b.const(D.get(w) ?? Rational.ZERO));
+  let acc = b.const(D.get(top) ?? zero);
+  for (let w = top - g; w >= 0; w -= g) acc = b.add(b.mul(acc, z), b.const(D.get(w) ?? zero));
   return acc;
 }
 

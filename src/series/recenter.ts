@@ -15,20 +15,26 @@ export function binomial(n: number, k: number): bigint {
   return r;
 }
 
-/** The shifted coefficients, generic over the coefficient type (exact rationals or affine forms). */
-export function shiftedForms<F>(
+/**
+ * The shifted coefficients, generic over the coefficient type (exact
+ * rationals or affine forms) and the weight type: `weight(w)` turns the exact
+ * weight binom(k, j) x0^(k-j) into what `scale` takes. With several segments
+ * x0 has one value per segment, so `x0` is a list and weights are lists too.
+ */
+export function shiftedForms<F, W>(
   c: readonly F[],
-  x0: Rational,
+  x0: readonly Rational[],
   add: (a: F, b: F) => F,
-  scale: (a: F, s: Rational) => F,
+  scale: (a: F, w: W) => F,
+  weight: (w: readonly Rational[]) => W,
 ): F[] {
   const n = c.length - 1;
   const out: F[] = [];
   for (let j = 0; j <= n; j++) {
-    let acc = scale(c[j]!, Rational.ONE);
+    let acc = scale(c[j]!, weight(x0.map(() => Rational.ONE)));
     for (let k = j + 1; k <= n; k++) {
-      const w = Rational.of(binomial(k, j)).mul(x0.pow(k - j));
-      if (!w.isZero()) acc = add(acc, scale(c[k]!, w));
+      const w = x0.map((x) => Rational.of(binomial(k, j)).mul(x.pow(k - j)));
+      if (!w.every((v) => v.isZero())) acc = add(acc, scale(c[k]!, weight(w)));
     }
     out.push(acc);
   }

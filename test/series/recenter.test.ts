@@ -14,7 +14,7 @@ describe('recentring', () => {
     const q = fc.integer({ min: -50, max: 50 }).map((n) => Rational.of(BigInt(n), 7n));
     fc.assert(
       fc.property(fc.array(q, { minLength: 2, maxLength: 6 }), q, q, (c, x0, y) => {
-        const shifted = shiftedForms(c, x0, (a, b) => a.add(b), (a, s) => a.mul(s));
+        const shifted = shiftedForms(c, [x0], (a, b) => a.add(b), (a, s: Rational) => a.mul(s), (w) => w[0]!);
         return evalPoly(c, x0.add(y)).eq(evalPoly(shifted, y));
       }),
     );

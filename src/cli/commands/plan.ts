@@ -21,7 +21,41 @@ export function planJson(plan: Plan): object {
     absoluteBound: c.absoluteBound,
     target: c.target,
     ops: c.ops,
+    segments: { counts: plan.counts, tableBytes: plan.tableBytes },
+    cost: { model: plan.family.arithmetic === 'float32' ? 'cortex-m4f' : 'x86-64', value: plan.cost },
+    candidates: plan.candidates.map((k) => ({
+      form: 'series',
+      segments: k.counts,
+      order: k.order,
+      terms: k.terms,
+      ops: k.ops,
+      cost: k.cost,
+      bound: k.bound,
+      refusal: k.refusal,
+      chosen: k.chosen,
+    })),
   };
+}
+
+/** The candidates the planner weighed, one row each; the chosen one marked with `*`. */
+export function candidateTable(plan: Plan): string[] {
+  const head = ['', 'form', 'segments', 'order', 'terms', 'add', 'mul', 'div', 'reads', 'cost', 'bound'];
+  const rows = plan.candidates.map((k) => [
+    k.chosen ? '*' : '',
+    'series',
+    k.counts.join('x'),
+    k.order === null ? '-' : String(k.order),
+    k.terms === null ? '-' : String(k.terms),
+    k.ops ? String(k.ops.add) : '-',
+    k.ops ? String(k.ops.mul) : '-',
+    k.ops ? String(k.ops.div) : '-',
+    k.ops ? String(k.ops.tableReads) : '-',
+    k.cost === null ? '-' : String(k.cost),
+    k.bound === null ? `refused: ${k.refusal!.split(';')[0]}` : formatBoundUp(k.bound),
+  ]);
+  const widths = head.map((h, i) => Math.max(h.length, ...rows.map((r) => (i === head.length - 1 ? 0 : r[i]!.length))));
+  const fmt = (r: string[]): string => r.map((x, i) => (i === r.length - 1 ? x : x.padEnd(widths[i]!))).join('  ').trimEnd();
+  return [fmt(head), ...rows.map(fmt)];
 }
 
 export function planText(plan: Plan): string {
@@ -40,6 +74,14 @@ export function planText(plan: Plan): string {
     ],
     ['target', `${f.accuracy.value} (${f.accuracy.kind})`],
     ['ops', `${c.ops.add} add, ${c.ops.mul} mul, ${c.ops.div} div, ${c.ops.tableReads} table reads`],
+    ['segments', `${plan.counts.join(' x ')} (${plan.tableBytes} table bytes)`],
+    ['cost', `${plan.cost} (${f.arithmetic === 'float32' ? 'Cortex-M4F cycles, estimated' : 'x86-64 latency units'}; src/plan/cost.ts)`],
   ];
-  return [`${f.functionName}`, ...rows.map(([k, v]) => `  ${k.padEnd(11)} ${v}`)].join('\n');
+  return [
+    `${f.functionName}`,
+    ...rows.map(([k, v]) => `  ${k.padEnd(11)} ${v}`),
+    '',
+    '  candidates weighed (* = chosen):',
+    ...candidateTable(plan).map((l) => `    ${l}`),
+  ].join('\n');
 }

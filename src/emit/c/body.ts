@@ -10,7 +10,7 @@
  * precision); with -std=c99 gcc also does not contract a*b+c into a fused
  * multiply-add. The C result is then bit-identical to evaluate().
  */
-import { UnknownNodeError, type Node, type Program } from '../../ir/nodes.js';
+import { SEGMENT_MAGIC, UnknownNodeError, type IndexPart, type Node, type Program } from '../../ir/nodes.js';
 import { cLiteral, cOperand } from '../literals/c.js';
 import { valueName } from '../names.js';
 import { readInputs } from '../read-inputs.js';
@@ -25,8 +25,12 @@ export function cBodyLines(program: Program): string[] {
     if (!read.has(i)) lines.push(`(void)${name};`);
   });
   program.nodes.forEach((node, i) => {
-    const rhs = cExpression(program, node, i);
-    if (rhs !== null) lines.push(`const ${type} ${valueName(i)} = ${rhs};`);
+    if (node.kind === 'index') lines.push(...cIndexLines(program, node.parts, i));
+    else if (node.kind === 'table') lines.push(...cTableLines(program, node, i));
+    else {
+      const rhs = cExpression(program, node, i);
+      if (rhs !== null) lines.push(`const ${type} ${valueName(i)} = ${rhs};`);
+    }
   });
   lines.push(`return ${cResult(program)};`);
   return lines;
@@ -52,6 +56,51 @@ function cExpression(program: Program, node: Node, at: number): string | null {
     default:
       throw new UnknownNodeError(node);
   }
+}
+
+/**
+ * The segment number (SEGMENT INDEX in src/ir/nodes.ts): round by adding the
+ * magic constant, read the bits through a union (defined behaviour for every
+ * value, NaN included), clamp with integer operations. gcc compiles this
+ * without branches (TOOLCHAIN.md: integer clamps written with bit operations).
+ * Right shifts of negative int32_t are arithmetic in gcc and clang.
+ */
+function cIndexLines(program: Program, parts: readonly IndexPart[], at: number): string[] {
+  const f32 = program.arithmetic === 'float32';
+  const type = C_TYPE[program.arithmetic];
+  const lines: string[] = [];
+  const terms: string[] = [];
+  parts.forEach((p, k) => {
+    const t = cReference(program, p.t, at);
+    const s = `rc_s${at}_${k}`;
+    const magic = cLiteral(SEGMENT_MAGIC[program.arithmetic], program.arithmetic);
+    lines.push(`union { ${type} f; ${f32 ? 'uint32_t' : 'uint64_t'} u; } ${s}b = { ${t} + ${magic} };`);
+    lines.push(
+      f32
+        ? `const int32_t ${s}r = (int32_t)(${s}b.u & 0x7fffffu) - 0x400000;`
+        : `const int32_t ${s}r = (int32_t)(uint32_t)(${s}b.u & 0xffffffffu);`,
+    );
+    lines.push(`const int32_t ${s}p = ${s}r & ~(${s}r >> 31);`);
+    lines.push(`const int32_t ${s}d = ${s}p - ${p.count - 1};`);
+    lines.push(`const int32_t ${s} = ${s}p - (${s}d & ~(${s}d >> 31));`);
+    terms.push(p.stride === 1 ? s : `${s} * ${p.stride}`);
+  });
+  lines.push(`const int32_t ${valueName(at)} = ${terms.join(' + ')};`);
+  return lines;
+}
+
+/** A per-segment constant: a static const table beside its one read. */
+function cTableLines(program: Program, node: Extract<Node, { kind: 'table' }>, at: number): string[] {
+  const type = C_TYPE[program.arithmetic];
+  const values = node.values.map((v) => cLiteral(v, program.arithmetic));
+  const rows: string[] = [];
+  for (let i = 0; i < values.length; i += 4) rows.push(`    ${values.slice(i, i + 4).join(', ')},`);
+  return [
+    `static const ${type} rc_tab${at}[${values.length}] = {`,
+    ...rows,
+    '};',
+    `const ${type} ${valueName(at)} = rc_tab${at}[${valueName(node.index)}];`,
+  ];
 }
 
 /** How node `r` appears as an operand of node `at`: a literal, an argument name or a local. */

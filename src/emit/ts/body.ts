@@ -11,7 +11,7 @@
  * is not wrapped. The result is then bit-identical to evaluate() and to the C
  * function.
  */
-import { UnknownNodeError, type Node, type Program } from '../../ir/nodes.js';
+import { SEGMENT_MAGIC, UnknownNodeError, type IndexPart, type Node, type Program } from '../../ir/nodes.js';
 import { tsLiteral, tsOperand } from '../literals/ts.js';
 import { valueName } from '../names.js';
 import { readInputs } from '../read-inputs.js';
@@ -25,10 +25,69 @@ export function tsStatements(program: Program): string[] {
     else if (f32) lines.push(`const ${roundedInputName(name)} = Math.fround(${name});`);
   });
   program.nodes.forEach((node, i) => {
-    const rhs = tsExpression(program, node, i);
-    if (rhs !== null) lines.push(`const ${valueName(i)} = ${rhs};`);
+    if (node.kind === 'index') lines.push(...tsIndexLines(program, node.parts, i));
+    else if (node.kind === 'table') lines.push(`const ${valueName(i)} = ${tableName(i)}[${valueName(node.index)}]!;`);
+    else {
+      const rhs = tsExpression(program, node, i);
+      if (rhs !== null) lines.push(`const ${valueName(i)} = ${rhs};`);
+    }
   });
   lines.push(`return ${tsResult(program)};`);
+  return lines;
+}
+
+const tableName = (at: number): string => `rc_tab${at}`;
+
+/**
+ * Module-level declarations the function needs: the per-segment tables, and
+ * the views that read a float's bits for the segment number. Empty for a
+ * program without segments.
+ */
+export function tsModuleStatements(program: Program): string[] {
+  const out: string[] = [];
+  if (program.nodes.some((n) => n.kind === 'index')) {
+    out.push(
+      program.arithmetic === 'float32'
+        ? 'const rc_f32 = new Float32Array(1);\nconst rc_u32 = new Uint32Array(rc_f32.buffer);'
+        : 'const rc_f64 = new DataView(new ArrayBuffer(8));',
+    );
+  }
+  program.nodes.forEach((n, i) => {
+    if (n.kind !== 'table') return;
+    const values = n.values.map((v) => tsLiteral(v, program.arithmetic));
+    const rows: string[] = [];
+    for (let k = 0; k < values.length; k += 4) rows.push(`  ${values.slice(k, k + 4).join(', ')},`);
+    out.push([`const ${tableName(i)}: readonly number[] = [`, ...rows, '];'].join('\n'));
+  });
+  return out;
+}
+
+/**
+ * The segment number (SEGMENT INDEX in src/ir/nodes.ts), as the C function
+ * computes it: the sum with the magic constant is stored in binary32 (or
+ * binary64) and its bits read back, then clamped with integer operations.
+ */
+function tsIndexLines(program: Program, parts: readonly IndexPart[], at: number): string[] {
+  const f32 = program.arithmetic === 'float32';
+  const lines: string[] = [];
+  const terms: string[] = [];
+  parts.forEach((p, k) => {
+    const t = tsReference(program, p.t, at);
+    const s = `rc_s${at}_${k}`;
+    const magic = tsLiteral(SEGMENT_MAGIC[program.arithmetic], program.arithmetic);
+    if (f32) {
+      lines.push(`rc_f32[0] = ${t} + ${magic};`);
+      lines.push(`const ${s}r = (rc_u32[0]! & 0x7fffff) - 0x400000;`);
+    } else {
+      lines.push(`rc_f64.setFloat64(0, ${t} + ${magic}, true);`);
+      lines.push(`const ${s}r = rc_f64.getInt32(0, true);`);
+    }
+    lines.push(`const ${s}p = ${s}r & ~(${s}r >> 31);`);
+    lines.push(`const ${s}d = ${s}p - ${p.count - 1};`);
+    lines.push(`const ${s} = ${s}p - (${s}d & ~(${s}d >> 31));`);
+    terms.push(p.stride === 1 ? s : `${s} * ${p.stride}`);
+  });
+  lines.push(`const ${valueName(at)} = ${terms.join(' + ')};`);
   return lines;
 }
 

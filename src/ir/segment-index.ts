@@ -1,0 +1,37 @@
+/**
+ * The segment number of SEGMENT INDEX (nodes.ts), computed exactly as the
+ * emitted code computes it: round by adding the magic constant in the target
+ * arithmetic, read the low bits, clamp with integer operations.
+ */
+import type { Arithmetic } from '../spec/types.js';
+import { SEGMENT_MAGIC, type IndexPart } from './nodes.js';
+
+const f32 = new Float32Array(1);
+const u32 = new Uint32Array(f32.buffer);
+const view = new DataView(new ArrayBuffer(8));
+
+/** round(t) by the magic-constant rule, as a signed 32-bit integer (any t, even NaN). */
+export function roundedSegment(t: number, arithmetic: Arithmetic): number {
+  if (arithmetic === 'float32') {
+    f32[0] = Math.fround(t + SEGMENT_MAGIC.float32);
+    return (u32[0]! & 0x7fffff) - 0x400000;
+  }
+  view.setFloat64(0, t + SEGMENT_MAGIC.float64, true);
+  return view.getInt32(0, true);
+}
+
+/** Clamp to [0, count - 1] with the same integer operations the targets use. */
+export function clampSegment(n: number, count: number): number {
+  n &= ~(n >> 31);
+  const d = n - (count - 1);
+  return n - (d & ~(d >> 31));
+}
+
+/** The combined segment number from the parts' t values. */
+export function segmentNumber(ts: readonly number[], parts: readonly IndexPart[], arithmetic: Arithmetic): number {
+  let idx = 0;
+  parts.forEach((p, k) => {
+    idx += clampSegment(roundedSegment(ts[k]!, arithmetic), p.count) * p.stride;
+  });
+  return idx;
+}

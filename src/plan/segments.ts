@@ -1,0 +1,66 @@
+/**
+ * Equal segments of the input ranges (DESIGN.md 1.5). Along an input split in
+ * K segments of width w, segment j is centred at c0 + j w and the emitted code
+ * finds it as round((x - c0) / w), clamped to [0, K - 1] (SEGMENT INDEX in
+ * src/ir/nodes.ts). c0 and 1/w are numbers of the target arithmetic, and the
+ * computed t = fl(fl(x - c0) * (1/w)) is within e = 3 u (K + 1) of the exact
+ * (x - c0) / w (two roundings of a value below K + 1 in magnitude, with room),
+ * so segment j is chosen only for x with t in [j - 1/2 - e, j + 1/2 + e]: each
+ * segment's analysed box is its own range widened by e segment widths. Several
+ * segmented inputs form a grid, numbered row-major.
+ */
+import { Rational } from '../math/rational.js';
+import type { Segmentation } from '../ir/builder.js';
+import { FORMATS, roundTo } from '../ir/round.js';
+import type { Family } from '../spec/types.js';
+import type { Cell } from './box.js';
+import { boxCentre } from './root-choice.js';
+
+export interface SegmentLayout {
+  readonly counts: readonly number[];
+  readonly segmentation: Segmentation;
+  /** Per segment: the analysed box (float64 enclosure) and the exact centre point. */
+  readonly boxes: readonly Cell[];
+  readonly centres: readonly (readonly Rational[])[];
+}
+
+export function segmentLayout(family: Family, box: Cell, counts: readonly number[]): SegmentLayout {
+  const arith = family.arithmetic;
+  const u = FORMATS[arith].u;
+  const centre = boxCentre(family);
+  const split = counts.map((k, i) => ({ i, k })).filter((p) => p.k > 1);
+  let stride = 1;
+  const strides = new Array<number>(split.length);
+  for (let k = split.length - 1; k >= 0; k--) {
+    strides[k] = stride;
+    stride *= split[k]!.k;
+  }
+  const parts = split.map((p, k) => {
+    const { lo, hi } = box[p.i]!;
+    const width = Rational.fromNumber(hi).sub(Rational.fromNumber(lo)).div(Rational.int(p.k));
+    const c0 = roundTo(Rational.fromNumber(lo).add(width.mul(Rational.of(1n, 2n))), arith);
+    const invWidth = roundTo(Rational.int(p.k).div(Rational.fromNumber(hi).sub(Rational.fromNumber(lo))), arith);
+    return { input: p.i, count: p.k, c0, invWidth, stride: strides[k]! };
+  });
+  const segments = stride;
+  const boxes: Cell[] = [];
+  const centres: Rational[][] = [];
+  for (let s = 0; s < segments; s++) {
+    const cell = box.map((c) => ({ ...c }));
+    const point = [...centre];
+    parts.forEach((p) => {
+      const j = Math.floor(s / p.stride) % p.count;
+      const c0 = Rational.fromNumber(p.c0);
+      const w = Rational.ONE.div(Rational.fromNumber(p.invWidth));
+      const e = Rational.fromNumber(3 * u * (p.count + 1));
+      const half = Rational.of(1n, 2n);
+      const lo = j === 0 ? box[p.input]!.lo : c0.add(w.mul(Rational.int(j).sub(half).sub(e))).toNumberDown();
+      const hi = j === p.count - 1 ? box[p.input]!.hi : c0.add(w.mul(Rational.int(j).add(half).add(e))).toNumberUp();
+      cell[p.input] = { lo: Math.max(lo, box[p.input]!.lo), hi: Math.min(hi, box[p.input]!.hi) };
+      point[p.input] = c0.add(w.mul(Rational.int(j)));
+    });
+    boxes.push(cell);
+    centres.push(point);
+  }
+  return { counts, segmentation: { parts, segments }, boxes, centres };
+}
