@@ -48,41 +48,52 @@ export class CellSet {
     return c.state.kind !== 'ok' || (relative && !(c.rootMin > 0));
   }
 
-  /** Splits cells without a bound until none is left, they are too small, or the budget is spent. */
+  /**
+   * Splits cells without a bound until none is left, they are too small, or
+   * the budget is spent, in at most 8 rounds (each halves the bad cells'
+   * widest side: 8 rounds narrow them 16-fold in each of two inputs, enough
+   * to undo interval overestimation; a series that still has no bound there
+   * does not converge there).
+   */
   repairBadCells(budget: number, relative: boolean): void {
-    for (let guard = 0; guard < 64 * budget && this.cells.length < budget; guard++) {
-      const i = this.cells.findIndex((c) => this.bad(c, relative) && !this.tooSmall(c.cell));
-      if (i < 0) return;
-      this.splitAt(i);
+    for (let round = 0; round < 8; round++) {
+      const bad: number[] = [];
+      this.cells.forEach((c, i) => {
+        if (this.bad(c, relative) && !this.tooSmall(c.cell)) bad.push(i);
+      });
+      if (bad.length === 0 || this.cells.length + bad.length > budget) return;
+      // Split from the end so earlier indices stay valid.
+      for (let k = bad.length - 1; k >= 0; k--) this.splitAt(bad[k]!);
     }
   }
 
   /** The truncation bound over all cells, absolute or relative to |x*|. */
   truncation(order: number, relative: boolean): number {
     let worst = 0;
-    for (const c of this.cells) {
-      const t = cellTail(c, order);
-      worst = Math.max(worst, relative ? divUp(t, c.rootMin) : t);
-    }
+    for (const c of this.cells) worst = Math.max(worst, this.cellBound(c, order, relative));
     return worst;
   }
 
-  /** Splits the worst cell while that lowers the box bound (stops after 8 splits without 2% gain). */
+  private cellBound(c: CellFacts, order: number, relative: boolean): number {
+    const t = cellTail(c, order);
+    return relative ? divUp(t, c.rootMin) : t;
+  }
+
+  /**
+   * Splits the worst cells (those within 10% of the box bound) in rounds while
+   * that lowers the bound; stops after two rounds without a 2% gain, when the
+   * cells are too small, or at the budget.
+   */
   refineWorst(order: number, relative: boolean, budget: number): void {
     let best = this.truncation(order, relative);
     let stale = 0;
-    while (this.cells.length < budget && stale < 8) {
-      let wi = 0;
-      let wv = -1;
+    for (let round = 0; round < 40 && stale < 2; round++) {
+      const worst: number[] = [];
       this.cells.forEach((c, i) => {
-        const t = cellTail(c, order);
-        const v = relative ? divUp(t, c.rootMin) : t;
-        if (v > wv) {
-          wv = v;
-          wi = i;
-        }
+        if (this.cellBound(c, order, relative) >= 0.9 * best && !this.tooSmall(c.cell)) worst.push(i);
       });
-      if (!this.splitAt(wi)) return;
+      if (worst.length === 0 || this.cells.length + worst.length > budget) return;
+      for (let k = worst.length - 1; k >= 0; k--) this.splitAt(worst[k]!);
       const now = this.truncation(order, relative);
       if (now < 0.98 * best) {
         best = now;

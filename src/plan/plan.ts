@@ -96,7 +96,15 @@ function searchSegments(family: Family, box: ReturnType<typeof boxOf>['cell']): 
   const d = family.inputs.length;
   const candidates: Candidate[] = [];
   const found: { best: Plan | null; firstError: RootcastError | null } = { best: null, firstError: null };
+  const tried = new Map<string, Plan | null>();
   const attempt = (counts: number[]): Plan | null => {
+    const key = counts.join('x');
+    if (tried.has(key)) return tried.get(key)!;
+    const p = attemptNew(counts);
+    tried.set(key, p);
+    return p;
+  };
+  const attemptNew = (counts: number[]): Plan | null => {
     try {
       const p = planWithCounts(family, box, counts);
       candidates.push(candidateOf(p, false));
@@ -121,7 +129,7 @@ function searchSegments(family: Family, box: ReturnType<typeof boxOf>['cell']): 
     let next: { counts: number[]; plan: Plan | null } | null = null;
     for (let i = 0; i < d; i++) {
       const counts = current.map((k, j) => (j === i ? k * 2 : k));
-      if (counts[i]! > 1024 || !tableFits(family, counts)) continue;
+      if (counts[i]! > MAX_SEGMENTS_PER_INPUT || !tableFits(family, counts)) continue;
       const plan = attempt(counts);
       if (plan && (!next || !next.plan || plan.cost < next.plan.cost)) next = { counts, plan };
       else if (!next) next = { counts, plan: null };
@@ -131,7 +139,7 @@ function searchSegments(family: Family, box: ReturnType<typeof boxOf>['cell']): 
     else {
       // Nothing possible yet: refine every input at once.
       const all = current.map((k) => k * 2);
-      if (all.some((k) => k > 1024) || !tableFits(family, all)) break;
+      if (all.some((k) => k > MAX_SEGMENTS_PER_INPUT) || !tableFits(family, all)) break;
       current = all;
       attempt(all);
     }
@@ -144,12 +152,16 @@ function searchSegments(family: Family, box: ReturnType<typeof boxOf>['cell']): 
   return { ...chosen, candidates: marked };
 }
 
+/** The search never goes past this many segments per input, nor SEARCH_SEGMENTS in all. */
+const MAX_SEGMENTS_PER_INPUT = 1024;
+const SEARCH_SEGMENTS = 1024;
+
 const sameCounts = (a: readonly number[], b: readonly number[]): boolean => a.every((k, i) => k === b[i]);
 
 /** A coarse check before planning: at least one table of one value per segment must fit. */
 function tableFits(family: Family, counts: readonly number[]): boolean {
   const segments = counts.reduce((a, b) => a * b, 1);
-  return segments * FORMATS[family.arithmetic].bytes * 2 <= family.plan.maxTableBytes;
+  return segments <= SEARCH_SEGMENTS && segments * FORMATS[family.arithmetic].bytes * 2 <= family.plan.maxTableBytes;
 }
 
 function candidateOf(p: Plan, chosen: boolean): Candidate {
@@ -193,7 +205,7 @@ function planWithCounts(family: Family, box: ReturnType<typeof boxOf>['cell'], c
   const d = family.inputs.length;
   const relative = family.accuracy.kind === 'relative';
   const target = Number(family.accuracy.value);
-  const perSegment = Math.max(d === 1 ? 4 : 1, Math.floor((d === 1 ? 64 : d === 2 ? 256 : 512) / S));
+  const perSegment = Math.max(d === 1 ? 2 : 1, Math.floor((d === 1 ? 64 : d === 2 ? 256 : 512) / S));
   const initial = layout.boxes.flatMap((b, segment) => grid(b, perSegment).map((cell) => ({ cell, segment })));
   const x0 = expansion.x0.map((v) => v.toNumber());
   const set = new CellSet(ap, degree, box, x0, initial);

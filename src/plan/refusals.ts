@@ -21,8 +21,10 @@ export function refuseBadCells(family: Family, cells: readonly CellFacts[], rela
     const T = worst.state.kind === 'diverges' ? worst.state.T : worst.T;
     let k = 2;
     for (let j = 2; j < T.length; j++) if (T[j]! / criticalT(j) > T[k]! / criticalT(k)) k = j;
+    const others = T.map((t, j) => ({ t, j })).filter(({ t, j }) => j >= 2 && j !== k && t > 0);
+    const together = others.length ? `, with ${others.map(({ t, j }) => `|t${j}| up to ${short(t)}`).join(', ')}` : '';
     throw new RootcastError(
-      `the series does not converge for ${describeCell(family, worst.cell)}: |t${k}| reaches ${short(T[k]!)} there (alone it must stay below ${short(criticalT(k))}); ${family.bracket ? 'narrow the input ranges' : 'add root.bracket to recentre the series, or narrow the input ranges'}`,
+      `the series does not converge for ${describeCell(family, worst.cell)}: |t${k}| reaches ${short(T[k]!)} there${together} (alone |t${k}| must stay below ${short(criticalT(k))}); ${family.bracket ? (family.plan.segments === 'auto' ? 'narrow the input ranges' : 'set plan.segments: auto, or narrow the input ranges') : 'add root.bracket to recentre the series, or narrow the input ranges'}`,
       locate(family, 'inputs'),
     );
   }
