@@ -24,7 +24,8 @@ import { locate } from './locate.js';
 import { refuseBadCells, refuseFloor, refuseOrder } from './refusals.js';
 import { chooseRoot, pointText, rootAt, type RootChoice } from './root-choice.js';
 import { segmentLayout, type SegmentLayout } from './segments.js';
-import { analysisProgram, seriesProgram, ZeroSlopeError, type Expansion } from './series-program.js';
+import { analysisProgram, collapsedSeries, seriesProgram, ZeroSlopeError, type Expansion } from './series-program.js';
+import { economise } from './economise.js';
 
 export interface Bound {
   readonly kind: 'absolute' | 'relative';
@@ -35,6 +36,8 @@ export interface Bound {
 
 /** One plan the search weighed (for `rootcast plan`'s table). */
 export interface Candidate {
+  readonly form: 'series' | 'economised';
+  readonly degree: number | null;
   /** Segments per input, in spec order. */
   readonly counts: readonly number[];
   readonly order: number | null;
@@ -50,7 +53,11 @@ export interface Candidate {
 export interface Plan {
   readonly family: Family;
   readonly root: RootChoice;
+  /** 'series': the series evaluated as built; 'economised': collapsed to a polynomial in the input and economised. */
+  readonly form: 'series' | 'economised';
   readonly order: number;
+  /** Degree of the economised polynomial in the scaled input (null for the series form). */
+  readonly degree: number | null;
   readonly terms: readonly SeriesTerm[];
   readonly program: Program;
   readonly bound: Bound;
@@ -66,6 +73,8 @@ export interface Plan {
   readonly counts: readonly number[];
   readonly tableBytes: number;
   readonly candidates: readonly Candidate[];
+  /** Other forms weighed for the same segments (for the candidate table). */
+  readonly alternatives?: readonly Plan[];
 }
 
 export function makePlan(family: Family): Plan {
@@ -81,7 +90,7 @@ export function makePlan(family: Family): Plan {
       );
     }
     const p = planWithCounts(family, box.cell, counts);
-    return { ...p, candidates: [candidateOf(p, true)] };
+    return { ...p, candidates: markChosen(candidatesOf(p), p) };
   }
   return searchSegments(family, box.cell);
 }
@@ -107,13 +116,13 @@ function searchSegments(family: Family, box: ReturnType<typeof boxOf>['cell']): 
   const attemptNew = (counts: number[]): Plan | null => {
     try {
       const p = planWithCounts(family, box, counts);
-      candidates.push(candidateOf(p, false));
+      candidates.push(...candidatesOf(p));
       if (!found.best || p.cost < found.best.cost) found.best = p;
       return p;
     } catch (e) {
       if (!(e instanceof RootcastError)) throw e;
       found.firstError ??= e;
-      candidates.push({ counts, order: null, terms: null, ops: null, cost: null, bound: null, refusal: e.message, chosen: false });
+      candidates.push({ form: 'series', degree: null, counts, order: null, terms: null, ops: null, cost: null, bound: null, refusal: e.message, chosen: false });
       return null;
     }
   };
@@ -121,7 +130,7 @@ function searchSegments(family: Family, box: ReturnType<typeof boxOf>['cell']): 
   const currentPlan = attempt(current);
   if (!family.bracket) {
     if (!currentPlan) throw found.firstError!;
-    return { ...currentPlan, candidates: [candidateOf(currentPlan, true)] };
+    return { ...currentPlan, candidates: markChosen(candidatesOf(currentPlan), currentPlan) };
   }
   let stale = 0;
   for (let step = 0; step < 12 && stale < 2; step++) {
@@ -148,13 +157,20 @@ function searchSegments(family: Family, box: ReturnType<typeof boxOf>['cell']): 
   }
   if (!found.best) throw found.firstError!;
   const chosen: Plan = found.best;
-  const marked = candidates.map((c) => ({ ...c, chosen: c.refusal === null && sameCounts(c.counts, chosen.counts) }));
-  return { ...chosen, candidates: marked };
+  return { ...chosen, candidates: markChosen(candidates, chosen) };
+}
+
+function markChosen(candidates: readonly Candidate[], p: Plan): Candidate[] {
+  return candidates.map((c) => ({ ...c, chosen: c.refusal === null && c.form === p.form && sameCounts(c.counts, p.counts) }));
 }
 
 /** The search never goes past this many segments per input, nor SEARCH_SEGMENTS in all. */
 const MAX_SEGMENTS_PER_INPUT = 1024;
 const SEARCH_SEGMENTS = 1024;
+
+/** Economisation is weighed for plans with at most this many segments. */
+const ECONOMISE_MAX_SEGMENTS = 8;
+const ECONOMISE_MAX_ORDER = 16;
 
 const sameCounts = (a: readonly number[], b: readonly number[]): boolean => a.every((k, i) => k === b[i]);
 
@@ -165,7 +181,80 @@ function tableFits(family: Family, counts: readonly number[]): boolean {
 }
 
 function candidateOf(p: Plan, chosen: boolean): Candidate {
-  return { counts: p.counts, order: p.order, terms: p.terms.length, ops: p.ops, cost: p.cost, bound: p.bound.total, refusal: null, chosen };
+  return {
+    form: p.form,
+    degree: p.degree,
+    counts: p.counts,
+    order: p.order,
+    terms: p.terms.length,
+    ops: p.ops,
+    cost: p.cost,
+    bound: p.bound.total,
+    refusal: null,
+    chosen,
+  };
+}
+
+/** The plan and the other forms weighed for its segments, as candidate rows. */
+function candidatesOf(p: Plan): Candidate[] {
+  return [p, ...(p.alternatives ?? [])].map((x) => candidateOf(x, false));
+}
+
+/**
+ * Tries the collapsed, economised form for orders from the series plan's up
+ * (more series terms leave more of the target to economisation) and budgets
+ * halving from half the room left; returns the cheapest that meets the
+ * target, or null.
+ */
+function economisedPlan(
+  series: Plan,
+  expansion: Expansion,
+  layout: SegmentLayout,
+  cells: readonly CellFacts[],
+  order: number,
+  relative: boolean,
+  termsUpTo: (grade: number) => SeriesTerm[] | null,
+): Plan | null {
+  const family = series.family;
+  // Exact Chebyshev arithmetic per segment is costly: weigh the form where it
+  // can pay (few segments, where the polynomial degree is high).
+  if (family.inputs.length !== 1 || layout.segmentation.segments > ECONOMISE_MAX_SEGMENTS || order > ECONOMISE_MAX_ORDER) return null;
+  let best: Plan | null = null;
+  for (let n = order; n <= order + 3; n++) {
+    const terms = termsUpTo(n);
+    if (!terms) break;
+    const collapsed = collapsedSeries(family, expansion, terms);
+    if (!collapsed) return null;
+    let room = Infinity;
+    for (const c of cells) {
+      const allowed = relative ? series.target * c.rootMin : series.target;
+      room = Math.min(room, allowed - cellTail(c, n));
+    }
+    for (let budget = room / 2; budget > room / 32 && budget > 0; budget /= 4) {
+      const e = economise(family, expansion, collapsed, layout.boxes, budget);
+      if (!e) break;
+      const ev = evaluate(e.program, cells, n, relative, (c) => e.error[c.segment]!);
+      if (ev.bound.total > series.target) continue;
+      const cost = programCost(e.program);
+      if (!best || cost < best.cost) {
+        best = {
+          ...series,
+          form: 'economised',
+          order: n,
+          degree: e.degree,
+          terms,
+          program: e.program,
+          bound: ev.bound,
+          absoluteBound: ev.absolute,
+          ops: countOps(e.program),
+          cost,
+          tableBytes: tableBytesOf(e.program),
+        };
+      }
+      break;
+    }
+  }
+  return best && best.tableBytes <= family.plan.maxTableBytes ? best : null;
 }
 
 function tableBytesOf(program: Program): number {
@@ -243,23 +332,29 @@ function planWithCounts(family: Family, box: ReturnType<typeof boxOf>['cell'], c
           locate(family, family.positions['plan.max_table_bytes'] ? 'plan.max_table_bytes' : 'plan.segments'),
         );
       }
-      const ops = countOps(program);
-      return {
+      const series: Plan = {
         family,
         root,
+        form: 'series',
         order,
+        degree: null,
         terms: [...kept],
         program,
         bound: ev.bound,
         absoluteBound: ev.absolute,
         target,
-        ops,
+        ops: countOps(program),
         cost: programCost(program),
         cells: set.cells.length,
         counts: [...counts],
         tableBytes,
         candidates: [],
       };
+      const econ = economisedPlan(series, expansion, layout, set.cells, order, relative, (w) => {
+        while (byGrade.length <= w) if (!nextGrade(byGrade.length)) return null;
+        return kept.filter((t) => t.grade <= w);
+      });
+      return econ && econ.cost < series.cost ? { ...econ, alternatives: [series] } : { ...series, alternatives: econ ? [econ] : [] };
     }
     if (!best || ev.bound.total < best.total) best = { order, total: ev.bound.total, rounding: ev.bound.rounding };
     // Truncation is already negligible next to rounding: more terms cannot help.
@@ -280,7 +375,13 @@ interface Evaluated {
 }
 
 /** Truncation, rounding and total over all cells, in the spec's accuracy kind. */
-function evaluate(program: Program, cells: readonly CellFacts[], order: number, relative: boolean): Evaluated {
+function evaluate(
+  program: Program,
+  cells: readonly CellFacts[],
+  order: number,
+  relative: boolean,
+  extra: (c: CellFacts) => number = () => 0,
+): Evaluated {
   let truncation = 0;
   let rounding = 0;
   let total = 0;
@@ -288,7 +389,7 @@ function evaluate(program: Program, cells: readonly CellFacts[], order: number, 
   for (const c of cells) {
     const an = analyse(program, c.cell, { segment: c.segment });
     const rnd = an.errors[program.result]!;
-    const tr = cellTail(c, order);
+    const tr = addUp(cellTail(c, order), extra(c));
     const abs = addUp(tr, rnd);
     absolute = Math.max(absolute, abs);
     if (relative) {

@@ -163,3 +163,62 @@ function horner(b: ProgramBuilder, vars: readonly Ref[], rows: readonly { exps: 
   }
   return acc;
 }
+
+/**
+ * The inverse-function case collapsed to a polynomial (DESIGN.md 1.6): one
+ * input p enters only through r = alpha + beta p and every q_k is constant,
+ * so x_S = x0 - r sum_w D_w r^w is a polynomial in r with exact coefficients.
+ * Returns, per segment, those coefficients (index = power of r) and the
+ * affine map, or null when the family is not of this shape.
+ */
+export interface Collapsed {
+  readonly input: number;
+  readonly alpha: SegValues;
+  readonly beta: SegValues;
+  /** Per segment: coefficients of x_S in powers of r. */
+  readonly inR: readonly (readonly Rational[])[];
+}
+
+export function collapsedSeries(family: Family, e: Expansion, terms: readonly SeriesTerm[]): Collapsed | null {
+  const b = new ProgramBuilder(family.arithmetic, family.inputs.map((i) => i.name), e.segmentation);
+  const s = setupSeries(family, e.x0, b);
+  const c1 = s.shifted[1]!;
+  if (!isConstant(c1)) return null;
+  const inv = c1.constant.map((v) => Rational.ONE.div(v));
+  const rForm = scaleForm(s.shifted[0]!, inv);
+  if (rForm.terms.size !== 1) return null;
+  const [atom, beta] = [...rForm.terms][0]!;
+  const atomNode = b.node(atom);
+  if (atomNode.kind !== 'input') return null;
+  const q = new Map<number, SegValues>();
+  for (const k of s.active) {
+    const f = scaleForm(s.shifted[k]!, inv);
+    if (!isConstant(f)) return null;
+    q.set(k, f.constant);
+  }
+  const S = b.segments;
+  const inR: Rational[][] = [];
+  for (let seg = 0; seg < S; seg++) {
+    const m: Rational[] = [e.x0[seg]!];
+    for (const t of terms) {
+      let v = signedCoefficient(t);
+      for (const k of s.active) v = v.mul(q.get(k)![seg]!.pow(t.m[k]!));
+      while (m.length <= t.grade + 1) m.push(Rational.ZERO);
+      m[t.grade + 1] = m[t.grade + 1]!.sub(v);
+    }
+    inR.push(m);
+  }
+  return { input: atomNode.index, alpha: rForm.constant, beta, inR };
+}
+
+/**
+ * Horner's rule in the scaled input u = (p - mid) * invHalf for per-segment
+ * coefficients (index = power of u): the collapsed, economised form.
+ */
+export function polynomialProgram(family: Family, e: Expansion, input: number, mid: SegValues, invHalf: Rational, coeffs: readonly SegValues[]): Program {
+  const b = new ProgramBuilder(family.arithmetic, family.inputs.map((i) => i.name), e.segmentation);
+  const u = b.mul(b.sub(b.input(input), b.const(mid)), b.const(invHalf));
+  let acc = b.const(coeffs[coeffs.length - 1]!);
+  for (let k = coeffs.length - 2; k >= 0; k--) acc = b.add(b.mul(acc, u), b.const(coeffs[k]!));
+  return b.finish(acc);
+}

@@ -12,7 +12,8 @@ export function planJson(plan: Plan): object {
     spec: plan.family.file,
     specSha256: plan.family.specHash,
     arithmetic: plan.family.arithmetic,
-    form: 'series',
+    form: plan.form,
+    degree: plan.degree,
     root: { x0: plan.root.x0.toNumber(), note: plan.root.note },
     order: c.order,
     terms: c.terms,
@@ -24,7 +25,8 @@ export function planJson(plan: Plan): object {
     segments: { counts: plan.counts, tableBytes: plan.tableBytes },
     cost: { model: plan.family.arithmetic === 'float32' ? 'cortex-m4f' : 'x86-64', value: plan.cost },
     candidates: plan.candidates.map((k) => ({
-      form: 'series',
+      form: k.form,
+      degree: k.degree,
       segments: k.counts,
       order: k.order,
       terms: k.terms,
@@ -39,12 +41,13 @@ export function planJson(plan: Plan): object {
 
 /** The candidates the planner weighed, one row each; the chosen one marked with `*`. */
 export function candidateTable(plan: Plan): string[] {
-  const head = ['', 'form', 'segments', 'order', 'terms', 'add', 'mul', 'div', 'reads', 'cost', 'bound'];
+  const head = ['', 'form', 'segments', 'order', 'degree', 'terms', 'add', 'mul', 'div', 'reads', 'cost', 'bound'];
   const rows = plan.candidates.map((k) => [
     k.chosen ? '*' : '',
-    'series',
+    k.form,
     k.counts.join('x'),
     k.order === null ? '-' : String(k.order),
+    k.degree === null ? '-' : String(k.degree),
     k.terms === null ? '-' : String(k.terms),
     k.ops ? String(k.ops.add) : '-',
     k.ops ? String(k.ops.mul) : '-',
@@ -67,6 +70,7 @@ export function planText(plan: Plan): string {
     ['inputs', f.inputs.map((i) => `${i.name} in [${i.lo}, ${i.hi}]`).join(', ')],
     ['root', c.rootNote],
     ['arithmetic', f.arithmetic],
+    ['form', plan.form === 'series' ? 'series, evaluated by Horner\'s rule' : `series collapsed to a polynomial in ${f.inputs[0]!.name}, Chebyshev-economised to degree ${plan.degree}`],
     ['series', `order ${c.order}, ${c.terms} terms, bound certified over ${plan.cells} cells`],
     [
       'bound',

@@ -1,0 +1,71 @@
+/**
+ * Chebyshev economisation of the collapsed series (DESIGN.md 1.6). Per
+ * segment, x_S is a polynomial in the scaled input u = (p - mid) * invHalf;
+ * with rho = max |u| over the segment's analysed box (a little above 1, since
+ * mid and invHalf are rounded and segments overlap by their margins), the
+ * polynomial in v = u / rho is rewritten in the Chebyshev basis and its top
+ * coefficients dropped while their magnitudes sum to at most the budget. On
+ * |v| <= 1 every |T_k(v)| <= 1, so the sum of the dropped magnitudes bounds the
+ * change: it is added to the certified bound of every cell of that segment.
+ * One degree is used for every segment, so the cost is the same for every input.
+ */
+import { Rational } from '../math/rational.js';
+import { roundTo } from '../ir/round.js';
+import type { Program } from '../ir/nodes.js';
+import { composeAffine, fromChebyshev, scaleArgument, toChebyshev } from '../series/chebyshev.js';
+import type { Family } from '../spec/types.js';
+import type { Cell } from './box.js';
+import { polynomialProgram, type Collapsed, type Expansion } from './series-program.js';
+
+export interface Economised {
+  readonly program: Program;
+  /** Degree of the kept polynomial in u. */
+  readonly degree: number;
+  /** Per segment: certified bound of the economisation error (rounded up). */
+  readonly error: readonly number[];
+}
+
+/**
+ * The economised program for a budget, or null when no degree below the
+ * collapsed one fits the budget in every segment.
+ */
+export function economise(family: Family, e: Expansion, c: Collapsed, boxes: readonly Cell[], budget: number): Economised | null {
+  const S = c.inR.length;
+  const mid: Rational[] = [];
+  const cheb: Rational[][] = [];
+  const rho: Rational[] = [];
+  const p0 = boxes[0]![c.input]!;
+  // One scale for every segment: half the width of a segment's analysed box (the widest).
+  const half = Math.max(...boxes.map((b) => (b[c.input]!.hi - b[c.input]!.lo) / 2));
+  const invHalf = Rational.fromNumber(roundTo(Rational.ONE.div(Rational.fromNumber(half)), family.arithmetic));
+  void p0;
+  for (let s = 0; s < S; s++) {
+    const { lo, hi } = boxes[s]![c.input]!;
+    const m = Rational.fromNumber(roundTo(Rational.fromNumber(lo).add(Rational.fromNumber(hi)).mul(Rational.of(1n, 2n)), family.arithmetic));
+    mid.push(m);
+    // r = alpha + beta p, p = mid + u / invHalf  =>  r = (alpha + beta mid) + (beta / invHalf) u.
+    const a = c.alpha[s]!.add(c.beta[s]!.mul(m));
+    const b = c.beta[s]!.div(invHalf);
+    const inU = composeAffine(c.inR[s]!, a, b);
+    const uLo = Rational.fromNumber(lo).sub(m).mul(invHalf).abs();
+    const uHi = Rational.fromNumber(hi).sub(m).mul(invHalf).abs();
+    const r = uLo.cmp(uHi) > 0 ? uLo : uHi;
+    rho.push(r);
+    cheb.push(toChebyshev(scaleArgument(inU, r)));
+  }
+  const full = Math.max(...cheb.map((ch) => ch.length - 1));
+  // The smallest degree whose dropped tail fits the budget in every segment.
+  let degree = full;
+  const tailAbove = (ch: readonly Rational[], d: number): Rational => ch.slice(d + 1).reduce((acc, v) => acc.add(v.abs()), Rational.ZERO);
+  const limit = Rational.fromNumber(budget);
+  while (degree > 0 && cheb.every((ch) => tailAbove(ch, degree - 1).cmp(limit) <= 0)) degree--;
+  if (degree === full) return null;
+  const error = cheb.map((ch) => {
+    const t = tailAbove(ch, degree);
+    return t.isZero() ? 0 : t.toNumberUp();
+  });
+  // Kept Chebyshev terms back to monomials in v, then in u = rho v.
+  const perSegment = cheb.map((ch, s) => scaleArgument(fromChebyshev(ch.slice(0, degree + 1)), Rational.ONE.div(rho[s]!)));
+  const coeffs = Array.from({ length: degree + 1 }, (_, k) => perSegment.map((m) => m[k] ?? Rational.ZERO));
+  return { program: polynomialProgram(family, e, c.input, mid, invHalf, coeffs), degree, error };
+}
