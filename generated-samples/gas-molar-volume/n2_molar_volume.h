@@ -12,90 +12,100 @@
  *             Rg = 0.0831446
  * inputs:     P in [35, 37]
  *             T in [295, 305]
- * root:       the root in [0.3, 1.5], series recentred at V0 =
- *             0.6786974593654649 (the root at the box centre P = 36, T = 300)
+ * root:       the root in [0.3, 1.5], 4 x 1 segments, each recentred at its
+ *             own root (at the segment centre)
  * arithmetic: float64 (IEEE 754 binary64, every operation rounded to nearest)
  *
  * certified bound (relative error, over the whole input box):
- *   truncation  5.1e-6
- *   rounding    6.6e-16
- *   total       5.1e-6
+ *   truncation  7.5e-6
+ *   rounding    5.6e-16
+ *   total       7.5e-6
  * target:     1e-5 (relative)
- * series:     order 8, 25 terms
- * operations: 30 add, 37 mul, 1 div, 0 table reads
+ * series:     order 3, 6 terms
+ * operations: 13 add, 18 mul, 1 div, 7 table reads
+ * cortex-m4f estimate: software double: not estimated (FPv4-SP has no double unit)
  */
+
+#include <stddef.h>
+#include <stdint.h>
 
 static inline double n2_molar_volume(double P, double T)
 {
-    const double v3 = P * 1.3293595406925236;
-    const double v5 = T * 0.11286005755991567;
-    const double v6 = v3 - v5;
-    const double v8 = v6 + 1.37;
-    const double v10 = 1.0 / v8;
-    const double v12 = P * 0.2948021841703485;
-    const double v14 = T * 0.03829891716487745;
-    const double v15 = v12 - v14;
-    const double v17 = v15 + 0.8767965193306869;
-    const double v18 = v10 * v17;
-    const double v20 = P * 1.9973923780963947;
-    const double v22 = T * 0.0831446;
-    const double v23 = v20 - v22;
-    const double v24 = v10 * v23;
-    const double v25 = P * v10;
-    const double v26 = v18 * v24;
-    const double v27 = v18 * v18;
-    const double v28 = v25 * v27;
-    const double v30 = v26 * 1430.0;
-    const double v32 = v30 + 429.0;
-    const double v33 = v26 * v32;
-    const double v35 = v28 * (-5005.0);
-    const double v37 = v35 + 132.0;
-    const double v38 = v33 + v37;
-    const double v39 = v26 * v38;
-    const double v41 = v28 * (-1287.0);
-    const double v43 = v41 + 42.0;
-    const double v44 = v39 + v43;
-    const double v45 = v26 * v44;
-    const double v47 = v28 * 5005.0;
-    const double v49 = v47 + (-330.0);
-    const double v50 = v28 * v49;
-    const double v52 = v50 + 14.0;
-    const double v53 = v45 + v52;
-    const double v54 = v26 * v53;
-    const double v56 = v28 * 990.0;
-    const double v58 = v56 + (-84.0);
-    const double v59 = v28 * v58;
-    const double v61 = v59 + 5.0;
-    const double v62 = v54 + v61;
-    const double v63 = v26 * v62;
-    const double v65 = v28 * (-1430.0);
-    const double v67 = v65 + 180.0;
-    const double v68 = v28 * v67;
-    const double v70 = v68 + (-21.0);
-    const double v71 = v28 * v70;
-    const double v73 = v71 + 2.0;
-    const double v74 = v63 + v73;
-    const double v75 = v26 * v74;
-    const double v77 = v28 * (-165.0);
-    const double v79 = v77 + 28.0;
-    const double v80 = v28 * v79;
-    const double v82 = v80 + (-5.0);
-    const double v83 = v28 * v82;
-    const double v84 = v83 + 1.0;
-    const double v85 = v75 + v84;
-    const double v86 = v26 * v85;
-    const double v88 = v28 * 55.0;
-    const double v90 = v88 + (-12.0);
-    const double v91 = v28 * v90;
-    const double v93 = v91 + 3.0;
-    const double v94 = v28 * v93;
-    const double v96 = v94 + (-1.0);
-    const double v97 = v28 * v96;
-    const double v98 = v97 + 1.0;
-    const double v99 = v86 + v98;
-    const double v100 = v18 * v99;
-    const double v102 = 0.6786974593654649 - v100;
-    return v102;
+    const double v4 = P - 35.25;
+    const double v5 = v4 * 2.0;
+    union { double f; uint64_t u; } rc_s6_0b = { v5 + 6755399441055744.0 };
+    const int32_t rc_s6_0r = (int32_t)(uint32_t)(rc_s6_0b.u & 0xffffffffu);
+    const int32_t rc_s6_0p = rc_s6_0r & ~(rc_s6_0r >> 31);
+    const int32_t rc_s6_0d = rc_s6_0p - 3;
+    const int32_t rc_s6_0 = rc_s6_0p - (rc_s6_0d & ~(rc_s6_0d >> 31));
+    const int32_t v6 = rc_s6_0;
+    static const double rc_tab7[4] = {
+        1.3887047175054925, 1.348720665727484, 1.3104034997388296, 1.2736624932945522,
+    };
+    const double v7 = rc_tab7[v6];
+    const double v8 = P * v7;
+    static const double rc_tab9[4] = {
+        -0.11530343240713677, -0.11366308264236581, -0.11206815040931953, -0.11051678270375746,
+    };
+    const double v9 = rc_tab9[v6];
+    const double v10 = T * v9;
+    const double v11 = v8 + v10;
+    const double v13 = v11 + 1.37;
+    const double v15 = 1.0 / v13;
+    static const double rc_tab16[4] = {
+        0.31476957326606, 0.3012684695693857, 0.28851666091304196, 0.27646325785072057,
+    };
+    const double v16 = rc_tab16[v6];
+    const double v17 = P * v16;
+    static const double rc_tab18[4] = {
+        -0.03997518036308779, -0.03884586718730164, -0.03776333741507525, -0.03672505267687121,
+    };
+    const double v18 = rc_tab18[v6];
+    const double v19 = T * v18;
+    const double v20 = v17 + v19;
+    static const double rc_tab21[4] = {
+        0.8969266512977233, 0.8834123690849506, 0.8702722664248054, 0.8574910770473833,
+    };
+    const double v21 = rc_tab21[v6];
+    const double v22 = v20 + v21;
+    const double v23 = v15 * v22;
+    static const double rc_tab24[4] = {
+        2.0414729590461094, 2.0118796403320083, 1.9831056929010338, 1.9551176869650728,
+    };
+    const double v24 = rc_tab24[v6];
+    const double v25 = P * v24;
+    const double v27 = T * 0.0831446;
+    const double v28 = v25 - v27;
+    const double v29 = v15 * v28;
+    const double v30 = P * v15;
+    const double v31 = v23 * v29;
+    const double v32 = v23 * v23;
+    const double v33 = v30 * v32;
+    const double v35 = v31 * 5.0;
+    const double v36 = v35 + 2.0;
+    const double v37 = v31 * v36;
+    const double v39 = v33 * (-5.0);
+    const double v40 = v39 + 1.0;
+    const double v41 = v37 + v40;
+    const double v42 = v31 * v41;
+    const double v43 = -v33;
+    const double v44 = v43 + 1.0;
+    const double v45 = v42 + v44;
+    const double v46 = v23 * v45;
+    static const double rc_tab47[4] = {
+        0.6933909863487031, 0.6835265467773362, 0.6739352309670112, 0.6646058956550243,
+    };
+    const double v47 = rc_tab47[v6];
+    const double v48 = v47 - v46;
+    return v48;
+}
+
+// rc_out[i] = n2_molar_volume(each input[i]) for i < rc_n; the arrays must not overlap.
+static inline void n2_molar_volume_batch(const double *restrict P, const double *restrict T, double *restrict rc_out, size_t rc_n)
+{
+    while (rc_n--) {
+        *rc_out++ = n2_molar_volume(*P++, *T++);
+    }
 }
 
 #endif /* ROOTCAST_N2_MOLAR_VOLUME_H */

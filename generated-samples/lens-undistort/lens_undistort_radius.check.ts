@@ -18,6 +18,7 @@
  * target:     1e-5 (absolute)
  * series:     order 16, 25 terms
  * operations: 24 add, 29 mul, 0 div, 0 table reads
+ * cortex-m4f estimate: ~101 cycles (55 FPU ops + 23 constant loads; Cortex-M4 TRM FPU timings, see src/emit/cycles.ts)
  *
  * Build and run (an ES module; node 20 or later, no type stripping needed):
  *
@@ -327,9 +328,9 @@ const rc_names: readonly string[] = ['rd', 'k1', 'k2'];
 const rc_lo: readonly number[] = [0, -0.1, -0.02];
 const rc_hi: readonly number[] = [0.7, 0.1, 0.02];
 /** Certified total bound, target accuracy, certified absolute bound B. */
-const rc_bound: number = 0.000009733219447928042;
+const rc_bound: number = 0.000009733219447928043;
 const rc_target: number = 0.00001;
-const rc_absoluteBound: number = 0.000009733219447928042;
+const rc_absoluteBound: number = 0.000009733219447928043;
 /** true: the bound and the target are relative errors, |x - ref| / |ref|. */
 const rc_relative: boolean = false;
 const rc_float32: boolean = true;

@@ -18,6 +18,7 @@
  * target:     1e-5 (absolute)
  * series:     order 16, 25 terms
  * operations: 24 add, 29 mul, 0 div, 0 table reads
+ * cortex-m4f estimate: ~101 cycles (55 FPU ops + 23 constant loads; Cortex-M4 TRM FPU timings, see src/emit/cycles.ts)
  */
 
 /**
@@ -89,4 +90,14 @@ export function lens_undistort_radius(rd: number, k1: number, k2: number): numbe
   const v79 = Math.fround(v3 * v78);
   const v80 = -v79;
   return v80;
+}
+
+/**
+ * Fills rc_out[i] with lens_undistort_radius(...) of the inputs' i-th elements, for every i < rc_out.length.
+ * Each input array must be at least as long as rc_out.
+ */
+export function lens_undistort_radius_batch(rd: Float32Array | Float64Array, k1: Float32Array | Float64Array, k2: Float32Array | Float64Array, rc_out: Float32Array | Float64Array): void {
+  for (let rc_i = 0; rc_i < rc_out.length; rc_i++) {
+    rc_out[rc_i] = lens_undistort_radius(rd[rc_i]!, k1[rc_i]!, k2[rc_i]!);
+  }
 }

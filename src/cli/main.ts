@@ -13,7 +13,7 @@ const out = (line: string): void => {
   process.stdout.write(`${line}\n`);
 };
 
-const TARGET_CHOICES = ['c', 'ts', 'all'] as const;
+const TARGET_CHOICES = ['c', 'ts', 'glsl', 'all'] as const;
 
 export async function main(argv: string[]): Promise<number> {
   let code = 0;
@@ -52,7 +52,7 @@ export async function main(argv: string[]): Promise<number> {
       (y) =>
         y
           .positional('spec', { type: 'string', demandOption: true, describe: 'spec file (YAML or JSON)' })
-          .option('target', { choices: TARGET_CHOICES, default: 'all' as const, describe: 'language to emit' })
+          .option('target', { choices: TARGET_CHOICES, default: 'all' as const, describe: 'language to emit (all: c, ts, and glsl when the spec is float32)' })
           .option('out', { type: 'string', demandOption: true, describe: 'output directory' })
           .option('check', {
             type: 'boolean',
@@ -70,14 +70,20 @@ export async function main(argv: string[]): Promise<number> {
       (y) =>
         y
           .positional('spec', { type: 'string', demandOption: true, describe: 'spec file (YAML or JSON)' })
-          .option('target', { choices: TARGET_CHOICES, default: 'all' as const, describe: 'harnesses to build and run' })
+          .option('target', { choices: TARGET_CHOICES, default: 'all' as const, describe: 'harnesses to build and run (all: c, ts, and glsl in headless Chromium when the spec is float32)' })
           .option('samples', { type: 'number', default: 10000, describe: 'sample points (corners, a grid, seeded random)' })
-          .option('seed', { type: 'number', default: 1, describe: 'seed of the random sample points' }),
+          .option('seed', { type: 'number', default: 1, describe: 'seed of the random sample points' })
+          .option('json', { type: 'boolean', default: false, describe: 'print one JSON object (plan claims and every check) instead of text' })
+          .option('report', { type: 'string', describe: 'also write FILE.html, a self-contained page plotting the measured error' }),
       async (a) => {
         const { runVerify } = await import('./commands/verify.js');
         if (!Number.isInteger(a.samples) || a.samples < 1) throw new RootcastError('--samples must be a positive integer');
         if (!Number.isInteger(a.seed) || a.seed < 0 || a.seed > 0xffffffff) throw new RootcastError('--seed must be an integer from 0 to 4294967295');
-        code = runVerify({ spec: a.spec, target: a.target, samples: a.samples, seed: a.seed }, out);
+        if (a.report !== undefined && !/\.html?$/i.test(a.report)) throw new RootcastError('--report needs a file name ending in .html');
+        code = runVerify(
+          { spec: a.spec, target: a.target, samples: a.samples, seed: a.seed, json: a.json, report: a.report, progress: process.stderr },
+          out,
+        );
       },
     )
     .demandCommand(1, 'name a command: new, plan, emit or verify (see --help)')

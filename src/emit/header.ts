@@ -10,6 +10,7 @@
  * a printed bound is never smaller than the proven one.
  */
 import { countOps, type OpCounts } from '../ir/count.js';
+import { cycleHeaderLine } from './cycles.js';
 import type { Arithmetic, Family } from '../spec/types.js';
 import { formatBoundUp } from './literals/round-up.js';
 import type { EmitInput } from './types.js';
@@ -47,6 +48,7 @@ export function headerLines(input: EmitInput, fileRole: string): string[] {
     ...labelled('target:', [`${family.accuracy.value} (${family.accuracy.kind})`]),
     ...labelled('series:', [`order ${claims.order}, ${claims.terms} ${claims.terms === 1 ? 'term' : 'terms'}`]),
     ...labelled('operations:', [`${ops.add} add, ${ops.mul} mul, ${ops.div} div, ${ops.tableReads} table reads`]),
+    cycleHeaderLine(input.program),
   ];
   for (const line of lines) assertCommentSafe(line);
   return lines;

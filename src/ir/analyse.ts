@@ -45,7 +45,8 @@ export function analyse(
   const segment = opts.segment ?? 0;
   const f = FORMATS[program.arithmetic];
   const u = f.u;
-  const eta = opts.flushToZero ? f.minSubnormal * 2 ** (f.bits - 1) : f.minSubnormal / 2;
+  const minNormal = f.minSubnormal * 2 ** (f.bits - 1);
+  const eta = opts.flushToZero ? minNormal : f.minSubnormal / 2;
   const values: Interval[] = new Array(program.nodes.length);
   const errors: number[] = new Array(program.nodes.length);
   let unbounded = -1;
@@ -57,12 +58,14 @@ export function analyse(
       case 'const': {
         const c = constantFacts(n, n.value, n.exact);
         v = c.value;
-        e = c.error;
+        // Flush to zero reads a subnormal constant as 0: off by at most its own size.
+        e = opts.flushToZero && Math.abs(n.value) < minNormal ? Math.max(c.error, addUp(mag(c.value), c.error)) : c.error;
         break;
       }
       case 'input':
         v = cell[n.index]!;
-        e = 0;
+        // A subnormal argument may be read as 0 where subnormals are flushed.
+        e = opts.flushToZero ? minNormal : 0;
         break;
       case 'neg':
         v = ineg(values[n.a]!);

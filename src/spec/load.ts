@@ -10,6 +10,13 @@ import { readSpec } from './read.js';
 import type { Family } from './types.js';
 
 export function loadSpec(file: string): Family {
+  const unsafe = unsafePathPart(file);
+  if (unsafe) {
+    throw new RootcastError(
+      `the spec's path contains ${unsafe}, which cannot be written into the generated files' header comment; rename the file or its directory`,
+      { file: JSON.stringify(file).slice(1, -1), line: 0, column: 0, field: WHOLE_FILE },
+    );
+  }
   let bytes: Uint8Array;
   try {
     bytes = readFileSync(file);
@@ -38,4 +45,16 @@ function describeFsError(err: unknown): string {
     default:
       return typeof code === 'string' ? `${code}` : 'unreadable';
   }
+}
+
+/**
+ * Every emitted file names the spec path in a comment (C and TypeScript block
+ * comments, and a <script> in an HTML page), so the path must not be able to
+ * end that comment or element, or break its line.
+ */
+function unsafePathPart(file: string): string | null {
+  if (/[\u0000-\u001f\u007f\u2028\u2029]/.test(file)) return 'a line break or control character';
+  for (const marker of ['*/', '/*']) if (file.includes(marker)) return `\`${marker}\``;
+  if (/[<>]/.test(file)) return '`<` or `>`';
+  return null;
 }

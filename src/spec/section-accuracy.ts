@@ -22,7 +22,7 @@ export function readAccuracy(ctx: SpecContext, entry: Entry, positions: Record<s
   const e = entries[0]!;
   const kind = e.key as 'absolute' | 'relative';
   const value = readDecimal(ctx, valueOf(ctx, e, 'a positive number such as 0.001'), e.field);
-  if (value.value.sign() <= 0) ctx.fail(`must be positive (found ${showText(value.text)})`, value.pos, e.field);
+  if (value.value.sign() <= 0) ctx.fail(`must be positive (found ${showText(value.text)}); write the largest error you accept, such as 0.001`, value.pos, e.field);
   if (kind === 'relative' && value.value.cmp(Rational.ONE) >= 0) {
     ctx.fail(`a relative accuracy of ${showText(value.text)} allows any answer; write a fraction such as 1e-6`, value.pos, e.field);
   }

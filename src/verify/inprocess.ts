@@ -16,6 +16,17 @@ import type { CheckSummary } from './summary.js';
 export interface CheckOptions {
   readonly samples: number;
   readonly seed: number;
+  /** Called once per sample point, in order (progress bars, the HTML report). */
+  readonly onPoint?: (point: PointResult) => void;
+}
+
+/** One sample point as the check saw it: its error in the bound's kind, Infinity when not finite, null without a sign change. */
+export interface PointResult {
+  readonly index: number;
+  readonly total: number;
+  readonly at: readonly number[];
+  readonly computed: number;
+  readonly error: number | null;
 }
 
 export function checkInProcess(input: EmitInput, opts: CheckOptions): CheckSummary {
@@ -32,15 +43,18 @@ export function checkInProcess(input: EmitInput, opts: CheckOptions): CheckSumma
   let noSignChangeCount = 0;
   let noSignChangeAt: number[] | undefined;
 
-  for (const p of points) {
-    const m = measureAt(evaluate(program, p), p);
+  for (const [index, p] of points.entries()) {
+    const computed = evaluate(program, p);
+    const m = measureAt(computed, p);
     if (m.kind === 'no-sign-change') {
       noSignChangeCount++;
       noSignChangeAt ??= p;
+      opts.onPoint?.({ index, total: points.length, at: p, computed, error: null });
       continue;
     }
     const exact = m.kind === 'not-finite' ? null : relative ? m.relativeExact : m.absoluteExact;
     const value = m.kind === 'not-finite' ? Infinity : relative ? m.relative : m.absolute;
+    opts.onPoint?.({ index, total: points.length, at: p, computed, error: value });
     if (exact === null || compareFractions(exact, boundExact) > 0) withinBound = false;
     if (worst === null || (worst.exact !== null && (exact === null || compareFractions(exact, worst.exact) > 0))) {
       worst = { exact, value, at: p };

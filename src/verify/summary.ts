@@ -14,8 +14,9 @@
 import type { Arithmetic } from '../spec/types.js';
 import { formatE, formatG } from './printf.js';
 
-export type SummaryLanguage = 'C' | 'TypeScript' | 'in-process';
-export type CheckTarget = 'in-process' | 'c' | 'ts';
+/** `GLSL` is the scalar GLSL function, `GLSL vec4` its vec4 overload (both run on WebGL2). */
+export type SummaryLanguage = 'C' | 'TypeScript' | 'GLSL' | 'GLSL vec4' | 'in-process';
+export type CheckTarget = 'in-process' | 'c' | 'ts' | 'glsl';
 
 export interface CheckSummary {
   readonly target: CheckTarget;
@@ -46,6 +47,8 @@ export interface ParsedSummary extends CheckSummary {
 const LANGUAGE_TARGET: Readonly<Record<SummaryLanguage, CheckTarget>> = {
   C: 'c',
   TypeScript: 'ts',
+  GLSL: 'glsl',
+  'GLSL vec4': 'glsl',
   'in-process': 'in-process',
 };
 
@@ -80,7 +83,7 @@ export function formatSummary(
 const NUMBER = String.raw`(?:-?inf|nan|-?\d+(?:\.\d+)?(?:e[+-]\d+)?)`;
 const POINT = String.raw`\w+ = ${NUMBER}(?:, \w+ = ${NUMBER})*`;
 const LINE = new RegExp(
-  String.raw`^check (\w+) \((C|TypeScript|in-process), (float32|float64)\): (\d+) points?; ` +
+  String.raw`^check (\w+) \((C|TypeScript|GLSL vec4|GLSL|in-process), (float32|float64)\): (\d+) points?; ` +
     String.raw`worst (absolute|relative) error (?:none|(${NUMBER}) at (${POINT}))` +
     String.raw`(?:; no sign change in the bracket at (\d+) points?, first at (${POINT}))?` +
     String.raw`; certified bound (${NUMBER}); target (${NUMBER}); (PASS|FAIL)$`,

@@ -9,13 +9,18 @@ const slots = {
   name: 'demo',
   parameters: 'float x',
   bodyLines: ['return x;'],
+  batchParameters: 'const float *restrict x, float *restrict rc_out, size_t rc_n',
+  batchArguments: '*x++',
 };
 
 describe('renderTemplate', () => {
   test('places the slots of the C function template', () => {
     const text = renderTemplate('c/function.h.hbs', slots);
     expect(text).toBe(
-      '#ifndef ROOTCAST_DEMO_H\n#define ROOTCAST_DEMO_H\n\n/*\n * demo\n */\n\nstatic inline float demo(float x)\n{\n    return x;\n}\n\n#endif /* ROOTCAST_DEMO_H */\n',
+      '#ifndef ROOTCAST_DEMO_H\n#define ROOTCAST_DEMO_H\n\n/*\n * demo\n */\n\n#include <stddef.h>\n#include <stdint.h>\n\nstatic inline float demo(float x)\n{\n    return x;\n}\n\n' +
+        '// rc_out[i] = demo(each input[i]) for i < rc_n; the arrays must not overlap.\n' +
+        'static inline void demo_batch(const float *restrict x, float *restrict rc_out, size_t rc_n)\n{\n    while (rc_n--) {\n        *rc_out++ = demo(*x++);\n    }\n}\n\n' +
+        '#endif /* ROOTCAST_DEMO_H */\n',
     );
   });
 

@@ -12,7 +12,7 @@
  * When this fails after an intended change to the emitter: `npm run samples`,
  * review the diff, commit it.
  */
-import { beforeAll, describe, expect, test } from '@jest/globals';
+import { describe, expect, test } from '@jest/globals';
 import { existsSync, readdirSync, readFileSync, statSync } from 'node:fs';
 import { join } from 'node:path';
 import type { EmittedFile } from '../../src/emit/types.js';
@@ -35,11 +35,22 @@ function firstDifference(expected: string, actual: string): string | null {
   return 'same lines, different bytes (line endings?)';
 }
 
+/**
+ * Planning runs several times slower under jest than in plain node (its vm
+ * context makes every global lookup slow), so each example is planned on
+ * first use, inside a test with its own timeout, rather than all at once.
+ */
+const PLAN_TIMEOUT_MS = 300_000;
 const emitted = new Map<string, readonly EmittedFile[]>();
 
-beforeAll(() => {
-  for (const f of EXAMPLES) emitted.set(f, emitExample(specPathOf(f)).files);
-});
+function firstEmit(file: string): readonly EmittedFile[] {
+  let files = emitted.get(file);
+  if (!files) {
+    files = emitExample(specPathOf(file)).files;
+    emitted.set(file, files);
+  }
+  return files;
+}
 
 describe('generated-samples/ is what the emitter writes today', () => {
   test('there are examples to check', () => {
@@ -55,7 +66,7 @@ describe('generated-samples/ is what the emitter writes today', () => {
 
   test.each(EXAMPLES)('%s: the committed files are byte-identical to a fresh emit (regenerate with npm run samples)', (file) => {
     const dir = join(SAMPLES, sampleFolderOf(file));
-    const files = emitted.get(file)!;
+    const files = firstEmit(file);
     // The folder holds exactly the emitted files: a stale extra file is a failure too.
     expect(existsSync(dir) ? readdirSync(dir).sort() : []).toEqual(files.map((f) => f.path).sort());
     const problems: string[] = [];
@@ -67,25 +78,25 @@ describe('generated-samples/ is what the emitter writes today', () => {
       }
     }
     expect(problems).toEqual([]);
-  });
+  }, PLAN_TIMEOUT_MS);
 
   test.each(EXAMPLES)('%s: the headers name the relative spec path, not an absolute one', (file) => {
-    for (const f of emitted.get(file)!) {
+    for (const f of firstEmit(file)) {
       expect(f.text).toContain(`from ${specPathOf(file)} (sha256 `);
       expect(f.text).not.toContain(REPO_ROOT);
     }
-  });
+  }, PLAN_TIMEOUT_MS);
 });
 
 describe('emitting is deterministic', () => {
   test.each(EXAMPLES)('%s: planning and emitting twice gives identical bytes', (file) => {
+    const first = firstEmit(file);
     const again = emitExample(specPathOf(file)).files;
-    const first = emitted.get(file)!;
     expect(again.map((f) => f.path)).toEqual(first.map((f) => f.path));
     const problems = first.flatMap((f, i) => {
       const diff = firstDifference(f.text, again[i]!.text);
       return diff === null ? [] : [`${f.path} differs between two emits at ${diff}`];
     });
     expect(problems).toEqual([]);
-  });
+  }, PLAN_TIMEOUT_MS);
 });

@@ -1,14 +1,27 @@
 /**
- * `rootcast verify SPEC [--target c|ts|all] [--samples N] [--seed S]`:
+ * `rootcast verify SPEC [--target c|ts|glsl|all] [--samples N] [--seed S] [--json] [--report FILE.html]`:
  * the in-process check of the IR against the exact bisection reference, then
  * each target's harness built and run for real. Exit 1 if any check fails.
+ * `--json` prints one object instead of the summary lines; `--report` writes
+ * an HTML page of the in-process errors (written only when the checks ran).
  */
+import { basename, dirname } from 'node:path';
 import { RootcastError } from '../../errors.js';
 import { locate } from '../../plan/locate.js';
+import { branchy, checkEmittedBranches, formatBranchLine } from '../../verify/branches.js';
 import { checkInProcess } from '../../verify/inprocess.js';
-import { formatSummary } from '../../verify/summary.js';
+import { verifyJson } from '../../verify/json.js';
+import type { ReportPoint } from '../../verify/report/envelope.js';
+import { reportHtml } from '../../verify/report/html.js';
+import { inputBox, sampleTotal } from '../../verify/samples.js';
+import { formatSummary, parseSummary, type CheckSummary } from '../../verify/summary.js';
+import { writeFiles } from '../files.js';
+import { startProgress, type ProgressStream } from '../progress.js';
+import { planJson } from './plan.js';
 import { runCHarness, runTsHarness, type HarnessRun } from '../../verify/run-harness.js';
-import { emitFiles, targetsOf } from '../emit-files.js';
+import { applicableTargets, emitFiles, targetsOf } from '../emit-files.js';
+import { runGlslPage, type PageRun } from '../../verify/glsl/run-page.js';
+import { refuseUnlessFloat32 } from '../../emit/glsl/refuse.js';
 import { emitInputOf, planSpec } from '../pipeline.js';
 
 export interface VerifyOptions {
@@ -16,15 +29,38 @@ export interface VerifyOptions {
   target: string;
   samples: number;
   seed: number;
+  json?: boolean;
+  report?: string;
+  /** Where the progress bar goes (drawn only when it is a terminal). */
+  progress?: ProgressStream;
 }
 
 export function runVerify(o: VerifyOptions, print: (line: string) => void): number {
   const plan = planSpec(o.spec);
   const input = emitInputOf(plan);
   const name = plan.family.functionName;
+  const targets = applicableTargets(input, targetsOf(o.target));
+  // Refuse a float64 spec for --target glsl before any check prints a line.
+  if (targets.includes('glsl')) refuseUnlessFloat32(plan.family);
   let failed = false;
-  const inproc = checkInProcess(input, { samples: o.samples, seed: o.seed });
-  print(formatSummary(inproc, name, plan.family.arithmetic, 'in-process'));
+  const checks: CheckSummary[] = [];
+  const show = (line: string): void => {
+    if (!o.json) print(line);
+  };
+  const points: ReportPoint[] = [];
+  const total = sampleTotal(plan.family.inputs.length, o.samples);
+  const bar = startProgress(o.progress ?? { write: () => true }, `check ${name} (in-process)`, total);
+  const inproc = checkInProcess(input, {
+    samples: o.samples,
+    seed: o.seed,
+    onPoint: (p) => {
+      bar.update(p.index + 1);
+      if (o.report !== undefined && p.error !== null) points.push({ at: p.at, error: p.error });
+    },
+  });
+  bar.stop();
+  checks.push(inproc);
+  show(formatSummary(inproc, name, plan.family.arithmetic, 'in-process'));
   if (inproc.noSignChangeAt && plan.family.bracket) {
     const at = plan.family.inputs.map((inp, i) => `${inp.name} = ${inproc.noSignChangeAt![i]}`).join(', ');
     throw new RootcastError(
@@ -34,16 +70,52 @@ export function runVerify(o: VerifyOptions, print: (line: string) => void): numb
   }
   failed ||= !inproc.pass;
   const args = ['--samples', String(o.samples), '--seed', String(o.seed)];
-  for (const t of targetsOf(o.target)) {
+  for (const t of targets) {
     const files = emitFiles(input, [t]);
-    const run: HarnessRun = t === 'c' ? runCHarness(name, files, args) : runTsHarness(name, files, args);
+    const run: HarnessRun | PageRun =
+      t === 'c'
+        ? runCHarness(name, files, args)
+        : t === 'ts'
+          ? runTsHarness(name, files, args)
+          : runGlslPage(name, files, { samples: o.samples, seed: o.seed });
     const lines = run.stdout.trim().split('\n').filter((l) => l.length > 0);
+    // The GLSL page prints two summary lines (the float function, then its vec4 overload).
+    for (const first of t === 'glsl' ? lines.slice(0, -1).filter((l) => l.startsWith('check ')) : []) {
+      show(first);
+      checks.push(parseSummary(first));
+    }
     const summary = lines[lines.length - 1];
-    if (summary) print(summary);
+    if (summary) show(summary);
+    if (summary?.startsWith('check ')) checks.push(parseSummary(summary));
     if (run.exitCode !== 0) {
       failed = true;
-      if (!summary || run.stderr.trim()) print(`${run.language} harness failed (exit ${run.exitCode}): ${run.stderr.trim().split('\n')[0] ?? ''}`);
+      const why = `${run.language} harness failed (exit ${run.exitCode}): ${run.stderr.trim().split('\n')[0] ?? ''}`;
+      if (!summary || run.stderr.trim()) show(why);
+      if (o.json && (!summary || run.stderr.trim())) process.stderr.write(`rootcast: ${why}\n`);
     }
+  }
+  // The branch check of the emitted C (src/verify/branches.ts), on each toolchain found on PATH.
+  if (targets.includes('c')) {
+    const reports = checkEmittedBranches(emitFiles(input, ['c'])[0]!, name, plan.family.arithmetic, plan.family.inputs.length);
+    if (reports.length > 0) show(formatBranchLine(name, reports));
+    if (reports.some((r) => branchy(r.count))) failed = true;
+  }
+  if (o.json) print(JSON.stringify(verifyJson(planJson(plan), checks, !failed), null, 2));
+  if (o.report !== undefined) {
+    const box = inputBox(plan.family);
+    const html = reportHtml({
+      functionName: name,
+      spec: plan.family.file,
+      arithmetic: plan.family.arithmetic,
+      kind: inproc.kind,
+      bound: inproc.bound,
+      target: inproc.targetAccuracy,
+      inputs: plan.family.inputs.map((r, j) => ({ name: r.name, lo: box[j]!.lo, hi: box[j]!.hi })),
+      edges: plan.family.inputs.map(() => []),
+      points,
+      checks,
+    });
+    writeFiles(dirname(o.report), [{ path: basename(o.report), text: html }]);
   }
   return failed ? 1 : 0;
 }

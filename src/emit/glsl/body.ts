@@ -1,0 +1,164 @@
+/**
+ * The body of a GLSL function, printed from the IR: one local per computed
+ * node, in program order, and a return. Constants print inline as literals
+ * (glslLiteral), inputs by name, computed values as `v<index>`.
+ *
+ * Segmented programs read their per-segment constants from local `const`
+ * arrays (GLSL ES 3.00 allows array constructors and indexing them with any
+ * int), at a segment number computed with roundEven and clamp.
+ *
+ * Two shapes share this printer: `float`, the scalar function, and `vec4`,
+ * which evaluates four inputs at once. In the vec4 shape a value that depends
+ * on an argument is a vec4 and a value made of constants only stays a float:
+ * GLSL applies `float op vec4` component-wise (GLSL ES 3.00 section 5.9), and
+ * each component then sees exactly the operations of the scalar function, in
+ * the same order.
+ *
+ * Locals are plain, not `const`: a `const` local in GLSL ES 3.00 needs a
+ * constant expression. Each operation has its own local so a reader can map
+ * a line to its IR node; it does not force a rounding on the GPU (GLSL 3.30
+ * and ES 3.00 have no `precise`), which is why the header states what the
+ * bound assumes about the implementation.
+ */
+import { UnknownNodeError, type IndexPart, type Node, type Program } from '../../ir/nodes.js';
+import { glslLiteral, glslOperand } from '../literals/glsl.js';
+import { valueName } from '../names.js';
+
+export type GlslShape = 'float' | 'vec4';
+
+export function glslBodyLines(program: Program, shape: GlslShape): string[] {
+  if (program.arithmetic !== 'float32') throw new RangeError(`GLSL code is float32 only; the program computes in ${program.arithmetic}`);
+  const vector = vectorNodes(program, shape);
+  const lines: string[] = [];
+  program.nodes.forEach((node, i) => lines.push(...glslNodeLines(program, node, i, vector)));
+  const result = glslResult(program);
+  lines.push(`return ${shape === 'vec4' && !vector[program.result] ? `vec4(${result})` : result};`);
+  return lines;
+}
+
+/** Which nodes hold four values in the given shape: the arguments and everything computed from one. */
+function vectorNodes(program: Program, shape: GlslShape): boolean[] {
+  const vector: boolean[] = [];
+  for (const n of program.nodes) {
+    switch (n.kind) {
+      case 'const':
+        vector.push(false);
+        break;
+      case 'input':
+        vector.push(shape === 'vec4');
+        break;
+      case 'neg':
+        vector.push(vector[n.a] === true);
+        break;
+      case 'add':
+      case 'sub':
+      case 'mul':
+      case 'div':
+        vector.push(vector[n.a] === true || vector[n.b] === true);
+        break;
+      case 'index':
+        vector.push(n.parts.some((p) => vector[p.t] === true));
+        break;
+      case 'table':
+        vector.push(vector[n.index] === true);
+        break;
+      default:
+        throw new UnknownNodeError(n);
+    }
+  }
+  return vector;
+}
+
+/** The lines for one node: none for constants and inputs, which print inline. */
+function glslNodeLines(program: Program, node: Node, at: number, vector: readonly boolean[]): string[] {
+  const ref = (r: number): string => glslReference(program, r, at);
+  const local = (rhs: string): string[] => [`${vector[at] ? 'vec4' : 'float'} ${valueName(at)} = ${rhs};`];
+  switch (node.kind) {
+    case 'const':
+    case 'input':
+      return [];
+    case 'neg':
+      return local(`-${ref(node.a)}`);
+    case 'add':
+      return local(`${ref(node.a)} + ${ref(node.b)}`);
+    case 'sub':
+      return local(`${ref(node.a)} - ${ref(node.b)}`);
+    case 'mul':
+      return local(`${ref(node.a)} * ${ref(node.b)}`);
+    case 'div':
+      return local(`${ref(node.a)} / ${ref(node.b)}`);
+    case 'index':
+      return glslIndexLines(program, node.parts, at, vector);
+    case 'table':
+      return glslTableLines(node, at, vector);
+    default:
+      throw new UnknownNodeError(node);
+  }
+}
+
+/**
+ * The segment number (SEGMENT INDEX in src/ir/nodes.ts): each part is
+ * roundEven(t) (round to nearest, ties to even; GLSL ES 3.00 and 3.30),
+ * converted to int and clamped to the table with the integer clamp()
+ * built-in, an ivec4 in the vec4 shape. For every |t| < 2^22 (every input in
+ * the box) that is exactly the C function's magic-constant rounding and
+ * bit-operation clamp. GLSL does not use the magic constant itself: a shader
+ * compiler may reassociate (x - c0) + M into x + (M - c0), which rounds
+ * differently (seen on SwiftShader). For t outside int range, or NaN, int()
+ * gives some int and clamp() still keeps the read inside the table.
+ */
+function glslIndexLines(program: Program, parts: readonly IndexPart[], at: number, vector: readonly boolean[]): string[] {
+  const lines: string[] = [];
+  const terms: string[] = [];
+  const four = vector[at] === true;
+  parts.forEach((p, k) => {
+    if (!Number.isInteger(p.count) || p.count < 1 || !Number.isInteger(p.stride) || p.stride < 0) {
+      throw new RangeError(`index part ${k} of node ${at} has count ${p.count} and stride ${p.stride}`);
+    }
+    const s = `rc_s${at}_${k}`;
+    const i = vector[p.t] ? 'ivec4' : 'int';
+    lines.push(`${i} ${s} = clamp(${i}(roundEven(${glslReference(program, p.t, at)})), 0, ${p.count - 1});`);
+    terms.push(p.stride === 1 ? s : `${s} * ${p.stride}`);
+  });
+  lines.push(`${four ? 'ivec4' : 'int'} ${valueName(at)} = ${terms.length === 0 ? (four ? 'ivec4(0)' : '0') : terms.join(' + ')};`);
+  return lines;
+}
+
+/** A per-segment constant: a local const array beside its one read (four reads in the vec4 shape). */
+function glslTableLines(node: Extract<Node, { kind: 'table' }>, at: number, vector: readonly boolean[]): string[] {
+  const n = node.values.length;
+  if (n < 1) throw new RangeError(`table node ${at} is empty`);
+  const values = node.values.map((v) => glslLiteral(v));
+  const rows: string[] = [];
+  for (let k = 0; k < n; k += 4) rows.push(`    ${values.slice(k, k + 4).join(', ')}${k + 4 < n ? ',' : ''}`);
+  const table = `rc_tab${at}`;
+  const index = valueName(node.index);
+  const read = vector[at]
+    ? `vec4 ${valueName(at)} = vec4(${['x', 'y', 'z', 'w'].map((c) => `${table}[${index}.${c}]`).join(', ')});`
+    : `float ${valueName(at)} = ${table}[${index}];`;
+  return [`const float ${table}[${n}] = float[${n}](`, ...rows, ');', read];
+}
+
+/** How node `r` appears as an operand of node `at`: a literal, an argument name or a local. */
+function glslReference(program: Program, r: number, at: number): string {
+  if (!Number.isInteger(r) || r < 0 || r >= at) throw new RangeError(`node ${at} refers to node ${r}, which is not defined before it`);
+  const n = program.nodes[r]!;
+  if (n.kind === 'const') return glslOperand(n.value);
+  if (n.kind === 'input') return inputName(program, n.index);
+  return valueName(r);
+}
+
+function glslResult(program: Program): string {
+  const r = program.result;
+  const n = program.nodes[r];
+  if (!n) throw new RangeError(`result refers to node ${r}, which does not exist`);
+  if (n.kind === 'const') return glslLiteral(n.value);
+  if (n.kind === 'input') return inputName(program, n.index);
+  return valueName(r);
+}
+
+function inputName(program: Program, index: number): string {
+  const name = program.inputs[index];
+  if (name === undefined) throw new RangeError(`no input ${index}`);
+  return name;
+}

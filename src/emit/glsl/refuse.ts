@@ -1,0 +1,18 @@
+/**
+ * The GLSL target's refusal of a float64 spec: GLSL ES 3.00 (WebGL2) has no
+ * double type at all, so a float64 function cannot be emitted for it. One
+ * located line, exit 2, as every refusal (src/errors.ts).
+ */
+import { RootcastError } from '../../errors.js';
+import type { Family } from '../../spec/types.js';
+
+export function refuseUnlessFloat32(family: Family): void {
+  if (family.arithmetic === 'float32') return;
+  const pos = family.positions['arithmetic'] ?? { line: 1, column: 1 };
+  throw new RootcastError('GLSL has no float64 in ES 3.00: set arithmetic: float32 to emit GLSL', {
+    file: family.file,
+    line: pos.line,
+    column: pos.column,
+    field: 'arithmetic',
+  });
+}

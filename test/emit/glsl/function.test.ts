@@ -1,0 +1,134 @@
+/**
+ * The GLSL printer: the snippet's shape (no #version, no precision, both
+ * overloads, one line per computed node in each), the header and its GPU
+ * assumptions, comment safety, determinism, and the float64 refusal.
+ */
+import { describe, expect, test } from '@jest/globals';
+import { applicableTargets, emitFiles, TARGETS } from '../../../src/cli/emit-files.js';
+import { emitInputOf, planSpec } from '../../../src/cli/pipeline.js';
+import { RootcastError } from '../../../src/errors.js';
+import { glslFunction } from '../../../src/emit/glsl/function.js';
+import { glslBodyLines } from '../../../src/emit/glsl/body.js';
+import { headerLines } from '../../../src/emit/header.js';
+import { UnknownNodeError, type Program } from '../../../src/ir/nodes.js';
+import { Rational } from '../../../src/math/rational.js';
+import { demoInput } from '../support/family.js';
+import { ALL_SAMPLES, constantResult, quadraticSeries, sqrtTaylor } from '../support/programs.js';
+import { segmentedProgram } from '../../glsl/support/segmented.js';
+import { REPO_ROOT } from '../../glsl/support/examples.js';
+
+const computed = (p: Program): number => p.nodes.filter((n) => n.kind !== 'const' && n.kind !== 'input').length;
+
+describe('glslFunction', () => {
+  test('a float and a vec4 overload, each with one local per computed node, and no #version or precision', () => {
+    const { program } = quadraticSeries('float32');
+    const { path, text } = glslFunction(demoInput(program));
+    expect(path).toBe('bridge_strain.glsl');
+    expect(text).toContain('\nfloat bridge_strain(float a, float b, float c)\n{\n');
+    expect(text).toContain('\nvec4 bridge_strain(vec4 a, vec4 b, vec4 c)\n{\n');
+    // The comment says how to add them; the code itself has neither.
+    expect(text.slice(text.indexOf('*/'))).not.toMatch(/#version|precision/);
+    const scalarLocals = text.match(/^ {4}float v\d+ = /gm) ?? [];
+    const vectorLocals = text.match(/^ {4}vec4 v\d+ = /gm) ?? [];
+    expect(scalarLocals.length).toBe(computed(program));
+    expect(vectorLocals.length).toBe(computed(program));
+    expect(text.match(/^ {4}return v\d+;$/gm)?.length).toBe(2);
+  });
+
+  test('the header comment carries every shared header line and the GPU assumptions, and the text is ASCII', () => {
+    const input = demoInput(sqrtTaylor('float32').program);
+    const { text } = glslFunction(input);
+    for (const line of headerLines(input, 'GLSL function (GLSL ES 3.00 and 3.30 core; float and vec4 overloads)')) {
+      expect(text).toContain(line === '' ? ' *\n' : ` * ${line}\n`);
+    }
+    expect(text).toContain('IEEE 754 binary32');
+    expect(text).toContain('flushes subnormals to zero');
+    expect(text).toMatch(/^[\x09\x0a\x20-\x7e]*$/);
+  });
+
+  test('a non-ASCII spec file name is written as <U+XXXX> in the comment (GLSL 3.30 source is ASCII)', () => {
+    const { text } = glslFunction(demoInput(sqrtTaylor('float32').program, { file: 'capteurs/sonde_é.yaml' }));
+    expect(text).toContain('from capteurs/sonde_<U+00E9>.yaml (sha256 ');
+    expect(text).toMatch(/^[\x09\x0a\x20-\x7e]*$/);
+  });
+
+  test('in the vec4 overload, values made of constants only stay float and a constant result is widened', () => {
+    const { text } = glslFunction(demoInput(constantResult('float32').program));
+    expect(text).toContain('    return vec4(-0.33333334);');
+    const folded: Program = {
+      arithmetic: 'float32',
+      inputs: ['x'],
+      nodes: [
+        { kind: 'input', index: 0 },
+        { kind: 'const', value: 0.5, exact: Rational.of(1n, 2n) },
+        { kind: 'add', a: 1, b: 1 },
+        { kind: 'mul', a: 0, b: 2 },
+      ],
+      result: 3,
+    };
+    expect(glslBodyLines(folded, 'vec4')).toEqual(['float v2 = 0.5 + 0.5;', 'vec4 v3 = x * v2;', 'return v3;']);
+    expect(glslBodyLines(folded, 'float')).toEqual(['float v2 = 0.5 + 0.5;', 'float v3 = x * v2;', 'return v3;']);
+  });
+
+  test('a segmented program: the segment number by roundEven and clamp, tables as local const arrays', () => {
+    const { program } = segmentedProgram();
+    const scalar = glslBodyLines(program, 'float');
+    const vector = glslBodyLines(program, 'vec4');
+    expect(scalar.filter((l) => l.startsWith('const float rc_tab')).length).toBe(2);
+    expect(scalar.some((l) => /^int rc_s\d+_1 = clamp\(int\(roundEven\(v\d+\)\), 0, 2\);$/.test(l))).toBe(true);
+    expect(vector.some((l) => /^ivec4 rc_s\d+_0 = clamp\(ivec4\(roundEven\(v\d+\)\), 0, 3\);$/.test(l))).toBe(true);
+    expect(vector.some((l) => /^ivec4 v\d+ = rc_s\d+_0 \+ rc_s\d+_1 \* 4;$/.test(l))).toBe(true);
+    expect(vector.some((l) => /^vec4 v\d+ = vec4\(rc_tab\d+\[v\d+\.x\], rc_tab\d+\[v\d+\.y\], rc_tab\d+\[v\d+\.z\], rc_tab\d+\[v\d+\.w\]\);$/.test(l))).toBe(true);
+  });
+
+  test('emitting twice gives identical bytes', () => {
+    for (const make of ALL_SAMPLES) {
+      const input = demoInput(make('float32').program, { functionName: `x_${make.name}` });
+      expect(glslFunction(input).text).toBe(glslFunction(input).text);
+    }
+  });
+
+  test('an unknown node kind is an error, not a blank', () => {
+    const program = { ...sqrtTaylor('float32').program, nodes: [...sqrtTaylor('float32').program.nodes, { kind: 'fma' } as never] };
+    expect(() => glslBodyLines({ ...program, result: program.nodes.length - 1 }, 'float')).toThrow(UnknownNodeError);
+  });
+
+  test('a float64 program is refused in one located line, exit code 2', () => {
+    const input = demoInput(sqrtTaylor('float64').program, { positions: { arithmetic: { line: 12, column: 13 } } });
+    let caught: unknown;
+    try {
+      glslFunction(input);
+    } catch (e) {
+      caught = e;
+    }
+    expect(caught).toBeInstanceOf(RootcastError);
+    expect((caught as RootcastError).exitCode).toBe(2);
+    expect((caught as RootcastError).toLine()).toBe(
+      'specs/bridge_strain.yaml:12:13: arithmetic: GLSL has no float64 in ES 3.00: set arithmetic: float32 to emit GLSL',
+    );
+  });
+});
+
+describe('the glsl target in emitFiles', () => {
+  test('`all` is c, ts and glsl; a float32 spec gets NAME.glsl and NAME.glsl-check.html after the others', () => {
+    process.chdir(REPO_ROOT);
+    expect(TARGETS).toEqual(['c', 'ts', 'glsl']);
+    const files = emitFiles(emitInputOf(planSpec('examples/kiln-probe.yaml')), TARGETS).map((f) => f.path);
+    expect(files).toEqual([
+      'kiln_probe_celsius.h',
+      'kiln_probe_celsius_check.c',
+      'kiln_probe_celsius.ts',
+      'kiln_probe_celsius.check.ts',
+      'kiln_probe_celsius.glsl',
+      'kiln_probe_celsius.glsl-check.html',
+    ]);
+  });
+
+  test('a float64 spec: `all` leaves glsl out, glsl alone is refused', () => {
+    process.chdir(REPO_ROOT);
+    const input = emitInputOf(planSpec('examples/gas-molar-volume.yaml'));
+    expect(applicableTargets(input, TARGETS)).toEqual(['c', 'ts']);
+    expect(emitFiles(input, TARGETS).some((f) => f.path.includes('.glsl'))).toBe(false);
+    expect(() => emitFiles(input, ['glsl'])).toThrow(/^GLSL has no float64 in ES 3\.00: set arithmetic: float32 to emit GLSL$/);
+  });
+});
