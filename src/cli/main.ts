@@ -61,7 +61,7 @@ export async function main(argv: string[]): Promise<number> {
           }),
       async (a) => {
         const { runEmit } = await import('./commands/emit.js');
-        code = runEmit({ spec: a.spec, target: a.target, out: a.out, check: a.check }, out);
+        code = await runEmit({ spec: a.spec, target: a.target, out: a.out, check: a.check }, out);
       },
     )
     .command(
@@ -86,7 +86,7 @@ export async function main(argv: string[]): Promise<number> {
         );
       },
     )
-    .demandCommand(1, 'name a command: new, plan, emit or verify (see --help)')
+    .demandCommand(1, 'name a command: new, plan, emit or verify')
     .strict()
     .version(VERSION)
     .help()
@@ -103,7 +103,9 @@ export async function main(argv: string[]): Promise<number> {
       return e.exitCode;
     }
     if (e instanceof UsageError) {
-      process.stderr.write(`rootcast: ${e.message} (see rootcast --help)\n`);
+      // yargs writes some messages over several lines: one line, always.
+      const flat = e.message.replace(/\s*\n\s*/g, '; ').replace(/:;/g, ':');
+      process.stderr.write(`rootcast: ${flat} (see rootcast --help)\n`);
       return 2;
     }
     throw e;

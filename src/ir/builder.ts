@@ -34,6 +34,13 @@ export interface Segmentation {
   readonly segments: number;
 }
 
+/** A constant the program needs is beyond the range of the target format. */
+export class ConstantOverflowError extends RangeError {
+  constructor(readonly exact: Rational) {
+    super(`constant ${exact.toNumber()} overflows`);
+  }
+}
+
 export const SINGLE: Segmentation = { parts: [], segments: 1 };
 
 export class ProgramBuilder {
@@ -87,10 +94,13 @@ export class ProgramBuilder {
     const uniform = values === null ? (exact as Rational) : values.every((v) => v.eq(values[0]!)) ? values[0]! : null;
     if (uniform) {
       const value = roundTo(uniform, this.arithmetic);
+      if (!Number.isFinite(value)) throw new ConstantOverflowError(uniform);
       return this.push({ kind: 'const', value, exact: uniform }, `c:${uniform.toString()}`);
     }
     const index = this.segmentIndex();
     const vs = values!.map((v) => roundTo(v, this.arithmetic));
+    const big = vs.findIndex((v) => !Number.isFinite(v));
+    if (big >= 0) throw new ConstantOverflowError(values![big]!);
     return this.push({ kind: 'table', index, values: vs, exact: values! }, `t:${values!.join(',')}`);
   }
 

@@ -77,5 +77,6 @@ export function describeCell(family: Family, cell: Cell): string {
 }
 
 export function short(x: number): string {
+  if (x !== 0 && (Math.abs(x) < 1e-3 || Math.abs(x) >= 1e7)) return x.toExponential(2).replace(/\.?0+e/, 'e');
   return Number(x.toPrecision(6)).toString();
 }

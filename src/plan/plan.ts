@@ -9,13 +9,14 @@
 import { RootcastError } from '../errors.js';
 import { addUp, divUp } from '../math/directed.js';
 import { Rational } from '../math/rational.js';
-import { analyse } from '../ir/analyse.js';
+import { analyse, largestComputed } from '../ir/analyse.js';
+import { ConstantOverflowError } from '../ir/builder.js';
 import { countOps, type OpCounts } from '../ir/count.js';
 import type { Program } from '../ir/nodes.js';
 import { FORMATS } from '../ir/round.js';
 import { termsOfGrade, type SeriesTerm } from '../series/hyper-catalan.js';
 import type { Family } from '../spec/types.js';
-import { boxOf, grid } from './box.js';
+import { boxOf, describeCell, grid } from './box.js';
 import { addGrade, cellTail, type CellFacts } from './cell-bound.js';
 import { CellSet } from './cell-set.js';
 import { programCost } from './cost.js';
@@ -24,7 +25,7 @@ import { locate } from './locate.js';
 import { refuseBadCells, refuseFloor, refuseOrder } from './refusals.js';
 import { chooseRoot, pointText, rootAt, type RootChoice } from './root-choice.js';
 import { segmentLayout, type SegmentLayout } from './segments.js';
-import { analysisProgram, collapsedSeries, seriesProgram, ZeroSlopeError, type Expansion } from './series-program.js';
+import { analysisProgram, CoefficientError, collapsedSeries, seriesProgram, ZeroSlopeError, type Expansion } from './series-program.js';
 import { economise } from './economise.js';
 
 export interface Bound {
@@ -233,7 +234,7 @@ function economisedPlan(
     for (let budget = room / 2; budget > room / 32 && budget > 0; budget /= 4) {
       const e = economise(family, expansion, collapsed, layout.boxes, budget);
       if (!e) break;
-      const ev = evaluate(e.program, cells, n, relative, (c) => e.error[c.segment]!);
+      const ev = evaluate(family, e.program, cells, n, relative, (c) => e.error[c.segment]!);
       if (ev.bound.total > series.target) continue;
       const cost = programCost(e.program);
       if (!best || cost < best.cost) {
@@ -273,6 +274,20 @@ function expansionFor(family: Family, layout: SegmentLayout): { expansion: Expan
 }
 
 function planWithCounts(family: Family, box: ReturnType<typeof boxOf>['cell'], counts: readonly number[]): Plan {
+  try {
+    return planWithCountsInner(family, box, counts);
+  } catch (e) {
+    if (e instanceof ConstantOverflowError) {
+      throw new RootcastError(
+        `the series needs the constant ${e.exact.toNumber().toExponential(2)}, beyond the ${family.arithmetic} range; use arithmetic: float64 or rescale the unknown or the inputs`,
+        locate(family, 'arithmetic'),
+      );
+    }
+    throw e;
+  }
+}
+
+function planWithCountsInner(family: Family, box: ReturnType<typeof boxOf>['cell'], counts: readonly number[]): Plan {
   const layout = segmentLayout(family, box, counts);
   const S = layout.segmentation.segments;
   const { expansion, root } = expansionFor(family, layout);
@@ -280,6 +295,9 @@ function planWithCounts(family: Family, box: ReturnType<typeof boxOf>['cell'], c
   try {
     ap = analysisProgram(family, expansion);
   } catch (e) {
+    if (e instanceof CoefficientError) {
+      throw new RootcastError(`coefficient ${e.power} ${e.why}; rewrite the expression`, locate(family, `coefficients.${e.power}`));
+    }
     if (e instanceof ZeroSlopeError) {
       throw new RootcastError(
         family.bracket
@@ -323,7 +341,7 @@ function planWithCounts(family: Family, box: ReturnType<typeof boxOf>['cell'], c
     }
     if (trunc > target) continue;
     const program = seriesProgram(family, expansion, kept);
-    const ev = evaluate(program, set.cells, order, relative);
+    const ev = evaluate(family, program, set.cells, order, relative);
     if (ev.bound.total <= target) {
       const tableBytes = tableBytesOf(program);
       if (tableBytes > family.plan.maxTableBytes) {
@@ -376,6 +394,7 @@ interface Evaluated {
 
 /** Truncation, rounding and total over all cells, in the spec's accuracy kind. */
 function evaluate(
+  family: Family,
   program: Program,
   cells: readonly CellFacts[],
   order: number,
@@ -390,6 +409,12 @@ function evaluate(
     // float32 bounds allow for flushed subnormals too, so one bound holds on CPUs and GPUs.
     const an = analyse(program, c.cell, { segment: c.segment, flushToZero: program.arithmetic === 'float32' });
     const rnd = an.errors[program.result]!;
+    if (!Number.isFinite(rnd) || largestComputed(an) > FORMATS[program.arithmetic].maxFinite / 4) {
+      throw new RootcastError(
+        `intermediate values can overflow ${program.arithmetic} (or a divisor can vanish) for ${describeCell(family, c.cell)}; use arithmetic: float64, rescale the unknown or narrow the input ranges`,
+        locate(family, 'arithmetic'),
+      );
+    }
     const tr = addUp(cellTail(c, order), extra(c));
     const abs = addUp(tr, rnd);
     absolute = Math.max(absolute, abs);

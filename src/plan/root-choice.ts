@@ -44,7 +44,14 @@ export function rootAt(family: Family, point: readonly Rational[]): Rational {
       locate(family, 'root.bracket'),
     );
   }
-  return Rational.fromNumber(roundTo(root, family.arithmetic));
+  const x0 = roundTo(root, family.arithmetic);
+  if (!Number.isFinite(x0)) {
+    throw new RootcastError(
+      `the root at ${pointText(family, point)} is about ${root.toNumber().toExponential(2)}, beyond the ${family.arithmetic} range; use arithmetic: float64 or rescale the unknown`,
+      locate(family, 'arithmetic'),
+    );
+  }
+  return Rational.fromNumber(x0);
 }
 
 /** Bisection with float64 signs between ends whose exact signs differ; returns the final midpoint. */

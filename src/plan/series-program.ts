@@ -48,7 +48,15 @@ interface Prefix {
 /** Affine forms of the spec's coefficients, recentred at x0 (per segment). */
 export function setupSeries(family: Family, x0: SegValues, b: ProgramBuilder): SeriesSetup {
   const S = b.segments;
-  const forms = family.coefficients.map((e) => (e === null ? constantForm(uniform(Rational.ZERO, S)) : formOf(b, e, family.constants)));
+  const forms = family.coefficients.map((e, k) => {
+    if (e === null) return constantForm(uniform(Rational.ZERO, S));
+    try {
+      return formOf(b, e, family.constants);
+    } catch (err) {
+      if (err instanceof RangeError && err.message === 'division by zero') throw new CoefficientError(k, 'divides by an expression that is zero for every input');
+      throw err;
+    }
+  });
   const shifted = shiftedForms(forms, x0, addForms, scaleForm, (w) => w);
   const active: number[] = [];
   for (let k = 2; k < shifted.length; k++) if (!isZero(shifted[k]!)) active.push(k);
@@ -71,6 +79,16 @@ function buildPrefix(b: ProgramBuilder, s: SeriesSetup): Prefix {
   const r = b.mul(materialise(b, s.shifted[0]!), inv);
   for (const k of s.active) q.set(k, b.mul(materialise(b, s.shifted[k]!), inv));
   return { r, q, c1: c1Ref };
+}
+
+/** A coefficient expression that cannot be evaluated anywhere (say why, at its power). */
+export class CoefficientError extends RangeError {
+  constructor(
+    readonly power: number,
+    readonly why: string,
+  ) {
+    super(why);
+  }
 }
 
 /** The slope c'1 is exactly zero in a segment (a multiple root at its expansion point). */

@@ -1,6 +1,5 @@
 /** `rootcast emit SPEC --target c|ts|all --out DIR [--check]`. */
 import { staleFiles, writeFiles } from '../files.js';
-import { emitFiles, targetsOf } from '../emit-files.js';
 import { emitInputOf, planSpec } from '../pipeline.js';
 
 export interface EmitOptions {
@@ -11,8 +10,11 @@ export interface EmitOptions {
 }
 
 /** Returns the exit code; prints what it wrote or what is stale. */
-export function runEmit(o: EmitOptions, print: (line: string) => void): number {
-  const files = emitFiles(emitInputOf(planSpec(o.spec)), targetsOf(o.target));
+export async function runEmit(o: EmitOptions, print: (line: string) => void): Promise<number> {
+  const plan = planSpec(o.spec);
+  // The printers (and the TypeScript compiler they load) only after the spec is known to be good.
+  const { emitFiles, targetsOf } = await import('../emit-files.js');
+  const files = emitFiles(emitInputOf(plan), targetsOf(o.target));
   if (o.check) {
     const stale = staleFiles(o.out, files);
     if (stale.length === 0) {
