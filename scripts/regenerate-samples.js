@@ -8,10 +8,10 @@
 // generated-samples/ holds one folder per example and nothing else
 // (test/examples/golden.test.ts checks both directions).
 //
-// The spec path handed to the planner is the relative `examples/<file>`, run
-// from the repository root whatever the current directory is, so the emitted
-// headers name the spec as a reader of the repository sees it and never carry
-// an absolute path.
+// The spec path handed to the planner is the relative `examples/<file>` (the
+// script runs from the repository root whatever the current directory is),
+// exactly as a user typing the emit command above would give it, so no
+// absolute path or machine-specific directory can reach the emitted files.
 import { mkdirSync, readdirSync, rmSync, statSync } from 'node:fs';
 import { basename, dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';

@@ -16,7 +16,10 @@ export function claimsOf(plan: Plan): PlanClaims {
   return {
     order: plan.order,
     terms: plan.terms.length,
-    rootNote: plan.root.note,
+    rootNote:
+      plan.form === 'economised'
+        ? `${plan.root.note}; the series is collapsed to a polynomial in ${plan.family.inputs[0]!.name} and Chebyshev-economised to degree ${plan.degree} (the truncation bound below includes the economisation error)`
+        : plan.root.note,
     bound: plan.bound,
     absoluteBound: plan.absoluteBound,
     target: plan.target,

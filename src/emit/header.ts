@@ -84,7 +84,7 @@ export function equationText(family: Family): string {
  * component, so the header never names a machine's directories.
  */
 export function specPathForHeader(file: string): string {
-  // The file name only: the same spec gives the same header however its path was typed.
+  if (!/^([A-Za-z]:)?[\\/]/.test(file)) return file;
   const parts = file.split(/[\\/]/).filter((p) => p !== '');
   return parts[parts.length - 1] ?? file;
 }

@@ -1,8 +1,8 @@
 /**
  * Where the examples live. Tests hand the planner the relative spec path
- * `examples/<file>` (as `npm run samples` does), so the emitted headers name
- * the spec as the repository reader sees it; that path is read relative to
- * the repository root, so the root is made the working directory here.
+ * `examples/<file>`, as `npm run samples` does (so what the headers say about
+ * the spec is the same as in generated-samples/); that path is read relative
+ * to the repository root, so the root is made the working directory here.
  */
 import { readdirSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
