@@ -6,5 +6,6 @@ export default {
   roots: ['<rootDir>/test'],
   moduleNameMapper: { '^(\\.{1,2}/.*)\\.js$': '$1' },
   cacheDirectory: '<rootDir>/node_modules/.cache/jest',
-  testTimeout: 120000,
+  testTimeout: 600000,
+  maxWorkers: 2,
 };

@@ -15,7 +15,7 @@
 import { mkdirSync, readdirSync, rmSync, statSync } from 'node:fs';
 import { basename, dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { emitFiles, TARGETS } from '../dist/cli/emit-files.js';
+import { emitFiles, targetsOf } from '../dist/cli/emit-files.js';
 import { writeFiles } from '../dist/cli/files.js';
 import { emitInputOf, planSpec } from '../dist/cli/pipeline.js';
 
@@ -34,7 +34,7 @@ const wanted = new Set(specs.map((f) => basename(f, '.yaml')));
 // anything under generated-samples/ is touched.
 const outputs = specs.map((f) => {
   const spec = `${EXAMPLES}/${f}`;
-  const files = emitFiles(emitInputOf(planSpec(spec)), TARGETS);
+  const files = emitFiles(emitInputOf(planSpec(spec)), targetsOf('all'));
   return { spec, dir: `${SAMPLES}/${basename(f, '.yaml')}`, files };
 });
 

@@ -35,6 +35,10 @@ export interface Analysis {
 }
 
 const WHOLE: Interval = { lo: -Infinity, hi: Infinity };
+// Bound once: global lookups are slow in some hosts (jest's vm contexts), and analyse runs per cell.
+const { abs, max } = Math;
+const isFinite = Number.isFinite;
+const INF = Infinity;
 
 /** Options: `flushToZero` for arithmetic that flushes subnormal results (larger eta). */
 export function analyse(
@@ -59,7 +63,7 @@ export function analyse(
         const c = constantFacts(n, n.value, n.exact);
         v = c.value;
         // Flush to zero reads a subnormal constant as 0: off by at most its own size.
-        e = opts.flushToZero && Math.abs(n.value) < minNormal ? Math.max(c.error, addUp(mag(c.value), c.error)) : c.error;
+        e = opts.flushToZero && abs(n.value) < minNormal ? max(c.error, addUp(mag(c.value), c.error)) : c.error;
         break;
       }
       case 'input':
@@ -100,7 +104,7 @@ export function analyse(
         const room = subDown(mig(b), eb);
         if (containsZero(b) || !(room > 0)) {
           v = WHOLE;
-          e = Infinity;
+          e = INF;
           if (unbounded < 0) unbounded = i;
           break;
         }
@@ -126,9 +130,9 @@ export function analyse(
       default:
         throw new UnknownNodeError(n);
     }
-    if (!Number.isFinite(v.lo) || !Number.isFinite(v.hi)) {
+    if (!isFinite(v.lo) || !isFinite(v.hi)) {
       v = WHOLE;
-      e = Infinity;
+      e = INF;
       if (unbounded < 0) unbounded = i;
     }
     values[i] = v;
@@ -166,6 +170,6 @@ function constError(stored: number, exact: Rational): number {
 /** Largest magnitude any computed value can reach: exact magnitude plus error, per node. */
 export function largestComputed(a: Analysis): number {
   let m = 0;
-  for (let i = 0; i < a.values.length; i++) m = Math.max(m, addUp(mag(a.values[i]!), a.errors[i]!));
+  for (let i = 0; i < a.values.length; i++) m = max(m, addUp(mag(a.values[i]!), a.errors[i]!));
   return m;
 }

@@ -170,15 +170,34 @@ function roundToBinary(r: Rational, precision: number, minExp: number): number {
   return neg ? -out : out;
 }
 
+// Hot path: these run millions of times in the planner's interval loops. Globals
+// are bound once here (a global lookup is slow inside some hosts, such as
+// jest's vm contexts), and the step is done on the two 32-bit words of the
+// float, not through BigInt.
 const f64 = new Float64Array(1);
-const u64 = new BigUint64Array(f64.buffer);
+const u32 = new Uint32Array(f64.buffer);
+const LITTLE = new Uint8Array(new Uint16Array([1]).buffer)[0] === 1;
+const LO = LITTLE ? 0 : 1;
+const HI = LITTLE ? 1 : 0;
+const MIN_VALUE = Number.MIN_VALUE;
+const POS_INF = Infinity;
 
-/** The next float64 above x (x finite). */
+/** The next float64 above x (x finite; NaN and +Infinity are returned as they are). */
 export function nextUp(x: number): number {
-  if (Number.isNaN(x) || x === Infinity) return x;
-  if (x === 0) return Number.MIN_VALUE;
+  if (x !== x || x === POS_INF) return x;
+  if (x === 0) return MIN_VALUE;
   f64[0] = x;
-  u64[0] = x > 0 ? u64[0]! + 1n : u64[0]! - 1n;
+  if (x > 0) {
+    // magnitude + 1 ulp
+    const lo = (u32[LO]! + 1) >>> 0;
+    u32[LO] = lo;
+    if (lo === 0) u32[HI] = (u32[HI]! + 1) >>> 0;
+  } else {
+    // magnitude - 1 ulp (toward zero)
+    const lo = u32[LO]!;
+    u32[LO] = (lo - 1) >>> 0;
+    if (lo === 0) u32[HI] = (u32[HI]! - 1) >>> 0;
+  }
   return f64[0]!;
 }
 

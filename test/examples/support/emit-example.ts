@@ -1,8 +1,8 @@
 /**
- * The pipeline run through the source modules, exactly as `rootcast emit`
- * runs it: planSpec -> emitInputOf -> emitFiles for every target.
+ * The pipeline run through the source modules, exactly as `rootcast emit --target all`
+ * runs it: planSpec -> emitInputOf -> emitFiles(targetsOf('all')).
  */
-import { emitFiles, TARGETS } from '../../../src/cli/emit-files.js';
+import { emitFiles, targetsOf } from '../../../src/cli/emit-files.js';
 import { emitInputOf, planSpec } from '../../../src/cli/pipeline.js';
 import type { EmitInput, EmittedFile } from '../../../src/emit/types.js';
 import type { Plan } from '../../../src/plan/plan.js';
@@ -11,7 +11,7 @@ import { atRepoRoot } from './repo.js';
 export interface EmittedExample {
   readonly plan: Plan;
   readonly input: EmitInput;
-  /** C function, C harness, TypeScript function, TypeScript harness. */
+  /** Every file `--target all` writes: C function and harness, TypeScript function and harness, and GLSL for float32. */
   readonly files: readonly EmittedFile[];
 }
 
@@ -20,7 +20,7 @@ export function emitExample(specPath: string): EmittedExample {
   atRepoRoot();
   const plan = planSpec(specPath);
   const input = emitInputOf(plan);
-  return { plan, input, files: emitFiles(input, TARGETS) };
+  return { plan, input, files: emitFiles(input, targetsOf('all')) };
 }
 
 /** The emitted file whose path ends with `suffix` (`.h`, `_check.c`, `.check.ts`, or the function's `.ts`). */
