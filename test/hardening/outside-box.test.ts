@@ -1,15 +1,15 @@
 /**
  * What the emitted function does with inputs outside the box, NaN and
- * infinities, in C and TypeScript (README, "Inputs outside the box"). Today
- * the function is one straight-line program with no tables: it just computes.
- * The promises tested here:
+ * infinities, in C and TypeScript (README, "Inputs outside the box"). The
+ * function is one straight-line program; segmented plans also read tables at
+ * a clamped segment number. The promises tested here:
  *   - NaN in any input gives NaN out (IEEE 754 propagates NaN through + - * /);
  *   - any input, however far outside the box or infinite, returns without a
  *     crash, and C and TypeScript return the same value (bit for bit, or both NaN);
- *   - the C runs under AddressSanitizer and UndefinedBehaviorSanitizer, so when
- *     plans gain segment tables, an out-of-bounds table read or an undefined
- *     float-to-int conversion for these same inputs fails this test. To extend:
- *     add the table-reading specs to SPECS; the cases already hit every edge.
+ *   - the C runs under AddressSanitizer and UndefinedBehaviorSanitizer, so an
+ *     out-of-bounds table read or an undefined float-to-int conversion for
+ *     these inputs fails this test (gas-molar-volume and ease-in-out read
+ *     segment tables).
  */
 import { afterAll, beforeAll, describe, expect, test } from '@jest/globals';
 import { spawnSync } from 'node:child_process';
@@ -29,6 +29,8 @@ const SPECS: readonly SpecUnderTest[] = [
   { file: 'examples/kiln-probe.yaml', name: 'kiln_probe_celsius', arithmetic: 'float32', box: [[100, 390.49]] },
   { file: 'examples/gas-molar-volume.yaml', name: 'n2_molar_volume', arithmetic: 'float64', box: [[35, 37], [295, 305]] },
   { file: 'examples/lens-undistort.yaml', name: 'lens_undistort_radius', arithmetic: 'float32', box: [[0, 0.7], [-0.1, 0.1], [-0.02, 0.02]] },
+  // Segmented (128 float32 tables): inputs outside the box, NaN and infinities must clamp to a table entry.
+  { file: 'examples/ease-in-out.yaml', name: 'ease_in_out_param', arithmetic: 'float32', box: [[0, 1]] },
 ];
 
 /** Values tried in each input in turn (the others at the box centre). */
