@@ -42,7 +42,7 @@ describe('glslFunction', () => {
       expect(text).toContain(line === '' ? ' *\n' : ` * ${line}\n`);
     }
     expect(text).toContain('IEEE 754 binary32');
-    expect(text).toContain('flushes subnormals to zero');
+    expect(text).toContain('flushes subnormal values to zero');
     expect(text).toMatch(/^[\x09\x0a\x20-\x7e]*$/);
   });
 
