@@ -14,6 +14,7 @@ import { SEGMENT_MAGIC, UnknownNodeError, type IndexPart, type Node, type Progra
 import { cLiteral, cOperand } from '../literals/c.js';
 import { valueName } from '../names.js';
 import { readInputs } from '../read-inputs.js';
+import { operandText, resultText, type OperandStyle } from '../operands.js';
 
 export const C_TYPE = { float32: 'float', float64: 'double' } as const;
 
@@ -103,26 +104,17 @@ function cTableLines(program: Program, node: Extract<Node, { kind: 'table' }>, a
   ];
 }
 
+const cStyle = (program: Program): OperandStyle => ({
+  operand: (v) => cOperand(v, program.arithmetic),
+  literal: (v) => cLiteral(v, program.arithmetic),
+  input: (name) => name,
+});
+
 /** How node `r` appears as an operand of node `at`: a literal, an argument name or a local. */
 function cReference(program: Program, r: number, at: number): string {
-  if (!Number.isInteger(r) || r < 0 || r >= at) throw new RangeError(`node ${at} refers to node ${r}, which is not defined before it`);
-  const n = program.nodes[r]!;
-  if (n.kind === 'const') return cOperand(n.value, program.arithmetic);
-  if (n.kind === 'input') return inputName(program, n.index);
-  return valueName(r);
+  return operandText(program, r, at, cStyle(program));
 }
 
 function cResult(program: Program): string {
-  const r = program.result;
-  const n = program.nodes[r];
-  if (!n) throw new RangeError(`result refers to node ${r}, which does not exist`);
-  if (n.kind === 'const') return cLiteral(n.value, program.arithmetic);
-  if (n.kind === 'input') return inputName(program, n.index);
-  return valueName(r);
-}
-
-function inputName(program: Program, index: number): string {
-  const name = program.inputs[index];
-  if (name === undefined) throw new RangeError(`no input ${index}`);
-  return name;
+  return resultText(program, cStyle(program));
 }

@@ -23,6 +23,7 @@
 import { UnknownNodeError, type IndexPart, type Node, type Program } from '../../ir/nodes.js';
 import { glslLiteral, glslOperand } from '../literals/glsl.js';
 import { valueName } from '../names.js';
+import { operandText, resultText, type OperandStyle } from '../operands.js';
 
 export type GlslShape = 'float' | 'vec4';
 
@@ -139,26 +140,13 @@ function glslTableLines(node: Extract<Node, { kind: 'table' }>, at: number, vect
   return [`const float ${table}[${n}] = float[${n}](`, ...rows, ');', read];
 }
 
+const GLSL_STYLE: OperandStyle = { operand: glslOperand, literal: glslLiteral, input: (name) => name };
+
 /** How node `r` appears as an operand of node `at`: a literal, an argument name or a local. */
 function glslReference(program: Program, r: number, at: number): string {
-  if (!Number.isInteger(r) || r < 0 || r >= at) throw new RangeError(`node ${at} refers to node ${r}, which is not defined before it`);
-  const n = program.nodes[r]!;
-  if (n.kind === 'const') return glslOperand(n.value);
-  if (n.kind === 'input') return inputName(program, n.index);
-  return valueName(r);
+  return operandText(program, r, at, GLSL_STYLE);
 }
 
 function glslResult(program: Program): string {
-  const r = program.result;
-  const n = program.nodes[r];
-  if (!n) throw new RangeError(`result refers to node ${r}, which does not exist`);
-  if (n.kind === 'const') return glslLiteral(n.value);
-  if (n.kind === 'input') return inputName(program, n.index);
-  return valueName(r);
-}
-
-function inputName(program: Program, index: number): string {
-  const name = program.inputs[index];
-  if (name === undefined) throw new RangeError(`no input ${index}`);
-  return name;
+  return resultText(program, GLSL_STYLE);
 }

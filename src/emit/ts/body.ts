@@ -15,6 +15,7 @@ import { SEGMENT_MAGIC, UnknownNodeError, type IndexPart, type Node, type Progra
 import { tsLiteral, tsOperand } from '../literals/ts.js';
 import { valueName } from '../names.js';
 import { readInputs } from '../read-inputs.js';
+import { operandText, resultText, type OperandStyle } from '../operands.js';
 
 export function tsStatements(program: Program): string[] {
   const f32 = program.arithmetic === 'float32';
@@ -118,25 +119,16 @@ function tsExpression(program: Program, node: Node, at: number): string | null {
   }
 }
 
+const tsStyle = (program: Program): OperandStyle => ({
+  operand: (v) => tsOperand(v, program.arithmetic),
+  literal: (v) => tsLiteral(v, program.arithmetic),
+  input: (name) => (program.arithmetic === 'float32' ? roundedInputName(name) : name),
+});
+
 function tsReference(program: Program, r: number, at: number): string {
-  if (!Number.isInteger(r) || r < 0 || r >= at) throw new RangeError(`node ${at} refers to node ${r}, which is not defined before it`);
-  const n = program.nodes[r]!;
-  if (n.kind === 'const') return tsOperand(n.value, program.arithmetic);
-  if (n.kind === 'input') return inputReference(program, n.index);
-  return valueName(r);
+  return operandText(program, r, at, tsStyle(program));
 }
 
 function tsResult(program: Program): string {
-  const r = program.result;
-  const n = program.nodes[r];
-  if (!n) throw new RangeError(`result refers to node ${r}, which does not exist`);
-  if (n.kind === 'const') return tsLiteral(n.value, program.arithmetic);
-  if (n.kind === 'input') return inputReference(program, n.index);
-  return valueName(r);
-}
-
-function inputReference(program: Program, index: number): string {
-  const name = program.inputs[index];
-  if (name === undefined) throw new RangeError(`no input ${index}`);
-  return program.arithmetic === 'float32' ? roundedInputName(name) : name;
+  return resultText(program, tsStyle(program));
 }
