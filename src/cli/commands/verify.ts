@@ -5,7 +5,9 @@
  * `--json` prints one object instead of the summary lines; `--report` writes
  * an HTML page of the in-process errors (written only when the checks ran).
  */
+import { existsSync } from 'node:fs';
 import { basename, dirname } from 'node:path';
+import { DEFAULT_CHROMIUM } from '../../verify/glsl/browser.js';
 import { RootcastError } from '../../errors.js';
 import { locate } from '../../plan/locate.js';
 import { branchy, checkEmittedBranches, formatBranchLine } from '../../verify/branches.js';
@@ -39,9 +41,16 @@ export function runVerify(o: VerifyOptions, print: (line: string) => void): numb
   const plan = planSpec(o.spec);
   const input = emitInputOf(plan);
   const name = plan.family.functionName;
-  const targets = applicableTargets(input, targetsOf(o.target));
+  let targets = applicableTargets(input, targetsOf(o.target));
   // Refuse a float64 spec for --target glsl before any check prints a line.
   if (targets.includes('glsl')) refuseUnlessFloat32(plan.family);
+  // With the default --target all, a machine without Chromium still checks C
+  // and TypeScript and says what it skipped; --target glsl alone refuses instead.
+  let skippedGlsl = false;
+  if (o.target === 'all' && targets.includes('glsl') && !existsSync(DEFAULT_CHROMIUM)) {
+    targets = targets.filter((t) => t !== 'glsl');
+    skippedGlsl = true;
+  }
   let failed = false;
   const checks: CheckSummary[] = [];
   const show = (line: string): void => {
@@ -100,6 +109,7 @@ export function runVerify(o: VerifyOptions, print: (line: string) => void): numb
     if (reports.length > 0) show(formatBranchLine(name, reports));
     if (reports.some((r) => branchy(r.count))) failed = true;
   }
+  if (skippedGlsl) show(`glsl ${name}: skipped (Chromium is not installed: apt-get install chromium, then rootcast verify --target glsl)`);
   if (o.json) print(JSON.stringify(verifyJson(planJson(plan), checks, !failed), null, 2));
   if (o.report !== undefined) {
     const box = inputBox(plan.family);
