@@ -34,11 +34,9 @@ export function economise(family: Family, e: Expansion, c: Collapsed, boxes: rea
   const mid: Rational[] = [];
   const cheb: Rational[][] = [];
   const rho: Rational[] = [];
-  const p0 = boxes[0]![c.input]!;
   // One scale for every segment: half the width of a segment's analysed box (the widest).
   const half = Math.max(...boxes.map((b) => (b[c.input]!.hi - b[c.input]!.lo) / 2));
   const invHalf = Rational.fromNumber(roundTo(Rational.ONE.div(Rational.fromNumber(half)), family.arithmetic));
-  void p0;
   for (let s = 0; s < S; s++) {
     const { lo, hi } = boxes[s]![c.input]!;
     const m = Rational.fromNumber(roundTo(Rational.fromNumber(lo).add(Rational.fromNumber(hi)).mul(Rational.of(1n, 2n)), family.arithmetic));

@@ -8,7 +8,6 @@
  */
 import { RootcastError } from '../errors.js';
 import { addUp, divUp } from '../math/directed.js';
-import { Rational } from '../math/rational.js';
 import { analyse, largestComputed } from '../ir/analyse.js';
 import { ConstantOverflowError } from '../ir/builder.js';
 import { countOps, type OpCounts } from '../ir/count.js';
@@ -431,4 +430,3 @@ function evaluate(
   return { bound: { kind: relative ? 'relative' : 'absolute', truncation, rounding, total }, absolute };
 }
 
-export { Rational };

@@ -8,11 +8,10 @@
  * bound exists.
  *
  * All arithmetic here is float64 with directed rounding (src/math/directed.ts):
- * a(T) is bounded from above (a point where f is certainly <= 0), and a_S(T)
- * is summed from below (every term and every partial sum rounded down).
+ * a(T) is bounded from above (a point where f is certainly <= 0). The kept
+ * sum a_S(T) is summed from below per cell in src/plan/cell-bound.ts (addGrade).
  */
-import { addDown, addUp, mulDown, mulUp, nextDown, nextUp } from '../math/directed.js';
-import type { SeriesTerm } from './hyper-catalan.js';
+import { addUp, mulUp, nextDown, nextUp } from '../math/directed.js';
 
 /** f(a) evaluated with rounding up: an upper bound of the exact f(a), a >= 0. */
 function fUpper(T: readonly number[], a: number): number {
@@ -83,22 +82,4 @@ function bisectRoot(T: readonly number[], left: number, right: number): number {
     else left = mid;
   }
   return right;
-}
-
-/**
- * Lower bounds of the grade sums G_w = sum over kept terms of grade w of H(m) T^m,
- * for w = 0..maxGrade. `terms` must be ordered by grade (termsUpToGrade does).
- */
-export function gradeSumsLower(terms: readonly SeriesTerm[], T: readonly number[], maxGrade: number, hDown: (t: SeriesTerm) => number): number[] {
-  const sums = new Array<number>(maxGrade + 1).fill(0);
-  for (const term of terms) {
-    if (term.grade > maxGrade) break;
-    let v = hDown(term);
-    for (let k = 2; k < term.m.length; k++) {
-      const e = term.m[k]!;
-      for (let j = 0; j < e; j++) v = mulDown(v, T[k]!);
-    }
-    sums[term.grade] = addDown(sums[term.grade]!, v);
-  }
-  return sums;
 }
