@@ -16,10 +16,13 @@ export function claimsOf(plan: Plan): PlanClaims {
   return {
     order: plan.order,
     terms: plan.terms.length,
+    steps: plan.steps,
     rootNote:
       plan.form === 'economised'
         ? `${plan.root.note}; the series is collapsed to a polynomial in ${plan.family.inputs[0]!.name} and Chebyshev-economised to degree ${plan.degree} (the truncation bound below includes the economisation error)`
-        : plan.root.note,
+        : plan.steps > 0
+          ? `${plan.root.note}; then ${plan.steps} Newton step${plan.steps === 1 ? '' : 's'} (the truncation bound below is the Newton error term left after the last step, carried from the series bound)`
+          : plan.root.note,
     bound: plan.bound,
     absoluteBound: plan.absoluteBound,
     target: plan.target,

@@ -46,7 +46,9 @@ export function headerLines(input: EmitInput, fileRole: string): string[] {
     `  rounding    ${formatBoundUp(b.rounding)}`,
     `  total       ${formatBoundUp(b.total)}`,
     ...labelled('target:', [`${family.accuracy.value} (${family.accuracy.kind})`]),
-    ...labelled('series:', [`order ${claims.order}, ${claims.terms} ${claims.terms === 1 ? 'term' : 'terms'}`]),
+    ...labelled('series:', [
+      `order ${claims.order}, ${claims.terms} ${claims.terms === 1 ? 'term' : 'terms'}${claims.steps > 0 ? `, then ${claims.steps} Newton ${claims.steps === 1 ? 'step' : 'steps'}` : ''}`,
+    ]),
     ...labelled('operations:', [`${ops.add} add, ${ops.mul} mul, ${ops.div} div, ${ops.tableReads} table reads`]),
     cycleHeaderLine(input.program),
   ];

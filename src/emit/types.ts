@@ -15,6 +15,8 @@ export interface PlanClaims {
   readonly order: number;
   /** Number of series terms kept. */
   readonly terms: number;
+  /** Newton polish steps after the series (0 for none). */
+  readonly steps: number;
   /** One sentence on which root and where the series is centred. */
   readonly rootNote: string;
   /** Certified bounds, in the accuracy kind of the spec. */

@@ -7,7 +7,7 @@
  * a(T) bounded above and a_S(T) below, both with directed rounding.
  */
 import { addDown, addUp, mulDown, mulUp, powUp, subDown, subUp } from '../math/directed.js';
-import { mag } from '../math/interval.js';
+import { mag, type Interval } from '../math/interval.js';
 import { Rational } from '../math/rational.js';
 import { analyse } from '../ir/analyse.js';
 import { majorantRoot } from '../series/majorant.js';
@@ -29,6 +29,10 @@ export interface CellFacts {
   readonly R: number;
   /** Majorant arguments, indexed by power (0 and 1 unused). */
   readonly T: readonly number[];
+  /** Upper bounds of |q_k| over the cell, indexed by power (0 and 1 unused). */
+  readonly Q: readonly number[];
+  /** Enclosure of r over the cell. */
+  readonly rRange: Interval;
   /** Upper bound of a(T) (1 when nothing varies). */
   readonly aUpper: number;
   /** Lower bounds of the grade sums of a_S(T), index = grade, filled lazily. */
@@ -43,13 +47,17 @@ export interface CellFacts {
 export function cellFacts(ap: AnalysisProgram, degree: number, cell: Cell, x0: number, segment: number): CellFacts {
   const an = analyse(ap.program, cell, { segment });
   const T = new Array<number>(degree + 1).fill(0);
-  const base = { cell, segment, T, gradeSums: [] as number[], rootMin: 0 };
+  const Q = new Array<number>(degree + 1).fill(0);
+  const base = { cell, segment, T, Q, rRange: an.values[ap.r]!, gradeSums: [] as number[], rootMin: 0 };
   if (ap.c1 !== null) {
     const v = an.values[ap.c1]!;
     if (v.lo <= 0 && v.hi >= 0) return { ...base, state: { kind: 'slope-vanishes' }, R: Infinity, aUpper: Infinity };
   }
   const R = mag(an.values[ap.r]!);
-  for (const [k, ref] of ap.q) T[k] = mulUp(powUp(R, k - 1), mag(an.values[ref]!));
+  for (const [k, ref] of ap.q) {
+    Q[k] = mag(an.values[ref]!);
+    T[k] = mulUp(powUp(R, k - 1), Q[k]!);
+  }
   if (!Number.isFinite(R) || T.some((t) => !Number.isFinite(t))) {
     return { ...base, state: { kind: 'slope-vanishes' }, R: Infinity, aUpper: Infinity };
   }

@@ -26,6 +26,7 @@ import { chooseRoot, pointText, rootAt, type RootChoice } from './root-choice.js
 import { segmentLayout, type SegmentLayout } from './segments.js';
 import { analysisProgram, CoefficientError, collapsedSeries, seriesProgram, ZeroSlopeError, type Expansion } from './series-program.js';
 import { economise } from './economise.js';
+import { coreProgram, polishBound, polishedProgram, PolishFailure, stepProgram } from './polish.js';
 
 export interface Bound {
   readonly kind: 'absolute' | 'relative';
@@ -42,6 +43,8 @@ export interface Candidate {
   readonly counts: readonly number[];
   readonly order: number | null;
   readonly terms: number | null;
+  /** Newton polish steps after the series (0 for none). */
+  readonly steps: number;
   readonly ops: OpCounts | null;
   readonly cost: number | null;
   readonly bound: number | null;
@@ -59,6 +62,8 @@ export interface Plan {
   /** Degree of the economised polynomial in the scaled input (null for the series form). */
   readonly degree: number | null;
   readonly terms: readonly SeriesTerm[];
+  /** Newton polish steps after the series (DESIGN.md 1.9); 0 for none. */
+  readonly steps: number;
   readonly program: Program;
   readonly bound: Bound;
   /** Certified absolute error bound over the box (equals bound.total for absolute accuracy). */
@@ -122,7 +127,7 @@ function searchSegments(family: Family, box: ReturnType<typeof boxOf>['cell']): 
     } catch (e) {
       if (!(e instanceof RootcastError)) throw e;
       found.firstError ??= e;
-      candidates.push({ form: 'series', degree: null, counts, order: null, terms: null, ops: null, cost: null, bound: null, refusal: e.message, chosen: false });
+      candidates.push({ form: 'series', degree: null, counts, order: null, terms: null, steps: 0, ops: null, cost: null, bound: null, refusal: e.message, chosen: false });
       return null;
     }
   };
@@ -161,7 +166,7 @@ function searchSegments(family: Family, box: ReturnType<typeof boxOf>['cell']): 
 }
 
 function markChosen(candidates: readonly Candidate[], p: Plan): Candidate[] {
-  return candidates.map((c) => ({ ...c, chosen: c.refusal === null && c.form === p.form && sameCounts(c.counts, p.counts) }));
+  return candidates.map((c) => ({ ...c, chosen: c.refusal === null && c.form === p.form && c.steps === p.steps && sameCounts(c.counts, p.counts) }));
 }
 
 /** The search never goes past this many segments per input, nor SEARCH_SEGMENTS in all. */
@@ -187,6 +192,7 @@ function candidateOf(p: Plan, chosen: boolean): Candidate {
     counts: p.counts,
     order: p.order,
     terms: p.terms.length,
+    steps: p.steps,
     ops: p.ops,
     cost: p.cost,
     bound: p.bound.total,
@@ -321,7 +327,6 @@ function planWithCountsInner(family: Family, box: ReturnType<typeof boxOf>['cell
   const active = [...ap.q.keys()];
   const byGrade: SeriesTerm[][] = [];
   const kept: SeriesTerm[] = [];
-  let best: { order: number; total: number; rounding: number } | null = null;
   const nextGrade = (order: number): boolean => {
     const fresh = termsOfGrade(degree, active, order);
     byGrade.push(fresh);
@@ -331,59 +336,173 @@ function planWithCountsInner(family: Family, box: ReturnType<typeof boxOf>['cell
     return true;
   };
   set.onNewCell = (c) => byGrade.forEach((ts, w) => addGrade(c, ts, w));
-  for (let order = 0; order <= family.plan.maxOrder; order++) {
-    if (!nextGrade(order)) break;
-    let trunc = set.truncation(order, relative);
-    if (trunc > target / 2 && trunc < target * 1e3) {
-      set.refineWorst(order, relative, LIMITS.cells);
-      trunc = set.truncation(order, relative);
+  const termsUpTo = (w: number): SeriesTerm[] | null => {
+    while (byGrade.length <= w) if (!nextGrade(byGrade.length)) return null;
+    return kept.filter((t) => t.grade <= w);
+  };
+  const checkTable = (program: Program): number => {
+    const tableBytes = tableBytesOf(program);
+    if (tableBytes > family.plan.maxTableBytes) {
+      throw new RootcastError(
+        `the ${counts.join(' x ')} segment tables need ${tableBytes} bytes, more than plan.max_table_bytes ${family.plan.maxTableBytes}; raise it or use fewer segments`,
+        locate(family, family.positions['plan.max_table_bytes'] ? 'plan.max_table_bytes' : 'plan.segments'),
+      );
     }
-    if (trunc > target) continue;
-    const program = seriesProgram(family, expansion, kept);
-    const ev = evaluate(family, program, set.cells, order, relative);
-    if (ev.bound.total <= target) {
-      const tableBytes = tableBytesOf(program);
-      if (tableBytes > family.plan.maxTableBytes) {
-        throw new RootcastError(
-          `the ${counts.join(' x ')} segment tables need ${tableBytes} bytes, more than plan.max_table_bytes ${family.plan.maxTableBytes}; raise it or use fewer segments`,
-          locate(family, family.positions['plan.max_table_bytes'] ? 'plan.max_table_bytes' : 'plan.segments'),
-        );
+    return tableBytes;
+  };
+  const stepsKnob = family.plan.newtonSteps;
+  let series: Plan | null = null;
+  let refusal: RootcastError | null = null;
+  try {
+    series = searchOrder();
+  } catch (e) {
+    if (!(e instanceof RootcastError)) throw e;
+    refusal = e;
+  }
+  const forms: Plan[] = [];
+  if (series) {
+    forms.push(series);
+    const econ = economisedPlan(series, expansion, layout, set.cells, series.order, relative, termsUpTo);
+    if (econ) forms.push(econ);
+  }
+  if (stepsKnob !== 0) {
+    const base = series ?? null;
+    const polished = polishedPlans(
+      { family, root, expansion, counts, relative, target, cells: set.cells, checkTable },
+      stepsKnob === 'auto' ? [1, 2] : [stepsKnob],
+      base ? base.order - 1 : Math.min(family.plan.maxOrder, byGrade.length - 1),
+      termsUpTo,
+    );
+    forms.push(...polished);
+  }
+  const eligible = forms.filter((f) => stepsKnob === 'auto' || f.steps === stepsKnob);
+  if (eligible.length === 0) {
+    if (refusal && (stepsKnob === 'auto' || stepsKnob === 0)) throw refusal;
+    throw refusal ?? new RootcastError(
+      `no plan with ${stepsKnob} Newton step${stepsKnob === 1 ? '' : 's'} meets the target for these segments; set plan.newton_steps: auto`,
+      locate(family, 'plan.newton_steps'),
+    );
+  }
+  const best = eligible.reduce((a, b) => (b.cost < a.cost ? b : a));
+  return { ...best, alternatives: forms.filter((f) => f !== best) };
+
+  function searchOrder(): Plan {
+    let best: { order: number; total: number; rounding: number } | null = null;
+    for (let order = 0; order <= family.plan.maxOrder; order++) {
+      if (!nextGrade(order)) break;
+      let trunc = set.truncation(order, relative);
+      if (trunc > target / 2 && trunc < target * 1e3) {
+        set.refineWorst(order, relative, LIMITS.cells);
+        trunc = set.truncation(order, relative);
       }
-      const series: Plan = {
+      if (trunc > target) continue;
+      const program = seriesProgram(family, expansion, kept);
+      const ev = evaluate(family, program, set.cells, order, relative);
+      if (ev.bound.total <= target) {
+        const tableBytes = checkTable(program);
+        return {
+          family,
+          root,
+          form: 'series',
+          order,
+          degree: null,
+          terms: [...kept],
+          steps: 0,
+          program,
+          bound: ev.bound,
+          absoluteBound: ev.absolute,
+          target,
+          ops: countOps(program),
+          cost: programCost(program),
+          cells: set.cells.length,
+          counts: [...counts],
+          tableBytes,
+          candidates: [],
+        };
+      }
+      if (!best || ev.bound.total < best.total) best = { order, total: ev.bound.total, rounding: ev.bound.rounding };
+      // Truncation is already negligible next to rounding: more terms cannot help.
+      if (ev.bound.truncation < 0.05 * ev.bound.rounding) refuseFloor(family, best.total, best.rounding);
+    }
+    if (best && best.rounding > target / 2) refuseFloor(family, best.total, best.rounding);
+    // Past max_order: find the order the truncation bound alone needs (cheap: no programs, no refinement).
+    for (let order = byGrade.length; order <= LIMITS.grade; order++) {
+      if (!nextGrade(order)) break;
+      if (set.truncation(order, relative) <= target) refuseOrder(family, order);
+    }
+    refuseOrder(family, null);
+  }
+}
+
+interface PolishContext {
+  readonly family: Family;
+  readonly root: RootChoice;
+  readonly expansion: Expansion;
+  readonly counts: readonly number[];
+  readonly relative: boolean;
+  readonly target: number;
+  readonly cells: readonly CellFacts[];
+  readonly checkTable: (program: Program) => number;
+}
+
+/**
+ * "Order N + k Newton steps" candidates (DESIGN.md 1.9): for each k, the
+ * lowest order N <= maxOrder whose carried bound meets the target. Orders
+ * whose Newton terms alone (no rounding) miss it are skipped before any
+ * program is built.
+ */
+function polishedPlans(ctx: PolishContext, stepCounts: readonly number[], maxOrder: number, termsUpTo: (grade: number) => SeriesTerm[] | null): Plan[] {
+  const { family, expansion, cells, relative, target } = ctx;
+  const out: Plan[] = [];
+  for (const k of stepCounts) {
+    for (let n = 0; n <= maxOrder; n++) {
+      let cheap;
+      try {
+        cheap = polishBound(cells, n, k, relative, null);
+      } catch (e) {
+        if (e instanceof PolishFailure) continue;
+        throw e;
+      }
+      if (cheap.total > target) continue;
+      const terms = termsUpTo(n);
+      if (!terms) break;
+      const programs = { core: coreProgram(family, expansion, terms), steps: Array.from({ length: k }, (_, j) => stepProgram(family, expansion, j === k - 1)) };
+      let full;
+      try {
+        full = polishBound(cells, n, k, relative, programs);
+      } catch (e) {
+        if (e instanceof PolishFailure) break;
+        throw e;
+      }
+      // Rounding does not shrink with the order: past half the target, stop.
+      if (full.total > target) {
+        if (full.rounding > target / 2) break;
+        continue;
+      }
+      const program = polishedProgram(family, expansion, terms, k);
+      out.push({
         family,
-        root,
+        root: ctx.root,
         form: 'series',
-        order,
+        order: n,
         degree: null,
-        terms: [...kept],
+        terms,
+        steps: k,
         program,
-        bound: ev.bound,
-        absoluteBound: ev.absolute,
+        bound: { kind: relative ? 'relative' : 'absolute', truncation: full.truncation, rounding: full.rounding, total: full.total },
+        absoluteBound: full.absolute,
         target,
         ops: countOps(program),
         cost: programCost(program),
-        cells: set.cells.length,
-        counts: [...counts],
-        tableBytes,
+        cells: cells.length,
+        counts: [...ctx.counts],
+        tableBytes: ctx.checkTable(program),
         candidates: [],
-      };
-      const econ = economisedPlan(series, expansion, layout, set.cells, order, relative, (w) => {
-        while (byGrade.length <= w) if (!nextGrade(byGrade.length)) return null;
-        return kept.filter((t) => t.grade <= w);
       });
-      return econ && econ.cost < series.cost ? { ...econ, alternatives: [series] } : { ...series, alternatives: econ ? [econ] : [] };
+      break;
     }
-    if (!best || ev.bound.total < best.total) best = { order, total: ev.bound.total, rounding: ev.bound.rounding };
-    // Truncation is already negligible next to rounding: more terms cannot help.
-    if (ev.bound.truncation < 0.05 * ev.bound.rounding) refuseFloor(family, best.total, best.rounding);
   }
-  if (best && best.rounding > target / 2) refuseFloor(family, best.total, best.rounding);
-  // Past max_order: find the order the truncation bound alone needs (cheap: no programs, no refinement).
-  for (let order = byGrade.length; order <= LIMITS.grade; order++) {
-    if (!nextGrade(order)) break;
-    if (set.truncation(order, relative) <= target) refuseOrder(family, order);
-  }
-  refuseOrder(family, null);
+  return out;
 }
 
 interface Evaluated {

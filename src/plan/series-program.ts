@@ -38,7 +38,7 @@ export interface Expansion {
 
 export const singleExpansion = (x0: Rational): Expansion => ({ segmentation: SINGLE, x0: [x0] });
 
-interface Prefix {
+export interface Prefix {
   readonly r: Ref;
   readonly q: ReadonlyMap<number, Ref>;
   /** The shifted slope c'1 when it varies with the inputs, else null. */
@@ -63,7 +63,7 @@ export function setupSeries(family: Family, x0: SegValues, b: ProgramBuilder): S
   return { shifted, active, x0 };
 }
 
-function buildPrefix(b: ProgramBuilder, s: SeriesSetup): Prefix {
+export function buildPrefix(b: ProgramBuilder, s: SeriesSetup): Prefix {
   const c1 = s.shifted[1]!;
   const q = new Map<number, Ref>();
   if (isConstant(c1)) {
@@ -115,13 +115,25 @@ export function analysisProgram(family: Family, e: Expansion): AnalysisProgram {
 
 /** The emitted program for the kept terms (ordered by grade, as termsUpToGrade gives them). */
 export function seriesProgram(family: Family, e: Expansion, terms: readonly SeriesTerm[]): Program {
-  const b = new ProgramBuilder(family.arithmetic, family.inputs.map((i) => i.name), e.segmentation);
+  const core = seriesCore(family, e, terms);
+  return core.b.finish(core.b.sub(core.b.const(e.x0), core.v));
+}
+
+/** The series built up to v = r a_S (the root is x = x0 - v), for programs that go on from there. */
+export interface SeriesCore {
+  readonly b: ProgramBuilder;
+  readonly setup: SeriesSetup;
+  readonly prefix: Prefix;
+  readonly v: Ref;
+}
+
+export function seriesCore(family: Family, e: Expansion, terms: readonly SeriesTerm[], extraInputs: readonly string[] = []): SeriesCore {
+  const b = new ProgramBuilder(family.arithmetic, [...family.inputs.map((i) => i.name), ...extraInputs], e.segmentation);
   const s = setupSeries(family, e.x0, b);
   const p = buildPrefix(b, s);
   const qConst = [...p.q.values()].every((ref) => b.segValues(ref) !== null);
   const a = qConst ? hornerInR(b, p, terms, s.active) : nestedHorner(b, p, terms, s.active);
-  const y = b.mul(p.r, a);
-  return b.finish(b.sub(b.const(e.x0), y));
+  return { b, setup: s, prefix: p, v: b.mul(p.r, a) };
 }
 
 function signedCoefficient(t: SeriesTerm): Rational {

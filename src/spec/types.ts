@@ -36,6 +36,8 @@ export interface PlanKnobs {
   readonly maxOrder: number;
   readonly segments: 'auto' | number;
   readonly maxTableBytes: number;
+  /** Newton polish steps after the series: 'auto' lets the planner weigh 0, 1 and 2. */
+  readonly newtonSteps: 'auto' | number;
 }
 
 export interface Family {

@@ -6,7 +6,7 @@ import { loadSpec } from '../../src/spec/load.js';
 import type { Family } from '../../src/spec/types.js';
 
 const kiln = loadSpec('examples/kiln-probe.yaml');
-const withPlan = (f: Family, maxOrder: number): Family => ({ ...f, plan: { ...f.plan, maxOrder, segments: 1 } });
+const withPlan = (f: Family, maxOrder: number): Family => ({ ...f, plan: { ...f.plan, maxOrder, segments: 1, newtonSteps: 0 } });
 
 describe('planner', () => {
   test('picks the smallest order that meets the target: one order less is refused with the order needed', () => {
@@ -49,5 +49,38 @@ describe('planner', () => {
     expect(Math.fround(x0)).toBe(x0);
     expect(x0).toBeGreaterThan(-10);
     expect(x0).toBeLessThan(900);
+  });
+});
+
+describe('Newton polish candidates (DESIGN.md 1.9)', () => {
+  const lens = loadSpec('examples/lens-undistort.yaml');
+  const steps = (f: Family, newtonSteps: 'auto' | number): Family => ({ ...f, plan: { ...f.plan, newtonSteps } });
+
+  test('the three-input lens quintic: a short series plus a step beats the long plain series, and both meet the target', () => {
+    const chosen = makePlan(lens);
+    const plain = makePlan(steps(lens, 0));
+    expect(plain.steps).toBe(0);
+    expect(chosen.steps).toBeGreaterThan(0);
+    expect(chosen.terms.length).toBeLessThan(plain.terms.length);
+    expect(chosen.cost).toBeLessThan(plain.cost);
+    expect(chosen.bound.total).toBeLessThanOrEqual(chosen.target);
+    expect(plain.bound.total).toBeLessThanOrEqual(plain.target);
+    // The candidate table holds both, and marks only the chosen one.
+    expect(chosen.candidates.filter((c) => c.chosen)).toHaveLength(1);
+    expect(chosen.candidates.some((c) => c.steps === 0 && c.refusal === null)).toBe(true);
+  });
+
+  test('a fixed newton_steps is obeyed', () => {
+    expect(makePlan(steps(lens, 1)).steps).toBe(1);
+    expect(makePlan(steps(lens, 2)).steps).toBe(2);
+    expect(makePlan(steps(kiln, 0)).steps).toBe(0);
+  });
+
+  test('each step is one division more in the program', () => {
+    const one = makePlan(steps(lens, 1));
+    const two = makePlan(steps(lens, 2));
+    const none = makePlan(steps(lens, 0));
+    expect(one.ops.div).toBe(none.ops.div + 1);
+    expect(two.ops.div).toBe(none.ops.div + 2);
   });
 });

@@ -43,7 +43,7 @@ describe('readSpec on the kiln example of DESIGN.md section 3', () => {
       bracket: ['-10', '900'],
       accuracy: { kind: 'absolute', value: '0.001' },
       arithmetic: 'float32',
-      plan: { maxOrder: 40, segments: 'auto', maxTableBytes: 4096 },
+      plan: { maxOrder: 40, segments: 'auto', maxTableBytes: 4096, newtonSteps: 'auto' },
     } satisfies Omit<Family, 'positions' | 'specHash'>);
     expect(specHash).toMatch(/^[0-9a-f]{64}$/);
   });

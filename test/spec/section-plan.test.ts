@@ -4,14 +4,14 @@ import { PLAN_DEFAULTS } from '../../src/spec/section-plan.js';
 import { expectRefusal, withExtra } from './helpers.js';
 
 describe('plan', () => {
-  test('without plan the defaults apply: max_order 40, segments auto, max_table_bytes 4096', () => {
-    expect(readSpec('spec.yaml', withExtra()).plan).toEqual({ maxOrder: 40, segments: 'auto', maxTableBytes: 4096 });
-    expect(PLAN_DEFAULTS).toEqual({ maxOrder: 40, segments: 'auto', maxTableBytes: 4096 });
+  test('without plan the defaults apply: max_order 40, segments auto, max_table_bytes 4096, newton_steps auto', () => {
+    expect(readSpec('spec.yaml', withExtra()).plan).toEqual({ maxOrder: 40, segments: 'auto', maxTableBytes: 4096, newtonSteps: 'auto' });
+    expect(PLAN_DEFAULTS).toEqual({ maxOrder: 40, segments: 'auto', maxTableBytes: 4096, newtonSteps: 'auto' });
   });
 
   test('given knobs replace the defaults, the others keep theirs', () => {
     const f = readSpec('spec.yaml', withExtra('plan:', '  max_order: 12', '  segments: 8'));
-    expect(f.plan).toEqual({ maxOrder: 12, segments: 8, maxTableBytes: 4096 });
+    expect(f.plan).toEqual({ maxOrder: 12, segments: 8, maxTableBytes: 4096, newtonSteps: 'auto' });
     expect(f.positions['plan.segments']).toEqual({ line: 18, column: 13 });
   });
 
@@ -31,6 +31,16 @@ describe('plan', () => {
 
   test('max_table_bytes must be a positive whole number', () => {
     expectRefusal(withExtra('plan:', '  max_table_bytes: 0'), 'spec.yaml:17:20: plan.max_table_bytes: ', 'expected a whole number from 1 to');
+  });
+
+  test('newton_steps is auto, 0, 1 or 2', () => {
+    expect(readSpec('spec.yaml', withExtra('plan:', '  newton_steps: 2')).plan.newtonSteps).toBe(2);
+    expect(readSpec('spec.yaml', withExtra('plan:', '  newton_steps: 0')).plan.newtonSteps).toBe(0);
+    expect(readSpec('spec.yaml', withExtra('plan:', '  newton_steps: auto')).plan.newtonSteps).toBe('auto');
+    expectRefusal(withExtra('plan:', '  newton_steps: 3'), 'spec.yaml:17:17: plan.newton_steps: ', 'expected auto, 0, 1 or 2, found 3');
+    expectRefusal(withExtra('plan:', '  newton_steps: 1.0'), 'spec.yaml:17:17: plan.newton_steps: ', 'found 1.0');
+    expectRefusal(withExtra('plan:', '  newton_steps: -1'), 'spec.yaml:17:17: plan.newton_steps: ', 'found -1');
+    expectRefusal(withExtra('plan:', '  newton_steps: two'), 'spec.yaml:17:17: plan.newton_steps: ', 'found the text `two`');
   });
 
   test('an unknown knob is refused with a suggestion', () => {

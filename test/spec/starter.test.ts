@@ -10,7 +10,7 @@ describe('starterSpec', () => {
     expect(f.functionName).toBe('spring_deflection');
     expect(f.inputs.map((i) => i.name)).toEqual(['F']);
     expect(f.bracket).not.toBeNull();
-    expect(f.plan).toEqual({ maxOrder: 40, segments: 'auto', maxTableBytes: 4096 });
+    expect(f.plan).toEqual({ maxOrder: 40, segments: 'auto', maxTableBytes: 4096, newtonSteps: 'auto' });
   });
 
   test('every field of a spec appears in the starter with a comment above it', () => {

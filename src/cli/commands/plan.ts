@@ -17,6 +17,7 @@ export function planJson(plan: Plan): object {
     root: { x0: plan.root.x0.toNumber(), note: plan.root.note },
     order: c.order,
     terms: c.terms,
+    steps: c.steps,
     cells: plan.cells,
     bound: c.bound,
     absoluteBound: c.absoluteBound,
@@ -30,6 +31,7 @@ export function planJson(plan: Plan): object {
       segments: k.counts,
       order: k.order,
       terms: k.terms,
+      steps: k.steps,
       ops: k.ops,
       cost: k.cost,
       bound: k.bound,
@@ -41,7 +43,7 @@ export function planJson(plan: Plan): object {
 
 /** The candidates the planner weighed, one row each; the chosen one marked with `*`. */
 export function candidateTable(plan: Plan): string[] {
-  const head = ['', 'form', 'segments', 'order', 'degree', 'terms', 'add', 'mul', 'div', 'reads', 'cost', 'bound'];
+  const head = ['', 'form', 'segments', 'order', 'degree', 'terms', 'steps', 'add', 'mul', 'div', 'reads', 'cost', 'bound'];
   const rows = plan.candidates.map((k) => [
     k.chosen ? '*' : '',
     k.form,
@@ -49,6 +51,7 @@ export function candidateTable(plan: Plan): string[] {
     k.order === null ? '-' : String(k.order),
     k.degree === null ? '-' : String(k.degree),
     k.terms === null ? '-' : String(k.terms),
+    k.bound === null ? '-' : String(k.steps),
     k.ops ? String(k.ops.add) : '-',
     k.ops ? String(k.ops.mul) : '-',
     k.ops ? String(k.ops.div) : '-',
@@ -70,7 +73,7 @@ export function planText(plan: Plan): string {
     ['inputs', f.inputs.map((i) => `${i.name} in [${i.lo}, ${i.hi}]`).join(', ')],
     ['root', c.rootNote],
     ['arithmetic', f.arithmetic],
-    ['form', plan.form === 'series' ? 'series, evaluated by Horner\'s rule' : `series collapsed to a polynomial in ${f.inputs[0]!.name}, Chebyshev-economised to degree ${plan.degree}`],
+    ['form', plan.form === 'series' ? `series, evaluated by Horner's rule${plan.steps > 0 ? `, then ${plan.steps} Newton step${plan.steps === 1 ? '' : 's'}` : ''}` : `series collapsed to a polynomial in ${f.inputs[0]!.name}, Chebyshev-economised to degree ${plan.degree}`],
     ['series', `order ${c.order}, ${c.terms} terms, bound certified over ${plan.cells} cells`],
     [
       'bound',

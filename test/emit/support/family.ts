@@ -25,7 +25,7 @@ export function demoFamily(program: Program, overrides: Partial<Family> = {}): F
     bracket: null,
     accuracy: { kind: 'absolute', value: '0.001' },
     arithmetic: program.arithmetic,
-    plan: { maxOrder: 40, segments: 'auto', maxTableBytes: 4096 },
+    plan: { maxOrder: 40, segments: 'auto', maxTableBytes: 4096, newtonSteps: 'auto' },
     positions: {},
     ...overrides,
   };
@@ -35,6 +35,7 @@ export function demoClaims(program: Program, overrides: Partial<PlanClaims> = {}
   return {
     order: 6,
     terms: 7,
+    steps: 0,
     rootNote: 'the simple root near -c0/c1, series centred at the box centre',
     bound: { kind: 'absolute', truncation: 1.234e-5, rounding: 3.01e-6, total: 1.5350000000000001e-5 },
     absoluteBound: 1.5350000000000001e-5,

@@ -1,0 +1,197 @@
+/**
+ * Newton polish after a lower-order series (DESIGN.md 1.9), unrolled and
+ * branch-free, with the certified bound carried through every step.
+ *
+ * The series gives v = r a_S with x = x0 - v. Dividing P(x0 - v) by -c'1,
+ *     h(v) = v - r - sum_k (-1)^k q_k v^k,    h'(v) = 1 - sum_k (-1)^k k q_k v^(k-1),
+ * has the same roots, and one Newton step is v1 = v - h(v) / h'(v) (Newton's
+ * method is unchanged by scaling the equation). r and q_k are the series'
+ * own prefix values, so a step costs two Horner evaluations and one division.
+ *
+ * The bound of one step (Taylor's theorem with the Lagrange remainder; the
+ * standard Newton error estimate): if |v - v*| <= e and, over the cell and
+ * the interval J = [v* - e, v* + e] enclosing v and v*, |h''| <= M2 and
+ * |h'| >= m1 > 0, then the exact step from the computed v leaves
+ *     |v1 - v*| <= (M2 / (2 m1)) e^2.
+ * M2 and m1 come from the magnitudes Q_k >= |q_k| and V >= |J|:
+ *     m1 = 1 - sum k Q_k V^(k-1),   M2 = sum k (k-1) Q_k V^(k-2),
+ * with directed rounding. The step's own rounding is the a priori bound of a
+ * program that takes v as an exact extra input over J (src/ir/analyse.ts);
+ * the emitted program computes the very same operations on the series' v.
+ */
+import { addUp, divUp, mulDown, mulUp, powUp, subDown } from '../math/directed.js';
+import { Rational } from '../math/rational.js';
+import { analyse, largestComputed } from '../ir/analyse.js';
+import { ProgramBuilder, type Ref } from '../ir/builder.js';
+import type { Program } from '../ir/nodes.js';
+import { FORMATS } from '../ir/round.js';
+import type { SeriesTerm } from '../series/hyper-catalan.js';
+import type { Family } from '../spec/types.js';
+import { cellTail, type CellFacts } from './cell-bound.js';
+import { buildPrefix, seriesCore, setupSeries, type Expansion, type Prefix } from './series-program.js';
+
+/** A signed term of a Horner sum: sign * value of ref. */
+interface Signed {
+  readonly ref: Ref;
+  readonly sign: 1 | -1;
+}
+
+/**
+ * Horner's rule for sum_k c_k v^k with signed coefficients (index = power; null
+ * for a zero coefficient). Signs are folded into constants, and for computed
+ * coefficients carried as a running sign so that no negation is spent: the
+ * result is sign * value.
+ */
+function signedHorner(b: ProgramBuilder, v: Ref, coeffs: readonly (Signed | null)[]): Signed {
+  const fold = (c: Signed): Signed => {
+    const values = b.segValues(c.ref);
+    return values && c.sign === -1 ? { ref: b.const(values.map((x) => x.neg())), sign: 1 } : c;
+  };
+  let acc = fold(coeffs[coeffs.length - 1]!);
+  for (let k = coeffs.length - 2; k >= 0; k--) {
+    const times = b.mul(acc.ref, v);
+    const c = coeffs[k];
+    if (!c) {
+      acc = { ref: times, sign: acc.sign };
+      continue;
+    }
+    const t = fold(c);
+    acc = { ref: t.sign === acc.sign ? b.add(times, t.ref) : b.sub(times, t.ref), sign: acc.sign };
+  }
+  return acc;
+}
+
+/** One Newton step on h (see above) from v; returns v1. */
+export function newtonStep(b: ProgramBuilder, p: Prefix, v: Ref, active: readonly number[]): Ref {
+  const n = Math.max(1, ...active);
+  const h: (Signed | null)[] = new Array<Signed | null>(n + 1).fill(null);
+  const dh: (Signed | null)[] = new Array<Signed | null>(n).fill(null);
+  h[0] = { ref: p.r, sign: -1 };
+  h[1] = { ref: b.const(Rational.ONE), sign: 1 };
+  dh[0] = h[1];
+  for (const k of active) {
+    const q = p.q.get(k)!;
+    const sign = k % 2 === 0 ? -1 : 1;
+    h[k] = { ref: q, sign };
+    const kq = b.mul(q, b.const(Rational.int(k)));
+    dh[k - 1] = { ref: kq, sign };
+  }
+  const num = signedHorner(b, v, h);
+  const den = signedHorner(b, v, dh);
+  const step = b.div(num.ref, den.ref);
+  return num.sign === den.sign ? b.sub(v, step) : b.add(v, step);
+}
+
+/** The emitted program: the series of the kept terms, then `steps` Newton steps, then x = x0 - v. */
+export function polishedProgram(family: Family, e: Expansion, terms: readonly SeriesTerm[], steps: number): Program {
+  const core = seriesCore(family, e, terms);
+  let v = core.v;
+  for (let j = 0; j < steps; j++) v = newtonStep(core.b, core.prefix, v, core.setup.active);
+  return core.b.finish(core.b.sub(core.b.const(e.x0), v));
+}
+
+/** The series up to v alone (its rounding is the start of the chain). */
+export function coreProgram(family: Family, e: Expansion, terms: readonly SeriesTerm[]): Program {
+  const core = seriesCore(family, e, terms);
+  return core.b.finish(core.v);
+}
+
+/**
+ * One step for the analysis: v is an extra, exact input after the family's
+ * inputs; the last step also forms x = x0 - v1.
+ */
+export function stepProgram(family: Family, e: Expansion, last: boolean): Program {
+  const d = family.inputs.length;
+  const b = new ProgramBuilder(family.arithmetic, [...family.inputs.map((i) => i.name), 'v'], e.segmentation);
+  const s = setupSeries(family, e.x0, b);
+  const p = buildPrefix(b, s);
+  const v1 = newtonStep(b, p, b.input(d), s.active);
+  return b.finish(last ? b.sub(b.const(e.x0), v1) : v1);
+}
+
+/** The Newton factor M2 / (2 m1) over |v| <= V, or Infinity where h' may vanish. */
+export function newtonFactor(c: CellFacts, V: number): number {
+  let slopeLoss = 0;
+  let curvature = 0;
+  for (let k = 2; k < c.Q.length; k++) {
+    const Q = c.Q[k]!;
+    if (Q === 0) continue;
+    slopeLoss = addUp(slopeLoss, mulUp(mulUp(k, Q), powUp(V, k - 1)));
+    curvature = addUp(curvature, mulUp(mulUp(k * (k - 1), Q), k === 2 ? 1 : powUp(V, k - 2)));
+  }
+  const m1 = subDown(1, slopeLoss);
+  if (!(m1 > 0)) return Infinity;
+  return divUp(curvature, mulDown(2, m1));
+}
+
+export interface PolishBound {
+  /** Largest Newton error term of the last step, largest rounding of the last step, largest total (absolute or relative). */
+  readonly truncation: number;
+  readonly rounding: number;
+  readonly total: number;
+  readonly absolute: number;
+}
+
+/** Why a polished candidate has no bound over some cell. */
+export class PolishFailure extends Error {
+  constructor(
+    readonly reason: 'diverges' | 'overflow',
+    readonly cell: CellFacts,
+  ) {
+    super(reason);
+  }
+}
+
+/**
+ * Propagates the error through the steps for every cell. With `programs`
+ * null only the Newton terms are carried (no rounding): a cheap lower bound
+ * of the total used to skip hopeless orders before any program is built.
+ */
+export function polishBound(
+  cells: readonly CellFacts[],
+  order: number,
+  steps: number,
+  relative: boolean,
+  programs: { readonly core: Program; readonly steps: readonly Program[] } | null,
+): PolishBound {
+  let truncation = 0;
+  let rounding = 0;
+  let total = 0;
+  let absolute = 0;
+  for (const c of cells) {
+    if (c.state.kind !== 'ok') throw new PolishFailure('diverges', c);
+    // float32 bounds allow for flushed subnormals, as the series bounds do (one bound for CPUs and GPUs).
+    const ftz = { segment: c.segment, flushToZero: programs?.core.arithmetic === 'float32' };
+    let err = cellTail(c, order);
+    if (programs) err = addUp(err, checked(analyse(programs.core, c.cell, ftz), programs.core, c));
+    const spread = mulUp(c.R, Math.max(0, addUp(c.aUpper, -1)));
+    let quad = 0;
+    let rnd = 0;
+    for (let j = 0; j < steps; j++) {
+      const J = { lo: subDown(subDown(c.rRange.lo, spread), err), hi: addUp(addUp(c.rRange.hi, spread), err) };
+      const V = Math.max(Math.abs(J.lo), Math.abs(J.hi));
+      quad = mulUp(newtonFactor(c, V), mulUp(err, err));
+      if (!Number.isFinite(quad)) throw new PolishFailure('diverges', c);
+      rnd = programs ? checked(analyse(programs.steps[j]!, [...c.cell, J], ftz), programs.steps[j]!, c) : 0;
+      err = addUp(quad, rnd);
+    }
+    absolute = Math.max(absolute, err);
+    if (relative) {
+      truncation = Math.max(truncation, divUp(quad, c.rootMin));
+      rounding = Math.max(rounding, divUp(rnd, c.rootMin));
+      total = Math.max(total, divUp(err, c.rootMin));
+    } else {
+      truncation = Math.max(truncation, quad);
+      rounding = Math.max(rounding, rnd);
+      total = Math.max(total, err);
+    }
+  }
+  return { truncation, rounding, total, absolute };
+}
+
+/** The result's rounding bound, refusing values that may overflow or divisors that may vanish. */
+function checked(an: ReturnType<typeof analyse>, program: Program, c: CellFacts): number {
+  const e = an.errors[program.result]!;
+  if (!Number.isFinite(e) || largestComputed(an) > FORMATS[program.arithmetic].maxFinite / 4) throw new PolishFailure('overflow', c);
+  return e;
+}
