@@ -2,21 +2,21 @@
  * An estimate of the Cortex-M4F cycles one call of a program costs, read from
  * the IR (so it cannot disagree with the op counts beside it in the header).
  *
- * Per-instruction cycle counts, from the FPU instruction timing table of the
- * ARM Cortex-M4 Technical Reference Manual (r0p1, section 7.2.3 "FPU
- * instruction set", and the processor instruction timings of section 3.3).
- * The values below are quoted FROM MEMORY of that table, not re-checked
- * against the document, and no Cortex-M4 board or cycle-accurate simulator
- * was available to measure them:
+ * Per-instruction cycle counts come from the one timing table,
+ * src/ir/timings.ts (the FPU instruction timing table of the ARM Cortex-M4
+ * Technical Reference Manual, quoted FROM MEMORY and not measured on
+ * hardware; the planner's cost model reads the same table). How the IR
+ * kinds map onto instructions:
  *
- *   instruction            cycles   used for
- *   VADD.F32, VSUB.F32     1        add, sub
- *   VMUL.F32               1        mul
- *   VNEG.F32               1        neg (often folded into the next VSUB/VADD; counted anyway)
- *   VDIV.F32               14       div
- *   VLDR.F32 (single)      2        each distinct constant operand, each table read
- *   integer ALU op         1        segment index arithmetic (TRM 3.3, data processing)
- *   LDR (literal)          2        a table's base address
+ *   IR                     instruction            cycles
+ *   add, sub               VADD.F32, VSUB.F32     1
+ *   mul                    VMUL.F32               1
+ *   neg                    VNEG.F32               1 (often folded into the next VSUB/VADD; counted anyway)
+ *   div                    VDIV.F32               14
+ *   constant operand       VLDR.F32 (single)      2 (once per distinct constant)
+ *   table read             ADD + VLDR.F32         1 + 2
+ *   segment index, a part  VLDR + VADD + VMOV     2 + 1 + 1, then the IR's integer ops at 1 each
+ *   a table's base address LDR (literal)          2 (once per function)
  *
  * What the estimate leaves out: moving arguments in and the result out (none
  * under the hard-float calling convention, where they arrive in s0-s15), the
@@ -32,19 +32,20 @@
  */
 import { countOps } from '../ir/count.js';
 import { UnknownNodeError, type Node, type Program } from '../ir/nodes.js';
+import { CORTEX_M4F_CYCLES as M4F, CORTEX_M4F_TABLE_READ_CYCLES } from '../ir/timings.js';
 
 /** Cycles per arithmetic IR node kind (see the table above); constants are charged per use in cortexM4fCycles. */
 const CYCLES: Readonly<Record<string, number>> = {
   input: 0,
-  add: 1,
-  sub: 1,
-  mul: 1,
-  neg: 1,
-  div: 14,
+  add: M4F.add,
+  sub: M4F.add,
+  mul: M4F.mul,
+  neg: M4F.neg,
+  div: M4F.div,
 };
 
 /** VLDR.F32 of one single-precision value (a literal-pool constant or a table entry). */
-const VLDR_CYCLES = 2;
+const VLDR_CYCLES = M4F.vldr;
 
 /**
  * Segmented programs (DESIGN.md 1.5). A table read is an address computation
@@ -55,9 +56,9 @@ const VLDR_CYCLES = 2;
  * operations the IR counts (src/ir/count.ts intOps), 1 cycle each (integer
  * data processing, TRM section 3.3).
  */
-const TABLE_READ_CYCLES = 1 + VLDR_CYCLES;
-const TABLE_BASE_CYCLES = 2;
-const INDEX_CYCLES_PER_PART = VLDR_CYCLES + 1 + 1;
+const TABLE_READ_CYCLES = CORTEX_M4F_TABLE_READ_CYCLES;
+const TABLE_BASE_CYCLES = M4F.ldrLiteral;
+const INDEX_CYCLES_PER_PART = VLDR_CYCLES + M4F.add + M4F.vmovToCore;
 
 /** Cycles of one node, integer operations of the segment index excepted (charged from countOps). */
 function nodeCycles(n: Node): number {
@@ -97,7 +98,7 @@ export function cortexM4fCycles(program: Program): CycleEstimate {
   if (program.nodes[program.result]?.kind === 'const') usedConstants.add(program.result);
   const tableReads = program.nodes.filter((n) => n.kind === 'table').length;
   const indexes = program.nodes.filter((n) => n.kind === 'index').length;
-  cycles += usedConstants.size * VLDR_CYCLES + countOps(program).intOps + (tableReads > 0 ? TABLE_BASE_CYCLES : 0);
+  cycles += usedConstants.size * VLDR_CYCLES + countOps(program).intOps * M4F.intOp + (tableReads > 0 ? TABLE_BASE_CYCLES : 0);
   return { kind: 'estimated', cycles, fpuOps, constantLoads: usedConstants.size, tableReads, indexes };
 }
 

@@ -12,22 +12,28 @@
  * | table read | 3          | 5      |
  * | int op     | 1          | 1      |
  *
- * Cortex-M4F: cycles of VADD.F32, VMUL.F32, VDIV.F32 and VLDR (+ address add)
- * from the FPU instruction timings of the ARM Cortex-M4 Technical Reference
- * Manual (quoted from memory; see src/emit/cycles.ts for the header's
- * estimate and its caveats). x86-64: scalar SSE latencies of a recent core
- * (addsd/mulsd 4, divsd 11-14, an L1 load 5), from memory of Agner Fog's
- * instruction tables; latency is the right measure for Horner's rule, a
- * dependency chain.
+ * The weights are read from the one timing table, src/ir/timings.ts, which
+ * the header's cycle estimate (src/emit/cycles.ts) reads too; its sources and
+ * caveats are there. Cortex-M4F: cycles of VADD.F32, VMUL.F32, VDIV.F32 and
+ * VLDR plus its address add (Cortex-M4 TRM, quoted from memory). x86-64:
+ * scalar SSE latencies (Agner Fog's instruction tables, from memory); latency
+ * is the right measure for Horner's rule, a dependency chain.
  */
 import { countOps } from '../ir/count.js';
 import type { Program } from '../ir/nodes.js';
+import { CORTEX_M4F_CYCLES, CORTEX_M4F_TABLE_READ_CYCLES, X86_64_LATENCY } from '../ir/timings.js';
 
 export type CostTarget = 'cortex-m4f' | 'x86-64';
 
 const WEIGHTS: Readonly<Record<CostTarget, { add: number; mul: number; div: number; tableRead: number; intOp: number }>> = {
-  'cortex-m4f': { add: 1, mul: 1, div: 14, tableRead: 3, intOp: 1 },
-  'x86-64': { add: 4, mul: 4, div: 11, tableRead: 5, intOp: 1 },
+  'cortex-m4f': {
+    add: CORTEX_M4F_CYCLES.add,
+    mul: CORTEX_M4F_CYCLES.mul,
+    div: CORTEX_M4F_CYCLES.div,
+    tableRead: CORTEX_M4F_TABLE_READ_CYCLES,
+    intOp: CORTEX_M4F_CYCLES.intOp,
+  },
+  'x86-64': X86_64_LATENCY,
 };
 
 export function costOn(program: Program, target: CostTarget): number {

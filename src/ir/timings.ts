@@ -1,0 +1,68 @@
+/**
+ * Per-instruction timings of the two targets rootcast prices programs for:
+ * the one table that the planner's cost model (src/plan/cost.ts) and the
+ * header's cycle estimate (src/emit/cycles.ts) both read, so the two cannot
+ * drift apart.
+ *
+ * Cortex-M4F: cycle counts from the FPU instruction timing table of the ARM
+ * Cortex-M4 Technical Reference Manual (r0p1, section 7.2.3 "FPU instruction
+ * set", and the processor instruction timings of section 3.3). The values
+ * are quoted FROM MEMORY of that table, not re-checked against the document,
+ * and no Cortex-M4 board or cycle-accurate simulator was available to
+ * measure them:
+ *
+ *   instruction            cycles   field
+ *   VADD.F32, VSUB.F32     1        add
+ *   VMUL.F32               1        mul
+ *   VNEG.F32               1        neg
+ *   VDIV.F32               14       div
+ *   VLDR.F32 (single)      2        vldr
+ *   VMOV core <- single    1        vmovToCore
+ *   integer ALU op         1        intOp (TRM 3.3, data processing)
+ *   LDR (literal)          2        ldrLiteral
+ *
+ * x86-64: scalar SSE latencies of a recent core (addsd/mulsd 4, divsd 11-14,
+ * an L1 load 5), from memory of Agner Fog's instruction tables, not measured
+ * here. Latency, not throughput, is the right measure for Horner's rule,
+ * which is one dependency chain.
+ */
+
+/** Cortex-M4F cycles per instruction (Cortex-M4 TRM; from memory, see above). */
+export const CORTEX_M4F_CYCLES = {
+  /** VADD.F32 and VSUB.F32. */
+  add: 1,
+  /** VMUL.F32. */
+  mul: 1,
+  /** VNEG.F32 (often folded into the next VSUB/VADD by the compiler). */
+  neg: 1,
+  /** VDIV.F32. */
+  div: 14,
+  /** VLDR.F32 of one single-precision value: a literal-pool constant or a table entry. */
+  vldr: 2,
+  /** VMOV of a single-precision register's bits to a core register. */
+  vmovToCore: 1,
+  /** One integer data-processing instruction (ADD, AND, shifts, ...). */
+  intOp: 1,
+  /** LDR from the literal pool (a table's base address). */
+  ldrLiteral: 2,
+} as const;
+
+/**
+ * One table read on the Cortex-M4F: the address computation (ADD with a
+ * shifted register; VLDR has no register offset) and the VLDR.
+ */
+export const CORTEX_M4F_TABLE_READ_CYCLES = CORTEX_M4F_CYCLES.intOp + CORTEX_M4F_CYCLES.vldr;
+
+/** x86-64 scalar SSE latencies in cycles (Agner Fog's tables; from memory, see above). */
+export const X86_64_LATENCY = {
+  /** addsd, subsd. */
+  add: 4,
+  /** mulsd. */
+  mul: 4,
+  /** divsd (11 to 14 by core; the low end). */
+  div: 11,
+  /** A load that hits L1 (a table read). */
+  tableRead: 5,
+  /** One integer ALU instruction. */
+  intOp: 1,
+} as const;
