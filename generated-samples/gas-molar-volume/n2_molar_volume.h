@@ -12,17 +12,20 @@
  *             Rg = 0.0831446
  * inputs:     P in [35, 37]
  *             T in [295, 305]
- * root:       the root in [0.3, 1.5], 4 x 1 segments, each recentred at its
- *             own root (at the segment centre)
+ * root:       the root in [0.3, 1.5], series recentred at V0 =
+ *             0.6786974593654649 (the root at the box centre P = 36, T = 300);
+ *             then 1 Newton step (the truncation bound below is the Newton
+ *             error term left after the last step, carried from the series
+ *             bound)
  * arithmetic: float64 (IEEE 754 binary64, every operation rounded to nearest)
  *
  * certified bound (relative error, over the whole input box):
- *   truncation  7.5e-6
- *   rounding    5.6e-16
- *   total       7.5e-6
+ *   truncation  2.8e-6
+ *   rounding    1.1e-15
+ *   total       2.8e-6
  * target:     1e-5 (relative)
- * series:     order 3, 6 terms
- * operations: 13 add, 18 mul, 1 div, 7 table reads
+ * series:     order 2, 4 terms, then 1 Newton step
+ * operations: 15 add, 22 mul, 2 div, 0 table reads
  * cortex-m4f estimate: software double: not estimated (FPv4-SP has no double unit)
  */
 
@@ -31,73 +34,47 @@
 
 static inline double n2_molar_volume(double P, double T)
 {
-    const double v4 = P - 35.25;
-    const double v5 = v4 * 2.0;
-    union { double f; uint64_t u; } rc_s6_0b = { v5 + 6755399441055744.0 };
-    const int32_t rc_s6_0r = (int32_t)(uint32_t)(rc_s6_0b.u & 0xffffffffu);
-    const int32_t rc_s6_0p = rc_s6_0r & ~(rc_s6_0r >> 31);
-    const int32_t rc_s6_0d = rc_s6_0p - 3;
-    const int32_t rc_s6_0 = rc_s6_0p - (rc_s6_0d & ~(rc_s6_0d >> 31));
-    const int32_t v6 = rc_s6_0;
-    static const double rc_tab7[4] = {
-        1.3887047175054925, 1.348720665727484, 1.3104034997388296, 1.2736624932945522,
-    };
-    const double v7 = rc_tab7[v6];
-    const double v8 = P * v7;
-    static const double rc_tab9[4] = {
-        -0.11530343240713677, -0.11366308264236581, -0.11206815040931953, -0.11051678270375746,
-    };
-    const double v9 = rc_tab9[v6];
-    const double v10 = T * v9;
-    const double v11 = v8 + v10;
-    const double v13 = v11 + 1.37;
-    const double v15 = 1.0 / v13;
-    static const double rc_tab16[4] = {
-        0.31476957326606, 0.3012684695693857, 0.28851666091304196, 0.27646325785072057,
-    };
-    const double v16 = rc_tab16[v6];
-    const double v17 = P * v16;
-    static const double rc_tab18[4] = {
-        -0.03997518036308779, -0.03884586718730164, -0.03776333741507525, -0.03672505267687121,
-    };
-    const double v18 = rc_tab18[v6];
-    const double v19 = T * v18;
-    const double v20 = v17 + v19;
-    static const double rc_tab21[4] = {
-        0.8969266512977233, 0.8834123690849506, 0.8702722664248054, 0.8574910770473833,
-    };
-    const double v21 = rc_tab21[v6];
-    const double v22 = v20 + v21;
-    const double v23 = v15 * v22;
-    static const double rc_tab24[4] = {
-        2.0414729590461094, 2.0118796403320083, 1.9831056929010338, 1.9551176869650728,
-    };
-    const double v24 = rc_tab24[v6];
-    const double v25 = P * v24;
-    const double v27 = T * 0.0831446;
-    const double v28 = v25 - v27;
-    const double v29 = v15 * v28;
-    const double v30 = P * v15;
-    const double v31 = v23 * v29;
-    const double v32 = v23 * v23;
-    const double v33 = v30 * v32;
-    const double v35 = v31 * 5.0;
-    const double v36 = v35 + 2.0;
-    const double v37 = v31 * v36;
-    const double v39 = v33 * (-5.0);
-    const double v40 = v39 + 1.0;
-    const double v41 = v37 + v40;
-    const double v42 = v31 * v41;
-    const double v43 = -v33;
-    const double v44 = v43 + 1.0;
-    const double v45 = v42 + v44;
-    const double v46 = v23 * v45;
-    static const double rc_tab47[4] = {
-        0.6933909863487031, 0.6835265467773362, 0.6739352309670112, 0.6646058956550243,
-    };
-    const double v47 = rc_tab47[v6];
-    const double v48 = v47 - v46;
-    return v48;
+    const double v3 = P * 1.3293595406925236;
+    const double v5 = T * 0.11286005755991567;
+    const double v6 = v3 - v5;
+    const double v8 = v6 + 1.37;
+    const double v10 = 1.0 / v8;
+    const double v12 = P * 0.2948021841703485;
+    const double v14 = T * 0.03829891716487745;
+    const double v15 = v12 - v14;
+    const double v17 = v15 + 0.8767965193306869;
+    const double v18 = v10 * v17;
+    const double v20 = P * 1.9973923780963947;
+    const double v22 = T * 0.0831446;
+    const double v23 = v20 - v22;
+    const double v24 = v10 * v23;
+    const double v25 = P * v10;
+    const double v26 = v18 * v24;
+    const double v27 = v18 * v18;
+    const double v28 = v25 * v27;
+    const double v30 = v26 * 2.0;
+    const double v31 = v30 + 1.0;
+    const double v32 = v26 * v31;
+    const double v33 = -v28;
+    const double v34 = v33 + 1.0;
+    const double v35 = v32 + v34;
+    const double v36 = v18 * v35;
+    const double v37 = v24 * 2.0;
+    const double v39 = v25 * 3.0;
+    const double v40 = v25 * v36;
+    const double v41 = v40 - v24;
+    const double v42 = v36 * v41;
+    const double v43 = v42 + 1.0;
+    const double v44 = v36 * v43;
+    const double v45 = v44 - v18;
+    const double v46 = v36 * v39;
+    const double v47 = v46 - v37;
+    const double v48 = v36 * v47;
+    const double v49 = v48 + 1.0;
+    const double v50 = v45 / v49;
+    const double v51 = v36 - v50;
+    const double v53 = 0.6786974593654649 - v51;
+    return v53;
 }
 
 // rc_out[i] = n2_molar_volume(each input[i]) for i < rc_n; the arrays must not overlap.

@@ -9,42 +9,22 @@
  *             Rg = 0.0831446
  * inputs:     P in [35, 37]
  *             T in [295, 305]
- * root:       the root in [0.3, 1.5], 4 x 1 segments, each recentred at its
- *             own root (at the segment centre)
+ * root:       the root in [0.3, 1.5], series recentred at V0 =
+ *             0.6786974593654649 (the root at the box centre P = 36, T = 300);
+ *             then 1 Newton step (the truncation bound below is the Newton
+ *             error term left after the last step, carried from the series
+ *             bound)
  * arithmetic: float64 (IEEE 754 binary64, every operation rounded to nearest)
  *
  * certified bound (relative error, over the whole input box):
- *   truncation  7.5e-6
- *   rounding    5.6e-16
- *   total       7.5e-6
+ *   truncation  2.8e-6
+ *   rounding    1.1e-15
+ *   total       2.8e-6
  * target:     1e-5 (relative)
- * series:     order 3, 6 terms
- * operations: 13 add, 18 mul, 1 div, 7 table reads
+ * series:     order 2, 4 terms, then 1 Newton step
+ * operations: 15 add, 22 mul, 2 div, 0 table reads
  * cortex-m4f estimate: software double: not estimated (FPv4-SP has no double unit)
  */
-
-const rc_f64 = new DataView(new ArrayBuffer(8));
-const rc_tab7: readonly number[] = [
-  1.3887047175054925, 1.348720665727484, 1.3104034997388296, 1.2736624932945522,
-];
-const rc_tab9: readonly number[] = [
-  -0.11530343240713677, -0.11366308264236581, -0.11206815040931953, -0.11051678270375746,
-];
-const rc_tab16: readonly number[] = [
-  0.31476957326606, 0.3012684695693857, 0.28851666091304196, 0.27646325785072057,
-];
-const rc_tab18: readonly number[] = [
-  -0.03997518036308779, -0.03884586718730164, -0.03776333741507525, -0.03672505267687121,
-];
-const rc_tab21: readonly number[] = [
-  0.8969266512977233, 0.8834123690849506, 0.8702722664248054, 0.8574910770473833,
-];
-const rc_tab24: readonly number[] = [
-  2.0414729590461094, 2.0118796403320083, 1.9831056929010338, 1.9551176869650728,
-];
-const rc_tab47: readonly number[] = [
-  0.6933909863487031, 0.6835265467773362, 0.6739352309670112, 0.6646058956550243,
-];
 
 /**
  * Returns the root V of the equation in the header comment.
@@ -55,52 +35,47 @@ const rc_tab47: readonly number[] = [
  * @param T in [295, 305]
  */
 export function n2_molar_volume(P: number, T: number): number {
-  const v4 = P - 35.25;
-  const v5 = v4 * 2;
-  rc_f64.setFloat64(0, v5 + 6755399441055744, true);
-  const rc_s6_0r = rc_f64.getInt32(0, true);
-  const rc_s6_0p = rc_s6_0r & ~(rc_s6_0r >> 31);
-  const rc_s6_0d = rc_s6_0p - 3;
-  const rc_s6_0 = rc_s6_0p - (rc_s6_0d & ~(rc_s6_0d >> 31));
-  const v6 = rc_s6_0;
-  const v7 = rc_tab7[v6]!;
-  const v8 = P * v7;
-  const v9 = rc_tab9[v6]!;
-  const v10 = T * v9;
-  const v11 = v8 + v10;
-  const v13 = v11 + 1.37;
-  const v15 = 1 / v13;
-  const v16 = rc_tab16[v6]!;
-  const v17 = P * v16;
-  const v18 = rc_tab18[v6]!;
-  const v19 = T * v18;
-  const v20 = v17 + v19;
-  const v21 = rc_tab21[v6]!;
-  const v22 = v20 + v21;
-  const v23 = v15 * v22;
-  const v24 = rc_tab24[v6]!;
-  const v25 = P * v24;
-  const v27 = T * 0.0831446;
-  const v28 = v25 - v27;
-  const v29 = v15 * v28;
-  const v30 = P * v15;
-  const v31 = v23 * v29;
-  const v32 = v23 * v23;
-  const v33 = v30 * v32;
-  const v35 = v31 * 5;
-  const v36 = v35 + 2;
-  const v37 = v31 * v36;
-  const v39 = v33 * (-5);
-  const v40 = v39 + 1;
-  const v41 = v37 + v40;
-  const v42 = v31 * v41;
-  const v43 = -v33;
-  const v44 = v43 + 1;
-  const v45 = v42 + v44;
-  const v46 = v23 * v45;
-  const v47 = rc_tab47[v6]!;
-  const v48 = v47 - v46;
-  return v48;
+  const v3 = P * 1.3293595406925236;
+  const v5 = T * 0.11286005755991567;
+  const v6 = v3 - v5;
+  const v8 = v6 + 1.37;
+  const v10 = 1 / v8;
+  const v12 = P * 0.2948021841703485;
+  const v14 = T * 0.03829891716487745;
+  const v15 = v12 - v14;
+  const v17 = v15 + 0.8767965193306869;
+  const v18 = v10 * v17;
+  const v20 = P * 1.9973923780963947;
+  const v22 = T * 0.0831446;
+  const v23 = v20 - v22;
+  const v24 = v10 * v23;
+  const v25 = P * v10;
+  const v26 = v18 * v24;
+  const v27 = v18 * v18;
+  const v28 = v25 * v27;
+  const v30 = v26 * 2;
+  const v31 = v30 + 1;
+  const v32 = v26 * v31;
+  const v33 = -v28;
+  const v34 = v33 + 1;
+  const v35 = v32 + v34;
+  const v36 = v18 * v35;
+  const v37 = v24 * 2;
+  const v39 = v25 * 3;
+  const v40 = v25 * v36;
+  const v41 = v40 - v24;
+  const v42 = v36 * v41;
+  const v43 = v42 + 1;
+  const v44 = v36 * v43;
+  const v45 = v44 - v18;
+  const v46 = v36 * v39;
+  const v47 = v46 - v37;
+  const v48 = v36 * v47;
+  const v49 = v48 + 1;
+  const v50 = v45 / v49;
+  const v51 = v36 - v50;
+  const v53 = 0.6786974593654649 - v51;
+  return v53;
 }
 
 /**

@@ -10,17 +10,19 @@
  * inputs:     P in [40, 80]
  *             T in [250, 350]
  * root:       the root in [0.2, 1.2], 16 x 8 segments, each recentred at its
- *             own root (at the segment centre)
+ *             own root (at the segment centre); then 1 Newton step (the
+ *             truncation bound below is the Newton error term left after the
+ *             last step, carried from the series bound)
  * arithmetic: float32 (IEEE 754 binary32, every operation rounded to nearest)
  *
  * certified bound (relative error, over the whole input box):
- *   truncation  6.8e-5
- *   rounding    7.2e-7
- *   total       6.9e-5
+ *   truncation  3.6e-5
+ *   rounding    1.2e-6
+ *   total       3.7e-5
  * target:     1e-4 (relative)
- * series:     order 11, 42 terms
- * operations: 51 add, 56 mul, 1 div, 7 table reads
- * cortex-m4f estimate: ~266 cycles (106 FPU ops + 47 constant loads + 7 table reads + 1 segment index; Cortex-M4 TRM FPU timings, see src/emit/cycles.ts)
+ * series:     order 3, 6 terms, then 1 Newton step
+ * operations: 21 add, 26 mul, 2 div, 7 table reads
+ * cortex-m4f estimate: ~149 cycles (48 FPU ops + 11 constant loads + 7 table reads + 1 segment index; Cortex-M4 TRM FPU timings, see src/emit/cycles.ts)
  *
  * Include: after your own #version line (300 es or 330 core) and, in
  * GLSL ES, a `precision highp float;`; the snippet has neither, so the
@@ -33,7 +35,7 @@
  *   the bound holds on IEEE-conforming highp implementations only.
  *   SwiftShader (Chromium WebGL2) was measured bit-exact against the C
  *   and TypeScript functions: rootcast verify --target glsl runs it.
- * - this function divides once; GLSL lets a division be less
+ * - this function divides 2 times; GLSL lets a division be less
  *   accurate than correctly rounded, and the bound assumes it is not.
  * - a fused multiply-add made by the shader compiler removes a rounding
  *   and stays within the bound; reordering the operations would not.
@@ -283,90 +285,32 @@ float n2_molar_volume_wide(float P, float T)
     float v35 = v27 * v33;
     float v36 = v27 * v27;
     float v37 = v34 * v36;
-    float v39 = v35 * 58786.0;
-    float v41 = v39 + 16796.0;
+    float v39 = v35 * 5.0;
+    float v41 = v39 + 2.0;
     float v42 = v35 * v41;
-    float v44 = v37 * (-293930.0);
-    float v46 = v44 + 4862.0;
-    float v47 = v42 + v46;
-    float v48 = v35 * v47;
-    float v50 = v37 * (-75582.0);
-    float v52 = v50 + 1430.0;
-    float v53 = v48 + v52;
-    float v54 = v35 * v53;
-    float v56 = v37 * 503880.0;
-    float v58 = v56 + (-19448.0);
-    float v59 = v37 * v58;
-    float v61 = v59 + 429.0;
-    float v62 = v54 + v61;
-    float v63 = v35 * v62;
-    float v65 = v37 * 111384.0;
-    float v67 = v65 + (-5005.0);
-    float v68 = v37 * v67;
-    float v70 = v68 + 132.0;
-    float v71 = v63 + v70;
-    float v72 = v35 * v71;
-    float v74 = v37 * (-352716.0);
-    float v76 = v74 + 24024.0;
-    float v77 = v37 * v76;
-    float v79 = v77 + (-1287.0);
-    float v80 = v37 * v79;
-    float v82 = v80 + 42.0;
-    float v83 = v72 + v82;
-    float v84 = v35 * v83;
-    float v86 = v37 * (-61880.0);
-    float v88 = v86 + 5005.0;
-    float v89 = v37 * v88;
-    float v91 = v89 + (-330.0);
-    float v92 = v37 * v91;
-    float v94 = v92 + 14.0;
-    float v95 = v84 + v94;
-    float v96 = v35 * v95;
-    float v98 = v37 * 92820.0;
-    float v100 = v98 + (-10010.0);
-    float v101 = v37 * v100;
-    float v103 = v101 + 990.0;
-    float v104 = v37 * v103;
-    float v106 = v104 + (-84.0);
-    float v107 = v37 * v106;
-    float v109 = v107 + 5.0;
-    float v110 = v96 + v109;
-    float v111 = v35 * v110;
-    float v113 = v37 * 10920.0;
-    float v115 = v113 + (-1430.0);
-    float v116 = v37 * v115;
-    float v118 = v116 + 180.0;
-    float v119 = v37 * v118;
-    float v121 = v119 + (-21.0);
-    float v122 = v37 * v121;
-    float v124 = v122 + 2.0;
-    float v125 = v111 + v124;
-    float v126 = v35 * v125;
-    float v128 = v37 * (-6188.0);
-    float v130 = v128 + 1001.0;
-    float v131 = v37 * v130;
-    float v133 = v131 + (-165.0);
-    float v134 = v37 * v133;
-    float v136 = v134 + 28.0;
-    float v137 = v37 * v136;
-    float v139 = v137 + (-5.0);
-    float v140 = v37 * v139;
-    float v141 = v140 + 1.0;
-    float v142 = v126 + v141;
-    float v143 = v35 * v142;
-    float v145 = v37 * (-273.0);
-    float v147 = v145 + 55.0;
-    float v148 = v37 * v147;
-    float v150 = v148 + (-12.0);
-    float v151 = v37 * v150;
-    float v153 = v151 + 3.0;
-    float v154 = v37 * v153;
-    float v156 = v154 + (-1.0);
-    float v157 = v37 * v156;
-    float v158 = v157 + 1.0;
-    float v159 = v143 + v158;
-    float v160 = v27 * v159;
-    const float rc_tab161[128] = float[128](
+    float v44 = v37 * (-5.0);
+    float v45 = v44 + 1.0;
+    float v46 = v42 + v45;
+    float v47 = v35 * v46;
+    float v48 = -v37;
+    float v49 = v48 + 1.0;
+    float v50 = v47 + v49;
+    float v51 = v27 * v50;
+    float v52 = v33 * 2.0;
+    float v54 = v34 * 3.0;
+    float v55 = v34 * v51;
+    float v56 = v55 - v33;
+    float v57 = v51 * v56;
+    float v58 = v57 + 1.0;
+    float v59 = v51 * v58;
+    float v60 = v59 - v27;
+    float v61 = v51 * v54;
+    float v62 = v61 - v52;
+    float v63 = v51 * v62;
+    float v64 = v63 + 1.0;
+    float v65 = v60 / v64;
+    float v66 = v51 - v65;
+    const float rc_tab67[128] = float[128](
         0.4931415, 0.521433, 0.54940176, 0.57709956,
         0.6045668, 0.6318361, 0.65893376, 0.6858813,
         0.4638076, 0.49065822, 0.517184, 0.5434375,
@@ -400,9 +344,9 @@ float n2_molar_volume_wide(float P, float T)
         0.2505379, 0.2666792, 0.28249937, 0.29805303,
         0.31338242, 0.3285208, 0.3434948, 0.35832605
     );
-    float v161 = rc_tab161[v10];
-    float v162 = v161 - v160;
-    return v162;
+    float v67 = rc_tab67[v10];
+    float v68 = v67 - v66;
+    return v68;
 }
 
 /* The same operations on four inputs at once, component by component. */
@@ -643,90 +587,32 @@ vec4 n2_molar_volume_wide(vec4 P, vec4 T)
     vec4 v35 = v27 * v33;
     vec4 v36 = v27 * v27;
     vec4 v37 = v34 * v36;
-    vec4 v39 = v35 * 58786.0;
-    vec4 v41 = v39 + 16796.0;
+    vec4 v39 = v35 * 5.0;
+    vec4 v41 = v39 + 2.0;
     vec4 v42 = v35 * v41;
-    vec4 v44 = v37 * (-293930.0);
-    vec4 v46 = v44 + 4862.0;
-    vec4 v47 = v42 + v46;
-    vec4 v48 = v35 * v47;
-    vec4 v50 = v37 * (-75582.0);
-    vec4 v52 = v50 + 1430.0;
-    vec4 v53 = v48 + v52;
-    vec4 v54 = v35 * v53;
-    vec4 v56 = v37 * 503880.0;
-    vec4 v58 = v56 + (-19448.0);
-    vec4 v59 = v37 * v58;
-    vec4 v61 = v59 + 429.0;
-    vec4 v62 = v54 + v61;
-    vec4 v63 = v35 * v62;
-    vec4 v65 = v37 * 111384.0;
-    vec4 v67 = v65 + (-5005.0);
-    vec4 v68 = v37 * v67;
-    vec4 v70 = v68 + 132.0;
-    vec4 v71 = v63 + v70;
-    vec4 v72 = v35 * v71;
-    vec4 v74 = v37 * (-352716.0);
-    vec4 v76 = v74 + 24024.0;
-    vec4 v77 = v37 * v76;
-    vec4 v79 = v77 + (-1287.0);
-    vec4 v80 = v37 * v79;
-    vec4 v82 = v80 + 42.0;
-    vec4 v83 = v72 + v82;
-    vec4 v84 = v35 * v83;
-    vec4 v86 = v37 * (-61880.0);
-    vec4 v88 = v86 + 5005.0;
-    vec4 v89 = v37 * v88;
-    vec4 v91 = v89 + (-330.0);
-    vec4 v92 = v37 * v91;
-    vec4 v94 = v92 + 14.0;
-    vec4 v95 = v84 + v94;
-    vec4 v96 = v35 * v95;
-    vec4 v98 = v37 * 92820.0;
-    vec4 v100 = v98 + (-10010.0);
-    vec4 v101 = v37 * v100;
-    vec4 v103 = v101 + 990.0;
-    vec4 v104 = v37 * v103;
-    vec4 v106 = v104 + (-84.0);
-    vec4 v107 = v37 * v106;
-    vec4 v109 = v107 + 5.0;
-    vec4 v110 = v96 + v109;
-    vec4 v111 = v35 * v110;
-    vec4 v113 = v37 * 10920.0;
-    vec4 v115 = v113 + (-1430.0);
-    vec4 v116 = v37 * v115;
-    vec4 v118 = v116 + 180.0;
-    vec4 v119 = v37 * v118;
-    vec4 v121 = v119 + (-21.0);
-    vec4 v122 = v37 * v121;
-    vec4 v124 = v122 + 2.0;
-    vec4 v125 = v111 + v124;
-    vec4 v126 = v35 * v125;
-    vec4 v128 = v37 * (-6188.0);
-    vec4 v130 = v128 + 1001.0;
-    vec4 v131 = v37 * v130;
-    vec4 v133 = v131 + (-165.0);
-    vec4 v134 = v37 * v133;
-    vec4 v136 = v134 + 28.0;
-    vec4 v137 = v37 * v136;
-    vec4 v139 = v137 + (-5.0);
-    vec4 v140 = v37 * v139;
-    vec4 v141 = v140 + 1.0;
-    vec4 v142 = v126 + v141;
-    vec4 v143 = v35 * v142;
-    vec4 v145 = v37 * (-273.0);
-    vec4 v147 = v145 + 55.0;
-    vec4 v148 = v37 * v147;
-    vec4 v150 = v148 + (-12.0);
-    vec4 v151 = v37 * v150;
-    vec4 v153 = v151 + 3.0;
-    vec4 v154 = v37 * v153;
-    vec4 v156 = v154 + (-1.0);
-    vec4 v157 = v37 * v156;
-    vec4 v158 = v157 + 1.0;
-    vec4 v159 = v143 + v158;
-    vec4 v160 = v27 * v159;
-    const float rc_tab161[128] = float[128](
+    vec4 v44 = v37 * (-5.0);
+    vec4 v45 = v44 + 1.0;
+    vec4 v46 = v42 + v45;
+    vec4 v47 = v35 * v46;
+    vec4 v48 = -v37;
+    vec4 v49 = v48 + 1.0;
+    vec4 v50 = v47 + v49;
+    vec4 v51 = v27 * v50;
+    vec4 v52 = v33 * 2.0;
+    vec4 v54 = v34 * 3.0;
+    vec4 v55 = v34 * v51;
+    vec4 v56 = v55 - v33;
+    vec4 v57 = v51 * v56;
+    vec4 v58 = v57 + 1.0;
+    vec4 v59 = v51 * v58;
+    vec4 v60 = v59 - v27;
+    vec4 v61 = v51 * v54;
+    vec4 v62 = v61 - v52;
+    vec4 v63 = v51 * v62;
+    vec4 v64 = v63 + 1.0;
+    vec4 v65 = v60 / v64;
+    vec4 v66 = v51 - v65;
+    const float rc_tab67[128] = float[128](
         0.4931415, 0.521433, 0.54940176, 0.57709956,
         0.6045668, 0.6318361, 0.65893376, 0.6858813,
         0.4638076, 0.49065822, 0.517184, 0.5434375,
@@ -760,9 +646,9 @@ vec4 n2_molar_volume_wide(vec4 P, vec4 T)
         0.2505379, 0.2666792, 0.28249937, 0.29805303,
         0.31338242, 0.3285208, 0.3434948, 0.35832605
     );
-    vec4 v161 = vec4(rc_tab161[v10.x], rc_tab161[v10.y], rc_tab161[v10.z], rc_tab161[v10.w]);
-    vec4 v162 = v161 - v160;
-    return v162;
+    vec4 v67 = vec4(rc_tab67[v10.x], rc_tab67[v10.y], rc_tab67[v10.z], rc_tab67[v10.w]);
+    vec4 v68 = v67 - v66;
+    return v68;
 }
 
 #endif

@@ -13,17 +13,19 @@
  * inputs:     P in [40, 80]
  *             T in [250, 350]
  * root:       the root in [0.2, 1.2], 16 x 8 segments, each recentred at its
- *             own root (at the segment centre)
+ *             own root (at the segment centre); then 1 Newton step (the
+ *             truncation bound below is the Newton error term left after the
+ *             last step, carried from the series bound)
  * arithmetic: float32 (IEEE 754 binary32, every operation rounded to nearest)
  *
  * certified bound (relative error, over the whole input box):
- *   truncation  6.8e-5
- *   rounding    7.2e-7
- *   total       6.9e-5
+ *   truncation  3.6e-5
+ *   rounding    1.2e-6
+ *   total       3.7e-5
  * target:     1e-4 (relative)
- * series:     order 11, 42 terms
- * operations: 51 add, 56 mul, 1 div, 7 table reads
- * cortex-m4f estimate: ~266 cycles (106 FPU ops + 47 constant loads + 7 table reads + 1 segment index; Cortex-M4 TRM FPU timings, see src/emit/cycles.ts)
+ * series:     order 3, 6 terms, then 1 Newton step
+ * operations: 21 add, 26 mul, 2 div, 7 table reads
+ * cortex-m4f estimate: ~149 cycles (48 FPU ops + 11 constant loads + 7 table reads + 1 segment index; Cortex-M4 TRM FPU timings, see src/emit/cycles.ts)
  */
 
 #include <stddef.h>
@@ -274,90 +276,32 @@ static inline float n2_molar_volume_wide(float P, float T)
     const float v35 = v27 * v33;
     const float v36 = v27 * v27;
     const float v37 = v34 * v36;
-    const float v39 = v35 * 58786.0f;
-    const float v41 = v39 + 16796.0f;
+    const float v39 = v35 * 5.0f;
+    const float v41 = v39 + 2.0f;
     const float v42 = v35 * v41;
-    const float v44 = v37 * (-293930.0f);
-    const float v46 = v44 + 4862.0f;
-    const float v47 = v42 + v46;
-    const float v48 = v35 * v47;
-    const float v50 = v37 * (-75582.0f);
-    const float v52 = v50 + 1430.0f;
-    const float v53 = v48 + v52;
-    const float v54 = v35 * v53;
-    const float v56 = v37 * 503880.0f;
-    const float v58 = v56 + (-19448.0f);
-    const float v59 = v37 * v58;
-    const float v61 = v59 + 429.0f;
-    const float v62 = v54 + v61;
-    const float v63 = v35 * v62;
-    const float v65 = v37 * 111384.0f;
-    const float v67 = v65 + (-5005.0f);
-    const float v68 = v37 * v67;
-    const float v70 = v68 + 132.0f;
-    const float v71 = v63 + v70;
-    const float v72 = v35 * v71;
-    const float v74 = v37 * (-352716.0f);
-    const float v76 = v74 + 24024.0f;
-    const float v77 = v37 * v76;
-    const float v79 = v77 + (-1287.0f);
-    const float v80 = v37 * v79;
-    const float v82 = v80 + 42.0f;
-    const float v83 = v72 + v82;
-    const float v84 = v35 * v83;
-    const float v86 = v37 * (-61880.0f);
-    const float v88 = v86 + 5005.0f;
-    const float v89 = v37 * v88;
-    const float v91 = v89 + (-330.0f);
-    const float v92 = v37 * v91;
-    const float v94 = v92 + 14.0f;
-    const float v95 = v84 + v94;
-    const float v96 = v35 * v95;
-    const float v98 = v37 * 92820.0f;
-    const float v100 = v98 + (-10010.0f);
-    const float v101 = v37 * v100;
-    const float v103 = v101 + 990.0f;
-    const float v104 = v37 * v103;
-    const float v106 = v104 + (-84.0f);
-    const float v107 = v37 * v106;
-    const float v109 = v107 + 5.0f;
-    const float v110 = v96 + v109;
-    const float v111 = v35 * v110;
-    const float v113 = v37 * 10920.0f;
-    const float v115 = v113 + (-1430.0f);
-    const float v116 = v37 * v115;
-    const float v118 = v116 + 180.0f;
-    const float v119 = v37 * v118;
-    const float v121 = v119 + (-21.0f);
-    const float v122 = v37 * v121;
-    const float v124 = v122 + 2.0f;
-    const float v125 = v111 + v124;
-    const float v126 = v35 * v125;
-    const float v128 = v37 * (-6188.0f);
-    const float v130 = v128 + 1001.0f;
-    const float v131 = v37 * v130;
-    const float v133 = v131 + (-165.0f);
-    const float v134 = v37 * v133;
-    const float v136 = v134 + 28.0f;
-    const float v137 = v37 * v136;
-    const float v139 = v137 + (-5.0f);
-    const float v140 = v37 * v139;
-    const float v141 = v140 + 1.0f;
-    const float v142 = v126 + v141;
-    const float v143 = v35 * v142;
-    const float v145 = v37 * (-273.0f);
-    const float v147 = v145 + 55.0f;
-    const float v148 = v37 * v147;
-    const float v150 = v148 + (-12.0f);
-    const float v151 = v37 * v150;
-    const float v153 = v151 + 3.0f;
-    const float v154 = v37 * v153;
-    const float v156 = v154 + (-1.0f);
-    const float v157 = v37 * v156;
-    const float v158 = v157 + 1.0f;
-    const float v159 = v143 + v158;
-    const float v160 = v27 * v159;
-    static const float rc_tab161[128] = {
+    const float v44 = v37 * (-5.0f);
+    const float v45 = v44 + 1.0f;
+    const float v46 = v42 + v45;
+    const float v47 = v35 * v46;
+    const float v48 = -v37;
+    const float v49 = v48 + 1.0f;
+    const float v50 = v47 + v49;
+    const float v51 = v27 * v50;
+    const float v52 = v33 * 2.0f;
+    const float v54 = v34 * 3.0f;
+    const float v55 = v34 * v51;
+    const float v56 = v55 - v33;
+    const float v57 = v51 * v56;
+    const float v58 = v57 + 1.0f;
+    const float v59 = v51 * v58;
+    const float v60 = v59 - v27;
+    const float v61 = v51 * v54;
+    const float v62 = v61 - v52;
+    const float v63 = v51 * v62;
+    const float v64 = v63 + 1.0f;
+    const float v65 = v60 / v64;
+    const float v66 = v51 - v65;
+    static const float rc_tab67[128] = {
         0.4931415f, 0.521433f, 0.54940176f, 0.57709956f,
         0.6045668f, 0.6318361f, 0.65893376f, 0.6858813f,
         0.4638076f, 0.49065822f, 0.517184f, 0.5434375f,
@@ -391,9 +335,9 @@ static inline float n2_molar_volume_wide(float P, float T)
         0.2505379f, 0.2666792f, 0.28249937f, 0.29805303f,
         0.31338242f, 0.3285208f, 0.3434948f, 0.35832605f,
     };
-    const float v161 = rc_tab161[v10];
-    const float v162 = v161 - v160;
-    return v162;
+    const float v67 = rc_tab67[v10];
+    const float v68 = v67 - v66;
+    return v68;
 }
 
 // rc_out[i] = n2_molar_volume_wide(each input[i]) for i < rc_n; the arrays must not overlap.

@@ -10,17 +10,19 @@
  * inputs:     P in [40, 80]
  *             T in [250, 350]
  * root:       the root in [0.2, 1.2], 16 x 8 segments, each recentred at its
- *             own root (at the segment centre)
+ *             own root (at the segment centre); then 1 Newton step (the
+ *             truncation bound below is the Newton error term left after the
+ *             last step, carried from the series bound)
  * arithmetic: float32 (IEEE 754 binary32, every operation rounded to nearest)
  *
  * certified bound (relative error, over the whole input box):
- *   truncation  6.8e-5
- *   rounding    7.2e-7
- *   total       6.9e-5
+ *   truncation  3.6e-5
+ *   rounding    1.2e-6
+ *   total       3.7e-5
  * target:     1e-4 (relative)
- * series:     order 11, 42 terms
- * operations: 51 add, 56 mul, 1 div, 7 table reads
- * cortex-m4f estimate: ~266 cycles (106 FPU ops + 47 constant loads + 7 table reads + 1 segment index; Cortex-M4 TRM FPU timings, see src/emit/cycles.ts)
+ * series:     order 3, 6 terms, then 1 Newton step
+ * operations: 21 add, 26 mul, 2 div, 7 table reads
+ * cortex-m4f estimate: ~149 cycles (48 FPU ops + 11 constant loads + 7 table reads + 1 segment index; Cortex-M4 TRM FPU timings, see src/emit/cycles.ts)
  */
 
 const rc_f32 = new Float32Array(1);
@@ -229,7 +231,7 @@ const rc_tab28: readonly number[] = [
   0.7129136919975281, 0.7613375782966614, 0.8087981343269348, 0.8554590940475464,
   0.9014472365379333, 0.9468623995780945, 0.991784393787384, 1.0362781286239624,
 ];
-const rc_tab161: readonly number[] = [
+const rc_tab67: readonly number[] = [
   0.4931415021419525, 0.5214329957962036, 0.5494017601013184, 0.5770995616912842,
   0.6045668125152588, 0.6318361163139343, 0.6589337587356567, 0.6858813166618347,
   0.463807612657547, 0.4906582236289978, 0.5171840190887451, 0.5434374809265137,
@@ -314,92 +316,34 @@ export function n2_molar_volume_wide(P: number, T: number): number {
   const v35 = Math.fround(v27 * v33);
   const v36 = Math.fround(v27 * v27);
   const v37 = Math.fround(v34 * v36);
-  const v39 = Math.fround(v35 * 58786);
-  const v41 = Math.fround(v39 + 16796);
+  const v39 = Math.fround(v35 * 5);
+  const v41 = Math.fround(v39 + 2);
   const v42 = Math.fround(v35 * v41);
-  const v44 = Math.fround(v37 * (-293930));
-  const v46 = Math.fround(v44 + 4862);
-  const v47 = Math.fround(v42 + v46);
-  const v48 = Math.fround(v35 * v47);
-  const v50 = Math.fround(v37 * (-75582));
-  const v52 = Math.fround(v50 + 1430);
-  const v53 = Math.fround(v48 + v52);
-  const v54 = Math.fround(v35 * v53);
-  const v56 = Math.fround(v37 * 503880);
-  const v58 = Math.fround(v56 + (-19448));
-  const v59 = Math.fround(v37 * v58);
-  const v61 = Math.fround(v59 + 429);
-  const v62 = Math.fround(v54 + v61);
-  const v63 = Math.fround(v35 * v62);
-  const v65 = Math.fround(v37 * 111384);
-  const v67 = Math.fround(v65 + (-5005));
-  const v68 = Math.fround(v37 * v67);
-  const v70 = Math.fround(v68 + 132);
-  const v71 = Math.fround(v63 + v70);
-  const v72 = Math.fround(v35 * v71);
-  const v74 = Math.fround(v37 * (-352716));
-  const v76 = Math.fround(v74 + 24024);
-  const v77 = Math.fround(v37 * v76);
-  const v79 = Math.fround(v77 + (-1287));
-  const v80 = Math.fround(v37 * v79);
-  const v82 = Math.fround(v80 + 42);
-  const v83 = Math.fround(v72 + v82);
-  const v84 = Math.fround(v35 * v83);
-  const v86 = Math.fround(v37 * (-61880));
-  const v88 = Math.fround(v86 + 5005);
-  const v89 = Math.fround(v37 * v88);
-  const v91 = Math.fround(v89 + (-330));
-  const v92 = Math.fround(v37 * v91);
-  const v94 = Math.fround(v92 + 14);
-  const v95 = Math.fround(v84 + v94);
-  const v96 = Math.fround(v35 * v95);
-  const v98 = Math.fround(v37 * 92820);
-  const v100 = Math.fround(v98 + (-10010));
-  const v101 = Math.fround(v37 * v100);
-  const v103 = Math.fround(v101 + 990);
-  const v104 = Math.fround(v37 * v103);
-  const v106 = Math.fround(v104 + (-84));
-  const v107 = Math.fround(v37 * v106);
-  const v109 = Math.fround(v107 + 5);
-  const v110 = Math.fround(v96 + v109);
-  const v111 = Math.fround(v35 * v110);
-  const v113 = Math.fround(v37 * 10920);
-  const v115 = Math.fround(v113 + (-1430));
-  const v116 = Math.fround(v37 * v115);
-  const v118 = Math.fround(v116 + 180);
-  const v119 = Math.fround(v37 * v118);
-  const v121 = Math.fround(v119 + (-21));
-  const v122 = Math.fround(v37 * v121);
-  const v124 = Math.fround(v122 + 2);
-  const v125 = Math.fround(v111 + v124);
-  const v126 = Math.fround(v35 * v125);
-  const v128 = Math.fround(v37 * (-6188));
-  const v130 = Math.fround(v128 + 1001);
-  const v131 = Math.fround(v37 * v130);
-  const v133 = Math.fround(v131 + (-165));
-  const v134 = Math.fround(v37 * v133);
-  const v136 = Math.fround(v134 + 28);
-  const v137 = Math.fround(v37 * v136);
-  const v139 = Math.fround(v137 + (-5));
-  const v140 = Math.fround(v37 * v139);
-  const v141 = Math.fround(v140 + 1);
-  const v142 = Math.fround(v126 + v141);
-  const v143 = Math.fround(v35 * v142);
-  const v145 = Math.fround(v37 * (-273));
-  const v147 = Math.fround(v145 + 55);
-  const v148 = Math.fround(v37 * v147);
-  const v150 = Math.fround(v148 + (-12));
-  const v151 = Math.fround(v37 * v150);
-  const v153 = Math.fround(v151 + 3);
-  const v154 = Math.fround(v37 * v153);
-  const v156 = Math.fround(v154 + (-1));
-  const v157 = Math.fround(v37 * v156);
-  const v158 = Math.fround(v157 + 1);
-  const v159 = Math.fround(v143 + v158);
-  const v160 = Math.fround(v27 * v159);
-  const v161 = rc_tab161[v10]!;
-  const v162 = Math.fround(v161 - v160);
-  return v162;
+  const v44 = Math.fround(v37 * (-5));
+  const v45 = Math.fround(v44 + 1);
+  const v46 = Math.fround(v42 + v45);
+  const v47 = Math.fround(v35 * v46);
+  const v48 = -v37;
+  const v49 = Math.fround(v48 + 1);
+  const v50 = Math.fround(v47 + v49);
+  const v51 = Math.fround(v27 * v50);
+  const v52 = Math.fround(v33 * 2);
+  const v54 = Math.fround(v34 * 3);
+  const v55 = Math.fround(v34 * v51);
+  const v56 = Math.fround(v55 - v33);
+  const v57 = Math.fround(v51 * v56);
+  const v58 = Math.fround(v57 + 1);
+  const v59 = Math.fround(v51 * v58);
+  const v60 = Math.fround(v59 - v27);
+  const v61 = Math.fround(v51 * v54);
+  const v62 = Math.fround(v61 - v52);
+  const v63 = Math.fround(v51 * v62);
+  const v64 = Math.fround(v63 + 1);
+  const v65 = Math.fround(v60 / v64);
+  const v66 = Math.fround(v51 - v65);
+  const v67 = rc_tab67[v10]!;
+  const v68 = Math.fround(v67 - v66);
+  return v68;
 }
 
 /**

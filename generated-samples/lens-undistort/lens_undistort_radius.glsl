@@ -8,17 +8,19 @@
  * inputs:     rd in [0, 0.7]
  *             k1 in [-0.1, 0.1]
  *             k2 in [-0.02, 0.02]
- * root:       the root that tends to -c0/c1 (series about r = 0)
+ * root:       the root that tends to -c0/c1 (series about r = 0); then 1
+ *             Newton step (the truncation bound below is the Newton error term
+ *             left after the last step, carried from the series bound)
  * arithmetic: float32 (IEEE 754 binary32, every operation rounded to nearest)
  *
  * certified bound (absolute error, over the whole input box):
- *   truncation  9.6e-6
- *   rounding    1.5e-7
- *   total       9.8e-6
+ *   truncation  4.7e-6
+ *   rounding    2.3e-7
+ *   total       4.9e-6
  * target:     1e-5 (absolute)
- * series:     order 16, 25 terms
- * operations: 24 add, 29 mul, 0 div, 0 table reads
- * cortex-m4f estimate: ~101 cycles (55 FPU ops + 23 constant loads; Cortex-M4 TRM FPU timings, see src/emit/cycles.ts)
+ * series:     order 4, 4 terms, then 1 Newton step
+ * operations: 9 add, 18 mul, 1 div, 0 table reads
+ * cortex-m4f estimate: ~52 cycles (31 FPU ops + 4 constant loads; Cortex-M4 TRM FPU timings, see src/emit/cycles.ts)
  *
  * Include: after your own #version line (300 es or 330 core) and, in
  * GLSL ES, a `precision highp float;`; the snippet has neither, so the
@@ -31,6 +33,8 @@
  *   the bound holds on IEEE-conforming highp implementations only.
  *   SwiftShader (Chromium WebGL2) was measured bit-exact against the C
  *   and TypeScript functions: rootcast verify --target glsl runs it.
+ * - this function divides once; GLSL lets a division be less
+ *   accurate than correctly rounded, and the bound assumes it is not.
  * - a fused multiply-add made by the shader compiler removes a rounding
  *   and stays within the bound; reordering the operations would not.
  * - subnormals: the float32 bound allows 2^-126 per operation, per
@@ -47,57 +51,33 @@ float lens_undistort_radius(float rd, float k1, float k2)
     float v5 = k1 * v4;
     float v6 = v4 * v4;
     float v7 = k2 * v6;
-    float v9 = v5 * 43263.0;
-    float v11 = v9 + (-7752.0);
+    float v9 = v5 * 3.0;
+    float v11 = v9 + (-1.0);
     float v12 = v5 * v11;
-    float v14 = v7 * (-100947.0);
-    float v16 = v14 + 1428.0;
-    float v17 = v12 + v16;
-    float v18 = v5 * v17;
-    float v20 = v7 * 15504.0;
-    float v22 = v20 + (-273.0);
-    float v23 = v18 + v22;
-    float v24 = v5 * v23;
-    float v26 = v7 * 65835.0;
-    float v28 = v26 + (-2380.0);
-    float v29 = v7 * v28;
-    float v31 = v29 + 55.0;
-    float v32 = v24 + v31;
-    float v33 = v5 * v32;
-    float v34 = v7 * (-7752.0);
-    float v36 = v34 + 364.0;
-    float v37 = v7 * v36;
-    float v39 = v37 + (-12.0);
-    float v40 = v33 + v39;
-    float v41 = v5 * v40;
-    float v43 = v7 * (-11970.0);
-    float v45 = v43 + 840.0;
-    float v46 = v7 * v45;
-    float v48 = v46 + (-55.0);
-    float v49 = v7 * v48;
-    float v51 = v49 + 3.0;
-    float v52 = v41 + v51;
-    float v53 = v5 * v52;
-    float v55 = v7 * 816.0;
-    float v57 = v55 + (-78.0);
-    float v58 = v7 * v57;
-    float v60 = v58 + 8.0;
-    float v61 = v7 * v60;
-    float v63 = v61 + (-1.0);
-    float v64 = v53 + v63;
-    float v65 = v5 * v64;
-    float v67 = v7 * 285.0;
-    float v69 = v67 + (-35.0);
-    float v70 = v7 * v69;
-    float v72 = v70 + 5.0;
-    float v73 = v7 * v72;
-    float v74 = v73 + (-1.0);
-    float v75 = v7 * v74;
-    float v77 = v75 + 1.0;
-    float v78 = v65 + v77;
-    float v79 = v3 * v78;
-    float v80 = -v79;
-    return v80;
+    float v13 = -v7;
+    float v15 = v13 + 1.0;
+    float v16 = v12 + v15;
+    float v17 = v3 * v16;
+    float v18 = k1 * 3.0;
+    float v20 = k2 * 5.0;
+    float v21 = k2 * v17;
+    float v22 = v17 * v21;
+    float v23 = k1 + v22;
+    float v24 = v17 * v23;
+    float v25 = v17 * v24;
+    float v26 = v25 + 1.0;
+    float v27 = v17 * v26;
+    float v28 = v27 - v3;
+    float v29 = v17 * v20;
+    float v30 = v17 * v29;
+    float v31 = v18 + v30;
+    float v32 = v17 * v31;
+    float v33 = v17 * v32;
+    float v34 = v33 + 1.0;
+    float v35 = v28 / v34;
+    float v36 = v17 - v35;
+    float v37 = -v36;
+    return v37;
 }
 
 /* The same operations on four inputs at once, component by component. */
@@ -108,57 +88,33 @@ vec4 lens_undistort_radius(vec4 rd, vec4 k1, vec4 k2)
     vec4 v5 = k1 * v4;
     vec4 v6 = v4 * v4;
     vec4 v7 = k2 * v6;
-    vec4 v9 = v5 * 43263.0;
-    vec4 v11 = v9 + (-7752.0);
+    vec4 v9 = v5 * 3.0;
+    vec4 v11 = v9 + (-1.0);
     vec4 v12 = v5 * v11;
-    vec4 v14 = v7 * (-100947.0);
-    vec4 v16 = v14 + 1428.0;
-    vec4 v17 = v12 + v16;
-    vec4 v18 = v5 * v17;
-    vec4 v20 = v7 * 15504.0;
-    vec4 v22 = v20 + (-273.0);
-    vec4 v23 = v18 + v22;
-    vec4 v24 = v5 * v23;
-    vec4 v26 = v7 * 65835.0;
-    vec4 v28 = v26 + (-2380.0);
-    vec4 v29 = v7 * v28;
-    vec4 v31 = v29 + 55.0;
-    vec4 v32 = v24 + v31;
-    vec4 v33 = v5 * v32;
-    vec4 v34 = v7 * (-7752.0);
-    vec4 v36 = v34 + 364.0;
-    vec4 v37 = v7 * v36;
-    vec4 v39 = v37 + (-12.0);
-    vec4 v40 = v33 + v39;
-    vec4 v41 = v5 * v40;
-    vec4 v43 = v7 * (-11970.0);
-    vec4 v45 = v43 + 840.0;
-    vec4 v46 = v7 * v45;
-    vec4 v48 = v46 + (-55.0);
-    vec4 v49 = v7 * v48;
-    vec4 v51 = v49 + 3.0;
-    vec4 v52 = v41 + v51;
-    vec4 v53 = v5 * v52;
-    vec4 v55 = v7 * 816.0;
-    vec4 v57 = v55 + (-78.0);
-    vec4 v58 = v7 * v57;
-    vec4 v60 = v58 + 8.0;
-    vec4 v61 = v7 * v60;
-    vec4 v63 = v61 + (-1.0);
-    vec4 v64 = v53 + v63;
-    vec4 v65 = v5 * v64;
-    vec4 v67 = v7 * 285.0;
-    vec4 v69 = v67 + (-35.0);
-    vec4 v70 = v7 * v69;
-    vec4 v72 = v70 + 5.0;
-    vec4 v73 = v7 * v72;
-    vec4 v74 = v73 + (-1.0);
-    vec4 v75 = v7 * v74;
-    vec4 v77 = v75 + 1.0;
-    vec4 v78 = v65 + v77;
-    vec4 v79 = v3 * v78;
-    vec4 v80 = -v79;
-    return v80;
+    vec4 v13 = -v7;
+    vec4 v15 = v13 + 1.0;
+    vec4 v16 = v12 + v15;
+    vec4 v17 = v3 * v16;
+    vec4 v18 = k1 * 3.0;
+    vec4 v20 = k2 * 5.0;
+    vec4 v21 = k2 * v17;
+    vec4 v22 = v17 * v21;
+    vec4 v23 = k1 + v22;
+    vec4 v24 = v17 * v23;
+    vec4 v25 = v17 * v24;
+    vec4 v26 = v25 + 1.0;
+    vec4 v27 = v17 * v26;
+    vec4 v28 = v27 - v3;
+    vec4 v29 = v17 * v20;
+    vec4 v30 = v17 * v29;
+    vec4 v31 = v18 + v30;
+    vec4 v32 = v17 * v31;
+    vec4 v33 = v17 * v32;
+    vec4 v34 = v33 + 1.0;
+    vec4 v35 = v28 / v34;
+    vec4 v36 = v17 - v35;
+    vec4 v37 = -v36;
+    return v37;
 }
 
 #endif

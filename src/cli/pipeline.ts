@@ -20,7 +20,9 @@ export function claimsOf(plan: Plan): PlanClaims {
     rootNote:
       plan.form === 'economised'
         ? `${plan.root.note}; the series is collapsed to a polynomial in ${plan.family.inputs[0]!.name} and Chebyshev-economised to degree ${plan.degree} (the truncation bound below includes the economisation error)`
-        : plan.steps > 0
+        : plan.form === 'greedy'
+          ? `${plan.root.note}; the kept terms are chosen greedily, largest majorant contribution first, from every term up to grade ${plan.order + 2} (the truncation bound below is for exactly these terms)`
+          : plan.steps > 0
           ? `${plan.root.note}; then ${plan.steps} Newton step${plan.steps === 1 ? '' : 's'} (the truncation bound below is the Newton error term left after the last step, carried from the series bound)`
           : plan.root.note,
     bound: plan.bound,

@@ -21,7 +21,7 @@
  * Fused multiply-add contraction by a compiler only removes roundings, but the
  * bound is stated for the unfused program that the printers emit.
  */
-import { addUp, divUp, mulUp, subDown } from '../math/directed.js';
+import { addUp, divUp, mulUp, nextUp, subDown } from '../math/directed.js';
 import { iadd, idiv, imul, ineg, isub, mag, mig, containsZero, type Interval } from '../math/interval.js';
 import { Rational } from '../math/rational.js';
 import { UnknownNodeError, type Program } from './nodes.js';
@@ -155,16 +155,25 @@ function constantFacts(node: object, stored: number, exact: Rational, segment = 
   }
   let f = bySegment.get(segment);
   if (!f) {
-    f = { value: { lo: exact.toNumberDown(), hi: exact.toNumberUp() }, error: constError(stored, exact) };
+    const lo = exact.toNumberDown();
+    const hi = exact.toNumberUp();
+    f = { value: { lo, hi }, error: constError(stored, exact, lo, hi) };
     bySegment.set(segment, f);
   }
   return f;
 }
 
-/** |stored - exact| rounded up. */
-function constError(stored: number, exact: Rational): number {
-  const d = Rational.fromNumber(stored).sub(exact).abs();
-  return d.isZero() ? 0 : d.toNumberUp();
+/**
+ * An upper bound of |stored - exact|, given the binary64 enclosure [lo, hi] of
+ * exact (lo = hi when exact is a binary64 number): the larger distance from
+ * stored to an end, rounded up. Exact (0) when stored equals exact; otherwise
+ * at most one binary64 ulp above the true distance, and computed without
+ * BigInt arithmetic, which dominated planning time.
+ */
+function constError(stored: number, exact: Rational, lo: number, hi: number): number {
+  if (lo === hi) return stored === lo ? 0 : nextUp(abs(stored - lo));
+  if (!isFinite(lo) || !isFinite(hi)) return Rational.fromNumber(stored).sub(exact).abs().toNumberUp();
+  return nextUp(max(abs(stored - lo), abs(stored - hi)));
 }
 
 /** Largest magnitude any computed value can reach: exact magnitude plus error, per node. */

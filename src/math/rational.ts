@@ -12,12 +12,15 @@ export class Rational {
     this.den = den;
   }
 
-  static of(num: bigint, den: bigint = 1n): Rational {
+  /** num / den in lowest terms; `reduced` promises they already are (with den > 0). */
+  static of(num: bigint, den: bigint = 1n, reduced = false): Rational {
+    if (reduced) return new Rational(num, den);
     if (den === 0n) throw new RangeError('Rational: zero denominator');
     if (den < 0n) {
       num = -num;
       den = -den;
     }
+    if (den === 1n) return new Rational(num, 1n);
     const g = gcd(num < 0n ? -num : num, den);
     return g === 1n ? new Rational(num, den) : new Rational(num / g, den / g);
   }
@@ -65,14 +68,20 @@ export class Rational {
     return e >= 0 ? Rational.of(sign * (mant << BigInt(e))) : Rational.of(sign * mant, 1n << BigInt(-e));
   }
 
+  // Sums and products keep lowest terms with gcds of the small factors only
+  // (Knuth, The Art of Computer Programming vol. 2, 4.5.1): the gcd of the
+  // full product was most of the planner's time.
   add(o: Rational): Rational {
-    return Rational.of(this.num * o.den + o.num * this.den, this.den * o.den);
+    return sumOf(this, o.num, o.den);
   }
   sub(o: Rational): Rational {
-    return Rational.of(this.num * o.den - o.num * this.den, this.den * o.den);
+    return sumOf(this, -o.num, o.den);
   }
   mul(o: Rational): Rational {
-    return Rational.of(this.num * o.num, this.den * o.den);
+    if (this.num === 0n || o.num === 0n) return Rational.ZERO;
+    const g1 = gcd(abs(this.num), o.den);
+    const g2 = gcd(abs(o.num), this.den);
+    return new Rational((this.num / g1) * (o.num / g2), (this.den / g2) * (o.den / g1));
   }
   div(o: Rational): Rational {
     if (o.num === 0n) throw new RangeError('Rational: division by zero');
@@ -127,6 +136,21 @@ export class Rational {
   }
 }
 
+const abs = (n: bigint): bigint => (n < 0n ? -n : n);
+
+/** a + n/d in lowest terms, for a in lowest terms and n/d in lowest terms (d > 0). */
+function sumOf(a: Rational, n: bigint, d: bigint): Rational {
+  if (n === 0n) return a;
+  if (a.num === 0n) return Rational.of(n, d);
+  if (a.den === d) return Rational.of(a.num + n, d);
+  const d1 = gcd(a.den, d);
+  if (d1 === 1n) return Rational.of(a.num * d + n * a.den, a.den * d, true);
+  const t = a.num * (d / d1) + n * (a.den / d1);
+  if (t === 0n) return Rational.ZERO;
+  const d2 = gcd(abs(t), d1);
+  return Rational.of(t / d2, (a.den / d1) * (d / d2), true);
+}
+
 function gcd(a: bigint, b: bigint): bigint {
   while (b !== 0n) {
     [a, b] = [b, a % b];
@@ -135,7 +159,10 @@ function gcd(a: bigint, b: bigint): bigint {
 }
 
 function bitLength(n: bigint): number {
-  return n === 0n ? 0 : n.toString(2).length;
+  if (n === 0n) return 0;
+  const hex = n.toString(16);
+  // 4 bits per hex digit, less the leading zero bits of the first digit.
+  return hex.length * 4 - (Math.clz32(parseInt(hex[0]!, 16)) - 28);
 }
 
 /**

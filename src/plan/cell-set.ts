@@ -53,15 +53,22 @@ export class CellSet {
    * the budget is spent, in at most 8 rounds (each halves the bad cells'
    * widest side: 8 rounds narrow them 16-fold in each of two inputs, enough
    * to undo interval overestimation; a series that still has no bound there
-   * does not converge there).
+   * does not converge there). When three rounds in a row multiply the bad cells
+   * by 1.7 or more (2 when both halves of every bad cell stay bad), they cover
+   * a region of the box, not the thin rim that overestimation leaves, whose
+   * count would shrink as the cells narrow: no split can fix them, so stop.
    */
   repairBadCells(budget: number, relative: boolean): void {
+    let doubling = 0;
+    let before = -1;
     for (let round = 0; round < 8; round++) {
       const bad: number[] = [];
       this.cells.forEach((c, i) => {
         if (this.bad(c, relative) && !this.tooSmall(c.cell)) bad.push(i);
       });
-      if (bad.length === 0 || this.cells.length + bad.length > budget) return;
+      doubling = before > 0 && bad.length >= 1.7 * before ? doubling + 1 : 0;
+      before = bad.length;
+      if (bad.length === 0 || doubling >= 3 || this.cells.length + bad.length > budget) return;
       // Split from the end so earlier indices stay valid.
       for (let k = bad.length - 1; k >= 0; k--) this.splitAt(bad[k]!);
     }

@@ -25,11 +25,16 @@ export interface Economised {
   readonly error: readonly number[];
 }
 
-/**
- * The economised program for a budget, or null when no degree below the
- * collapsed one fits the budget in every segment.
- */
-export function economise(family: Family, e: Expansion, c: Collapsed, boxes: readonly Cell[], budget: number): Economised | null {
+/** The collapsed series in the Chebyshev basis, per segment: what every budget starts from. */
+export interface ChebyshevForm {
+  readonly input: number;
+  readonly mid: readonly Rational[];
+  readonly invHalf: Rational;
+  readonly rho: readonly Rational[];
+  readonly cheb: readonly (readonly Rational[])[];
+}
+
+export function chebyshevForm(family: Family, c: Collapsed, boxes: readonly Cell[]): ChebyshevForm {
   const S = c.inR.length;
   const mid: Rational[] = [];
   const cheb: Rational[][] = [];
@@ -51,6 +56,15 @@ export function economise(family: Family, e: Expansion, c: Collapsed, boxes: rea
     rho.push(r);
     cheb.push(toChebyshev(scaleArgument(inU, r)));
   }
+  return { input: c.input, mid, invHalf, rho, cheb };
+}
+
+/**
+ * The economised program for a budget, or null when no degree below the
+ * collapsed one fits the budget in every segment.
+ */
+export function economise(family: Family, e: Expansion, form: ChebyshevForm, budget: number): Economised | null {
+  const { cheb, rho, mid, invHalf } = form;
   const full = Math.max(...cheb.map((ch) => ch.length - 1));
   // The smallest degree whose dropped tail fits the budget in every segment.
   let degree = full;
@@ -65,5 +79,5 @@ export function economise(family: Family, e: Expansion, c: Collapsed, boxes: rea
   // Kept Chebyshev terms back to monomials in v, then in u = rho v.
   const perSegment = cheb.map((ch, s) => scaleArgument(fromChebyshev(ch.slice(0, degree + 1)), Rational.ONE.div(rho[s]!)));
   const coeffs = Array.from({ length: degree + 1 }, (_, k) => perSegment.map((m) => m[k] ?? Rational.ZERO));
-  return { program: polynomialProgram(family, e, c.input, mid, invHalf, coeffs), degree, error };
+  return { program: polynomialProgram(family, e, form.input, mid, invHalf, coeffs), degree, error };
 }

@@ -24,9 +24,17 @@ import { locate } from './locate.js';
 import { refuseBadCells, refuseFloor, refuseOrder } from './refusals.js';
 import { chooseRoot, pointText, rootAt, type RootChoice } from './root-choice.js';
 import { segmentLayout, type SegmentLayout } from './segments.js';
-import { analysisProgram, CoefficientError, collapsedSeries, seriesProgram, ZeroSlopeError, type Expansion } from './series-program.js';
-import { economise } from './economise.js';
+import { analysisProgram, CoefficientError, collapsedSeries, seriesProgram, ZeroSlopeError, type AnalysisProgram, type Expansion } from './series-program.js';
+import { greedyTerms } from './term-choice.js';
+import { chebyshevForm, economise } from './economise.js';
 import { coreProgram, polishBound, polishedProgram, PolishFailure, stepProgram } from './polish.js';
+
+/**
+ * 'series': every term up to the order, evaluated as built; 'greedy': the
+ * series with a greedy term set (src/plan/term-choice.ts); 'economised':
+ * collapsed to a polynomial in the input and Chebyshev-economised.
+ */
+export type PlanForm = 'series' | 'greedy' | 'economised';
 
 export interface Bound {
   readonly kind: 'absolute' | 'relative';
@@ -37,7 +45,7 @@ export interface Bound {
 
 /** One plan the search weighed (for `rootcast plan`'s table). */
 export interface Candidate {
-  readonly form: 'series' | 'economised';
+  readonly form: PlanForm;
   readonly degree: number | null;
   /** Segments per input, in spec order. */
   readonly counts: readonly number[];
@@ -56,8 +64,7 @@ export interface Candidate {
 export interface Plan {
   readonly family: Family;
   readonly root: RootChoice;
-  /** 'series': the series evaluated as built; 'economised': collapsed to a polynomial in the input and economised. */
-  readonly form: 'series' | 'economised';
+  readonly form: PlanForm;
   readonly order: number;
   /** Degree of the economised polynomial in the scaled input (null for the series form). */
   readonly degree: number | null;
@@ -236,10 +243,11 @@ function economisedPlan(
       const allowed = relative ? series.target * c.rootMin : series.target;
       room = Math.min(room, allowed - cellTail(c, n));
     }
+    const form = chebyshevForm(family, collapsed, layout.boxes);
     for (let budget = room / 2; budget > room / 32 && budget > 0; budget /= 4) {
-      const e = economise(family, expansion, collapsed, layout.boxes, budget);
+      const e = economise(family, expansion, form, budget);
       if (!e) break;
-      const ev = evaluate(family, e.program, cells, n, relative, (c) => e.error[c.segment]!);
+      const ev = evaluate(family, e.program, cells, (c) => cellTail(c, n), relative, (c) => e.error[c.segment]!);
       if (ev.bound.total > series.target) continue;
       const cost = programCost(e.program);
       if (!best || cost < best.cost) {
@@ -364,11 +372,13 @@ function planWithCountsInner(family: Family, box: ReturnType<typeof boxOf>['cell
     forms.push(series);
     const econ = economisedPlan(series, expansion, layout, set.cells, series.order, relative, termsUpTo);
     if (econ) forms.push(econ);
+    const sparse = qVaries(ap) ? greedyPlan(series, expansion, set.cells, relative, termsUpTo) : null;
+    if (sparse) forms.push(sparse);
   }
   if (stepsKnob !== 0) {
     const base = series ?? null;
     const polished = polishedPlans(
-      { family, root, expansion, counts, relative, target, cells: set.cells, checkTable },
+      { family, root, expansion, counts, relative, target, cells: set.cells, checkTable, toBeat: stepsKnob === 'auto' ? Math.min(...forms.map((f) => f.cost)) : Infinity },
       stepsKnob === 'auto' ? [1, 2] : [stepsKnob],
       base ? base.order - 1 : Math.min(family.plan.maxOrder, byGrade.length - 1),
       termsUpTo,
@@ -397,7 +407,7 @@ function planWithCountsInner(family: Family, box: ReturnType<typeof boxOf>['cell
       }
       if (trunc > target) continue;
       const program = seriesProgram(family, expansion, kept);
-      const ev = evaluate(family, program, set.cells, order, relative);
+      const ev = evaluate(family, program, set.cells, (c) => cellTail(c, order), relative);
       if (ev.bound.total <= target) {
         const tableBytes = checkTable(program);
         return {
@@ -434,6 +444,55 @@ function planWithCountsInner(family: Family, box: ReturnType<typeof boxOf>['cell
   }
 }
 
+/** True when some q_k varies with the inputs (the nested Horner evaluation, where dropping terms saves operations). */
+function qVaries(ap: AnalysisProgram): boolean {
+  return [...ap.q.values()].some((ref) => {
+    const k = ap.program.nodes[ref]!.kind;
+    return k !== 'const' && k !== 'table';
+  });
+}
+
+/** Grades past the graded plan's order that the greedy pool may draw on. */
+const GREEDY_EXTRA_GRADES = 2;
+
+/**
+ * The series with a greedy term set (src/plan/term-choice.ts) drawn from
+ * every term up to the graded order plus GREEDY_EXTRA_GRADES, with the share
+ * of the target left to truncation shrinking until rounding fits too; null
+ * when it is not cheaper than the graded plan.
+ */
+function greedyPlan(series: Plan, expansion: Expansion, cells: readonly CellFacts[], relative: boolean, termsUpTo: (grade: number) => SeriesTerm[] | null): Plan | null {
+  const family = series.family;
+  let pool: SeriesTerm[] | null = null;
+  for (let w = series.order + GREEDY_EXTRA_GRADES; w >= series.order && !pool; w--) pool = termsUpTo(w);
+  if (!pool) return null;
+  const target = series.target;
+  for (const share of [0.95, 0.8, 0.6]) {
+    const room = Math.max(0, 1 - series.bound.rounding / target) * share;
+    const choice = greedyTerms(cells, pool, (c) => (relative ? target * c.rootMin : target) * room);
+    if (!choice || choice.terms.length >= series.terms.length) return null;
+    const tails = new Map(cells.map((c, i) => [c, choice.tails[i]!]));
+    const program = seriesProgram(family, expansion, choice.terms);
+    const ev = evaluate(family, program, cells, (c) => tails.get(c)!, relative);
+    if (ev.bound.total > target) continue;
+    const cost = programCost(program);
+    if (cost >= series.cost) return null;
+    return {
+      ...series,
+      form: 'greedy',
+      order: Math.max(...choice.terms.map((t) => t.grade)),
+      terms: choice.terms,
+      program,
+      bound: ev.bound,
+      absoluteBound: ev.absolute,
+      ops: countOps(program),
+      cost,
+      tableBytes: tableBytesOf(program),
+    };
+  }
+  return null;
+}
+
 interface PolishContext {
   readonly family: Family;
   readonly root: RootChoice;
@@ -443,6 +502,8 @@ interface PolishContext {
   readonly target: number;
   readonly cells: readonly CellFacts[];
   readonly checkTable: (program: Program) => number;
+  /** Cost of the cheapest plan found for these segments without steps (Infinity if none). */
+  readonly toBeat: number;
 }
 
 /**
@@ -454,7 +515,15 @@ interface PolishContext {
 function polishedPlans(ctx: PolishContext, stepCounts: readonly number[], maxOrder: number, termsUpTo: (grade: number) => SeriesTerm[] | null): Plan[] {
   const { family, expansion, cells, relative, target } = ctx;
   const out: Plan[] = [];
+  let toBeat = ctx.toBeat;
+  // Order 0 with k steps is the cheapest program with k steps, and more steps cost more:
+  // skip every k whose cheapest program costs more than a plan in hand.
+  const empty = termsUpTo(0);
+  if (!empty) return out;
+  const floorCost = (k: number): number => programCost(polishedProgram(family, expansion, empty, k));
+  if (floorCost(Math.min(...stepCounts)) >= toBeat) return out;
   for (const k of stepCounts) {
+    if (k !== Math.min(...stepCounts) && floorCost(k) >= toBeat) continue;
     for (let n = 0; n <= maxOrder; n++) {
       let cheap;
       try {
@@ -480,6 +549,7 @@ function polishedPlans(ctx: PolishContext, stepCounts: readonly number[], maxOrd
         continue;
       }
       const program = polishedProgram(family, expansion, terms, k);
+      toBeat = Math.min(toBeat, programCost(program));
       out.push({
         family,
         root: ctx.root,
@@ -515,7 +585,7 @@ function evaluate(
   family: Family,
   program: Program,
   cells: readonly CellFacts[],
-  order: number,
+  tail: (c: CellFacts) => number,
   relative: boolean,
   extra: (c: CellFacts) => number = () => 0,
 ): Evaluated {
@@ -533,7 +603,7 @@ function evaluate(
         locate(family, 'arithmetic'),
       );
     }
-    const tr = addUp(cellTail(c, order), extra(c));
+    const tr = addUp(tail(c), extra(c));
     const abs = addUp(tr, rnd);
     absolute = Math.max(absolute, abs);
     if (relative) {

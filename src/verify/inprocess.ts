@@ -1,16 +1,16 @@
 /**
  * The in-process check: the program evaluated in the target arithmetic
  * (src/ir/evaluate.ts, every operation rounded as IEEE does it) at every
- * sample point, each result judged against the exact bisection reference.
- * The same verdict rules as the harnesses: every measured error <= the
- * certified total bound, the bound <= the target, and a sign change in the
- * bracket at every point.
+ * sample point (src/verify/samples.ts, segment edges included), each result
+ * judged against the exact bisection reference. The same verdict rules as the
+ * harnesses: every measured error <= the certified total bound, the bound <=
+ * the target, and a sign change in the bracket at every point.
  */
 import type { EmitInput } from '../emit/types.js';
 import { evaluate } from '../ir/evaluate.js';
 import { compareFractions, fractionOfNumber, type Fraction } from './fraction.js';
 import { makeMeasurer } from './measure.js';
-import { inputBox, samplePoints } from './samples.js';
+import { checkSamplePoints } from './samples.js';
 import type { CheckSummary } from './summary.js';
 
 export interface CheckOptions {
@@ -31,7 +31,8 @@ export interface PointResult {
 
 export function checkInProcess(input: EmitInput, opts: CheckOptions): CheckSummary {
   const { family, program, claims } = input;
-  const points = samplePoints(inputBox(family), opts.samples, opts.seed, family.arithmetic);
+  // Corners, grid, random points and the segment edge points (samples.ts), as every harness visits them.
+  const points = checkSamplePoints(family, program, opts.samples, opts.seed);
   const measureAt = makeMeasurer(family, claims.absoluteBound);
   const relative = claims.bound.kind === 'relative';
   const boundExact = fractionOfNumber(claims.bound.total);

@@ -1,27 +1,47 @@
 /**
- * The sample points every check visits: the in-process check here, and the C
- * and TypeScript harnesses, which hard-code this same algorithm so that all
- * three see bit-identical inputs. Everything is IEEE binary64 arithmetic with
- * no library calls, so C (compiled with -std=c99, no contraction) and
- * JavaScript agree bit for bit.
+ * The sample points every check visits: the in-process check here, and the C,
+ * TypeScript and GLSL harnesses, which hard-code this same algorithm (and
+ * carry the edge points of step 4 as literal tables) so that all of them see
+ * bit-identical inputs. Everything is IEEE binary64 arithmetic with no
+ * library calls, so C (compiled with -std=c99, no contraction) and JavaScript
+ * agree bit for bit.
  *
- * For d inputs and a request of n points, total = max(n, 2 * 2^d):
+ * For d inputs, a request of n points and E edge points (step 4), the checks
+ * visit max(n, 2 * 2^d) + E points:
  *   1. the 2^d corners, in corner-index order; bit j of the index picks hi for
  *      input j;
  *   2. a grid of g^d points, g the largest integer >= 2 with 2 * g^d <=
- *      total - 2^d, at lo + (hi - lo) * (i / (g - 1)), input 0 varying fastest;
- *   3. random points up to the total, from xorshift32 (Marsaglia, "Xorshift
- *      RNGs", J. Stat. Softw. 8(14), 2003, shifts 13, 17, 5): for each input in
- *      order the state steps once and u = (x >>> 8) / 2^24 in [0, 1), value
- *      lo + (hi - lo) * u. The state starts at the seed (seed 0 would stay 0
- *      forever, so it becomes 2463534242, Marsaglia's example seed).
+ *      max(n, 2 * 2^d) - 2^d, at lo + (hi - lo) * (i / (g - 1)), input 0
+ *      varying fastest;
+ *   3. random points up to max(n, 2 * 2^d), from xorshift32 (Marsaglia,
+ *      "Xorshift RNGs", J. Stat. Softw. 8(14), 2003, shifts 13, 17, 5): for
+ *      each input in order the state steps once and u = (x >>> 8) / 2^24 in
+ *      [0, 1), value lo + (hi - lo) * u. The state starts at the seed (seed 0
+ *      would stay 0 forever, so it becomes 2463534242, Marsaglia's example seed);
+ *   4. the segment edge points of a segmented program (src/ir/segment-edges.ts,
+ *      derived from the program's index node, never from the planner), always
+ *      visited whatever n is: for each split input in argument order, each of
+ *      its values in ascending order (every segment edge rounded to the target
+ *      arithmetic, its next-down and next-up neighbours there, and the two
+ *      adjacent target numbers between which the emitted index really
+ *      changes; only values inside the box). With one input that is the whole
+ *      point. With several, every value is visited with the other inputs at
+ *      each corner of their own box (bit k of the corner number picks hi for
+ *      the k-th other input), then with them all at the box centre
+ *      lo + (hi - lo) * 0.5: 2^(d-1) + 1 points per value. (With an even
+ *      segment count the centre lies on a middle edge of that input too, so
+ *      the centre points also probe where two inputs switch at once.) A
+ *      program without segments has E = 0. The harnesses receive these points
+ *      as exact binary64 literals rather than recomputing them.
  * Every value is clamped to [lo, hi] in binary64, then rounded to the target
  * arithmetic (Math.fround for float32, as the C `(float)` cast does). A box end
  * that is not a float32 value may round just outside the box; the reference is
  * computed for the value the function received, so the check stays exact.
  */
 import { Rational } from '../math/rational.js';
+import type { Program } from '../ir/nodes.js';
 import { roundNumber } from '../ir/round.js';
+import { edgeSamplePoints } from '../ir/segment-edges.js';
 import type { Arithmetic, Family } from '../spec/types.js';
 
 export interface SampleBox {
@@ -44,9 +64,22 @@ export function inputBox(family: Family): SampleBox[] {
   }));
 }
 
-/** Points actually visited for a request of n: room for the corners and a 2-per-side grid. */
-export function sampleTotal(inputs: number, n: number): number {
-  return Math.max(n, 2 * 2 ** inputs);
+/**
+ * Points actually visited for a request of n: room for the corners and a
+ * 2-per-side grid, then the edge points (step 4) on top.
+ */
+export function sampleTotal(inputs: number, n: number, edgePoints = 0): number {
+  return Math.max(n, 2 * 2 ** inputs) + edgePoints;
+}
+
+/** The raw edge points of step 4 for a family's program (none without segments). */
+export function edgePointsOf(family: Family, program: Program): number[][] {
+  return edgeSamplePoints(program, inputBox(family));
+}
+
+/** Every point a check of this family's program visits, in order (steps 1 to 4). */
+export function checkSamplePoints(family: Family, program: Program, n: number, seed: number): number[][] {
+  return samplePoints(inputBox(family), n, seed, family.arithmetic, edgePointsOf(family, program));
 }
 
 /** Grid points per input: the largest g >= 2 with 2 * g^d <= total - 2^d (binary search on integers). */
@@ -78,11 +111,19 @@ export function xorshift32(x: number): number {
   return x;
 }
 
-export function samplePoints(box: readonly SampleBox[], n: number, seed: number, arithmetic: Arithmetic): number[][] {
+/** Steps 1 to 4 over a box; `edges` are the raw edge points of step 4 (edgePointsOf), none by default. */
+export function samplePoints(
+  box: readonly SampleBox[],
+  n: number,
+  seed: number,
+  arithmetic: Arithmetic,
+  edges: readonly (readonly number[])[] = [],
+): number[][] {
   const d = box.length;
   if (d < 1 || d > MAX_SAMPLED_INPUTS) throw new RangeError(`samplePoints: ${d} inputs (1 to ${MAX_SAMPLED_INPUTS} supported)`);
   if (!Number.isInteger(n) || n < 1) throw new RangeError(`samplePoints: sample count ${n} is not a positive integer`);
   if (!Number.isInteger(seed) || seed < 0 || seed > 0xffffffff) throw new RangeError(`samplePoints: seed ${seed} is not a uint32`);
+  if (edges.some((p) => p.length !== d)) throw new RangeError(`samplePoints: an edge point does not have ${d} coordinates`);
   const total = sampleTotal(d, n);
   const out: number[][] = [];
   const finish = (raw: number[]): number[] =>
@@ -118,5 +159,7 @@ export function samplePoints(box: readonly SampleBox[], n: number, seed: number,
       ),
     );
   }
+
+  for (const p of edges) out.push(finish([...p]));
   return out;
 }

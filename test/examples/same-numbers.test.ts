@@ -22,7 +22,7 @@
 import { afterAll, describe, expect, test } from '@jest/globals';
 import { evaluate } from '../../src/ir/evaluate.js';
 import { loadSpec } from '../../src/spec/load.js';
-import { inputBox, samplePoints, sampleTotal } from '../../src/verify/samples.js';
+import { checkSamplePoints, edgePointsOf, sampleTotal } from '../../src/verify/samples.js';
 import { float32Hex, float64Hex } from './support/bits.js';
 import { emitExample, fileEndingWith } from './support/emit-example.js';
 import { buildCHarness, buildTsHarness, type HarnessDump } from './support/harness-dump.js';
@@ -42,6 +42,8 @@ const FLOAT32 = exampleFiles()
 
 interface Runs {
   readonly points: number[][];
+  /** How many points the checks visit: the request plus the segment edge points. */
+  readonly total: number;
   readonly inProcess: number[];
   readonly c: HarnessDump;
   readonly tsHarness: HarnessDump;
@@ -64,9 +66,11 @@ function runAll(file: string): Runs {
   const d = family.inputs.length;
   const dir = makeWorkDir(`same-numbers-${name}`);
   dirs.push(dir);
-  const points = samplePoints(inputBox(family), SAMPLES, SEED, family.arithmetic);
+  // Every point the checks visit, the segment edge points included (src/verify/samples.ts).
+  const points = checkSamplePoints(family, program, SAMPLES, SEED);
   return {
     points,
+    total: sampleTotal(d, SAMPLES, edgePointsOf(family, program).length),
     inProcess: points.map((p) => evaluate(program, p)),
     c: buildCHarness(dir, example.files, name, d)(HARNESS_ARGS),
     tsHarness: buildTsHarness(dir, example.files, name, d)(HARNESS_ARGS),
@@ -83,10 +87,11 @@ describe('C, TypeScript and in-process evaluation return the same bits', () => {
     expect(FLOAT32.length).toBeGreaterThan(0);
   });
 
-  test.each(FLOAT32.map((e) => [e.file, sampleTotal(e.inputs, SAMPLES)] as const))(
-    '%s: all %d sample points (seed 1) bit-identical in C, the TypeScript harness, the TypeScript function and evaluate()',
-    (file, expectedCount) => {
+  test.each(FLOAT32.map((e) => [e.file, SAMPLES] as const))(
+    '%s: all %d sample points (seed 1) and the segment edge points bit-identical in C, the TypeScript harness, the TypeScript function and evaluate()',
+    (file) => {
       const r = runAll(file);
+      const expectedCount = r.total;
       // Both harnesses ran, passed and dumped one line per point.
       expect([r.c.exitCode, r.tsHarness.exitCode]).toEqual([0, 0]);
       expect(r.c.summary).toMatch(/; PASS$/);

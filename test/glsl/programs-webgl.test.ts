@@ -15,7 +15,7 @@ import { afterAll, describe, expect, test } from '@jest/globals';
 import { glslHarness } from '../../src/emit/harness/glsl.js';
 import { evaluate } from '../../src/ir/evaluate.js';
 import type { Program } from '../../src/ir/nodes.js';
-import { inputBox, samplePoints } from '../../src/verify/samples.js';
+import { checkSamplePoints } from '../../src/verify/samples.js';
 import { demoInput } from '../emit/support/family.js';
 import { ALL_SAMPLES } from '../emit/support/programs.js';
 import { dumpPage } from './support/page.js';
@@ -55,7 +55,8 @@ describe('every printer program gives the bits of evaluate() on WebGL2, both ove
     const input = demoInput(program, { functionName: name, inputs: program.inputs.map((n, j) => ({ name: n, lo: String(box[j]![0]), hi: String(box[j]![1]) })) });
     const dump = dumpPage(name, glslHarness(input), program.inputs.length, POINTS, 7);
     expect(dump.run.stderr).toBe('');
-    const points = samplePoints(inputBox(input.family), POINTS, 7, 'float32');
+    // The segment edge points included (src/verify/samples.ts, step 4).
+    const points = checkSamplePoints(input.family, program, POINTS, 7);
     expect(dump.rows.map((r) => r.inputs.join(' '))).toEqual(points.map((p) => p.map(bits).join(' ')));
     const problems: string[] = [];
     let same = 0;

@@ -17,7 +17,7 @@ import { RootcastError } from '../../src/errors.js';
 import { glslHarness } from '../../src/emit/harness/glsl.js';
 import { checkInProcess } from '../../src/verify/inprocess.js';
 import { runGlslPage } from '../../src/verify/glsl/run-page.js';
-import { inputBox, samplePoints } from '../../src/verify/samples.js';
+import { checkSamplePoints } from '../../src/verify/samples.js';
 import { formatSummary, parseSummary } from '../../src/verify/summary.js';
 import { emitGlslExample, float32Examples } from './support/examples.js';
 import { dumpPage } from './support/page.js';
@@ -53,8 +53,8 @@ describe('the GLSL page on WebGL2 in headless Chromium', () => {
     const dump = dumpPage(name, page, d, SAMPLES, SEED);
     expect({ exitCode: dump.run.exitCode, stderr: dump.run.stderr }).toEqual({ exitCode: 0, stderr: '' });
 
-    // The page visits exactly the points of src/verify/samples.ts.
-    const points = samplePoints(inputBox(family), SAMPLES, SEED, family.arithmetic);
+    // The page visits exactly the points of src/verify/samples.ts, the segment edge points included.
+    const points = checkSamplePoints(family, program, SAMPLES, SEED);
     expect(dump.rows.length).toBe(points.length);
     expect(dump.rows.map((r) => r.inputs.join(' '))).toEqual(points.map((p) => p.map(bits).join(' ')));
 

@@ -3,8 +3,10 @@
  * Chromium (playwright-core, TOOLCHAIN.md), a screenshot is taken and must
  * not be blank (its pixels vary), and the SVG must hold the data path, the
  * certified-bound and target lines, and the axis labels. One input gives one
- * plot; three inputs give one plot per input. The page must load nothing
- * from the network.
+ * plot; three inputs give one plot per input. A segmented plan draws its
+ * segment edges as vertical lines, equally spaced (the segments are equal,
+ * DESIGN.md 1.5); a plan without segments draws none. The page must load
+ * nothing from the network.
  */
 import { afterAll, beforeAll, describe, expect, test } from '@jest/globals';
 import { existsSync, readFileSync, writeFileSync } from 'node:fs';
@@ -89,10 +91,33 @@ describe('verify --report draws the measured error', () => {
     const y = async (cls: string): Promise<number> => Number(await page.locator(`svg line.${cls}`).getAttribute('y1'));
     expect(await y('bound')).toBeGreaterThan(await y('target'));
     expect(await page.locator('svg circle.worst').count()).toBe(1);
+    // kiln-probe is planned as one box: no segment edges.
+    expect(await page.locator('svg line.segment-edge').count()).toBe(0);
     await page.close();
     const stats = await pixelStats(readFileSync(shot));
     expect(stats.variance).toBeGreaterThan(100);
     expect(existsSync(shot)).toBe(true);
+  }, 120_000);
+
+  test('a segmented plan (spring-scale): one vertical line per segment edge, equally spaced across the plot', async () => {
+    const { html, shot, page } = await openReport('examples/spring-scale.yaml', 1000);
+    expect(html).toContain('the segment edges');
+    const frame = page.locator('svg rect.frame');
+    const left = Number(await frame.getAttribute('x'));
+    const width = Number(await frame.getAttribute('width'));
+    const lines = page.locator('svg line.segment-edge');
+    const n = await lines.count();
+    expect(n).toBeGreaterThan(1);
+    // K equal segments of F in [0, 200] have K - 1 edges at left + width * j / K; px() prints one decimal.
+    const xs = await lines.evaluateAll((els) => els.map((e) => [Number(e.getAttribute('x1')), Number(e.getAttribute('x2'))]));
+    const off = xs.flatMap(([x1, x2], j) => {
+      const want = left + (width * (j + 1)) / (n + 1);
+      return x1 === x2 && Math.abs(x1! - want) <= 0.06 ? [] : [`edge ${j}: x1 ${x1}, x2 ${x2}, expected ${want.toFixed(2)} (tolerance 0.06 px)`];
+    });
+    expect(off).toEqual([]);
+    await page.close();
+    const stats = await pixelStats(readFileSync(shot));
+    expect(stats.variance).toBeGreaterThan(100);
   }, 120_000);
 
   test('three inputs: one plot of the worst error per input', async () => {

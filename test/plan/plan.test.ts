@@ -4,6 +4,9 @@ import { makePlan } from '../../src/plan/plan.js';
 import { boxOf } from '../../src/plan/box.js';
 import { loadSpec } from '../../src/spec/load.js';
 import type { Family } from '../../src/spec/types.js';
+import { checkInProcess } from '../../src/verify/inprocess.js';
+import { termsOfGrade } from '../../src/series/hyper-catalan.js';
+import { emitInputOf } from '../../src/cli/pipeline.js';
 
 const kiln = loadSpec('examples/kiln-probe.yaml');
 const withPlan = (f: Family, maxOrder: number): Family => ({ ...f, plan: { ...f.plan, maxOrder, segments: 1, newtonSteps: 0 } });
@@ -82,5 +85,33 @@ describe('Newton polish candidates (DESIGN.md 1.9)', () => {
     const none = makePlan(steps(lens, 0));
     expect(one.ops.div).toBe(none.ops.div + 1);
     expect(two.ops.div).toBe(none.ops.div + 2);
+  });
+});
+
+describe('greedy term sets (src/plan/term-choice.ts)', () => {
+  const lens = loadSpec('examples/lens-undistort.yaml');
+  const noSteps: Family = { ...lens, plan: { ...lens.plan, newtonSteps: 0 } };
+
+  test('without Newton steps the lens quintic keeps fewer terms than every term up to the order, at a lower cost', () => {
+    const p = makePlan(noSteps);
+    const graded = p.candidates.find((c) => c.form === 'series' && c.steps === 0 && c.refusal === null)!;
+    expect(p.form).toBe('greedy');
+    expect(p.terms.length).toBeLessThan(graded.terms!);
+    expect(p.cost).toBeLessThan(graded.cost!);
+    // Dropped terms are not only the top grades: some grade below the highest kept one is incomplete
+    // (the lens equation's active powers are 3 and 5).
+    const top = Math.max(...p.terms.map((t) => t.grade));
+    const incomplete = Array.from({ length: top }, (_, g) => g).filter(
+      (g) => p.terms.filter((t) => t.grade === g).length < termsOfGrade(5, [3, 5], g).length,
+    );
+    expect(incomplete.length).toBeGreaterThan(0);
+  });
+
+  test('the greedy plan meets its bound against the exact bisection reference (2000 points)', () => {
+    const p = makePlan(noSteps);
+    const s = checkInProcess(emitInputOf(p), { samples: 2000, seed: 3 });
+    expect(s.worstError).toBeLessThanOrEqual(s.bound);
+    expect(s.bound).toBeLessThanOrEqual(s.targetAccuracy);
+    expect(s.pass).toBe(true);
   });
 });

@@ -4,7 +4,9 @@
  * fixed number of steps, then measured at sample points against the exact
  * bisection reference (src/verify/reference.ts, exact rational arithmetic).
  * Low max_order values force short series, so the Newton error term (not
- * rounding) is the largest part of many of these bounds.
+ * rounding) is the largest part of many of these bounds. With no steps, the
+ * varying q_k make greedy term sets (src/plan/term-choice.ts) win often, so
+ * their bound is checked the same way.
  */
 import { describe, expect, test } from '@jest/globals';
 import fc from 'fast-check';
@@ -23,7 +25,7 @@ interface Case {
   /** Centres of those coefficients. */
   centre: number[];
   hi: number;
-  steps: 1 | 2;
+  steps: 0 | 1 | 2;
   maxOrder: number;
   accuracy: number;
   arithmetic: 'float32' | 'float64';
@@ -59,16 +61,17 @@ const caseArb: fc.Arbitrary<Case> = fc.record({
   spread: fc.array(fc.integer({ min: 1, max: 150 }).map((i) => i / 1000), { minLength: 4, maxLength: 4 }),
   centre: fc.array(fc.integer({ min: -200, max: 200 }).map((i) => i / 1000), { minLength: 4, maxLength: 4 }),
   hi: fc.integer({ min: 50, max: 700 }).map((i) => i / 1000),
-  steps: fc.constantFrom(1 as const, 2 as const),
+  steps: fc.constantFrom(0 as const, 1 as const, 2 as const),
   maxOrder: fc.integer({ min: 0, max: 6 }),
   accuracy: fc.constantFrom(1e-2, 1e-3, 1e-4, 1e-5, 1e-6),
   arithmetic: fc.constantFrom('float32' as const, 'float64' as const),
 });
 
-describe('Newton polish bound', () => {
-  test('measured error <= certified bound <= target with 1 or 2 steps on random multi-input families (fast-check)', () => {
+describe('Newton polish and greedy term-set bounds', () => {
+  test('measured error <= certified bound <= target with 0, 1 or 2 steps and greedy term sets on random multi-input families (fast-check)', () => {
     let planned = 0;
     let newtonDominated = 0;
+    let greedy = 0;
     fc.assert(
       fc.property(caseArb, (c) => {
         const text = specText(c);
@@ -82,7 +85,8 @@ describe('Newton polish bound', () => {
         }
         planned++;
         expect(plan.steps).toBe(c.steps);
-        if (plan.bound.truncation > plan.bound.rounding) newtonDominated++;
+        if (plan.steps > 0 && plan.bound.truncation > plan.bound.rounding) newtonDominated++;
+        if (plan.form === 'greedy') greedy++;
         const s = checkInProcess(emitInputOf(plan), { samples: 400, seed: 11 });
         if (!(s.worstError <= s.bound && s.bound <= s.targetAccuracy)) {
           throw new Error(`bound beaten: measured ${s.worstError} at ${s.worstAt.join(', ')}, bound ${s.bound}, target ${s.targetAccuracy}\n${text}`);
@@ -90,10 +94,11 @@ describe('Newton polish bound', () => {
         expect(s.pass).toBe(true);
         return true;
       }),
-      { numRuns: 50, seed: 20261202 },
+      { numRuns: 75, seed: 20261202 },
     );
-    // The generator must not pass vacuously, and must exercise the Newton term, not only rounding.
-    expect(planned).toBeGreaterThan(25);
+    // The generator must not pass vacuously, and must exercise the Newton term (not only rounding) and greedy term sets.
+    expect(planned).toBeGreaterThan(35);
     expect(newtonDominated).toBeGreaterThan(5);
+    expect(greedy).toBeGreaterThan(0);
   });
 });

@@ -73,7 +73,7 @@ export function planText(plan: Plan): string {
     ['inputs', f.inputs.map((i) => `${i.name} in [${i.lo}, ${i.hi}]`).join(', ')],
     ['root', c.rootNote],
     ['arithmetic', f.arithmetic],
-    ['form', plan.form === 'series' ? `series, evaluated by Horner's rule${plan.steps > 0 ? `, then ${plan.steps} Newton step${plan.steps === 1 ? '' : 's'}` : ''}` : `series collapsed to a polynomial in ${f.inputs[0]!.name}, Chebyshev-economised to degree ${plan.degree}`],
+    ['form', formText(plan)],
     ['series', `order ${c.order}, ${c.terms} terms, bound certified over ${plan.cells} cells`],
     [
       'bound',
@@ -91,4 +91,11 @@ export function planText(plan: Plan): string {
     '  candidates weighed (* = chosen):',
     ...candidateTable(plan).map((l) => `    ${l}`),
   ].join('\n');
+}
+
+function formText(plan: Plan): string {
+  if (plan.form === 'economised') return `series collapsed to a polynomial in ${plan.family.inputs[0]!.name}, Chebyshev-economised to degree ${plan.degree}`;
+  const steps = plan.steps > 0 ? `, then ${plan.steps} Newton step${plan.steps === 1 ? '' : 's'}` : '';
+  const terms = plan.form === 'greedy' ? ' with a greedy term set (largest majorant contributions first)' : '';
+  return `series${terms}, evaluated by Horner's rule${steps}`;
 }

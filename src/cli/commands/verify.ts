@@ -15,7 +15,8 @@ import { checkInProcess } from '../../verify/inprocess.js';
 import { verifyJson } from '../../verify/json.js';
 import type { ReportPoint } from '../../verify/report/envelope.js';
 import { reportHtml } from '../../verify/report/html.js';
-import { inputBox, sampleTotal } from '../../verify/samples.js';
+import { segmentEdges } from '../../ir/segment-edges.js';
+import { edgePointsOf, inputBox, sampleTotal } from '../../verify/samples.js';
 import { formatSummary, parseSummary, type CheckSummary } from '../../verify/summary.js';
 import { writeFiles } from '../files.js';
 import { startProgress, type ProgressStream } from '../progress.js';
@@ -57,7 +58,7 @@ export function runVerify(o: VerifyOptions, print: (line: string) => void): numb
     if (!o.json) print(line);
   };
   const points: ReportPoint[] = [];
-  const total = sampleTotal(plan.family.inputs.length, o.samples);
+  const total = sampleTotal(plan.family.inputs.length, o.samples, edgePointsOf(plan.family, input.program).length);
   const bar = startProgress(o.progress ?? { write: () => true }, `check ${name} (in-process)`, total);
   const inproc = checkInProcess(input, {
     samples: o.samples,
@@ -121,7 +122,8 @@ export function runVerify(o: VerifyOptions, print: (line: string) => void): numb
       bound: inproc.bound,
       target: inproc.targetAccuracy,
       inputs: plan.family.inputs.map((r, j) => ({ name: r.name, lo: box[j]!.lo, hi: box[j]!.hi })),
-      edges: plan.family.inputs.map(() => []),
+      // The segment edges (rounded to the target arithmetic), read from the program's index node (src/ir/segment-edges.ts).
+      edges: segmentEdges(input.program, box).map((e) => e.edges),
       points,
       checks,
     });

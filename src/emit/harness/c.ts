@@ -1,6 +1,7 @@
 /**
  * The C verification harness NAME_check.c: sweeps the sample points of
- * src/verify/samples.ts, calls NAME from NAME.h, finds each reference root by
+ * src/verify/samples.ts (the segment edge points arrive as a table of exact
+ * double literals), calls NAME from NAME.h, finds each reference root by
  * bracketed bisection in __float128 (long double where the compiler has no
  * binary128), prints the summary line of src/verify/summary.ts and exits 0 on
  * pass, 1 on fail. The machinery is templates/c/check.c.hbs; this file fills
@@ -36,6 +37,9 @@ export function cHarness(input: EmitInput): EmittedFile {
     inputNames: parts.inputNames.map((n) => `"${n}"`).join(', '),
     boxLo: parts.lo.map(double).join(', '),
     boxHi: parts.hi.map(double).join(', '),
+    edgeCount: String(parts.edgePoints.length),
+    hasEdgePoints: parts.edgePoints.length > 0,
+    edgeRows: parts.edgePoints.map((p) => p.map(double).join(', ')),
     bound: double(claims.bound.total),
     target: double(claims.target),
     absoluteBound: double(claims.absoluteBound),

@@ -1,8 +1,10 @@
 /**
- * What both harness writers read from the emit input, checked once: the
- * function and input names, the sample box as doubles, which constants the
- * coefficient expressions use, and the header comment lines.
+ * What the harness writers read from the emit input, checked once: the
+ * function and input names, the sample box as doubles, the segment edge
+ * points (from the program's index node), which constants the coefficient
+ * expressions use, and the header comment lines.
  */
+import { edgeSamplePoints } from '../../ir/segment-edges.js';
 import { Rational } from '../../math/rational.js';
 import type { Expr } from '../../spec/types.js';
 import { assertCommentSafe, headerLines } from '../header.js';
@@ -18,6 +20,12 @@ export interface HarnessParts {
   /** Nearest doubles to the spec's decimal range ends (as src/verify/samples.ts inputBox). */
   readonly lo: readonly number[];
   readonly hi: readonly number[];
+  /**
+   * The raw segment edge points (step 4 of src/verify/samples.ts, from
+   * src/ir/segment-edges.ts), binary64 values the harness writes as exact
+   * literals and visits after its random points; none without segments.
+   */
+  readonly edgePoints: readonly (readonly number[])[];
   /** Names of the constants the coefficient expressions use, in the spec's order. */
   readonly usedConstants: readonly string[];
   /** Header lines as the inside of a block comment (` * text`). */
@@ -74,11 +82,17 @@ export function harnessParts(input: EmitInput, role: string): HarnessParts {
     if (!(c in family.constants)) throw new Error(`constant ${c} is used but has no value`);
     assertUserName(c, 'constant name');
   }
+  const lo = family.inputs.map((r) => Rational.parseDecimal(r.lo).toNumber());
+  const hi = family.inputs.map((r) => Rational.parseDecimal(r.hi).toNumber());
   return {
     name,
     inputNames,
-    lo: family.inputs.map((r) => Rational.parseDecimal(r.lo).toNumber()),
-    hi: family.inputs.map((r) => Rational.parseDecimal(r.hi).toNumber()),
+    lo,
+    hi,
+    edgePoints: edgeSamplePoints(
+      program,
+      lo.map((l, j) => ({ lo: l, hi: hi[j]! })),
+    ),
     usedConstants: Object.keys(family.constants).filter((c) => used.has(c)),
     commentLines: headerLines(input, role).map((line) => {
       assertCommentSafe(line);

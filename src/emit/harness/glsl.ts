@@ -1,7 +1,8 @@
 /**
  * The GLSL verification page NAME.glsl-check.html: a self-contained HTML page
  * that runs the snippet on WebGL2 (both overloads) at the sample points of
- * src/verify/samples.ts, finds each reference root by exact BigInt bisection
+ * src/verify/samples.ts (the segment edge points arrive as a table of exact
+ * double literals), finds each reference root by exact BigInt bisection
  * and prints the summary line of src/verify/summary.ts (languages `GLSL` and
  * `GLSL vec4`). The page is templates/glsl/check.html.hbs, its reference
  * machinery templates/glsl/check-reference.js; this file fills in the family
@@ -35,6 +36,8 @@ export function glslHarness(input: EmitInput): EmittedFile {
     inputNames: parts.inputNames.map((n) => `'${n}'`).join(', '),
     boxLo: parts.lo.map(double).join(', '),
     boxHi: parts.hi.map(double).join(', '),
+    hasEdgePoints: parts.edgePoints.length > 0,
+    edgeRows: parts.edgePoints.map((p) => p.map(double).join(', ')),
     bound: double(claims.bound.total),
     target: double(claims.target),
     absoluteBound: double(claims.absoluteBound),

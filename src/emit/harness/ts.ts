@@ -1,7 +1,8 @@
 /**
  * The TypeScript verification harness NAME.check.ts: an ES module that
  * imports NAME from ./NAME.js and nothing else, sweeps the sample points of
- * src/verify/samples.ts, finds each reference root by exact BigInt rational
+ * src/verify/samples.ts (the segment edge points arrive as a table of exact
+ * double literals), finds each reference root by exact BigInt rational
  * bisection, prints the summary line of src/verify/summary.ts and sets exit
  * code 0 on pass, 1 on fail. The machinery is templates/ts/check.ts.hbs; this
  * file fills in the family: box, bounds, constants and coefficient expressions.
@@ -29,6 +30,8 @@ export function tsHarness(input: EmitInput): EmittedFile {
     inputNames: parts.inputNames.map((n) => `'${n}'`).join(', '),
     boxLo: parts.lo.map(double).join(', '),
     boxHi: parts.hi.map(double).join(', '),
+    hasEdgePoints: parts.edgePoints.length > 0,
+    edgeRows: parts.edgePoints.map((p) => p.map(double).join(', ')),
     bound: double(claims.bound.total),
     target: double(claims.target),
     absoluteBound: double(claims.absoluteBound),

@@ -49,6 +49,8 @@ export function reportHtml(d: ReportData): string {
   const caption = one
     ? `Measured ${yLabel} against ${esc(d.inputs[0]!.name)} (largest error in each of 400 equal bins), log scale.`
     : `Worst measured ${yLabel} over the other inputs, projected onto each input (80 bins each), log scale.`;
+  const edgeCount = d.edges.reduce((n, e) => n + e.length, 0);
+  const edgeNote = edgeCount > 0 ? ' Grey dashed vertical lines: the segment edges, where the function switches to the next table entry.' : '';
   const rows = d.checks.map(
     (c) =>
       `<tr><td>${esc(c.target)}</td><td>${c.points}</td><td>${sci(c.worstError)}</td><td>${esc(
@@ -74,7 +76,7 @@ td.fail { color: #c03020; font-weight: bold; }
 <body>
 <h1>${esc(d.functionName)}: measured error</h1>
 <p class="meta">spec ${esc(d.spec)}; ${esc(d.arithmetic)}; ${d.points.length} points; certified bound ${formatBoundUp(d.bound)} (rounded up); target ${sci(d.target)} (${d.kind})</p>
-<p>${caption} Red dashed line: the certified bound. Green dotted line: the target.</p>
+<p>${caption} Red dashed line: the certified bound. Green dotted line: the target.${edgeNote}</p>
 <div class="plots">
 ${plots.join('\n')}
 </div>

@@ -1,0 +1,57 @@
+/**
+ * Greedy term choice (DESIGN.md 1.2: any kept set S gives a valid bound
+ * R (a(T) - a_S(T)), because every hyper-Catalan term of the majorant is
+ * non-negative). Instead of every term up to a grade, keep the terms with the
+ * largest majorant contributions R H(m) T^m over the cells, largest first,
+ * until the truncation bound meets a budget. When the inputs move the t_k by
+ * very different amounts (a small quintic term beside a larger cubic one, say),
+ * many terms of a grade are far below the target and dropping them saves
+ * operations in the nested Horner evaluation.
+ */
+import { addDown, mulDown, mulUp, subUp } from '../math/directed.js';
+import type { SeriesTerm } from '../series/hyper-catalan.js';
+import { hDown, type CellFacts } from './cell-bound.js';
+
+/** Lower bound of one term's majorant value H(m) T^m on a cell. */
+function termValue(c: CellFacts, t: SeriesTerm): number {
+  let v = hDown(t);
+  for (let k = 2; k < t.m.length; k++) {
+    const e = t.m[k]!;
+    for (let j = 0; j < e; j++) v = mulDown(v, c.T[k]!);
+  }
+  return v;
+}
+
+export interface TermChoice {
+  /** The kept terms, in grade order (as the program builders expect). */
+  readonly terms: readonly SeriesTerm[];
+  /** Per cell (same order as the cells given): the truncation bound of the kept set. */
+  readonly tails: readonly number[];
+}
+
+/**
+ * The shortest prefix of the pool, ranked by each term's largest weighted
+ * contribution over the cells, whose truncation meets `allowed(c)` on every
+ * cell; null when even the whole pool misses it. Every cell must converge.
+ */
+export function greedyTerms(cells: readonly CellFacts[], pool: readonly SeriesTerm[], allowed: (c: CellFacts) => number): TermChoice | null {
+  if (cells.some((c) => c.state.kind !== 'ok')) return null;
+  const values = cells.map((c) => pool.map((t) => termValue(c, t)));
+  // Score: the largest share of a cell's allowance the term covers.
+  const score = pool.map((_, i) => Math.max(...cells.map((c, j) => (mulUp(c.R, values[j]![i]!) / allowed(c)))));
+  const order = pool.map((_, i) => i).sort((a, b) => score[b]! - score[a]! || pool[a]!.grade - pool[b]!.grade || a - b);
+  const kept = new Array<number>(cells.length).fill(0);
+  const tailOf = (j: number): number => mulUp(cells[j]!.R, Math.max(0, subUp(cells[j]!.aUpper, kept[j]!)));
+  for (let n = 0; n < order.length; n++) {
+    const i = order[n]!;
+    for (let j = 0; j < cells.length; j++) kept[j] = addDown(kept[j]!, values[j]![i]!);
+    let ok = true;
+    for (let j = 0; j < cells.length && ok; j++) ok = tailOf(j) <= allowed(cells[j]!);
+    if (ok) {
+      const chosen = new Set(order.slice(0, n + 1));
+      const terms = pool.filter((_, k) => chosen.has(k));
+      return { terms, tails: cells.map((_, j) => tailOf(j)) };
+    }
+  }
+  return null;
+}
