@@ -18,7 +18,7 @@ const time = (fn, runs) => {
 };
 
 console.log(`machine: ${cpus()[0]?.model ?? 'unknown cpu'}, ${cpus().length} cores; node ${process.version}`);
-console.log('example                      plan ms  emit ms  order terms  add  mul  div  bound (kind)');
+console.log('example                      plan ms  emit ms  form        segments  order terms steps  add  mul  div reads  bound (kind)');
 for (const f of readdirSync('examples').filter((x) => x.endsWith('.yaml')).sort()) {
   const spec = `examples/${f}`;
   const plan = time(() => planSpec(spec), 5);
@@ -31,11 +31,15 @@ for (const f of readdirSync('examples').filter((x) => x.endsWith('.yaml')).sort(
       f.padEnd(28),
       plan.ms.toFixed(0).padStart(7),
       emit.ms.toFixed(0).padStart(8),
+      ` ${p.form.padEnd(11)}`,
+      p.counts.join('x').padEnd(8),
       String(p.order).padStart(6),
       String(p.terms.length).padStart(5),
+      String(p.steps).padStart(5),
       String(p.ops.add).padStart(4),
       String(p.ops.mul).padStart(4),
       String(p.ops.div).padStart(4),
+      String(p.ops.tableReads).padStart(5),
       `  ${p.bound.total.toExponential(2)} (${p.bound.kind})`,
     ].join(' '),
   );
