@@ -155,8 +155,7 @@ function constantFacts(node: object, stored: number, exact: Rational, segment = 
   }
   let f = bySegment.get(segment);
   if (!f) {
-    const lo = exact.toNumberDown();
-    const hi = exact.toNumberUp();
+    const [lo, hi] = exact.toNumberBounds();
     f = { value: { lo, hi }, error: constError(stored, exact, lo, hi) };
     bySegment.set(segment, f);
   }

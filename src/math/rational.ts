@@ -65,7 +65,14 @@ export class Rational {
       mant |= 1n << 52n;
       e = bexp - 1075;
     }
-    return e >= 0 ? Rational.of(sign * (mant << BigInt(e))) : Rational.of(sign * mant, 1n << BigInt(-e));
+    if (e >= 0) return new Rational(sign * (mant << BigInt(e)), 1n);
+    // Lowest terms without a gcd: the denominator is a power of two, so drop the mantissa's trailing zeros.
+    let shift = -e;
+    while (shift > 0 && (mant & 1n) === 0n) {
+      mant >>= 1n;
+      shift--;
+    }
+    return new Rational(sign * mant, 1n << BigInt(shift));
   }
 
   // Sums and products keep lowest terms with gcds of the small factors only
@@ -129,6 +136,14 @@ export class Rational {
   toNumberUp(): number {
     const x = this.toNumber();
     return Rational.fromNumber(x).cmp(this) >= 0 ? x : nextUp(x);
+  }
+
+  /** [toNumberDown(), toNumberUp()] with one rounding and one comparison. */
+  toNumberBounds(): [number, number] {
+    const x = this.toNumber();
+    if (!Number.isFinite(x)) return [this.toNumberDown(), this.toNumberUp()];
+    const c = Rational.fromNumber(x).cmp(this);
+    return [c <= 0 ? x : nextDown(x), c >= 0 ? x : nextUp(x)];
   }
 
   toString(): string {

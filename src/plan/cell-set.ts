@@ -56,9 +56,11 @@ export class CellSet {
    * does not converge there). When three rounds in a row multiply the bad cells
    * by 1.7 or more (2 when both halves of every bad cell stay bad), they cover
    * a region of the box, not the thin rim that overestimation leaves, whose
-   * count would shrink as the cells narrow: no split can fix them, so stop.
+   * count would shrink as the cells narrow: no split can fix them, so a search
+   * trial (`thorough` false) stops there. A plan the user asked for directly
+   * keeps splitting, so its refusal names the region as narrowly as it can.
    */
-  repairBadCells(budget: number, relative: boolean): void {
+  repairBadCells(budget: number, relative: boolean, thorough = true): void {
     let doubling = 0;
     let before = -1;
     for (let round = 0; round < 8; round++) {
@@ -68,7 +70,7 @@ export class CellSet {
       });
       doubling = before > 0 && bad.length >= 1.7 * before ? doubling + 1 : 0;
       before = bad.length;
-      if (bad.length === 0 || doubling >= 3 || this.cells.length + bad.length > budget) return;
+      if (bad.length === 0 || (!thorough && doubling >= 3) || this.cells.length + bad.length > budget) return;
       // Split from the end so earlier indices stay valid.
       for (let k = bad.length - 1; k >= 0; k--) this.splitAt(bad[k]!);
     }

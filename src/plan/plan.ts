@@ -127,7 +127,8 @@ function searchSegments(family: Family, box: ReturnType<typeof boxOf>['cell']): 
   };
   const attemptNew = (counts: number[]): Plan | null => {
     try {
-      const p = planWithCounts(family, box, counts);
+      // Without a bracket there is no search: the one-box plan is the answer, so certify it thoroughly.
+      const p = planWithCounts(family, box, counts, !family.bracket);
       candidates.push(...candidatesOf(p));
       if (!found.best || p.cost < found.best.cost) found.best = p;
       return p;
@@ -286,9 +287,10 @@ function expansionFor(family: Family, layout: SegmentLayout): { expansion: Expan
   return { expansion: { segmentation: layout.segmentation, x0 }, root: { ...root, note } };
 }
 
-function planWithCounts(family: Family, box: ReturnType<typeof boxOf>['cell'], counts: readonly number[]): Plan {
+/** `thorough` false for the trials of a segment search (see CellSet.repairBadCells). */
+function planWithCounts(family: Family, box: ReturnType<typeof boxOf>['cell'], counts: readonly number[], thorough = true): Plan {
   try {
-    return planWithCountsInner(family, box, counts);
+    return planWithCountsInner(family, box, counts, thorough);
   } catch (e) {
     if (e instanceof ConstantOverflowError) {
       throw new RootcastError(
@@ -300,7 +302,7 @@ function planWithCounts(family: Family, box: ReturnType<typeof boxOf>['cell'], c
   }
 }
 
-function planWithCountsInner(family: Family, box: ReturnType<typeof boxOf>['cell'], counts: readonly number[]): Plan {
+function planWithCountsInner(family: Family, box: ReturnType<typeof boxOf>['cell'], counts: readonly number[], thorough: boolean): Plan {
   const layout = segmentLayout(family, box, counts);
   const S = layout.segmentation.segments;
   const { expansion, root } = expansionFor(family, layout);
@@ -329,7 +331,7 @@ function planWithCountsInner(family: Family, box: ReturnType<typeof boxOf>['cell
   const initial = layout.boxes.flatMap((b, segment) => grid(b, perSegment).map((cell) => ({ cell, segment })));
   const x0 = expansion.x0.map((v) => v.toNumber());
   const set = new CellSet(ap, degree, box, x0, initial);
-  set.repairBadCells(LIMITS.cells, relative);
+  set.repairBadCells(LIMITS.cells, relative, thorough);
   refuseBadCells(family, set.cells, relative);
 
   const active = [...ap.q.keys()];
