@@ -8,9 +8,11 @@
  *     [no sign change in the bracket at K point(s), first at IN = V[, ...]; ]
  *     certified bound B; target T; PASS|FAIL
  *
- * (one line; E, B, T in `%.1e`, V in `%.9g`; "worst KIND error none" when no
- * point could be measured).
+ * (one line; E, T in `%.1e`, V in `%.9g`, B in the `%.1e` layout but rounded
+ * up, so the printed bound is never below the proven one (formatEUp); "worst
+ * KIND error none" when no point could be measured).
  */
+import { formatEUp } from '../emit/literals/round-up.js';
 import type { Arithmetic } from '../spec/types.js';
 import { formatE, formatG } from './printf.js';
 
@@ -76,7 +78,7 @@ export function formatSummary(
       : '';
   return (
     `check ${functionName} (${language}, ${arithmetic}): ${plural(s.points)}; ${worst}${noSign}; ` +
-    `certified bound ${formatE(s.bound, 1)}; target ${formatE(s.targetAccuracy, 1)}; ${s.pass ? 'PASS' : 'FAIL'}`
+    `certified bound ${formatEUp(s.bound, 1)}; target ${formatE(s.targetAccuracy, 1)}; ${s.pass ? 'PASS' : 'FAIL'}`
   );
 }
 

@@ -8,6 +8,7 @@
  * machinery templates/glsl/check-reference.js; this file fills in the family
  * and the snippet text.
  */
+import { formatEUp } from '../literals/round-up.js';
 import { readTemplate, renderTemplate } from '../templates.js';
 import { glslFunction } from '../glsl/function.js';
 import { refuseUnlessFloat32 } from '../glsl/refuse.js';
@@ -39,6 +40,7 @@ export function glslHarness(input: EmitInput): EmittedFile {
     hasEdgePoints: parts.edgePoints.length > 0,
     edgeRows: parts.edgePoints.map((p) => p.map(double).join(', ')),
     bound: double(claims.bound.total),
+    boundText: formatEUp(claims.bound.total, 1),
     target: double(claims.target),
     absoluteBound: double(claims.absoluteBound),
     relative: claims.bound.kind === 'relative' ? 'true' : 'false',

@@ -7,6 +7,7 @@
  * code 0 on pass, 1 on fail. The machinery is templates/ts/check.ts.hbs; this
  * file fills in the family: box, bounds, constants and coefficient expressions.
  */
+import { formatEUp } from '../literals/round-up.js';
 import { tsLiteral } from '../literals/ts.js';
 import { renderTemplate } from '../templates.js';
 import type { EmitInput, EmittedFile } from '../types.js';
@@ -33,6 +34,7 @@ export function tsHarness(input: EmitInput): EmittedFile {
     hasEdgePoints: parts.edgePoints.length > 0,
     edgeRows: parts.edgePoints.map((p) => p.map(double).join(', ')),
     bound: double(claims.bound.total),
+    boundText: formatEUp(claims.bound.total, 1),
     target: double(claims.target),
     absoluteBound: double(claims.absoluteBound),
     relative: claims.bound.kind === 'relative' ? 'true' : 'false',

@@ -47,6 +47,20 @@ export function formatBoundUp(value: number, significant = 2): string {
   return `${d.digits[0]}.${d.digits.slice(1)}e${e < 0 ? '-' : '+'}${Math.abs(e)}`;
 }
 
+/**
+ * The layout of C `printf("%.<precision>e", value)`, but rounded UP: the
+ * harnesses and the in-process check print the certified bound this way, so
+ * the summary line never shows less than the proven bound (`2.9e-06`).
+ */
+export function formatEUp(value: number, precision: number): string {
+  const d = roundUpDigits(value, precision + 1);
+  const digits = d.digits === '0' ? '0'.repeat(precision + 1) : d.digits;
+  const e = d.digits === '0' ? 0 : d.point - 1;
+  const mantissa = precision > 0 ? `${digits[0]}.${digits.slice(1)}` : digits;
+  const n = Math.abs(e);
+  return `${mantissa}e${e < 0 ? '-' : '+'}${n < 10 ? '0' : ''}${n}`;
+}
+
 function pow10(k: number): Rational {
   return k >= 0 ? Rational.of(10n ** BigInt(k)) : Rational.of(1n, 10n ** BigInt(-k));
 }

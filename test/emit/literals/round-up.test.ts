@@ -5,7 +5,8 @@
 import { describe, expect, test } from '@jest/globals';
 import { Decimal } from 'decimal.js';
 import fc from 'fast-check';
-import { formatBoundUp, roundUpDigits } from '../../../src/emit/literals/round-up.js';
+import { formatBoundUp, formatEUp, roundUpDigits } from '../../../src/emit/literals/round-up.js';
+import { formatE } from '../../../src/verify/printf.js';
 import { Rational } from '../../../src/math/rational.js';
 
 /** The exact decimal expansion of a positive double (mantissa * 2^e = mantissa * 5^-e / 10^-e). */
@@ -61,5 +62,27 @@ describe('formatBoundUp', () => {
     expect(() => formatBoundUp(-1e-9)).toThrow(RangeError);
     expect(() => formatBoundUp(NaN)).toThrow(RangeError);
     expect(() => formatBoundUp(Infinity)).toThrow(RangeError);
+  });
+});
+
+describe('formatEUp (the summary line\'s bound)', () => {
+  test('is decimal.js ROUND_UP of the exact value, in the layout of C printf("%.1e")', () => {
+    fc.assert(
+      fc.property(positives, (x) => {
+        const up = new Decimal(exactDecimal(x)).toExponential(1, Decimal.ROUND_UP);
+        // decimal.js writes 2.9e-6; printf writes the exponent with at least two digits.
+        const printf = up.replace(/e([+-])(\d)$/, 'e$10$2');
+        expect(formatEUp(x, 1)).toBe(printf);
+      }),
+      { numRuns: 2000, seed: 5 },
+    );
+  });
+
+  test('agrees with printf("%.1e") wherever rounding to nearest already rounds up, and never prints less', () => {
+    expect(formatEUp(2.81e-6, 1)).toBe('2.9e-06');
+    expect(formatE(2.81e-6, 1)).toBe('2.8e-06');
+    expect(formatEUp(0.25, 1)).toBe(formatE(0.25, 1)); // exactly representable: 2.5e-01 either way
+    expect(formatEUp(0, 1)).toBe('0.0e+00');
+    expect(formatEUp(9.96e-5, 1)).toBe('1.0e-04');
   });
 });
