@@ -54,6 +54,15 @@ export class ProgramBuilder {
     readonly segmentation: Segmentation = SINGLE,
   ) {}
 
+  /** An independent builder holding the same nodes (so refs stay valid), to build on without touching this one. */
+  clone(): ProgramBuilder {
+    const c = new ProgramBuilder(this.arithmetic, this.inputNames, this.segmentation);
+    c.nodes.push(...this.nodes);
+    for (const [k, v] of this.memo) c.memo.set(k, v);
+    c.indexRef = this.indexRef;
+    return c;
+  }
+
   get segments(): number {
     return this.segmentation.segments;
   }

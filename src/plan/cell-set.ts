@@ -76,6 +76,22 @@ export class CellSet {
     }
   }
 
+  /**
+   * Cells without a bound whose centre point has none either. A point's
+   * majorant does not change with any split, so such a cell stays bad however
+   * far it is refined: a search trial can be refused at once.
+   */
+  badAtCentre(relative: boolean): CellFacts[] {
+    return this.cells.filter((c) => {
+      if (!this.bad(c, relative)) return false;
+      const centre = c.cell.map((iv) => {
+        const m = iv.lo + (iv.hi - iv.lo) / 2;
+        return { lo: m, hi: m };
+      });
+      return this.bad(cellFacts(this.ap, this.degree, centre, this.x0[c.segment]!, c.segment), relative);
+    });
+  }
+
   /** The truncation bound over all cells, absolute or relative to |x*|. */
   truncation(order: number, relative: boolean): number {
     let worst = 0;

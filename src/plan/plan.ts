@@ -331,6 +331,11 @@ function planWithCountsInner(family: Family, box: ReturnType<typeof boxOf>['cell
   const initial = layout.boxes.flatMap((b, segment) => grid(b, perSegment).map((cell) => ({ cell, segment })));
   const x0 = expansion.x0.map((v) => v.toNumber());
   const set = new CellSet(ap, degree, box, x0, initial);
+  if (!thorough) {
+    // A search trial with a cell that is bad at its very centre cannot be repaired: refuse it now.
+    const hopeless = set.badAtCentre(relative);
+    if (hopeless.length > 0) refuseBadCells(family, hopeless, relative);
+  }
   set.repairBadCells(LIMITS.cells, relative, thorough);
   refuseBadCells(family, set.cells, relative);
 

@@ -22,13 +22,13 @@
 import { addUp, divUp, mulDown, mulUp, powUp, subDown } from '../math/directed.js';
 import { Rational } from '../math/rational.js';
 import { analyse, largestComputed } from '../ir/analyse.js';
-import { ProgramBuilder, type Ref } from '../ir/builder.js';
+import type { ProgramBuilder, Ref } from '../ir/builder.js';
 import type { Program } from '../ir/nodes.js';
 import { FORMATS } from '../ir/round.js';
 import type { SeriesTerm } from '../series/hyper-catalan.js';
 import type { Family } from '../spec/types.js';
 import { cellTail, type CellFacts } from './cell-bound.js';
-import { buildPrefix, seriesCore, setupSeries, type Expansion, type Prefix } from './series-program.js';
+import { prefixBuilder, seriesCore, type Expansion, type Prefix } from './series-program.js';
 
 /** A signed term of a Horner sum: sign * value of ref. */
 interface Signed {
@@ -102,9 +102,7 @@ export function coreProgram(family: Family, e: Expansion, terms: readonly Series
  */
 export function stepProgram(family: Family, e: Expansion, last: boolean): Program {
   const d = family.inputs.length;
-  const b = new ProgramBuilder(family.arithmetic, [...family.inputs.map((i) => i.name), 'v'], e.segmentation);
-  const s = setupSeries(family, e.x0, b);
-  const p = buildPrefix(b, s);
+  const { b, setup: s, prefix: p } = prefixBuilder(family, e, ['v']);
   const v1 = newtonStep(b, p, b.input(d), s.active);
   return b.finish(last ? b.sub(b.const(e.x0), v1) : v1);
 }

@@ -105,12 +105,45 @@ export interface AnalysisProgram {
   readonly c1: Ref | null;
 }
 
+/**
+ * The recentred forms and the prefix (r, q_k) for an expansion, built once and
+ * kept while the expansion lives: every program of a planning trial starts
+ * from a clone of this builder, so the exact recentring is not redone.
+ */
+interface Base {
+  readonly b: ProgramBuilder;
+  readonly setup: SeriesSetup;
+  readonly prefix: Prefix;
+}
+const bases = new WeakMap<Family, WeakMap<Expansion, Map<string, Base>>>();
+
+function baseOf(family: Family, e: Expansion, extraInputs: readonly string[]): Base {
+  let byExpansion = bases.get(family);
+  if (!byExpansion) bases.set(family, (byExpansion = new WeakMap()));
+  let byInputs = byExpansion.get(e);
+  if (!byInputs) byExpansion.set(e, (byInputs = new Map()));
+  const key = extraInputs.join(',');
+  let base = byInputs.get(key);
+  if (!base) {
+    const b = new ProgramBuilder(family.arithmetic, [...family.inputs.map((i) => i.name), ...extraInputs], e.segmentation);
+    const setup = setupSeries(family, e.x0, b);
+    base = { b, setup, prefix: buildPrefix(b, setup) };
+    byInputs.set(key, base);
+  }
+  return base;
+}
+
+/** A fresh builder holding the expansion's recentred forms and prefix, with `extraInputs` after the family's inputs. */
+export function prefixBuilder(family: Family, e: Expansion, extraInputs: readonly string[] = []): SeriesCore {
+  const base = baseOf(family, e, extraInputs);
+  return { b: base.b.clone(), setup: base.setup, prefix: base.prefix, v: base.prefix.r };
+}
+
 /** The unpruned program computing r, q_k (and c'1): what the truncation bound needs per cell. */
 export function analysisProgram(family: Family, e: Expansion): AnalysisProgram {
-  const b = new ProgramBuilder(family.arithmetic, family.inputs.map((i) => i.name), e.segmentation);
-  const s = setupSeries(family, e.x0, b);
-  const p = buildPrefix(b, s);
-  return { program: b.snapshot(), r: p.r, q: p.q, c1: p.c1 };
+  const base = baseOf(family, e, []);
+  const p = base.prefix;
+  return { program: base.b.snapshot(), r: p.r, q: p.q, c1: p.c1 };
 }
 
 /** The emitted program for the kept terms (ordered by grade, as termsUpToGrade gives them). */
@@ -128,9 +161,7 @@ export interface SeriesCore {
 }
 
 export function seriesCore(family: Family, e: Expansion, terms: readonly SeriesTerm[], extraInputs: readonly string[] = []): SeriesCore {
-  const b = new ProgramBuilder(family.arithmetic, [...family.inputs.map((i) => i.name), ...extraInputs], e.segmentation);
-  const s = setupSeries(family, e.x0, b);
-  const p = buildPrefix(b, s);
+  const { b, setup: s, prefix: p } = prefixBuilder(family, e, extraInputs);
   const qConst = [...p.q.values()].every((ref) => b.segValues(ref) !== null);
   const a = qConst ? hornerInR(b, p, terms, s.active) : nestedHorner(b, p, terms, s.active);
   return { b, setup: s, prefix: p, v: b.mul(p.r, a) };
@@ -210,8 +241,7 @@ export interface Collapsed {
 }
 
 export function collapsedSeries(family: Family, e: Expansion, terms: readonly SeriesTerm[]): Collapsed | null {
-  const b = new ProgramBuilder(family.arithmetic, family.inputs.map((i) => i.name), e.segmentation);
-  const s = setupSeries(family, e.x0, b);
+  const { b, setup: s } = prefixBuilder(family, e);
   const c1 = s.shifted[1]!;
   if (!isConstant(c1)) return null;
   const inv = c1.constant.map((v) => Rational.ONE.div(v));
