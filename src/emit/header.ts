@@ -82,11 +82,12 @@ export function equationText(family: Family): string {
 }
 
 /**
- * The spec path as the user gave it; an absolute path keeps only its last
- * component, so the header never names a machine's directories.
+ * The spec's file name only, however the path was given: the header never
+ * names a machine's directories, and a build that passes an absolute path
+ * (CMake does) writes the same bytes as a shell that passes a relative one,
+ * so `emit --check` does not call fresh files stale.
  */
 export function specPathForHeader(file: string): string {
-  if (!/^([A-Za-z]:)?[\\/]/.test(file)) return file;
   const parts = file.split(/[\\/]/).filter((p) => p !== '');
   return parts[parts.length - 1] ?? file;
 }
