@@ -19,7 +19,7 @@ export function claimsOf(plan: Plan): PlanClaims {
     steps: plan.steps,
     rootNote:
       plan.form === 'economised'
-        ? `${plan.root.note}; the series is collapsed to a polynomial in ${plan.family.inputs[0]!.name} and Chebyshev-economised to degree ${plan.degree} (the truncation bound below includes the economisation error)`
+        ? `${plan.root.note}; the series is collapsed to a polynomial in ${plan.family.inputs[0]!.name} and Chebyshev-economised to degree ${plan.degree}`
         : plan.form === 'greedy'
           ? `${plan.root.note}; the kept terms are chosen greedily, largest majorant contribution first, from every term up to grade ${plan.order + 2} (the truncation bound below is for exactly these terms)`
           : plan.steps > 0

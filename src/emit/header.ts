@@ -42,9 +42,14 @@ export function headerLines(input: EmitInput, fileRole: string): string[] {
     ...labelled('arithmetic:', [ARITHMETIC_NOTE[input.program.arithmetic]]),
     '',
     `certified bound (${b.kind} error, over the whole input box):`,
-    `  truncation  ${formatBoundUp(b.truncation)}`,
-    `  rounding    ${formatBoundUp(b.rounding)}`,
-    `  total       ${formatBoundUp(b.total)}`,
+    ...(b.economisation === undefined
+      ? [`  truncation  ${formatBoundUp(b.truncation)}`, `  rounding    ${formatBoundUp(b.rounding)}`, `  total       ${formatBoundUp(b.total)}`]
+      : [
+          `  truncation     ${formatBoundUp(b.truncation)}`,
+          `  economisation  ${formatBoundUp(b.economisation)}`,
+          `  rounding       ${formatBoundUp(b.rounding)}`,
+          `  total          ${formatBoundUp(b.total)}`,
+        ]),
     ...labelled('target:', [`${family.accuracy.value} (${family.accuracy.kind})`]),
     ...labelled('series:', [
       `order ${claims.order}, ${claims.terms} ${claims.terms === 1 ? 'term' : 'terms'}${claims.steps > 0 ? `, then ${claims.steps} Newton ${claims.steps === 1 ? 'step' : 'steps'}` : ''}`,

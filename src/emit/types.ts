@@ -23,6 +23,8 @@ export interface PlanClaims {
   readonly bound: {
     readonly kind: 'absolute' | 'relative';
     readonly truncation: number;
+    /** Chebyshev economisation error, for economised plans only. */
+    readonly economisation?: number;
     readonly rounding: number;
     readonly total: number;
   };

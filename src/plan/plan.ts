@@ -38,7 +38,10 @@ export type PlanForm = 'series' | 'greedy' | 'economised';
 
 export interface Bound {
   readonly kind: 'absolute' | 'relative';
+  /** Series truncation (or, after Newton steps, the Newton error term left). */
   readonly truncation: number;
+  /** Chebyshev economisation: the dropped coefficients (economised plans only). */
+  readonly economisation?: number;
   readonly rounding: number;
   readonly total: number;
 }
@@ -597,9 +600,11 @@ function evaluate(
   extra: (c: CellFacts) => number = () => 0,
 ): Evaluated {
   let truncation = 0;
+  let economisation = 0;
   let rounding = 0;
   let total = 0;
   let absolute = 0;
+  let hasExtra = false;
   for (const c of cells) {
     // float32 bounds allow for flushed subnormals too, so one bound holds on CPUs and GPUs.
     const an = analyse(program, c.cell, { segment: c.segment, flushToZero: program.arithmetic === 'float32' });
@@ -610,19 +615,24 @@ function evaluate(
         locate(family, 'arithmetic'),
       );
     }
-    const tr = addUp(tail(c), extra(c));
-    const abs = addUp(tr, rnd);
+    const t = tail(c);
+    const x = extra(c);
+    if (x > 0) hasExtra = true;
+    const abs = addUp(addUp(t, x), rnd);
     absolute = Math.max(absolute, abs);
     if (relative) {
-      truncation = Math.max(truncation, divUp(tr, c.rootMin));
+      truncation = Math.max(truncation, divUp(t, c.rootMin));
+      economisation = Math.max(economisation, divUp(x, c.rootMin));
       rounding = Math.max(rounding, divUp(rnd, c.rootMin));
       total = Math.max(total, divUp(abs, c.rootMin));
     } else {
-      truncation = Math.max(truncation, tr);
+      truncation = Math.max(truncation, t);
+      economisation = Math.max(economisation, x);
       rounding = Math.max(rounding, rnd);
       total = Math.max(total, abs);
     }
   }
-  return { bound: { kind: relative ? 'relative' : 'absolute', truncation, rounding, total }, absolute };
+  const kind = relative ? 'relative' : 'absolute';
+  return { bound: hasExtra ? { kind, truncation, economisation, rounding, total } : { kind, truncation, rounding, total }, absolute };
 }
 

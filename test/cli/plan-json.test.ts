@@ -13,10 +13,11 @@ const EXAMPLES = ['kiln-probe', 'gas-molar-volume', 'lens-undistort'] as const;
 
 interface PlanJson {
   function: string;
+  form: string;
   arithmetic: string;
   order: number;
   terms: number;
-  bound: { kind: string; truncation: number; rounding: number; total: number };
+  bound: { kind: string; truncation: number; economisation?: number; rounding: number; total: number };
   target: number;
   ops: { add: number; mul: number; div: number; tableReads: number };
 }
@@ -71,10 +72,14 @@ describe('plan --json', () => {
     expect(p.bound.total).toBeGreaterThanOrEqual(p.bound.truncation);
     expect(p.bound.total).toBeGreaterThanOrEqual(p.bound.rounding);
     expect(p.bound.total).toBeLessThanOrEqual(p.target);
-    // total is the worst of truncation + rounding over the cells; the two
-    // maxima may sit in different cells, so total <= truncation + rounding (up
-    // to one rounding up of the sum), and total >= each part's maximum (above).
-    expect(p.bound.total).toBeLessThanOrEqual((p.bound.truncation + p.bound.rounding) * (1 + 2 ** -52));
+    // total is the worst of truncation (+ economisation) + rounding over the
+    // cells; the maxima may sit in different cells, so total <= the sum of the
+    // parts (up to the rounding up of the sums), and total >= each part's maximum.
+    const economisation = p.bound.economisation ?? 0;
+    if (p.form === 'economised') expect(economisation).toBeGreaterThan(0);
+    else expect(p.bound.economisation).toBeUndefined();
+    expect(p.bound.total).toBeGreaterThanOrEqual(economisation);
+    expect(p.bound.total).toBeLessThanOrEqual((p.bound.truncation + economisation + p.bound.rounding) * (1 + 2 ** -51));
   });
 
   test('the same spec gives byte-identical JSON twice', () => {

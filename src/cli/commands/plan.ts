@@ -77,7 +77,7 @@ export function planText(plan: Plan): string {
     ['series', `order ${c.order}, ${c.terms} terms, bound certified over ${plan.cells} cells`],
     [
       'bound',
-      `${b.kind}: truncation ${formatBoundUp(b.truncation)} + rounding ${formatBoundUp(b.rounding)} -> total ${formatBoundUp(b.total)}`,
+      `${b.kind}: truncation ${formatBoundUp(b.truncation)}${b.economisation === undefined ? '' : ` + economisation ${formatBoundUp(b.economisation)}`} + rounding ${formatBoundUp(b.rounding)} -> total ${formatBoundUp(b.total)}`,
     ],
     ['target', `${f.accuracy.value} (${f.accuracy.kind})`],
     ['ops', `${c.ops.add} add, ${c.ops.mul} mul, ${c.ops.div} div, ${c.ops.tableReads} table reads`],
