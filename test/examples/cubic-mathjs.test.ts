@@ -26,7 +26,7 @@ import { emitInputOf } from '../../src/cli/pipeline.js';
 import { evaluate } from '../../src/ir/evaluate.js';
 import { makePlan, type Plan } from '../../src/plan/plan.js';
 import { readSpec } from '../../src/spec/read.js';
-import { inputBox, samplePoints } from '../../src/verify/samples.js';
+import { checkSamplePoints } from '../../src/verify/samples.js';
 import { emitExample, fileEndingWith, type EmittedExample } from './support/emit-example.js';
 import { compileCFunction } from './support/run-c.js';
 import { makeWorkDir } from './support/workdir.js';
@@ -64,7 +64,8 @@ interface Case {
 /** Compares in-process and C results with mathjs at POINTS sample points; returns failure lines. */
 function compare(c: Case): { failures: string[]; compared: number } {
   const { family, program, bound } = c.plan;
-  const points = samplePoints(inputBox(family), POINTS, 1, family.arithmetic);
+  // The check's own sample set, segment edges and their float neighbours included.
+  const points = checkSamplePoints(family, program, POINTS, 1);
   const inProcess = points.map((p) => evaluate(program, p));
   const compiled = compileCFunction(dir, c.header, family.functionName, family.inputs.length, family.arithmetic)(points);
   const relative = bound.kind === 'relative';

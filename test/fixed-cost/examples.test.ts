@@ -37,7 +37,7 @@ import { execFileSync, spawnSync } from 'node:child_process';
 import { C_TYPE } from '../../src/emit/c/body.js';
 import { cortexM4fCycles, cycleHeaderLine } from '../../src/emit/cycles.js';
 import { compileAndCount, hasToolchain, probeName, probeSource, type BranchTarget } from '../../src/verify/branches.js';
-import { inputBox, samplePoints } from '../../src/verify/samples.js';
+import { checkSamplePoints, inputBox } from '../../src/verify/samples.js';
 import { makeWorkDir } from '../emit/support/workdir.js';
 import { fixedCostDriver, perCallCounts, totalCount } from './callgrind.js';
 import { m4fMix } from './m4f-mix.js';
@@ -111,8 +111,10 @@ describe('every input costs the same instructions (callgrind)', () => {
     const { program, family } = input;
     const f32 = program.arithmetic === 'float32';
     const box = inputBox(family);
-    // TODO(segments): when programs carry segment tables, add each segment edge and its float neighbours.
-    const points = [...samplePoints(box, POINTS, 1, program.arithmetic), ...edgeNeighbours(box, f32)];
+    // The check's own sample set (corners, grid, random, and every segment edge with its float
+    // neighbours for segmented plans), plus the neighbours of the box ends.
+    const points = [...checkSamplePoints(family, program, POINTS, 1), ...edgeNeighbours(box, f32)];
+    if (program.nodes.some((n) => n.kind === 'index')) expect(points.length).toBeGreaterThan(POINTS + edgeNeighbours(box, f32).length);
     expect(points.length).toBeGreaterThanOrEqual(POINTS);
     dir.write(header.path, header.text);
     const exe = `${name}_cg`;
