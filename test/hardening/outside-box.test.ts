@@ -31,6 +31,9 @@ const SPECS: readonly SpecUnderTest[] = [
   { file: 'examples/lens-undistort.yaml', name: 'lens_undistort_radius', arithmetic: 'float32', box: [[0, 0.7], [-0.1, 0.1], [-0.02, 0.02]] },
   // Segmented (128 float32 tables): inputs outside the box, NaN and infinities must clamp to a table entry.
   { file: 'examples/ease-in-out.yaml', name: 'ease_in_out_param', arithmetic: 'float32', box: [[0, 1]] },
+  { file: 'examples/spring-scale.yaml', name: 'spring_deflection_mm', arithmetic: 'float32', box: [[0, 200]] },
+  // Segmented in both inputs (a 16 x 8 grid): each index part clamps on its own.
+  { file: 'examples/gas-wide.yaml', name: 'n2_molar_volume_wide', arithmetic: 'float32', box: [[40, 80], [250, 350]] },
 ];
 
 /** Values tried in each input in turn (the others at the box centre). */
