@@ -18,6 +18,8 @@ import type { AnalysisProgram } from './series-program.js';
 export type CellState =
   | { readonly kind: 'ok' }
   | { readonly kind: 'slope-vanishes' }
+  /** r or some q_k has no finite enclosure: a coefficient may have a pole in the cell, or overflows float64. */
+  | { readonly kind: 'unbounded' }
   | { readonly kind: 'diverges'; readonly T: readonly number[] };
 
 export interface CellFacts {
@@ -51,6 +53,7 @@ export function cellFacts(ap: AnalysisProgram, degree: number, cell: Cell, x0: n
   const base = { cell, segment, T, Q, rRange: an.values[ap.r]!, gradeSums: [] as number[], rootMin: 0 };
   if (ap.c1 !== null) {
     const v = an.values[ap.c1]!;
+    if (!Number.isFinite(v.lo) || !Number.isFinite(v.hi)) return { ...base, state: { kind: 'unbounded' }, R: Infinity, aUpper: Infinity };
     if (v.lo <= 0 && v.hi >= 0) return { ...base, state: { kind: 'slope-vanishes' }, R: Infinity, aUpper: Infinity };
   }
   const R = mag(an.values[ap.r]!);
@@ -59,7 +62,7 @@ export function cellFacts(ap: AnalysisProgram, degree: number, cell: Cell, x0: n
     T[k] = mulUp(powUp(R, k - 1), Q[k]!);
   }
   if (!Number.isFinite(R) || T.some((t) => !Number.isFinite(t))) {
-    return { ...base, state: { kind: 'slope-vanishes' }, R: Infinity, aUpper: Infinity };
+    return { ...base, state: { kind: 'unbounded' }, R: Infinity, aUpper: Infinity };
   }
   const root = majorantRoot(T);
   if (!root.converges) return { ...base, state: { kind: 'diverges', T }, R, aUpper: Infinity };

@@ -1,13 +1,33 @@
 /** The planner's one-line refusals (exit code 2), each saying what to change. */
 import { RootcastError } from '../errors.js';
 import { criticalT } from '../series/hyper-catalan.js';
+import { printExpr } from '../spec/expr-print.js';
+import { showText } from '../spec/show.js';
 import type { Family } from '../spec/types.js';
 import { describeCell, short } from './box.js';
 import type { CellFacts } from './cell-bound.js';
+import { poleOver, type Division } from './coefficient-poles.js';
 import { LIMITS } from './limits.js';
 import { locate } from './locate.js';
 
 export function refuseBadCells(family: Family, cells: readonly CellFacts[], relative: boolean): void {
+  const noSeries = cells.filter((c) => c.state.kind === 'unbounded' || c.state.kind === 'slope-vanishes');
+  // A pole in any coefficient makes r, q_k or the slope itself unbounded: name it first, at its division.
+  const pole = firstPole(family, noSeries);
+  if (pole) {
+    const inputs = family.inputs.length > 1 ? 'the input ranges' : 'the input range';
+    throw new RootcastError(
+      `coefficient ${pole.power} can be unbounded for ${region(family, pole.cells)}: it divides by \`${showText(printExpr(pole.division.right), 40)}\`, which can be zero there; narrow ${inputs} or rewrite the expression`,
+      { ...locate(family, `coefficients.${pole.power}`), line: pole.division.pos.line, column: pole.division.pos.column },
+    );
+  }
+  const unbounded = cells.filter((c) => c.state.kind === 'unbounded');
+  if (unbounded.length > 0) {
+    throw new RootcastError(
+      `the series terms t_k = (-1)^k r^(k-1) q_k have no finite float64 bound for ${region(family, unbounded)} (they reach beyond about 1.8e308 there); narrow the input ranges or rescale the unknown or the inputs`,
+      locate(family, 'inputs'),
+    );
+  }
   const slope = cells.filter((c) => c.state.kind === 'slope-vanishes');
   if (slope.length > 0) {
     throw new RootcastError(
@@ -37,6 +57,27 @@ export function refuseBadCells(family: Family, cells: readonly CellFacts[], rela
       );
     }
   }
+}
+
+/**
+ * The lowest power whose expression divides by something that can be zero
+ * over some of `cells`, that division, and the cells where it can.
+ */
+function firstPole(family: Family, cells: readonly CellFacts[]): { power: number; division: Division; cells: CellFacts[] } | null {
+  for (const [power, e] of family.coefficients.entries()) {
+    if (e === null) continue;
+    const at = new Map<Division, CellFacts[]>();
+    for (const c of cells) {
+      const d = poleOver(e, c.cell, family.constants);
+      if (!d) continue;
+      const list = at.get(d);
+      if (list) list.push(c);
+      else at.set(d, [c]);
+    }
+    const first = [...at][0];
+    if (first) return { power, division: first[0], cells: first[1] };
+  }
+  return null;
 }
 
 function maxRatio(c: CellFacts): number {

@@ -9,7 +9,10 @@ import { RootcastError } from '../errors.js';
 import { Rational } from '../math/rational.js';
 import { roundTo } from '../ir/round.js';
 import { evalExprExact } from '../spec/expr-eval.js';
-import type { Family } from '../spec/types.js';
+import { printExpr } from '../spec/expr-print.js';
+import { showText } from '../spec/show.js';
+import type { Expr, Family } from '../spec/types.js';
+import { poleOver } from './coefficient-poles.js';
 import { signAt } from '../series/recenter.js';
 import { locate } from './locate.js';
 
@@ -31,7 +34,7 @@ export function rootAt(family: Family, point: readonly Rational[]): Rational {
   if (!family.bracket) throw new RangeError('rootAt needs a bracket');
   const constants: Record<string, Rational> = {};
   for (const [k, v] of Object.entries(family.constants)) constants[k] = Rational.parseDecimal(v);
-  const c = family.coefficients.map((e) => (e === null ? Rational.ZERO : evalExprExact(e, point, constants)));
+  const c = family.coefficients.map((e, k) => (e === null ? Rational.ZERO : coefficientAt(family, k, e, point, constants)));
   const lo = Rational.parseDecimal(family.bracket[0]);
   const hi = Rational.parseDecimal(family.bracket[1]);
   // The sign change is checked exactly at the bracket ends; inside, float64
@@ -52,6 +55,25 @@ export function rootAt(family: Family, point: readonly Rational[]): Rational {
     );
   }
   return Rational.fromNumber(x0);
+}
+
+/** Coefficient k exactly at a point; a division by zero there is refused at that division. */
+function coefficientAt(family: Family, k: number, e: Expr, point: readonly Rational[], constants: Record<string, Rational>): Rational {
+  try {
+    return evalExprExact(e, point, constants);
+  } catch (err) {
+    if (!(err instanceof RangeError) || !/division by zero/.test(err.message)) throw err;
+    const cell = point.map((v) => {
+      const [lo, hi] = v.toNumberBounds();
+      return { lo, hi };
+    });
+    const d = poleOver(e, cell, family.constants);
+    const what = d ? `divides by \`${showText(printExpr(d.right), 40)}\`, which is zero` : 'divides by zero';
+    throw new RootcastError(
+      `coefficient ${k} ${what} at ${pointText(family, point)}, where the bracketed root is found; shift or narrow the input ranges so no divisor vanishes in them, or rewrite the expression`,
+      d ? { ...locate(family, `coefficients.${k}`), line: d.pos.line, column: d.pos.column } : locate(family, `coefficients.${k}`),
+    );
+  }
 }
 
 /** Bisection with float64 signs between ends whose exact signs differ; returns the final midpoint. */

@@ -16,20 +16,28 @@ const edge = (file: string): string => `test/fixtures/edge/${file}`;
 
 // Every run is independent: start them all at once (a few at a time).
 const dirs = new Map<string, string>();
-let runs: Record<'badTarget' | 'newOut' | 'outFile' | 'divZero' | 'pole' | 'bigRoot', CliRun>;
+let runs: Record<'badTarget' | 'newOut' | 'outFile' | 'divZero' | 'pole' | 'poleAtCentre' | 'bigRoot', CliRun>;
+
+/**
+ * pole-in-box.yaml with the pole moved to the box centre, R = 245.245 (the
+ * midpoint of [100, 390.49]), where the bracketed root is found first.
+ */
+const POLE_AT_CENTRE = readFileSync(edge('pole-in-box.yaml'), 'utf8').replace('2: B / (R - 200)', '2: B / (R - 245.245)');
 beforeAll(async () => {
   ensureBuilt();
-  for (const k of ['newOut', 'outFile', 'bigRoot']) dirs.set(k, tempDir(k));
+  for (const k of ['newOut', 'outFile', 'bigRoot', 'poleAtCentre']) dirs.set(k, tempDir(k));
   writeFileSync(join(dirs.get('outFile')!, 'not-a-dir'), 'keep me\n');
-  const [badTarget, newOut, outFile, divZero, pole, bigRoot] = await runMany([
+  writeFileSync(join(dirs.get('poleAtCentre')!, 'pole-at-centre.yaml'), POLE_AT_CENTRE);
+  const [badTarget, newOut, outFile, divZero, pole, poleAtCentre, bigRoot] = await runMany([
     { args: ['emit', 'examples/kiln-probe.yaml', '--target', 'fortran', '--out', join(tempDir('bad-target'), 'out')] },
     { args: ['new', 'spring_gauge', '--out', 'no-such-dir/spring.yaml'], cwd: dirs.get('newOut')! },
     { args: ['emit', 'examples/kiln-probe.yaml', '--target', 'c', '--out', join(dirs.get('outFile')!, 'not-a-dir')] },
     { args: ['plan', edge('division-by-zero-expression.yaml')] },
     { args: ['plan', edge('pole-in-box.yaml')] },
+    { args: ['plan', 'pole-at-centre.yaml'], cwd: dirs.get('poleAtCentre')! },
     { args: ['emit', edge('root-beyond-float32.yaml'), '--target', 'c', '--out', join(dirs.get('bigRoot')!, 'out')] },
   ]);
-  runs = { badTarget: badTarget!, newOut: newOut!, outFile: outFile!, divZero: divZero!, pole: pole!, bigRoot: bigRoot! };
+  runs = { badTarget: badTarget!, newOut: newOut!, outFile: outFile!, divZero: divZero!, pole: pole!, poleAtCentre: poleAtCentre!, bigRoot: bigRoot! };
 });
 afterAll(removeTempDirs);
 
@@ -62,10 +70,26 @@ describe('specs that get an internal error or the wrong field', () => {
     expect(line.line).toBe(9);
   });
 
-  test.failing('a division by zero inside the box (a pole at R = 200) is refused at its coefficient, not as a vanishing slope', () => {
+  // Fixed: src/plan/refusals.ts names the coefficient whose division can be by
+  // zero (src/plan/coefficient-poles.ts) before it speaks of the slope.
+  test('a division by zero inside the box (a pole at R = 200) is refused at its coefficient, not as a vanishing slope', () => {
     const line = expectSpecRefusal(runs.pole);
+    // Line 10 is `  2: B / (R - 200)`; column 8 is its `/`.
+    expect({ field: line.field, line: line.line, column: line.column }).toEqual({ field: 'coefficients.2', line: 10, column: 8 });
+    expect(line.message).toMatch(/^coefficient 2 can be unbounded for R in \[[^\]]+\]: it divides by `R - 200`, which can be zero there; narrow the input range or rewrite the expression$/);
+    expect(line.message).not.toContain('slope');
+    // The named region holds the pole: R - 200 = 0 at R = 200.
+    const [lo, hi] = /R in \[([^,]+), ([^\]]+)\]/.exec(line.message)!.slice(1).map(Number);
+    expect(lo! <= 200 && 200 <= hi!).toBe(true);
+  });
+
+  // src/plan/root-choice.ts rootAt evaluates the coefficients exactly at the box
+  // centre to find x0 in the bracket; Rational.div's "division by zero" there
+  // escapes as "internal error" before the cells are looked at.
+  test('a pole at the box centre (with root.bracket) is refused at its coefficient, not as an internal error', () => {
+    const line = expectSpecRefusal(runs.poleAtCentre);
     expect(line.field).toBe('coefficients.2');
-    expect(line.message).toMatch(/divi/);
+    expect(line.message).toContain('divides by `R - 245.245`');
   });
 
   test('a root beyond the float32 range is refused in one located line', () => {

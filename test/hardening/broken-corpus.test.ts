@@ -101,6 +101,17 @@ const CASES: readonly Case[] = [
   // Valid specs the planner refuses.
   { file: 'slope-vanishes.yaml', at: '10:3: inputs', says: ["the slope c1 = P'(x0) can vanish for k in", 'narrow the input ranges or add root.bracket'] },
   { file: 'series-diverges.yaml', at: '10:3: inputs', says: ['the series does not converge for c in', 'narrow the input ranges'] },
+  // A pole inside the box: refused at the division, naming the coefficient, not as a vanishing slope.
+  {
+    file: 'pole-in-constant-term.yaml',
+    at: '6:12: coefficients.0',
+    says: ['coefficient 0 can be unbounded for p in [0.49', 'divides by `p - 0.5`, which can be zero there', 'narrow the input range or rewrite the expression'],
+  },
+  {
+    file: 'pole-in-higher-coefficient.yaml',
+    at: '9:12: coefficients.3',
+    says: ['coefficient 3 can be unbounded for P in [35, 37], T in [298.1', 'divides by `T - T_ref`, which can be zero there', 'narrow the input ranges or rewrite the expression'],
+  },
   {
     file: 'accuracy-below-rounding-floor.yaml',
     at: '18:13: accuracy.absolute',

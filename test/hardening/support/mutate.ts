@@ -60,3 +60,27 @@ export function applyMutation(text: string, m: { kind: Mutation['kind']; f: numb
     }
   }
 }
+
+/**
+ * `count` different texts drawn from `arb`, first occurrences in draw order,
+ * drawn in batches with the seeds seed, seed + 1, ... (deterministic). The
+ * edit positions are biased towards the start of the text, as fast-check
+ * biases small values, so plain sampling repeats itself: of 2000 draws (seed 6) only
+ * 833 texts differ and 416 are the empty file. A repeat is the same bytes,
+ * which run the same way again (output depends on the spec alone), so it
+ * tests nothing new; counting distinct specs keeps the count honest.
+ */
+export function distinctSamples(arb: fc.Arbitrary<string>, count: number, seed: number): string[] {
+  const seen = new Set<string>();
+  const out: string[] = [];
+  for (let batch = 0; out.length < count; batch++) {
+    if (batch === 100) throw new Error(`only ${out.length} distinct samples in 100 batches of ${count}`);
+    for (const s of fc.sample(arb, { numRuns: count, seed: seed + batch })) {
+      if (out.length === count) break;
+      if (seen.has(s)) continue;
+      seen.add(s);
+      out.push(s);
+    }
+  }
+  return out;
+}
