@@ -34,7 +34,7 @@ export async function main(argv: string[]): Promise<number> {
     )
     .command(
       'plan <spec>',
-      'print the chosen plan: root, centre, order, terms, certified bounds, op counts',
+      'print the chosen plan (root, centre, segments, order, terms, Newton steps, certified bounds, op counts) and every candidate weighed',
       (y) =>
         y
           .positional('spec', { type: 'string', demandOption: true, describe: 'spec file (YAML or JSON)' })
@@ -71,7 +71,7 @@ export async function main(argv: string[]): Promise<number> {
         y
           .positional('spec', { type: 'string', demandOption: true, describe: 'spec file (YAML or JSON)' })
           .option('target', { choices: TARGET_CHOICES, default: 'all' as const, describe: 'harnesses to build and run (all: c, ts, and glsl in headless Chromium when the spec is float32)' })
-          .option('samples', { type: 'number', default: 10000, describe: 'sample points (corners, a grid, seeded random)' })
+          .option('samples', { type: 'number', default: 10000, describe: 'sample points (corners, a grid, seeded random); segment edges and their neighbours come on top' })
           .option('seed', { type: 'number', default: 1, describe: 'seed of the random sample points' })
           .option('json', { type: 'boolean', default: false, describe: 'print one JSON object (plan claims and every check) instead of text' })
           .option('report', { type: 'string', describe: 'also write FILE.html, a self-contained page plotting the measured error' }),
