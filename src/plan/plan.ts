@@ -26,6 +26,7 @@ import { chooseRoot, pointText, rootAt, type RootChoice } from './root-choice.js
 import { segmentLayout, type SegmentLayout } from './segments.js';
 import { analysisProgram, CoefficientError, collapsedSeries, seriesProgram, ZeroSlopeError, type AnalysisProgram, type Expansion } from './series-program.js';
 import { greedyTerms } from './term-choice.js';
+import { WorstParts } from './worst-parts.js';
 import { chebyshevForm, economise } from './economise.js';
 import { coreProgram, polishBound, polishedProgram, PolishFailure, stepProgram } from './polish.js';
 
@@ -599,11 +600,7 @@ function evaluate(
   relative: boolean,
   extra: (c: CellFacts) => number = () => 0,
 ): Evaluated {
-  let truncation = 0;
-  let economisation = 0;
-  let rounding = 0;
-  let total = 0;
-  let absolute = 0;
+  const worst = new WorstParts(relative);
   let hasExtra = false;
   for (const c of cells) {
     // float32 bounds allow for flushed subnormals too, so one bound holds on CPUs and GPUs.
@@ -618,21 +615,10 @@ function evaluate(
     const t = tail(c);
     const x = extra(c);
     if (x > 0) hasExtra = true;
-    const abs = addUp(addUp(t, x), rnd);
-    absolute = Math.max(absolute, abs);
-    if (relative) {
-      truncation = Math.max(truncation, divUp(t, c.rootMin));
-      economisation = Math.max(economisation, divUp(x, c.rootMin));
-      rounding = Math.max(rounding, divUp(rnd, c.rootMin));
-      total = Math.max(total, divUp(abs, c.rootMin));
-    } else {
-      truncation = Math.max(truncation, t);
-      economisation = Math.max(economisation, x);
-      rounding = Math.max(rounding, rnd);
-      total = Math.max(total, abs);
-    }
+    worst.add(c.rootMin, { truncation: t, economisation: x, rounding: rnd, total: addUp(addUp(t, x), rnd) });
   }
   const kind = relative ? 'relative' : 'absolute';
+  const { truncation, economisation, rounding, total, absolute } = worst;
   return { bound: hasExtra ? { kind, truncation, economisation, rounding, total } : { kind, truncation, rounding, total }, absolute };
 }
 

@@ -28,6 +28,7 @@ import { FORMATS } from '../ir/round.js';
 import type { SeriesTerm } from '../series/hyper-catalan.js';
 import type { Family } from '../spec/types.js';
 import { cellTail, type CellFacts } from './cell-bound.js';
+import { WorstParts } from './worst-parts.js';
 import { prefixBuilder, seriesCore, type Expansion, type Prefix } from './series-program.js';
 
 /** A signed term of a Horner sum: sign * value of ref. */
@@ -152,10 +153,7 @@ export function polishBound(
   relative: boolean,
   programs: { readonly core: Program; readonly steps: readonly Program[] } | null,
 ): PolishBound {
-  let truncation = 0;
-  let rounding = 0;
-  let total = 0;
-  let absolute = 0;
+  const worst = new WorstParts(relative);
   for (const c of cells) {
     if (c.state.kind !== 'ok') throw new PolishFailure('diverges', c);
     // float32 bounds allow for flushed subnormals, as the series bounds do (one bound for CPUs and GPUs).
@@ -173,18 +171,9 @@ export function polishBound(
       rnd = programs ? checked(analyse(programs.steps[j]!, [...c.cell, J], ftz), programs.steps[j]!, c) : 0;
       err = addUp(quad, rnd);
     }
-    absolute = Math.max(absolute, err);
-    if (relative) {
-      truncation = Math.max(truncation, divUp(quad, c.rootMin));
-      rounding = Math.max(rounding, divUp(rnd, c.rootMin));
-      total = Math.max(total, divUp(err, c.rootMin));
-    } else {
-      truncation = Math.max(truncation, quad);
-      rounding = Math.max(rounding, rnd);
-      total = Math.max(total, err);
-    }
+    worst.add(c.rootMin, { truncation: quad, rounding: rnd, total: err });
   }
-  return { truncation, rounding, total, absolute };
+  return { truncation: worst.truncation, rounding: worst.rounding, total: worst.total, absolute: worst.absolute };
 }
 
 /** The result's rounding bound, refusing values that may overflow or divisors that may vanish. */

@@ -12,7 +12,6 @@
 import { afterAll, describe, expect, test } from '@jest/globals';
 import { evaluate } from '../../src/ir/evaluate.js';
 import { segmentEdges } from '../../src/ir/segment-edges.js';
-import type { Arithmetic } from '../../src/spec/types.js';
 import { checkInProcess } from '../../src/verify/inprocess.js';
 import { checkSamplePoints, edgePointsOf, inputBox, sampleTotal } from '../../src/verify/samples.js';
 import { parseSummary } from '../../src/verify/summary.js';
@@ -21,6 +20,7 @@ import { emitExample } from '../examples/support/emit-example.js';
 import { buildCHarness, buildTsHarness } from '../examples/support/harness-dump.js';
 import { exampleFiles, specPathOf } from '../examples/support/repo.js';
 import { makeWorkDir, type WorkDir } from '../examples/support/workdir.js';
+import { adjacent } from './support/adjacent.js';
 
 /** Few random points: the edge points come on top whatever the request, and they are what is tested here. */
 const SAMPLES = 300;
@@ -30,19 +30,6 @@ const EXAMPLE_TIMEOUT_MS = 300_000;
 /** The examples whose plans have segments today (README, Performance). */
 const KNOWN_SEGMENTED = ['ease-in-out.yaml', 'spring-scale.yaml', 'gas-wide.yaml'];
 
-const view = new DataView(new ArrayBuffer(8));
-function step(x: number, up: boolean, arith: Arithmetic): number {
-  if (x === 0) return (up ? 1 : -1) * (arith === 'float32' ? 2 ** -149 : Number.MIN_VALUE);
-  const away = x > 0 === up;
-  if (arith === 'float32') {
-    view.setFloat32(0, x);
-    view.setUint32(0, view.getUint32(0) + (away ? 1 : -1));
-    return view.getFloat32(0);
-  }
-  view.setFloat64(0, x);
-  view.setBigUint64(0, view.getBigUint64(0) + (away ? 1n : -1n));
-  return view.getFloat64(0);
-}
 
 const segmented = new Set<string>();
 const dirs: WorkDir[] = [];
@@ -76,7 +63,7 @@ describe('segment edges are sampled by every check, and pass', () => {
       edges.forEach((e, j) => {
         if (e.count > 1) expect(e.edges).toHaveLength(e.count - 1);
         for (const edge of e.edges) {
-          for (const v of [step(edge, false, arith), edge, step(edge, true, arith)]) {
+          for (const v of [adjacent(edge, false, arith), edge, adjacent(edge, true, arith)]) {
             if (v < box[j]!.lo || v > box[j]!.hi) continue;
             const hits = tail.filter((p) => p[j] === v).length;
             if (hits < perValue) missing.push(`${family.inputs[j]!.name} = ${v} (edge ${edge}): ${hits} points, want ${perValue}`);

@@ -21,22 +21,9 @@ import { segmentLayout, type SegmentLayout } from '../../src/plan/segments.js';
 import { loadSpec } from '../../src/spec/load.js';
 import type { Arithmetic, Family } from '../../src/spec/types.js';
 import { inputBox } from '../../src/verify/samples.js';
+import { adjacent } from './support/adjacent.js';
 
-const view = new DataView(new ArrayBuffer(8));
 
-/** The adjacent value of the format (IEEE 754 bit patterns: +1 moves away from zero). */
-function step(x: number, up: boolean, arith: Arithmetic): number {
-  if (x === 0) return (up ? 1 : -1) * (arith === 'float32' ? 2 ** -149 : Number.MIN_VALUE);
-  const away = x > 0 === up;
-  if (arith === 'float32') {
-    view.setFloat32(0, x);
-    view.setUint32(0, view.getUint32(0) + (away ? 1 : -1));
-    return view.getFloat32(0);
-  }
-  view.setFloat64(0, x);
-  view.setBigUint64(0, view.getBigUint64(0) + (away ? 1n : -1n));
-  return view.getFloat64(0);
-}
 
 const roundExact = (r: Rational, arith: Arithmetic): number => (arith === 'float32' ? r.toFloat32() : r.toNumber());
 
@@ -116,7 +103,7 @@ describe('segmentEdges reads the layout of src/plan/segments.ts back from the pr
       expect(new Set(points).size).toBe(points.length);
       expect(points.filter((v) => !inBox(v) || roundExact(Rational.fromNumber(v), arith) !== v)).toEqual([]);
       for (const e of expected) {
-        for (const v of [step(e, false, arith), e, step(e, true, arith)].filter(inBox)) {
+        for (const v of [adjacent(e, false, arith), e, adjacent(e, true, arith)].filter(inBox)) {
           if (!points.includes(v)) throw new Error(`input ${i}: ${v} (edge ${e} or a neighbour) is not among the points to sample`);
         }
       }
@@ -133,7 +120,7 @@ describe('segmentEdges reads the layout of src/plan/segments.ts back from the pr
         const k = points.findIndex((v, n) => n + 1 < points.length && segmentAt(v) === j && segmentAt(points[n + 1]!) === j + 1);
         if (k < 0) throw new Error(`input ${i}: no two sampled neighbours straddle the switch from segment ${j} to ${j + 1}`);
         const [a, b] = [points[k]!, points[k + 1]!];
-        expect(step(a, true, arith)).toBe(b);
+        expect(adjacent(a, true, arith)).toBe(b);
         const boxJ = layout.boxes[j * part.stride]![i]!;
         const boxNext = layout.boxes[(j + 1) * part.stride]![i]!;
         expect({ j, a, inJ: a >= boxJ.lo && a <= boxJ.hi }).toEqual({ j, a, inJ: true });
@@ -193,7 +180,7 @@ describe('edgeSamplePoints: the other inputs at the corners of their box, then a
 
   test('2^(d-1) + 1 points per sampled value, in corner order then the centre', () => {
     const values = segmentEdges(program, box)[1]!.points;
-    expect(values).toEqual([step(1, false, 'float64'), 1, step(1, true, 'float64')]);
+    expect(values).toEqual([adjacent(1, false, 'float64'), 1, adjacent(1, true, 'float64')]);
     const pts = edgeSamplePoints(program, box);
     expect(pts).toHaveLength(values.length * (2 ** 2 + 1));
     expect(pts.slice(0, 5)).toEqual([
