@@ -85,17 +85,20 @@ export function hDown(t: SeriesTerm): number {
   return v;
 }
 
+/** Lower bound of one term's majorant value H(m) T^m on a cell. */
+export function termValue(f: CellFacts, term: SeriesTerm): number {
+  let v = hDown(term);
+  for (let k = 2; k < term.m.length; k++) {
+    const e = term.m[k]!;
+    for (let j = 0; j < e; j++) v = mulDown(v, f.T[k]!);
+  }
+  return v;
+}
+
 /** Adds the lower-bounded sum of the grade-`grade` terms to the cell's grade sums. */
 export function addGrade(f: CellFacts, termsOfGrade: readonly SeriesTerm[], grade: number): void {
   let s = 0;
-  for (const term of termsOfGrade) {
-    let v = hDown(term);
-    for (let k = 2; k < term.m.length; k++) {
-      const e = term.m[k]!;
-      for (let j = 0; j < e; j++) v = mulDown(v, f.T[k]!);
-    }
-    s = addDown(s, v);
-  }
+  for (const term of termsOfGrade) s = addDown(s, termValue(f, term));
   f.gradeSums[grade] = s;
 }
 

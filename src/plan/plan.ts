@@ -387,18 +387,17 @@ function planWithCountsInner(family: Family, box: ReturnType<typeof boxOf>['cell
     if (sparse) forms.push(sparse);
   }
   if (stepsKnob !== 0) {
-    const base = series ?? null;
     const polished = polishedPlans(
       { family, root, expansion, counts, relative, target, cells: set.cells, checkTable, toBeat: stepsKnob === 'auto' ? Math.min(...forms.map((f) => f.cost)) : Infinity },
       stepsKnob === 'auto' ? [1, 2] : [stepsKnob],
-      base ? base.order - 1 : Math.min(family.plan.maxOrder, byGrade.length - 1),
+      series ? series.order - 1 : Math.min(family.plan.maxOrder, byGrade.length - 1),
       termsUpTo,
     );
     forms.push(...polished);
   }
   const eligible = forms.filter((f) => stepsKnob === 'auto' || f.steps === stepsKnob);
   if (eligible.length === 0) {
-    if (refusal && (stepsKnob === 'auto' || stepsKnob === 0)) throw refusal;
+    // The series' own refusal says most; a fixed step count that no plan meets says so.
     throw refusal ?? new RootcastError(
       `no plan with ${stepsKnob} Newton step${stepsKnob === 1 ? '' : 's'} meets the target for these segments; set plan.newton_steps: auto`,
       locate(family, 'plan.newton_steps'),

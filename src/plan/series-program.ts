@@ -63,7 +63,7 @@ export function setupSeries(family: Family, x0: SegValues, b: ProgramBuilder): S
   return { shifted, active, x0 };
 }
 
-export function buildPrefix(b: ProgramBuilder, s: SeriesSetup): Prefix {
+function buildPrefix(b: ProgramBuilder, s: SeriesSetup): Prefix {
   const c1 = s.shifted[1]!;
   const q = new Map<number, Ref>();
   if (isConstant(c1)) {
@@ -110,7 +110,7 @@ export interface AnalysisProgram {
  * kept while the expansion lives: every program of a planning trial starts
  * from a clone of this builder, so the exact recentring is not redone.
  */
-interface Base {
+export interface Base {
   readonly b: ProgramBuilder;
   readonly setup: SeriesSetup;
   readonly prefix: Prefix;
@@ -134,9 +134,9 @@ function baseOf(family: Family, e: Expansion, extraInputs: readonly string[]): B
 }
 
 /** A fresh builder holding the expansion's recentred forms and prefix, with `extraInputs` after the family's inputs. */
-export function prefixBuilder(family: Family, e: Expansion, extraInputs: readonly string[] = []): SeriesCore {
+export function prefixBuilder(family: Family, e: Expansion, extraInputs: readonly string[] = []): Base {
   const base = baseOf(family, e, extraInputs);
-  return { b: base.b.clone(), setup: base.setup, prefix: base.prefix, v: base.prefix.r };
+  return { b: base.b.clone(), setup: base.setup, prefix: base.prefix };
 }
 
 /** The unpruned program computing r, q_k (and c'1): what the truncation bound needs per cell. */
@@ -153,15 +153,12 @@ export function seriesProgram(family: Family, e: Expansion, terms: readonly Seri
 }
 
 /** The series built up to v = r a_S (the root is x = x0 - v), for programs that go on from there. */
-export interface SeriesCore {
-  readonly b: ProgramBuilder;
-  readonly setup: SeriesSetup;
-  readonly prefix: Prefix;
+export interface SeriesCore extends Base {
   readonly v: Ref;
 }
 
-export function seriesCore(family: Family, e: Expansion, terms: readonly SeriesTerm[], extraInputs: readonly string[] = []): SeriesCore {
-  const { b, setup: s, prefix: p } = prefixBuilder(family, e, extraInputs);
+export function seriesCore(family: Family, e: Expansion, terms: readonly SeriesTerm[]): SeriesCore {
+  const { b, setup: s, prefix: p } = prefixBuilder(family, e);
   const qConst = [...p.q.values()].every((ref) => b.segValues(ref) !== null);
   const a = qConst ? hornerInR(b, p, terms, s.active) : nestedHorner(b, p, terms, s.active);
   return { b, setup: s, prefix: p, v: b.mul(p.r, a) };

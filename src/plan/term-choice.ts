@@ -8,19 +8,9 @@
  * many terms of a grade are far below the target and dropping them saves
  * operations in the nested Horner evaluation.
  */
-import { addDown, mulDown, mulUp, subUp } from '../math/directed.js';
+import { addDown, mulUp, subUp } from '../math/directed.js';
 import type { SeriesTerm } from '../series/hyper-catalan.js';
-import { hDown, type CellFacts } from './cell-bound.js';
-
-/** Lower bound of one term's majorant value H(m) T^m on a cell. */
-function termValue(c: CellFacts, t: SeriesTerm): number {
-  let v = hDown(t);
-  for (let k = 2; k < t.m.length; k++) {
-    const e = t.m[k]!;
-    for (let j = 0; j < e; j++) v = mulDown(v, c.T[k]!);
-  }
-  return v;
-}
+import { termValue, type CellFacts } from './cell-bound.js';
 
 export interface TermChoice {
   /** The kept terms, in grade order (as the program builders expect). */
