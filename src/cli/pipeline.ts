@@ -5,7 +5,7 @@
  */
 import type { EmitInput, PlanClaims } from '../emit/types.js';
 import { makePlan, type Plan } from '../plan/plan.js';
-import { loadSpec } from '../spec/load.js';
+import { loadSpec } from '../reader/load.js';
 import { VERSION } from '../version.js';
 
 export function planSpec(file: string): Plan {

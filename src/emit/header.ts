@@ -11,7 +11,7 @@
  */
 import { countOps, type OpCounts } from '../ir/count.js';
 import { cycleHeaderLine } from './cycles.js';
-import type { Arithmetic, Family } from '../spec/types.js';
+import type { Arithmetic, Family } from '../family/types.js';
 import { formatBoundUp } from './literals/round-up.js';
 import type { EmitInput } from './types.js';
 

@@ -6,7 +6,7 @@
  */
 import type { OpCounts } from '../ir/count.js';
 import type { Program } from '../ir/nodes.js';
-import type { Family } from '../spec/types.js';
+import type { Family } from '../family/types.js';
 
 export type Target = 'c' | 'ts' | 'glsl';
 

@@ -8,7 +8,7 @@
  * There are no branches and no loops by construction.
  */
 import type { Rational } from '../math/rational.js';
-import type { Arithmetic } from '../spec/types.js';
+import type { Arithmetic } from '../family/types.js';
 
 export type BinaryKind = 'add' | 'sub' | 'mul' | 'div';
 

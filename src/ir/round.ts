@@ -9,7 +9,7 @@
  * | float64    | 53               | 2^-53    | 2^-1074            | (2 - 2^-52) * 2^1023 |
  */
 import { Rational } from '../math/rational.js';
-import type { Arithmetic } from '../spec/types.js';
+import type { Arithmetic } from '../family/types.js';
 
 export interface FormatFacts {
   readonly bits: number;

@@ -22,7 +22,7 @@
  * mul(sub(input, const), const). Any other shape is refused, not guessed at.
  */
 import { nextDown, nextUp, Rational } from '../math/rational.js';
-import type { Arithmetic } from '../spec/types.js';
+import type { Arithmetic } from '../family/types.js';
 import { evaluate } from './evaluate.js';
 import type { Node, Program } from './nodes.js';
 import { roundNumber, roundTo } from './round.js';

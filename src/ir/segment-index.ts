@@ -3,7 +3,7 @@
  * emitted code computes it: round by adding the magic constant in the target
  * arithmetic, read the low bits, clamp with integer operations.
  */
-import type { Arithmetic } from '../spec/types.js';
+import type { Arithmetic } from '../family/types.js';
 import { SEGMENT_MAGIC, type IndexPart } from './nodes.js';
 
 const f32 = new Float32Array(1);

@@ -10,7 +10,7 @@
  */
 import { containsZero, iadd, idiv, imul, ineg, interval, isub, mag, mig, point, type Interval } from '../math/interval.js';
 import { Rational } from '../math/rational.js';
-import type { Expr } from '../spec/types.js';
+import type { Expr } from '../family/types.js';
 import type { Cell } from './box.js';
 
 /** A binary node of the expression tree; poleOver returns only divisions (kind 'div'). */

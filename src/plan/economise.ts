@@ -13,7 +13,7 @@ import { Rational } from '../math/rational.js';
 import { roundTo } from '../ir/round.js';
 import type { Program } from '../ir/nodes.js';
 import { composeAffine, fromChebyshev, scaleArgument, toChebyshev } from '../series/chebyshev.js';
-import type { Family } from '../spec/types.js';
+import type { Family } from '../family/types.js';
 import type { Cell } from './box.js';
 import { polynomialProgram, type Collapsed, type Expansion } from './series-program.js';
 

@@ -10,7 +10,7 @@
  */
 import { Rational } from '../math/rational.js';
 import type { ProgramBuilder, Ref, SegValues } from '../ir/builder.js';
-import type { Expr } from '../spec/types.js';
+import type { Expr } from '../family/types.js';
 
 export interface LinearForm {
   readonly constant: SegValues;

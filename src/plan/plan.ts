@@ -14,7 +14,7 @@ import { countOps, type OpCounts } from '../ir/count.js';
 import type { Program } from '../ir/nodes.js';
 import { FORMATS } from '../ir/round.js';
 import { termsOfGrade, type SeriesTerm } from '../series/hyper-catalan.js';
-import type { Family } from '../spec/types.js';
+import type { Family } from '../family/types.js';
 import { boxOf, describeCell, grid } from './box.js';
 import { addGrade, cellTail, type CellFacts } from './cell-bound.js';
 import { CellSet } from './cell-set.js';

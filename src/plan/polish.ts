@@ -26,7 +26,7 @@ import type { ProgramBuilder, Ref } from '../ir/builder.js';
 import type { Program } from '../ir/nodes.js';
 import { FORMATS } from '../ir/round.js';
 import type { SeriesTerm } from '../series/hyper-catalan.js';
-import type { Family } from '../spec/types.js';
+import type { Family } from '../family/types.js';
 import { cellTail, type CellFacts } from './cell-bound.js';
 import { WorstParts } from './worst-parts.js';
 import { prefixBuilder, seriesCore, type Expansion, type Prefix } from './series-program.js';

@@ -1,9 +1,9 @@
 /** The planner's one-line refusals (exit code 2), each saying what to change. */
 import { RootcastError } from '../errors.js';
 import { criticalT } from '../series/hyper-catalan.js';
-import { printExpr } from '../spec/expr-print.js';
-import { showText } from '../spec/show.js';
-import type { Family } from '../spec/types.js';
+import { printExpr } from '../family/expr-print.js';
+import { showText } from '../family/show.js';
+import type { Family } from '../family/types.js';
 import { describeCell, short } from './box.js';
 import type { CellFacts } from './cell-bound.js';
 import { poleOver, type Division } from './coefficient-poles.js';

@@ -8,10 +8,10 @@
 import { RootcastError } from '../errors.js';
 import { Rational } from '../math/rational.js';
 import { roundTo } from '../ir/round.js';
-import { evalExprExact } from '../spec/expr-eval.js';
-import { printExpr } from '../spec/expr-print.js';
-import { showText } from '../spec/show.js';
-import type { Expr, Family } from '../spec/types.js';
+import { evalExprExact } from '../family/expr-eval.js';
+import { printExpr } from '../family/expr-print.js';
+import { showText } from '../family/show.js';
+import type { Expr, Family } from '../family/types.js';
 import { poleOver } from './coefficient-poles.js';
 import { signAt } from '../series/recenter.js';
 import { locate } from './locate.js';

@@ -12,7 +12,7 @@
 import { Rational } from '../math/rational.js';
 import type { Segmentation } from '../ir/builder.js';
 import { FORMATS, roundTo } from '../ir/round.js';
-import type { Family } from '../spec/types.js';
+import type { Family } from '../family/types.js';
 import type { Cell } from './box.js';
 import { boxCentre } from './root-choice.js';
 

@@ -17,7 +17,7 @@ import { Rational } from '../math/rational.js';
 import { ProgramBuilder, SINGLE, type Ref, type Segmentation, type SegValues } from '../ir/builder.js';
 import type { Program } from '../ir/nodes.js';
 import type { SeriesTerm } from '../series/hyper-catalan.js';
-import type { Family } from '../spec/types.js';
+import type { Family } from '../family/types.js';
 import { shiftedForms } from '../series/recenter.js';
 import { addForms, constantForm, formOf, isConstant, isZero, materialise, powerOf, scaleForm, uniform, type LinearForm } from './linear-form.js';
 

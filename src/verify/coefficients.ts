@@ -4,7 +4,7 @@
  * from the equation the user wrote, not from anything the generator derived.
  */
 import { Rational } from '../math/rational.js';
-import type { Expr, Family } from '../spec/types.js';
+import type { Expr, Family } from '../family/types.js';
 
 /** The exact value of an expression at exact inputs; `constants` maps names to exact values. */
 export function evaluateExact(e: Expr, inputs: readonly Rational[], constants: ReadonlyMap<string, Rational>): Rational {

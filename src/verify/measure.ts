@@ -17,7 +17,7 @@
  * Per point everything after the coefficients is unreduced fractions (no gcd).
  */
 import { Rational } from '../math/rational.js';
-import type { Family } from '../spec/types.js';
+import type { Family } from '../family/types.js';
 import { coefficientEvaluator } from './coefficients.js';
 import {
   absFraction,

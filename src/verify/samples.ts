@@ -42,7 +42,7 @@ import { Rational } from '../math/rational.js';
 import type { Program } from '../ir/nodes.js';
 import { roundNumber } from '../ir/round.js';
 import { edgeSamplePoints } from '../ir/segment-edges.js';
-import type { Arithmetic, Family } from '../spec/types.js';
+import type { Arithmetic, Family } from '../family/types.js';
 
 export interface SampleBox {
   /** Nearest binary64 values of the spec's decimal range ends. */

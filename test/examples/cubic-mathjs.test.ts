@@ -25,7 +25,7 @@ import { emitFiles } from '../../src/cli/emit-files.js';
 import { emitInputOf } from '../../src/cli/pipeline.js';
 import { evaluate } from '../../src/ir/evaluate.js';
 import { makePlan, type Plan } from '../../src/plan/plan.js';
-import { readSpec } from '../../src/spec/read.js';
+import { readSpec } from '../../src/reader/read.js';
 import { checkSamplePoints } from '../../src/verify/samples.js';
 import { emitExample, fileEndingWith, type EmittedExample } from './support/emit-example.js';
 import { compileCFunction } from './support/run-c.js';

@@ -12,7 +12,7 @@ import { cFunction } from '../../src/emit/c/function.js';
 import { tsFunction } from '../../src/emit/ts/function.js';
 import { transpileTs, typeCheckTs } from '../../src/emit/ts/typecheck.js';
 import { evaluate } from '../../src/ir/evaluate.js';
-import type { Arithmetic } from '../../src/spec/types.js';
+import type { Arithmetic } from '../../src/family/types.js';
 import { float64Bits } from '../emit/support/bits.js';
 import { demoInput } from '../emit/support/family.js';
 import { samplePoints } from '../emit/support/inputs.js';

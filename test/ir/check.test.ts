@@ -5,7 +5,7 @@ import { Rational } from '../../src/math/rational.js';
 import { checkProgram } from '../../src/ir/check.js';
 import type { Program } from '../../src/ir/nodes.js';
 import { makePlan } from '../../src/plan/plan.js';
-import { loadSpec } from '../../src/spec/load.js';
+import { loadSpec } from '../../src/reader/load.js';
 
 describe('IR checker', () => {
   test.each(readdirSync('examples').filter((f) => f.endsWith('.yaml')).sort())('the plan for %s is a sound program, and so is every candidate form', (f) => {

@@ -12,7 +12,7 @@ import { describe, expect, test } from '@jest/globals';
 import fc from 'fast-check';
 import { RootcastError } from '../../src/errors.js';
 import { makePlan } from '../../src/plan/plan.js';
-import { readSpec } from '../../src/spec/read.js';
+import { readSpec } from '../../src/reader/read.js';
 import { checkInProcess } from '../../src/verify/inprocess.js';
 import { emitInputOf } from '../../src/cli/pipeline.js';
 

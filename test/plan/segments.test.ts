@@ -8,12 +8,12 @@ import fc from 'fast-check';
 import { RootcastError } from '../../src/errors.js';
 import { evaluate } from '../../src/ir/evaluate.js';
 import { makePlan } from '../../src/plan/plan.js';
-import { loadSpec } from '../../src/spec/load.js';
-import { readSpec } from '../../src/spec/read.js';
+import { loadSpec } from '../../src/reader/load.js';
+import { readSpec } from '../../src/reader/read.js';
 import { checkInProcess } from '../../src/verify/inprocess.js';
 import { makeMeasurer } from '../../src/verify/measure.js';
 import { emitInputOf } from '../../src/cli/pipeline.js';
-import type { Family } from '../../src/spec/types.js';
+import type { Family } from '../../src/family/types.js';
 
 const spring = loadSpec('examples/spring-scale.yaml');
 const withSegments = (f: Family, segments: 'auto' | number): Family => ({ ...f, plan: { ...f.plan, segments } });

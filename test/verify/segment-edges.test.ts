@@ -18,8 +18,8 @@ import { edgeSamplePoints, segmentEdges } from '../../src/ir/segment-edges.js';
 import { Rational } from '../../src/math/rational.js';
 import { boxOf } from '../../src/plan/box.js';
 import { segmentLayout, type SegmentLayout } from '../../src/plan/segments.js';
-import { loadSpec } from '../../src/spec/load.js';
-import type { Arithmetic, Family } from '../../src/spec/types.js';
+import { loadSpec } from '../../src/reader/load.js';
+import type { Arithmetic, Family } from '../../src/family/types.js';
 import { inputBox } from '../../src/verify/samples.js';
 import { adjacent } from './support/adjacent.js';
 

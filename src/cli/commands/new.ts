@@ -1,7 +1,7 @@
 /** `rootcast new NAME`: writes NAME.yaml, a commented starter spec, and refuses to overwrite. */
 import { existsSync, writeFileSync } from 'node:fs';
 import { RootcastError } from '../../errors.js';
-import { starterSpec } from '../../spec/starter.js';
+import { starterSpec } from '../../reader/starter.js';
 
 export function runNew(name: string, out: string | undefined, print: (line: string) => void): number {
   const text = starterSpec(name);

@@ -4,7 +4,7 @@
  * located line, exit 2, as every refusal (src/errors.ts).
  */
 import { RootcastError } from '../../errors.js';
-import type { Family } from '../../spec/types.js';
+import type { Family } from '../../family/types.js';
 
 export function refuseUnlessFloat32(family: Family): void {
   if (family.arithmetic === 'float32') return;

@@ -5,7 +5,7 @@
  * `rc_k_NAME` that the harness sets once from their decimals. Every number
  * is an integer literal scaled by an exact power of ten (decimal-parts.ts).
  */
-import type { Expr } from '../../spec/types.js';
+import type { Expr } from '../../family/types.js';
 import { decimalParts } from './decimal-parts.js';
 
 /** Largest chunk that a `long long` literal always holds: 10^18 - 1 < 2^63. */

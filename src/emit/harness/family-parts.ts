@@ -6,7 +6,7 @@
  */
 import { edgeSamplePoints } from '../../ir/segment-edges.js';
 import { Rational } from '../../math/rational.js';
-import type { Expr } from '../../spec/types.js';
+import type { Expr } from '../../family/types.js';
 import { assertCommentSafe, headerLines } from '../header.js';
 import { assertUserName } from '../names.js';
 import type { EmitInput } from '../types.js';

@@ -16,7 +16,7 @@ import { tsLiteral } from '../literals/ts.js';
 import type { EmitInput, EmittedFile } from '../types.js';
 import { harnessParts } from './family-parts.js';
 import { tsConstantName, tsRationalDecimal, tsRationalExpr } from './ts-expr.js';
-import type { Expr } from '../../spec/types.js';
+import type { Expr } from '../../family/types.js';
 
 /** The page's file name for a function name. */
 export function glslHarnessPath(name: string): string {

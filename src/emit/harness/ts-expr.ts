@@ -5,7 +5,7 @@
  * module constants `rc_k_NAME`; every number is its exact value in lowest terms.
  */
 import { Rational } from '../../math/rational.js';
-import type { Expr } from '../../spec/types.js';
+import type { Expr } from '../../family/types.js';
 
 /** The exact decimal `text` as a rational literal `rc_q(num, den)`. */
 export function tsRationalDecimal(text: string): string {

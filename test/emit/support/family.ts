@@ -7,7 +7,7 @@ import { createHash } from 'node:crypto';
 import { countOps } from '../../../src/ir/count.js';
 import type { Program } from '../../../src/ir/nodes.js';
 import type { EmitInput, PlanClaims } from '../../../src/emit/types.js';
-import type { Family } from '../../../src/spec/types.js';
+import type { Family } from '../../../src/family/types.js';
 
 export const DEMO_SPEC_TEXT = 'function: bridge_strain\nunknown: T\n# invented demo spec\n';
 

@@ -8,7 +8,7 @@ import { fileURLToPath } from 'node:url';
 import { emitFiles } from '../../../src/cli/emit-files.js';
 import { emitInputOf, planSpec } from '../../../src/cli/pipeline.js';
 import type { EmitInput, EmittedFile } from '../../../src/emit/types.js';
-import { loadSpec } from '../../../src/spec/load.js';
+import { loadSpec } from '../../../src/reader/load.js';
 
 export const REPO_ROOT = fileURLToPath(new URL('../../..', import.meta.url)).replace(/\/$/, '');
 

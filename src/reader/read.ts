@@ -1,0 +1,127 @@
+/**
+ * The spec reader: YAML (or JSON) text in, a validated equation family out
+ * (DESIGN.md section 3). Pure: no files, no process. Every refusal is one
+ * RootcastError naming file, line, column and field path.
+ *
+ * Fields are checked in a fixed order (names first, since expressions refer
+ * to them), so the same spec always gets the same first refusal.
+ */
+import { createHash } from 'node:crypto';
+import type { SpecContext } from './context.js';
+import { printExpr } from '../family/expr-print.js';
+import { inputsUsed } from '../family/expr-uses.js';
+import { NameTable } from './name-table.js';
+import { readChoice, readName, readWholeNumber } from './scalars.js';
+import { readAccuracy } from './section-accuracy.js';
+import { readCoefficients } from './section-coefficients.js';
+import { readConstants } from './section-constants.js';
+import { readInputs, type InputsSection } from './section-inputs.js';
+import { readPlan } from './section-plan.js';
+import { readRoot } from './section-root.js';
+import type { Arithmetic, Expr, Family, Pos } from '../family/types.js';
+import { parseSpecDocument } from './yaml-document.js';
+import { expectMap, refuseUnknownKeys, valueOf, type Entry } from './yaml-map.js';
+
+/** The top-level fields, in the order a spec usually lists them. */
+export const SPEC_FIELDS = [
+  'function',
+  'unknown',
+  'degree',
+  'coefficients',
+  'inputs',
+  'constants',
+  'root',
+  'accuracy',
+  'arithmetic',
+  'plan',
+] as const;
+
+const REQUIRED_FIELDS = ['function', 'unknown', 'degree', 'coefficients', 'inputs', 'accuracy', 'arithmetic'] as const;
+
+const ARITHMETIC: readonly Arithmetic[] = ['float32', 'float64'];
+
+/** Highest degree a spec may ask for. */
+export const MAX_DEGREE = 64;
+
+/**
+ * Read and validate a spec. `file` is the path as the user gave it (kept
+ * verbatim for messages and headers); `bytes`, when given, are the file's
+ * bytes for the hash (otherwise the UTF-8 encoding of `text`).
+ */
+export function readSpec(file: string, text: string, bytes?: Uint8Array): Family {
+  const { ctx, contents } = parseSpecDocument(file, text);
+  const top = expectMap(ctx, contents, '', ctx.nodePos(contents), 'a map of fields such as `function: NAME`');
+  refuseUnknownKeys(ctx, top, SPEC_FIELDS, 'of a spec');
+  refuseMissing(ctx, top, contents.range ? ctx.nodePos(contents) : { line: 1, column: 1 });
+  const field = (name: string): Entry | undefined => top.find((e) => e.key === name);
+  const must = (name: string): Entry => field(name)!;
+
+  const positions: Record<string, Pos> = {};
+  for (const e of top) if (e.value) positions[e.field] = ctx.nodePos(e.value);
+
+  const names = new NameTable();
+  const functionName = readNameField(ctx, must('function'), 'the function', names);
+  const unknown = readNameField(ctx, must('unknown'), 'the unknown', names);
+  const degree = readWholeNumber(ctx, valueOf(ctx, must('degree'), 'the degree'), 'degree', 1, MAX_DEGREE).value;
+  const inputs = readInputs(ctx, must('inputs'), names, positions);
+  const constants = readConstants(ctx, field('constants'), names, positions);
+  const scope = {
+    inputs: inputs.inputs.map((i) => i.name),
+    constants: Object.keys(constants.texts),
+    unknown,
+    functionName,
+  };
+  const coefficients = readCoefficients(ctx, must('coefficients'), degree, scope, constants.values, positions);
+  refuseUnusedInputs(ctx, coefficients.exprs, inputs);
+  const bracket = readRoot(ctx, field('root'), positions);
+  const accuracy = readAccuracy(ctx, must('accuracy'), positions);
+  const arithmetic = readChoice(ctx, valueOf(ctx, must('arithmetic'), 'float32 or float64'), 'arithmetic', ARITHMETIC).value;
+  const plan = readPlan(ctx, field('plan'), positions);
+
+  return {
+    file,
+    specHash: createHash('sha256')
+      .update(bytes ?? new TextEncoder().encode(text))
+      .digest('hex'),
+    functionName,
+    unknown,
+    degree,
+    coefficients: coefficients.exprs,
+    coefficientText: coefficients.exprs.map((e) => (e === null ? null : printExpr(e))),
+    inputs: inputs.inputs,
+    constants: constants.texts,
+    bracket,
+    accuracy,
+    arithmetic,
+    plan,
+    positions,
+  };
+}
+
+function refuseMissing(ctx: SpecContext, top: readonly Entry[], at: Pos): void {
+  const missing = REQUIRED_FIELDS.filter((f) => !top.some((e) => e.key === f));
+  if (missing.length === 0) return;
+  const list = missing.map((m) => `\`${m}\``).join(', ');
+  const noun = missing.length === 1 ? 'field' : 'fields';
+  ctx.fail(`the spec lacks the ${noun} ${list}; add ${missing.length === 1 ? 'it' : 'them'} (\`rootcast new NAME\` writes a starter with every field)`, at, missing[0]!);
+}
+
+function readNameField(ctx: SpecContext, e: Entry, role: 'the function' | 'the unknown', names: NameTable): string {
+  const name = readName(ctx, valueOf(ctx, e, 'a name'), e.field);
+  names.claim(ctx, name.value, role, name.pos, e.field);
+  return name.value;
+}
+
+function refuseUnusedInputs(ctx: SpecContext, exprs: readonly (Expr | null)[], inputs: InputsSection): void {
+  const used = new Set<number>();
+  for (const e of exprs) if (e) inputsUsed(e, used);
+  inputs.inputs.forEach((input, i) => {
+    if (!used.has(i)) {
+      ctx.fail(
+        `input \`${input.name}\` is not used by any coefficient; use it or remove it (it would be an unused parameter)`,
+        inputs.keyPos[i]!,
+        inputs.fields[i]!,
+      );
+    }
+  });
+}

@@ -1,0 +1,65 @@
+/**
+ * `plan` (optional): knobs for the planner, each with a default.
+ *
+ *   max_order        highest series order the planner may use     0..400, default 40
+ *   segments         equal parts per input range                  auto | 1 | 2 | 4 | ..., default auto
+ *   max_table_bytes  most bytes of constant tables in the output   1..2^31-1, default 4096
+ *   newton_steps     Newton polish steps after the series          auto | 0 | 1 | 2, default auto
+ */
+import { isScalar, type Node } from 'yaml';
+import type { SpecContext } from './context.js';
+import { readWholeNumber } from './scalars.js';
+import { showText } from '../family/show.js';
+import type { PlanKnobs, Pos } from '../family/types.js';
+import { describeNode, expectMap, refuseUnknownKeys, valueOf, type Entry } from './yaml-map.js';
+
+export const PLAN_DEFAULTS: PlanKnobs = { maxOrder: 40, segments: 'auto', maxTableBytes: 4096, newtonSteps: 'auto' };
+
+const PLAN_FIELDS = ['max_order', 'segments', 'max_table_bytes', 'newton_steps'] as const;
+/** More than two steps never pays: each squares the error, and two already take 1e-3 to far below float64 rounding. */
+const MAX_NEWTON_STEPS = 2;
+const MAX_ORDER = 400;
+/** 2^20 segments per input: far beyond any table the byte limit allows. */
+const MAX_SEGMENTS = 1 << 20;
+/** Table sizes are indexed with 32-bit integers in the generated code. */
+const MAX_TABLE_BYTES = 2 ** 31 - 1;
+
+export function readPlan(ctx: SpecContext, entry: Entry | undefined, positions: Record<string, Pos>): PlanKnobs {
+  if (!entry) return PLAN_DEFAULTS;
+  const node = valueOf(ctx, entry, 'planner knobs such as `max_order: 40` (or remove the field for the defaults)');
+  const entries = expectMap(ctx, node, entry.field, entry.keyPos, 'a map of planner knobs such as `max_order: 40`');
+  refuseUnknownKeys(ctx, entries, PLAN_FIELDS, 'under plan');
+  let { maxOrder, segments, maxTableBytes, newtonSteps } = PLAN_DEFAULTS;
+  for (const e of entries) {
+    const value = valueOf(ctx, e, 'a value, or remove the line for the default');
+    positions[e.field] = ctx.nodePos(value);
+    if (e.key === 'max_order') maxOrder = readWholeNumber(ctx, value, e.field, 0, MAX_ORDER).value;
+    else if (e.key === 'max_table_bytes') maxTableBytes = readWholeNumber(ctx, value, e.field, 1, MAX_TABLE_BYTES).value;
+    else if (e.key === 'newton_steps') newtonSteps = readSteps(ctx, value, e.field);
+    else segments = readSegments(ctx, value, e.field);
+  }
+  return { maxOrder, segments, maxTableBytes, newtonSteps };
+}
+
+function readSegments(ctx: SpecContext, node: Node, field: string): 'auto' | number {
+  const expected = 'auto or a power of two (1, 2, 4, ...)';
+  if (isScalar(node) && node.value === 'auto') return 'auto';
+  if (!isScalar(node) || typeof node.value !== 'number') {
+    ctx.fail(`expected ${expected}, found ${describeNode(node)}`, ctx.nodePos(node), field);
+  }
+  const source = String(node.source ?? node.value);
+  const n = /^\d+$/.test(source) ? Number(source) : NaN;
+  if (!(n >= 1 && n <= MAX_SEGMENTS && (n & (n - 1)) === 0)) {
+    ctx.fail(`expected ${expected} up to ${MAX_SEGMENTS}, found ${showText(source)}`, ctx.nodePos(node), field);
+  }
+  return n;
+}
+
+function readSteps(ctx: SpecContext, node: Node, field: string): 'auto' | number {
+  if (isScalar(node) && node.value === 'auto') return 'auto';
+  const source = isScalar(node) ? String(node.source ?? node.value) : '';
+  if (!isScalar(node) || typeof node.value !== 'number' || !/^\d+$/.test(source) || Number(source) > MAX_NEWTON_STEPS) {
+    ctx.fail(`expected auto, 0, 1 or 2, found ${isScalar(node) && typeof node.value === 'number' ? showText(source) : describeNode(node)}`, ctx.nodePos(node), field);
+  }
+  return Number(source);
+}

@@ -1,0 +1,56 @@
+import { describe, expect, test } from '@jest/globals';
+import { Rational } from '../../src/math/rational.js';
+import { ConstantPartError, foldConstantParts } from '../../src/family/expr-fold.js';
+import { parseExpr } from '../../src/reader/expr-parse.js';
+import { colAt, SCOPE } from '../reader/expr-arbitrary.js';
+
+const q = Rational.parseDecimal;
+const CONSTANTS = new Map([
+  ['R0', q('100')],
+  ['A', q('3.9083e-3')],
+]);
+const fold = (s: string) => foldConstantParts(parseExpr(s, SCOPE, colAt), CONSTANTS);
+
+function problem(s: string): [number, string] {
+  try {
+    fold(s);
+  } catch (e) {
+    if (e instanceof ConstantPartError) return [e.node.pos.column - 1, e.message];
+    throw e;
+  }
+  throw new Error(`folded: ${s}`);
+}
+
+describe('foldConstantParts', () => {
+  test('gives the exact value of an expression without inputs, and null with one', () => {
+    expect(fold('R0 * A - 1 / 3')?.toString()).toBe(q('0.39083').sub(Rational.of(1n, 3n)).toString());
+    expect(fold('1 - R / R0')).toBeNull();
+  });
+
+  test('refuses a division by a constant part that is exactly zero, at the /', () => {
+    expect(problem('R / (R0 - 100)')).toEqual([2, '`R0 - 100` is exactly zero, so this division is undefined; change the constants or the expression']);
+    expect(problem('R / (A * 0)')[0]).toBe(2);
+    expect(problem('1 / 0')[0]).toBe(2);
+  });
+
+  test('does not refuse a division by an input, which the ranges govern', () => {
+    expect(fold('A / R')).toBeNull();
+    expect(fold('A / (R - R)')).toBeNull();
+  });
+
+  test('refuses a constant part beyond the float64 range, or so small it rounds to zero', () => {
+    expect(problem('R * (1e300 * 1e300)')[1]).toBe('the constant part `1e300 * 1e300` is beyond the float64 range (about 1.8e308); rescale it');
+    expect(problem('R * 1e-200 ^ 2')[1]).toMatch(/below the smallest float64/);
+    expect(fold('R * 1e300 / 1e300')).toBeNull();
+  });
+
+  test('refuses a tower of powers instead of spending seconds on it', () => {
+    const start = Date.now();
+    expect(problem('R * ((1.0000000001 ^ 64) ^ 64) ^ 64')[1]).toMatch(/too many digits/);
+    expect(Date.now() - start).toBeLessThan(2000);
+  });
+
+  test('0 ^ 0 folds to 1 (the usual convention for polynomials)', () => {
+    expect(fold('0 ^ 0')?.toString()).toBe('1');
+  });
+});
