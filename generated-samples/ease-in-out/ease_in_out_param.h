@@ -27,12 +27,34 @@
 #include <stddef.h>
 #include <stdint.h>
 
+// Reads a float's bits (defined in C and C++, unlike a union pun in C++);
+// gcc and clang need no <string.h>, so freestanding builds work too.
+#ifndef ROOTCAST_MEMCPY
+#if defined(__GNUC__) || defined(__clang__)
+#define ROOTCAST_MEMCPY __builtin_memcpy
+#else
+#include <string.h>
+#define ROOTCAST_MEMCPY memcpy
+#endif
+#endif
+
+// restrict is C99's; C++ compilers spell it __restrict.
+#ifndef ROOTCAST_RESTRICT
+#ifdef __cplusplus
+#define ROOTCAST_RESTRICT __restrict
+#else
+#define ROOTCAST_RESTRICT restrict
+#endif
+#endif
+
 static inline float ease_in_out_param(float x)
 {
     const float v3 = x - 0.00390625f;
     const float v4 = v3 * 128.0f;
-    union { float f; uint32_t u; } rc_s5_0b = { v4 + 12582912.0f };
-    const int32_t rc_s5_0r = (int32_t)(rc_s5_0b.u & 0x7fffffu) - 0x400000;
+    const float rc_s5_0f = v4 + 12582912.0f;
+    uint32_t rc_s5_0b;
+    ROOTCAST_MEMCPY(&rc_s5_0b, &rc_s5_0f, sizeof rc_s5_0b);
+    const int32_t rc_s5_0r = (int32_t)(rc_s5_0b & 0x7fffffu) - 0x400000;
     const int32_t rc_s5_0p = rc_s5_0r & ~(rc_s5_0r >> 31);
     const int32_t rc_s5_0d = rc_s5_0p - 127;
     const int32_t rc_s5_0 = rc_s5_0p - (rc_s5_0d & ~(rc_s5_0d >> 31));
@@ -149,7 +171,7 @@ static inline float ease_in_out_param(float x)
 }
 
 // rc_out[i] = ease_in_out_param(each input[i]) for i < rc_n; the arrays must not overlap.
-static inline void ease_in_out_param_batch(const float *restrict x, float *restrict rc_out, size_t rc_n)
+static inline void ease_in_out_param_batch(const float *ROOTCAST_RESTRICT x, float *ROOTCAST_RESTRICT rc_out, size_t rc_n)
 {
     while (rc_n--) {
         *rc_out++ = ease_in_out_param(*x++);

@@ -32,6 +32,26 @@
 #include <stddef.h>
 #include <stdint.h>
 
+// Reads a float's bits (defined in C and C++, unlike a union pun in C++);
+// gcc and clang need no <string.h>, so freestanding builds work too.
+#ifndef ROOTCAST_MEMCPY
+#if defined(__GNUC__) || defined(__clang__)
+#define ROOTCAST_MEMCPY __builtin_memcpy
+#else
+#include <string.h>
+#define ROOTCAST_MEMCPY memcpy
+#endif
+#endif
+
+// restrict is C99's; C++ compilers spell it __restrict.
+#ifndef ROOTCAST_RESTRICT
+#ifdef __cplusplus
+#define ROOTCAST_RESTRICT __restrict
+#else
+#define ROOTCAST_RESTRICT restrict
+#endif
+#endif
+
 static inline double n2_molar_volume(double P, double T)
 {
     const double v3 = P * 1.3293595406925236;
@@ -78,7 +98,7 @@ static inline double n2_molar_volume(double P, double T)
 }
 
 // rc_out[i] = n2_molar_volume(each input[i]) for i < rc_n; the arrays must not overlap.
-static inline void n2_molar_volume_batch(const double *restrict P, const double *restrict T, double *restrict rc_out, size_t rc_n)
+static inline void n2_molar_volume_batch(const double *ROOTCAST_RESTRICT P, const double *ROOTCAST_RESTRICT T, double *ROOTCAST_RESTRICT rc_out, size_t rc_n)
 {
     while (rc_n--) {
         *rc_out++ = n2_molar_volume(*P++, *T++);

@@ -31,19 +31,43 @@
 #include <stddef.h>
 #include <stdint.h>
 
+// Reads a float's bits (defined in C and C++, unlike a union pun in C++);
+// gcc and clang need no <string.h>, so freestanding builds work too.
+#ifndef ROOTCAST_MEMCPY
+#if defined(__GNUC__) || defined(__clang__)
+#define ROOTCAST_MEMCPY __builtin_memcpy
+#else
+#include <string.h>
+#define ROOTCAST_MEMCPY memcpy
+#endif
+#endif
+
+// restrict is C99's; C++ compilers spell it __restrict.
+#ifndef ROOTCAST_RESTRICT
+#ifdef __cplusplus
+#define ROOTCAST_RESTRICT __restrict
+#else
+#define ROOTCAST_RESTRICT restrict
+#endif
+#endif
+
 static inline float n2_molar_volume_wide(float P, float T)
 {
     const float v4 = P - 41.25f;
     const float v5 = v4 * 0.4f;
     const float v8 = T - 256.25f;
     const float v9 = v8 * 0.08f;
-    union { float f; uint32_t u; } rc_s10_0b = { v5 + 12582912.0f };
-    const int32_t rc_s10_0r = (int32_t)(rc_s10_0b.u & 0x7fffffu) - 0x400000;
+    const float rc_s10_0f = v5 + 12582912.0f;
+    uint32_t rc_s10_0b;
+    ROOTCAST_MEMCPY(&rc_s10_0b, &rc_s10_0f, sizeof rc_s10_0b);
+    const int32_t rc_s10_0r = (int32_t)(rc_s10_0b & 0x7fffffu) - 0x400000;
     const int32_t rc_s10_0p = rc_s10_0r & ~(rc_s10_0r >> 31);
     const int32_t rc_s10_0d = rc_s10_0p - 15;
     const int32_t rc_s10_0 = rc_s10_0p - (rc_s10_0d & ~(rc_s10_0d >> 31));
-    union { float f; uint32_t u; } rc_s10_1b = { v9 + 12582912.0f };
-    const int32_t rc_s10_1r = (int32_t)(rc_s10_1b.u & 0x7fffffu) - 0x400000;
+    const float rc_s10_1f = v9 + 12582912.0f;
+    uint32_t rc_s10_1b;
+    ROOTCAST_MEMCPY(&rc_s10_1b, &rc_s10_1f, sizeof rc_s10_1b);
+    const int32_t rc_s10_1r = (int32_t)(rc_s10_1b & 0x7fffffu) - 0x400000;
     const int32_t rc_s10_1p = rc_s10_1r & ~(rc_s10_1r >> 31);
     const int32_t rc_s10_1d = rc_s10_1p - 7;
     const int32_t rc_s10_1 = rc_s10_1p - (rc_s10_1d & ~(rc_s10_1d >> 31));
@@ -341,7 +365,7 @@ static inline float n2_molar_volume_wide(float P, float T)
 }
 
 // rc_out[i] = n2_molar_volume_wide(each input[i]) for i < rc_n; the arrays must not overlap.
-static inline void n2_molar_volume_wide_batch(const float *restrict P, const float *restrict T, float *restrict rc_out, size_t rc_n)
+static inline void n2_molar_volume_wide_batch(const float *ROOTCAST_RESTRICT P, const float *ROOTCAST_RESTRICT T, float *ROOTCAST_RESTRICT rc_out, size_t rc_n)
 {
     while (rc_n--) {
         *rc_out++ = n2_molar_volume_wide(*P++, *T++);

@@ -31,6 +31,26 @@
 #include <stddef.h>
 #include <stdint.h>
 
+// Reads a float's bits (defined in C and C++, unlike a union pun in C++);
+// gcc and clang need no <string.h>, so freestanding builds work too.
+#ifndef ROOTCAST_MEMCPY
+#if defined(__GNUC__) || defined(__clang__)
+#define ROOTCAST_MEMCPY __builtin_memcpy
+#else
+#include <string.h>
+#define ROOTCAST_MEMCPY memcpy
+#endif
+#endif
+
+// restrict is C99's; C++ compilers spell it __restrict.
+#ifndef ROOTCAST_RESTRICT
+#ifdef __cplusplus
+#define ROOTCAST_RESTRICT __restrict
+#else
+#define ROOTCAST_RESTRICT restrict
+#endif
+#endif
+
 static inline float kiln_probe_celsius(float R)
 {
     const float v2 = R - 245.245f;
@@ -51,7 +71,7 @@ static inline float kiln_probe_celsius(float R)
 }
 
 // rc_out[i] = kiln_probe_celsius(each input[i]) for i < rc_n; the arrays must not overlap.
-static inline void kiln_probe_celsius_batch(const float *restrict R, float *restrict rc_out, size_t rc_n)
+static inline void kiln_probe_celsius_batch(const float *ROOTCAST_RESTRICT R, float *ROOTCAST_RESTRICT rc_out, size_t rc_n)
 {
     while (rc_n--) {
         *rc_out++ = kiln_probe_celsius(*R++);

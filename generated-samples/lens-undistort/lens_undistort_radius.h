@@ -29,6 +29,26 @@
 #include <stddef.h>
 #include <stdint.h>
 
+// Reads a float's bits (defined in C and C++, unlike a union pun in C++);
+// gcc and clang need no <string.h>, so freestanding builds work too.
+#ifndef ROOTCAST_MEMCPY
+#if defined(__GNUC__) || defined(__clang__)
+#define ROOTCAST_MEMCPY __builtin_memcpy
+#else
+#include <string.h>
+#define ROOTCAST_MEMCPY memcpy
+#endif
+#endif
+
+// restrict is C99's; C++ compilers spell it __restrict.
+#ifndef ROOTCAST_RESTRICT
+#ifdef __cplusplus
+#define ROOTCAST_RESTRICT __restrict
+#else
+#define ROOTCAST_RESTRICT restrict
+#endif
+#endif
+
 static inline float lens_undistort_radius(float rd, float k1, float k2)
 {
     const float v3 = -rd;
@@ -66,7 +86,7 @@ static inline float lens_undistort_radius(float rd, float k1, float k2)
 }
 
 // rc_out[i] = lens_undistort_radius(each input[i]) for i < rc_n; the arrays must not overlap.
-static inline void lens_undistort_radius_batch(const float *restrict rd, const float *restrict k1, const float *restrict k2, float *restrict rc_out, size_t rc_n)
+static inline void lens_undistort_radius_batch(const float *ROOTCAST_RESTRICT rd, const float *ROOTCAST_RESTRICT k1, const float *ROOTCAST_RESTRICT k2, float *ROOTCAST_RESTRICT rc_out, size_t rc_n)
 {
     while (rc_n--) {
         *rc_out++ = lens_undistort_radius(*rd++, *k1++, *k2++);

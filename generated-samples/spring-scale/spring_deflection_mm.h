@@ -27,12 +27,34 @@
 #include <stddef.h>
 #include <stdint.h>
 
+// Reads a float's bits (defined in C and C++, unlike a union pun in C++);
+// gcc and clang need no <string.h>, so freestanding builds work too.
+#ifndef ROOTCAST_MEMCPY
+#if defined(__GNUC__) || defined(__clang__)
+#define ROOTCAST_MEMCPY __builtin_memcpy
+#else
+#include <string.h>
+#define ROOTCAST_MEMCPY memcpy
+#endif
+#endif
+
+// restrict is C99's; C++ compilers spell it __restrict.
+#ifndef ROOTCAST_RESTRICT
+#ifdef __cplusplus
+#define ROOTCAST_RESTRICT __restrict
+#else
+#define ROOTCAST_RESTRICT restrict
+#endif
+#endif
+
 static inline float spring_deflection_mm(float F)
 {
     const float v3 = F - 1.5625f;
     const float v4 = v3 * 0.32f;
-    union { float f; uint32_t u; } rc_s5_0b = { v4 + 12582912.0f };
-    const int32_t rc_s5_0r = (int32_t)(rc_s5_0b.u & 0x7fffffu) - 0x400000;
+    const float rc_s5_0f = v4 + 12582912.0f;
+    uint32_t rc_s5_0b;
+    ROOTCAST_MEMCPY(&rc_s5_0b, &rc_s5_0f, sizeof rc_s5_0b);
+    const int32_t rc_s5_0r = (int32_t)(rc_s5_0b & 0x7fffffu) - 0x400000;
     const int32_t rc_s5_0p = rc_s5_0r & ~(rc_s5_0r >> 31);
     const int32_t rc_s5_0d = rc_s5_0p - 63;
     const int32_t rc_s5_0 = rc_s5_0p - (rc_s5_0d & ~(rc_s5_0d >> 31));
@@ -101,7 +123,7 @@ static inline float spring_deflection_mm(float F)
 }
 
 // rc_out[i] = spring_deflection_mm(each input[i]) for i < rc_n; the arrays must not overlap.
-static inline void spring_deflection_mm_batch(const float *restrict F, float *restrict rc_out, size_t rc_n)
+static inline void spring_deflection_mm_batch(const float *ROOTCAST_RESTRICT F, float *ROOTCAST_RESTRICT rc_out, size_t rc_n)
 {
     while (rc_n--) {
         *rc_out++ = spring_deflection_mm(*F++);

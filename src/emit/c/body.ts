@@ -61,10 +61,14 @@ function cExpression(program: Program, node: Node, at: number): string | null {
 
 /**
  * The segment number (SEGMENT INDEX in src/ir/nodes.ts): round by adding the
- * magic constant, read the bits through a union (defined behaviour for every
- * value, NaN included), clamp with integer operations. gcc compiles this
- * without branches (TOOLCHAIN.md: integer clamps written with bit operations).
- * Right shifts of negative int32_t are arithmetic in gcc and clang.
+ * magic constant, copy the bits to an unsigned integer with ROOTCAST_MEMCPY
+ * (the template's memcpy: gcc's builtin, else <string.h>; defined
+ * behaviour in C99 and in C++ for every value, NaN included; a union pun is
+ * undefined in C++), clamp with integer operations. gcc turns the fixed-size
+ * memcpy into one register move and compiles the rest without branches
+ * (TOOLCHAIN.md: integer clamps written with bit operations). Right shifts of
+ * negative int32_t are arithmetic in gcc and clang (implementation-defined in
+ * C99, defined in C++20).
  */
 function cIndexLines(program: Program, parts: readonly IndexPart[], at: number): string[] {
   const f32 = program.arithmetic === 'float32';
@@ -75,11 +79,13 @@ function cIndexLines(program: Program, parts: readonly IndexPart[], at: number):
     const t = cReference(program, p.t, at);
     const s = `rc_s${at}_${k}`;
     const magic = cLiteral(SEGMENT_MAGIC[program.arithmetic], program.arithmetic);
-    lines.push(`union { ${type} f; ${f32 ? 'uint32_t' : 'uint64_t'} u; } ${s}b = { ${t} + ${magic} };`);
+    lines.push(`const ${type} ${s}f = ${t} + ${magic};`);
+    lines.push(`${f32 ? 'uint32_t' : 'uint64_t'} ${s}b;`);
+    lines.push(`ROOTCAST_MEMCPY(&${s}b, &${s}f, sizeof ${s}b);`);
     lines.push(
       f32
-        ? `const int32_t ${s}r = (int32_t)(${s}b.u & 0x7fffffu) - 0x400000;`
-        : `const int32_t ${s}r = (int32_t)(uint32_t)(${s}b.u & 0xffffffffu);`,
+        ? `const int32_t ${s}r = (int32_t)(${s}b & 0x7fffffu) - 0x400000;`
+        : `const int32_t ${s}r = (int32_t)(uint32_t)(${s}b & 0xffffffffu);`,
     );
     lines.push(`const int32_t ${s}p = ${s}r & ~(${s}r >> 31);`);
     lines.push(`const int32_t ${s}d = ${s}p - ${p.count - 1};`);
