@@ -7,6 +7,7 @@
 import type { OpCounts } from '../ir/count.js';
 import type { Program } from '../ir/nodes.js';
 import type { Family } from '../family/types.js';
+import type { FileRole } from './stamp.js';
 
 export type Target = 'c' | 'ts' | 'glsl';
 
@@ -41,6 +42,8 @@ export interface EmitInput {
   readonly claims: PlanClaims;
   /** Generator name and version, for the header (no time, no machine). */
   readonly generator: { readonly name: string; readonly version: string };
+  /** Which file is being printed, for the stamp line (files.ts sets it). */
+  readonly role?: FileRole;
 }
 
 /** One emitted file: path relative to the output directory, and its exact text. */
