@@ -8,7 +8,7 @@
  */
 import type { Interval } from '../math/interval.js';
 import { Rational } from '../math/rational.js';
-import { roundNumber, roundTo } from '../ir/round.js';
+import { roundNumber, roundTo } from '../family/arithmetic.js';
 import type { Family } from '../family/types.js';
 
 export type Cell = Interval[];

@@ -11,7 +11,7 @@
  */
 import { Rational } from '../math/rational.js';
 import type { Segmentation } from '../ir/builder.js';
-import { FORMATS, roundTo } from '../ir/round.js';
+import { ARITHMETICS, roundTo } from '../family/arithmetic.js';
 import type { Family } from '../family/types.js';
 import type { Cell } from './box.js';
 import { boxCentre } from './root-choice.js';
@@ -26,7 +26,7 @@ export interface SegmentLayout {
 
 export function segmentLayout(family: Family, box: Cell, counts: readonly number[]): SegmentLayout {
   const arith = family.arithmetic;
-  const u = FORMATS[arith].u;
+  const u = ARITHMETICS[arith].u;
   const centre = boxCentre(family);
   const split = counts.map((k, i) => ({ i, k })).filter((p) => p.k > 1);
   let stride = 1;
