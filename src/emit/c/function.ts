@@ -16,7 +16,7 @@ import { assertUserName } from '../names.js';
 import { renderTemplate } from '../templates.js';
 import type { EmitInput, EmittedFile } from '../types.js';
 import { ARITHMETICS } from '../../family/arithmetic.js';
-import { cBodyLines } from './body.js';
+import { cBodyLines, cTableDefinitions } from './body.js';
 
 export function cFunction(input: EmitInput): EmittedFile {
   const { program, family } = input;
@@ -31,7 +31,8 @@ export function cFunction(input: EmitInput): EmittedFile {
     returnType: type,
     name,
     parameters,
-    bodyLines: cBodyLines(program),
+    bodyLines: cBodyLines(program, name),
+    tableLines: cTableDefinitions(program, name),
     batchParameters: [...program.inputs.map((n) => `const ${type} *restrict ${n}`), `${type} *restrict rc_out`, 'size_t rc_n'].join(', '),
     batchArguments: program.inputs.map((n) => `*${n}++`).join(', '),
   });
