@@ -5,7 +5,8 @@
  * these paths (test/emit/outputs.test.ts holds them to it). A new target adds
  * one row to TARGET_FILES.
  */
-import type { Arithmetic } from '../family/types.js';
+import { ARITHMETICS } from '../family/arithmetic.js';
+import type { Arithmetic } from '../family/arithmetic.js';
 
 export type TargetName = 'c' | 'ts' | 'glsl';
 export const TARGETS: readonly TargetName[] = ['c', 'ts', 'glsl'];
@@ -25,7 +26,7 @@ export function targetsOf(option: string): TargetName[] {
 /** The requested targets in TARGETS order, without glsl for a float64 program when others were requested too. */
 export function applicableTargetsFor(arithmetic: Arithmetic, targets: readonly TargetName[]): TargetName[] {
   const wanted = TARGETS.filter((t) => targets.includes(t));
-  if (wanted.length > 1 && arithmetic !== 'float32') return wanted.filter((t) => t !== 'glsl');
+  if (wanted.length > 1 && ARITHMETICS[arithmetic].glslType === null) return wanted.filter((t) => t !== 'glsl');
   return wanted;
 }
 

@@ -11,6 +11,7 @@ const slots = {
   bodyLines: ['return x;'],
   batchParameters: 'const float *ROOTCAST_RESTRICT x, float *ROOTCAST_RESTRICT rc_out, size_t rc_n',
   batchArguments: '*x++',
+  tableLines: [] as string[],
 };
 
 describe('renderTemplate', () => {
