@@ -108,7 +108,7 @@ export function cycleHeaderLine(program: Program): string {
   const e = cortexM4fCycles(program);
   if (e.kind === 'software-double') return 'cortex-m4f estimate: software double: not estimated (FPv4-SP has no double unit)';
   const segments = e.tableReads + e.indexes === 0 ? '' : ` + ${e.tableReads} table reads + ${e.indexes} segment ${e.indexes === 1 ? 'index' : 'indexes'}`;
-  return `cortex-m4f estimate: ~${e.cycles} cycles (${e.fpuOps} FPU ops + ${e.constantLoads} constant loads${segments}; Cortex-M4 TRM FPU timings, see src/emit/cycles.ts)`;
+  return `cortex-m4f estimate: ~${e.cycles} cycles (${e.fpuOps} FPU ops + ${e.constantLoads} constant loads${segments}; Cortex-M4 TRM FPU timings; README, "Performance")`;
 }
 
 /** The value operands of a node (the fields a and b of the arithmetic kinds). */

@@ -26,7 +26,11 @@ const ARITHMETIC_NOTE: Readonly<Record<Arithmetic, string>> = {
 const WRAP_COLUMN = 76;
 const LABEL_WIDTH = 12;
 
-export function headerLines(input: EmitInput, fileRole: string): string[] {
+/**
+ * `cycles: false` leaves out the Cortex-M4F estimate (GLSL files: a shader
+ * runs on a GPU, so its header gives the op counts only).
+ */
+export function headerLines(input: EmitInput, fileRole: string, options: { readonly cycles?: boolean } = {}): string[] {
   const { family, claims, generator } = input;
   const ops = countOps(input.program);
   assertSameOps(claims.ops, ops);
@@ -58,7 +62,7 @@ export function headerLines(input: EmitInput, fileRole: string): string[] {
       `order ${claims.order}, ${claims.terms} ${claims.terms === 1 ? 'term' : 'terms'}${claims.steps > 0 ? `, then ${claims.steps} Newton ${claims.steps === 1 ? 'step' : 'steps'}` : ''}`,
     ]),
     ...labelled('operations:', [`${ops.add} add, ${ops.mul} mul, ${ops.div} div, ${ops.tableReads} table reads`]),
-    cycleHeaderLine(input.program),
+    ...(options.cycles === false ? [] : [cycleHeaderLine(input.program)]),
   ];
   for (const line of lines) assertCommentSafe(line);
   return lines;

@@ -113,7 +113,7 @@ export function planText(plan: Plan): string {
     ['target', `${f.accuracy.value} (${f.accuracy.kind})`],
     ['ops', `${c.ops.add} add, ${c.ops.mul} mul, ${c.ops.div} div, ${c.ops.tableReads} table reads`],
     ['segments', `${plan.counts.join(' x ')} (${plan.tableBytes} table bytes)`],
-    ['cost', `${plan.cost} (${f.arithmetic === 'float32' ? 'Cortex-M4F cycles, estimated' : 'x86-64 latency units'}; src/plan/cost.ts)`],
+    ['cost', `${plan.cost} (${f.arithmetic === 'float32' ? 'Cortex-M4F cycles, estimated' : 'x86-64 latency units'}; README, "How the planner chooses")`],
   ];
   return [
     `${f.functionName}`,
