@@ -17,8 +17,8 @@
  *   total       0.0092
  * target:     0.01 (absolute)
  * series:     order 0, 1 term
- * operations: 4 add, 2 mul, 0 div, 3 table reads
- * cortex-m4f estimate: ~34 cycles (5 FPU ops + 2 constant loads + 3 table reads + 1 segment index; Cortex-M4 TRM FPU timings, see src/emit/cycles.ts)
+ * operations: 3 add, 2 mul, 0 div, 2 table reads
+ * cortex-m4f estimate: ~30 cycles (4 FPU ops + 2 constant loads + 2 table reads + 1 segment index; Cortex-M4 TRM FPU timings, see src/emit/cycles.ts)
  *
  * Use: #include it in a shader (any stage, shader model 4 or later).
  *
@@ -52,41 +52,22 @@ static const float rc_spring_deflection_mm_tab6[64] = {
 };
 
 static const float rc_spring_deflection_mm_tab8[64] = {
-    0.77982384f, 2.3061554f, 3.7400086f, 5.0410023f,
-    6.1908336f, 7.189609f, 8.049195f, 8.786996f,
-    9.421618f, 9.9704685f, 10.448708f, 10.869025f,
-    11.241799f, 11.575416f, 11.876612f, 12.150796f,
-    12.402317f, 12.6346855f, 12.850747f, 13.052824f,
-    13.24282f, 13.422308f, 13.592595f, 13.754774f,
-    13.909762f, 14.05834f, 14.201167f, 14.338814f,
-    14.471766f, 14.600448f, 14.725227f, 14.846425f,
-    14.964325f, 15.079175f, 15.191197f, 15.300587f,
-    15.407521f, 15.5121565f, 15.6146345f, 15.715083f,
-    15.813619f, 15.910347f, 16.005362f, 16.098755f,
-    16.190601f, 16.280981f, 16.369955f, 16.457594f,
-    16.543951f, 16.62908f, 16.713034f, 16.795858f,
-    16.877596f, 16.95829f, 17.037975f, 17.11669f,
-    17.194468f, 17.27134f, 17.347336f, 17.422483f,
-    17.49681f, 17.570343f, 17.643103f, 17.715113f
-};
-
-static const float rc_spring_deflection_mm_tab10[64] = {
-    0.78077406f, 2.331083f, 3.8492181f, 5.3183236f,
-    6.7268558f, 8.068488f, 9.341165f, 10.545883f,
-    11.68556f, 12.764163f, 13.786107f, 14.755871f,
-    15.677772f, 16.555853f, 17.39383f, 18.195076f,
-    18.962637f, 19.699251f, 20.407375f, 21.089216f,
-    21.746752f, 22.38176f, 22.995844f, 23.590448f,
-    24.166878f, 24.726315f, 25.269833f, 25.79841f,
-    26.31294f, 26.814234f, 27.30304f, 27.78004f,
-    28.24587f, 28.701109f, 29.146292f, 29.581917f,
-    30.008444f, 30.426302f, 30.835888f, 31.237572f,
-    31.631699f, 32.018597f, 32.39856f, 32.77188f,
-    33.13882f, 33.49963f, 33.85454f, 34.203785f,
-    34.54756f, 34.886074f, 35.219505f, 35.54803f,
-    35.871826f, 36.19104f, 36.50583f, 36.816334f,
-    37.122692f, 37.42503f, 37.723473f, 38.01814f,
-    38.30914f, 38.59658f, 38.880566f, 39.16119f
+    0.00095019466f, 0.024927603f, 0.10920943f, 0.27732122f,
+    0.53602237f, 0.8788789f, 1.2919692f, 1.7588872f,
+    2.2639413f, 2.7936947f, 3.3373995f, 3.8868454f,
+    4.4359717f, 4.9804373f, 5.5172176f, 6.04428f,
+    6.56032f, 7.0645657f, 7.556628f, 8.036392f,
+    8.503932f, 8.959452f, 9.403249f, 9.835674f,
+    10.257115f, 10.667974f, 11.0686655f, 11.459597f,
+    11.841174f, 12.213786f, 12.577812f, 12.933616f,
+    13.281546f, 13.621934f, 13.955094f, 14.28133f,
+    14.600923f, 14.914145f, 15.221253f, 15.522489f,
+    15.81808f, 16.10825f, 16.393198f, 16.673126f,
+    16.94822f, 17.218649f, 17.484587f, 17.746191f,
+    18.00361f, 18.256994f, 18.506472f, 18.752172f,
+    18.99423f, 19.23275f, 19.467854f, 19.699644f,
+    19.928225f, 20.15369f, 20.376137f, 20.595655f,
+    20.812328f, 21.026237f, 21.237463f, 21.446077f
 };
 
 float spring_deflection_mm(float F)
@@ -102,10 +83,8 @@ float spring_deflection_mm(float F)
     float v6 = rc_spring_deflection_mm_tab6[v5];
     precise float v7 = F * v6;
     float v8 = rc_spring_deflection_mm_tab8[v5];
-    precise float v9 = v7 + v8;
-    float v10 = rc_spring_deflection_mm_tab10[v5];
-    precise float v11 = v10 - v9;
-    return v11;
+    precise float v9 = v8 - v7;
+    return v9;
 }
 
 /* The same operations on four inputs at once, component by component. */
@@ -122,10 +101,8 @@ float4 spring_deflection_mm(float4 F)
     float4 v6 = float4(rc_spring_deflection_mm_tab6[v5.x], rc_spring_deflection_mm_tab6[v5.y], rc_spring_deflection_mm_tab6[v5.z], rc_spring_deflection_mm_tab6[v5.w]);
     precise float4 v7 = F * v6;
     float4 v8 = float4(rc_spring_deflection_mm_tab8[v5.x], rc_spring_deflection_mm_tab8[v5.y], rc_spring_deflection_mm_tab8[v5.z], rc_spring_deflection_mm_tab8[v5.w]);
-    precise float4 v9 = v7 + v8;
-    float4 v10 = float4(rc_spring_deflection_mm_tab10[v5.x], rc_spring_deflection_mm_tab10[v5.y], rc_spring_deflection_mm_tab10[v5.z], rc_spring_deflection_mm_tab10[v5.w]);
-    precise float4 v11 = v10 - v9;
-    return v11;
+    precise float4 v9 = v8 - v7;
+    return v9;
 }
 
 #endif

@@ -9,12 +9,19 @@ import { wgslFunction } from '../emit/wgsl/function.js';
 import { tsHarness } from '../emit/harness/ts.js';
 import { tsFunction } from '../emit/ts/function.js';
 import type { EmitInput, EmittedFile } from '../emit/types.js';
+import { ARITHMETICS, type Arithmetic } from '../family/arithmetic.js';
 
 export type TargetName = 'c' | 'ts' | 'glsl' | 'wgsl' | 'hlsl' | 'rust';
 export const TARGETS: readonly TargetName[] = ['c', 'ts', 'glsl', 'wgsl', 'hlsl', 'rust'];
 
-/** The targets that compute in float32 only (the shading languages). */
-export const FLOAT32_ONLY: readonly TargetName[] = ['glsl', 'wgsl', 'hlsl'];
+/** Whether a target has a type for the arithmetic (the arithmetic table says; the shading languages have binary32 only). */
+export function targetAllows(target: TargetName, arithmetic: Arithmetic): boolean {
+  const a = ARITHMETICS[arithmetic];
+  if (target === 'glsl') return a.glslType !== null;
+  if (target === 'wgsl') return a.wgslType !== null;
+  if (target === 'hlsl') return a.hlslType !== null;
+  return true;
+}
 
 /**
  * Every file for the targets, in a fixed order: C, TypeScript, GLSL (each
@@ -37,10 +44,10 @@ export function emitFiles(input: EmitInput, targets: readonly TargetName[]): Emi
   return out;
 }
 
-/** The requested targets in TARGETS order, without the float32-only ones for a float64 program when others were requested too. */
+/** The requested targets in TARGETS order, without those that lack the program's arithmetic when others were requested too. */
 export function applicableTargets(input: EmitInput, targets: readonly TargetName[]): TargetName[] {
   const wanted = TARGETS.filter((t) => targets.includes(t));
-  if (wanted.length > 1 && input.program.arithmetic !== 'float32') return wanted.filter((t) => !FLOAT32_ONLY.includes(t));
+  if (wanted.length > 1 && input.program.arithmetic !== 'float32') return wanted.filter((t) => targetAllows(t, input.program.arithmetic));
   return wanted;
 }
 

@@ -4,7 +4,7 @@
  * comparison with the in-process evaluation is exact (sign of zero and NaN
  * payloads included).
  */
-import type { Arithmetic } from '../family/types.js';
+import type { Arithmetic } from '../family/arithmetic.js';
 
 const view = new DataView(new ArrayBuffer(8));
 

@@ -13,7 +13,7 @@ import { afterAll, describe, expect, test } from '@jest/globals';
 import { cFunction } from '../../src/emit/c/function.js';
 import { rustFunction } from '../../src/emit/rust/function.js';
 import { evaluate } from '../../src/ir/evaluate.js';
-import type { Arithmetic } from '../../src/family/types.js';
+import type { Arithmetic } from '../../src/family/arithmetic.js';
 import { bitsOf } from '../../src/verify/bits.js';
 import { runRustBits } from '../../src/verify/rust/run.js';
 import { checkSamplePoints } from '../../src/verify/samples.js';

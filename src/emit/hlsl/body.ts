@@ -18,7 +18,8 @@
  * arithmetic shift in HLSL). Tables are file-scope `static const` arrays
  * (tableDeclarations), read at the clamped index.
  */
-import { SEGMENT_MAGIC, UnknownNodeError, type IndexPart, type Node, type Program } from '../../ir/nodes.js';
+import { ARITHMETICS } from '../../family/arithmetic.js';
+import { UnknownNodeError, type IndexPart, type Node, type Program } from '../../ir/nodes.js';
 import { hlslLiteral, hlslOperand } from '../literals/hlsl.js';
 import { valueName } from '../names.js';
 import { operandText, resultText, type OperandStyle } from '../operands.js';
@@ -32,7 +33,7 @@ export function hlslTableName(functionName: string, at: number): string {
 }
 
 export function hlslBodyLines(program: Program, functionName: string, shape: HlslShape): string[] {
-  if (program.arithmetic !== 'float32') throw new RangeError(`HLSL code is float32 only; the program computes in ${program.arithmetic}`);
+  if (ARITHMETICS[program.arithmetic].hlslType === null) throw new RangeError(`HLSL code is float32 only; the program computes in ${program.arithmetic}`);
   const vector = vectorNodes(program, shape === 'float4' ? 'vec4' : 'float');
   const lines: string[] = [];
   program.nodes.forEach((node, i) => lines.push(...hlslNodeLines(program, functionName, node, i, vector)));
@@ -99,7 +100,7 @@ function hlslIndexLines(program: Program, parts: readonly IndexPart[], at: numbe
     const i = vector[p.t] ? 'int4' : 'int';
     const s = `rc_s${at}_${k}`;
     const t = operandText(program, p.t, at, HLSL_STYLE);
-    lines.push(`precise ${f} ${s}b = ${t} + ${hlslLiteral(SEGMENT_MAGIC.float32)};`);
+    lines.push(`precise ${f} ${s}b = ${t} + ${hlslLiteral(ARITHMETICS.float32.segmentMagic)};`);
     lines.push(`${i} ${s}r = (${i})(asuint(${s}b) & 0x7fffffu) - 0x400000;`);
     lines.push(`${i} ${s}p = ${s}r & ~(${s}r >> 31);`);
     lines.push(`${i} ${s}d = ${s}p - ${p.count - 1};`);

@@ -14,7 +14,7 @@
  * | float64    | 0.1     | `0.1_f64`      |
  * | float64    | -0      | `-0.0_f64`     |
  */
-import type { Arithmetic } from '../../family/types.js';
+import type { Arithmetic } from '../../family/arithmetic.js';
 import { glslLiteral } from './glsl.js';
 
 export function rustLiteral(value: number, arithmetic: Arithmetic): string {

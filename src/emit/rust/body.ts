@@ -16,13 +16,12 @@
  * module `static` arrays (tableDeclarations); the clamped index keeps every
  * read inside its table, so the bounds check never fires.
  */
-import { SEGMENT_MAGIC, UnknownNodeError, type IndexPart, type Node, type Program } from '../../ir/nodes.js';
+import { ARITHMETICS } from '../../family/arithmetic.js';
+import { UnknownNodeError, type IndexPart, type Node, type Program } from '../../ir/nodes.js';
 import { rustLiteral, rustOperand } from '../literals/rust.js';
 import { valueName } from '../names.js';
 import { operandText, resultText, type OperandStyle } from '../operands.js';
 import { readInputs } from '../read-inputs.js';
-
-export const RUST_TYPE = { float32: 'f32', float64: 'f64' } as const;
 
 /** The static's name for node `at`'s table (upper case, as Rust names statics). */
 export function rustTableName(at: number): string {
@@ -42,7 +41,7 @@ export function rustBodyLines(program: Program): string[] {
 
 /** Every table of the program as a module `static` array, in node order, each after a blank line. */
 export function rustTableDeclarations(program: Program): string[] {
-  const type = RUST_TYPE[program.arithmetic];
+  const type = ARITHMETICS[program.arithmetic].rustType;
   const lines: string[] = [];
   program.nodes.forEach((node, at) => {
     if (node.kind !== 'table') return;
@@ -58,7 +57,7 @@ export function rustTableDeclarations(program: Program): string[] {
 
 function rustNodeLines(program: Program, node: Node, at: number): string[] {
   const ref = (r: number): string => operandText(program, r, at, rustStyle(program));
-  const local = (rhs: string): string[] => [`let ${valueName(at)}: ${RUST_TYPE[program.arithmetic]} = ${rhs};`];
+  const local = (rhs: string): string[] => [`let ${valueName(at)}: ${ARITHMETICS[program.arithmetic].rustType} = ${rhs};`];
   switch (node.kind) {
     case 'const':
     case 'input':
@@ -76,7 +75,7 @@ function rustNodeLines(program: Program, node: Node, at: number): string[] {
     case 'index':
       return rustIndexLines(program, node.parts, at);
     case 'table':
-      return [`let ${valueName(at)}: ${RUST_TYPE[program.arithmetic]} = ${rustTableName(at)}[${valueName(node.index)}];`];
+      return [`let ${valueName(at)}: ${ARITHMETICS[program.arithmetic].rustType} = ${rustTableName(at)}[${valueName(node.index)}];`];
     default:
       throw new UnknownNodeError(node);
   }
@@ -84,7 +83,8 @@ function rustNodeLines(program: Program, node: Node, at: number): string[] {
 
 /** The segment number as a usize, computed as in C (magic constant, bits, integer clamps). */
 function rustIndexLines(program: Program, parts: readonly IndexPart[], at: number): string[] {
-  const f32 = program.arithmetic === 'float32';
+  const a = ARITHMETICS[program.arithmetic];
+  const significand = a.segmentRead === 'significand';
   const lines: string[] = [];
   const terms: string[] = [];
   parts.forEach((p, k) => {
@@ -93,9 +93,9 @@ function rustIndexLines(program: Program, parts: readonly IndexPart[], at: numbe
     }
     const s = `rc_s${at}_${k}`;
     const t = operandText(program, p.t, at, rustStyle(program));
-    const magic = rustLiteral(SEGMENT_MAGIC[program.arithmetic], program.arithmetic);
-    lines.push(`let ${s}b: ${f32 ? 'u32' : 'u64'} = (${t} + ${magic}).to_bits();`);
-    lines.push(f32 ? `let ${s}r: i32 = (${s}b & 0x7f_ffff) as i32 - 0x40_0000;` : `let ${s}r: i32 = ${s}b as u32 as i32;`);
+    const magic = rustLiteral(a.segmentMagic, program.arithmetic);
+    lines.push(`let ${s}b: ${a.rustBitsType} = (${t} + ${magic}).to_bits();`);
+    lines.push(significand ? `let ${s}r: i32 = (${s}b & 0x7f_ffff) as i32 - 0x40_0000;` : `let ${s}r: i32 = ${s}b as u32 as i32;`);
     lines.push(`let ${s}p: i32 = ${s}r & !(${s}r >> 31);`);
     lines.push(`let ${s}d: i32 = ${s}p - ${p.count - 1};`);
     lines.push(`let ${s}: i32 = ${s}p - (${s}d & !(${s}d >> 31));`);

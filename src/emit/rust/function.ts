@@ -11,7 +11,8 @@ import { assertUserName } from '../names.js';
 import { slashCommentLines } from '../shader-comment.js';
 import { renderTemplate } from '../templates.js';
 import type { EmitInput, EmittedFile } from '../types.js';
-import { RUST_TYPE, rustBodyLines, rustTableDeclarations } from './body.js';
+import { ARITHMETICS } from '../../family/arithmetic.js';
+import { rustBodyLines, rustTableDeclarations } from './body.js';
 
 export function rustPath(name: string): string {
   return `${name}.rs`;
@@ -22,7 +23,7 @@ export function rustFunction(input: EmitInput): EmittedFile {
   const name = family.functionName;
   assertUserName(name, 'function name');
   program.inputs.forEach((n) => assertUserName(n, 'input name'));
-  const type = RUST_TYPE[program.arithmetic];
+  const type = ARITHMETICS[program.arithmetic].rustType;
   const header = headerLines(input, 'Rust function (core only, works in #![no_std]; branch-free arithmetic)');
   const text = renderTemplate('rust/function.rs.hbs', {
     commentLines: slashCommentLines(

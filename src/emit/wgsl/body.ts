@@ -18,6 +18,7 @@
  * constants are module-scope `const` arrays (tableDeclarations), read at the
  * clamped index, so no read leaves a table.
  */
+import { ARITHMETICS } from '../../family/arithmetic.js';
 import { UnknownNodeError, type IndexPart, type Node, type Program } from '../../ir/nodes.js';
 import { wgslLiteral, wgslOperand } from '../literals/wgsl.js';
 import { valueName } from '../names.js';
@@ -32,7 +33,7 @@ export function wgslTableName(functionName: string, at: number): string {
 }
 
 export function wgslBodyLines(program: Program, functionName: string, shape: WgslShape): string[] {
-  if (program.arithmetic !== 'float32') throw new RangeError(`WGSL code is float32 only; the program computes in ${program.arithmetic}`);
+  if (ARITHMETICS[program.arithmetic].wgslType === null) throw new RangeError(`WGSL code is float32 only; the program computes in ${program.arithmetic}`);
   const vector = vectorNodes(program, shape === 'vec4' ? 'vec4' : 'float');
   const lines: string[] = [];
   program.nodes.forEach((node, i) => lines.push(...wgslNodeLines(program, functionName, node, i, vector)));

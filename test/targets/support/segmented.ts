@@ -7,7 +7,7 @@
 import { ProgramBuilder } from '../../../src/ir/builder.js';
 import type { Program } from '../../../src/ir/nodes.js';
 import { Rational } from '../../../src/math/rational.js';
-import type { Arithmetic } from '../../../src/family/types.js';
+import type { Arithmetic } from '../../../src/family/arithmetic.js';
 
 const q = (n: number, d = 1): Rational => Rational.of(BigInt(n), BigInt(d));
 
