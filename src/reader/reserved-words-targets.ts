@@ -61,7 +61,7 @@ export const TARGET_RESERVED_GROUPS: readonly ReservedGroup[] = [
   },
   {
     language: 'WGSL',
-    kind: 'a built-in function the generated code calls',
+    kind: 'a built-in function',
     words: words('round clamp select bitcast arrayLength'),
   },
   {
@@ -93,7 +93,7 @@ export const TARGET_RESERVED_GROUPS: readonly ReservedGroup[] = [
   },
   {
     language: 'HLSL',
-    kind: 'an intrinsic function the generated code calls',
+    kind: 'an intrinsic function',
     words: words('asuint asint asfloat round clamp'),
   },
   {
