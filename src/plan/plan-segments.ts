@@ -10,6 +10,7 @@ import { costModelFor } from '../ir/cost/index.js';
 import type { Program } from '../ir/nodes.js';
 import type { Family } from '../family/types.js';
 import { grid, type Cell } from './box.js';
+import { certifyRootInBracket } from './bracket-check.js';
 import { CellSet } from './cell-set.js';
 import { FoundPlans, type FormContext } from './forms/context.js';
 import { FORMS } from './forms/index.js';
@@ -53,6 +54,7 @@ function planSegmentsInner(family: Family, box: Cell, counts: readonly number[],
   }
   set.repairBadCells(LIMITS.cells, relative, thorough);
   refuseBadCells(family, set.cells, relative);
+  certifyRootInBracket(family, expansion.x0.map((v) => v.toNumber()), set.cells);
 
   const ctx: FormContext = {
     family,
