@@ -28,6 +28,9 @@ import { nextDown, nextUp, type Rational } from '../math/rational.js';
 
 export type Arithmetic = 'float32' | 'float64';
 
+/** The cost models the planner can rank by (one row each in src/ir/cost/index.ts). */
+export type CostModelName = 'cortex-m4f' | 'x86-64';
+
 /** The facts of a binary floating-point arithmetic (IEEE 754 binary32 or binary64). */
 export interface FloatFacts {
   readonly kind: 'float';
@@ -81,6 +84,8 @@ export interface FloatFacts {
   readonly boundsAllowFlush: boolean;
   /** A Cortex-M4F computes it in hardware (its FPU is single precision only; binary64 is a software library there). */
   readonly m4fHardware: boolean;
+  /** The cost model the planner ranks plans by and the header prints (src/ir/cost/index.ts). */
+  readonly costModel: CostModelName;
   /** The wider arithmetic a refusal suggests (range or rounding floor), or null for the widest. */
   readonly wider: Arithmetic | null;
 }
@@ -110,6 +115,7 @@ export const ARITHMETICS: Readonly<Record<Arithmetic, ArithmeticFacts>> = {
     segmentRead: 'significand',
     boundsAllowFlush: true,
     m4fHardware: true,
+    costModel: 'cortex-m4f',
     wider: 'float64',
   },
   float64: {
@@ -134,6 +140,7 @@ export const ARITHMETICS: Readonly<Record<Arithmetic, ArithmeticFacts>> = {
     segmentRead: 'low-word',
     boundsAllowFlush: false,
     m4fHardware: false,
+    costModel: 'x86-64',
     wider: null,
   },
 };
