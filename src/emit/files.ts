@@ -6,18 +6,25 @@ import { glslHarness } from './harness/glsl.js';
 import { tsHarness } from './harness/ts.js';
 import { sealStamp } from './stamp.js';
 import { tsFunction } from './ts/function.js';
+import { hlslFunction } from './hlsl/function.js';
+import { rustFunction } from './rust/function.js';
+import { wgslFunction } from './wgsl/function.js';
 import type { EmitInput, EmittedFile } from './types.js';
 import { applicableTargetsFor, type TargetName } from './outputs.js';
 
-export { TARGETS, targetsOf, type TargetName } from './outputs.js';
+export { TARGETS, targetAllows, targetsOf, type TargetName } from './outputs.js';
 
 type Printer = (input: EmitInput) => EmittedFile;
 
 /** Per target: the function printer and the harness writer. A new target adds a row here and in outputs.ts. */
-const PRINTERS: Readonly<Record<TargetName, { readonly function: Printer; readonly harness: Printer }>> = {
+const PRINTERS: Readonly<Record<TargetName, { readonly function: Printer; readonly harness: Printer | null }>> = {
   c: { function: cFunction, harness: cHarness },
   ts: { function: tsFunction, harness: tsHarness },
   glsl: { function: glslFunction, harness: glslHarness },
+  // Checked through bit runners in src/verify: no harness file.
+  wgsl: { function: wgslFunction, harness: null },
+  hlsl: { function: hlslFunction, harness: null },
+  rust: { function: rustFunction, harness: null },
 };
 
 /**
@@ -32,7 +39,8 @@ export function emitFiles(input: EmitInput, targets: readonly TargetName[], opti
   const out: EmittedFile[] = [];
   for (const t of applicableTargets(input, targets)) {
     out.push(PRINTERS[t].function({ ...input, role: { target: t, kind: 'function' } }));
-    if (options.harness) out.push(PRINTERS[t].harness({ ...input, role: { target: t, kind: 'harness' } }));
+    const harness = PRINTERS[t].harness;
+    if (options.harness && harness) out.push(harness({ ...input, role: { target: t, kind: 'harness' } }));
   }
   return out.map((f) => ({ path: f.path, text: sealStamp(f.text) }));
 }

@@ -31,6 +31,7 @@ export function runPlan(o: { specs: readonly string[]; json: boolean }, print: (
   else if (texts.length > 0) print(texts.join('\n\n'));
   return code;
 }
+import { COST_MODELS } from '../../ir/cost/index.js';
 
 /** The documented shape of `plan --json` (see README, "plan --json"). */
 export function planJson(plan: Plan): { readonly generator: typeof GENERATOR; readonly [field: string]: unknown } {
@@ -53,7 +54,7 @@ export function planJson(plan: Plan): { readonly generator: typeof GENERATOR; re
     target: c.target,
     ops: c.ops,
     segments: { counts: plan.counts, tableBytes: plan.tableBytes },
-    cost: { model: plan.family.arithmetic === 'float32' ? 'cortex-m4f' : 'x86-64', value: plan.cost },
+    cost: { model: plan.costModel, value: plan.cost },
     candidates: plan.candidates.map((k) => ({
       form: k.form,
       degree: k.degree,
@@ -113,7 +114,7 @@ export function planText(plan: Plan): string {
     ['target', `${f.accuracy.value} (${f.accuracy.kind})`],
     ['ops', `${c.ops.add} add, ${c.ops.mul} mul, ${c.ops.div} div, ${c.ops.tableReads} table reads`],
     ['segments', `${plan.counts.join(' x ')} (${plan.tableBytes} table bytes)`],
-    ['cost', `${plan.cost} (${f.arithmetic === 'float32' ? 'Cortex-M4F cycles, estimated' : 'x86-64 latency units'}; README, "How the planner chooses")`],
+    ['cost', `${plan.cost} (${COST_MODELS[plan.costModel].unit}; README, "How the planner chooses")`],
   ];
   return [
     `${f.functionName}`,
