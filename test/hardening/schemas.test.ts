@@ -57,7 +57,7 @@ describe('the JSON Schemas describe what rootcast reads and prints', () => {
       const out: unknown = JSON.parse(r.stdout);
       expect({ file, valid: check(out), errors: check.errors ?? null }).toEqual({ file, valid: true, errors: null });
     }
-  }, 120_000);
+  }, 400_000);
 
   test('verify --json prints one object that validates against schema/verify.schema.json', async () => {
     const check = validator().getSchema('verify.schema.json')!;
@@ -72,7 +72,7 @@ describe('the JSON Schemas describe what rootcast reads and prints', () => {
     expect(out.checks[out.checks.length - 1]).toMatchObject({ target: 'branches', pass: true });
     expect(out.pass).toBe(true);
     expect(out).toMatchObject({ generator: { name: 'rootcast', version: VERSION } });
-  }, 120_000);
+  }, 400_000);
 
   test('refusals print one JSON object that validates, exit 2: a broken spec under plan and verify, and a bad command line', async () => {
     const plan = validator().getSchema('plan.schema.json')!;
@@ -95,7 +95,7 @@ describe('the JSON Schemas describe what rootcast reads and prints', () => {
     }
     const located = JSON.parse(runs[0]!.r.stdout) as { refusal: { file: string; line: number; column: number; field: string } };
     expect(runs[0]!.r.stderr.trim()).toBe(`${located.refusal.file}:${located.refusal.line}:${located.refusal.column}: ${located.refusal.field}: ${(JSON.parse(runs[0]!.r.stdout) as { refusal: { message: string } }).refusal.message}`);
-  }, 120_000);
+  }, 400_000);
 
   test('several specs: one array in the order given, a refused one in its place, exit code the worst', async () => {
     const plan = validator().getSchema('plan.schema.json')!;
@@ -105,7 +105,7 @@ describe('the JSON Schemas describe what rootcast reads and prints', () => {
     expect({ valid: plan(out), errors: plan.errors ?? null }).toEqual({ valid: true, errors: null });
     expect(out.map((o) => o.function ?? 'refused')).toEqual(['spring_deflection_mm', 'refused', 'kiln_probe_celsius']);
     expect(r.stderr.trim().split('\n')).toHaveLength(1);
-  }, 120_000);
+  }, 400_000);
 
   test('the schemas resolve each other by local file name only, and ship in the npm package', () => {
     const files = readdirSync(join(REPO, 'schema')).filter((f) => f.endsWith('.json'));
