@@ -74,7 +74,7 @@ describe('--depfile', () => {
 describe('--no-harness', () => {
   test('writes the function files only, and --check with --no-harness agrees', async () => {
     expect(bare.code).toBe(0);
-    expect(readdirSync(join(bareDir, 'gen')).sort()).toEqual(['kiln_probe_celsius.glsl', 'kiln_probe_celsius.h', 'kiln_probe_celsius.ts']);
+    expect(readdirSync(join(bareDir, 'gen')).sort()).toEqual(['kiln_probe_celsius.glsl', 'kiln_probe_celsius.h', 'kiln_probe_celsius.hlsl', 'kiln_probe_celsius.rs', 'kiln_probe_celsius.ts', 'kiln_probe_celsius.wgsl']);
     const ok = await runCli(['emit', KILN, '--no-harness', '--out', 'gen', '--check'], bareDir);
     expect(ok.code).toBe(0);
     // Without --no-harness the harnesses are missing, and the command to fix it is named.
