@@ -6,7 +6,7 @@
  * of the code under test.
  */
 import { describe, expect, test } from '@jest/globals';
-import Decimal from 'decimal.js';
+import { Decimal } from 'decimal.js';
 import fc from 'fast-check';
 import { containsZero, hull, iadd, idiv, imul, ineg, isub, mag, mig, type Interval } from '../../src/math/interval.js';
 

@@ -6,7 +6,7 @@
  * and decimal.js at 60 significant digits for the field operations.
  */
 import { describe, expect, test } from '@jest/globals';
-import Decimal from 'decimal.js';
+import { Decimal } from 'decimal.js';
 import fc from 'fast-check';
 import { nextDown, nextUp, Rational } from '../../src/math/rational.js';
 
