@@ -24,7 +24,10 @@ import type { EmitInput, EmittedFile } from '../emit/types.js';
 import { branchy, checkEmittedBranches, formatBranchLine, type BranchReport } from './branches.js';
 import { DEFAULT_CHROMIUM } from './glsl/browser.js';
 import { runGlslPage } from './glsl/run-page.js';
-import { checkInProcess } from './inprocess.js';
+import { runBitCheck, type BitTarget } from './bit-check.js';
+import { glslangAvailable } from './hlsl/compile.js';
+import { checkInProcess, type PointResult } from './inprocess.js';
+import { rustcAvailable } from './rust/run.js';
 import type { ReportPoint } from './report/envelope.js';
 import { runCHarness, runTsHarness } from './run-harness.js';
 import { edgePointsOf, sampleTotal } from './samples.js';
@@ -54,12 +57,25 @@ type Runner = (name: string, files: readonly EmittedFile[], o: { samples: number
 
 const harnessArgs = (o: { samples: number; seed: number }): string[] => ['--samples', String(o.samples), '--seed', String(o.seed)];
 
-/** Per target: how its harness is built and run (a target without a row here is not checked by `verify` yet). */
+/** Per target with a harness file: how it is built and run. */
 export const RUNNERS: Readonly<Partial<Record<TargetName, Runner>>> = {
   c: (name, files, o) => runCHarness(name, files, harnessArgs(o)),
   ts: (name, files, o) => runTsHarness(name, files, harnessArgs(o)),
   glsl: (name, files, o) => runGlslPage(name, files, o),
 };
+
+/**
+ * Per target checked by a bit runner (bit-check.ts: the real code's result
+ * bits against the in-process evaluation): whether its tool is here, and how
+ * to get it. With --target all a missing tool is skipped with a note.
+ */
+export const BIT_TOOLS: Readonly<Record<BitTarget, { readonly available: () => boolean; readonly install: string }>> = {
+  wgsl: { available: () => existsSync(DEFAULT_CHROMIUM), install: 'Chromium is not installed: apt-get install chromium, then rootcast verify --target wgsl' },
+  hlsl: { available: () => glslangAvailable(), install: 'glslangValidator is not installed: apt-get install glslang-tools, then rootcast verify --target hlsl' },
+  rust: { available: () => rustcAvailable(), install: 'rustc is not installed: apt-get install rustc, then rootcast verify --target rust' },
+};
+
+const isBitTarget = (t: TargetName): t is BitTarget => t in BIT_TOOLS;
 
 export interface BranchCheck {
   readonly line: string;
@@ -83,9 +99,20 @@ export interface VerifyResult {
 export function verifyProgram(input: EmitInput, o: VerifyOptions): VerifyResult {
   const { family, program } = input;
   const name = family.functionName;
-  let targets = applicableTargets(input, o.targets).filter((t) => RUNNERS[t] !== undefined);
-  // Refuse a float64 spec for --target glsl before any check runs.
+  let targets = applicableTargets(input, o.targets).filter((t) => RUNNERS[t] !== undefined || isBitTarget(t));
+  // Refuse a float64 spec for --target glsl, wgsl or hlsl before any check runs (their printers refuse).
   if (targets.includes('glsl')) refuseUnlessFloat32(family);
+  if (targets.includes('wgsl') || targets.includes('hlsl')) emitFiles(input, targets.filter((t) => t === 'wgsl' || t === 'hlsl'));
+  // With --target all, a missing tool skips its target with a note; asked for alone it refuses.
+  const skipped: string[] = [];
+  if (o.all) {
+    for (const t of targets.filter(isBitTarget)) {
+      if (!BIT_TOOLS[t].available()) {
+        targets = targets.filter((x) => x !== t);
+        skipped.push(`${t} ${name}: skipped (${BIT_TOOLS[t].install})`);
+      }
+    }
+  }
   // With --target all, a machine without Chromium still checks C and
   // TypeScript and says what it skipped; --target glsl alone refuses instead.
   const lines: string[] = [];
@@ -96,6 +123,7 @@ export function verifyProgram(input: EmitInput, o: VerifyOptions): VerifyResult 
   }
   const checks: CheckSummary[] = [];
   const points: ReportPoint[] = [];
+  const checked: PointResult[] = [];
   const harnessFailures: string[] = [];
   const total = sampleTotal(family.inputs.length, o.samples, edgePointsOf(family, program).length);
   const inProcess = checkInProcess(input, {
@@ -103,6 +131,7 @@ export function verifyProgram(input: EmitInput, o: VerifyOptions): VerifyResult 
     seed: o.seed,
     onPoint: (p) => {
       o.onProgress?.(p.index + 1, total);
+      if (targets.some(isBitTarget)) checked.push(p);
       if (o.keepPoints && p.error !== null) points.push({ at: p.at, error: p.error });
     },
   });
@@ -111,6 +140,13 @@ export function verifyProgram(input: EmitInput, o: VerifyOptions): VerifyResult 
   if (inProcess.noSignChangeAt && family.bracket) throw noSignChange(input, inProcess);
   let pass = inProcess.pass;
   for (const t of targets) {
+    if (isBitTarget(t)) {
+      const bit = runBitCheck(t, input, emitFiles(input, [t])[0]!, checked);
+      lines.push(...bit.lines);
+      checks.push(...bit.summaries);
+      pass &&= bit.pass;
+      continue;
+    }
     const run = RUNNERS[t]!(name, emitFiles(input, [t]), { samples: o.samples, seed: o.seed });
     const out = run.stdout.trim().split('\n').filter((l) => l.length > 0);
     // A page may print several summary lines (GLSL: the float function, then its vec4 overload); the last is the verdict's.
@@ -140,6 +176,7 @@ export function verifyProgram(input: EmitInput, o: VerifyOptions): VerifyResult 
       pass &&= branches.pass;
     }
   }
+  lines.push(...skipped);
   if (skippedGlsl) lines.push(`glsl ${name}: skipped (Chromium is not installed: apt-get install chromium, then rootcast verify --target glsl)`);
   return { lines, checks, branches, harnessFailures, points, inProcess, pass: pass && checks.every((c) => c.pass) };
 }

@@ -33,7 +33,7 @@ const esc = (s: string): string => Handlebars.Utils.escapeExpression(s);
 const sci = (x: number): string => formatE(x, 1);
 
 /** The label a check's summary line gives it (`check NAME (LANGUAGE, ...)`). */
-const LABELS: Readonly<Record<CheckSummary['target'], string>> = { 'in-process': 'in-process', c: 'C', ts: 'TypeScript', glsl: 'GLSL' };
+const LABELS: Readonly<Record<CheckSummary['target'], string>> = { 'in-process': 'in-process', c: 'C', ts: 'TypeScript', glsl: 'GLSL', wgsl: 'WGSL', rust: 'Rust' };
 
 export function reportHtml(d: ReportData): string {
   const one = d.inputs.length === 1;
