@@ -94,6 +94,8 @@ export interface Plan {
 }
 
 export function makePlan(family: Family): Plan {
+  // fixed32 has its own planner (src/plan/fixed/plan-fixed.ts); the commands route it there.
+  if (family.fixed) throw new Error('a fixed32 family is planned by makeFixedPlan');
   const box = boxOf(family);
   const d = family.inputs.length;
   const knob = family.plan.segments;

@@ -18,6 +18,7 @@ import { readConstants } from './section-constants.js';
 import { readInputs, type InputsSection } from './section-inputs.js';
 import { readPlan } from './section-plan.js';
 import { readRoot } from './section-root.js';
+import { readFixed } from './section-fixed.js';
 import type { Arithmetic, Expr, Family, Pos } from '../family/types.js';
 import { parseSpecDocument } from './yaml-document.js';
 import { expectMap, refuseUnknownKeys, valueOf, type Entry } from './yaml-map.js';
@@ -33,12 +34,13 @@ export const SPEC_FIELDS = [
   'root',
   'accuracy',
   'arithmetic',
+  'fixed',
   'plan',
 ] as const;
 
 const REQUIRED_FIELDS = ['function', 'unknown', 'degree', 'coefficients', 'inputs', 'accuracy', 'arithmetic'] as const;
 
-const ARITHMETIC: readonly Arithmetic[] = ['float32', 'float64'];
+const ARITHMETIC: readonly (Arithmetic | 'fixed32')[] = ['float32', 'float64', 'fixed32'];
 
 /** Highest degree a spec may ask for. */
 export const MAX_DEGREE = 64;
@@ -75,7 +77,10 @@ export function readSpec(file: string, text: string, bytes?: Uint8Array): Family
   refuseUnusedInputs(ctx, coefficients.exprs, inputs);
   const bracket = readRoot(ctx, field('root'), positions);
   const accuracy = readAccuracy(ctx, must('accuracy'), positions);
-  const arithmetic = readChoice(ctx, valueOf(ctx, must('arithmetic'), 'float32 or float64'), 'arithmetic', ARITHMETIC).value;
+  const named = readChoice(ctx, valueOf(ctx, must('arithmetic'), 'float32, float64 or fixed32'), 'arithmetic', ARITHMETIC);
+  const fixed = readFixed(ctx, field('fixed'), named, inputs.inputs, positions);
+  // fixed32: the planner's float stages work in float64 (see FixedFormat).
+  const arithmetic: Arithmetic = named.value === 'fixed32' ? 'float64' : named.value;
   const plan = readPlan(ctx, field('plan'), positions);
 
   return {
@@ -93,6 +98,7 @@ export function readSpec(file: string, text: string, bytes?: Uint8Array): Family
     bracket,
     accuracy,
     arithmetic,
+    ...(fixed ? { fixed } : {}),
     plan,
     positions,
   };

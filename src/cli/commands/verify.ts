@@ -26,6 +26,8 @@ import { applicableTargets, emitFiles, targetsOf } from '../emit-files.js';
 import { runGlslPage, type PageRun } from '../../verify/glsl/run-page.js';
 import { refuseUnlessFloat32 } from '../../emit/glsl/refuse.js';
 import { emitInputOf, planSpec } from '../pipeline.js';
+import { fixedFamilyOf } from '../fixed/pipeline.js';
+import { runFixedVerify } from '../fixed/verify.js';
 
 export interface VerifyOptions {
   spec: string;
@@ -39,6 +41,11 @@ export interface VerifyOptions {
 }
 
 export function runVerify(o: VerifyOptions, print: (line: string) => void): number {
+  const fixed = fixedFamilyOf(o.spec);
+  if (fixed) {
+    if (o.json || o.report !== undefined) throw new RootcastError('verify --json and --report are not available for fixed32 specs yet; run verify without them');
+    return runFixedVerify(fixed, o, print);
+  }
   const plan = planSpec(o.spec);
   const input = emitInputOf(plan);
   const name = plan.family.functionName;
