@@ -63,3 +63,8 @@ export function fixedFiles(input: FixedEmitInput, targets: readonly string[]): E
   if (targets.includes('ts')) out.push(tsFixedFunction(input), tsFixedHarness(input));
   return out;
 }
+
+/** Every file `rootcast emit SPEC --target all` writes for a fixed32 spec (C and TypeScript). */
+export function fixedFilesOfSpec(family: Family): EmittedFile[] {
+  return fixedFiles(fixedEmitInputOf(makeFixedPlan(family)), ['c', 'ts']);
+}

@@ -6,7 +6,8 @@
  * Segments have a power-of-two raw width 2^k, so the segment number is one
  * subtraction and one shift ((uint32)(X - Xlo) >> k), and the Horner variable
  * is t = X - mid (mid = segment start + 2^(k-1)), exact in int32, standing for
- * w = t / 2^(k-1) in [-1, 1). The last segment stops at the box's end.
+ * w = t / 2^(k-1) in [-1, 1). The last segment stops at the box's end; when it
+ * is shorter than 2^k its centre is its own midpoint.
  */
 import { Rational } from '../../math/rational.js';
 import { fromRaw, toRaw } from '../../ir/fixed/format.js';
@@ -63,7 +64,8 @@ export function fixedLayout(lo: bigint, hi: bigint, bits: number, wanted: number
   for (let s = 0; s < count; s++) {
     const start = lo + BigInt(s) * width;
     const end = s === count - 1 ? hi : start + width - 1n;
-    const mid = start + half;
+    // A short last segment is centred on itself, so its root expansion stays inside the box.
+    const mid = start + (end - start + 1n < width ? (end - start + 1n) / 2n : half);
     const loValue = fromRaw(start, bits);
     const hiValue = fromRaw(end, bits);
     const a = Rational.of(mid - start, half);
