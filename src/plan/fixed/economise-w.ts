@@ -31,13 +31,18 @@ export interface EconomisedW {
   readonly error: number[];
 }
 
-/** The smallest degree whose dropped Chebyshev tail fits `budget` in every segment (budget 0 keeps every term). */
-export function economiseW(cheb: readonly (readonly Rational[])[], layout: FixedLayout, budget: number): EconomisedW {
-  const full = Math.max(...cheb.map((ch) => ch.length - 1));
-  const tailAbove = (ch: readonly Rational[], d: number): Rational => ch.slice(d + 1).reduce((acc, v) => acc.add(v.abs()), Rational.ZERO);
+const tailAbove = (ch: readonly Rational[], d: number): Rational => ch.slice(d + 1).reduce((acc, v) => acc.add(v.abs()), Rational.ZERO);
+
+/** The smallest degree whose dropped Chebyshev tail fits `budget` in every segment (budget 0 keeps every nonzero term). */
+export function degreeFor(cheb: readonly (readonly Rational[])[], budget: number): number {
   const limit = Rational.fromNumber(budget);
-  let degree = full;
+  let degree = Math.max(...cheb.map((ch) => ch.length - 1));
   while (degree > 0 && cheb.every((ch) => tailAbove(ch, degree - 1).cmp(limit) <= 0)) degree--;
+  return degree;
+}
+
+/** The economised polynomial of a given degree, per segment, with its certified economisation error. */
+export function economisedAt(cheb: readonly (readonly Rational[])[], layout: FixedLayout, degree: number): EconomisedW {
   const error = cheb.map((ch) => {
     const t = tailAbove(ch, degree);
     return t.isZero() ? 0 : t.toNumberUp();

@@ -13,6 +13,7 @@
  */
 import { RootcastError } from '../../errors.js';
 import { addUp } from '../../math/directed.js';
+import { Rational } from '../../math/rational.js';
 import { SINGLE } from '../../ir/builder.js';
 import { countFixed, type FixedCounts, type FixedProgram } from '../../ir/fixed/nodes.js';
 import { termsOfGrade, type SeriesTerm } from '../../series/hyper-catalan.js';
@@ -27,7 +28,7 @@ import { chooseRoot, rootAt, type RootChoice } from '../root-choice.js';
 import { segmentLayout } from '../segments.js';
 import { analysisProgram, CoefficientError, collapsedSeries, ZeroSlopeError, type Expansion } from '../series-program.js';
 import { fixedCost } from './cost.js';
-import { chebyshevInW, economiseW } from './economise-w.js';
+import { chebyshevInW, degreeFor, economisedAt } from './economise-w.js';
 import { fixedLayout, rawBox, rawDecimal, type FixedLayout } from './layout.js';
 import { fixedHorner, ResultRangeError } from './program.js';
 
@@ -65,6 +66,9 @@ export interface FixedPlan {
   readonly tableBytes: number;
   readonly cells: number;
 }
+
+/** A refusal that no other segment count can lift (the shape of the family, the result format, the rounding floor). */
+class FinalRefusal extends RootcastError {}
 
 const AUTO_SEGMENTS = [1, 2, 4, 8, 16, 32, 64];
 const EXTRA_ORDERS = 3;
@@ -110,6 +114,7 @@ export function makeFixedPlan(family: Family): FixedPlan {
       } else if (++stale >= 2) break;
     } catch (e) {
       if (!(e instanceof RootcastError)) throw e;
+      if (e instanceof FinalRefusal) throw e;
       firstError ??= e;
       if (best && ++stale >= 2) break;
     }
@@ -122,7 +127,10 @@ function planWith(family: Family, fam: Family, raw: { lo: bigint; hi: bigint }, 
   const S = layout.segments.length;
   const box = boxOf(fam).cell;
   const rootChoice = chooseRoot(fam);
-  const x0 = S === 1 ? [rootChoice.x0] : layout.segments.map((g) => rootAt(fam, [g.midValue]));
+  // The expansion point need not be the exact root (DESIGN.md 1.4): rounded to 24 bits, its short
+  // binary fraction keeps the exact rationals of the collapsed polynomial small (planning time).
+  const short = (v: Rational): Rational => Rational.fromNumber(Math.fround(v.toNumber()));
+  const x0 = (S === 1 ? [rootChoice.x0] : layout.segments.map((g) => rootAt(fam, [g.midValue]))).map(short);
   const expansion: Expansion = { segmentation: S === 1 ? SINGLE : segmentLayout(fam, box, [S]).segmentation, x0 };
   const root: RootChoice =
     S === 1 ? rootChoice : { ...rootChoice, note: `the root in [${fam.bracket![0]}, ${fam.bracket![1]}], ${S} segments of 2^${layout.shift} raw units, each recentred at its own root (at the segment centre)` };
@@ -176,7 +184,7 @@ function planWith(family: Family, fam: Family, raw: { lo: bigint; hi: bigint }, 
       if (!terms) break;
       const collapsed = collapsedSeries(fam, expansion, terms);
       if (!collapsed) {
-        throw new RootcastError(
+        throw new FinalRefusal(
           'fixed32 needs the collapsed form (only coefficient 0 depends on the input, linearly, and coefficient 1 is constant): any other shape divides by the slope at run time, and fixed32 has no certified integer reciprocal; use float32 or float64',
           locate(family, 'arithmetic'),
         );
@@ -184,15 +192,19 @@ function planWith(family: Family, fam: Family, raw: { lo: bigint; hi: bigint }, 
       const cheb = chebyshevInW(collapsed, layout);
       const tails = set.cells.map((c) => cellTail(c, n));
       const room = target - Math.max(...tails);
+      const tried = new Set<number>();
       for (const share of BUDGET_SHARES) {
-        const e = economiseW(cheb, layout, room * share);
+        const degree = degreeFor(cheb, room * share);
+        if (tried.has(degree)) continue;
+        tried.add(degree);
+        const e = economisedAt(cheb, layout, degree);
         let built;
         try {
           built = fixedHorner(layout, e.coeffs, [fam.inputs[0]!.name], 0, resultPoint);
         } catch (err) {
           if (!(err instanceof ResultRangeError)) throw err;
           const most = Math.floor(Math.log2((2 ** 31 - 1) / err.magnitude));
-          throw new RootcastError(
+          throw new FinalRefusal(
             `the root reaches about ${err.magnitude.toPrecision(4)} over the box, beyond an int32 with ${resultPoint} fraction bits (|value| < 2^${31 - resultPoint}); ${most >= 0 ? `use at most ${most} fraction bits` : 'rescale the unknown'}`,
             locate(family, 'fixed.result'),
           );
@@ -238,7 +250,7 @@ function planWith(family: Family, fam: Family, raw: { lo: bigint; hi: bigint }, 
   }
   if (!found) {
     if (floor > target / 2 && Number.isFinite(floor)) {
-      throw new RootcastError(
+      throw new FinalRefusal(
         `the target ${family.accuracy.value} is below the fixed32 rounding floor of this plan (rounding alone ${floor.toExponential(2)}; the result's last bit is 2^-${resultPoint}); add fraction bits to fixed.result or loosen the accuracy`,
         locate(family, 'accuracy.absolute'),
       );
