@@ -19,7 +19,8 @@ import { readInputs, type InputsSection } from './section-inputs.js';
 import { readPlan } from './section-plan.js';
 import { readRoot } from './section-root.js';
 import { readFixed } from './section-fixed.js';
-import type { Arithmetic, Expr, Family, Pos } from '../family/types.js';
+import type { Expr, Family, Pos } from '../family/types.js';
+import { ARITHMETICS, type Arithmetic } from '../family/arithmetic.js';
 import { parseSpecDocument } from './yaml-document.js';
 import { expectMap, refuseUnknownKeys, valueOf, type Entry } from './yaml-map.js';
 
@@ -40,7 +41,8 @@ export const SPEC_FIELDS = [
 
 const REQUIRED_FIELDS = ['function', 'unknown', 'degree', 'coefficients', 'inputs', 'accuracy', 'arithmetic'] as const;
 
-const ARITHMETIC: readonly (Arithmetic | 'fixed32')[] = ['float32', 'float64', 'fixed32'];
+/** The arithmetics, in the table's order (src/family/arithmetic.ts), then fixed32 (src/reader/section-fixed.ts). */
+const ARITHMETIC: readonly (Arithmetic | 'fixed32')[] = [...(Object.keys(ARITHMETICS) as Arithmetic[]), 'fixed32'];
 
 /** Highest degree a spec may ask for. */
 export const MAX_DEGREE = 64;
@@ -77,11 +79,11 @@ export function readSpec(file: string, text: string, bytes?: Uint8Array): Family
   refuseUnusedInputs(ctx, coefficients.exprs, inputs);
   const bracket = readRoot(ctx, field('root'), positions);
   const accuracy = readAccuracy(ctx, must('accuracy'), positions);
-  const named = readChoice(ctx, valueOf(ctx, must('arithmetic'), 'float32, float64 or fixed32'), 'arithmetic', ARITHMETIC);
+  const named = readChoice(ctx, valueOf(ctx, must('arithmetic'), ARITHMETIC.join(' or ')), 'arithmetic', ARITHMETIC);
   const fixed = readFixed(ctx, field('fixed'), named, inputs.inputs, positions);
   // fixed32: the planner's float stages work in float64 (see FixedFormat).
   const arithmetic: Arithmetic = named.value === 'fixed32' ? 'float64' : named.value;
-  const plan = readPlan(ctx, field('plan'), positions);
+  const plan = readPlan(ctx, field('plan'), positions, inputs.inputs.map((i) => i.name));
 
   return {
     file,

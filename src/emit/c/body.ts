@@ -10,16 +10,15 @@
  * precision); with -std=c99 gcc also does not contract a*b+c into a fused
  * multiply-add. The C result is then bit-identical to evaluate().
  */
-import { SEGMENT_MAGIC, UnknownNodeError, type IndexPart, type Node, type Program } from '../../ir/nodes.js';
+import { ARITHMETICS } from '../../family/arithmetic.js';
+import { UnknownNodeError, type IndexPart, type Node, type Program } from '../../ir/nodes.js';
 import { cLiteral, cOperand } from '../literals/c.js';
 import { valueName } from '../names.js';
 import { readInputs } from '../read-inputs.js';
 import { operandText, resultText, type OperandStyle } from '../operands.js';
 
-export const C_TYPE = { float32: 'float', float64: 'double' } as const;
-
-export function cBodyLines(program: Program): string[] {
-  const type = C_TYPE[program.arithmetic];
+export function cBodyLines(program: Program, name: string): string[] {
+  const type = ARITHMETICS[program.arithmetic].cType;
   const lines: string[] = [];
   const read = readInputs(program);
   program.inputs.forEach((name, i) => {
@@ -27,7 +26,7 @@ export function cBodyLines(program: Program): string[] {
   });
   program.nodes.forEach((node, i) => {
     if (node.kind === 'index') lines.push(...cIndexLines(program, node.parts, i));
-    else if (node.kind === 'table') lines.push(...cTableLines(program, node, i));
+    else if (node.kind === 'table') lines.push(...cTableLines(program, node, i, name));
     else {
       const rhs = cExpression(program, node, i);
       if (rhs !== null) lines.push(`const ${type} ${valueName(i)} = ${rhs};`);
@@ -67,17 +66,17 @@ function cExpression(program: Program, node: Node, at: number): string | null {
  * Right shifts of negative int32_t are arithmetic in gcc and clang.
  */
 function cIndexLines(program: Program, parts: readonly IndexPart[], at: number): string[] {
-  const f32 = program.arithmetic === 'float32';
-  const type = C_TYPE[program.arithmetic];
+  const a = ARITHMETICS[program.arithmetic];
+  const significand = a.segmentRead === 'significand';
   const lines: string[] = [];
   const terms: string[] = [];
   parts.forEach((p, k) => {
     const t = cReference(program, p.t, at);
     const s = `rc_s${at}_${k}`;
-    const magic = cLiteral(SEGMENT_MAGIC[program.arithmetic], program.arithmetic);
-    lines.push(`union { ${type} f; ${f32 ? 'uint32_t' : 'uint64_t'} u; } ${s}b = { ${t} + ${magic} };`);
+    const magic = cLiteral(a.segmentMagic, program.arithmetic);
+    lines.push(`union { ${a.cType} f; ${a.cBitsType} u; } ${s}b = { ${t} + ${magic} };`);
     lines.push(
-      f32
+      significand
         ? `const int32_t ${s}r = (int32_t)(${s}b.u & 0x7fffffu) - 0x400000;`
         : `const int32_t ${s}r = (int32_t)(uint32_t)(${s}b.u & 0xffffffffu);`,
     );
@@ -90,18 +89,52 @@ function cIndexLines(program: Program, parts: readonly IndexPart[], at: number):
   return lines;
 }
 
-/** A per-segment constant: a static const table beside its one read. */
-function cTableLines(program: Program, node: Extract<Node, { kind: 'table' }>, at: number): string[] {
-  const type = C_TYPE[program.arithmetic];
-  const values = node.values.map((v) => cLiteral(v, program.arithmetic));
-  const rows: string[] = [];
-  for (let i = 0; i < values.length; i += 4) rows.push(`    ${values.slice(i, i + 4).join(', ')},`);
-  return [
-    `static const ${type} rc_tab${at}[${values.length}] = {`,
-    ...rows,
-    '};',
-    `const ${type} ${valueName(at)} = rc_tab${at}[${valueName(node.index)}];`,
+/** A per-segment constant: one read of its table (the table itself is at file scope, cTableDefinitions). */
+function cTableLines(program: Program, node: Extract<Node, { kind: 'table' }>, at: number, name: string): string[] {
+  const type = ARITHMETICS[program.arithmetic].cType;
+  return [`const ${type} ${valueName(at)} = ${cTableName(name, at)}[${valueName(node.index)}];`];
+}
+
+/** The file-scope name of the table of node `at` in function `name` (rc_ names are ours alone). */
+export function cTableName(name: string, at: number): string {
+  return `rc_${name}_tab${at}`;
+}
+
+/** The storage class of the tables: a macro the header defines (see cTableDefinitions). */
+function cTableMacro(name: string): string {
+  return `ROOTCAST_${name.toUpperCase()}_TABLE`;
+}
+
+/**
+ * The tables of a program, at file scope, each once (lean tables, issue 11).
+ * With gcc and clang they are weak definitions: every translation unit that
+ * includes the header emits the same table, and the linker keeps one copy
+ * per program (ELF and Mach-O weak symbols); the header stays self-contained
+ * and the function stays `static inline`. Other compilers get `static const`
+ * (one copy per translation unit that reads it, as before).
+ */
+export function cTableDefinitions(program: Program, name: string): string[] {
+  const type = ARITHMETICS[program.arithmetic].cType;
+  if (!program.nodes.some((n) => n.kind === 'table')) return [];
+  const macro = cTableMacro(name);
+  const out: string[] = [
+    '/* The segment tables, at file scope: gcc and clang keep one copy per program',
+    '   (weak definitions, merged by the linker); other compilers one per',
+    '   translation unit. */',
+    '#if defined(__GNUC__)',
+    `#define ${macro} __attribute__((weak)) const`,
+    '#else',
+    `#define ${macro} static const`,
+    '#endif',
   ];
+  program.nodes.forEach((node, at) => {
+    if (node.kind !== 'table') return;
+    const values = node.values.map((v) => cLiteral(v, program.arithmetic));
+    out.push(`${macro} ${type} ${cTableName(name, at)}[${values.length}] = {`);
+    for (let i = 0; i < values.length; i += 4) out.push(`    ${values.slice(i, i + 4).join(', ')},`);
+    out.push('};');
+  });
+  return out;
 }
 
 const cStyle = (program: Program): OperandStyle => ({

@@ -15,14 +15,15 @@ import { assertCommentSafe, headerLines } from '../header.js';
 import { assertUserName } from '../names.js';
 import { renderTemplate } from '../templates.js';
 import type { EmitInput, EmittedFile } from '../types.js';
-import { C_TYPE, cBodyLines } from './body.js';
+import { ARITHMETICS } from '../../family/arithmetic.js';
+import { cBodyLines, cTableDefinitions } from './body.js';
 
 export function cFunction(input: EmitInput): EmittedFile {
   const { program, family } = input;
   const name = family.functionName;
   assertUserName(name, 'function name');
   program.inputs.forEach((n) => assertUserName(n, 'input name'));
-  const type = C_TYPE[program.arithmetic];
+  const type = ARITHMETICS[program.arithmetic].cType;
   const parameters = program.inputs.length === 0 ? 'void' : program.inputs.map((n) => `${type} ${n}`).join(', ');
   const text = renderTemplate('c/function.h.hbs', {
     guard: `ROOTCAST_${name.toUpperCase()}_H`,
@@ -30,7 +31,8 @@ export function cFunction(input: EmitInput): EmittedFile {
     returnType: type,
     name,
     parameters,
-    bodyLines: cBodyLines(program),
+    bodyLines: cBodyLines(program, name),
+    tableLines: cTableDefinitions(program, name),
     batchParameters: [...program.inputs.map((n) => `const ${type} *restrict ${n}`), `${type} *restrict rc_out`, 'size_t rc_n'].join(', '),
     batchArguments: program.inputs.map((n) => `*${n}++`).join(', '),
   });

@@ -4,10 +4,11 @@
  * located line, exit 2, as every refusal (src/errors.ts).
  */
 import { RootcastError } from '../../errors.js';
+import { ARITHMETICS } from '../../family/arithmetic.js';
 import type { Family } from '../../family/types.js';
 
 export function refuseUnlessFloat32(family: Family): void {
-  if (family.arithmetic === 'float32' && !family.fixed) return;
+  if (ARITHMETICS[family.arithmetic].glslType !== null && !family.fixed) return;
   const pos = family.positions['arithmetic'] ?? { line: 1, column: 1 };
   const why = family.fixed
     ? 'GLSL gets no fixed32 code: shaders run on hardware with floating point, and fixed32 is for cores without an FPU; set arithmetic: float32 to emit GLSL'

@@ -21,7 +21,7 @@ import type { Family } from '../../family/types.js';
 import { boxOf, grid } from '../box.js';
 import { addGrade, cellTail } from '../cell-bound.js';
 import { CellSet } from '../cell-set.js';
-import { LIMITS } from '../limits.js';
+import { LIMITS } from '../tuning.js';
 import { locate } from '../locate.js';
 import { refuseBadCells } from '../refusals.js';
 import { chooseRoot, rootAt, type RootChoice } from '../root-choice.js';
@@ -89,7 +89,8 @@ export function makeFixedPlan(family: Family): FixedPlan {
   if (typeof family.plan.newtonSteps === 'number' && family.plan.newtonSteps > 0) {
     throw new RootcastError('fixed32 plans evaluate the collapsed polynomial only: a Newton step divides by the slope at run time; set plan.newton_steps: 0', locate(family, 'plan.newton_steps'));
   }
-  const knob = family.plan.segments;
+  // One input: a list of counts has one entry.
+  const knob = Array.isArray(family.plan.segments) ? family.plan.segments[0]! : (family.plan.segments as 'auto' | number);
   if (knob !== 'auto' && (knob & (knob - 1)) !== 0) {
     throw new RootcastError(`fixed32 segments have power-of-two widths, so their count is a power of two (found ${knob}); write 1, 2, 4, ... or auto`, locate(family, 'plan.segments'));
   }
