@@ -44,6 +44,9 @@ export function fixedEmitInputOf(plan: FixedPlan): FixedEmitInput {
 
 /** One line for every shader target: they compute in float32 (fixed32 is for cores without an FPU). */
 export function refuseShaderFixed(family: Family, target: string): never {
+  if (!SHADERS.includes(target)) {
+    throw new RootcastError(`the ${target} printer does not emit fixed32 yet; use --target c or ts (or all)`, locate(family, 'arithmetic'));
+  }
   throw new RootcastError(
     `${target.toUpperCase()} gets no fixed32 code: shaders run on hardware with floating point, and fixed32 is for cores without an FPU; set arithmetic: float32 to emit ${target.toUpperCase()}`,
     locate(family, 'arithmetic'),
@@ -51,6 +54,7 @@ export function refuseShaderFixed(family: Family, target: string): never {
 }
 
 const FIXED_TARGETS = ['c', 'ts'] as const;
+const SHADERS: readonly string[] = ['glsl', 'wgsl', 'hlsl'];
 
 /**
  * The files for the requested targets (c, ts; `all` means both). A shader
