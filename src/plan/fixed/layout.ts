@@ -78,7 +78,8 @@ export function fixedLayout(lo: bigint, hi: bigint, bits: number, wanted: number
       hiValue,
       midValue: fromRaw(mid, bits),
       cell: [{ lo: loValue.toNumberDown(), hi: hiValue.toNumberUp() }],
-      rho: a.cmp(b) > 0 ? a : b,
+      // A one-value segment has w = 0 only; any rho >= max |w| serves, so take 1 there.
+      rho: a.cmp(b) > 0 ? a : b.isZero() ? Rational.ONE : b,
     });
   }
   return { bits, lo, hi, shift, segments };
