@@ -72,13 +72,13 @@ static const int64_t rc_lo = INT64_C(65536000);
 static const int64_t rc_hi = INT64_C(255906284);
 static const int rc_input_bits = 16;
 static const int rc_result_bits = 16;
-/* Raw segment edges: each segment's first and last raw value and their outer neighbours in the box. */
+/* Raw segment edges: each segment's first and last raw value in the box. */
 #define RC_EDGE_POINTS 46
 static const int64_t rc_edge_points[RC_EDGE_POINTS + 1] = { INT64_C(65536000), INT64_C(73924607), INT64_C(73924608), INT64_C(82313215), INT64_C(82313216), INT64_C(90701823), INT64_C(90701824), INT64_C(99090431), INT64_C(99090432), INT64_C(107479039), INT64_C(107479040), INT64_C(115867647), INT64_C(115867648), INT64_C(124256255), INT64_C(124256256), INT64_C(132644863), INT64_C(132644864), INT64_C(141033471), INT64_C(141033472), INT64_C(149422079), INT64_C(149422080), INT64_C(157810687), INT64_C(157810688), INT64_C(166199295), INT64_C(166199296), INT64_C(174587903), INT64_C(174587904), INT64_C(182976511), INT64_C(182976512), INT64_C(191365119), INT64_C(191365120), INT64_C(199753727), INT64_C(199753728), INT64_C(208142335), INT64_C(208142336), INT64_C(216530943), INT64_C(216530944), INT64_C(224919551), INT64_C(224919552), INT64_C(233308159), INT64_C(233308160), INT64_C(241696767), INT64_C(241696768), INT64_C(250085375), INT64_C(250085376), INT64_C(255906284), 0 };
-static const double rc_bound = 0.00019851628554884513;
+static const double rc_bound = 0.0001985162855488145;
 static const char rc_bound_text[] = "2.0e-04";
 static const double rc_target = 0.001;
-static const double rc_absolute_bound = 0.00019851628554884513;
+static const double rc_absolute_bound = 0.0001985162855488145;
 
 /* 10^k for k >= 0 by binary powering: exact while 10^k fits the significand (k <= 48 in binary128). */
 static RC_UNUSED rc_real rc_pow10(int k)
