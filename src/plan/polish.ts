@@ -29,7 +29,7 @@ import type { SeriesTerm } from '../series/hyper-catalan.js';
 import type { Family } from '../family/types.js';
 import { cellTail, type CellFacts } from './cell-bound.js';
 import { WorstParts } from './worst-parts.js';
-import { prefixBuilder, seriesCore, type Expansion, type Prefix } from './series-program.js';
+import { finishProgram, prefixBuilder, seriesCore, type Expansion, type Prefix } from './series-program.js';
 
 /** A signed term of a Horner sum: sign * value of ref. */
 interface Signed {
@@ -88,13 +88,13 @@ export function polishedProgram(family: Family, e: Expansion, terms: readonly Se
   const core = seriesCore(family, e, terms);
   let v = core.v;
   for (let j = 0; j < steps; j++) v = newtonStep(core.b, core.prefix, v, core.setup.active);
-  return core.b.finish(core.b.sub(core.b.const(e.x0), v));
+  return finishProgram(family, e, core.b, core.prefix, core.b.sub(core.b.const(e.x0), v));
 }
 
 /** The series up to v alone (its rounding is the start of the chain). */
 export function coreProgram(family: Family, e: Expansion, terms: readonly SeriesTerm[]): Program {
   const core = seriesCore(family, e, terms);
-  return core.b.finish(core.v);
+  return finishProgram(family, e, core.b, core.prefix, core.v);
 }
 
 /**
@@ -105,7 +105,7 @@ export function stepProgram(family: Family, e: Expansion, last: boolean): Progra
   const d = family.inputs.length;
   const { b, setup: s, prefix: p } = prefixBuilder(family, e, ['v']);
   const v1 = newtonStep(b, p, b.input(d), s.active);
-  return b.finish(last ? b.sub(b.const(e.x0), v1) : v1);
+  return finishProgram(family, e, b, p, last ? b.sub(b.const(e.x0), v1) : v1);
 }
 
 /** The Newton factor M2 / (2 m1) over |v| <= V, or Infinity where h' may vanish. */
