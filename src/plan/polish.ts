@@ -19,7 +19,8 @@
  * program that takes v as an exact extra input over J (src/ir/analyse.ts);
  * the emitted program computes the very same operations on the series' v.
  */
-import { addUp, divUp, mulDown, mulUp, powUp, subDown } from '../math/directed.js';
+import { addUp, divDown, divUp, mulDown, mulUp, powUp, subDown } from '../math/directed.js';
+import { containsZero, mag, mig, type Interval } from '../math/interval.js';
 import { Rational } from '../math/rational.js';
 import { analyse, largestComputed } from '../ir/analyse.js';
 import type { ProgramBuilder, Ref } from '../ir/builder.js';
@@ -123,6 +124,25 @@ export function newtonFactor(c: CellFacts, V: number): number {
   return divUp(curvature, mulDown(2, m1));
 }
 
+/**
+ * The Newton factor over v in J: the smaller of the magnitude bound above and
+ * the one from tight enclosures (src/plan/tight-range.ts, Bernstein expansion)
+ * of P'(x0 - v) and P''(x0 - v) over the cell times J: since h(v) = P(x0 - v) / (-c'1),
+ *     m1 = min |P'| / max |c'1|,   M2 = max |P''| / min |c'1|.
+ * Both are rigorous, so the smaller factor is.
+ */
+export function newtonFactorOver(c: CellFacts, J: Interval): number {
+  const plain = newtonFactor(c, Math.max(Math.abs(J.lo), Math.abs(J.hi)));
+  const c1 = c.c1Range;
+  if (!c.ranges || !c1 || containsZero(c1)) return plain;
+  const der = c.ranges.derivatives(c.cell, c.segment, J);
+  if (!der) return plain;
+  const m1 = divDown(mig(der.d1), mag(c1));
+  const M2 = divUp(mag(der.d2), mig(c1));
+  if (!(m1 > 0) || !Number.isFinite(M2)) return plain;
+  return Math.min(plain, divUp(M2, mulDown(2, m1)));
+}
+
 export interface PolishBound {
   /** Largest Newton error term of the last step, largest rounding of the last step, largest total (absolute or relative). */
   readonly truncation: number;
@@ -165,8 +185,7 @@ export function polishBound(
     let rnd = 0;
     for (let j = 0; j < steps; j++) {
       const J = { lo: subDown(subDown(c.rRange.lo, spread), err), hi: addUp(addUp(c.rRange.hi, spread), err) };
-      const V = Math.max(Math.abs(J.lo), Math.abs(J.hi));
-      quad = mulUp(newtonFactor(c, V), mulUp(err, err));
+      quad = mulUp(newtonFactorOver(c, J), mulUp(err, err));
       if (!Number.isFinite(quad)) throw new PolishFailure('diverges', c);
       rnd = programs ? checked(analyse(programs.steps[j]!, [...c.cell, J], ftz), programs.steps[j]!, c) : 0;
       err = addUp(quad, rnd);
