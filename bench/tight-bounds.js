@@ -34,13 +34,19 @@ if (process.argv.includes('--one')) {
     load('verify/inprocess.js'),
   ]);
   const t0 = process.hrtime.bigint();
+  const c0 = process.cpuUsage();
+  const cpuS = () => {
+    const c = process.cpuUsage(c0);
+    return (c.user + c.system) / 1e6;
+  };
   let out;
   try {
     const plan = makePlan(readSpec(spec, readFileSync(spec, 'utf8')));
     const planS = Number(process.hrtime.bigint() - t0) / 1e9;
+    const planCpuS = cpuS();
     const s = checkInProcess(emitInputOf(plan), { samples, seed: 1 });
     const ops = plan.ops;
-    out = { spec, outcome: 'planned', planS, bound: s.bound, measured: s.worstError, target: s.targetAccuracy, ops: ops.add + ops.mul + ops.div, form: plan.form, order: plan.order, steps: plan.steps };
+    out = { spec, outcome: 'planned', planS, bound: s.bound, measured: s.worstError, target: s.targetAccuracy, ops: ops.add + ops.mul + ops.div, form: plan.form, order: plan.order, steps: plan.steps, planCpuS };
   } catch (e) {
     out = { spec, outcome: e?.constructor?.name === 'RootcastError' ? 'refused' : 'error', planS: Number(process.hrtime.bigint() - t0) / 1e9, message: String(e?.message ?? e).split('\n')[0] };
   }
@@ -75,7 +81,7 @@ for (const spec of specs) {
   const row = r.status === 0 && line ? JSON.parse(line) : { spec, outcome: r.status === null ? 'timeout' : 'error', message: (r.stderr ?? '').split('\n')[0] };
   rows.push(row);
   const ratio = row.outcome === 'planned' ? (row.measured > 0 ? (row.bound / row.measured).toFixed(2) : 'inf') : row.outcome;
-  const extra = row.outcome === 'planned' ? `bound ${row.bound.toExponential(2)} measured ${row.measured.toExponential(2)} ops ${row.ops} plan ${row.planS.toFixed(1)} s` : (row.message ?? '');
+  const extra = row.outcome === 'planned' ? `bound ${row.bound.toExponential(2)} measured ${row.measured.toExponential(2)} ops ${row.ops} plan ${row.planS.toFixed(1)} s wall, ${row.planCpuS.toFixed(1)} s cpu` : (row.message ?? '');
   console.log(`${spec.padEnd(40)} ${String(ratio).padStart(8)}  ${extra}`);
 }
 

@@ -95,6 +95,9 @@ let cl = new Float64Array(16);
 let ch = new Float64Array(16);
 let bl = new Float64Array(16);
 let bh = new Float64Array(16);
+// Scratch space for the whole tensor (grown on demand; one call at a time).
+let workLo = new Float64Array(64);
+let workHi = new Float64Array(64);
 
 /**
  * Encloses the range of the polynomial over the box prod_i [origin_i, origin_i + width_i]
@@ -102,9 +105,15 @@ let bh = new Float64Array(16);
  * line when a value overflows.
  */
 export function bernsteinRange(t: IntervalTensor, origin: readonly number[], width: readonly number[]): Interval {
-  const lo = t.lo.slice();
-  const hi = t.hi.slice();
-  const size = lo.length;
+  const size = t.lo.length;
+  if (workLo.length < size) {
+    workLo = new Float64Array(2 * size);
+    workHi = new Float64Array(2 * size);
+  }
+  const lo = workLo;
+  const hi = workHi;
+  lo.set(t.lo);
+  hi.set(t.hi);
   for (let i = 0; i < t.degrees.length; i++) {
     const n = t.degrees[i]!;
     if (n === 0) continue;
