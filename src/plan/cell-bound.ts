@@ -46,9 +46,9 @@ export interface CellFacts {
    */
   readonly rootMin: number;
   /** Enclosure of c'1 over the cell (null when it is a known constant without a tight enclosure). */
-  readonly c1Range: Interval | null;
+  readonly c1Range?: Interval | null;
   /** The tight enclosures the cell was bounded with, for the Newton step's bound. */
-  readonly ranges: CoefficientRanges | undefined;
+  readonly ranges?: CoefficientRanges | undefined;
 }
 
 export function cellFacts(ap: AnalysisProgram, degree: number, cell: Cell, x0: number, segment: number): CellFacts {

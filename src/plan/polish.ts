@@ -25,12 +25,13 @@ import { Rational } from '../math/rational.js';
 import { analyse, largestComputed } from '../ir/analyse.js';
 import type { ProgramBuilder, Ref } from '../ir/builder.js';
 import type { Program } from '../ir/nodes.js';
-import { FORMATS } from '../ir/round.js';
+import { ARITHMETICS } from '../family/arithmetic.js';
 import type { SeriesTerm } from '../series/hyper-catalan.js';
 import type { Family } from '../family/types.js';
 import { cellTail, type CellFacts } from './cell-bound.js';
 import { WorstParts } from './worst-parts.js';
 import { finishProgram, prefixBuilder, seriesCore, type Expansion, type Prefix } from './series-program.js';
+import { OVERFLOW_HEADROOM } from './tuning.js';
 
 /** A signed term of a Horner sum: sign * value of ref. */
 interface Signed {
@@ -133,7 +134,7 @@ export function newtonFactor(c: CellFacts, V: number): number {
  */
 export function newtonFactorOver(c: CellFacts, J: Interval): number {
   const plain = newtonFactor(c, Math.max(Math.abs(J.lo), Math.abs(J.hi)));
-  const c1 = c.c1Range;
+  const c1 = c.c1Range ?? null;
   if (!c.ranges || !c1 || containsZero(c1)) return plain;
   const der = c.ranges.derivatives(c.cell, c.segment, J);
   if (!der) return plain;
@@ -177,7 +178,7 @@ export function polishBound(
   for (const c of cells) {
     if (c.state.kind !== 'ok') throw new PolishFailure('diverges', c);
     // float32 bounds allow for flushed subnormals, as the series bounds do (one bound for CPUs and GPUs).
-    const ftz = { segment: c.segment, flushToZero: programs?.core.arithmetic === 'float32' };
+    const ftz = { segment: c.segment, flushToZero: programs ? ARITHMETICS[programs.core.arithmetic].boundsAllowFlush : false };
     let err = cellTail(c, order);
     if (programs) err = addUp(err, checked(analyse(programs.core, c.cell, ftz), programs.core, c));
     const spread = mulUp(c.R, Math.max(0, addUp(c.aUpper, -1)));
@@ -198,6 +199,6 @@ export function polishBound(
 /** The result's rounding bound, refusing values that may overflow or divisors that may vanish. */
 function checked(an: ReturnType<typeof analyse>, program: Program, c: CellFacts): number {
   const e = an.errors[program.result]!;
-  if (!Number.isFinite(e) || largestComputed(an) > FORMATS[program.arithmetic].maxFinite / 4) throw new PolishFailure('overflow', c);
+  if (!Number.isFinite(e) || largestComputed(an) > ARITHMETICS[program.arithmetic].maxFinite / OVERFLOW_HEADROOM) throw new PolishFailure('overflow', c);
   return e;
 }

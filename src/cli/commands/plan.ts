@@ -3,6 +3,7 @@ import { formatBoundUp } from '../../emit/literals/round-up.js';
 import { equationText } from '../../emit/header.js';
 import type { Plan } from '../../plan/plan.js';
 import { claimsOf } from '../pipeline.js';
+import { COST_MODELS } from '../../ir/cost/index.js';
 
 /** The documented shape of `plan --json` (see README, "plan --json"). */
 export function planJson(plan: Plan): object {
@@ -24,7 +25,7 @@ export function planJson(plan: Plan): object {
     target: c.target,
     ops: c.ops,
     segments: { counts: plan.counts, tableBytes: plan.tableBytes },
-    cost: { model: plan.family.arithmetic === 'float32' ? 'cortex-m4f' : 'x86-64', value: plan.cost },
+    cost: { model: plan.costModel, value: plan.cost },
     candidates: plan.candidates.map((k) => ({
       form: k.form,
       degree: k.degree,
@@ -34,6 +35,7 @@ export function planJson(plan: Plan): object {
       steps: k.steps,
       ops: k.ops,
       cost: k.cost,
+      tableBytes: k.tableBytes,
       bound: k.bound,
       refusal: k.refusal,
       chosen: k.chosen,
@@ -43,7 +45,7 @@ export function planJson(plan: Plan): object {
 
 /** The candidates the planner weighed, one row each; the chosen one marked with `*`. */
 export function candidateTable(plan: Plan): string[] {
-  const head = ['', 'form', 'segments', 'order', 'degree', 'terms', 'steps', 'add', 'mul', 'div', 'reads', 'cost', 'bound'];
+  const head = ['', 'form', 'segments', 'order', 'degree', 'terms', 'steps', 'add', 'mul', 'div', 'reads', 'bytes', 'cost', 'bound'];
   const rows = plan.candidates.map((k) => [
     k.chosen ? '*' : '',
     k.form,
@@ -56,6 +58,7 @@ export function candidateTable(plan: Plan): string[] {
     k.ops ? String(k.ops.mul) : '-',
     k.ops ? String(k.ops.div) : '-',
     k.ops ? String(k.ops.tableReads) : '-',
+    k.tableBytes === null ? '-' : String(k.tableBytes),
     k.cost === null ? '-' : String(k.cost),
     k.bound === null ? `refused: ${k.refusal!.split(';')[0]}` : formatBoundUp(k.bound),
   ]);
@@ -82,7 +85,7 @@ export function planText(plan: Plan): string {
     ['target', `${f.accuracy.value} (${f.accuracy.kind})`],
     ['ops', `${c.ops.add} add, ${c.ops.mul} mul, ${c.ops.div} div, ${c.ops.tableReads} table reads`],
     ['segments', `${plan.counts.join(' x ')} (${plan.tableBytes} table bytes)`],
-    ['cost', `${plan.cost} (${f.arithmetic === 'float32' ? 'Cortex-M4F cycles, estimated' : 'x86-64 latency units'}; src/plan/cost.ts)`],
+    ['cost', `${plan.cost} (${COST_MODELS[plan.costModel].unit}; src/ir/cost/)`],
   ];
   return [
     `${f.functionName}`,
