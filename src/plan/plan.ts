@@ -15,13 +15,30 @@ import { candidatesOf, withCandidates } from './candidates.js';
 import { locate } from './locate.js';
 import { planSegments } from './plan-segments.js';
 import { searchSegments } from './segment-search.js';
+import { refuseWorkLimit } from './refusals.js';
 import type { Plan } from './types.js';
+import { startWork, WorkLimitError, type WorkObserver } from './work.js';
 
 export type { Bound, Candidate, Plan, PlanForm } from './types.js';
 
-export function makePlan(family: Family): Plan {
+export interface PlanOptions {
+  /** Watches the planner's work units (a progress display); never changes the plan. */
+  readonly onWork?: WorkObserver;
+}
+
+export function makePlan(family: Family, options: PlanOptions = {}): Plan {
   // fixed32 has its own planner (src/plan/fixed/plan-fixed.ts); the commands route it there.
   if (family.fixed) throw new Error('a fixed32 family is planned by makeFixedPlan');
+  startWork(options.onWork ?? null);
+  try {
+    return planWithinLimit(family);
+  } catch (e) {
+    if (e instanceof WorkLimitError) refuseWorkLimit(family);
+    throw e;
+  }
+}
+
+function planWithinLimit(family: Family): Plan {
   const box = boxOf(family);
   certifyBracket(family, box.cell);
   const knob = family.plan.segments;
