@@ -39,11 +39,21 @@ export async function runEmit(o: EmitOptions, print: Print, printError: Print): 
 }
 
 async function emitOne(spec: string, o: EmitOptions, print: Print, rules: DepRule[]): Promise<number> {
-  const { emitInputOf, planSpec } = await import('../pipeline.js');
-  const plan = planSpec(spec);
-  // The printers only after the spec is known to be good.
-  const { emitFiles, targetsOf } = await import('../emit-files.js');
-  const files = emitFiles(emitInputOf(plan), targetsOf(o.target), { harness: o.harness });
+  const { fixedFamilyOf } = await import('../fixed/pipeline.js');
+  const fixed = fixedFamilyOf(spec);
+  let files;
+  if (fixed) {
+    // fixed32 specs: their own printers (no stamp line yet, so --check re-reads them as stale).
+    const { fixedEmitInputOf, fixedFiles } = await import('../fixed/pipeline.js');
+    const { makeFixedPlan } = await import('../../plan/fixed/plan-fixed.js');
+    files = fixedFiles(fixedEmitInputOf(makeFixedPlan(fixed)), o.target === 'all' ? ['c', 'ts'] : [o.target]);
+  } else {
+    const { emitInputOf, planSpec } = await import('../pipeline.js');
+    const plan = planSpec(spec);
+    // The printers only after the spec is known to be good.
+    const { emitFiles, targetsOf } = await import('../emit-files.js');
+    files = emitFiles(emitInputOf(plan), targetsOf(o.target), { harness: o.harness });
+  }
   writeFiles(o.out, files);
   const dir = o.out.replace(/\/$/, '');
   for (const f of files) print(`wrote ${dir}/${f.path}`);

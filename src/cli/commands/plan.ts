@@ -5,6 +5,9 @@ import type { Plan } from '../../plan/plan.js';
 import { RootcastError } from '../../errors.js';
 import { claimsOf, planSpec } from '../pipeline.js';
 import { GENERATOR, jsonOutput, refusalJson } from '../refusal-json.js';
+import { fixedFamilyOf } from '../fixed/pipeline.js';
+import { fixedPlanJson, fixedPlanText } from '../fixed/plan.js';
+import { makeFixedPlan } from '../../plan/fixed/plan-fixed.js';
 
 /**
  * `rootcast plan SPEC... [--json]`: each spec on its own; a refused spec
@@ -17,6 +20,13 @@ export function runPlan(o: { specs: readonly string[]; json: boolean }, print: (
   const texts: string[] = [];
   for (const spec of o.specs) {
     try {
+      const fixed = fixedFamilyOf(spec);
+      if (fixed) {
+        const plan = makeFixedPlan(fixed);
+        if (o.json) results.push(fixedPlanJson(plan) as object);
+        else texts.push(fixedPlanText(plan));
+        continue;
+      }
       const plan = planSpec(spec);
       if (o.json) results.push(planJson(plan));
       else texts.push(planText(plan));

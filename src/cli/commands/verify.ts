@@ -20,6 +20,8 @@ import { startProgress, type ProgressStream } from '../progress.js';
 import { emitInputOf, planSpec } from '../pipeline.js';
 import { jsonOutput, refusalJson } from '../refusal-json.js';
 import { planJson } from './plan.js';
+import { fixedFamilyOf } from '../fixed/pipeline.js';
+import { runFixedVerify } from '../fixed/verify.js';
 import type { Plan } from '../../plan/plan.js';
 
 export interface VerifyCommandOptions {
@@ -41,6 +43,12 @@ export function runVerify(o: VerifyCommandOptions, print: Print, printError: Pri
   const results: object[] = [];
   for (const spec of o.specs) {
     try {
+      const fixed = fixedFamilyOf(spec);
+      if (fixed) {
+        if (o.json || o.report !== undefined) throw new RootcastError('verify --json and --report are not available for fixed32 specs yet; run verify without them');
+        code = Math.max(code, runFixedVerify(fixed, { target: o.target, samples: o.samples, seed: o.seed }, print));
+        continue;
+      }
       const plan = planSpec(spec);
       const result = verifyOne(plan, o);
       if (o.json) {

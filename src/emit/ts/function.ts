@@ -60,3 +60,8 @@ function rangeText(input: EmitInput, name: string): string {
   const r = input.family.inputs.find((x) => x.name === name);
   return r ? `in [${r.lo}, ${r.hi}]` : '';
 }
+
+/** The header as a block comment, one ` * ` line each (the fixed32 TypeScript printer uses it). */
+export function tsBlockComment(lines: readonly string[]): string {
+  return ['/*', ...commentLines(lines), ' */', ''].join('\n');
+}
