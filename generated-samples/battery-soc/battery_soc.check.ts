@@ -24,7 +24,7 @@
  * target:     0.001 (absolute)
  * series:     order 2, 4 terms
  * operations: 6 add, 5 mul, 0 div, 6 table reads
- * cortex-m4f estimate: ~53 cycles (10 FPU ops + 3 constant loads + 5 table reads + 1 segment index; Cortex-M4 TRM FPU timings, see src/emit/cycles.ts)
+ * cortex-m4f estimate: ~53 cycles (10 FPU ops + 3 constant loads + 5 table reads + 1 segment index; Cortex-M4 TRM FPU timings, see src/ir/cost/cortex-m4f.ts)
  *
  * Build and run (an ES module; node 20 or later, no type stripping needed):
  *

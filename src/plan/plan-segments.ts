@@ -6,9 +6,11 @@
  */
 import { RootcastError } from '../errors.js';
 import { ConstantOverflowError } from '../ir/builder.js';
+import { costModelFor } from '../ir/cost/index.js';
 import type { Program } from '../ir/nodes.js';
 import type { Family } from '../family/types.js';
 import { grid, type Cell } from './box.js';
+import { certifyRootInBracket } from './bracket-check.js';
 import { cellTail } from './cell-bound.js';
 import { CellSet } from './cell-set.js';
 import { FoundPlans, type FormContext } from './forms/context.js';
@@ -53,6 +55,7 @@ function planSegmentsInner(family: Family, box: Cell, layout: SegmentLayout, tho
   }
   set.repairBadCells(LIMITS.cells, relative, thorough);
   refuseBadCells(family, set.cells, relative);
+  certifyRootInBracket(family, expansion.x0.map((v) => v.toNumber()), set.cells);
 
   const ctx: FormContext = {
     family,
@@ -65,6 +68,7 @@ function planSegmentsInner(family: Family, box: Cell, layout: SegmentLayout, tho
     set,
     ap,
     pool: new TermPool(family.degree, [...ap.q.keys()], set),
+    costModel: costModelFor(family.arithmetic),
     checkTable: (program) => checkTable(family, counts, program),
   };
   const found = new FoundPlans();

@@ -10,6 +10,7 @@
 import { RootcastError } from '../errors.js';
 import type { Family } from '../family/types.js';
 import { boxOf } from './box.js';
+import { certifyBracket } from './bracket-check.js';
 import { candidatesOf, withCandidates } from './candidates.js';
 import { locate } from './locate.js';
 import { planSegments } from './plan-segments.js';
@@ -20,6 +21,7 @@ export type { Bound, Candidate, Plan, PlanForm } from './types.js';
 
 export function makePlan(family: Family): Plan {
   const box = boxOf(family);
+  certifyBracket(family, box.cell);
   const knob = family.plan.segments;
   const perInput = typeof knob === 'object' ? knob : family.inputs.map(() => knob);
   if (perInput.some((k) => k === 'auto')) return searchSegments(family, box.cell, perInput.map((k) => (k === 'auto' ? null : k)));
