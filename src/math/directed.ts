@@ -11,6 +11,7 @@ export const addUp = (a: number, b: number): number => nextUp(a + b);
 export const addDown = (a: number, b: number): number => nextDown(a + b);
 export const mulUp = (a: number, b: number): number => nextUp(a * b);
 export const mulDown = (a: number, b: number): number => nextDown(a * b);
+export const divDown = (a: number, b: number): number => nextDown(a / b);
 export const divUp = (a: number, b: number): number => nextUp(a / b);
 export const subUp = (a: number, b: number): number => nextUp(a - b);
 export const subDown = (a: number, b: number): number => nextDown(a - b);
