@@ -84,8 +84,6 @@ export function partRows(p: IndexPart): number {
  * segmentMagic, segmentRead).
  */
 
-export type NodeKind = Node['kind'];
-
 export interface Program {
   readonly arithmetic: Arithmetic;
   /** Argument names, in signature order. */

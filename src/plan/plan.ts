@@ -28,6 +28,8 @@ export interface PlanOptions {
 }
 
 export function makePlan(family: Family, options: PlanOptions = {}): Plan {
+  // fixed32 has its own planner (src/plan/fixed/plan-fixed.ts); the commands route it there.
+  if (family.fixed) throw new Error('a fixed32 family is planned by makeFixedPlan');
   startWork(options.onWork ?? null);
   try {
     return planWithinLimit(family);
