@@ -10,8 +10,6 @@ import type { Program } from '../ir/nodes.js';
 import type { Family } from '../family/types.js';
 import type { FileRole } from './stamp.js';
 
-export type Target = 'c' | 'ts' | 'glsl' | 'wgsl' | 'hlsl' | 'rust';
-
 export interface PlanClaims {
   /** Series order N (every kept term has grade w(m) <= N). */
   readonly order: number;
