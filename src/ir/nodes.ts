@@ -52,8 +52,6 @@ export interface IndexPart {
  * segmentMagic, segmentRead).
  */
 
-export type NodeKind = Node['kind'];
-
 export interface Program {
   readonly arithmetic: Arithmetic;
   /** Argument names, in signature order. */

@@ -155,3 +155,9 @@ export const WORK = {
   /** Progress reports over the whole limit. */
   reports: 200,
 } as const;
+
+/** The table-size fix a refusal may quote (src/plan/plan.ts). */
+export const TABLE_FIX = {
+  /** The limits the search is retried with, in turn, when plan.max_table_bytes kept it from splitting: the default 4 KiB, then 64 KiB, a table most targets still hold in memory. */
+  tryBytes: [4096, 65536] as const,
+} as const;
