@@ -11,6 +11,7 @@
  * | div        | 14         | 11     |
  * | table read | 3          | 5      |
  * | int op     | 1          | 1      |
+ * | compare    | 1 + 1      | 4      |
  *
  * The weights are read from the one timing table, src/ir/timings.ts, which
  * the header's cycle estimate (src/emit/cycles.ts) reads too; its sources and
@@ -25,13 +26,14 @@ import { CORTEX_M4F_CYCLES, CORTEX_M4F_TABLE_READ_CYCLES, X86_64_LATENCY } from 
 
 export type CostTarget = 'cortex-m4f' | 'x86-64';
 
-const WEIGHTS: Readonly<Record<CostTarget, { add: number; mul: number; div: number; tableRead: number; intOp: number }>> = {
+const WEIGHTS: Readonly<Record<CostTarget, { add: number; mul: number; div: number; tableRead: number; intOp: number; compare: number }>> = {
   'cortex-m4f': {
     add: CORTEX_M4F_CYCLES.add,
     mul: CORTEX_M4F_CYCLES.mul,
     div: CORTEX_M4F_CYCLES.div,
     tableRead: CORTEX_M4F_TABLE_READ_CYCLES,
     intOp: CORTEX_M4F_CYCLES.intOp,
+    compare: CORTEX_M4F_CYCLES.compare + CORTEX_M4F_CYCLES.vmrs,
   },
   'x86-64': X86_64_LATENCY,
 };
@@ -39,7 +41,7 @@ const WEIGHTS: Readonly<Record<CostTarget, { add: number; mul: number; div: numb
 export function costOn(program: Program, target: CostTarget): number {
   const c = countOps(program);
   const w = WEIGHTS[target];
-  return c.add * w.add + c.mul * w.mul + c.div * w.div + c.tableReads * w.tableRead + c.intOps * w.intOp;
+  return c.add * w.add + c.mul * w.mul + c.div * w.div + c.tableReads * w.tableRead + c.intOps * w.intOp + c.compares * w.compare;
 }
 
 /** The cost the planner minimises (see the table above). */

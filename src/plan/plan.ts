@@ -28,6 +28,7 @@ import { analysisProgram, CoefficientError, collapsedSeries, seriesProgram, Zero
 import { greedyTerms } from './term-choice.js';
 import { WorstParts } from './worst-parts.js';
 import { chebyshevForm, economise } from './economise.js';
+import { applyOutsideBox } from './outside-box.js';
 import { coreProgram, polishBound, polishedProgram, PolishFailure, stepProgram } from './polish.js';
 
 /**
@@ -94,6 +95,10 @@ export interface Plan {
 }
 
 export function makePlan(family: Family): Plan {
+  return applyOutsideBox(planInsideBox(family));
+}
+
+function planInsideBox(family: Family): Plan {
   const box = boxOf(family);
   const d = family.inputs.length;
   const knob = family.plan.segments;

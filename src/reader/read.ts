@@ -18,7 +18,7 @@ import { readConstants } from './section-constants.js';
 import { readInputs, type InputsSection } from './section-inputs.js';
 import { readPlan } from './section-plan.js';
 import { readRoot } from './section-root.js';
-import type { Arithmetic, Expr, Family, Pos } from '../family/types.js';
+import type { Arithmetic, Expr, Family, OutsideBox, Pos } from '../family/types.js';
 import { parseSpecDocument } from './yaml-document.js';
 import { expectMap, refuseUnknownKeys, valueOf, type Entry } from './yaml-map.js';
 
@@ -34,11 +34,13 @@ export const SPEC_FIELDS = [
   'accuracy',
   'arithmetic',
   'plan',
+  'inputs_outside_box',
 ] as const;
 
 const REQUIRED_FIELDS = ['function', 'unknown', 'degree', 'coefficients', 'inputs', 'accuracy', 'arithmetic'] as const;
 
 const ARITHMETIC: readonly Arithmetic[] = ['float32', 'float64'];
+const OUTSIDE_BOX: readonly OutsideBox[] = ['extrapolate', 'saturate'];
 
 /** Highest degree a spec may ask for. */
 export const MAX_DEGREE = 64;
@@ -77,6 +79,10 @@ export function readSpec(file: string, text: string, bytes?: Uint8Array): Family
   const accuracy = readAccuracy(ctx, must('accuracy'), positions);
   const arithmetic = readChoice(ctx, valueOf(ctx, must('arithmetic'), 'float32 or float64'), 'arithmetic', ARITHMETIC).value;
   const plan = readPlan(ctx, field('plan'), positions);
+  const outside = field('inputs_outside_box');
+  const outsideBox = outside
+    ? readChoice(ctx, valueOf(ctx, outside, 'extrapolate or saturate (or remove the field for extrapolate)'), 'inputs_outside_box', OUTSIDE_BOX).value
+    : 'extrapolate';
 
   return {
     file,
@@ -94,6 +100,7 @@ export function readSpec(file: string, text: string, bytes?: Uint8Array): Family
     accuracy,
     arithmetic,
     plan,
+    outsideBox,
     positions,
   };
 }

@@ -80,7 +80,7 @@ export function planText(plan: Plan): string {
       `${b.kind}: truncation ${formatBoundUp(b.truncation)}${b.economisation === undefined ? '' : ` + economisation ${formatBoundUp(b.economisation)}`} + rounding ${formatBoundUp(b.rounding)} -> total ${formatBoundUp(b.total)}`,
     ],
     ['target', `${f.accuracy.value} (${f.accuracy.kind})`],
-    ['ops', `${c.ops.add} add, ${c.ops.mul} mul, ${c.ops.div} div, ${c.ops.tableReads} table reads`],
+    ['ops', `${c.ops.add} add, ${c.ops.mul} mul, ${c.ops.div} div, ${c.ops.tableReads} table reads${c.ops.compares > 0 ? `, ${c.ops.compares} compares (inputs saturated)` : ''}`],
     ['segments', `${plan.counts.join(' x ')} (${plan.tableBytes} table bytes)`],
     ['cost', `${plan.cost} (${f.arithmetic === 'float32' ? 'Cortex-M4F cycles, estimated' : 'x86-64 latency units'}; src/plan/cost.ts)`],
   ];
