@@ -152,6 +152,28 @@ export class ProgramBuilder {
     return this.binary('div', a, b);
   }
 
+  /**
+   * k - v for a constant or per-segment constant k, with the constant part of
+   * v folded into k: k - (y + d) = (k - d) - y, k - (y - d) = (k + d) - y and
+   * k - (d - y) = (k - d) + y, d a constant or table. The folded constant is
+   * exact (one rational per segment), so a plan ending in x0 - v reads one
+   * table where it read two, and does one addition less (lean tables, issue
+   * 11). The rounding analysis runs on the program as built, so the bound
+   * covers the reassociated operations.
+   */
+  subFrom(k: Ref, v: Ref): Ref {
+    const sk = this.segValues(k);
+    const nv = this.node(v);
+    if (sk && (nv.kind === 'add' || nv.kind === 'sub')) {
+      const da = this.segValues(nv.a);
+      const db = this.segValues(nv.b);
+      if (db && !da) return this.sub(nv.kind === 'add' ? this.sub(k, nv.b) : this.add(k, nv.b), nv.a);
+      if (da && !db && nv.kind === 'sub') return this.add(this.sub(k, nv.a), nv.b);
+      if (da && !db) return this.sub(this.sub(k, nv.a), nv.b);
+    }
+    return this.sub(k, v);
+  }
+
   private binary(kind: BinaryKind, a: Ref, b: Ref): Ref {
     const sa = this.segValues(a);
     const sb = this.segValues(b);

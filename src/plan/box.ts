@@ -8,8 +8,10 @@
  */
 import type { Interval } from '../math/interval.js';
 import { Rational } from '../math/rational.js';
-import { roundNumber, roundTo } from '../ir/round.js';
+import { RootcastError } from '../errors.js';
+import { FORMATS, roundNumber, roundTo } from '../ir/round.js';
 import type { Family } from '../family/types.js';
+import { locate } from './locate.js';
 
 export type Cell = Interval[];
 
@@ -22,6 +24,16 @@ export interface Box {
 
 export function boxOf(family: Family): Box {
   const exact = family.inputs.map((i) => ({ lo: Rational.parseDecimal(i.lo), hi: Rational.parseDecimal(i.hi) }));
+  exact.forEach(({ lo, hi }, i) => {
+    for (const end of [lo, hi]) {
+      if (Number.isFinite(roundTo(end, family.arithmetic))) continue;
+      const name = family.inputs[i]!.name;
+      throw new RootcastError(
+        `the range of ${name} reaches ${end.toNumber().toExponential(2)}, beyond the ${family.arithmetic} range (largest finite ${FORMATS[family.arithmetic].maxFinite.toExponential(2)}); ${family.arithmetic === 'float32' ? 'use arithmetic: float64 or ' : ''}rescale ${name}`,
+        locate(family, `inputs.${name}`),
+      );
+    }
+  });
   const cell = exact.map(({ lo, hi }) => ({
     lo: Math.min(lo.toNumberDown(), roundTo(lo, family.arithmetic), roundNumber(lo.toNumber(), family.arithmetic)),
     hi: Math.max(hi.toNumberUp(), roundTo(hi, family.arithmetic), roundNumber(hi.toNumber(), family.arithmetic)),

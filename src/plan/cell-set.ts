@@ -9,9 +9,7 @@ import { divUp } from '../math/directed.js';
 import { widestDim, split, type Cell } from './box.js';
 import { cellFacts, cellTail, type CellFacts } from './cell-bound.js';
 import type { AnalysisProgram } from './series-program.js';
-
-/** A cell narrower than this fraction of the box in every input is not split again. */
-const MIN_FRACTION = 1 / 4096;
+import { SUBDIVISION } from './tuning.js';
 
 export class CellSet {
   cells: CellFacts[];
@@ -30,7 +28,7 @@ export class CellSet {
   }
 
   private tooSmall(cell: Cell): boolean {
-    return cell.every((c, i) => c.hi - c.lo <= (this.box[i]!.hi - this.box[i]!.lo) * MIN_FRACTION);
+    return cell.every((c, i) => c.hi - c.lo <= (this.box[i]!.hi - this.box[i]!.lo) * SUBDIVISION.minFraction);
   }
 
   private splitAt(index: number): boolean {
@@ -63,14 +61,14 @@ export class CellSet {
   repairBadCells(budget: number, relative: boolean, thorough = true): void {
     let doubling = 0;
     let before = -1;
-    for (let round = 0; round < 8; round++) {
+    for (let round = 0; round < SUBDIVISION.repairRounds; round++) {
       const bad: number[] = [];
       this.cells.forEach((c, i) => {
         if (this.bad(c, relative) && !this.tooSmall(c.cell)) bad.push(i);
       });
-      doubling = before > 0 && bad.length >= 1.7 * before ? doubling + 1 : 0;
+      doubling = before > 0 && bad.length >= SUBDIVISION.regionGrowth * before ? doubling + 1 : 0;
       before = bad.length;
-      if (bad.length === 0 || (!thorough && doubling >= 3) || this.cells.length + bad.length > budget) return;
+      if (bad.length === 0 || (!thorough && doubling >= SUBDIVISION.regionRounds) || this.cells.length + bad.length > budget) return;
       // Split from the end so earlier indices stay valid.
       for (let k = bad.length - 1; k >= 0; k--) this.splitAt(bad[k]!);
     }
@@ -112,15 +110,15 @@ export class CellSet {
   refineWorst(order: number, relative: boolean, budget: number): void {
     let best = this.truncation(order, relative);
     let stale = 0;
-    for (let round = 0; round < 40 && stale < 2; round++) {
+    for (let round = 0; round < SUBDIVISION.refineRounds && stale < SUBDIVISION.staleRounds; round++) {
       const worst: number[] = [];
       this.cells.forEach((c, i) => {
-        if (this.cellBound(c, order, relative) >= 0.9 * best && !this.tooSmall(c.cell)) worst.push(i);
+        if (this.cellBound(c, order, relative) >= SUBDIVISION.worstShare * best && !this.tooSmall(c.cell)) worst.push(i);
       });
       if (worst.length === 0 || this.cells.length + worst.length > budget) return;
       for (let k = worst.length - 1; k >= 0; k--) this.splitAt(worst[k]!);
       const now = this.truncation(order, relative);
-      if (now < 0.98 * best) {
+      if (now < SUBDIVISION.gain * best) {
         best = now;
         stale = 0;
       } else stale++;

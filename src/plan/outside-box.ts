@@ -14,7 +14,7 @@ import { roundTo } from '../ir/round.js';
 import { saturateInputs } from '../ir/saturate.js';
 import { Rational } from '../math/rational.js';
 import { programCost } from './cost.js';
-import type { Plan } from './plan.js';
+import type { Plan } from './types.js';
 
 export function applyOutsideBox(plan: Plan): Plan {
   const { family } = plan;

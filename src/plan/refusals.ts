@@ -7,7 +7,7 @@ import type { Family } from '../family/types.js';
 import { describeCell, short } from './box.js';
 import type { CellFacts } from './cell-bound.js';
 import { poleOver, type Division } from './coefficient-poles.js';
-import { LIMITS } from './limits.js';
+import { LIMITS } from './tuning.js';
 import { locate } from './locate.js';
 
 export function refuseBadCells(family: Family, cells: readonly CellFacts[], relative: boolean): void {

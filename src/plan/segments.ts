@@ -9,11 +9,13 @@
  * segment's analysed box is its own range widened by e segment widths. Several
  * segmented inputs form a grid, numbered row-major.
  */
+import { RootcastError } from '../errors.js';
 import { Rational } from '../math/rational.js';
 import type { Segmentation } from '../ir/builder.js';
 import { FORMATS, roundTo } from '../ir/round.js';
 import type { Family } from '../family/types.js';
 import type { Cell } from './box.js';
+import { locate } from './locate.js';
 import { boxCentre } from './root-choice.js';
 
 export interface SegmentLayout {
@@ -24,7 +26,33 @@ export interface SegmentLayout {
   readonly centres: readonly (readonly Rational[])[];
 }
 
+/**
+ * Why `counts` cannot be laid out over `box` in the target arithmetic, or
+ * null: the reciprocal width 1/w of a split input must be a normal number of
+ * the format (a subnormal or infinite 1/w breaks the relative rounding bound
+ * above), as must the first centre c0 be finite.
+ */
+export function layoutProblem(family: Family, box: Cell, counts: readonly number[]): string | null {
+  const arith = family.arithmetic;
+  const f = FORMATS[arith];
+  const minNormal = f.minSubnormal * 2 ** (f.bits - 1);
+  for (const [i, k] of counts.entries()) {
+    if (k <= 1) continue;
+    const { lo, hi } = box[i]!;
+    const span = Rational.fromNumber(hi).sub(Rational.fromNumber(lo));
+    if (span.sign() <= 0) return `the range of ${family.inputs[i]!.name} has no width to split`;
+    const inv = Math.abs(roundTo(Rational.int(k).div(span), arith));
+    if (!Number.isFinite(inv) || inv < minNormal) {
+      const name = family.inputs[i]!.name;
+      return `the range of ${name} is too ${inv >= minNormal ? 'narrow' : 'wide'} to split in ${k} equal segments in ${arith} (the segment index scales by ${k}/width, which must be a normal ${arith} number)`;
+    }
+  }
+  return null;
+}
+
 export function segmentLayout(family: Family, box: Cell, counts: readonly number[]): SegmentLayout {
+  const problem = layoutProblem(family, box, counts);
+  if (problem) throw new RootcastError(`${problem}; use fewer segments (plan.segments: 1) or rescale the input`, locate(family, 'plan.segments'));
   const arith = family.arithmetic;
   const u = FORMATS[arith].u;
   const centre = boxCentre(family);

@@ -149,7 +149,7 @@ export function analysisProgram(family: Family, e: Expansion): AnalysisProgram {
 /** The emitted program for the kept terms (ordered by grade, as termsUpToGrade gives them). */
 export function seriesProgram(family: Family, e: Expansion, terms: readonly SeriesTerm[]): Program {
   const core = seriesCore(family, e, terms);
-  return core.b.finish(core.b.sub(core.b.const(e.x0), core.v));
+  return core.b.finish(core.b.subFrom(core.b.const(e.x0), core.v));
 }
 
 /** The series built up to v = r a_S (the root is x = x0 - v), for programs that go on from there. */

@@ -11,6 +11,7 @@ const slots = {
   bodyLines: ['return x;'],
   batchParameters: 'const float *restrict x, float *restrict rc_out, size_t rc_n',
   batchArguments: '*x++',
+  tableLines: [] as string[],
 };
 
 describe('renderTemplate', () => {

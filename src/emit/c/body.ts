@@ -18,7 +18,7 @@ import { operandText, resultText, type OperandStyle } from '../operands.js';
 
 export const C_TYPE = { float32: 'float', float64: 'double' } as const;
 
-export function cBodyLines(program: Program): string[] {
+export function cBodyLines(program: Program, name: string): string[] {
   const type = C_TYPE[program.arithmetic];
   const lines: string[] = [];
   const read = readInputs(program);
@@ -27,7 +27,7 @@ export function cBodyLines(program: Program): string[] {
   });
   program.nodes.forEach((node, i) => {
     if (node.kind === 'index') lines.push(...cIndexLines(program, node.parts, i));
-    else if (node.kind === 'table') lines.push(...cTableLines(program, node, i));
+    else if (node.kind === 'table') lines.push(...cTableLines(program, node, i, name));
     else if (node.kind === 'clamp') lines.push(...cClampLines(program, node, i));
     else {
       const rhs = cExpression(program, node, i);
@@ -115,18 +115,52 @@ function cClampLines(program: Program, node: Extract<Node, { kind: 'clamp' }>, a
   ];
 }
 
-/** A per-segment constant: a static const table beside its one read. */
-function cTableLines(program: Program, node: Extract<Node, { kind: 'table' }>, at: number): string[] {
+/** A per-segment constant: one read of its table (the table itself is at file scope, cTableDefinitions). */
+function cTableLines(program: Program, node: Extract<Node, { kind: 'table' }>, at: number, name: string): string[] {
   const type = C_TYPE[program.arithmetic];
-  const values = node.values.map((v) => cLiteral(v, program.arithmetic));
-  const rows: string[] = [];
-  for (let i = 0; i < values.length; i += 4) rows.push(`    ${values.slice(i, i + 4).join(', ')},`);
-  return [
-    `static const ${type} rc_tab${at}[${values.length}] = {`,
-    ...rows,
-    '};',
-    `const ${type} ${valueName(at)} = rc_tab${at}[${valueName(node.index)}];`,
+  return [`const ${type} ${valueName(at)} = ${cTableName(name, at)}[${valueName(node.index)}];`];
+}
+
+/** The file-scope name of the table of node `at` in function `name` (rc_ names are ours alone). */
+export function cTableName(name: string, at: number): string {
+  return `rc_${name}_tab${at}`;
+}
+
+/** The storage class of the tables: a macro the header defines (see cTableDefinitions). */
+function cTableMacro(name: string): string {
+  return `ROOTCAST_${name.toUpperCase()}_TABLE`;
+}
+
+/**
+ * The tables of a program, at file scope, each once (lean tables, issue 11).
+ * With gcc and clang they are weak definitions: every translation unit that
+ * includes the header emits the same table, and the linker keeps one copy
+ * per program (ELF and Mach-O weak symbols); the header stays self-contained
+ * and the function stays `static inline`. Other compilers get `static const`
+ * (one copy per translation unit that reads it, as before).
+ */
+export function cTableDefinitions(program: Program, name: string): string[] {
+  const type = C_TYPE[program.arithmetic];
+  if (!program.nodes.some((n) => n.kind === 'table')) return [];
+  const macro = cTableMacro(name);
+  const out: string[] = [
+    '/* The segment tables, at file scope: gcc and clang keep one copy per program',
+    '   (weak definitions, merged by the linker); other compilers one per',
+    '   translation unit. */',
+    '#if defined(__GNUC__)',
+    `#define ${macro} __attribute__((weak)) const`,
+    '#else',
+    `#define ${macro} static const`,
+    '#endif',
   ];
+  program.nodes.forEach((node, at) => {
+    if (node.kind !== 'table') return;
+    const values = node.values.map((v) => cLiteral(v, program.arithmetic));
+    out.push(`${macro} ${type} ${cTableName(name, at)}[${values.length}] = {`);
+    for (let i = 0; i < values.length; i += 4) out.push(`    ${values.slice(i, i + 4).join(', ')},`);
+    out.push('};');
+  });
+  return out;
 }
 
 const cStyle = (program: Program): OperandStyle => ({

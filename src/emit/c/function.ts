@@ -15,7 +15,7 @@ import { assertCommentSafe, headerLines } from '../header.js';
 import { assertUserName } from '../names.js';
 import { renderTemplate } from '../templates.js';
 import type { EmitInput, EmittedFile } from '../types.js';
-import { C_TYPE, cBodyLines } from './body.js';
+import { C_TYPE, cBodyLines, cTableDefinitions } from './body.js';
 
 export function cFunction(input: EmitInput): EmittedFile {
   const { program, family } = input;
@@ -30,7 +30,8 @@ export function cFunction(input: EmitInput): EmittedFile {
     returnType: type,
     name,
     parameters,
-    bodyLines: cBodyLines(program),
+    bodyLines: cBodyLines(program, name),
+    tableLines: cTableDefinitions(program, name),
     batchParameters: [...program.inputs.map((n) => `const ${type} *restrict ${n}`), `${type} *restrict rc_out`, 'size_t rc_n'].join(', '),
     batchArguments: program.inputs.map((n) => `*${n}++`).join(', '),
   });

@@ -3,9 +3,10 @@
  * node, in program order, and a return. Constants print inline as literals
  * (glslLiteral), inputs by name, computed values as `v<index>`.
  *
- * Segmented programs read their per-segment constants from local `const`
- * arrays (GLSL ES 3.00 allows array constructors and indexing them with any
- * int), at a segment number computed with roundEven and clamp.
+ * Segmented programs read their per-segment constants from global `const`
+ * arrays, written once for both overloads (GLSL ES 3.00 allows array
+ * constructors and indexing them with any int), at a segment number computed
+ * with roundEven and clamp.
  *
  * Two shapes share this printer: `float`, the scalar function, and `vec4`,
  * which evaluates four inputs at once. In the vec4 shape a value that depends
@@ -27,11 +28,11 @@ import { operandText, resultText, type OperandStyle } from '../operands.js';
 
 export type GlslShape = 'float' | 'vec4';
 
-export function glslBodyLines(program: Program, shape: GlslShape): string[] {
+export function glslBodyLines(program: Program, shape: GlslShape, name: string): string[] {
   if (program.arithmetic !== 'float32') throw new RangeError(`GLSL code is float32 only; the program computes in ${program.arithmetic}`);
   const vector = vectorNodes(program, shape);
   const lines: string[] = [];
-  program.nodes.forEach((node, i) => lines.push(...glslNodeLines(program, node, i, vector)));
+  program.nodes.forEach((node, i) => lines.push(...glslNodeLines(program, node, i, vector, name)));
   const result = glslResult(program);
   lines.push(`return ${shape === 'vec4' && !vector[program.result] ? `vec4(${result})` : result};`);
   return lines;
@@ -72,7 +73,7 @@ function vectorNodes(program: Program, shape: GlslShape): boolean[] {
 }
 
 /** The lines for one node: none for constants and inputs, which print inline. */
-function glslNodeLines(program: Program, node: Node, at: number, vector: readonly boolean[]): string[] {
+function glslNodeLines(program: Program, node: Node, at: number, vector: readonly boolean[], name: string): string[] {
   const ref = (r: number): string => glslReference(program, r, at);
   const local = (rhs: string): string[] => [`${vector[at] ? 'vec4' : 'float'} ${valueName(at)} = ${rhs};`];
   switch (node.kind) {
@@ -94,7 +95,7 @@ function glslNodeLines(program: Program, node: Node, at: number, vector: readonl
     case 'index':
       return glslIndexLines(program, node.parts, at, vector);
     case 'table':
-      return glslTableLines(node, at, vector);
+      return glslTableLines(name, node, at, vector);
     default:
       throw new UnknownNodeError(node);
   }
@@ -141,19 +142,39 @@ function glslClamp(x: string, lo: string, hi: string, four: boolean): string {
     : `mix(mix(${x}, ${lo}, ${x} < ${lo}), ${hi}, ${x} > ${hi})`;
 }
 
-/** A per-segment constant: a local const array beside its one read (four reads in the vec4 shape). */
-function glslTableLines(node: Extract<Node, { kind: 'table' }>, at: number, vector: readonly boolean[]): string[] {
-  const n = node.values.length;
-  if (n < 1) throw new RangeError(`table node ${at} is empty`);
-  const values = node.values.map((v) => glslLiteral(v));
-  const rows: string[] = [];
-  for (let k = 0; k < n; k += 4) rows.push(`    ${values.slice(k, k + 4).join(', ')}${k + 4 < n ? ',' : ''}`);
-  const table = `rc_tab${at}`;
+/** A per-segment constant: one read of its global table (four reads in the vec4 shape). */
+function glslTableLines(name: string, node: Extract<Node, { kind: 'table' }>, at: number, vector: readonly boolean[]): string[] {
+  const table = glslTableName(name, at);
   const index = valueName(node.index);
-  const read = vector[at]
-    ? `vec4 ${valueName(at)} = vec4(${['x', 'y', 'z', 'w'].map((c) => `${table}[${index}.${c}]`).join(', ')});`
-    : `float ${valueName(at)} = ${table}[${index}];`;
-  return [`const float ${table}[${n}] = float[${n}](`, ...rows, ');', read];
+  return [
+    vector[at]
+      ? `vec4 ${valueName(at)} = vec4(${['x', 'y', 'z', 'w'].map((c) => `${table}[${index}.${c}]`).join(', ')});`
+      : `float ${valueName(at)} = ${table}[${index}];`,
+  ];
+}
+
+/** The global name of the table of node `at` in function `name` (rc_ names are ours alone). */
+export function glslTableName(name: string, at: number): string {
+  return `rc_${name}_tab${at}`;
+}
+
+/**
+ * The tables of a program as global `const` arrays, written once and read by
+ * both overloads (lean tables, issue 11; GLSL ES 3.00 section 4.3.3 allows
+ * global constant arrays with an array constructor).
+ */
+export function glslTableDefinitions(program: Program, name: string): string[] {
+  const out: string[] = [];
+  program.nodes.forEach((node, at) => {
+    if (node.kind !== 'table') return;
+    const n = node.values.length;
+    if (n < 1) throw new RangeError(`table node ${at} is empty`);
+    const values = node.values.map((v) => glslLiteral(v));
+    out.push(`const float ${glslTableName(name, at)}[${n}] = float[${n}](`);
+    for (let k = 0; k < n; k += 4) out.push(`    ${values.slice(k, k + 4).join(', ')}${k + 4 < n ? ',' : ''}`);
+    out.push(');');
+  });
+  return out;
 }
 
 const GLSL_STYLE: OperandStyle = { operand: glslOperand, literal: glslLiteral, input: (name) => name };

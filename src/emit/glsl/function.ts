@@ -10,7 +10,7 @@ import { headerLines } from '../header.js';
 import { assertUserName } from '../names.js';
 import { renderTemplate } from '../templates.js';
 import type { EmitInput, EmittedFile } from '../types.js';
-import { glslBodyLines } from './body.js';
+import { glslBodyLines, glslTableDefinitions } from './body.js';
 import { glslAssumptionLines, glslCommentLines } from './comment.js';
 import { refuseUnlessFloat32 } from './refuse.js';
 
@@ -34,8 +34,9 @@ export function glslFunction(input: EmitInput): EmittedFile {
     name,
     scalarParameters: program.inputs.map((n) => `float ${n}`).join(', '),
     vectorParameters: program.inputs.map((n) => `vec4 ${n}`).join(', '),
-    scalarBody: glslBodyLines(program, 'float'),
-    vectorBody: glslBodyLines(program, 'vec4'),
+    tableLines: glslTableDefinitions(program, name),
+    scalarBody: glslBodyLines(program, 'float', name),
+    vectorBody: glslBodyLines(program, 'vec4', name),
   });
   return { path: glslSnippetPath(name), text };
 }

@@ -8,7 +8,7 @@ import { applicableTargets, emitFiles, TARGETS } from '../../../src/cli/emit-fil
 import { emitInputOf, planSpec } from '../../../src/cli/pipeline.js';
 import { RootcastError } from '../../../src/errors.js';
 import { glslFunction } from '../../../src/emit/glsl/function.js';
-import { glslBodyLines } from '../../../src/emit/glsl/body.js';
+import { glslBodyLines, glslTableDefinitions } from '../../../src/emit/glsl/body.js';
 import { headerLines } from '../../../src/emit/header.js';
 import { UnknownNodeError, type Program } from '../../../src/ir/nodes.js';
 import { Rational } from '../../../src/math/rational.js';
@@ -66,19 +66,25 @@ describe('glslFunction', () => {
       ],
       result: 3,
     };
-    expect(glslBodyLines(folded, 'vec4')).toEqual(['float v2 = 0.5 + 0.5;', 'vec4 v3 = x * v2;', 'return v3;']);
-    expect(glslBodyLines(folded, 'float')).toEqual(['float v2 = 0.5 + 0.5;', 'float v3 = x * v2;', 'return v3;']);
+    expect(glslBodyLines(folded, 'vec4', 'f')).toEqual(['float v2 = 0.5 + 0.5;', 'vec4 v3 = x * v2;', 'return v3;']);
+    expect(glslBodyLines(folded, 'float', 'f')).toEqual(['float v2 = 0.5 + 0.5;', 'float v3 = x * v2;', 'return v3;']);
   });
 
-  test('a segmented program: the segment number by roundEven and clamp, tables as local const arrays', () => {
+  test('a segmented program: the segment number by roundEven and clamp, tables as global const arrays written once', () => {
     const { program } = segmentedProgram();
-    const scalar = glslBodyLines(program, 'float');
-    const vector = glslBodyLines(program, 'vec4');
-    expect(scalar.filter((l) => l.startsWith('const float rc_tab')).length).toBe(2);
+    const scalar = glslBodyLines(program, 'float', 'f');
+    const vector = glslBodyLines(program, 'vec4', 'f');
+    const tables = program.nodes.filter((n) => n.kind === 'table').length;
+    expect(tables).toBe(2);
+    expect(glslTableDefinitions(program, 'f').filter((l) => l.startsWith('const float rc_f_tab')).length).toBe(tables);
+    expect([...scalar, ...vector].some((l) => l.startsWith('const float'))).toBe(false);
+    const snippet = glslFunction(demoInput(program, { functionName: 'f' })).text;
+    expect(snippet.match(/const float rc_f_tab\d+\[/g)?.length).toBe(tables);
+    expect(snippet.indexOf('const float rc_f_tab')).toBeLessThan(snippet.indexOf('float f('));
     expect(scalar.some((l) => /^int rc_s\d+_1 = clamp\(int\(roundEven\(v\d+\)\), 0, 2\);$/.test(l))).toBe(true);
     expect(vector.some((l) => /^ivec4 rc_s\d+_0 = clamp\(ivec4\(roundEven\(v\d+\)\), 0, 3\);$/.test(l))).toBe(true);
     expect(vector.some((l) => /^ivec4 v\d+ = rc_s\d+_0 \+ rc_s\d+_1 \* 4;$/.test(l))).toBe(true);
-    expect(vector.some((l) => /^vec4 v\d+ = vec4\(rc_tab\d+\[v\d+\.x\], rc_tab\d+\[v\d+\.y\], rc_tab\d+\[v\d+\.z\], rc_tab\d+\[v\d+\.w\]\);$/.test(l))).toBe(true);
+    expect(vector.some((l) => /^vec4 v\d+ = vec4\(rc_f_tab\d+\[v\d+\.x\], rc_f_tab\d+\[v\d+\.y\], rc_f_tab\d+\[v\d+\.z\], rc_f_tab\d+\[v\d+\.w\]\);$/.test(l))).toBe(true);
   });
 
   test('emitting twice gives identical bytes', () => {
@@ -90,7 +96,7 @@ describe('glslFunction', () => {
 
   test('an unknown node kind is an error, not a blank', () => {
     const program = { ...sqrtTaylor('float32').program, nodes: [...sqrtTaylor('float32').program.nodes, { kind: 'fma' } as never] };
-    expect(() => glslBodyLines({ ...program, result: program.nodes.length - 1 }, 'float')).toThrow(UnknownNodeError);
+    expect(() => glslBodyLines({ ...program, result: program.nodes.length - 1 }, 'float', 'f')).toThrow(UnknownNodeError);
   });
 
   test('a float64 program is refused in one located line, exit code 2', () => {

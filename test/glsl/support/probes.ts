@@ -55,6 +55,8 @@ function probeSnippet(snippet: string, name: string, fn: string, p: Omit<Probe, 
   const guard = `ROOTCAST_GLSL_${name.toUpperCase()}`;
   if (!snippet.includes(`#ifndef ${guard}\n#define ${guard}\n`)) throw new Error(`no include guard ${guard} in the snippet`);
   let text = snippet.split(guard).join(`${guard}_RC_PROBE_${fn.toUpperCase()}`);
+  // The global tables get the probe's own names, so several probes can share one shader.
+  text = text.split(`rc_${name}_tab`).join(`rc_${fn}_tab`);
   const split = text.indexOf(`\nvec4 ${name}(`);
   if (split < 0 || !text.includes(`\nfloat ${name}(`)) throw new Error(`no float and vec4 ${name} in the snippet`);
   let scalar = text.slice(0, split).replace(`\nfloat ${name}(`, `\nfloat ${fn}(`);
@@ -64,12 +66,12 @@ function probeSnippet(snippet: string, name: string, fn: string, p: Omit<Probe, 
   const declared = new RegExp(`\\b(int|ivec4|float|vec4) ${value} = `);
   for (const body of [scalar, vector]) if (!declared.test(body)) throw new Error(`the snippet computes no ${value} (the printer's names changed?)`);
   if (p.kind === 'table') {
-    const table = new RegExp(`(const float rc_tab${p.node}\\[${p.count}\\] = float\\[${p.count}\\]\\()[^)]*(\\);)`, 'g');
+    // The tables are global, written once before both overloads (src/emit/glsl/body.ts).
+    const table = new RegExp(`(const float rc_${fn}_tab${p.node}\\[${p.count}\\] = float\\[${p.count}\\]\\()[^)]*(\\);)`, 'g');
     const positions = Array.from({ length: p.count }, (_, k) => `${k}.0`).join(', ');
-    const before = scalar + vector;
+    const before = scalar;
     scalar = scalar.replace(table, `$1${positions}$2`);
-    vector = vector.replace(table, `$1${positions}$2`);
-    if (scalar + vector === before) throw new Error(`no table rc_tab${p.node}[${p.count}] in the snippet`);
+    if (scalar === before) throw new Error(`no table rc_${fn}_tab${p.node}[${p.count}] in the snippet`);
   }
   const ret = /^( +)return [^\n]*;$/m;
   if (!ret.test(scalar) || !ret.test(vector)) throw new Error('no return line in a function of the snippet');

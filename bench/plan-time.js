@@ -1,0 +1,71 @@
+// npm run bench:plan-time: cold `rootcast plan` time over the examples and the
+// seeded random corpus (bench/corpus/random, written by bench/corpus/generate.js)
+// and the hand-written hard cases (bench/corpus/cases).
+//
+// Each spec is planned in a fresh process, `node dist/cli.js plan SPEC`, as a
+// user runs it. Prints the wall-time and CPU-time distribution (median, 95th
+// percentile, max), the slowest specs, and how many planned (exit 0), were
+// refused (exit 2, one line) or failed otherwise (internal error, a refusal of
+// more than one line, or killed at --timeout seconds). Figures, not a timed
+// test: the machine's load is printed with them.
+//
+//   node bench/plan-time.js [--timeout S] [--only REGEX] [--slowest N] [--json FILE]
+import { spawnSync } from 'node:child_process';
+import { readdirSync, writeFileSync } from 'node:fs';
+import { cpus, loadavg } from 'node:os';
+import { join } from 'node:path';
+
+const arg = (name, dflt) => {
+  const i = process.argv.indexOf(name);
+  return i > 0 ? process.argv[i + 1] : dflt;
+};
+const timeoutS = Number(arg('--timeout', '30'));
+const only = new RegExp(arg('--only', '.'));
+const slowestN = Number(arg('--slowest', '8'));
+const jsonOut = arg('--json', null);
+
+const list = (dir) => readdirSync(dir).filter((f) => /\.ya?ml$/.test(f)).sort().map((f) => join(dir, f));
+const specs = [...list('examples'), ...list('bench/corpus/cases'), ...list('bench/corpus/random')].filter((s) => only.test(s));
+
+const q = (xs, p) => {
+  const s = [...xs].sort((a, b) => a - b);
+  return s.length ? s[Math.min(s.length - 1, Math.ceil(p * s.length) - 1)] : NaN;
+};
+
+console.log(`machine: ${cpus()[0]?.model ?? 'unknown cpu'}, ${cpus().length} cores; node ${process.version}; load ${loadavg().map((l) => l.toFixed(1)).join(' ')}`);
+const rows = [];
+for (const spec of specs) {
+  const t0 = process.hrtime.bigint();
+  const r = spawnSync(process.execPath, ['--import', './bench/cpu-note.js', 'dist/cli.js', 'plan', spec], {
+    encoding: 'utf8',
+    timeout: timeoutS * 1000,
+    killSignal: 'SIGKILL',
+  });
+  const wall = Number(process.hrtime.bigint() - t0) / 1e9;
+  const cpuLine = /@cpu-ms (\d+)/.exec(r.stderr ?? '');
+  const cpu = cpuLine ? Number(cpuLine[1]) / 1000 : wall;
+  const message = (r.stderr ?? '').replace(/\n?@cpu-ms \d+\n$/, '').trim();
+  let outcome;
+  if (r.status === 0) outcome = 'planned';
+  else if (r.status === 2 && message.split('\n').length === 1 && !/internal error/.test(message)) outcome = 'refused';
+  else if (r.status === null) outcome = 'timeout';
+  else outcome = 'error';
+  rows.push({ spec, outcome, wall, cpu, message: outcome === 'planned' ? '' : message.split('\n')[0] });
+  if (process.stdout.isTTY) process.stdout.write(`\r${rows.length}/${specs.length} ${spec}      `);
+}
+if (process.stdout.isTTY) process.stdout.write('\n');
+
+const count = (o) => rows.filter((r) => r.outcome === o).length;
+console.log(`${rows.length} specs: ${count('planned')} planned, ${count('refused')} refused, ${count('error')} internal errors, ${count('timeout')} killed at ${timeoutS} s`);
+for (const [label, key] of [['wall', 'wall'], ['cpu', 'cpu']]) {
+  const xs = rows.map((r) => r[key]);
+  console.log(`${label.padEnd(4)} s: median ${q(xs, 0.5).toFixed(2)}, p95 ${q(xs, 0.95).toFixed(2)}, max ${Math.max(...xs).toFixed(2)}; over 1 s ${xs.filter((x) => x > 1).length}, over 3 s ${xs.filter((x) => x > 3).length}, over 10 s ${xs.filter((x) => x > 10).length}`);
+}
+const ex = rows.filter((r) => r.spec.startsWith('examples/'));
+if (ex.length) console.log(`examples: ${ex.map((r) => `${r.spec.slice(9)} ${r.wall.toFixed(2)} s`).join(', ')}`);
+console.log(`slowest ${slowestN} (wall s, cpu s, outcome):`);
+for (const r of [...rows].sort((a, b) => b.wall - a.wall).slice(0, slowestN)) {
+  console.log(`  ${r.wall.toFixed(2).padStart(6)} ${r.cpu.toFixed(2).padStart(6)}  ${r.outcome.padEnd(8)} ${r.spec}${r.message ? `  ${r.message.slice(0, 140)}` : ''}`);
+}
+for (const r of rows.filter((x) => x.outcome === 'error' || x.outcome === 'timeout')) console.log(`  ${r.outcome}: ${r.spec}: ${r.message.slice(0, 160)}`);
+if (jsonOut) writeFileSync(jsonOut, JSON.stringify(rows, null, 1));

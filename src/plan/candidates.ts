@@ -1,0 +1,36 @@
+/** The candidate rows of `rootcast plan`'s table: every plan weighed, and which one was chosen. */
+import type { Candidate, Plan } from './types.js';
+
+function candidateOf(p: Plan): Candidate {
+  return {
+    form: p.form,
+    degree: p.degree,
+    counts: p.counts,
+    order: p.order,
+    terms: p.terms.length,
+    steps: p.steps,
+    ops: p.ops,
+    cost: p.cost,
+    bound: p.bound.total,
+    refusal: null,
+    chosen: false,
+  };
+}
+
+/** A segmentation the planner refused, as a row. */
+export function refusedCandidate(counts: readonly number[], refusal: string): Candidate {
+  return { form: 'series', degree: null, counts, order: null, terms: null, steps: 0, ops: null, cost: null, bound: null, refusal, chosen: false };
+}
+
+/** The plan and the other forms weighed for its segments, as candidate rows. */
+export function candidatesOf(p: Plan): Candidate[] {
+  return [p, ...(p.alternatives ?? [])].map(candidateOf);
+}
+
+const sameCounts = (a: readonly number[], b: readonly number[]): boolean => a.every((k, i) => k === b[i]);
+
+/** The chosen plan with its candidate rows, the row that is the plan marked chosen. */
+export function withCandidates(p: Plan, candidates: readonly Candidate[]): Plan {
+  const marked = candidates.map((c) => ({ ...c, chosen: c.refusal === null && c.form === p.form && c.steps === p.steps && sameCounts(c.counts, p.counts) }));
+  return { ...p, candidates: marked };
+}

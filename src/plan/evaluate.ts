@@ -1,0 +1,54 @@
+/**
+ * The bound of one candidate program over the cells: per cell, the
+ * truncation (or Newton) tail, the economisation error if any, and the a
+ * priori rounding bound of the program (src/ir/analyse.ts), gathered into
+ * box-wide parts in the spec's accuracy kind (src/plan/worst-parts.ts).
+ */
+import { RootcastError } from '../errors.js';
+import { addUp } from '../math/directed.js';
+import { analyse, largestComputed } from '../ir/analyse.js';
+import type { Program } from '../ir/nodes.js';
+import { FORMATS } from '../ir/round.js';
+import type { Family } from '../family/types.js';
+import { describeCell } from './box.js';
+import type { CellFacts } from './cell-bound.js';
+import { locate } from './locate.js';
+import { OVERFLOW_HEADROOM } from './tuning.js';
+import type { Bound } from './types.js';
+import { WorstParts } from './worst-parts.js';
+
+export interface Evaluated {
+  readonly bound: Bound;
+  readonly absolute: number;
+}
+
+/** Truncation, rounding and total over all cells, in the spec's accuracy kind. */
+export function evaluate(
+  family: Family,
+  program: Program,
+  cells: readonly CellFacts[],
+  tail: (c: CellFacts) => number,
+  relative: boolean,
+  extra: (c: CellFacts) => number = () => 0,
+): Evaluated {
+  const worst = new WorstParts(relative);
+  let hasExtra = false;
+  for (const c of cells) {
+    // float32 bounds allow for flushed subnormals too, so one bound holds on CPUs and GPUs.
+    const an = analyse(program, c.cell, { segment: c.segment, flushToZero: program.arithmetic === 'float32' });
+    const rnd = an.errors[program.result]!;
+    if (!Number.isFinite(rnd) || largestComputed(an) > FORMATS[program.arithmetic].maxFinite / OVERFLOW_HEADROOM) {
+      throw new RootcastError(
+        `intermediate values can overflow ${program.arithmetic} (or a divisor can vanish) for ${describeCell(family, c.cell)}; use arithmetic: float64, rescale the unknown or narrow the input ranges`,
+        locate(family, 'arithmetic'),
+      );
+    }
+    const t = tail(c);
+    const x = extra(c);
+    if (x > 0) hasExtra = true;
+    worst.add(c.rootMin, { truncation: t, economisation: x, rounding: rnd, total: addUp(addUp(t, x), rnd) });
+  }
+  const kind = relative ? 'relative' : 'absolute';
+  const { truncation, economisation, rounding, total, absolute } = worst;
+  return { bound: hasExtra ? { kind, truncation, economisation, rounding, total } : { kind, truncation, rounding, total }, absolute };
+}

@@ -1,0 +1,69 @@
+/**
+ * "Order N + k Newton steps" (DESIGN.md 1.9, src/plan/polish.ts): for each
+ * step count k, the lowest order N whose carried bound meets the target.
+ * Orders whose Newton terms alone (no rounding) miss it are skipped before
+ * any program is built; a step count whose cheapest program (order 0) costs
+ * no less than a plan in hand is not weighed.
+ */
+import { programCost } from '../cost.js';
+import { planOf } from '../plan-of.js';
+import { coreProgram, polishBound, polishedProgram, PolishFailure, stepProgram } from '../polish.js';
+import { POLISH } from '../tuning.js';
+import type { Plan } from '../types.js';
+import type { FormContext, FoundPlans } from './context.js';
+
+/** The polished plans for plan.newton_steps (auto: POLISH.autoSteps, each against the cheapest plan so far). */
+export function polishedPlans(ctx: FormContext, found: FoundPlans): Plan[] {
+  const { family, expansion, relative, target, pool } = ctx;
+  const knob = family.plan.newtonSteps;
+  const stepCounts: readonly number[] = knob === 'auto' ? POLISH.autoSteps : [knob];
+  const series = found.first('series-order');
+  // Below the graded plan's order (a polished plan of the same order costs more), or up to max_order.
+  const maxOrder = series ? series.order - 1 : Math.min(family.plan.maxOrder, pool.grades - 1);
+  const cells = ctx.set.cells;
+  const out: Plan[] = [];
+  // Cost of the cheapest plan found for these segments without steps (Infinity if none, or for a fixed step count).
+  let toBeat = knob === 'auto' ? Math.min(...found.all.map((f) => f.cost)) : Infinity;
+  // Order 0 with k steps is the cheapest program with k steps, and more steps cost more:
+  // skip every k whose cheapest program costs more than a plan in hand.
+  const empty = pool.termsUpTo(0);
+  if (!empty) return out;
+  const floorCost = (k: number): number => programCost(polishedProgram(family, expansion, empty, k));
+  if (floorCost(Math.min(...stepCounts)) >= toBeat) return out;
+  for (const k of stepCounts) {
+    if (k !== Math.min(...stepCounts) && floorCost(k) >= toBeat) continue;
+    for (let n = 0; n <= maxOrder; n++) {
+      let cheap;
+      try {
+        cheap = polishBound(cells, n, k, relative, null);
+      } catch (e) {
+        if (e instanceof PolishFailure) continue;
+        throw e;
+      }
+      if (cheap.total > target) continue;
+      const terms = pool.termsUpTo(n);
+      if (!terms) break;
+      const programs = { core: coreProgram(family, expansion, terms), steps: Array.from({ length: k }, (_, j) => stepProgram(family, expansion, j === k - 1)) };
+      let full;
+      try {
+        full = polishBound(cells, n, k, relative, programs);
+      } catch (e) {
+        if (e instanceof PolishFailure) break;
+        throw e;
+      }
+      // Rounding does not shrink with the order: past a share of the target, stop.
+      if (full.total > target) {
+        if (full.rounding > target * POLISH.roundingStopShare) break;
+        continue;
+      }
+      const program = polishedProgram(family, expansion, terms, k);
+      ctx.checkTable(program);
+      const bound = { kind: relative ? ('relative' as const) : ('absolute' as const), truncation: full.truncation, rounding: full.rounding, total: full.total };
+      const plan = planOf(ctx, { form: 'series', order: n, degree: null, terms, steps: k, program, evaluated: { bound, absolute: full.absolute } });
+      toBeat = Math.min(toBeat, plan.cost);
+      out.push(plan);
+      break;
+    }
+  }
+  return out;
+}

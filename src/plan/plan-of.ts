@@ -1,0 +1,41 @@
+/** The one constructor of a Plan: every form builds its plans here. */
+import { countOps } from '../ir/count.js';
+import type { Program } from '../ir/nodes.js';
+import { FORMATS } from '../ir/round.js';
+import { programCost } from './cost.js';
+import type { Evaluated } from './evaluate.js';
+import type { FormContext } from './forms/context.js';
+import type { Plan } from './types.js';
+
+/** What a form decides; the rest of a Plan follows from the program and the segmentation. */
+export type PlanParts = Pick<Plan, 'form' | 'order' | 'degree' | 'terms' | 'steps' | 'program'> & { readonly evaluated: Evaluated };
+
+export function planOf(ctx: Pick<FormContext, 'family' | 'root' | 'target' | 'counts' | 'set'>, parts: PlanParts): Plan {
+  const { program } = parts;
+  return {
+    family: ctx.family,
+    root: ctx.root,
+    form: parts.form,
+    order: parts.order,
+    degree: parts.degree,
+    terms: parts.terms,
+    steps: parts.steps,
+    program,
+    bound: parts.evaluated.bound,
+    absoluteBound: parts.evaluated.absolute,
+    target: ctx.target,
+    ops: countOps(program),
+    cost: programCost(program),
+    cells: ctx.set.cells.length,
+    counts: [...ctx.counts],
+    tableBytes: tableBytesOf(program),
+    candidates: [],
+  };
+}
+
+/** Bytes of the program's segment tables. */
+export function tableBytesOf(program: Program): number {
+  let n = 0;
+  for (const node of program.nodes) if (node.kind === 'table') n += node.values.length;
+  return n * FORMATS[program.arithmetic].bytes;
+}

@@ -1,0 +1,80 @@
+/**
+ * Greedy search over segment counts (`plan.segments: auto`): start from one
+ * box; while the best plan can still improve, try doubling each input's count
+ * and move to the cheapest (or, when none is possible yet, double every
+ * input). Stops at the table-size limit, the segment caps, or after
+ * SEGMENT_SEARCH.staleSteps steps without a gain (src/plan/tuning.ts).
+ */
+import { RootcastError } from '../errors.js';
+import { FORMATS } from '../ir/round.js';
+import type { Family } from '../family/types.js';
+import type { Cell } from './box.js';
+import { candidatesOf, refusedCandidate, withCandidates } from './candidates.js';
+import { planSegments } from './plan-segments.js';
+import { SEGMENT_SEARCH } from './tuning.js';
+import type { Candidate, Plan } from './types.js';
+
+export function searchSegments(family: Family, box: Cell): Plan {
+  const d = family.inputs.length;
+  const candidates: Candidate[] = [];
+  const found: { best: Plan | null; firstError: RootcastError | null } = { best: null, firstError: null };
+  const tried = new Map<string, Plan | null>();
+  const attempt = (counts: number[]): Plan | null => {
+    const key = counts.join('x');
+    if (tried.has(key)) return tried.get(key)!;
+    const p = attemptNew(counts);
+    tried.set(key, p);
+    return p;
+  };
+  const attemptNew = (counts: number[]): Plan | null => {
+    try {
+      // Without a bracket there is no search: the one-box plan is the answer, so certify it thoroughly.
+      const p = planSegments(family, box, counts, !family.bracket);
+      candidates.push(...candidatesOf(p));
+      if (!found.best || p.cost < found.best.cost) found.best = p;
+      return p;
+    } catch (e) {
+      if (!(e instanceof RootcastError)) throw e;
+      found.firstError ??= e;
+      candidates.push(refusedCandidate(counts, e.message));
+      return null;
+    }
+  };
+  let current = new Array<number>(d).fill(1);
+  const currentPlan = attempt(current);
+  if (!family.bracket) {
+    if (!currentPlan) throw found.firstError!;
+    return withCandidates(currentPlan, candidatesOf(currentPlan));
+  }
+  let stale = 0;
+  for (let step = 0; step < SEGMENT_SEARCH.maxSteps && stale < SEGMENT_SEARCH.staleSteps; step++) {
+    const before = found.best?.cost ?? Infinity;
+    let next: { counts: number[]; plan: Plan | null } | null = null;
+    for (let i = 0; i < d; i++) {
+      const counts = current.map((k, j) => (j === i ? k * 2 : k));
+      if (counts[i]! > SEGMENT_SEARCH.maxPerInput || !tableFits(family, counts)) continue;
+      const plan = attempt(counts);
+      if (plan && (!next || !next.plan || plan.cost < next.plan.cost)) next = { counts, plan };
+      else if (!next) next = { counts, plan: null };
+    }
+    if (!next) break;
+    if (next.plan) current = next.counts;
+    else {
+      // Nothing possible yet: refine every input at once.
+      const all = current.map((k) => k * 2);
+      if (all.some((k) => k > SEGMENT_SEARCH.maxPerInput) || !tableFits(family, all)) break;
+      current = all;
+      attempt(all);
+    }
+    // Steps in a row without a cheaper plan end the search (none found yet does not count).
+    stale = found.best && found.best.cost >= before ? stale + 1 : 0;
+  }
+  if (!found.best) throw found.firstError!;
+  return withCandidates(found.best, candidates);
+}
+
+/** A coarse check before planning: the least table a segmented plan needs must fit. */
+function tableFits(family: Family, counts: readonly number[]): boolean {
+  const segments = counts.reduce((a, b) => a * b, 1);
+  return segments <= SEGMENT_SEARCH.maxTotal && segments * FORMATS[family.arithmetic].bytes * SEGMENT_SEARCH.minValuesPerSegment <= family.plan.maxTableBytes;
+}

@@ -1,0 +1,131 @@
+/**
+ * Every tuning constant of the planner, named once with the reason for its
+ * value. None of them can make a certified bound wrong: they decide how far
+ * the planner searches (which plan it finds, how long planning takes, where it
+ * gives up and says "more than"), never whether a bound holds. A change here
+ * can change plans: run `npm run samples` and the benchmarks afterwards.
+ */
+
+/** Hard limits of the search; beyond them a refusal says "more than" (src/plan/refusals.ts). */
+export const LIMITS = {
+  /** Highest series grade the order search looks at (to name the order needed past max_order). */
+  grade: 400,
+  /** Most hyper-Catalan terms kept at once: the term count grows combinatorially with the grade and the number of varying coefficients. */
+  terms: 20000,
+  /** Most cells one bound is certified over: a cell costs one interval analysis per candidate program. */
+  cells: 4096,
+} as const;
+
+/** The greedy search over segment counts (src/plan/segment-search.ts). */
+export const SEGMENT_SEARCH = {
+  /** Doubling steps at most: more than the 10 doublings that reach maxTotal, so the caps, not the step count, end a search that keeps improving. */
+  maxSteps: 12,
+  /** Steps in a row without a cheaper plan that end the search: one may be a plateau, two rarely are. */
+  staleSteps: 2,
+  /** Segments per input at most: a 1024-entry table is already larger than most callers want. */
+  maxPerInput: 1024,
+  /** Segments in all at most (the product over inputs), for the same reason. */
+  maxTotal: 1024,
+  /**
+   * Table values per segment below which no segmented plan can fit
+   * plan.max_table_bytes: a recentred series reads at least its expansion
+   * point x0 and one recentred coefficient per segment.
+   */
+  minValuesPerSegment: 2,
+} as const;
+
+/**
+ * The cells each segment starts with, in all (src/plan/box.ts `grid` takes
+ * the nearest power): enough that the first bound is not dominated by
+ * interval overestimation over wide cells, few enough that planning stays
+ * quick. More inputs get more cells because each input needs its own split.
+ */
+export const INITIAL_CELLS = {
+  /** Cells of the whole box, by number of inputs (1, 2, 3 or more), shared among the segments. */
+  total: [64, 256, 512] as const,
+  /** Cells per segment at least: two for one input, so a segment's bound never rests on one interval. */
+  leastPerSegment: [2, 1] as const,
+} as const;
+
+/** Cells per segment for `inputs` inputs and `segments` segments. */
+export function initialCellsPerSegment(inputs: number, segments: number): number {
+  const total = INITIAL_CELLS.total[Math.min(inputs, 3) - 1]!;
+  const least = INITIAL_CELLS.leastPerSegment[inputs === 1 ? 0 : 1];
+  return Math.max(least, Math.floor(total / segments));
+}
+
+/** Adaptive subdivision of the cells (src/plan/cell-set.ts). */
+export const SUBDIVISION = {
+  /** A cell narrower than this fraction of the box in every input is not split again (12 halvings). */
+  minFraction: 1 / 4096,
+  /** Rounds of repairing cells without a bound: 8 rounds narrow a bad cell 16-fold in each of two inputs, enough to undo interval overestimation. */
+  repairRounds: 8,
+  /** Bad cells growing by this factor per round (2 when both halves stay bad) cover a region, not an overestimation rim. */
+  regionGrowth: 1.7,
+  /** Rounds in a row of such growth after which a search trial stops repairing. */
+  regionRounds: 3,
+  /** Rounds of splitting the worst cells at most. */
+  refineRounds: 40,
+  /** Cells within this factor of the box bound count as the worst. */
+  worstShare: 0.9,
+  /** A round must lower the bound below this factor to count as a gain (a 2% gain). */
+  gain: 0.98,
+  /** Rounds in a row without a gain that end the refinement. */
+  staleRounds: 2,
+} as const;
+
+/** The order search of the graded series (src/plan/forms/series-order.ts). */
+export const ORDER_SEARCH = {
+  /**
+   * Refine the worst cells only when the truncation bound is within this
+   * window of the target: above half the target refinement may bring it under;
+   * beyond a thousand times the target no refinement will, and the next order
+   * is cheaper to try.
+   */
+  refineAbove: 1 / 2,
+  refineBelow: 1e3,
+  /** Truncation below this share of rounding is negligible: more terms cannot help, refuse at the rounding floor. */
+  negligibleTruncation: 0.05,
+  /** Rounding above this share of the target leaves too little room for any truncation: refuse at the floor. */
+  roundingFloorShare: 1 / 2,
+} as const;
+
+/** The Chebyshev-economised form (src/plan/forms/economised.ts). */
+export const ECONOMISE = {
+  /** Weighed for at most this many segments: exact Chebyshev arithmetic per segment is costly, and the form pays where segments are few and the degree high. */
+  maxSegments: 8,
+  /** Weighed up to this series order, for the same reason. */
+  maxOrder: 16,
+  /** Series orders past the graded plan's that are tried: more terms leave more of the target to economisation. */
+  extraOrders: 3,
+  /** The first budget is this share of the room the truncation leaves. */
+  firstBudget: 1 / 2,
+  /** Budgets are divided by this factor between trials. */
+  budgetStep: 4,
+  /** Budgets below this share of the room are not tried (two steps from the first). */
+  leastBudget: 1 / 32,
+} as const;
+
+/** The greedy term set (src/plan/forms/greedy.ts). */
+export const GREEDY = {
+  /** Grades past the graded plan's order that the greedy pool may draw on: a term of a higher grade can matter more than one of the order's own grade. */
+  extraGrades: 2,
+  /** Shares of the room left after rounding given to truncation, tried in turn until rounding of the smaller set fits too. */
+  truncationShares: [0.95, 0.8, 0.6] as const,
+} as const;
+
+/** The Newton-polished forms (src/plan/forms/polished.ts). */
+export const POLISH = {
+  /** Step counts weighed with plan.newton_steps: auto. Each step roughly doubles the correct digits, so two steps after even a short series reach most targets; a larger count is the user's choice (plan.newton_steps: N). */
+  autoSteps: [1, 2] as const,
+  /** Rounding above this share of the target does not shrink with the order: stop raising it. */
+  roundingStopShare: 1 / 2,
+} as const;
+
+/**
+ * A program whose computed values can come within this factor of the largest
+ * finite number is refused as overflowing: a safety margin chosen with the
+ * hardening tests (not derived), so that values near the range's end are
+ * never left to one rounding.
+ */
+export const OVERFLOW_HEADROOM = 4;

@@ -1,0 +1,69 @@
+/** What the planner hands on: a plan, its bound, and the candidates it weighed. */
+import type { OpCounts } from '../ir/count.js';
+import type { Program } from '../ir/nodes.js';
+import type { SeriesTerm } from '../series/hyper-catalan.js';
+import type { Family } from '../family/types.js';
+import type { RootChoice } from './root-choice.js';
+
+/**
+ * 'series': every term up to the order, evaluated as built; 'greedy': the
+ * series with a greedy term set (src/plan/term-choice.ts); 'economised':
+ * collapsed to a polynomial in the input and Chebyshev-economised.
+ */
+export type PlanForm = 'series' | 'greedy' | 'economised';
+
+export interface Bound {
+  readonly kind: 'absolute' | 'relative';
+  /** Series truncation (or, after Newton steps, the Newton error term left). */
+  readonly truncation: number;
+  /** Chebyshev economisation: the dropped coefficients (economised plans only). */
+  readonly economisation?: number;
+  readonly rounding: number;
+  readonly total: number;
+}
+
+/** One plan the search weighed (for `rootcast plan`'s table). */
+export interface Candidate {
+  readonly form: PlanForm;
+  readonly degree: number | null;
+  /** Segments per input, in spec order. */
+  readonly counts: readonly number[];
+  readonly order: number | null;
+  readonly terms: number | null;
+  /** Newton polish steps after the series (0 for none). */
+  readonly steps: number;
+  readonly ops: OpCounts | null;
+  readonly cost: number | null;
+  readonly bound: number | null;
+  /** Why it was not possible, in one line, or null. */
+  readonly refusal: string | null;
+  readonly chosen: boolean;
+}
+
+export interface Plan {
+  readonly family: Family;
+  readonly root: RootChoice;
+  readonly form: PlanForm;
+  readonly order: number;
+  /** Degree of the economised polynomial in the scaled input (null for the series form). */
+  readonly degree: number | null;
+  readonly terms: readonly SeriesTerm[];
+  /** Newton polish steps after the series (DESIGN.md 1.9); 0 for none. */
+  readonly steps: number;
+  readonly program: Program;
+  readonly bound: Bound;
+  /** Certified absolute error bound over the box (equals bound.total for absolute accuracy). */
+  readonly absoluteBound: number;
+  readonly target: number;
+  readonly ops: OpCounts;
+  /** Estimated Cortex-M4F cycles (the planner's cost model, src/plan/cost.ts). */
+  readonly cost: number;
+  /** Number of cells the bound was certified over. */
+  readonly cells: number;
+  /** Segments per input, in spec order (all 1 for one box), and the table size in bytes. */
+  readonly counts: readonly number[];
+  readonly tableBytes: number;
+  readonly candidates: readonly Candidate[];
+  /** Other forms weighed for the same segments (for the candidate table). */
+  readonly alternatives?: readonly Plan[];
+}
