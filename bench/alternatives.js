@@ -19,7 +19,7 @@ import { join, resolve } from 'node:path';
 import { emitInputOf, planSpec } from '../dist/cli/pipeline.js';
 import { cFunction } from '../dist/emit/c/function.js';
 import { evaluate } from '../dist/ir/evaluate.js';
-import { roundNumber } from '../dist/ir/round.js';
+import { roundNumber } from '../dist/family/arithmetic.js';
 import { countBranches } from '../dist/verify/branches.js';
 import { fractionOfNumber, subFractions, toRational } from '../dist/verify/fraction.js';
 import { makeMeasurer } from '../dist/verify/measure.js';

@@ -6,6 +6,7 @@ import { glslHarness } from '../emit/harness/glsl.js';
 import { tsHarness } from '../emit/harness/ts.js';
 import { tsFunction } from '../emit/ts/function.js';
 import type { EmitInput, EmittedFile } from '../emit/types.js';
+import { ARITHMETICS } from '../family/arithmetic.js';
 
 export type TargetName = 'c' | 'ts' | 'glsl';
 export const TARGETS: readonly TargetName[] = ['c', 'ts', 'glsl'];
@@ -29,7 +30,7 @@ export function emitFiles(input: EmitInput, targets: readonly TargetName[]): Emi
 /** The requested targets in TARGETS order, without glsl for a float64 program when others were requested too. */
 export function applicableTargets(input: EmitInput, targets: readonly TargetName[]): TargetName[] {
   const wanted = TARGETS.filter((t) => targets.includes(t));
-  if (wanted.length > 1 && input.program.arithmetic !== 'float32') return wanted.filter((t) => t !== 'glsl');
+  if (wanted.length > 1 && ARITHMETICS[input.program.arithmetic].glslType === null) return wanted.filter((t) => t !== 'glsl');
   return wanted;
 }
 

@@ -36,6 +36,7 @@
 import { countOps } from '../ir/count.js';
 import { UnknownNodeError, type Node, type Program } from '../ir/nodes.js';
 import { CORTEX_M4F_CYCLES as M4F, CORTEX_M4F_TABLE_READ_CYCLES } from '../ir/timings.js';
+import { ARITHMETICS } from '../family/arithmetic.js';
 
 /** Cycles per arithmetic IR node kind (see the table above); constants are charged per use in cortexM4fCycles. */
 const CYCLES: Readonly<Record<string, number>> = {
@@ -89,7 +90,7 @@ export type CycleEstimate =
   | { readonly kind: 'software-double' };
 
 export function cortexM4fCycles(program: Program): CycleEstimate {
-  if (program.arithmetic === 'float64') return { kind: 'software-double' };
+  if (!ARITHMETICS[program.arithmetic].m4fHardware) return { kind: 'software-double' };
   const usedConstants = new Set<number>();
   let cycles = 0;
   let fpuOps = 0;

@@ -11,7 +11,8 @@
  */
 import { countOps, type OpCounts } from '../ir/count.js';
 import { cycleHeaderLine } from './cycles.js';
-import type { Arithmetic, Family } from '../family/types.js';
+import type { Family } from '../family/types.js';
+import type { Arithmetic } from '../family/arithmetic.js';
 import { formatBoundUp } from './literals/round-up.js';
 import type { EmitInput } from './types.js';
 

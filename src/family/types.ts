@@ -3,7 +3,7 @@
  * Every number that came from the spec is kept as its exact decimal text, so
  * nothing is rounded before the planner decides what to round.
  */
-export type Arithmetic = 'float32' | 'float64';
+import type { Arithmetic } from './arithmetic.js';
 
 export interface Pos {
   /** 1-based line and column in the spec file. */

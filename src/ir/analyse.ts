@@ -26,7 +26,7 @@ import { addUp, divUp, mulUp, nextUp, subDown } from '../math/directed.js';
 import { iadd, idiv, imul, ineg, isub, mag, mig, containsZero, type Interval } from '../math/interval.js';
 import { Rational } from '../math/rational.js';
 import { UnknownNodeError, type Program } from './nodes.js';
-import { FORMATS } from './round.js';
+import { ARITHMETICS } from '../family/arithmetic.js';
 
 export interface Analysis {
   readonly values: Interval[];
@@ -48,9 +48,9 @@ export function analyse(
   opts: { flushToZero?: boolean; segment?: number } = {},
 ): Analysis {
   const segment = opts.segment ?? 0;
-  const f = FORMATS[program.arithmetic];
+  const f = ARITHMETICS[program.arithmetic];
   const u = f.u;
-  const minNormal = f.minSubnormal * 2 ** (f.bits - 1);
+  const minNormal = f.minNormal;
   const eta = opts.flushToZero ? minNormal : f.minSubnormal / 2;
   const values: Interval[] = new Array(program.nodes.length);
   const errors: number[] = new Array(program.nodes.length);

@@ -11,10 +11,10 @@
  * constants combined with a table is again one table.
  */
 import { Rational } from '../math/rational.js';
-import type { Arithmetic } from '../family/types.js';
+import type { Arithmetic } from '../family/arithmetic.js';
 import type { BinaryKind, Node, Program } from './nodes.js';
 import { operands, renumber } from './operands.js';
-import { roundTo } from './round.js';
+import { roundTo } from '../family/arithmetic.js';
 
 export type Ref = number;
 

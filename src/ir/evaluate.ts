@@ -4,12 +4,12 @@
  * binary32, which is exact because a binary64 result of one +,-,*,/ on binary32
  * operands rounds correctly to binary32: 53 >= 2*24 + 2).
  */
+import { ARITHMETICS } from '../family/arithmetic.js';
 import { UnknownNodeError, type Program } from './nodes.js';
 import { segmentNumber } from './segment-index.js';
 
 export function evaluate(program: Program, inputs: readonly number[]): number {
-  const f32 = program.arithmetic === 'float32';
-  const r = f32 ? Math.fround : (x: number) => x;
+  const r = ARITHMETICS[program.arithmetic].roundNumber;
   const v = new Float64Array(program.nodes.length);
   for (let i = 0; i < program.nodes.length; i++) {
     const n = program.nodes[i]!;

@@ -8,7 +8,7 @@
  * There are no branches and no loops by construction.
  */
 import type { Rational } from '../math/rational.js';
-import type { Arithmetic } from '../family/types.js';
+import type { Arithmetic } from '../family/arithmetic.js';
 
 export type BinaryKind = 'add' | 'sub' | 'mul' | 'div';
 
@@ -53,9 +53,10 @@ export interface IndexPart {
  * For any other t (huge, infinite, NaN) this still yields some integer, never
  * undefined behaviour. Then n is clamped to [0, count - 1] with integer
  * operations only (no branch): n &= ~(n >> 31); d = n - (count - 1); n -= d & ~(d >> 31).
- * So no input, inside the box or not, can read outside a table.
+ * So no input, inside the box or not, can read outside a table. M and the
+ * rule that reads n are in the arithmetic table (src/family/arithmetic.ts:
+ * segmentMagic, segmentRead).
  */
-export const SEGMENT_MAGIC = { float32: 12582912, float64: 6755399441055744 } as const;
 
 /**
  * CLAMP, the same in every target: two comparisons select the value, never a

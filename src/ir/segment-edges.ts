@@ -21,11 +21,11 @@
  * 1, so t is one of: input, sub(input, const), mul(input, const),
  * mul(sub(input, const), const), where the input may be clamped to its range. Any other shape is refused, not guessed at.
  */
-import { nextDown, nextUp, Rational } from '../math/rational.js';
-import type { Arithmetic } from '../family/types.js';
+import { Rational } from '../math/rational.js';
+import type { Arithmetic } from '../family/arithmetic.js';
 import { evaluate } from './evaluate.js';
 import type { Node, Program } from './nodes.js';
-import { roundNumber, roundTo } from './round.js';
+import { nextDownIn, nextUpIn, roundNumber, roundTo } from '../family/arithmetic.js';
 import { clampSegment, roundedSegment } from './segment-index.js';
 
 /** One input's range, as binary64 numbers (the checks' sample box). */
@@ -166,21 +166,4 @@ function switchPair(segmentAt: (x: number) => number, j: number, below: number, 
     else a = m;
   }
   return [a, b];
-}
-
-const f32 = new Float32Array(1);
-const u32 = new Uint32Array(f32.buffer);
-
-/** The next number of the target arithmetic above x (x finite and of that arithmetic). */
-export function nextUpIn(x: number, arith: Arithmetic): number {
-  if (arith === 'float64') return nextUp(x);
-  if (x === 0) return 2 ** -149;
-  f32[0] = x;
-  u32[0] = x > 0 ? u32[0]! + 1 : u32[0]! - 1;
-  return f32[0]!;
-}
-
-/** The next number of the target arithmetic below x (x finite and of that arithmetic). */
-export function nextDownIn(x: number, arith: Arithmetic): number {
-  return arith === 'float64' ? nextDown(x) : -nextUpIn(-x, arith);
 }

@@ -3,8 +3,9 @@
  * emitted code computes it: round by adding the magic constant in the target
  * arithmetic, read the low bits, clamp with integer operations.
  */
-import type { Arithmetic } from '../family/types.js';
-import { SEGMENT_MAGIC, type IndexPart } from './nodes.js';
+import type { Arithmetic } from '../family/arithmetic.js';
+import { ARITHMETICS } from '../family/arithmetic.js';
+import type { IndexPart } from './nodes.js';
 
 const f32 = new Float32Array(1);
 const u32 = new Uint32Array(f32.buffer);
@@ -12,11 +13,12 @@ const view = new DataView(new ArrayBuffer(8));
 
 /** round(t) by the magic-constant rule, as a signed 32-bit integer (any t, even NaN). */
 export function roundedSegment(t: number, arithmetic: Arithmetic): number {
-  if (arithmetic === 'float32') {
-    f32[0] = Math.fround(t + SEGMENT_MAGIC.float32);
+  const a = ARITHMETICS[arithmetic];
+  if (a.segmentRead === 'significand') {
+    f32[0] = a.roundNumber(t + a.segmentMagic);
     return (u32[0]! & 0x7fffff) - 0x400000;
   }
-  view.setFloat64(0, t + SEGMENT_MAGIC.float64, true);
+  view.setFloat64(0, t + a.segmentMagic, true);
   return view.getInt32(0, true);
 }
 

@@ -9,7 +9,7 @@
 import type { Interval } from '../math/interval.js';
 import { Rational } from '../math/rational.js';
 import { RootcastError } from '../errors.js';
-import { FORMATS, roundNumber, roundTo } from '../ir/round.js';
+import { ARITHMETICS, roundNumber, roundTo } from '../family/arithmetic.js';
 import type { Family } from '../family/types.js';
 import { locate } from './locate.js';
 
@@ -29,7 +29,7 @@ export function boxOf(family: Family): Box {
       if (Number.isFinite(roundTo(end, family.arithmetic))) continue;
       const name = family.inputs[i]!.name;
       throw new RootcastError(
-        `the range of ${name} reaches ${end.toNumber().toExponential(2)}, beyond the ${family.arithmetic} range (largest finite ${FORMATS[family.arithmetic].maxFinite.toExponential(2)}); ${family.arithmetic === 'float32' ? 'use arithmetic: float64 or ' : ''}rescale ${name}`,
+        `the range of ${name} reaches ${end.toNumber().toExponential(2)}, beyond the ${family.arithmetic} range (largest finite ${ARITHMETICS[family.arithmetic].maxFinite.toExponential(2)}); ${ARITHMETICS[family.arithmetic].wider ? `use arithmetic: ${ARITHMETICS[family.arithmetic].wider} or ` : ''}rescale ${name}`,
         locate(family, `inputs.${name}`),
       );
     }

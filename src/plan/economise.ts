@@ -10,7 +10,7 @@
  * One degree is used for every segment, so the cost is the same for every input.
  */
 import { Rational } from '../math/rational.js';
-import { roundTo } from '../ir/round.js';
+import { roundTo } from '../family/arithmetic.js';
 import type { Program } from '../ir/nodes.js';
 import { composeAffine, fromChebyshev, scaleArgument, toChebyshev } from '../series/chebyshev.js';
 import type { Family } from '../family/types.js';

@@ -8,7 +8,7 @@ import { RootcastError } from '../errors.js';
 import { addUp } from '../math/directed.js';
 import { analyse, largestComputed } from '../ir/analyse.js';
 import type { Program } from '../ir/nodes.js';
-import { FORMATS } from '../ir/round.js';
+import { ARITHMETICS } from '../family/arithmetic.js';
 import type { Family } from '../family/types.js';
 import { describeCell } from './box.js';
 import type { CellFacts } from './cell-bound.js';
@@ -35,9 +35,9 @@ export function evaluate(
   let hasExtra = false;
   for (const c of cells) {
     // float32 bounds allow for flushed subnormals too, so one bound holds on CPUs and GPUs.
-    const an = analyse(program, c.cell, { segment: c.segment, flushToZero: program.arithmetic === 'float32' });
+    const an = analyse(program, c.cell, { segment: c.segment, flushToZero: ARITHMETICS[program.arithmetic].boundsAllowFlush });
     const rnd = an.errors[program.result]!;
-    if (!Number.isFinite(rnd) || largestComputed(an) > FORMATS[program.arithmetic].maxFinite / OVERFLOW_HEADROOM) {
+    if (!Number.isFinite(rnd) || largestComputed(an) > ARITHMETICS[program.arithmetic].maxFinite / OVERFLOW_HEADROOM) {
       throw new RootcastError(
         `intermediate values can overflow ${program.arithmetic} (or a divisor can vanish) for ${describeCell(family, c.cell)}; use arithmetic: float64, rescale the unknown or narrow the input ranges`,
         locate(family, 'arithmetic'),

@@ -10,7 +10,7 @@
  * as planned, and now covers every input (src/ir/saturate.ts says why).
  */
 import { countOps, type OpCounts } from '../ir/count.js';
-import { roundTo } from '../ir/round.js';
+import { roundTo } from '../family/arithmetic.js';
 import { saturateInputs } from '../ir/saturate.js';
 import { Rational } from '../math/rational.js';
 import { programCost } from './cost.js';

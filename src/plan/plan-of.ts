@@ -1,7 +1,7 @@
 /** The one constructor of a Plan: every form builds its plans here. */
 import { countOps } from '../ir/count.js';
 import type { Program } from '../ir/nodes.js';
-import { FORMATS } from '../ir/round.js';
+import { ARITHMETICS } from '../family/arithmetic.js';
 import { programCost } from './cost.js';
 import type { Evaluated } from './evaluate.js';
 import type { FormContext } from './forms/context.js';
@@ -37,5 +37,5 @@ export function planOf(ctx: Pick<FormContext, 'family' | 'root' | 'target' | 'co
 export function tableBytesOf(program: Program): number {
   let n = 0;
   for (const node of program.nodes) if (node.kind === 'table') n += node.values.length;
-  return n * FORMATS[program.arithmetic].bytes;
+  return n * ARITHMETICS[program.arithmetic].bytes;
 }

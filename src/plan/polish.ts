@@ -24,12 +24,13 @@ import { Rational } from '../math/rational.js';
 import { analyse, largestComputed } from '../ir/analyse.js';
 import type { ProgramBuilder, Ref } from '../ir/builder.js';
 import type { Program } from '../ir/nodes.js';
-import { FORMATS } from '../ir/round.js';
+import { ARITHMETICS } from '../family/arithmetic.js';
 import type { SeriesTerm } from '../series/hyper-catalan.js';
 import type { Family } from '../family/types.js';
 import { cellTail, type CellFacts } from './cell-bound.js';
 import { WorstParts } from './worst-parts.js';
 import { prefixBuilder, seriesCore, type Expansion, type Prefix } from './series-program.js';
+import { OVERFLOW_HEADROOM } from './tuning.js';
 
 /** A signed term of a Horner sum: sign * value of ref. */
 interface Signed {
@@ -157,7 +158,7 @@ export function polishBound(
   for (const c of cells) {
     if (c.state.kind !== 'ok') throw new PolishFailure('diverges', c);
     // float32 bounds allow for flushed subnormals, as the series bounds do (one bound for CPUs and GPUs).
-    const ftz = { segment: c.segment, flushToZero: programs?.core.arithmetic === 'float32' };
+    const ftz = { segment: c.segment, flushToZero: programs ? ARITHMETICS[programs.core.arithmetic].boundsAllowFlush : false };
     let err = cellTail(c, order);
     if (programs) err = addUp(err, checked(analyse(programs.core, c.cell, ftz), programs.core, c));
     const spread = mulUp(c.R, Math.max(0, addUp(c.aUpper, -1)));
@@ -179,6 +180,6 @@ export function polishBound(
 /** The result's rounding bound, refusing values that may overflow or divisors that may vanish. */
 function checked(an: ReturnType<typeof analyse>, program: Program, c: CellFacts): number {
   const e = an.errors[program.result]!;
-  if (!Number.isFinite(e) || largestComputed(an) > FORMATS[program.arithmetic].maxFinite / 4) throw new PolishFailure('overflow', c);
+  if (!Number.isFinite(e) || largestComputed(an) > ARITHMETICS[program.arithmetic].maxFinite / OVERFLOW_HEADROOM) throw new PolishFailure('overflow', c);
   return e;
 }

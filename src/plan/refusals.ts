@@ -9,6 +9,7 @@ import type { CellFacts } from './cell-bound.js';
 import { poleOver, type Division } from './coefficient-poles.js';
 import { LIMITS } from './tuning.js';
 import { locate } from './locate.js';
+import { ARITHMETICS } from '../family/arithmetic.js';
 
 export function refuseBadCells(family: Family, cells: readonly CellFacts[], relative: boolean): void {
   const noSeries = cells.filter((c) => c.state.kind === 'unbounded' || c.state.kind === 'slope-vanishes');
@@ -99,7 +100,7 @@ function region(family: Family, cells: readonly CellFacts[]): string {
 export function refuseFloor(family: Family, total: number, rounding: number): never {
   const kind = family.accuracy.kind;
   throw new RootcastError(
-    `the target ${family.accuracy.value} is below the ${family.arithmetic} rounding floor of this plan: the best certified ${kind} error is ${short(total)} (rounding alone ${short(rounding)}); ${family.arithmetic === 'float32' ? 'use arithmetic: float64, ' : ''}loosen the accuracy or narrow the input ranges`,
+    `the target ${family.accuracy.value} is below the ${family.arithmetic} rounding floor of this plan: the best certified ${kind} error is ${short(total)} (rounding alone ${short(rounding)}); ${ARITHMETICS[family.arithmetic].wider ? `use arithmetic: ${ARITHMETICS[family.arithmetic].wider}, ` : ''}loosen the accuracy or narrow the input ranges`,
     locate(family, `accuracy.${kind}`),
   );
 }

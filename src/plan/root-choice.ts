@@ -7,7 +7,7 @@
  */
 import { RootcastError } from '../errors.js';
 import { Rational } from '../math/rational.js';
-import { roundTo } from '../ir/round.js';
+import { roundTo } from '../family/arithmetic.js';
 import { evalExprExact } from '../family/expr-eval.js';
 import { printExpr } from '../family/expr-print.js';
 import { showText } from '../family/show.js';

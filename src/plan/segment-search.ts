@@ -6,7 +6,7 @@
  * SEGMENT_SEARCH.staleSteps steps without a gain (src/plan/tuning.ts).
  */
 import { RootcastError } from '../errors.js';
-import { FORMATS } from '../ir/round.js';
+import { ARITHMETICS } from '../family/arithmetic.js';
 import type { Family } from '../family/types.js';
 import type { Cell } from './box.js';
 import { candidatesOf, refusedCandidate, withCandidates } from './candidates.js';
@@ -76,5 +76,5 @@ export function searchSegments(family: Family, box: Cell): Plan {
 /** A coarse check before planning: the least table a segmented plan needs must fit. */
 function tableFits(family: Family, counts: readonly number[]): boolean {
   const segments = counts.reduce((a, b) => a * b, 1);
-  return segments <= SEGMENT_SEARCH.maxTotal && segments * FORMATS[family.arithmetic].bytes * SEGMENT_SEARCH.minValuesPerSegment <= family.plan.maxTableBytes;
+  return segments <= SEGMENT_SEARCH.maxTotal && segments * ARITHMETICS[family.arithmetic].bytes * SEGMENT_SEARCH.minValuesPerSegment <= family.plan.maxTableBytes;
 }

@@ -12,7 +12,7 @@
 import { RootcastError } from '../errors.js';
 import { Rational } from '../math/rational.js';
 import type { Segmentation } from '../ir/builder.js';
-import { FORMATS, roundTo } from '../ir/round.js';
+import { ARITHMETICS, roundTo } from '../family/arithmetic.js';
 import type { Family } from '../family/types.js';
 import type { Cell } from './box.js';
 import { locate } from './locate.js';
@@ -34,8 +34,8 @@ export interface SegmentLayout {
  */
 export function layoutProblem(family: Family, box: Cell, counts: readonly number[]): string | null {
   const arith = family.arithmetic;
-  const f = FORMATS[arith];
-  const minNormal = f.minSubnormal * 2 ** (f.bits - 1);
+  const f = ARITHMETICS[arith];
+  const minNormal = f.minNormal;
   for (const [i, k] of counts.entries()) {
     if (k <= 1) continue;
     const { lo, hi } = box[i]!;
@@ -54,7 +54,7 @@ export function segmentLayout(family: Family, box: Cell, counts: readonly number
   const problem = layoutProblem(family, box, counts);
   if (problem) throw new RootcastError(`${problem}; use fewer segments (plan.segments: 1) or rescale the input`, locate(family, 'plan.segments'));
   const arith = family.arithmetic;
-  const u = FORMATS[arith].u;
+  const u = ARITHMETICS[arith].u;
   const centre = boxCentre(family);
   const split = counts.map((k, i) => ({ i, k })).filter((p) => p.k > 1);
   let stride = 1;

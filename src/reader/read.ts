@@ -18,7 +18,8 @@ import { readConstants } from './section-constants.js';
 import { readInputs, type InputsSection } from './section-inputs.js';
 import { readPlan } from './section-plan.js';
 import { readRoot } from './section-root.js';
-import type { Arithmetic, Expr, Family, OutsideBox, Pos } from '../family/types.js';
+import type { Expr, Family, OutsideBox, Pos } from '../family/types.js';
+import { ARITHMETICS, type Arithmetic } from '../family/arithmetic.js';
 import { parseSpecDocument } from './yaml-document.js';
 import { expectMap, refuseUnknownKeys, valueOf, type Entry } from './yaml-map.js';
 
@@ -39,7 +40,8 @@ export const SPEC_FIELDS = [
 
 const REQUIRED_FIELDS = ['function', 'unknown', 'degree', 'coefficients', 'inputs', 'accuracy', 'arithmetic'] as const;
 
-const ARITHMETIC: readonly Arithmetic[] = ['float32', 'float64'];
+/** The arithmetics, in the table's order (src/family/arithmetic.ts). */
+const ARITHMETIC = Object.keys(ARITHMETICS) as Arithmetic[];
 const OUTSIDE_BOX: readonly OutsideBox[] = ['extrapolate', 'saturate'];
 
 /** Highest degree a spec may ask for. */
@@ -77,7 +79,7 @@ export function readSpec(file: string, text: string, bytes?: Uint8Array): Family
   refuseUnusedInputs(ctx, coefficients.exprs, inputs);
   const bracket = readRoot(ctx, field('root'), positions);
   const accuracy = readAccuracy(ctx, must('accuracy'), positions);
-  const arithmetic = readChoice(ctx, valueOf(ctx, must('arithmetic'), 'float32 or float64'), 'arithmetic', ARITHMETIC).value;
+  const arithmetic = readChoice(ctx, valueOf(ctx, must('arithmetic'), ARITHMETIC.join(' or ')), 'arithmetic', ARITHMETIC).value;
   const plan = readPlan(ctx, field('plan'), positions);
   const outside = field('inputs_outside_box');
   const outsideBox = outside

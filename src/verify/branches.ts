@@ -19,6 +19,7 @@ import { spawnSync } from 'node:child_process';
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
+import { ARITHMETICS, type Arithmetic } from '../family/arithmetic.js';
 
 export type BranchTarget = 'x86-64' | 'cortex-m4f';
 
@@ -187,11 +188,11 @@ export interface BranchReport {
 export function checkEmittedBranches(
   header: { readonly path: string; readonly text: string },
   functionName: string,
-  arithmetic: 'float32' | 'float64',
+  arithmetic: Arithmetic,
   inputCount: number,
 ): BranchReport[] {
-  const type = arithmetic === 'float32' ? 'float' : 'double';
-  const targets: BranchTarget[] = arithmetic === 'float32' ? ['x86-64', 'cortex-m4f'] : ['x86-64'];
+  const type = ARITHMETICS[arithmetic].cType;
+  const targets: BranchTarget[] = ARITHMETICS[arithmetic].m4fHardware ? ['x86-64', 'cortex-m4f'] : ['x86-64'];
   const source = probeSource(header.path, functionName, type, inputCount);
   return targets
     .filter((t) => hasToolchain(t))

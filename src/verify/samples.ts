@@ -40,9 +40,10 @@
  */
 import { Rational } from '../math/rational.js';
 import type { Program } from '../ir/nodes.js';
-import { roundNumber } from '../ir/round.js';
+import { roundNumber } from '../family/arithmetic.js';
 import { edgeSamplePoints } from '../ir/segment-edges.js';
-import type { Arithmetic, Family } from '../family/types.js';
+import type { Family } from '../family/types.js';
+import type { Arithmetic } from '../family/arithmetic.js';
 
 export interface SampleBox {
   /** Nearest binary64 values of the spec's decimal range ends. */

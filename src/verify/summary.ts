@@ -13,7 +13,7 @@
  * KIND error none" when no point could be measured).
  */
 import { formatEUp } from '../emit/literals/round-up.js';
-import type { Arithmetic } from '../family/types.js';
+import type { Arithmetic } from '../family/arithmetic.js';
 import { formatE, formatG } from './printf.js';
 
 /** `GLSL` is the scalar GLSL function, `GLSL vec4` its vec4 overload (both run on WebGL2). */

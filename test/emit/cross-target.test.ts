@@ -11,7 +11,7 @@ import { afterAll, describe, expect, test } from '@jest/globals';
 import { cFunction } from '../../src/emit/c/function.js';
 import { tsFunction } from '../../src/emit/ts/function.js';
 import { evaluate } from '../../src/ir/evaluate.js';
-import type { Arithmetic } from '../../src/family/types.js';
+import type { Arithmetic } from '../../src/family/arithmetic.js';
 import { float32Bits, float64Bits } from './support/bits.js';
 import { exactIeeeEvaluate } from './support/exact-ieee.js';
 import { demoInput } from './support/family.js';

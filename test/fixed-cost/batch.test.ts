@@ -7,12 +7,12 @@
  */
 import { afterAll, describe, expect, test } from '@jest/globals';
 import { execFileSync } from 'node:child_process';
-import { C_TYPE } from '../../src/emit/c/body.js';
+import { ARITHMETICS } from '../../src/family/arithmetic.js';
 import { cFunction } from '../../src/emit/c/function.js';
 import { tsFunction } from '../../src/emit/ts/function.js';
 import { transpileTs, typeCheckTs } from '../../src/emit/ts/typecheck.js';
 import { evaluate } from '../../src/ir/evaluate.js';
-import type { Arithmetic } from '../../src/family/types.js';
+import type { Arithmetic } from '../../src/family/arithmetic.js';
 import { float64Bits } from '../emit/support/bits.js';
 import { demoInput } from '../emit/support/family.js';
 import { samplePoints } from '../emit/support/inputs.js';
@@ -22,7 +22,7 @@ import { makeWorkDir } from '../emit/support/workdir.js';
 
 const dir = makeWorkDir('batch');
 afterAll(() => dir.remove());
-const ARITHMETICS: Arithmetic[] = ['float32', 'float64'];
+const ARITHMETIC_NAMES: Arithmetic[] = ['float32', 'float64'];
 
 describe('C NAME_batch', () => {
   test('the signature takes restrict input arrays, the output and a count', () => {
@@ -33,11 +33,11 @@ describe('C NAME_batch', () => {
     expect(cFunction(demoInput(quadraticSeries('float64').program)).text).toContain('double *restrict rc_out, size_t rc_n)');
   });
 
-  test.each(ARITHMETICS)('gives the scalar results bit for bit, compiled with -std=c99 -pedantic -Werror at -O3 (%s)', (arithmetic) => {
+  test.each(ARITHMETIC_NAMES)('gives the scalar results bit for bit, compiled with -std=c99 -pedantic -Werror at -O3 (%s)', (arithmetic) => {
     for (const make of [sqrtTaylor, quadraticSeries, literalZoo, unusedArgument]) {
       const { program, box } = make(arithmetic);
       const header = cFunction(demoInput(program, { functionName: `b_${make.name}` }));
-      const type = C_TYPE[arithmetic];
+      const type = ARITHMETICS[arithmetic].cType;
       const k = program.inputs.length;
       const rows = samplePoints(box, arithmetic, 37, 5);
       const n = rows.length;
@@ -75,7 +75,7 @@ int main(void)
 });
 
 describe('TypeScript NAME_batch', () => {
-  test.each(ARITHMETICS)('type-checks strict with no unused names, for every sample program (%s)', (arithmetic) => {
+  test.each(ARITHMETIC_NAMES)('type-checks strict with no unused names, for every sample program (%s)', (arithmetic) => {
     const files = ALL_SAMPLES.map((make) => tsFunction(demoInput(make(arithmetic).program, { functionName: `s_${make.name}` })));
     for (const f of files) expect(f.text).toMatch(/export function s_\w+_batch\(/);
     expect(typeCheckTs(files, { noUnused: true })).toEqual([]);
@@ -87,7 +87,7 @@ describe('TypeScript NAME_batch', () => {
     expect(typeCheckTs([file, misuse]).join('\n')).toMatch(/use\.ts:2:\d+: TS2345/);
   });
 
-  test.each(ARITHMETICS)('fills the output with the scalar results over Float32Array and Float64Array inputs (%s)', (arithmetic) => {
+  test.each(ARITHMETIC_NAMES)('fills the output with the scalar results over Float32Array and Float64Array inputs (%s)', (arithmetic) => {
     const { program, box } = quadraticSeries(arithmetic);
     const file = tsFunction(demoInput(program));
     const [js] = transpileTs([file]);

@@ -34,7 +34,7 @@
  */
 import { afterAll, describe, expect, test } from '@jest/globals';
 import { execFileSync, spawnSync } from 'node:child_process';
-import { C_TYPE } from '../../src/emit/c/body.js';
+import { ARITHMETICS, nextDownIn, nextUpIn } from '../../src/family/arithmetic.js';
 import { cortexM4fCycles, cycleHeaderLine } from '../../src/emit/cycles.js';
 import { compileAndCount, hasToolchain, probeName, probeSource, type BranchTarget } from '../../src/verify/branches.js';
 import { checkSamplePoints, inputBox } from '../../src/verify/samples.js';
@@ -79,19 +79,8 @@ const POINTS = 1000;
 
 /** The float just inside each box end, for each input in turn (the others at the box centre). */
 function edgeNeighbours(box: readonly { lo: number; hi: number }[], f32: boolean): number[][] {
-  const step = (x: number, up: boolean): number => {
-    const view = new DataView(new ArrayBuffer(8));
-    if (f32) {
-      view.setFloat32(0, x);
-      const bits = view.getUint32(0);
-      view.setUint32(0, x >= 0 === up ? bits + 1 : bits - 1);
-      return view.getFloat32(0);
-    }
-    view.setFloat64(0, x);
-    const bits = view.getBigUint64(0);
-    view.setBigUint64(0, x >= 0 === up ? bits + 1n : bits - 1n);
-    return view.getFloat64(0);
-  };
+  const arith = f32 ? 'float32' : 'float64';
+  const step = (x: number, up: boolean): number => (up ? nextUpIn(x, arith) : nextDownIn(x, arith));
   const round = f32 ? Math.fround : (x: number) => x;
   const centre = box.map((b) => round((b.lo + b.hi) / 2));
   const out: number[][] = [];
@@ -118,7 +107,7 @@ describe('every input costs the same instructions (callgrind)', () => {
     expect(points.length).toBeGreaterThanOrEqual(POINTS);
     dir.write(header.path, header.text);
     const exe = `${name}_cg`;
-    dir.write(`${exe}.c`, fixedCostDriver(header.path, name, C_TYPE[program.arithmetic], program.inputs.length));
+    dir.write(`${exe}.c`, fixedCostDriver(header.path, name, ARITHMETICS[program.arithmetic].cType, program.inputs.length));
     execFileSync('gcc', ['-std=c99', '-O2', '-o', exe, `${exe}.c`], { cwd: dir.path });
     dir.write(`${exe}.in`, points.map((p) => p.map((v) => v.toPrecision(17)).join(' ')).join('\n') + '\n');
 
@@ -136,7 +125,7 @@ describe('every input costs the same instructions (callgrind)', () => {
 describe('the batch companion vectorises with gcc -O3 on x86-64', () => {
   test.each(exampleSpecs())('%s', (spec) => {
     const { name, input, header } = cExample(spec);
-    const type = C_TYPE[input.program.arithmetic];
+    const type = ARITHMETICS[input.program.arithmetic].cType;
     dir.write(header.path, header.text);
     const params = [...input.program.inputs.map((_, i) => `const ${type} *a${i}`), `${type} *out`, 'size_t n'].join(', ');
     const args = [...input.program.inputs.map((_, i) => `a${i}`), 'out', 'n'].join(', ');

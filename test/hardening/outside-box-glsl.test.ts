@@ -46,6 +46,7 @@ import { emitGlslExample } from '../glsl/support/examples.js';
 import { snippetProbes, type Probe } from '../glsl/support/probes.js';
 import { fragmentShader, openShaderBrowser, type ShaderBrowser } from '../glsl/support/shader-run.js';
 import { runEmittedTs } from '../glsl/support/ts-function.js';
+import { nextDownIn, nextUpIn } from '../../src/family/arithmetic.js';
 
 /** Segmented (ease-in-out 128, spring-scale 64, gas-wide 16 x 8 segments) and unsegmented float32 examples. */
 const EXAMPLES: readonly { spec: string; segmented: boolean }[] = [
@@ -66,17 +67,9 @@ const fromBits = (b: number): number => {
   u32[0] = b;
   return f32[0]!;
 };
-const bitsOf = (v: number): number => {
-  f32[0] = v;
-  return u32[0]!;
-};
 const hex = (b: number): string => b.toString(16).padStart(8, '0');
 /** The next binary32 value above (up) or below a finite binary32 value. */
-function step32(v: number, up: boolean): number {
-  if (v === 0) return up ? 2 ** -149 : -(2 ** -149);
-  const b = bitsOf(v);
-  return fromBits(v > 0 === up ? b + 1 : b - 1);
-}
+const step32 = (v: number, up: boolean): number => (up ? nextUpIn(v, 'float32') : nextDownIn(v, 'float32'));
 
 interface Case {
   readonly label: string;

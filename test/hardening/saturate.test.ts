@@ -21,7 +21,7 @@ import { emitFiles } from '../../src/cli/emit-files.js';
 import { emitInputOf } from '../../src/cli/pipeline.js';
 import type { EmitInput } from '../../src/emit/types.js';
 import { transpileTs } from '../../src/emit/ts/typecheck.js';
-import { roundTo } from '../../src/ir/round.js';
+import { roundTo } from '../../src/family/arithmetic.js';
 import { Rational } from '../../src/math/rational.js';
 import { makePlan } from '../../src/plan/plan.js';
 import { readSpec } from '../../src/reader/read.js';

@@ -19,7 +19,8 @@ import { Rational } from '../../src/math/rational.js';
 import { boxOf } from '../../src/plan/box.js';
 import { segmentLayout, type SegmentLayout } from '../../src/plan/segments.js';
 import { loadSpec } from '../../src/reader/load.js';
-import type { Arithmetic, Family } from '../../src/family/types.js';
+import type { Family } from '../../src/family/types.js';
+import type { Arithmetic } from '../../src/family/arithmetic.js';
 import { inputBox } from '../../src/verify/samples.js';
 import { adjacent } from './support/adjacent.js';
 

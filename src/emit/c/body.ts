@@ -10,16 +10,15 @@
  * precision); with -std=c99 gcc also does not contract a*b+c into a fused
  * multiply-add. The C result is then bit-identical to evaluate().
  */
-import { SEGMENT_MAGIC, UnknownNodeError, type IndexPart, type Node, type Program } from '../../ir/nodes.js';
+import { ARITHMETICS } from '../../family/arithmetic.js';
+import { UnknownNodeError, type IndexPart, type Node, type Program } from '../../ir/nodes.js';
 import { cLiteral, cOperand } from '../literals/c.js';
 import { valueName } from '../names.js';
 import { readInputs } from '../read-inputs.js';
 import { operandText, resultText, type OperandStyle } from '../operands.js';
 
-export const C_TYPE = { float32: 'float', float64: 'double' } as const;
-
 export function cBodyLines(program: Program, name: string): string[] {
-  const type = C_TYPE[program.arithmetic];
+  const type = ARITHMETICS[program.arithmetic].cType;
   const lines: string[] = [];
   const read = readInputs(program);
   program.inputs.forEach((name, i) => {
@@ -68,17 +67,17 @@ function cExpression(program: Program, node: Node, at: number): string | null {
  * Right shifts of negative int32_t are arithmetic in gcc and clang.
  */
 function cIndexLines(program: Program, parts: readonly IndexPart[], at: number): string[] {
-  const f32 = program.arithmetic === 'float32';
-  const type = C_TYPE[program.arithmetic];
+  const a = ARITHMETICS[program.arithmetic];
+  const significand = a.segmentRead === 'significand';
   const lines: string[] = [];
   const terms: string[] = [];
   parts.forEach((p, k) => {
     const t = cReference(program, p.t, at);
     const s = `rc_s${at}_${k}`;
-    const magic = cLiteral(SEGMENT_MAGIC[program.arithmetic], program.arithmetic);
-    lines.push(`union { ${type} f; ${f32 ? 'uint32_t' : 'uint64_t'} u; } ${s}b = { ${t} + ${magic} };`);
+    const magic = cLiteral(a.segmentMagic, program.arithmetic);
+    lines.push(`union { ${a.cType} f; ${a.cBitsType} u; } ${s}b = { ${t} + ${magic} };`);
     lines.push(
-      f32
+      significand
         ? `const int32_t ${s}r = (int32_t)(${s}b.u & 0x7fffffu) - 0x400000;`
         : `const int32_t ${s}r = (int32_t)(uint32_t)(${s}b.u & 0xffffffffu);`,
     );
@@ -100,9 +99,9 @@ function cIndexLines(program: Program, parts: readonly IndexPart[], at: number):
  * NaN fails both comparisons and keeps its own bits.
  */
 function cClampLines(program: Program, node: Extract<Node, { kind: 'clamp' }>, at: number): string[] {
-  const f32 = program.arithmetic === 'float32';
-  const type = C_TYPE[program.arithmetic];
-  const bits = f32 ? 'uint32_t' : 'uint64_t';
+  const facts = ARITHMETICS[program.arithmetic];
+  const type = facts.cType;
+  const bits = facts.cBitsType;
   const x = cReference(program, node.a, at);
   const lo = cLiteral(node.lo, program.arithmetic);
   const hi = cLiteral(node.hi, program.arithmetic);
@@ -117,7 +116,7 @@ function cClampLines(program: Program, node: Extract<Node, { kind: 'clamp' }>, a
 
 /** A per-segment constant: one read of its table (the table itself is at file scope, cTableDefinitions). */
 function cTableLines(program: Program, node: Extract<Node, { kind: 'table' }>, at: number, name: string): string[] {
-  const type = C_TYPE[program.arithmetic];
+  const type = ARITHMETICS[program.arithmetic].cType;
   return [`const ${type} ${valueName(at)} = ${cTableName(name, at)}[${valueName(node.index)}];`];
 }
 
@@ -140,7 +139,7 @@ function cTableMacro(name: string): string {
  * (one copy per translation unit that reads it, as before).
  */
 export function cTableDefinitions(program: Program, name: string): string[] {
-  const type = C_TYPE[program.arithmetic];
+  const type = ARITHMETICS[program.arithmetic].cType;
   if (!program.nodes.some((n) => n.kind === 'table')) return [];
   const macro = cTableMacro(name);
   const out: string[] = [

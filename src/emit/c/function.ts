@@ -15,14 +15,15 @@ import { assertCommentSafe, headerLines } from '../header.js';
 import { assertUserName } from '../names.js';
 import { renderTemplate } from '../templates.js';
 import type { EmitInput, EmittedFile } from '../types.js';
-import { C_TYPE, cBodyLines, cTableDefinitions } from './body.js';
+import { ARITHMETICS } from '../../family/arithmetic.js';
+import { cBodyLines, cTableDefinitions } from './body.js';
 
 export function cFunction(input: EmitInput): EmittedFile {
   const { program, family } = input;
   const name = family.functionName;
   assertUserName(name, 'function name');
   program.inputs.forEach((n) => assertUserName(n, 'input name'));
-  const type = C_TYPE[program.arithmetic];
+  const type = ARITHMETICS[program.arithmetic].cType;
   const parameters = program.inputs.length === 0 ? 'void' : program.inputs.map((n) => `${type} ${n}`).join(', ');
   const text = renderTemplate('c/function.h.hbs', {
     guard: `ROOTCAST_${name.toUpperCase()}_H`,

@@ -21,6 +21,7 @@
  * and ES 3.00 have no `precise`), which is why the header states what the
  * bound assumes about the implementation.
  */
+import { ARITHMETICS } from '../../family/arithmetic.js';
 import { UnknownNodeError, type IndexPart, type Node, type Program } from '../../ir/nodes.js';
 import { glslLiteral, glslOperand } from '../literals/glsl.js';
 import { valueName } from '../names.js';
@@ -29,7 +30,7 @@ import { operandText, resultText, type OperandStyle } from '../operands.js';
 export type GlslShape = 'float' | 'vec4';
 
 export function glslBodyLines(program: Program, shape: GlslShape, name: string): string[] {
-  if (program.arithmetic !== 'float32') throw new RangeError(`GLSL code is float32 only; the program computes in ${program.arithmetic}`);
+  if (ARITHMETICS[program.arithmetic].glslType === null) throw new RangeError(`GLSL has no ${program.arithmetic}; the program computes in ${program.arithmetic}`);
   const vector = vectorNodes(program, shape);
   const lines: string[] = [];
   program.nodes.forEach((node, i) => lines.push(...glslNodeLines(program, node, i, vector, name)));

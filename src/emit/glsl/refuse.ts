@@ -4,10 +4,11 @@
  * located line, exit 2, as every refusal (src/errors.ts).
  */
 import { RootcastError } from '../../errors.js';
+import { ARITHMETICS } from '../../family/arithmetic.js';
 import type { Family } from '../../family/types.js';
 
 export function refuseUnlessFloat32(family: Family): void {
-  if (family.arithmetic === 'float32') return;
+  if (ARITHMETICS[family.arithmetic].glslType !== null) return;
   const pos = family.positions['arithmetic'] ?? { line: 1, column: 1 };
   throw new RootcastError('GLSL has no float64 in ES 3.00: set arithmetic: float32 to emit GLSL', {
     file: family.file,

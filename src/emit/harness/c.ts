@@ -13,6 +13,7 @@ import { renderTemplate } from '../templates.js';
 import type { EmitInput, EmittedFile } from '../types.js';
 import { cConstantName, cRealDecimal, cRealExpr } from './c-expr.js';
 import { harnessParts } from './family-parts.js';
+import { ARITHMETICS } from '../../family/arithmetic.js';
 
 /** The command the harness is built with (also printed in its header comment). */
 export function cHarnessCompileCommand(name: string): string {
@@ -29,8 +30,8 @@ export function cHarness(input: EmitInput): EmittedFile {
     commentLines: parts.commentLines,
     compileCommand: cHarnessCompileCommand(name),
     name,
-    floatType: family.arithmetic === 'float32' ? 'float' : 'double',
-    floatBits: family.arithmetic === 'float32' ? '32' : '64',
+    floatType: ARITHMETICS[family.arithmetic].cType,
+    floatBits: String(ARITHMETICS[family.arithmetic].bytes * 8),
     inputCount: String(parts.inputNames.length),
     degree: String(family.degree),
     relative: claims.bound.kind === 'relative' ? '1' : '0',

@@ -13,6 +13,7 @@ import { renderTemplate } from '../templates.js';
 import type { EmitInput, EmittedFile } from '../types.js';
 import { harnessParts } from './family-parts.js';
 import { tsConstantName, tsRationalDecimal, tsRationalExpr } from './ts-expr.js';
+import { ARITHMETICS } from '../../family/arithmetic.js';
 
 /** How the harness is built (also printed in its header comment). */
 export function tsHarnessCompileCommand(name: string): string {
@@ -38,7 +39,7 @@ export function tsHarness(input: EmitInput): EmittedFile {
     target: double(claims.target),
     absoluteBound: double(claims.absoluteBound),
     relative: claims.bound.kind === 'relative' ? 'true' : 'false',
-    float32: family.arithmetic === 'float32' ? 'true' : 'false',
+    float32: ARITHMETICS[family.arithmetic].tsRound ? 'true' : 'false',
     constantLines: parts.usedConstants.map((c) => `const ${tsConstantName(c)}: RcQ = ${tsRationalDecimal(family.constants[c]!)};`),
     bracket: family.bracket ? `[${tsRationalDecimal(family.bracket[0])}, ${tsRationalDecimal(family.bracket[1])}]` : 'null',
     coefficients: Array.from({ length: family.degree + 1 }, (_, k) => {

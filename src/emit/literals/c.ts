@@ -12,7 +12,7 @@
  * | float64    | 0.1        | `0.1`           |
  * | float64    | -0         | `-0.0`          |
  */
-import type { Arithmetic } from '../../family/types.js';
+import type { Arithmetic } from '../../family/arithmetic.js';
 import { layoutLikeEcmaScript } from './decimal-text.js';
 import { shortestFloat32Digits } from './shortest-float32.js';
 

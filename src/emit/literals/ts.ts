@@ -10,7 +10,7 @@
  * | float64    | 0.01    | `0.01`                   |
  * | either     | -0      | `-0`                     |
  */
-import type { Arithmetic } from '../../family/types.js';
+import type { Arithmetic } from '../../family/arithmetic.js';
 
 export function tsLiteral(value: number, arithmetic: Arithmetic): string {
   if (!Number.isFinite(value)) throw new RangeError(`no literal for a non-finite value: ${value}`);

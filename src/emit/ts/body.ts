@@ -11,19 +11,20 @@
  * is not wrapped. The result is then bit-identical to evaluate() and to the C
  * function.
  */
-import { SEGMENT_MAGIC, UnknownNodeError, type IndexPart, type Node, type Program } from '../../ir/nodes.js';
+import { ARITHMETICS } from '../../family/arithmetic.js';
+import { UnknownNodeError, type IndexPart, type Node, type Program } from '../../ir/nodes.js';
 import { tsLiteral, tsOperand } from '../literals/ts.js';
 import { valueName } from '../names.js';
 import { readInputs } from '../read-inputs.js';
 import { operandText, resultText, type OperandStyle } from '../operands.js';
 
 export function tsStatements(program: Program): string[] {
-  const f32 = program.arithmetic === 'float32';
+  const round = ARITHMETICS[program.arithmetic].tsRound;
   const read = readInputs(program);
   const lines: string[] = [];
   program.inputs.forEach((name, i) => {
     if (!read.has(i)) lines.push(`void ${name};`);
-    else if (f32) lines.push(`const ${roundedInputName(name)} = Math.fround(${name});`);
+    else if (round) lines.push(`const ${roundedInputName(name)} = ${round}(${name});`);
   });
   program.nodes.forEach((node, i) => {
     if (node.kind === 'index') lines.push(...tsIndexLines(program, node.parts, i));
@@ -62,7 +63,7 @@ export function tsModuleStatements(program: Program): string[] {
   const out: string[] = [];
   if (program.nodes.some((n) => n.kind === 'index')) {
     out.push(
-      program.arithmetic === 'float32'
+      ARITHMETICS[program.arithmetic].segmentRead === 'significand'
         ? 'const rc_f32 = new Float32Array(1);\nconst rc_u32 = new Uint32Array(rc_f32.buffer);'
         : 'const rc_f64 = new DataView(new ArrayBuffer(8));',
     );
@@ -83,14 +84,14 @@ export function tsModuleStatements(program: Program): string[] {
  * binary64) and its bits read back, then clamped with integer operations.
  */
 function tsIndexLines(program: Program, parts: readonly IndexPart[], at: number): string[] {
-  const f32 = program.arithmetic === 'float32';
+  const a = ARITHMETICS[program.arithmetic];
   const lines: string[] = [];
   const terms: string[] = [];
   parts.forEach((p, k) => {
     const t = tsReference(program, p.t, at);
     const s = `rc_s${at}_${k}`;
-    const magic = tsLiteral(SEGMENT_MAGIC[program.arithmetic], program.arithmetic);
-    if (f32) {
+    const magic = tsLiteral(a.segmentMagic, program.arithmetic);
+    if (a.segmentRead === 'significand') {
       lines.push(`rc_f32[0] = ${t} + ${magic};`);
       lines.push(`const ${s}r = (rc_u32[0]! & 0x7fffff) - 0x400000;`);
     } else {
@@ -113,7 +114,8 @@ export function roundedInputName(name: string): string {
 
 function tsExpression(program: Program, node: Node, at: number): string | null {
   const ref = (r: number): string => tsReference(program, r, at);
-  const rounded = (e: string): string => (program.arithmetic === 'float32' ? `Math.fround(${e})` : e);
+  const round = ARITHMETICS[program.arithmetic].tsRound;
+  const rounded = (e: string): string => (round ? `${round}(${e})` : e);
   switch (node.kind) {
     case 'const':
     case 'input':
@@ -136,7 +138,7 @@ function tsExpression(program: Program, node: Node, at: number): string | null {
 const tsStyle = (program: Program): OperandStyle => ({
   operand: (v) => tsOperand(v, program.arithmetic),
   literal: (v) => tsLiteral(v, program.arithmetic),
-  input: (name) => (program.arithmetic === 'float32' ? roundedInputName(name) : name),
+  input: (name) => (ARITHMETICS[program.arithmetic].tsRound ? roundedInputName(name) : name),
 });
 
 function tsReference(program: Program, r: number, at: number): string {

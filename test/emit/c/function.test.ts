@@ -8,7 +8,7 @@ import { execFileSync } from 'node:child_process';
 import { cFunction } from '../../../src/emit/c/function.js';
 import type { Program } from '../../../src/ir/nodes.js';
 import { UnknownNodeError } from '../../../src/ir/nodes.js';
-import type { Arithmetic } from '../../../src/family/types.js';
+import type { Arithmetic } from '../../../src/family/arithmetic.js';
 import { demoInput } from '../support/family.js';
 import { ALL_SAMPLES, constantResult, identity, quadraticSeries, sqrtTaylor, unusedArgument } from '../support/programs.js';
 import { gcc } from '../support/run-c.js';

@@ -10,7 +10,7 @@ import { join } from 'node:path';
 import fc from 'fast-check';
 import { cLiteral, cOperand } from '../../../src/emit/literals/c.js';
 import { Rational } from '../../../src/math/rational.js';
-import type { Arithmetic } from '../../../src/family/types.js';
+import type { Arithmetic } from '../../../src/family/arithmetic.js';
 import { float32Bits, float64Bits } from '../support/bits.js';
 import { gcc } from '../support/run-c.js';
 import { makeWorkDir } from '../support/workdir.js';

@@ -5,7 +5,7 @@
  * points and C receives exactly the values TypeScript does.
  */
 import fc from 'fast-check';
-import type { Arithmetic } from '../../../src/family/types.js';
+import type { Arithmetic } from '../../../src/family/arithmetic.js';
 
 export function samplePoints(box: readonly (readonly [number, number])[], arithmetic: Arithmetic, count: number, seed: number): number[][] {
   const round = arithmetic === 'float32' ? Math.fround : (x: number) => x;

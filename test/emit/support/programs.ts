@@ -6,7 +6,7 @@
 import { ProgramBuilder, type Ref } from '../../../src/ir/builder.js';
 import type { Program } from '../../../src/ir/nodes.js';
 import { Rational } from '../../../src/math/rational.js';
-import type { Arithmetic } from '../../../src/family/types.js';
+import type { Arithmetic } from '../../../src/family/arithmetic.js';
 
 export interface SampleProgram {
   readonly label: string;

@@ -6,7 +6,7 @@
 import { execFileSync } from 'node:child_process';
 import { join } from 'node:path';
 import type { Program } from '../../../src/ir/nodes.js';
-import { C_TYPE } from '../../../src/emit/c/body.js';
+import { ARITHMETICS } from '../../../src/family/arithmetic.js';
 import type { EmittedFile } from '../../../src/emit/types.js';
 import type { WorkDir } from './workdir.js';
 import { float32Bits, float64Bits } from './bits.js';
@@ -30,7 +30,7 @@ export function gcc(dir: WorkDir, args: readonly string[]): string {
  */
 export function cDriver(header: EmittedFile, program: Program, functionName: string): string {
   const f32 = program.arithmetic === 'float32';
-  const type = C_TYPE[program.arithmetic];
+  const type = ARITHMETICS[program.arithmetic].cType;
   const word = f32 ? 'uint32_t' : 'uint64_t';
   const scan = f32 ? 'SCNx32' : 'SCNx64';
   const print = f32 ? '"%08" PRIx32' : '"%016" PRIx64';

@@ -10,7 +10,7 @@ import { tsFunction } from '../../../src/emit/ts/function.js';
 import { typeCheckTs } from '../../../src/emit/ts/typecheck.js';
 import { evaluate } from '../../../src/ir/evaluate.js';
 import { UnknownNodeError, type Program } from '../../../src/ir/nodes.js';
-import type { Arithmetic } from '../../../src/family/types.js';
+import type { Arithmetic } from '../../../src/family/arithmetic.js';
 import { float64Bits } from '../support/bits.js';
 import { demoInput } from '../support/family.js';
 import { ALL_SAMPLES, constantResult, identity, quadraticSeries, sqrtTaylor, unusedArgument } from '../support/programs.js';

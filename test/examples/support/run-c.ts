@@ -8,7 +8,7 @@
 import { execFileSync } from 'node:child_process';
 import { join } from 'node:path';
 import type { EmittedFile } from '../../../src/emit/types.js';
-import type { Arithmetic } from '../../../src/family/types.js';
+import type { Arithmetic } from '../../../src/family/arithmetic.js';
 import { fromHex, hexOf } from './bits.js';
 import type { WorkDir } from './workdir.js';
 

@@ -3,7 +3,7 @@
  * (+1 moves away from zero): an independent way to get float neighbours,
  * for checking the edge points rootcast computes with its own nextUp/nextDown.
  */
-import type { Arithmetic } from '../../../src/family/types.js';
+import type { Arithmetic } from '../../../src/family/arithmetic.js';
 
 const view = new DataView(new ArrayBuffer(8));
 

@@ -1,0 +1,147 @@
+/**
+ * The numeric contract, once: the arithmetics the emitted code computes in,
+ * as one literal union with one row of facts each. Every stage reads this
+ * table instead of comparing names; a new arithmetic is one row here, and the
+ * compiler then lists every place that must learn about it.
+ *
+ * | arithmetic | kind  | p  | u = 2^-p | smallest subnormal | largest finite       | bytes | C      | GLSL  | TS rounding | segment magic 1.5 * 2^(p-1) |
+ * |------------|-------|----|----------|--------------------|----------------------|-------|--------|-------|-------------|-----------------------------|
+ * | float32    | float | 24 | 2^-24    | 2^-149             | (2 - 2^-23) * 2^127  | 4     | float  | float | Math.fround | 12582912 = 1.5 * 2^23       |
+ * | float64    | float | 53 | 2^-53    | 2^-1074            | (2 - 2^-52) * 2^1023 | 8     | double | none  | none        | 6755399441055744 = 1.5 * 2^52 |
+ *
+ * Source: IEEE 754-2019, table 3.5 (binary32, binary64 parameters); GLSL ES
+ * 3.00 has no double type (GLSL ES 3.00.6, section 4.1); both from memory.
+ *
+ * A fixed-point arithmetic joins as a row of its own with `kind: 'fixed'`:
+ * make `ArithmeticFacts` the union `FloatFacts | FixedFacts`, where
+ * `FixedFacts` carries its integer format (word bytes, fraction bits, C
+ * integer type) and no float-only facts; the compiler then names every
+ * reader of a float-only fact (u, subnormals, the segment magic), and each
+ * narrows on `kind`.
+ */
+import { nextDown, nextUp, type Rational } from '../math/rational.js';
+
+export type Arithmetic = 'float32' | 'float64';
+
+/** The facts of a binary floating-point arithmetic (IEEE 754 binary32 or binary64). */
+export interface FloatFacts {
+  readonly kind: 'float';
+  /** Significand bits p, the hidden bit included. */
+  readonly significandBits: number;
+  /** Unit roundoff for round-to-nearest: half an ulp of 1, relative (2^-p). */
+  readonly u: number;
+  readonly minSubnormal: number;
+  readonly minNormal: number;
+  readonly maxFinite: number;
+  /** Bytes per stored value (table sizes). */
+  readonly bytes: number;
+  /** The C type of a value, and the unsigned integer of the same width (the segment index reads the bits through a union). */
+  readonly cType: 'float' | 'double';
+  readonly cBitsType: 'uint32_t' | 'uint64_t';
+  /** The GLSL ES 3.00 type, or null: GLSL ES has no double, so no GLSL is emitted. */
+  readonly glslType: 'float' | null;
+  /**
+   * The TypeScript function that rounds a binary64 result to this arithmetic
+   * (every JS number is binary64), or null when none is needed. Math.fround
+   * after one +, -, *, / of binary32 operands is the correctly rounded
+   * binary32 result, because 53 >= 2 * 24 + 2 (double rounding is innocuous).
+   */
+  readonly tsRound: 'Math.fround' | null;
+  /** Rounds a JS number (one IEEE operation's binary64 result) to this arithmetic. */
+  readonly roundNumber: (x: number) => number;
+  /** Rounds an exact value to the nearest value of this arithmetic (ties to even). */
+  readonly roundExact: (x: Rational) => number;
+  /**
+   * SEGMENT INDEX's magic constant M = 1.5 * 2^(p-1): t + M, for |t| < 2^(p-2),
+   * rounds t to the nearest integer and leaves it in the low bits (src/ir/nodes.ts).
+   */
+  readonly segmentMagic: number;
+  /**
+   * How SEGMENT INDEX reads the rounded integer from the bits of t + M:
+   * 'significand', (bits & (2^(p-1) - 1)) - 2^(p-2) (the whole word is 32
+   * bits); 'low-word', the low 32 bits as a signed integer.
+   */
+  readonly segmentRead: 'significand' | 'low-word';
+  /**
+   * Bounds allow for flushed subnormal results as well: GPUs may flush
+   * binary32 subnormals to zero (GLSL ES 3.00 does not require them; common
+   * practice), so one bound holds on CPUs and GPUs.
+   */
+  readonly boundsAllowFlush: boolean;
+  /** A Cortex-M4F computes it in hardware (its FPU is single precision only; binary64 is a software library there). */
+  readonly m4fHardware: boolean;
+  /** The wider arithmetic a refusal suggests (range or rounding floor), or null for the widest. */
+  readonly wider: Arithmetic | null;
+}
+
+export type ArithmeticFacts = FloatFacts;
+
+export const ARITHMETICS: Readonly<Record<Arithmetic, ArithmeticFacts>> = {
+  float32: {
+    kind: 'float',
+    significandBits: 24,
+    u: 2 ** -24,
+    minSubnormal: 2 ** -149,
+    minNormal: 2 ** -126,
+    maxFinite: (2 - 2 ** -23) * 2 ** 127,
+    bytes: 4,
+    cType: 'float',
+    cBitsType: 'uint32_t',
+    glslType: 'float',
+    tsRound: 'Math.fround',
+    roundNumber: Math.fround,
+    roundExact: (x) => x.toFloat32(),
+    segmentMagic: 12582912,
+    segmentRead: 'significand',
+    boundsAllowFlush: true,
+    m4fHardware: true,
+    wider: 'float64',
+  },
+  float64: {
+    kind: 'float',
+    significandBits: 53,
+    u: 2 ** -53,
+    minSubnormal: 2 ** -1074,
+    minNormal: 2 ** -1022,
+    maxFinite: Number.MAX_VALUE,
+    bytes: 8,
+    cType: 'double',
+    cBitsType: 'uint64_t',
+    glslType: null,
+    tsRound: null,
+    roundNumber: (x) => x,
+    roundExact: (x) => x.toNumber(),
+    segmentMagic: 6755399441055744,
+    segmentRead: 'low-word',
+    boundsAllowFlush: false,
+    m4fHardware: false,
+    wider: null,
+  },
+};
+
+/** The value nearest to `exact` in the target arithmetic (round to nearest, ties to even). */
+export function roundTo(exact: Rational, arithmetic: Arithmetic): number {
+  return ARITHMETICS[arithmetic].roundExact(exact);
+}
+
+/** Rounds a JS number to the target arithmetic, as one IEEE operation would. */
+export function roundNumber(x: number, arithmetic: Arithmetic): number {
+  return ARITHMETICS[arithmetic].roundNumber(x);
+}
+
+const f32 = new Float32Array(1);
+const u32 = new Uint32Array(f32.buffer);
+
+/** The next number of the target arithmetic above x (x finite and of that arithmetic). */
+export function nextUpIn(x: number, arithmetic: Arithmetic): number {
+  if (arithmetic === 'float64') return nextUp(x);
+  if (x === 0) return ARITHMETICS.float32.minSubnormal;
+  f32[0] = x;
+  u32[0] = x > 0 ? u32[0]! + 1 : u32[0]! - 1;
+  return f32[0]!;
+}
+
+/** The next number of the target arithmetic below x (x finite and of that arithmetic). */
+export function nextDownIn(x: number, arithmetic: Arithmetic): number {
+  return arithmetic === 'float64' ? nextDown(x) : -nextUpIn(-x, arithmetic);
+}
