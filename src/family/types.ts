@@ -32,9 +32,17 @@ export interface InputRange {
   readonly hi: string;
 }
 
+/** A segment count: 'auto' (the planner chooses) or a power of two. */
+export type SegmentCount = 'auto' | number;
+
 export interface PlanKnobs {
   readonly maxOrder: number;
-  readonly segments: 'auto' | number;
+  /**
+   * Segments per input: one count for every input, or one per input in spec
+   * order (a spec's map by input name arrives as this list); 'auto' lets the
+   * planner choose (for that input alone, in a list).
+   */
+  readonly segments: SegmentCount | readonly SegmentCount[];
   readonly maxTableBytes: number;
   /** Newton polish steps after the series: 'auto' lets the planner weigh 0, 1 and 2. */
   readonly newtonSteps: 'auto' | number;

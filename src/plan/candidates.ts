@@ -11,6 +11,7 @@ function candidateOf(p: Plan): Candidate {
     steps: p.steps,
     ops: p.ops,
     cost: p.cost,
+    tableBytes: p.tableBytes,
     bound: p.bound.total,
     refusal: null,
     chosen: false,
@@ -19,7 +20,7 @@ function candidateOf(p: Plan): Candidate {
 
 /** A segmentation the planner refused, as a row. */
 export function refusedCandidate(counts: readonly number[], refusal: string): Candidate {
-  return { form: 'series', degree: null, counts, order: null, terms: null, steps: 0, ops: null, cost: null, bound: null, refusal, chosen: false };
+  return { form: 'series', degree: null, counts, order: null, terms: null, steps: 0, ops: null, cost: null, tableBytes: null, bound: null, refusal, chosen: false };
 }
 
 /** The plan and the other forms weighed for its segments, as candidate rows. */

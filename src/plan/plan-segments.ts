@@ -9,6 +9,7 @@ import { ConstantOverflowError } from '../ir/builder.js';
 import type { Program } from '../ir/nodes.js';
 import type { Family } from '../family/types.js';
 import { grid, type Cell } from './box.js';
+import { certifyRootInBracket } from './bracket-check.js';
 import { CellSet } from './cell-set.js';
 import { FoundPlans, type FormContext } from './forms/context.js';
 import { FORMS } from './forms/index.js';
@@ -52,6 +53,7 @@ function planSegmentsInner(family: Family, box: Cell, counts: readonly number[],
   }
   set.repairBadCells(LIMITS.cells, relative, thorough);
   refuseBadCells(family, set.cells, relative);
+  certifyRootInBracket(family, expansion.x0.map((v) => v.toNumber()), set.cells);
 
   const ctx: FormContext = {
     family,

@@ -45,7 +45,7 @@ export function refuseBadCells(family: Family, cells: readonly CellFacts[], rela
     const others = T.map((t, j) => ({ t, j })).filter(({ t, j }) => j >= 2 && j !== k && t > 0);
     const together = others.length ? `, with ${others.map(({ t, j }) => `|t${j}| up to ${short(t)}`).join(', ')}` : '';
     throw new RootcastError(
-      `the series does not converge for ${region(family, div)}: |t${k}| reaches ${short(T[k]!)} there${together} (alone |t${k}| must stay below ${short(criticalT(k))}); ${family.bracket ? (family.plan.segments === 'auto' ? 'narrow the input ranges' : 'set plan.segments: auto, or narrow the input ranges') : 'add root.bracket to recentre the series, or narrow the input ranges'}`,
+      `the series does not converge for ${region(family, div)}: |t${k}| reaches ${short(T[k]!)} there${together} (alone |t${k}| must stay below ${short(criticalT(k))}); ${family.bracket ? (family.plan.segments === 'auto' ? 'narrow the input ranges' : 'set plan.segments: auto (or auto for the inputs that need segments), or narrow the input ranges') : 'add root.bracket to recentre the series, or narrow the input ranges'}`,
       locate(family, 'inputs'),
     );
   }

@@ -9,12 +9,14 @@ import { RootcastError } from '../errors.js';
 import { ARITHMETICS } from '../family/arithmetic.js';
 import type { Family } from '../family/types.js';
 import type { Cell } from './box.js';
+import { locate } from './locate.js';
 import { candidatesOf, refusedCandidate, withCandidates } from './candidates.js';
 import { planSegments } from './plan-segments.js';
 import { SEGMENT_SEARCH } from './tuning.js';
 import type { Candidate, Plan } from './types.js';
 
-export function searchSegments(family: Family, box: Cell): Plan {
+/** `fixed`: per input, the count the spec sets, or null where the search chooses (all null for `segments: auto`). */
+export function searchSegments(family: Family, box: Cell, fixed: readonly (number | null)[] = family.inputs.map(() => null)): Plan {
   const d = family.inputs.length;
   const candidates: Candidate[] = [];
   const found: { best: Plan | null; firstError: RootcastError | null } = { best: null, firstError: null };
@@ -40,7 +42,14 @@ export function searchSegments(family: Family, box: Cell): Plan {
       return null;
     }
   };
-  let current = new Array<number>(d).fill(1);
+  let current = fixed.map((k) => k ?? 1);
+  const free = fixed.map((k) => k === null);
+  if (!family.bracket && current.some((k) => k > 1)) {
+    throw new RootcastError(
+      'segments need root.bracket: each segment recentres the series at its own root; add root.bracket or set plan.segments: 1',
+      locate(family, 'plan.segments'),
+    );
+  }
   const currentPlan = attempt(current);
   if (!family.bracket) {
     if (!currentPlan) throw found.firstError!;
@@ -51,6 +60,7 @@ export function searchSegments(family: Family, box: Cell): Plan {
     const before = found.best?.cost ?? Infinity;
     let next: { counts: number[]; plan: Plan | null } | null = null;
     for (let i = 0; i < d; i++) {
+      if (!free[i]) continue;
       const counts = current.map((k, j) => (j === i ? k * 2 : k));
       if (counts[i]! > SEGMENT_SEARCH.maxPerInput || !tableFits(family, counts)) continue;
       const plan = attempt(counts);
@@ -61,7 +71,7 @@ export function searchSegments(family: Family, box: Cell): Plan {
     if (next.plan) current = next.counts;
     else {
       // Nothing possible yet: refine every input at once.
-      const all = current.map((k) => k * 2);
+      const all = current.map((k, i) => (free[i] ? k * 2 : k));
       if (all.some((k) => k > SEGMENT_SEARCH.maxPerInput) || !tableFits(family, all)) break;
       current = all;
       attempt(all);

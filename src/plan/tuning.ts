@@ -129,3 +129,15 @@ export const POLISH = {
  * never left to one rounding.
  */
 export const OVERFLOW_HEADROOM = 4;
+
+/** Certifying root.bracket over the box (src/plan/bracket-check.ts). */
+export const BRACKET_CHECK = {
+  /** Cells the sign check may evaluate in all: each costs one interval Horner pass per bracket end, so this is milliseconds, and it bounds the work where a sign change fails along a surface. */
+  maxCells: 20000,
+  /** A cell narrower than this fraction of the box in every input is not split again: what fails there is reported. */
+  minFraction: 1 / 4096,
+  /** Rounds of halving (the unknown and the widest input in turn) when excluding a zero of P from the part of a root enclosure outside the bracket: 16 rounds resolve each to 1/256 of its width, past the dependency overestimation of coefficients sharing an input. */
+  exclusionHalvings: 16,
+  /** Box evaluations that exclusion may use in all, over every cell of one plan: bounds the work where P really vanishes outside the bracket. */
+  exclusionWork: 200000,
+} as const;

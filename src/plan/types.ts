@@ -34,6 +34,8 @@ export interface Candidate {
   readonly steps: number;
   readonly ops: OpCounts | null;
   readonly cost: number | null;
+  /** Bytes of the constant tables (null when refused). */
+  readonly tableBytes: number | null;
   readonly bound: number | null;
   /** Why it was not possible, in one line, or null. */
   readonly refusal: string | null;

@@ -80,7 +80,7 @@ export function readSpec(file: string, text: string, bytes?: Uint8Array): Family
   const bracket = readRoot(ctx, field('root'), positions);
   const accuracy = readAccuracy(ctx, must('accuracy'), positions);
   const arithmetic = readChoice(ctx, valueOf(ctx, must('arithmetic'), ARITHMETIC.join(' or ')), 'arithmetic', ARITHMETIC).value;
-  const plan = readPlan(ctx, field('plan'), positions);
+  const plan = readPlan(ctx, field('plan'), positions, inputs.inputs.map((i) => i.name));
   const outside = field('inputs_outside_box');
   const outsideBox = outside
     ? readChoice(ctx, valueOf(ctx, outside, 'extrapolate or saturate (or remove the field for extrapolate)'), 'inputs_outside_box', OUTSIDE_BOX).value

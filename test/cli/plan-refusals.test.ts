@@ -133,17 +133,18 @@ describe('the planner refuses an impossible plan in one line, exit code 2, nothi
     expect(r.message).toContain('add root.bracket');
   });
 
-  test('a double root moving across the expansion point is refused where the recentred slope vanishes', () => {
+  test('a double root moving out of the bracket is refused at root.bracket: its low end has no certified sign change', () => {
     const r = refusal('slope-double-root.yaml');
-    expect(r.field).toBe('inputs');
-    expect(r.message).toContain('slope');
-    // (x - s)^2 - 0.01 at the centre s = 1 has the roots 0.9 and 1.1; the bracket
-    // [1.05, 3] holds 1.1, and P'(1.1) = 2 (1.1 - s) is zero at s = 1.1.
+    expect(r.field).toBe('root.bracket');
+    // P = (x - s)^2 - 0.01 has the roots s - 0.1 and s + 0.1 (worked by hand).
+    // P(1.05) = (1.05 - s)^2 - 0.01 is negative only for s in (0.95, 1.15): at the
+    // centre s = 1 the bracket [1.05, 3] holds the root 1.1, but for s below 0.95
+    // both roots are below 1.05 and for s above 1.15 P(1.05) > 0 again.
+    expect(r.message).toContain('P(1.05) at the low end is negative at the box centre but can be zero or positive there');
     const [lo, hi] = rangeOf(r.message, 's');
-    expect(lo).toBeLessThanOrEqual(1.1);
-    expect(hi).toBeGreaterThanOrEqual(1.1);
-    expect(hi - lo).toBeLessThan(2);
-    expect(r.message).toContain('move root.bracket');
+    expect(lo).toBeLessThanOrEqual(0.95);
+    expect(hi).toBeGreaterThanOrEqual(1.15);
+    expect(r.message).toContain('move the low end down');
   });
 
   test('a target below the float32 rounding floor is refused with the floor, and float64 (the advice) meets it', () => {

@@ -16,7 +16,7 @@ import { emitInputOf } from '../../src/cli/pipeline.js';
 import type { Family } from '../../src/family/types.js';
 
 const spring = loadSpec('examples/spring-scale.yaml');
-const withSegments = (f: Family, segments: 'auto' | number): Family => ({ ...f, plan: { ...f.plan, segments } });
+const withSegments = (f: Family, segments: Family['plan']['segments']): Family => ({ ...f, plan: { ...f.plan, segments } });
 
 /** Segment edges of a one-input plan and the float32 neighbours on each side. */
 function edgePoints(f: Family, counts: number): number[] {
@@ -108,5 +108,17 @@ describe('economisation', () => {
     );
     // Most of these families collapse to a polynomial; the test must see economised plans.
     expect(economised).toBeGreaterThan(10);
+  });
+
+  test('per-input counts: a list fixes each input, auto searches only the inputs marked auto', () => {
+    // gas-wide (invented example, two inputs P and T): the fixed grid is taken as given.
+    const gas = loadSpec('examples/gas-wide.yaml');
+    const fixed = makePlan(withSegments(gas, [32, 4]));
+    expect(fixed.counts).toEqual([32, 4]);
+    expect(fixed.bound.total).toBeLessThanOrEqual(fixed.target);
+    const half = makePlan(withSegments(gas, ['auto', 8]));
+    expect(half.counts[1]).toBe(8);
+    expect(half.candidates.every((c) => c.counts[1] === 8)).toBe(true);
+    expect(half.bound.total).toBeLessThanOrEqual(half.target);
   });
 });

@@ -29,6 +29,23 @@ describe('plan', () => {
     expectRefusal(withExtra('plan:', '  segments: many'), 'spec.yaml:17:13: plan.segments: ', 'found the text `many`');
   });
 
+  test('segments per input: a list in input order, or a map by input name (inputs not named take 1)', () => {
+    // BASE has one input, F; a second input G makes the per-input forms tell apart.
+    const two = (plan: string): string => withExtra('plan:', plan).replace('  F: [0, 200]', '  F: [0, 200]\n  G: [1, 2]').replace('  0: -F', '  0: -F * G');
+    expect(readSpec('spec.yaml', two('  segments: [16, 1]')).plan.segments).toEqual([16, 1]);
+    expect(readSpec('spec.yaml', two('  segments: [auto, 2]')).plan.segments).toEqual(['auto', 2]);
+    expect(readSpec('spec.yaml', two('  segments: { G: 8 }')).plan.segments).toEqual([1, 8]);
+    expect(readSpec('spec.yaml', two('  segments: { F: auto, G: 4 }')).plan.segments).toEqual(['auto', 4]);
+    expect(readSpec('spec.yaml', withExtra('plan:', '  segments: [4]')).plan.segments).toEqual([4]);
+  });
+
+  test('a per-input segments knob is checked entry by entry, with the entry named', () => {
+    expectRefusal(withExtra('plan:', '  segments: [16, 1]'), 'spec.yaml:17:13: plan.segments: ', 'expected one count per input (1: F), found a list of 2');
+    expectRefusal(withExtra('plan:', '  segments: [3]'), 'spec.yaml:17:14: plan.segments[0]: ', 'expected auto or a power of two');
+    expectRefusal(withExtra('plan:', '  segments: { Fx: 4 }'), 'spec.yaml:17:15: plan.segments.Fx: ', '`Fx` is not an input; did you mean `F`?');
+    expectRefusal(withExtra('plan:', '  segments: { F: 6 }'), 'spec.yaml:17:18: plan.segments.F: ', 'expected auto or a power of two');
+  });
+
   test('max_table_bytes must be a positive whole number', () => {
     expectRefusal(withExtra('plan:', '  max_table_bytes: 0'), 'spec.yaml:17:20: plan.max_table_bytes: ', 'expected a whole number from 1 to');
   });

@@ -34,6 +34,7 @@ export function planJson(plan: Plan): object {
       steps: k.steps,
       ops: k.ops,
       cost: k.cost,
+      tableBytes: k.tableBytes,
       bound: k.bound,
       refusal: k.refusal,
       chosen: k.chosen,
@@ -43,7 +44,7 @@ export function planJson(plan: Plan): object {
 
 /** The candidates the planner weighed, one row each; the chosen one marked with `*`. */
 export function candidateTable(plan: Plan): string[] {
-  const head = ['', 'form', 'segments', 'order', 'degree', 'terms', 'steps', 'add', 'mul', 'div', 'reads', 'cost', 'bound'];
+  const head = ['', 'form', 'segments', 'order', 'degree', 'terms', 'steps', 'add', 'mul', 'div', 'reads', 'bytes', 'cost', 'bound'];
   const rows = plan.candidates.map((k) => [
     k.chosen ? '*' : '',
     k.form,
@@ -56,6 +57,7 @@ export function candidateTable(plan: Plan): string[] {
     k.ops ? String(k.ops.mul) : '-',
     k.ops ? String(k.ops.div) : '-',
     k.ops ? String(k.ops.tableReads) : '-',
+    k.tableBytes === null ? '-' : String(k.tableBytes),
     k.cost === null ? '-' : String(k.cost),
     k.bound === null ? `refused: ${k.refusal!.split(';')[0]}` : formatBoundUp(k.bound),
   ]);

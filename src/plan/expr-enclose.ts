@@ -1,0 +1,82 @@
+/**
+ * Interval enclosure of a coefficient expression over a cell: outward-rounded
+ * float64 intervals (math/interval.ts) evaluated on the spec's expression tree
+ * as written (naive interval arithmetic, so a variable used twice is
+ * overestimated: callers subdivide cells where that matters).
+ */
+import { containsZero, iadd, idiv, imul, ineg, interval, isub, mag, mig, point, type Interval } from '../math/interval.js';
+import { Rational } from '../math/rational.js';
+import type { Expr } from '../family/types.js';
+import type { Cell } from './box.js';
+
+/** A binary node of the expression tree whose kind is 'div'. */
+export type Division = Extract<Expr, { readonly left: Expr }>;
+
+export const WHOLE: Interval = { lo: -Infinity, hi: Infinity };
+
+/**
+ * The enclosure of `e` over `cell`. A division whose divisor's enclosure
+ * holds zero gives the whole line, and `onPole` (when given) hears of the
+ * first such division (inner ones first); a later division is not looked at.
+ */
+export function encloseExpr(e: Expr, cell: Cell, constants: Readonly<Record<string, string>>, onPole?: (d: Division) => void): Interval {
+  let found = false;
+  const enclose = (x: Expr): Interval => {
+    switch (x.kind) {
+      case 'num':
+        return decimalInterval(x.text);
+      case 'input':
+        return cell[x.index]!;
+      case 'constant':
+        return decimalInterval(constants[x.name]!);
+      case 'neg':
+        return ineg(enclose(x.arg));
+      case 'pow':
+        return ipow(enclose(x.base), x.exponent);
+      case 'add':
+      case 'sub':
+      case 'mul': {
+        const a = enclose(x.left);
+        const b = enclose(x.right);
+        return x.kind === 'add' ? iadd(a, b) : x.kind === 'sub' ? isub(a, b) : imul(a, b);
+      }
+      case 'div': {
+        const a = enclose(x.left);
+        const b = enclose(x.right);
+        if (found) return WHOLE;
+        if (containsZero(b)) {
+          found = true;
+          onPole?.(x);
+          return WHOLE;
+        }
+        // A divisor with a NaN end (an overflow upstream) is no evidence of a pole.
+        return Number.isNaN(b.lo) || Number.isNaN(b.hi) ? WHOLE : idiv(a, b);
+      }
+    }
+  };
+  return enclose(e);
+}
+
+const decimals = new Map<string, Interval>();
+/** The float64 enclosure of an exact decimal. */
+export function decimalInterval(text: string): Interval {
+  let v = decimals.get(text);
+  if (v === undefined) {
+    const q = Rational.parseDecimal(text);
+    v = interval(q.toNumberDown(), q.toNumberUp());
+    decimals.set(text, v);
+  }
+  return v;
+}
+
+/** x^n, tight for even n (never negative), by repeated outward-rounded products of the ends. */
+export function ipow(x: Interval, n: number): Interval {
+  const chain = (v: number): Interval => {
+    let acc = point(1);
+    for (let i = 0; i < n; i++) acc = imul(acc, point(v));
+    return acc;
+  };
+  if (n === 0) return point(1);
+  if (n % 2 === 0) return interval(chain(mig(x)).lo, chain(mag(x)).hi);
+  return interval(chain(x.lo).lo, chain(x.hi).hi);
+}
