@@ -13,7 +13,8 @@ const out = (line: string): void => {
   process.stdout.write(`${line}\n`);
 };
 
-const TARGET_CHOICES = ['c', 'ts', 'glsl', 'all'] as const;
+const TARGET_CHOICES = ['c', 'ts', 'glsl', 'wgsl', 'hlsl', 'rust', 'all'] as const;
+const VERIFY_TARGET_CHOICES = ['c', 'ts', 'glsl', 'all'] as const;
 
 export async function main(argv: string[]): Promise<number> {
   let code = 0;
@@ -52,7 +53,7 @@ export async function main(argv: string[]): Promise<number> {
       (y) =>
         y
           .positional('spec', { type: 'string', demandOption: true, describe: 'spec file (YAML or JSON)' })
-          .option('target', { choices: TARGET_CHOICES, default: 'all' as const, describe: 'language to emit (all: c, ts, and glsl when the spec is float32)' })
+          .option('target', { choices: TARGET_CHOICES, default: 'all' as const, describe: 'language to emit (all: c, ts and rust, plus glsl, wgsl and hlsl when the spec is float32)' })
           .option('out', { type: 'string', demandOption: true, describe: 'output directory' })
           .option('check', {
             type: 'boolean',
@@ -70,7 +71,7 @@ export async function main(argv: string[]): Promise<number> {
       (y) =>
         y
           .positional('spec', { type: 'string', demandOption: true, describe: 'spec file (YAML or JSON)' })
-          .option('target', { choices: TARGET_CHOICES, default: 'all' as const, describe: 'harnesses to build and run (all: c, ts, and glsl in headless Chromium when the spec is float32)' })
+          .option('target', { choices: VERIFY_TARGET_CHOICES, default: 'all' as const, describe: 'harnesses to build and run (all: c, ts, and glsl in headless Chromium when the spec is float32)' })
           .option('samples', { type: 'number', default: 10000, describe: 'sample points (corners, a grid, seeded random); segment edges and their neighbours come on top' })
           .option('seed', { type: 'number', default: 1, describe: 'seed of the random sample points' })
           .option('json', { type: 'boolean', default: false, describe: 'print one JSON object (plan claims and every check) instead of text' })

@@ -17,18 +17,13 @@ export function claimsOf(plan: Plan): PlanClaims {
     order: plan.order,
     terms: plan.terms.length,
     steps: plan.steps,
-    rootNote:
-      plan.form === 'economised'
-        ? `${plan.root.note}; the series is collapsed to a polynomial in ${plan.family.inputs[0]!.name} and Chebyshev-economised to degree ${plan.degree}`
-        : plan.form === 'greedy'
-          ? `${plan.root.note}; the kept terms are chosen greedily, largest majorant contribution first, from every term up to grade ${plan.order + 2} (the truncation bound below is for exactly these terms)`
-          : plan.steps > 0
-          ? `${plan.root.note}; then ${plan.steps} Newton step${plan.steps === 1 ? '' : 's'} (the truncation bound below is the Newton error term left after the last step, carried from the series bound)`
-          : plan.root.note,
+    // Each form writes its own note beside its builder (src/plan/forms/).
+    rootNote: plan.note === null ? plan.root.note : `${plan.root.note}; ${plan.note}`,
     bound: plan.bound,
     absoluteBound: plan.absoluteBound,
     target: plan.target,
     ops: plan.ops,
+    costModel: plan.costModel,
   };
 }
 

@@ -10,7 +10,7 @@
  * a printed bound is never smaller than the proven one.
  */
 import { countOps, type OpCounts } from '../ir/count.js';
-import { cycleHeaderLine } from './cycles.js';
+import { COST_MODELS, costHeaderLines } from '../ir/cost/index.js';
 import type { Family } from '../family/types.js';
 import type { Arithmetic } from '../family/arithmetic.js';
 import { formatBoundUp } from './literals/round-up.js';
@@ -57,7 +57,7 @@ export function headerLines(input: EmitInput, fileRole: string): string[] {
       `order ${claims.order}, ${claims.terms} ${claims.terms === 1 ? 'term' : 'terms'}${claims.steps > 0 ? `, then ${claims.steps} Newton ${claims.steps === 1 ? 'step' : 'steps'}` : ''}`,
     ]),
     ...labelled('operations:', [`${ops.add} add, ${ops.mul} mul, ${ops.div} div, ${ops.tableReads} table reads${ops.compares > 0 ? `, ${ops.compares} compares` : ''}`]),
-    cycleHeaderLine(input.program),
+    ...costHeaderLines(input.program, input.claims.costModel ? COST_MODELS[input.claims.costModel] : undefined),
   ];
   for (const line of lines) assertCommentSafe(line);
   return lines;

@@ -4,11 +4,12 @@
  * the plan's claims (for the header comment and the harness's pass/fail).
  * Printers never import the planner; the planner fills this plain data in.
  */
+import type { CostModelName } from '../family/arithmetic.js';
 import type { OpCounts } from '../ir/count.js';
 import type { Program } from '../ir/nodes.js';
 import type { Family } from '../family/types.js';
 
-export type Target = 'c' | 'ts' | 'glsl';
+export type Target = 'c' | 'ts' | 'glsl' | 'wgsl' | 'hlsl' | 'rust';
 
 export interface PlanClaims {
   /** Series order N (every kept term has grade w(m) <= N). */
@@ -33,6 +34,8 @@ export interface PlanClaims {
   /** The target accuracy as a number, same kind as `bound`. */
   readonly target: number;
   readonly ops: OpCounts;
+  /** The cost model the plan was ranked by (default: the arithmetic's, src/family/arithmetic.ts); the header prints its figure. */
+  readonly costModel?: CostModelName;
 }
 
 export interface EmitInput {

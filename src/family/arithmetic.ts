@@ -9,6 +9,11 @@
  * | float32    | float | 24 | 2^-24    | 2^-149             | (2 - 2^-23) * 2^127  | 4     | float  | float | Math.fround | 12582912 = 1.5 * 2^23       |
  * | float64    | float | 53 | 2^-53    | 2^-1074            | (2 - 2^-52) * 2^1023 | 8     | double | none  | none        | 6755399441055744 = 1.5 * 2^52 |
  *
+ * WGSL, HLSL and Rust types: f32 / none / f32 for float32 and none / none /
+ * f64 for float64 (WGSL has f16 and f32 only, W3C WGSL "Floating Point Types";
+ * HLSL is emitted in binary32 only; Rust's f32 and f64 are binary32 and
+ * binary64, The Rust Reference "Numeric types").
+ *
  * Source: IEEE 754-2019, table 3.5 (binary32, binary64 parameters); GLSL ES
  * 3.00 has no double type (GLSL ES 3.00.6, section 4.1); both from memory.
  *
@@ -22,6 +27,9 @@
 import { nextDown, nextUp, type Rational } from '../math/rational.js';
 
 export type Arithmetic = 'float32' | 'float64';
+
+/** The cost models the planner can rank by (one row each in src/ir/cost/index.ts). */
+export type CostModelName = 'cortex-m4f' | 'x86-64';
 
 /** The facts of a binary floating-point arithmetic (IEEE 754 binary32 or binary64). */
 export interface FloatFacts {
@@ -40,6 +48,12 @@ export interface FloatFacts {
   readonly cBitsType: 'uint32_t' | 'uint64_t';
   /** The GLSL ES 3.00 type, or null: GLSL ES has no double, so no GLSL is emitted. */
   readonly glslType: 'float' | null;
+  /** The WGSL and HLSL scalar types, or null: WGSL has no 64-bit float, and rootcast emits HLSL in binary32 only. */
+  readonly wgslType: 'f32' | null;
+  readonly hlslType: 'float' | null;
+  /** The Rust type, and the unsigned integer of the same width (to_bits reads the segment index). */
+  readonly rustType: 'f32' | 'f64';
+  readonly rustBitsType: 'u32' | 'u64';
   /**
    * The TypeScript function that rounds a binary64 result to this arithmetic
    * (every JS number is binary64), or null when none is needed. Math.fround
@@ -70,6 +84,8 @@ export interface FloatFacts {
   readonly boundsAllowFlush: boolean;
   /** A Cortex-M4F computes it in hardware (its FPU is single precision only; binary64 is a software library there). */
   readonly m4fHardware: boolean;
+  /** The cost model the planner ranks plans by and the header prints (src/ir/cost/index.ts). */
+  readonly costModel: CostModelName;
   /** The wider arithmetic a refusal suggests (range or rounding floor), or null for the widest. */
   readonly wider: Arithmetic | null;
 }
@@ -88,6 +104,10 @@ export const ARITHMETICS: Readonly<Record<Arithmetic, ArithmeticFacts>> = {
     cType: 'float',
     cBitsType: 'uint32_t',
     glslType: 'float',
+    wgslType: 'f32',
+    hlslType: 'float',
+    rustType: 'f32',
+    rustBitsType: 'u32',
     tsRound: 'Math.fround',
     roundNumber: Math.fround,
     roundExact: (x) => x.toFloat32(),
@@ -95,6 +115,7 @@ export const ARITHMETICS: Readonly<Record<Arithmetic, ArithmeticFacts>> = {
     segmentRead: 'significand',
     boundsAllowFlush: true,
     m4fHardware: true,
+    costModel: 'cortex-m4f',
     wider: 'float64',
   },
   float64: {
@@ -108,6 +129,10 @@ export const ARITHMETICS: Readonly<Record<Arithmetic, ArithmeticFacts>> = {
     cType: 'double',
     cBitsType: 'uint64_t',
     glslType: null,
+    wgslType: null,
+    hlslType: null,
+    rustType: 'f64',
+    rustBitsType: 'u64',
     tsRound: null,
     roundNumber: (x) => x,
     roundExact: (x) => x.toNumber(),
@@ -115,6 +140,7 @@ export const ARITHMETICS: Readonly<Record<Arithmetic, ArithmeticFacts>> = {
     segmentRead: 'low-word',
     boundsAllowFlush: false,
     m4fHardware: false,
+    costModel: 'x86-64',
     wider: null,
   },
 };

@@ -1,8 +1,7 @@
 /**
  * Per-instruction timings of the two targets rootcast prices programs for:
- * the one table that the planner's cost model (src/plan/cost.ts) and the
- * header's cycle estimate (src/emit/cycles.ts) both read, so the two cannot
- * drift apart.
+ * the one table the cost models read (src/ir/cost/), which the planner
+ * ranks by and the header prints.
  *
  * Cortex-M4F: cycle counts from the FPU instruction timing table of the ARM
  * Cortex-M4 Technical Reference Manual (r0p1, section 7.2.3 "FPU instruction
@@ -24,7 +23,7 @@
  *   LDR (literal)          2        ldrLiteral
  *
  * x86-64: scalar SSE latencies of a recent core (addsd/mulsd 4, divsd 11-14,
- * an L1 load 5, ucomiss and SETcc about 3 + 1), from memory of Agner Fog's instruction tables, not measured
+ * xorpd 1, an L1 load 5, ucomisd and SETcc about 3 + 1), from memory of Agner Fog's instruction tables, not measured
  * here. Latency, not throughput, is the right measure for Horner's rule,
  * which is one dependency chain.
  */
@@ -67,10 +66,12 @@ export const X86_64_LATENCY = {
   mul: 4,
   /** divsd (11 to 14 by core; the low end). */
   div: 11,
+  /** xorpd with a sign mask (a negation). */
+  neg: 1,
   /** A load that hits L1 (a table read). */
   tableRead: 5,
   /** One integer ALU instruction. */
   intOp: 1,
-  /** ucomiss/ucomisd and the SETcc that reads its flags (a clamp's comparison). */
+  /** UCOMISS/UCOMISD and the SETcc that reads its flags (a clamp's comparison). */
   compare: 4,
 } as const;

@@ -13,7 +13,7 @@ import { countOps, type OpCounts } from '../ir/count.js';
 import { roundTo } from '../family/arithmetic.js';
 import { saturateInputs } from '../ir/saturate.js';
 import { Rational } from '../math/rational.js';
-import { programCost } from './cost.js';
+import { COST_MODELS, programCost } from '../ir/cost/index.js';
 import type { Plan } from './types.js';
 
 export function applyOutsideBox(plan: Plan): Plan {
@@ -25,7 +25,7 @@ export function applyOutsideBox(plan: Plan): Plan {
   }));
   const program = saturateInputs(plan.program, ranges);
   const ops = countOps(program);
-  const extra = { ops: minus(ops, plan.ops), cost: programCost(program) - plan.cost };
+  const extra = { ops: minus(ops, plan.ops), cost: programCost(program, COST_MODELS[plan.costModel]) - plan.cost };
   return {
     ...plan,
     program,

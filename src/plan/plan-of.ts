@@ -2,15 +2,19 @@
 import { countOps } from '../ir/count.js';
 import type { Program } from '../ir/nodes.js';
 import { ARITHMETICS } from '../family/arithmetic.js';
-import { programCost } from './cost.js';
+import { programCost } from '../ir/cost/index.js';
 import type { Evaluated } from './evaluate.js';
 import type { FormContext } from './forms/context.js';
 import type { Plan } from './types.js';
 
 /** What a form decides; the rest of a Plan follows from the program and the segmentation. */
-export type PlanParts = Pick<Plan, 'form' | 'order' | 'degree' | 'terms' | 'steps' | 'program'> & { readonly evaluated: Evaluated };
+export type PlanParts = Pick<Plan, 'form' | 'order' | 'degree' | 'terms' | 'steps' | 'program'> & {
+  readonly evaluated: Evaluated;
+  /** The header's note on the form (see Plan.note); none for the graded series. */
+  readonly note?: string;
+};
 
-export function planOf(ctx: Pick<FormContext, 'family' | 'root' | 'target' | 'counts' | 'set'>, parts: PlanParts): Plan {
+export function planOf(ctx: Pick<FormContext, 'family' | 'root' | 'target' | 'counts' | 'set' | 'costModel'>, parts: PlanParts): Plan {
   const { program } = parts;
   return {
     family: ctx.family,
@@ -25,7 +29,9 @@ export function planOf(ctx: Pick<FormContext, 'family' | 'root' | 'target' | 'co
     absoluteBound: parts.evaluated.absolute,
     target: ctx.target,
     ops: countOps(program),
-    cost: programCost(program),
+    cost: programCost(program, ctx.costModel),
+    costModel: ctx.costModel.name,
+    note: parts.note ?? null,
     cells: ctx.set.cells.length,
     counts: [...ctx.counts],
     tableBytes: tableBytesOf(program),

@@ -2,6 +2,7 @@
 import type { OpCounts } from '../ir/count.js';
 import type { Program } from '../ir/nodes.js';
 import type { SeriesTerm } from '../series/hyper-catalan.js';
+import type { CostModelName } from '../family/arithmetic.js';
 import type { Family } from '../family/types.js';
 import type { RootChoice } from './root-choice.js';
 
@@ -58,8 +59,11 @@ export interface Plan {
   readonly absoluteBound: number;
   readonly target: number;
   readonly ops: OpCounts;
-  /** Estimated Cortex-M4F cycles (the planner's cost model, src/plan/cost.ts). */
+  /** The figure the planner ranked by: `costModel`'s estimate (src/ir/cost/), the figure the header prints. */
   readonly cost: number;
+  readonly costModel: CostModelName;
+  /** How the form differs from the plain graded series, for the header's root note (null for the graded series). */
+  readonly note: string | null;
   /** Number of cells the bound was certified over. */
   readonly cells: number;
   /** Segments per input, in spec order (all 1 for one box), and the table size in bytes. */

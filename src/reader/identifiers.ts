@@ -1,7 +1,8 @@
 /**
  * The rule for names a spec gives (the function, the unknown, inputs and
- * constants). A name is printed verbatim into C, TypeScript and GLSL, so it
- * must be an identifier in all three and collide with nothing they reserve.
+ * constants). A name is printed verbatim into C, TypeScript, GLSL, WGSL, HLSL
+ * and Rust, so it must be an identifier in all of them and collide with
+ * nothing they reserve.
  */
 import { RESERVED_GROUPS, type Language } from './reserved-words.js';
 import { showText } from '../family/show.js';

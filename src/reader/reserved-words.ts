@@ -15,7 +15,9 @@
  * documents; tests check them against gcc and the TypeScript compiler.
  */
 
-export type Language = 'C' | 'TypeScript' | 'GLSL';
+import { TARGET_RESERVED_GROUPS } from './reserved-words-targets.js';
+
+export type Language = 'C' | 'TypeScript' | 'GLSL' | 'WGSL' | 'HLSL' | 'Rust';
 
 export interface ReservedGroup {
   readonly language: Language;
@@ -35,7 +37,7 @@ const C_MATH_FUNCTIONS = words(`
   nexttoward fdim fmax fmin fma
 `).flatMap((f) => [f, `${f}f`, `${f}l`]);
 
-export const RESERVED_GROUPS: readonly ReservedGroup[] = [
+const BASE_GROUPS: readonly ReservedGroup[] = [
   {
     language: 'C',
     kind: 'a keyword',
@@ -187,3 +189,6 @@ export const RESERVED_GROUPS: readonly ReservedGroup[] = [
   { language: 'GLSL', kind: 'the shader entry point', words: ['main'] },
   { language: 'GLSL', kind: 'a predefined macro', words: words('GL_ES GL_FRAGMENT_PRECISION_HIGH') },
 ];
+
+/** Every group: C, TypeScript and GLSL here, WGSL, HLSL and Rust in reserved-words-targets.ts. */
+export const RESERVED_GROUPS: readonly ReservedGroup[] = [...BASE_GROUPS, ...TARGET_RESERVED_GROUPS];

@@ -1,12 +1,12 @@
 /**
- * The Cortex-M4F cycle estimate (src/emit/cycles.ts) prices the IR with the
+ * The Cortex-M4F cycle estimate (src/ir/cost/cortex-m4f.ts) prices the IR with the
  * FPU timing table it cites, and its assumed instruction mix matches what
  * arm-none-eabi-gcc -O2 emits for the same function (recounted from the
  * disassembly, test/fixed-cost/m4f-mix.ts).
  */
 import { describe, expect, test } from '@jest/globals';
 import { cFunction } from '../../src/emit/c/function.js';
-import { cortexM4fCycles, cycleHeaderLine } from '../../src/emit/cycles.js';
+import { cortexM4fCycles, cortexM4fLine } from '../../src/ir/cost/cortex-m4f.js';
 import { headerLines } from '../../src/emit/header.js';
 import { UnknownNodeError, type Program } from '../../src/ir/nodes.js';
 import { probeName, probeSource } from '../../src/verify/branches.js';
@@ -32,8 +32,8 @@ describe('cortexM4fCycles', () => {
   });
 
   test('the header carries the estimate with its source', () => {
-    expect(cycleHeaderLine(sqrtTaylor('float32').program)).toBe(
-      'cortex-m4f estimate: ~26 cycles (12 FPU ops + 7 constant loads; Cortex-M4 TRM FPU timings, see src/emit/cycles.ts)',
+    expect(cortexM4fLine(sqrtTaylor('float32').program)).toBe(
+      'cortex-m4f estimate: ~26 cycles (12 FPU ops + 7 constant loads; Cortex-M4 TRM FPU timings, see src/ir/cost/cortex-m4f.ts)',
     );
   });
 

@@ -35,7 +35,7 @@
 import { afterAll, describe, expect, test } from '@jest/globals';
 import { execFileSync, spawnSync } from 'node:child_process';
 import { ARITHMETICS, nextDownIn, nextUpIn } from '../../src/family/arithmetic.js';
-import { cortexM4fCycles, cycleHeaderLine } from '../../src/emit/cycles.js';
+import { cortexM4fCycles, cortexM4fLine } from '../../src/ir/cost/cortex-m4f.js';
 import { compileAndCount, hasToolchain, probeName, probeSource, type BranchTarget } from '../../src/verify/branches.js';
 import { checkSamplePoints, inputBox } from '../../src/verify/samples.js';
 import { makeWorkDir } from '../emit/support/workdir.js';
@@ -159,7 +159,7 @@ describe('the Cortex-M4F cycle estimate in the header matches the instructions g
     const { name, input, header } = cExample(spec);
     const estimate = cortexM4fCycles(input.program);
     if (estimate.kind !== 'estimated') throw new Error('a float32 program must be estimated');
-    expect(header.text).toContain(` * ${cycleHeaderLine(input.program)}\n`);
+    expect(header.text).toContain(` * ${cortexM4fLine(input.program)}\n`);
     const mix = m4fMix([header], probeSource(header.path, name, 'float', input.program.inputs.length), probeName(name));
     // The segment index's rounding VADD is priced with the index, not among the FPU ops.
     const indexAdds = input.program.nodes.reduce((k, n) => k + (n.kind === 'index' ? n.parts.length : 0), 0);

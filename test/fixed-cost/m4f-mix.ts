@@ -1,7 +1,7 @@
 /**
  * The Cortex-M4F instruction mix gcc actually emits for a function, read from
  * arm-none-eabi-objdump, priced with the same per-instruction table as
- * src/emit/cycles.ts: an independent recount of what the estimate assumes.
+ * src/ir/cost/cortex-m4f.ts: an independent recount of what the estimate assumes.
  */
 import { spawnSync } from 'node:child_process';
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';

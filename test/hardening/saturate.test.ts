@@ -26,10 +26,15 @@ import { Rational } from '../../src/math/rational.js';
 import { makePlan } from '../../src/plan/plan.js';
 import { readSpec } from '../../src/reader/read.js';
 import { branchy, checkEmittedBranches } from '../../src/verify/branches.js';
+import { compileHlsl } from '../../src/verify/hlsl/compile.js';
+import { runRustBits } from '../../src/verify/rust/run.js';
+import { runWgslBits } from '../../src/verify/wgsl/run.js';
 import { fragmentShader, openShaderBrowser, type ShaderBrowser } from '../glsl/support/shader-run.js';
 import { REPO } from './support/cli.js';
 
 const EXAMPLES = ['kiln-probe', 'gas-molar-volume', 'lens-undistort', 'ease-in-out', 'spring-scale', 'gas-wide'];
+
+const float32 = EXAMPLES.filter((e) => readFileSync(join(REPO, `examples/${e}.yaml`), 'utf8').includes('arithmetic: float32'));
 
 type Arith = 'float32' | 'float64';
 
@@ -212,7 +217,6 @@ describe('inputs_outside_box: saturate', () => {
     expect(reports.filter((r) => branchy(r.count)).map((r) => ({ target: r.target, offending: r.count.offending }))).toEqual([]);
   }, 120_000);
 
-  const float32 = EXAMPLES.filter((e) => readFileSync(join(REPO, `examples/${e}.yaml`), 'utf8').includes('arithmetic: float32'));
   test.each(float32)('%s: GLSL, both overloads, returns the range end value bit for bit outside the box', async (example) => {
     const input = saturated(example);
     const snippet = emitFiles(input, ['glsl']).find((f) => f.path.endsWith('.glsl'))!;
@@ -223,6 +227,32 @@ describe('inputs_outside_box: saturate', () => {
     const shaders = [`rc_out = vec4(${['.x', '.y', '.z', '.w'].map(call).join(', ')});`, `rc_out = ${call('')};`].map((body) => fragmentShader([snippet.text], d, body));
     const out = await browser!.run(shaders, cases.map((c) => c.inputs));
     for (const bits of out) expect(broken(cases, bits.map((b) => b.toString(16).padStart(8, '0')), 'float32', true)).toEqual([]);
+  }, 300_000);
+
+  test.each(EXAMPLES)('%s: Rust (rustc -O) returns the range end value bit for bit outside the box, and the C bits everywhere', (example) => {
+    const input = saturated(example);
+    const a = input.program.arithmetic;
+    const name = input.family.functionName;
+    const cases = casesFor(input);
+    const rs = runRustBits(emitFiles(input, ['rust']).find((f) => f.path.endsWith('.rs'))!, input.program, name, cases.map((c) => c.inputs));
+    expect(rs.problem).toBe('');
+    expect(broken(cases, rs.bits!, a)).toEqual([]);
+    const dir = temp();
+    for (const f of emitFiles(input, ['c'])) writeFileSync(join(dir, f.path), f.text);
+    const c = runC(input, dir, cases);
+    expect(cases.map((k, i) => ({ k: k.label, c: c[i]!, rust: rs.bits![i]! })).filter((r) => r.c !== r.rust && !(Number.isNaN(fromBits(r.c, a)) && Number.isNaN(fromBits(r.rust, a))))).toEqual([]);
+  }, 300_000);
+
+  test.each(float32)('%s: WGSL on WebGPU (SwiftShader), f32 and vec4 forms, returns the range end value bit for bit outside the box; HLSL compiles', (example) => {
+    const input = saturated(example);
+    const name = input.family.functionName;
+    const cases = casesFor(input);
+    const run = runWgslBits(emitFiles(input, ['wgsl']).find((f) => f.path.endsWith('.wgsl'))!, input.program, name, cases.map((c) => c.inputs));
+    expect({ problem: run.problem, messages: run.messages }).toEqual({ problem: '', messages: [] });
+    expect(broken(cases, run.bits, 'float32', true)).toEqual([]);
+    expect(broken(cases, run.vectorBits.slice(0, cases.length), 'float32', true)).toEqual([]);
+    const hlsl = compileHlsl(emitFiles(input, ['hlsl']).find((f) => f.path.endsWith('.hlsl'))!, name, input.program.inputs.length);
+    expect({ ok: hlsl.ok, output: hlsl.output }).toEqual({ ok: true, output: '' });
   }, 300_000);
 
   test('the check can fail: the same cases on the extrapolating function break the promise', () => {

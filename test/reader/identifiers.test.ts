@@ -24,11 +24,14 @@ describe('identifierProblem', () => {
   });
 
   test('gives each language that reserves a word, and how', () => {
-    expect(identifierProblem('float')).toBe('`float` is a keyword in C and GLSL; choose another name');
+    expect(identifierProblem('float')).toBe('`float` is a keyword in C, GLSL and HLSL; choose another name');
     expect(identifierProblem('function')).toBe('`function` is a reserved word in TypeScript; choose another name');
-    expect(identifierProblem('vec4')).toBe('`vec4` is a keyword in GLSL; choose another name');
-    expect(identifierProblem('static')).toBe('`static` is a keyword in C, and a reserved word in TypeScript and GLSL; choose another name');
-    expect(identifierProblem('true')).toBe('`true` is a keyword in C and GLSL, and a reserved word in TypeScript; choose another name');
+    expect(identifierProblem('vec4')).toBe('`vec4` is a keyword in GLSL, and a predeclared type in WGSL; choose another name');
+    expect(identifierProblem('static')).toBe('`static` is a keyword in C, HLSL and Rust, and a reserved word in TypeScript, GLSL and WGSL; choose another name');
+    expect(identifierProblem('true')).toBe('`true` is a keyword in C, GLSL, WGSL, HLSL and Rust, and a reserved word in TypeScript; choose another name');
+    expect(identifierProblem('fn')).toBe('`fn` is a keyword in WGSL and Rust; choose another name');
+    expect(identifierProblem('float4')).toBe('`float4` is a vector or matrix type in HLSL; choose another name');
+    expect(identifierProblem('asuint')).toBe('`asuint` is an intrinsic function in HLSL; choose another name');
     expect(identifierProblem('sin')).toBe('`sin` is a standard library function in C, and a built-in function in GLSL; choose another name');
     expect(identifierProblem('main')).toBe('`main` is the program entry point in C, and the shader entry point in GLSL; choose another name');
   });

@@ -15,9 +15,9 @@ describe('reading single values', () => {
   });
 
   test('keywords of C, TypeScript and GLSL are refused with the reason', () => {
-    expectRefusal(edit(1, 'function: float'), 'spec.yaml:1:11: function: ', '`float` is a keyword in C and GLSL; choose another name');
+    expectRefusal(edit(1, 'function: float'), 'spec.yaml:1:11: function: ', '`float` is a keyword in C, GLSL and HLSL; choose another name');
     expectRefusal(edit(1, 'function: function'), 'spec.yaml:1:11: function: ', '`function` is a reserved word in TypeScript; choose another name');
-    expectRefusal(edit(1, 'function: vec4'), 'spec.yaml:1:11: function: ', '`vec4` is a keyword in GLSL; choose another name');
+    expectRefusal(edit(1, 'function: vec4'), 'spec.yaml:1:11: function: ', '`vec4` is a keyword in GLSL, and a predeclared type in WGSL; choose another name');
     expectRefusal(edit(1, 'function: gl_Pos'), 'spec.yaml:1:11: function: ', '`gl_Pos` starts with gl_, which GLSL reserves');
     expectRefusal(edit(1, 'function: a__b'), 'spec.yaml:1:11: function: ', '`a__b` contains __, which GLSL reserves');
   });

@@ -3,6 +3,7 @@ import { formatBoundUp } from '../../emit/literals/round-up.js';
 import { equationText } from '../../emit/header.js';
 import type { Plan } from '../../plan/plan.js';
 import { claimsOf } from '../pipeline.js';
+import { COST_MODELS } from '../../ir/cost/index.js';
 
 /** The documented shape of `plan --json` (see README, "plan --json"). */
 export function planJson(plan: Plan): object {
@@ -24,7 +25,7 @@ export function planJson(plan: Plan): object {
     target: c.target,
     ops: c.ops,
     segments: { counts: plan.counts, tableBytes: plan.tableBytes },
-    cost: { model: plan.family.arithmetic === 'float32' ? 'cortex-m4f' : 'x86-64', value: plan.cost },
+    cost: { model: plan.costModel, value: plan.cost },
     candidates: plan.candidates.map((k) => ({
       form: k.form,
       degree: k.degree,
@@ -84,7 +85,7 @@ export function planText(plan: Plan): string {
     ['target', `${f.accuracy.value} (${f.accuracy.kind})`],
     ['ops', `${c.ops.add} add, ${c.ops.mul} mul, ${c.ops.div} div, ${c.ops.tableReads} table reads${c.ops.compares > 0 ? `, ${c.ops.compares} compares (inputs saturated)` : ''}`],
     ['segments', `${plan.counts.join(' x ')} (${plan.tableBytes} table bytes)`],
-    ['cost', `${plan.cost} (${f.arithmetic === 'float32' ? 'Cortex-M4F cycles, estimated' : 'x86-64 latency units'}; src/plan/cost.ts)`],
+    ['cost', `${plan.cost} (${COST_MODELS[plan.costModel].unit}; src/ir/cost/)`],
   ];
   return [
     `${f.functionName}`,

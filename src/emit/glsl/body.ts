@@ -40,7 +40,7 @@ export function glslBodyLines(program: Program, shape: GlslShape, name: string):
 }
 
 /** Which nodes hold four values in the given shape: the arguments and everything computed from one. */
-function vectorNodes(program: Program, shape: GlslShape): boolean[] {
+export function vectorNodes(program: Program, shape: GlslShape): boolean[] {
   const vector: boolean[] = [];
   for (const n of program.nodes) {
     switch (n.kind) {

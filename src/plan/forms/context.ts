@@ -3,6 +3,7 @@
  * segmentation with its expansion points, the certified cells, the term pool,
  * and the plans the forms before it found.
  */
+import type { CostModel } from '../../ir/cost/index.js';
 import type { Program } from '../../ir/nodes.js';
 import type { Family } from '../../family/types.js';
 import type { CellSet } from '../cell-set.js';
@@ -27,6 +28,8 @@ export interface FormContext {
   /** The prefix program: r, q_k and the coefficient nodes (src/plan/series-program.ts). */
   readonly ap: AnalysisProgram;
   readonly pool: TermPool;
+  /** The cost model plans are ranked by (src/ir/cost/index.ts). */
+  readonly costModel: CostModel;
   /** A program's table bytes; refuses the segments when they exceed plan.max_table_bytes. */
   readonly checkTable: (program: Program) => number;
 }

@@ -33,7 +33,8 @@ export function economisedPlan(ctx: FormContext, series: Plan): Plan | null {
       if (!e) break;
       const evaluated = evaluate(family, e.program, cells, (c) => cellTail(c, n), relative, (c) => e.error[c.segment]!);
       if (evaluated.bound.total > target) continue;
-      const plan = planOf(ctx, { form: 'economised', order: n, degree: e.degree, terms, steps: 0, program: e.program, evaluated });
+      const note = `the series is collapsed to a polynomial in ${family.inputs[0]!.name} and Chebyshev-economised to degree ${e.degree}`;
+      const plan = planOf(ctx, { form: 'economised', order: n, degree: e.degree, terms, steps: 0, program: e.program, evaluated, note });
       if (!best || plan.cost < best.cost) best = plan;
       break;
     }

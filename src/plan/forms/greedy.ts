@@ -19,8 +19,11 @@ export function greedyPlan(ctx: FormContext, series: Plan): Plan | null {
   const { family, expansion, relative, target, pool } = ctx;
   const cells = ctx.set.cells;
   let drawn: SeriesTerm[] | null = null;
-  for (let w = series.order + GREEDY.extraGrades; w >= series.order && !drawn; w--) drawn = pool.termsUpTo(w);
+  let grade = series.order + GREEDY.extraGrades;
+  for (; grade >= series.order; grade--) if ((drawn = pool.termsUpTo(grade))) break;
   if (!drawn) return null;
+  // The note says what the terms were drawn from: every term up to `grade`, not up to the highest kept one.
+  const note = `the kept terms are chosen greedily, largest majorant contribution first, from every term up to grade ${grade} (the truncation bound below is for exactly these terms)`;
   for (const share of GREEDY.truncationShares) {
     const room = Math.max(0, 1 - series.bound.rounding / target) * share;
     const choice = greedyTerms(cells, drawn, (c) => (relative ? target * c.rootMin : target) * room);
@@ -29,7 +32,7 @@ export function greedyPlan(ctx: FormContext, series: Plan): Plan | null {
     const program = seriesProgram(family, expansion, choice.terms);
     const evaluated = evaluate(family, program, cells, (c) => tails.get(c)!, relative);
     if (evaluated.bound.total > target) continue;
-    const plan = planOf(ctx, { form: 'greedy', order: Math.max(...choice.terms.map((t) => t.grade)), degree: null, terms: choice.terms, steps: 0, program, evaluated });
+    const plan = planOf(ctx, { form: 'greedy', order: Math.max(...choice.terms.map((t) => t.grade)), degree: null, terms: choice.terms, steps: 0, program, evaluated, note });
     return plan.cost < series.cost ? plan : null;
   }
   return null;

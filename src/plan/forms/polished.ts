@@ -5,7 +5,7 @@
  * any program is built; a step count whose cheapest program (order 0) costs
  * no less than a plan in hand is not weighed.
  */
-import { programCost } from '../cost.js';
+import { programCost } from '../../ir/cost/index.js';
 import { planOf } from '../plan-of.js';
 import { coreProgram, polishBound, polishedProgram, PolishFailure, stepProgram } from '../polish.js';
 import { POLISH } from '../tuning.js';
@@ -28,7 +28,7 @@ export function polishedPlans(ctx: FormContext, found: FoundPlans): Plan[] {
   // skip every k whose cheapest program costs more than a plan in hand.
   const empty = pool.termsUpTo(0);
   if (!empty) return out;
-  const floorCost = (k: number): number => programCost(polishedProgram(family, expansion, empty, k));
+  const floorCost = (k: number): number => programCost(polishedProgram(family, expansion, empty, k), ctx.costModel);
   if (floorCost(Math.min(...stepCounts)) >= toBeat) return out;
   for (const k of stepCounts) {
     if (k !== Math.min(...stepCounts) && floorCost(k) >= toBeat) continue;
@@ -59,7 +59,8 @@ export function polishedPlans(ctx: FormContext, found: FoundPlans): Plan[] {
       const program = polishedProgram(family, expansion, terms, k);
       ctx.checkTable(program);
       const bound = { kind: relative ? ('relative' as const) : ('absolute' as const), truncation: full.truncation, rounding: full.rounding, total: full.total };
-      const plan = planOf(ctx, { form: 'series', order: n, degree: null, terms, steps: k, program, evaluated: { bound, absolute: full.absolute } });
+      const note = `then ${k} Newton step${k === 1 ? '' : 's'} (the truncation bound below is the Newton error term left after the last step, carried from the series bound)`;
+      const plan = planOf(ctx, { form: 'series', order: n, degree: null, terms, steps: k, program, evaluated: { bound, absolute: full.absolute }, note });
       toBeat = Math.min(toBeat, plan.cost);
       out.push(plan);
       break;

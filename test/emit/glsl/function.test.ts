@@ -116,9 +116,9 @@ describe('glslFunction', () => {
 });
 
 describe('the glsl target in emitFiles', () => {
-  test('`all` is c, ts and glsl; a float32 spec gets NAME.glsl and NAME.glsl-check.html after the others', () => {
+  test('`all` is c, ts, glsl, wgsl, hlsl and rust; a float32 spec gets NAME.glsl and NAME.glsl-check.html after C and TypeScript', () => {
     process.chdir(REPO_ROOT);
-    expect(TARGETS).toEqual(['c', 'ts', 'glsl']);
+    expect(TARGETS).toEqual(['c', 'ts', 'glsl', 'wgsl', 'hlsl', 'rust']);
     const files = emitFiles(emitInputOf(planSpec('examples/kiln-probe.yaml')), TARGETS).map((f) => f.path);
     expect(files).toEqual([
       'kiln_probe_celsius.h',
@@ -127,14 +127,19 @@ describe('the glsl target in emitFiles', () => {
       'kiln_probe_celsius.check.ts',
       'kiln_probe_celsius.glsl',
       'kiln_probe_celsius.glsl-check.html',
+      'kiln_probe_celsius.wgsl',
+      'kiln_probe_celsius.hlsl',
+      'kiln_probe_celsius.rs',
     ]);
   });
 
-  test('a float64 spec: `all` leaves glsl out, glsl alone is refused', () => {
+  test('a float64 spec: `all` leaves the shading languages out, each alone is refused', () => {
     process.chdir(REPO_ROOT);
     const input = emitInputOf(planSpec('examples/gas-molar-volume.yaml'));
-    expect(applicableTargets(input, TARGETS)).toEqual(['c', 'ts']);
-    expect(emitFiles(input, TARGETS).some((f) => f.path.includes('.glsl'))).toBe(false);
+    expect(applicableTargets(input, TARGETS)).toEqual(['c', 'ts', 'rust']);
+    expect(emitFiles(input, TARGETS).some((f) => /\.(glsl|wgsl|hlsl)/.test(f.path))).toBe(false);
+    expect(() => emitFiles(input, ['wgsl'])).toThrow(/^WGSL has no 64-bit float type \(f16 and f32 only\): set arithmetic: float32 to emit WGSL$/);
+    expect(() => emitFiles(input, ['hlsl'])).toThrow(/: set arithmetic: float32 to emit HLSL$/);
     expect(() => emitFiles(input, ['glsl'])).toThrow(/^GLSL has no float64 in ES 3\.00: set arithmetic: float32 to emit GLSL$/);
   });
 });

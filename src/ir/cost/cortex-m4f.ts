@@ -1,12 +1,12 @@
 /**
- * An estimate of the Cortex-M4F cycles one call of a program costs, read from
- * the IR (so it cannot disagree with the op counts beside it in the header).
+ * The Cortex-M4F cost model: an estimate of the cycles one call of a program
+ * costs, read from the IR. The planner ranks float32 plans by it and the
+ * header prints it (src/ir/cost/index.ts), so the two figures are one.
  *
  * Per-instruction cycle counts come from the one timing table,
  * src/ir/timings.ts (the FPU instruction timing table of the ARM Cortex-M4
  * Technical Reference Manual, quoted FROM MEMORY and not measured on
- * hardware; the planner's cost model reads the same table). How the IR
- * kinds map onto instructions:
+ * hardware). How the IR kinds map onto instructions:
  *
  *   IR                     instruction            cycles
  *   add, sub               VADD.F32, VSUB.F32     1
@@ -33,10 +33,10 @@
  * only, so double arithmetic runs in the compiler's software library (tens to
  * hundreds of cycles per operation, depending on the library): not estimated.
  */
-import { countOps } from '../ir/count.js';
-import { UnknownNodeError, type Node, type Program } from '../ir/nodes.js';
-import { CORTEX_M4F_CYCLES as M4F, CORTEX_M4F_TABLE_READ_CYCLES } from '../ir/timings.js';
-import { ARITHMETICS } from '../family/arithmetic.js';
+import { ARITHMETICS } from '../../family/arithmetic.js';
+import { countOps } from '../count.js';
+import { UnknownNodeError, type Node, type Program } from '../nodes.js';
+import { CORTEX_M4F_CYCLES as M4F, CORTEX_M4F_TABLE_READ_CYCLES } from '../timings.js';
 
 /** Cycles per arithmetic IR node kind (see the table above); constants are charged per use in cortexM4fCycles. */
 const CYCLES: Readonly<Record<string, number>> = {
@@ -108,14 +108,14 @@ export function cortexM4fCycles(program: Program): CycleEstimate {
   return { kind: 'estimated', cycles, fpuOps, constantLoads: usedConstants.size, tableReads, indexes };
 }
 
-/** The one header line, e.g. `cortex-m4f estimate: ~40 cycles (18 FPU ops + 11 constant loads; ...)`. */
-export function cycleHeaderLine(program: Program): string {
+/** The header line, e.g. `cortex-m4f estimate: ~40 cycles (18 FPU ops + 11 constant loads; ...)`. */
+export function cortexM4fLine(program: Program): string {
   const e = cortexM4fCycles(program);
   if (e.kind === 'software-double') return 'cortex-m4f estimate: software double: not estimated (FPv4-SP has no double unit)';
   const segments = e.tableReads + e.indexes === 0 ? '' : ` + ${e.tableReads} table reads + ${e.indexes} segment ${e.indexes === 1 ? 'index' : 'indexes'}`;
   const n = program.nodes.filter((x) => x.kind === 'clamp').length;
   const clamps = n === 0 ? '' : ` + ${n} clamped ${n === 1 ? 'input' : 'inputs'}`;
-  return `cortex-m4f estimate: ~${e.cycles} cycles (${e.fpuOps} FPU ops + ${e.constantLoads} constant loads${segments}${clamps}; Cortex-M4 TRM FPU timings, see src/emit/cycles.ts)`;
+  return `cortex-m4f estimate: ~${e.cycles} cycles (${e.fpuOps} FPU ops + ${e.constantLoads} constant loads${segments}${clamps}; Cortex-M4 TRM FPU timings, see src/ir/cost/cortex-m4f.ts)`;
 }
 
 /** The value operands of a node (the fields a and b of the arithmetic kinds). */

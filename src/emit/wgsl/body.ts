@@ -1,0 +1,121 @@
+/**
+ * The body of a WGSL function, printed from the IR: one `let` per computed
+ * node, in program order, and a return. Constants print inline as f32
+ * literals (`1.5f`), inputs by name, computed values as `v<index>`.
+ *
+ * Two shapes share this printer: `f32`, the scalar function, and `vec4`, four
+ * inputs at once. In the vec4 shape a value that depends on an argument is a
+ * `vec4<f32>` and a value made of constants only stays an f32: WGSL applies
+ * the arithmetic operators to a scalar and a vector component-wise (WGSL,
+ * "Arithmetic Expressions"), so each component sees exactly the operations of
+ * the scalar function, in the same order.
+ *
+ * The segment number is round(t) (WGSL's round rounds halfway cases to the
+ * even integer, "Numeric Built-in Functions"), converted to i32 and clamped
+ * with the integer clamp built-in; for every |t| < 2^22 that is the C
+ * function's magic-constant rounding. As in GLSL, the magic constant itself is
+ * not used: a shader compiler may reassociate (x - c0) + M. Per-segment
+ * constants are module-scope `const` arrays (tableDeclarations), read at the
+ * clamped index, so no read leaves a table.
+ */
+import { ARITHMETICS } from '../../family/arithmetic.js';
+import { UnknownNodeError, type IndexPart, type Node, type Program } from '../../ir/nodes.js';
+import { wgslLiteral, wgslOperand } from '../literals/wgsl.js';
+import { valueName } from '../names.js';
+import { operandText, resultText, type OperandStyle } from '../operands.js';
+import { vectorNodes } from '../glsl/body.js';
+
+export type WgslShape = 'f32' | 'vec4';
+
+/** The module-scope name of node `at`'s table: the function name keeps two functions in one module apart. */
+export function wgslTableName(functionName: string, at: number): string {
+  return `rc_${functionName}_tab${at}`;
+}
+
+export function wgslBodyLines(program: Program, functionName: string, shape: WgslShape): string[] {
+  if (ARITHMETICS[program.arithmetic].wgslType === null) throw new RangeError(`WGSL code is float32 only; the program computes in ${program.arithmetic}`);
+  const vector = vectorNodes(program, shape === 'vec4' ? 'vec4' : 'float');
+  const lines: string[] = [];
+  program.nodes.forEach((node, i) => lines.push(...wgslNodeLines(program, functionName, node, i, vector)));
+  const result = resultText(program, WGSL_STYLE);
+  lines.push(`return ${shape === 'vec4' && !vector[program.result] ? `vec4<f32>(${result})` : result};`);
+  return lines;
+}
+
+/** Every table of the program as a module-scope `const` array, in node order, each after a blank line. */
+export function wgslTableDeclarations(program: Program, functionName: string): string[] {
+  const lines: string[] = [];
+  program.nodes.forEach((node, at) => {
+    if (node.kind !== 'table') return;
+    const n = node.values.length;
+    if (n < 1) throw new RangeError(`table node ${at} is empty`);
+    const values = node.values.map((v) => wgslLiteral(v));
+    lines.push('', `const ${wgslTableName(functionName, at)} = array<f32, ${n}>(`);
+    for (let k = 0; k < n; k += 4) lines.push(`    ${values.slice(k, k + 4).join(', ')}${k + 4 < n ? ',' : ''}`);
+    lines.push(');');
+  });
+  return lines;
+}
+
+/** The lines for one node: none for constants and inputs, which print inline. */
+function wgslNodeLines(program: Program, functionName: string, node: Node, at: number, vector: readonly boolean[]): string[] {
+  const ref = (r: number): string => operandText(program, r, at, WGSL_STYLE);
+  const local = (rhs: string): string[] => [`let ${valueName(at)}: ${vector[at] ? 'vec4<f32>' : 'f32'} = ${rhs};`];
+  switch (node.kind) {
+    case 'const':
+    case 'input':
+      return [];
+    case 'neg':
+      return local(`-${ref(node.a)}`);
+    case 'clamp': {
+      // CLAMP (src/ir/nodes.ts): select(f, t, cond) picks, it does not blend; WGSL's clamp() leaves NaN to the implementation.
+      const x = ref(node.a);
+      const [lo, hi] = [wgslLiteral(node.lo), wgslLiteral(node.hi)].map((v) => (vector[at] ? `vec4<f32>(${v})` : v));
+      return local(`select(select(${x}, ${lo}, ${x} < ${lo}), ${hi}, ${x} > ${hi})`);
+    }
+    case 'add':
+      return local(`${ref(node.a)} + ${ref(node.b)}`);
+    case 'sub':
+      return local(`${ref(node.a)} - ${ref(node.b)}`);
+    case 'mul':
+      return local(`${ref(node.a)} * ${ref(node.b)}`);
+    case 'div':
+      return local(`${ref(node.a)} / ${ref(node.b)}`);
+    case 'index':
+      return wgslIndexLines(program, node.parts, at, vector);
+    case 'table': {
+      const table = wgslTableName(functionName, at);
+      const index = valueName(node.index);
+      return vector[at]
+        ? [`let ${valueName(at)}: vec4<f32> = vec4<f32>(${['x', 'y', 'z', 'w'].map((c) => `${table}[${index}.${c}]`).join(', ')});`]
+        : [`let ${valueName(at)}: f32 = ${table}[${index}];`];
+    }
+    default:
+      throw new UnknownNodeError(node);
+  }
+}
+
+/** The segment number: per part clamp(i32(round(t)), 0, count - 1), then the strided sum. */
+function wgslIndexLines(program: Program, parts: readonly IndexPart[], at: number, vector: readonly boolean[]): string[] {
+  const lines: string[] = [];
+  const terms: string[] = [];
+  const four = vector[at] === true;
+  parts.forEach((p, k) => {
+    if (!Number.isInteger(p.count) || p.count < 1 || !Number.isInteger(p.stride) || p.stride < 0) {
+      throw new RangeError(`index part ${k} of node ${at} has count ${p.count} and stride ${p.stride}`);
+    }
+    const s = `rc_s${at}_${k}`;
+    const t = operandText(program, p.t, at, WGSL_STYLE);
+    lines.push(
+      vector[p.t]
+        ? `let ${s}: vec4<i32> = clamp(vec4<i32>(round(${t})), vec4<i32>(0), vec4<i32>(${p.count - 1}));`
+        : `let ${s}: i32 = clamp(i32(round(${t})), 0, ${p.count - 1});`,
+    );
+    terms.push(p.stride === 1 ? s : `${s} * ${p.stride}`);
+  });
+  const zero = four ? 'vec4<i32>(0)' : '0';
+  lines.push(`let ${valueName(at)}: ${four ? 'vec4<i32>' : 'i32'} = ${terms.length === 0 ? zero : terms.join(' + ')};`);
+  return lines;
+}
+
+const WGSL_STYLE: OperandStyle = { operand: wgslOperand, literal: wgslLiteral, input: (name) => name };
