@@ -22,6 +22,7 @@
 // target:     1e-5 (relative)
 // series:     order 2, 4 terms, then 1 Newton step
 // operations: 15 add, 22 mul, 2 div, 0 table reads
+// x86-64 estimate: ~171 cycles of latency (40 FP ops; scalar SSE latencies, see src/ir/cost/x86-64.ts)
 // cortex-m4f estimate: software double: not estimated (FPv4-SP has no double unit)
 //
 // Use: save as n2_molar_volume.rs and write `mod n2_molar_volume;` in the parent module.

@@ -21,7 +21,7 @@
 // target:     1e-4 (relative)
 // series:     order 3, 6 terms, then 1 Newton step
 // operations: 21 add, 26 mul, 2 div, 7 table reads
-// cortex-m4f estimate: ~149 cycles (48 FPU ops + 11 constant loads + 7 table reads + 1 segment index; Cortex-M4 TRM FPU timings, see src/emit/cycles.ts)
+// cortex-m4f estimate: ~149 cycles (48 FPU ops + 11 constant loads + 7 table reads + 1 segment index; Cortex-M4 TRM FPU timings, see src/ir/cost/cortex-m4f.ts)
 //
 // Use: paste into a WGSL module or concatenate; it declares the functions
 // n2_molar_volume_wide and n2_molar_volume_wide_vec4 and module-scope const tables named rc_....

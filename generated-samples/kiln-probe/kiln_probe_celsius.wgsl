@@ -21,7 +21,7 @@
 // target:     0.001 (absolute)
 // series:     order 7, 8 terms
 // operations: 7 add, 7 mul, 0 div, 0 table reads
-// cortex-m4f estimate: ~32 cycles (14 FPU ops + 9 constant loads; Cortex-M4 TRM FPU timings, see src/emit/cycles.ts)
+// cortex-m4f estimate: ~32 cycles (14 FPU ops + 9 constant loads; Cortex-M4 TRM FPU timings, see src/ir/cost/cortex-m4f.ts)
 //
 // Use: paste into a WGSL module or concatenate; it declares the functions
 // kiln_probe_celsius and kiln_probe_celsius_vec4.

@@ -20,7 +20,7 @@
  * target:     1e-5 (absolute)
  * series:     order 4, 4 terms, then 1 Newton step
  * operations: 9 add, 18 mul, 1 div, 0 table reads
- * cortex-m4f estimate: ~52 cycles (31 FPU ops + 4 constant loads; Cortex-M4 TRM FPU timings, see src/emit/cycles.ts)
+ * cortex-m4f estimate: ~52 cycles (31 FPU ops + 4 constant loads; Cortex-M4 TRM FPU timings, see src/ir/cost/cortex-m4f.ts)
  *
  * Use: #include it in a shader (any stage, shader model 4 or later).
  *

@@ -19,7 +19,7 @@
 // target:     1e-5 (absolute)
 // series:     order 4, 4 terms, then 1 Newton step
 // operations: 9 add, 18 mul, 1 div, 0 table reads
-// cortex-m4f estimate: ~52 cycles (31 FPU ops + 4 constant loads; Cortex-M4 TRM FPU timings, see src/emit/cycles.ts)
+// cortex-m4f estimate: ~52 cycles (31 FPU ops + 4 constant loads; Cortex-M4 TRM FPU timings, see src/ir/cost/cortex-m4f.ts)
 //
 // Use: paste into a WGSL module or concatenate; it declares the functions
 // lens_undistort_radius and lens_undistort_radius_vec4.

@@ -17,7 +17,7 @@
 // target:     0.01 (absolute)
 // series:     order 0, 1 term
 // operations: 3 add, 2 mul, 0 div, 2 table reads
-// cortex-m4f estimate: ~30 cycles (4 FPU ops + 2 constant loads + 2 table reads + 1 segment index; Cortex-M4 TRM FPU timings, see src/emit/cycles.ts)
+// cortex-m4f estimate: ~30 cycles (4 FPU ops + 2 constant loads + 2 table reads + 1 segment index; Cortex-M4 TRM FPU timings, see src/ir/cost/cortex-m4f.ts)
 //
 // Use: paste into a WGSL module or concatenate; it declares the functions
 // spring_deflection_mm and spring_deflection_mm_vec4 and module-scope const tables named rc_....
