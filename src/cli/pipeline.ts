@@ -6,10 +6,18 @@
 import type { EmitInput, PlanClaims } from '../emit/types.js';
 import { makePlan, type Plan } from '../plan/plan.js';
 import { loadSpec } from '../reader/load.js';
+import { planProgress } from './progress.js';
 import { VERSION } from '../version.js';
 
+/** Plans a spec file; on a terminal, a plan running past a second shows progress on stderr. */
 export function planSpec(file: string): Plan {
-  return makePlan(loadSpec(file));
+  const family = loadSpec(file);
+  const progress = planProgress(process.stderr, `planning ${family.functionName}`);
+  try {
+    return makePlan(family, { onWork: progress.observe });
+  } finally {
+    progress.stop();
+  }
 }
 
 export function claimsOf(plan: Plan): PlanClaims {

@@ -41,3 +41,35 @@ export function startProgress(stream: ProgressStream, label: string, total: numb
     stop: () => bar.stop(),
   };
 }
+
+/** Planning shows a bar only once it has run this long (ms of wall time; display only, never the plan). */
+export const PLAN_PROGRESS_AFTER_MS = 1000;
+
+/**
+ * Progress of one plan, fed by the planner's work units (src/plan/work.ts)
+ * against its deterministic work limit: nothing during the first second, then
+ * a bar on a terminal. The plan is the same with or without it.
+ */
+export function planProgress(stream: ProgressStream, label: string, now: () => number = Date.now): { observe: (used: number, limit: number) => void; stop: () => void } {
+  const started = now();
+  let bar: SingleBar | null = null;
+  return {
+    observe: (used, limit) => {
+      if (stream.isTTY !== true) return;
+      if (!bar) {
+        if (now() - started < PLAN_PROGRESS_AFTER_MS) return;
+        bar = new SingleBar({
+          stream: stream as unknown as NodeJS.WritableStream,
+          format: `${label} [{bar}] {percentage}% of the work limit`,
+          barsize: 30,
+          hideCursor: false,
+          clearOnComplete: true,
+          fps: 10,
+        });
+        bar.start(limit, 0);
+      }
+      bar.update(used);
+    },
+    stop: () => bar?.stop(),
+  };
+}

@@ -10,6 +10,7 @@ import { widestDim, split, type Cell } from './box.js';
 import { cellFacts, cellTail, type CellFacts } from './cell-bound.js';
 import type { AnalysisProgram } from './series-program.js';
 import { SUBDIVISION } from './tuning.js';
+import { spend } from './work.js';
 
 export class CellSet {
   cells: CellFacts[];
@@ -24,7 +25,13 @@ export class CellSet {
     private readonly x0: readonly number[],
     initial: readonly { cell: Cell; segment: number }[],
   ) {
-    this.cells = initial.map((c) => cellFacts(ap, degree, c.cell, x0[c.segment]!, c.segment));
+    this.cells = initial.map((c) => this.facts(c.cell, c.segment));
+  }
+
+  /** One cell's facts, counted as work (src/plan/work.ts). */
+  private facts(cell: Cell, segment: number): CellFacts {
+    spend(this.ap.program.nodes.length);
+    return cellFacts(this.ap, this.degree, cell, this.x0[segment]!, segment);
   }
 
   private tooSmall(cell: Cell): boolean {
@@ -35,7 +42,7 @@ export class CellSet {
     const c = this.cells[index]!;
     if (this.tooSmall(c.cell)) return false;
     const halves = split(c.cell, widestDim(c.cell, this.box)).map((h) =>
-      cellFacts(this.ap, this.degree, h, this.x0[c.segment]!, c.segment),
+      this.facts(h, c.segment),
     );
     halves.forEach((h) => this.onNewCell(h));
     this.cells.splice(index, 1, ...halves);
@@ -86,7 +93,7 @@ export class CellSet {
         const m = iv.lo + (iv.hi - iv.lo) / 2;
         return { lo: m, hi: m };
       });
-      return this.bad(cellFacts(this.ap, this.degree, centre, this.x0[c.segment]!, c.segment), relative);
+      return this.bad(this.facts(centre, c.segment), relative);
     });
   }
 

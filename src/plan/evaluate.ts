@@ -15,6 +15,7 @@ import type { CellFacts } from './cell-bound.js';
 import { locate } from './locate.js';
 import { OVERFLOW_HEADROOM } from './tuning.js';
 import type { Bound } from './types.js';
+import { spend } from './work.js';
 import { WorstParts } from './worst-parts.js';
 
 export interface Evaluated {
@@ -33,6 +34,7 @@ export function evaluate(
 ): Evaluated {
   const worst = new WorstParts(relative);
   let hasExtra = false;
+  spend(program.nodes.length * cells.length);
   for (const c of cells) {
     // float32 bounds allow for flushed subnormals too, so one bound holds on CPUs and GPUs.
     const an = analyse(program, c.cell, { segment: c.segment, flushToZero: ARITHMETICS[program.arithmetic].boundsAllowFlush });

@@ -16,15 +16,28 @@ import { locate } from './locate.js';
 import { applyOutsideBox } from './outside-box.js';
 import { planSegments } from './plan-segments.js';
 import { searchSegments } from './segment-search.js';
+import { refuseWorkLimit } from './refusals.js';
 import type { Plan } from './types.js';
+import { startWork, WorkLimitError, type WorkObserver } from './work.js';
 
 export type { Bound, Candidate, Plan, PlanForm } from './types.js';
 
-export function makePlan(family: Family): Plan {
-  return applyOutsideBox(planInsideBox(family));
+export interface PlanOptions {
+  /** Watches the planner's work units (a progress display); never changes the plan. */
+  readonly onWork?: WorkObserver;
 }
 
-function planInsideBox(family: Family): Plan {
+export function makePlan(family: Family, options: PlanOptions = {}): Plan {
+  startWork(options.onWork ?? null);
+  try {
+    return applyOutsideBox(planWithinLimit(family));
+  } catch (e) {
+    if (e instanceof WorkLimitError) refuseWorkLimit(family);
+    throw e;
+  }
+}
+
+function planWithinLimit(family: Family): Plan {
   const box = boxOf(family);
   certifyBracket(family, box.cell);
   const knob = family.plan.segments;

@@ -105,15 +105,27 @@ export function refuseFloor(family: Family, total: number, rounding: number): ne
   );
 }
 
-export function refuseOrder(family: Family, needed: number | null): never {
+/** `reached`: the highest order whose truncation bound was computed (the search stopped there at a limit). */
+export function refuseOrder(family: Family, needed: number | null, reached: number = LIMITS.grade): never {
   if (needed === null) {
     throw new RootcastError(
-      `the series needs more than order ${LIMITS.grade} (or ${LIMITS.terms} terms) to meet the target; narrow the input ranges, loosen the accuracy${family.bracket ? '' : ' or add root.bracket to recentre the series'}`,
+      `the series needs more than order ${reached} to meet the target (the planner stops there, at its work limit); loosen the accuracy${family.bracket ? (family.plan.segments === 'auto' ? '' : ', set plan.segments: auto') : ' or add root.bracket to recentre the series (and split the inputs into segments)'}, or narrow the input ranges`,
       locate(family, `accuracy.${family.accuracy.kind}`),
     );
   }
   throw new RootcastError(
     `plan.max_order ${family.plan.maxOrder} is too small: the truncation bound alone needs order ${needed}; set plan.max_order: ${needed} or more`,
     family.positions['plan.max_order'] ? locate(family, 'plan.max_order') : { ...locate(family, `accuracy.${family.accuracy.kind}`), field: 'plan.max_order' },
+  );
+}
+
+/** No plan met the target before the planner's deterministic work limit (src/plan/work.ts). */
+export function refuseWorkLimit(family: Family): never {
+  const hint = family.bracket
+    ? family.plan.segments === 'auto' ? '' : ', set plan.segments: auto'
+    : ', add root.bracket to recentre the series';
+  throw new RootcastError(
+    `no plan met the target ${family.accuracy.value} within the planner's work limit (the certified bound still missed it); loosen the accuracy${family.arithmetic === 'float32' ? ', use arithmetic: float64' : ''}${hint} or narrow the input ranges`,
+    locate(family, `accuracy.${family.accuracy.kind}`),
   );
 }

@@ -13,13 +13,14 @@ import { locate } from './locate.js';
 import { candidatesOf, refusedCandidate, withCandidates } from './candidates.js';
 import { planSegments } from './plan-segments.js';
 import { SEGMENT_SEARCH } from './tuning.js';
+import { WorkLimitError } from './work.js';
 import type { Candidate, Plan } from './types.js';
 
 /** `fixed`: per input, the count the spec sets, or null where the search chooses (all null for `segments: auto`). */
 export function searchSegments(family: Family, box: Cell, fixed: readonly (number | null)[] = family.inputs.map(() => null)): Plan {
   const d = family.inputs.length;
   const candidates: Candidate[] = [];
-  const found: { best: Plan | null; firstError: RootcastError | null } = { best: null, firstError: null };
+  const found: { best: Plan | null; firstError: RootcastError | null; exhausted: boolean } = { best: null, firstError: null, exhausted: false };
   const tried = new Map<string, Plan | null>();
   const attempt = (counts: number[]): Plan | null => {
     const key = counts.join('x');
@@ -36,6 +37,12 @@ export function searchSegments(family: Family, box: Cell, fixed: readonly (numbe
       if (!found.best || p.cost < found.best.cost) found.best = p;
       return p;
     } catch (e) {
+      if (e instanceof WorkLimitError) {
+        // The work limit ends the search: the best plan so far stands (src/plan/work.ts).
+        found.exhausted = true;
+        candidates.push(refusedCandidate(counts, 'stopped at the planner work limit'));
+        return null;
+      }
       if (!(e instanceof RootcastError)) throw e;
       found.firstError ??= e;
       candidates.push(refusedCandidate(counts, e.message));
@@ -52,11 +59,11 @@ export function searchSegments(family: Family, box: Cell, fixed: readonly (numbe
   }
   const currentPlan = attempt(current);
   if (!family.bracket) {
-    if (!currentPlan) throw found.firstError!;
+    if (!currentPlan) throw found.firstError ?? new WorkLimitError();
     return withCandidates(currentPlan, candidatesOf(currentPlan));
   }
   let stale = 0;
-  for (let step = 0; step < SEGMENT_SEARCH.maxSteps && stale < SEGMENT_SEARCH.staleSteps; step++) {
+  for (let step = 0; step < SEGMENT_SEARCH.maxSteps && stale < SEGMENT_SEARCH.staleSteps && !found.exhausted; step++) {
     const before = found.best?.cost ?? Infinity;
     let next: { counts: number[]; plan: Plan | null } | null = null;
     for (let i = 0; i < d; i++) {
@@ -79,7 +86,7 @@ export function searchSegments(family: Family, box: Cell, fixed: readonly (numbe
     // Steps in a row without a cheaper plan end the search (none found yet does not count).
     stale = found.best && found.best.cost >= before ? stale + 1 : 0;
   }
-  if (!found.best) throw found.firstError!;
+  if (!found.best) throw found.firstError ?? new WorkLimitError();
   return withCandidates(found.best, candidates);
 }
 

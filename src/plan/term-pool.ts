@@ -7,6 +7,7 @@ import { termsOfGrade, type SeriesTerm } from '../series/hyper-catalan.js';
 import { addGrade } from './cell-bound.js';
 import type { CellSet } from './cell-set.js';
 import { LIMITS } from './tuning.js';
+import { spend } from './work.js';
 
 export class TermPool {
   /** The terms of each grade built so far, by grade. */
@@ -20,7 +21,10 @@ export class TermPool {
     private readonly active: readonly number[],
     private readonly set: CellSet,
   ) {
-    set.onNewCell = (c) => this.byGrade.forEach((ts, w) => addGrade(c, ts, w));
+    set.onNewCell = (c) => {
+      spend(this.kept.length * this.byGrade.length);
+      this.byGrade.forEach((ts, w) => addGrade(c, ts, w));
+    };
   }
 
   /** Number of grades built (the next one to build). */
@@ -34,6 +38,7 @@ export class TermPool {
     this.byGrade.push(fresh);
     this.kept.push(...fresh);
     if (this.kept.length > LIMITS.terms) return false;
+    spend(fresh.length * this.set.cells.length * (grade + 1));
     for (const c of this.set.cells) addGrade(c, fresh, grade);
     return true;
   }

@@ -141,3 +141,17 @@ export const BRACKET_CHECK = {
   /** Box evaluations that exclusion may use in all, over every cell of one plan: bounds the work where P really vanishes outside the bracket. */
   exclusionWork: 200000,
 } as const;
+
+/** The deterministic work limit of one plan (src/plan/work.ts). */
+export const WORK = {
+  /**
+   * Units of work one plan may use: about 2.5 to 4 s of planning (CPU) on a 2-core
+   * AMD EPYC under node 20 (measured with bench/plan-time.js); the
+   * goal is no plan over 10 s on such a machine.
+   */
+  limit: 2e8,
+  /** Share of the limit the search for the order needed past plan.max_order may use (it only words a refusal). */
+  orderHuntShare: 1 / 8,
+  /** Progress reports over the whole limit. */
+  reports: 200,
+} as const;

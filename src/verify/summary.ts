@@ -17,8 +17,8 @@ import type { Arithmetic } from '../family/arithmetic.js';
 import { formatE, formatG } from './printf.js';
 
 /** `GLSL` is the scalar GLSL function, `GLSL vec4` its vec4 overload (both run on WebGL2). */
-export type SummaryLanguage = 'C' | 'TypeScript' | 'GLSL' | 'GLSL vec4' | 'in-process';
-export type CheckTarget = 'in-process' | 'c' | 'ts' | 'glsl';
+export type SummaryLanguage = 'C' | 'TypeScript' | 'GLSL' | 'GLSL vec4' | 'WGSL' | 'WGSL vec4' | 'Rust' | 'in-process';
+export type CheckTarget = 'in-process' | 'c' | 'ts' | 'glsl' | 'wgsl' | 'rust';
 
 export interface CheckSummary {
   readonly target: CheckTarget;
@@ -51,6 +51,9 @@ const LANGUAGE_TARGET: Readonly<Record<SummaryLanguage, CheckTarget>> = {
   TypeScript: 'ts',
   GLSL: 'glsl',
   'GLSL vec4': 'glsl',
+  WGSL: 'wgsl',
+  'WGSL vec4': 'wgsl',
+  Rust: 'rust',
   'in-process': 'in-process',
 };
 
@@ -85,7 +88,7 @@ export function formatSummary(
 const NUMBER = String.raw`(?:-?inf|nan|-?\d+(?:\.\d+)?(?:e[+-]\d+)?)`;
 const POINT = String.raw`\w+ = ${NUMBER}(?:, \w+ = ${NUMBER})*`;
 const LINE = new RegExp(
-  String.raw`^check (\w+) \((C|TypeScript|GLSL vec4|GLSL|in-process), (float32|float64)\): (\d+) points?; ` +
+  String.raw`^check (\w+) \((C|TypeScript|GLSL vec4|GLSL|WGSL vec4|WGSL|Rust|in-process), (float32|float64)\): (\d+) points?; ` +
     String.raw`worst (absolute|relative) error (?:none|(${NUMBER}) at (${POINT}))` +
     String.raw`(?:; no sign change in the bracket at (\d+) points?, first at (${POINT}))?` +
     String.raw`; certified bound (${NUMBER}); target (${NUMBER}); (PASS|FAIL)$`,

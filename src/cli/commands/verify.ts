@@ -1,5 +1,5 @@
 /**
- * `rootcast verify SPEC [--target c|ts|glsl|all] [--samples N] [--seed S] [--json] [--report FILE.html]`:
+ * `rootcast verify SPEC [--target c|ts|glsl|wgsl|hlsl|rust|all] [--samples N] [--seed S] [--json] [--report FILE.html]`:
  * the in-process check of the IR against the exact bisection reference, then
  * each target's harness built and run for real. Exit 1 if any check fails.
  * `--json` prints one object instead of the summary lines; `--report` writes
@@ -26,6 +26,17 @@ import { applicableTargets, emitFiles, targetsOf } from '../emit-files.js';
 import { runGlslPage, type PageRun } from '../../verify/glsl/run-page.js';
 import { refuseUnlessFloat32 } from '../../emit/glsl/refuse.js';
 import { emitInputOf, planSpec } from '../pipeline.js';
+import { runBitCheck, type BitTarget } from '../../verify/bit-check.js';
+import type { PointResult } from '../../verify/inprocess.js';
+import { rustcAvailable } from '../../verify/rust/run.js';
+import { glslangAvailable } from '../../verify/hlsl/compile.js';
+
+/** The bit runners' tools: which target, whether the tool is here, how to get it. */
+const BIT_TOOLS: readonly (readonly [BitTarget, () => boolean, string])[] = [
+  ['wgsl', () => existsSync(DEFAULT_CHROMIUM), 'Chromium is not installed: apt-get install chromium, then rootcast verify --target wgsl'],
+  ['hlsl', () => glslangAvailable(), 'glslangValidator is not installed: apt-get install glslang-tools, then rootcast verify --target hlsl'],
+  ['rust', () => rustcAvailable(), 'rustc is not installed: apt-get install rustc, then rootcast verify --target rust'],
+];
 
 export interface VerifyOptions {
   spec: string;
@@ -42,9 +53,20 @@ export function runVerify(o: VerifyOptions, print: (line: string) => void): numb
   const plan = planSpec(o.spec);
   const input = emitInputOf(plan);
   const name = plan.family.functionName;
-  let targets = applicableTargets(input, targetsOf(o.target)).filter((t) => t === 'c' || t === 'ts' || t === 'glsl');
-  // Refuse a float64 spec for --target glsl before any check prints a line.
+  let targets = applicableTargets(input, targetsOf(o.target));
+  // Refuse a float64 spec for --target glsl, wgsl or hlsl before any check prints a line.
   if (targets.includes('glsl')) refuseUnlessFloat32(plan.family);
+  if (targets.includes('wgsl') || targets.includes('hlsl')) emitFiles(input, targets.filter((t) => t === 'wgsl' || t === 'hlsl'));
+  // With --target all, a bit runner whose tool is missing is skipped with a note; asked for alone it refuses.
+  const skippedTools: string[] = [];
+  if (o.target === 'all') {
+    for (const [t, available, install] of BIT_TOOLS) {
+      if (targets.includes(t) && !available()) {
+        targets = targets.filter((x) => x !== t);
+        skippedTools.push(`${t} ${name}: skipped (${install})`);
+      }
+    }
+  }
   // With the default --target all, a machine without Chromium still checks C
   // and TypeScript and says what it skipped; --target glsl alone refuses instead.
   let skippedGlsl = false;
@@ -58,6 +80,7 @@ export function runVerify(o: VerifyOptions, print: (line: string) => void): numb
     if (!o.json) print(line);
   };
   const points: ReportPoint[] = [];
+  const checked: PointResult[] = [];
   const total = sampleTotal(plan.family.inputs.length, o.samples, edgePointsOf(plan.family, input.program).length);
   const bar = startProgress(o.progress ?? { write: () => true }, `check ${name} (in-process)`, total);
   const inproc = checkInProcess(input, {
@@ -65,6 +88,7 @@ export function runVerify(o: VerifyOptions, print: (line: string) => void): numb
     seed: o.seed,
     onPoint: (p) => {
       bar.update(p.index + 1);
+      checked.push(p);
       if (o.report !== undefined && p.error !== null) points.push({ at: p.at, error: p.error });
     },
   });
@@ -82,6 +106,13 @@ export function runVerify(o: VerifyOptions, print: (line: string) => void): numb
   const args = ['--samples', String(o.samples), '--seed', String(o.seed)];
   for (const t of targets) {
     const files = emitFiles(input, [t]);
+    if (t === 'wgsl' || t === 'hlsl' || t === 'rust') {
+      const bit = runBitCheck(t, input, files[0]!, checked);
+      for (const line of bit.lines) show(line);
+      checks.push(...bit.summaries);
+      failed ||= !bit.pass;
+      continue;
+    }
     const run: HarnessRun | PageRun =
       t === 'c'
         ? runCHarness(name, files, args)
@@ -110,6 +141,7 @@ export function runVerify(o: VerifyOptions, print: (line: string) => void): numb
     if (reports.length > 0) show(formatBranchLine(name, reports));
     if (reports.some((r) => branchy(r.count))) failed = true;
   }
+  for (const line of skippedTools) show(line);
   if (skippedGlsl) show(`glsl ${name}: skipped (Chromium is not installed: apt-get install chromium, then rootcast verify --target glsl)`);
   if (o.json) print(JSON.stringify(verifyJson(planJson(plan), checks, !failed), null, 2));
   if (o.report !== undefined) {

@@ -9,7 +9,8 @@ import { evaluate } from '../evaluate.js';
 import { planOf } from '../plan-of.js';
 import { refuseFloor, refuseOrder } from '../refusals.js';
 import { seriesProgram } from '../series-program.js';
-import { LIMITS, ORDER_SEARCH } from '../tuning.js';
+import { LIMITS, ORDER_SEARCH, WORK } from '../tuning.js';
+import { WorkLimitError, workUsed } from '../work.js';
 import type { Plan } from '../types.js';
 import type { FormContext } from './context.js';
 
@@ -36,10 +37,21 @@ export function seriesOrderPlan(ctx: FormContext): Plan {
     if (evaluated.bound.truncation < ORDER_SEARCH.negligibleTruncation * evaluated.bound.rounding) refuseFloor(family, best.total, best.rounding);
   }
   if (best && best.rounding > target * ORDER_SEARCH.roundingFloorShare) refuseFloor(family, best.total, best.rounding);
-  // Past max_order: find the order the truncation bound alone needs (cheap: no programs, no refinement).
-  for (let order = pool.grades; order <= LIMITS.grade; order++) {
-    if (!pool.nextGrade(order)) break;
-    if (set.truncation(order, relative) <= target) refuseOrder(family, order);
+  // Past max_order: find the order the truncation bound alone needs (no refinement), within a
+  // share of the work limit; quote it only when its program meets the target with rounding too,
+  // so that setting plan.max_order to it plans.
+  const huntEnd = workUsed() + WORK.limit * WORK.orderHuntShare;
+  let order = pool.grades;
+  try {
+    for (; order <= LIMITS.grade && workUsed() < huntEnd; order++) {
+      if (!pool.nextGrade(order)) break;
+      if (set.truncation(order, relative) > target) continue;
+      const evaluated = evaluate(family, seriesProgram(family, expansion, pool.kept), set.cells, (c) => cellTail(c, order), relative);
+      if (evaluated.bound.total <= target) refuseOrder(family, order);
+      refuseFloor(family, evaluated.bound.total, evaluated.bound.rounding);
+    }
+  } catch (e) {
+    if (!(e instanceof WorkLimitError)) throw e;
   }
-  refuseOrder(family, null);
+  refuseOrder(family, null, order - 1);
 }

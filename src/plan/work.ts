@@ -1,0 +1,47 @@
+/**
+ * The planner's deterministic work limit. Planning counts its work in units
+ * (one unit: one term's majorant value on one cell, one IR node analysed on
+ * one cell, one cell's facts per prefix node) and stops at WORK.limit: the
+ * same spec stops at the same point on every machine, so output stays
+ * byte-identical (a wall-clock limit could not promise that). A plan found
+ * before the limit is kept; otherwise the refusal says the limit was reached.
+ *
+ * One meter serves one `makePlan` call at a time (planning is synchronous).
+ * An observer (the command line's progress bar) may watch the units; it
+ * never changes what is planned.
+ */
+import { WORK } from './tuning.js';
+
+/** Thrown by `spend` past the limit; caught by the segment search and makePlan, never shown. */
+export class WorkLimitError extends Error {
+  constructor() {
+    super('the planner work limit was reached');
+  }
+}
+
+export type WorkObserver = (used: number, limit: number) => void;
+
+const meter = { used: 0, limit: WORK.limit as number, observer: null as WorkObserver | null, nextReport: 0 };
+
+/** Starts counting a new plan's work. */
+export function startWork(observer: WorkObserver | null = null, limit: number = WORK.limit): void {
+  meter.used = 0;
+  meter.limit = limit;
+  meter.observer = observer;
+  meter.nextReport = limit / WORK.reports;
+}
+
+/** Counts `units` of work; throws WorkLimitError past the limit. */
+export function spend(units: number): void {
+  meter.used += units;
+  if (meter.observer && meter.used >= meter.nextReport) {
+    meter.nextReport = meter.used + meter.limit / WORK.reports;
+    meter.observer(Math.min(meter.used, meter.limit), meter.limit);
+  }
+  if (meter.used > meter.limit) throw new WorkLimitError();
+}
+
+/** Units counted so far for the current plan. */
+export function workUsed(): number {
+  return meter.used;
+}

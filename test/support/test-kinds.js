@@ -1,0 +1,58 @@
+/**
+ * Which jest project a test file belongs to (jest.config.js). A test is an
+ * integration test when it, or any module it imports (followed through
+ * relative imports, src/ included), starts a process, a browser or the
+ * TypeScript compiler API: it reads child_process, playwright or ts-morph.
+ * Tests that stay in process but take longer than jest's default 5 s per test
+ * (planning every example, property tests over many specs) are listed in
+ * SLOW. Every other test is a unit test: the fast loop, `npm run test:unit`.
+ * Imports are read by the TypeScript pre-processor, as the layering test does.
+ */
+import { readdirSync, readFileSync, existsSync } from 'node:fs';
+import { dirname, join, relative, resolve } from 'node:path';
+import ts from 'typescript';
+
+const HEAVY = /from ['"](node:)?child_process['"]|from ['"]playwright(-core)?['"]|from ['"]ts-morph['"]/;
+
+/** In-process tests slower than the default timeout (paths from the repository root). */
+const SLOW = [
+  'test/plan/bound-property.test.ts',
+  'test/plan/polish-property.test.ts',
+  'test/plan/plan.test.ts',
+  'test/plan/segments.test.ts',
+  'test/plan/cost-model.test.ts',
+  'test/plan/extreme-ranges.test.ts',
+  'test/ir/check.test.ts',
+  'test/verify/inprocess.test.ts',
+];
+
+function testFiles(dir) {
+  return readdirSync(dir, { withFileTypes: true }).flatMap((e) => {
+    const p = join(dir, e.name);
+    if (e.isDirectory()) return testFiles(p);
+    return e.name.endsWith('.test.ts') ? [p] : [];
+  });
+}
+
+function heavy(file, seen) {
+  if (seen.has(file)) return false;
+  seen.add(file);
+  const text = readFileSync(file, 'utf8');
+  if (HEAVY.test(text)) return true;
+  return ts.preProcessFile(text, true, true).importedFiles.some((f) => {
+    if (!f.fileName.startsWith('.')) return false;
+    const target = resolve(dirname(file), f.fileName.replace(/\.js$/, '.ts'));
+    return existsSync(target) && heavy(target, seen);
+  });
+}
+
+/** The test files of each project, as paths relative to `root`. */
+export function testKinds(root) {
+  const unit = [];
+  const integration = [];
+  for (const file of testFiles(join(root, 'test')).sort()) {
+    const rel = relative(root, file).split('\\').join('/');
+    (SLOW.includes(rel) || heavy(file, new Set()) ? integration : unit).push(rel);
+  }
+  return { unit, integration };
+}
