@@ -16,13 +16,13 @@
  * arithmetic: float32 (IEEE 754 binary32, every operation rounded to nearest)
  *
  * certified bound (relative error, over the whole input box):
- *   truncation  3.6e-5
+ *   truncation  6.7e-5
  *   rounding    1.2e-6
- *   total       3.7e-5
+ *   total       6.8e-5
  * target:     1e-4 (relative)
- * series:     order 3, 6 terms, then 1 Newton step
- * operations: 21 add, 26 mul, 2 div, 7 table reads
- * cortex-m4f estimate: ~149 cycles (48 FPU ops + 11 constant loads + 7 table reads + 1 segment index; Cortex-M4 TRM FPU timings, see src/ir/cost/cortex-m4f.ts)
+ * series:     order 2, 4 terms, then 1 Newton step
+ * operations: 19 add, 24 mul, 2 div, 7 table reads
+ * cortex-m4f estimate: ~141 cycles (44 FPU ops + 9 constant loads + 7 table reads + 1 segment index; Cortex-M4 TRM FPU timings, see src/ir/cost/cortex-m4f.ts)
  *
  * Include: after your own #version line (300 es or 330 core) and, in
  * GLSL ES, a `precision highp float;`; the snippet has neither, so the
@@ -253,7 +253,7 @@ const float rc_n2_molar_volume_wide_tab28[128] = float[128](
     0.7129137, 0.7613376, 0.80879813, 0.8554591,
     0.90144724, 0.9468624, 0.9917844, 1.0362781
 );
-const float rc_n2_molar_volume_wide_tab67[128] = float[128](
+const float rc_n2_molar_volume_wide_tab61[128] = float[128](
     0.4931415, 0.521433, 0.54940176, 0.57709956,
     0.6045668, 0.6318361, 0.65893376, 0.6858813,
     0.4638076, 0.49065822, 0.517184, 0.5434375,
@@ -321,34 +321,30 @@ float n2_molar_volume_wide(float P, float T)
     float v35 = v27 * v33;
     float v36 = v27 * v27;
     float v37 = v34 * v36;
-    float v39 = v35 * 5.0;
-    float v41 = v39 + 2.0;
-    float v42 = v35 * v41;
-    float v44 = v37 * (-5.0);
-    float v45 = v44 + 1.0;
-    float v46 = v42 + v45;
-    float v47 = v35 * v46;
-    float v48 = -v37;
-    float v49 = v48 + 1.0;
-    float v50 = v47 + v49;
-    float v51 = v27 * v50;
-    float v52 = v33 * 2.0;
-    float v54 = v34 * 3.0;
-    float v55 = v34 * v51;
-    float v56 = v55 - v33;
-    float v57 = v51 * v56;
+    float v39 = v35 * 2.0;
+    float v40 = v39 + 1.0;
+    float v41 = v35 * v40;
+    float v42 = -v37;
+    float v43 = v42 + 1.0;
+    float v44 = v41 + v43;
+    float v45 = v27 * v44;
+    float v46 = v33 * 2.0;
+    float v48 = v34 * 3.0;
+    float v49 = v34 * v45;
+    float v50 = v49 - v33;
+    float v51 = v45 * v50;
+    float v52 = v51 + 1.0;
+    float v53 = v45 * v52;
+    float v54 = v53 - v27;
+    float v55 = v45 * v48;
+    float v56 = v55 - v46;
+    float v57 = v45 * v56;
     float v58 = v57 + 1.0;
-    float v59 = v51 * v58;
-    float v60 = v59 - v27;
-    float v61 = v51 * v54;
-    float v62 = v61 - v52;
-    float v63 = v51 * v62;
-    float v64 = v63 + 1.0;
-    float v65 = v60 / v64;
-    float v66 = v51 - v65;
-    float v67 = rc_n2_molar_volume_wide_tab67[v10];
-    float v68 = v67 - v66;
-    return v68;
+    float v59 = v54 / v58;
+    float v60 = v45 - v59;
+    float v61 = rc_n2_molar_volume_wide_tab61[v10];
+    float v62 = v61 - v60;
+    return v62;
 }
 
 /* The same operations on four inputs at once, component by component. */
@@ -385,34 +381,30 @@ vec4 n2_molar_volume_wide(vec4 P, vec4 T)
     vec4 v35 = v27 * v33;
     vec4 v36 = v27 * v27;
     vec4 v37 = v34 * v36;
-    vec4 v39 = v35 * 5.0;
-    vec4 v41 = v39 + 2.0;
-    vec4 v42 = v35 * v41;
-    vec4 v44 = v37 * (-5.0);
-    vec4 v45 = v44 + 1.0;
-    vec4 v46 = v42 + v45;
-    vec4 v47 = v35 * v46;
-    vec4 v48 = -v37;
-    vec4 v49 = v48 + 1.0;
-    vec4 v50 = v47 + v49;
-    vec4 v51 = v27 * v50;
-    vec4 v52 = v33 * 2.0;
-    vec4 v54 = v34 * 3.0;
-    vec4 v55 = v34 * v51;
-    vec4 v56 = v55 - v33;
-    vec4 v57 = v51 * v56;
+    vec4 v39 = v35 * 2.0;
+    vec4 v40 = v39 + 1.0;
+    vec4 v41 = v35 * v40;
+    vec4 v42 = -v37;
+    vec4 v43 = v42 + 1.0;
+    vec4 v44 = v41 + v43;
+    vec4 v45 = v27 * v44;
+    vec4 v46 = v33 * 2.0;
+    vec4 v48 = v34 * 3.0;
+    vec4 v49 = v34 * v45;
+    vec4 v50 = v49 - v33;
+    vec4 v51 = v45 * v50;
+    vec4 v52 = v51 + 1.0;
+    vec4 v53 = v45 * v52;
+    vec4 v54 = v53 - v27;
+    vec4 v55 = v45 * v48;
+    vec4 v56 = v55 - v46;
+    vec4 v57 = v45 * v56;
     vec4 v58 = v57 + 1.0;
-    vec4 v59 = v51 * v58;
-    vec4 v60 = v59 - v27;
-    vec4 v61 = v51 * v54;
-    vec4 v62 = v61 - v52;
-    vec4 v63 = v51 * v62;
-    vec4 v64 = v63 + 1.0;
-    vec4 v65 = v60 / v64;
-    vec4 v66 = v51 - v65;
-    vec4 v67 = vec4(rc_n2_molar_volume_wide_tab67[v10.x], rc_n2_molar_volume_wide_tab67[v10.y], rc_n2_molar_volume_wide_tab67[v10.z], rc_n2_molar_volume_wide_tab67[v10.w]);
-    vec4 v68 = v67 - v66;
-    return v68;
+    vec4 v59 = v54 / v58;
+    vec4 v60 = v45 - v59;
+    vec4 v61 = vec4(rc_n2_molar_volume_wide_tab61[v10.x], rc_n2_molar_volume_wide_tab61[v10.y], rc_n2_molar_volume_wide_tab61[v10.z], rc_n2_molar_volume_wide_tab61[v10.w]);
+    vec4 v62 = v61 - v60;
+    return v62;
 }
 
 #endif

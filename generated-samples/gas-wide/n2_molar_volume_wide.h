@@ -19,13 +19,13 @@
  * arithmetic: float32 (IEEE 754 binary32, every operation rounded to nearest)
  *
  * certified bound (relative error, over the whole input box):
- *   truncation  3.6e-5
+ *   truncation  6.7e-5
  *   rounding    1.2e-6
- *   total       3.7e-5
+ *   total       6.8e-5
  * target:     1e-4 (relative)
- * series:     order 3, 6 terms, then 1 Newton step
- * operations: 21 add, 26 mul, 2 div, 7 table reads
- * cortex-m4f estimate: ~149 cycles (48 FPU ops + 11 constant loads + 7 table reads + 1 segment index; Cortex-M4 TRM FPU timings, see src/ir/cost/cortex-m4f.ts)
+ * series:     order 2, 4 terms, then 1 Newton step
+ * operations: 19 add, 24 mul, 2 div, 7 table reads
+ * cortex-m4f estimate: ~141 cycles (44 FPU ops + 9 constant loads + 7 table reads + 1 segment index; Cortex-M4 TRM FPU timings, see src/ir/cost/cortex-m4f.ts)
  */
 
 #include <stddef.h>
@@ -243,7 +243,7 @@ ROOTCAST_N2_MOLAR_VOLUME_WIDE_TABLE float rc_n2_molar_volume_wide_tab28[128] = {
     0.7129137f, 0.7613376f, 0.80879813f, 0.8554591f,
     0.90144724f, 0.9468624f, 0.9917844f, 1.0362781f,
 };
-ROOTCAST_N2_MOLAR_VOLUME_WIDE_TABLE float rc_n2_molar_volume_wide_tab67[128] = {
+ROOTCAST_N2_MOLAR_VOLUME_WIDE_TABLE float rc_n2_molar_volume_wide_tab61[128] = {
     0.4931415f, 0.521433f, 0.54940176f, 0.57709956f,
     0.6045668f, 0.6318361f, 0.65893376f, 0.6858813f,
     0.4638076f, 0.49065822f, 0.517184f, 0.5434375f,
@@ -319,34 +319,30 @@ static inline float n2_molar_volume_wide(float P, float T)
     const float v35 = v27 * v33;
     const float v36 = v27 * v27;
     const float v37 = v34 * v36;
-    const float v39 = v35 * 5.0f;
-    const float v41 = v39 + 2.0f;
-    const float v42 = v35 * v41;
-    const float v44 = v37 * (-5.0f);
-    const float v45 = v44 + 1.0f;
-    const float v46 = v42 + v45;
-    const float v47 = v35 * v46;
-    const float v48 = -v37;
-    const float v49 = v48 + 1.0f;
-    const float v50 = v47 + v49;
-    const float v51 = v27 * v50;
-    const float v52 = v33 * 2.0f;
-    const float v54 = v34 * 3.0f;
-    const float v55 = v34 * v51;
-    const float v56 = v55 - v33;
-    const float v57 = v51 * v56;
+    const float v39 = v35 * 2.0f;
+    const float v40 = v39 + 1.0f;
+    const float v41 = v35 * v40;
+    const float v42 = -v37;
+    const float v43 = v42 + 1.0f;
+    const float v44 = v41 + v43;
+    const float v45 = v27 * v44;
+    const float v46 = v33 * 2.0f;
+    const float v48 = v34 * 3.0f;
+    const float v49 = v34 * v45;
+    const float v50 = v49 - v33;
+    const float v51 = v45 * v50;
+    const float v52 = v51 + 1.0f;
+    const float v53 = v45 * v52;
+    const float v54 = v53 - v27;
+    const float v55 = v45 * v48;
+    const float v56 = v55 - v46;
+    const float v57 = v45 * v56;
     const float v58 = v57 + 1.0f;
-    const float v59 = v51 * v58;
-    const float v60 = v59 - v27;
-    const float v61 = v51 * v54;
-    const float v62 = v61 - v52;
-    const float v63 = v51 * v62;
-    const float v64 = v63 + 1.0f;
-    const float v65 = v60 / v64;
-    const float v66 = v51 - v65;
-    const float v67 = rc_n2_molar_volume_wide_tab67[v10];
-    const float v68 = v67 - v66;
-    return v68;
+    const float v59 = v54 / v58;
+    const float v60 = v45 - v59;
+    const float v61 = rc_n2_molar_volume_wide_tab61[v10];
+    const float v62 = v61 - v60;
+    return v62;
 }
 
 // rc_out[i] = n2_molar_volume_wide(each input[i]) for i < rc_n; the arrays must not overlap.

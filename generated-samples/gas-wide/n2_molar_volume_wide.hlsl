@@ -16,13 +16,13 @@
  * arithmetic: float32 (IEEE 754 binary32, every operation rounded to nearest)
  *
  * certified bound (relative error, over the whole input box):
- *   truncation  3.6e-5
+ *   truncation  6.7e-5
  *   rounding    1.2e-6
- *   total       3.7e-5
+ *   total       6.8e-5
  * target:     1e-4 (relative)
- * series:     order 3, 6 terms, then 1 Newton step
- * operations: 21 add, 26 mul, 2 div, 7 table reads
- * cortex-m4f estimate: ~149 cycles (48 FPU ops + 11 constant loads + 7 table reads + 1 segment index; Cortex-M4 TRM FPU timings, see src/ir/cost/cortex-m4f.ts)
+ * series:     order 2, 4 terms, then 1 Newton step
+ * operations: 19 add, 24 mul, 2 div, 7 table reads
+ * cortex-m4f estimate: ~141 cycles (44 FPU ops + 9 constant loads + 7 table reads + 1 segment index; Cortex-M4 TRM FPU timings, see src/ir/cost/cortex-m4f.ts)
  *
  * Use: #include it in a shader (any stage, shader model 4 or later).
  *
@@ -248,7 +248,7 @@ static const float rc_n2_molar_volume_wide_tab28[128] = {
     0.90144724f, 0.9468624f, 0.9917844f, 1.0362781f
 };
 
-static const float rc_n2_molar_volume_wide_tab67[128] = {
+static const float rc_n2_molar_volume_wide_tab61[128] = {
     0.4931415f, 0.521433f, 0.54940176f, 0.57709956f,
     0.6045668f, 0.6318361f, 0.65893376f, 0.6858813f,
     0.4638076f, 0.49065822f, 0.517184f, 0.5434375f,
@@ -324,34 +324,30 @@ float n2_molar_volume_wide(float P, float T)
     precise float v35 = v27 * v33;
     precise float v36 = v27 * v27;
     precise float v37 = v34 * v36;
-    precise float v39 = v35 * 5.0f;
-    precise float v41 = v39 + 2.0f;
-    precise float v42 = v35 * v41;
-    precise float v44 = v37 * (-5.0f);
-    precise float v45 = v44 + 1.0f;
-    precise float v46 = v42 + v45;
-    precise float v47 = v35 * v46;
-    precise float v48 = -v37;
-    precise float v49 = v48 + 1.0f;
-    precise float v50 = v47 + v49;
-    precise float v51 = v27 * v50;
-    precise float v52 = v33 * 2.0f;
-    precise float v54 = v34 * 3.0f;
-    precise float v55 = v34 * v51;
-    precise float v56 = v55 - v33;
-    precise float v57 = v51 * v56;
+    precise float v39 = v35 * 2.0f;
+    precise float v40 = v39 + 1.0f;
+    precise float v41 = v35 * v40;
+    precise float v42 = -v37;
+    precise float v43 = v42 + 1.0f;
+    precise float v44 = v41 + v43;
+    precise float v45 = v27 * v44;
+    precise float v46 = v33 * 2.0f;
+    precise float v48 = v34 * 3.0f;
+    precise float v49 = v34 * v45;
+    precise float v50 = v49 - v33;
+    precise float v51 = v45 * v50;
+    precise float v52 = v51 + 1.0f;
+    precise float v53 = v45 * v52;
+    precise float v54 = v53 - v27;
+    precise float v55 = v45 * v48;
+    precise float v56 = v55 - v46;
+    precise float v57 = v45 * v56;
     precise float v58 = v57 + 1.0f;
-    precise float v59 = v51 * v58;
-    precise float v60 = v59 - v27;
-    precise float v61 = v51 * v54;
-    precise float v62 = v61 - v52;
-    precise float v63 = v51 * v62;
-    precise float v64 = v63 + 1.0f;
-    precise float v65 = v60 / v64;
-    precise float v66 = v51 - v65;
-    float v67 = rc_n2_molar_volume_wide_tab67[v10];
-    precise float v68 = v67 - v66;
-    return v68;
+    precise float v59 = v54 / v58;
+    precise float v60 = v45 - v59;
+    float v61 = rc_n2_molar_volume_wide_tab61[v10];
+    precise float v62 = v61 - v60;
+    return v62;
 }
 
 /* The same operations on four inputs at once, component by component. */
@@ -396,34 +392,30 @@ float4 n2_molar_volume_wide(float4 P, float4 T)
     precise float4 v35 = v27 * v33;
     precise float4 v36 = v27 * v27;
     precise float4 v37 = v34 * v36;
-    precise float4 v39 = v35 * 5.0f;
-    precise float4 v41 = v39 + 2.0f;
-    precise float4 v42 = v35 * v41;
-    precise float4 v44 = v37 * (-5.0f);
-    precise float4 v45 = v44 + 1.0f;
-    precise float4 v46 = v42 + v45;
-    precise float4 v47 = v35 * v46;
-    precise float4 v48 = -v37;
-    precise float4 v49 = v48 + 1.0f;
-    precise float4 v50 = v47 + v49;
-    precise float4 v51 = v27 * v50;
-    precise float4 v52 = v33 * 2.0f;
-    precise float4 v54 = v34 * 3.0f;
-    precise float4 v55 = v34 * v51;
-    precise float4 v56 = v55 - v33;
-    precise float4 v57 = v51 * v56;
+    precise float4 v39 = v35 * 2.0f;
+    precise float4 v40 = v39 + 1.0f;
+    precise float4 v41 = v35 * v40;
+    precise float4 v42 = -v37;
+    precise float4 v43 = v42 + 1.0f;
+    precise float4 v44 = v41 + v43;
+    precise float4 v45 = v27 * v44;
+    precise float4 v46 = v33 * 2.0f;
+    precise float4 v48 = v34 * 3.0f;
+    precise float4 v49 = v34 * v45;
+    precise float4 v50 = v49 - v33;
+    precise float4 v51 = v45 * v50;
+    precise float4 v52 = v51 + 1.0f;
+    precise float4 v53 = v45 * v52;
+    precise float4 v54 = v53 - v27;
+    precise float4 v55 = v45 * v48;
+    precise float4 v56 = v55 - v46;
+    precise float4 v57 = v45 * v56;
     precise float4 v58 = v57 + 1.0f;
-    precise float4 v59 = v51 * v58;
-    precise float4 v60 = v59 - v27;
-    precise float4 v61 = v51 * v54;
-    precise float4 v62 = v61 - v52;
-    precise float4 v63 = v51 * v62;
-    precise float4 v64 = v63 + 1.0f;
-    precise float4 v65 = v60 / v64;
-    precise float4 v66 = v51 - v65;
-    float4 v67 = float4(rc_n2_molar_volume_wide_tab67[v10.x], rc_n2_molar_volume_wide_tab67[v10.y], rc_n2_molar_volume_wide_tab67[v10.z], rc_n2_molar_volume_wide_tab67[v10.w]);
-    precise float4 v68 = v67 - v66;
-    return v68;
+    precise float4 v59 = v54 / v58;
+    precise float4 v60 = v45 - v59;
+    float4 v61 = float4(rc_n2_molar_volume_wide_tab61[v10.x], rc_n2_molar_volume_wide_tab61[v10.y], rc_n2_molar_volume_wide_tab61[v10.z], rc_n2_molar_volume_wide_tab61[v10.w]);
+    precise float4 v62 = v61 - v60;
+    return v62;
 }
 
 #endif

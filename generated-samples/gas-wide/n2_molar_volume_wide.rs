@@ -15,13 +15,13 @@
 // arithmetic: float32 (IEEE 754 binary32, every operation rounded to nearest)
 //
 // certified bound (relative error, over the whole input box):
-//   truncation  3.6e-5
+//   truncation  6.7e-5
 //   rounding    1.2e-6
-//   total       3.7e-5
+//   total       6.8e-5
 // target:     1e-4 (relative)
-// series:     order 3, 6 terms, then 1 Newton step
-// operations: 21 add, 26 mul, 2 div, 7 table reads
-// cortex-m4f estimate: ~149 cycles (48 FPU ops + 11 constant loads + 7 table reads + 1 segment index; Cortex-M4 TRM FPU timings, see src/ir/cost/cortex-m4f.ts)
+// series:     order 2, 4 terms, then 1 Newton step
+// operations: 19 add, 24 mul, 2 div, 7 table reads
+// cortex-m4f estimate: ~141 cycles (44 FPU ops + 9 constant loads + 7 table reads + 1 segment index; Cortex-M4 TRM FPU timings, see src/ir/cost/cortex-m4f.ts)
 //
 // Use: save as n2_molar_volume_wide.rs and write `mod n2_molar_volume_wide;` in the parent module.
 // Every operation rounds once, in the order written, as in the C function
@@ -239,7 +239,7 @@ static RC_TAB28: [f32; 128] = [
     0.90144724_f32, 0.9468624_f32, 0.9917844_f32, 1.0362781_f32,
 ];
 
-static RC_TAB67: [f32; 128] = [
+static RC_TAB61: [f32; 128] = [
     0.4931415_f32, 0.521433_f32, 0.54940176_f32, 0.57709956_f32,
     0.6045668_f32, 0.6318361_f32, 0.65893376_f32, 0.6858813_f32,
     0.4638076_f32, 0.49065822_f32, 0.517184_f32, 0.5434375_f32,
@@ -315,32 +315,28 @@ pub fn n2_molar_volume_wide(P: f32, T: f32) -> f32 {
     let v35: f32 = v27 * v33;
     let v36: f32 = v27 * v27;
     let v37: f32 = v34 * v36;
-    let v39: f32 = v35 * 5.0_f32;
-    let v41: f32 = v39 + 2.0_f32;
-    let v42: f32 = v35 * v41;
-    let v44: f32 = v37 * (-5.0_f32);
-    let v45: f32 = v44 + 1.0_f32;
-    let v46: f32 = v42 + v45;
-    let v47: f32 = v35 * v46;
-    let v48: f32 = -v37;
-    let v49: f32 = v48 + 1.0_f32;
-    let v50: f32 = v47 + v49;
-    let v51: f32 = v27 * v50;
-    let v52: f32 = v33 * 2.0_f32;
-    let v54: f32 = v34 * 3.0_f32;
-    let v55: f32 = v34 * v51;
-    let v56: f32 = v55 - v33;
-    let v57: f32 = v51 * v56;
+    let v39: f32 = v35 * 2.0_f32;
+    let v40: f32 = v39 + 1.0_f32;
+    let v41: f32 = v35 * v40;
+    let v42: f32 = -v37;
+    let v43: f32 = v42 + 1.0_f32;
+    let v44: f32 = v41 + v43;
+    let v45: f32 = v27 * v44;
+    let v46: f32 = v33 * 2.0_f32;
+    let v48: f32 = v34 * 3.0_f32;
+    let v49: f32 = v34 * v45;
+    let v50: f32 = v49 - v33;
+    let v51: f32 = v45 * v50;
+    let v52: f32 = v51 + 1.0_f32;
+    let v53: f32 = v45 * v52;
+    let v54: f32 = v53 - v27;
+    let v55: f32 = v45 * v48;
+    let v56: f32 = v55 - v46;
+    let v57: f32 = v45 * v56;
     let v58: f32 = v57 + 1.0_f32;
-    let v59: f32 = v51 * v58;
-    let v60: f32 = v59 - v27;
-    let v61: f32 = v51 * v54;
-    let v62: f32 = v61 - v52;
-    let v63: f32 = v51 * v62;
-    let v64: f32 = v63 + 1.0_f32;
-    let v65: f32 = v60 / v64;
-    let v66: f32 = v51 - v65;
-    let v67: f32 = RC_TAB67[v10];
-    let v68: f32 = v67 - v66;
-    v68
+    let v59: f32 = v54 / v58;
+    let v60: f32 = v45 - v59;
+    let v61: f32 = RC_TAB61[v10];
+    let v62: f32 = v61 - v60;
+    v62
 }

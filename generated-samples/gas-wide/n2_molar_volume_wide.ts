@@ -16,13 +16,13 @@
  * arithmetic: float32 (IEEE 754 binary32, every operation rounded to nearest)
  *
  * certified bound (relative error, over the whole input box):
- *   truncation  3.6e-5
+ *   truncation  6.7e-5
  *   rounding    1.2e-6
- *   total       3.7e-5
+ *   total       6.8e-5
  * target:     1e-4 (relative)
- * series:     order 3, 6 terms, then 1 Newton step
- * operations: 21 add, 26 mul, 2 div, 7 table reads
- * cortex-m4f estimate: ~149 cycles (48 FPU ops + 11 constant loads + 7 table reads + 1 segment index; Cortex-M4 TRM FPU timings, see src/ir/cost/cortex-m4f.ts)
+ * series:     order 2, 4 terms, then 1 Newton step
+ * operations: 19 add, 24 mul, 2 div, 7 table reads
+ * cortex-m4f estimate: ~141 cycles (44 FPU ops + 9 constant loads + 7 table reads + 1 segment index; Cortex-M4 TRM FPU timings, see src/ir/cost/cortex-m4f.ts)
  */
 
 const rc_f32 = new Float32Array(1);
@@ -231,7 +231,7 @@ const rc_tab28: readonly number[] = [
   0.7129136919975281, 0.7613375782966614, 0.8087981343269348, 0.8554590940475464,
   0.9014472365379333, 0.9468623995780945, 0.991784393787384, 1.0362781286239624,
 ];
-const rc_tab67: readonly number[] = [
+const rc_tab61: readonly number[] = [
   0.4931415021419525, 0.5214329957962036, 0.5494017601013184, 0.5770995616912842,
   0.6045668125152588, 0.6318361163139343, 0.6589337587356567, 0.6858813166618347,
   0.463807612657547, 0.4906582236289978, 0.5171840190887451, 0.5434374809265137,
@@ -316,34 +316,30 @@ export function n2_molar_volume_wide(P: number, T: number): number {
   const v35 = Math.fround(v27 * v33);
   const v36 = Math.fround(v27 * v27);
   const v37 = Math.fround(v34 * v36);
-  const v39 = Math.fround(v35 * 5);
-  const v41 = Math.fround(v39 + 2);
-  const v42 = Math.fround(v35 * v41);
-  const v44 = Math.fround(v37 * (-5));
-  const v45 = Math.fround(v44 + 1);
-  const v46 = Math.fround(v42 + v45);
-  const v47 = Math.fround(v35 * v46);
-  const v48 = -v37;
-  const v49 = Math.fround(v48 + 1);
-  const v50 = Math.fround(v47 + v49);
-  const v51 = Math.fround(v27 * v50);
-  const v52 = Math.fround(v33 * 2);
-  const v54 = Math.fround(v34 * 3);
-  const v55 = Math.fround(v34 * v51);
-  const v56 = Math.fround(v55 - v33);
-  const v57 = Math.fround(v51 * v56);
+  const v39 = Math.fround(v35 * 2);
+  const v40 = Math.fround(v39 + 1);
+  const v41 = Math.fround(v35 * v40);
+  const v42 = -v37;
+  const v43 = Math.fround(v42 + 1);
+  const v44 = Math.fround(v41 + v43);
+  const v45 = Math.fround(v27 * v44);
+  const v46 = Math.fround(v33 * 2);
+  const v48 = Math.fround(v34 * 3);
+  const v49 = Math.fround(v34 * v45);
+  const v50 = Math.fround(v49 - v33);
+  const v51 = Math.fround(v45 * v50);
+  const v52 = Math.fround(v51 + 1);
+  const v53 = Math.fround(v45 * v52);
+  const v54 = Math.fround(v53 - v27);
+  const v55 = Math.fround(v45 * v48);
+  const v56 = Math.fround(v55 - v46);
+  const v57 = Math.fround(v45 * v56);
   const v58 = Math.fround(v57 + 1);
-  const v59 = Math.fround(v51 * v58);
-  const v60 = Math.fround(v59 - v27);
-  const v61 = Math.fround(v51 * v54);
-  const v62 = Math.fround(v61 - v52);
-  const v63 = Math.fround(v51 * v62);
-  const v64 = Math.fround(v63 + 1);
-  const v65 = Math.fround(v60 / v64);
-  const v66 = Math.fround(v51 - v65);
-  const v67 = rc_tab67[v10]!;
-  const v68 = Math.fround(v67 - v66);
-  return v68;
+  const v59 = Math.fround(v54 / v58);
+  const v60 = Math.fround(v45 - v59);
+  const v61 = rc_tab61[v10]!;
+  const v62 = Math.fround(v61 - v60);
+  return v62;
 }
 
 /**

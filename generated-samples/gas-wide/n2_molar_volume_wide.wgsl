@@ -15,13 +15,13 @@
 // arithmetic: float32 (IEEE 754 binary32, every operation rounded to nearest)
 //
 // certified bound (relative error, over the whole input box):
-//   truncation  3.6e-5
+//   truncation  6.7e-5
 //   rounding    1.2e-6
-//   total       3.7e-5
+//   total       6.8e-5
 // target:     1e-4 (relative)
-// series:     order 3, 6 terms, then 1 Newton step
-// operations: 21 add, 26 mul, 2 div, 7 table reads
-// cortex-m4f estimate: ~149 cycles (48 FPU ops + 11 constant loads + 7 table reads + 1 segment index; Cortex-M4 TRM FPU timings, see src/ir/cost/cortex-m4f.ts)
+// series:     order 2, 4 terms, then 1 Newton step
+// operations: 19 add, 24 mul, 2 div, 7 table reads
+// cortex-m4f estimate: ~141 cycles (44 FPU ops + 9 constant loads + 7 table reads + 1 segment index; Cortex-M4 TRM FPU timings, see src/ir/cost/cortex-m4f.ts)
 //
 // Use: paste into a WGSL module or concatenate; it declares the functions
 // n2_molar_volume_wide and n2_molar_volume_wide_vec4 and module-scope const tables named rc_....
@@ -249,7 +249,7 @@ const rc_n2_molar_volume_wide_tab28 = array<f32, 128>(
     0.90144724f, 0.9468624f, 0.9917844f, 1.0362781f
 );
 
-const rc_n2_molar_volume_wide_tab67 = array<f32, 128>(
+const rc_n2_molar_volume_wide_tab61 = array<f32, 128>(
     0.4931415f, 0.521433f, 0.54940176f, 0.57709956f,
     0.6045668f, 0.6318361f, 0.65893376f, 0.6858813f,
     0.4638076f, 0.49065822f, 0.517184f, 0.5434375f,
@@ -316,34 +316,30 @@ fn n2_molar_volume_wide(P: f32, T: f32) -> f32 {
     let v35: f32 = v27 * v33;
     let v36: f32 = v27 * v27;
     let v37: f32 = v34 * v36;
-    let v39: f32 = v35 * 5.0f;
-    let v41: f32 = v39 + 2.0f;
-    let v42: f32 = v35 * v41;
-    let v44: f32 = v37 * (-5.0f);
-    let v45: f32 = v44 + 1.0f;
-    let v46: f32 = v42 + v45;
-    let v47: f32 = v35 * v46;
-    let v48: f32 = -v37;
-    let v49: f32 = v48 + 1.0f;
-    let v50: f32 = v47 + v49;
-    let v51: f32 = v27 * v50;
-    let v52: f32 = v33 * 2.0f;
-    let v54: f32 = v34 * 3.0f;
-    let v55: f32 = v34 * v51;
-    let v56: f32 = v55 - v33;
-    let v57: f32 = v51 * v56;
+    let v39: f32 = v35 * 2.0f;
+    let v40: f32 = v39 + 1.0f;
+    let v41: f32 = v35 * v40;
+    let v42: f32 = -v37;
+    let v43: f32 = v42 + 1.0f;
+    let v44: f32 = v41 + v43;
+    let v45: f32 = v27 * v44;
+    let v46: f32 = v33 * 2.0f;
+    let v48: f32 = v34 * 3.0f;
+    let v49: f32 = v34 * v45;
+    let v50: f32 = v49 - v33;
+    let v51: f32 = v45 * v50;
+    let v52: f32 = v51 + 1.0f;
+    let v53: f32 = v45 * v52;
+    let v54: f32 = v53 - v27;
+    let v55: f32 = v45 * v48;
+    let v56: f32 = v55 - v46;
+    let v57: f32 = v45 * v56;
     let v58: f32 = v57 + 1.0f;
-    let v59: f32 = v51 * v58;
-    let v60: f32 = v59 - v27;
-    let v61: f32 = v51 * v54;
-    let v62: f32 = v61 - v52;
-    let v63: f32 = v51 * v62;
-    let v64: f32 = v63 + 1.0f;
-    let v65: f32 = v60 / v64;
-    let v66: f32 = v51 - v65;
-    let v67: f32 = rc_n2_molar_volume_wide_tab67[v10];
-    let v68: f32 = v67 - v66;
-    return v68;
+    let v59: f32 = v54 / v58;
+    let v60: f32 = v45 - v59;
+    let v61: f32 = rc_n2_molar_volume_wide_tab61[v10];
+    let v62: f32 = v61 - v60;
+    return v62;
 }
 
 // The same operations on four inputs at once, component by component.
@@ -379,32 +375,28 @@ fn n2_molar_volume_wide_vec4(P: vec4<f32>, T: vec4<f32>) -> vec4<f32> {
     let v35: vec4<f32> = v27 * v33;
     let v36: vec4<f32> = v27 * v27;
     let v37: vec4<f32> = v34 * v36;
-    let v39: vec4<f32> = v35 * 5.0f;
-    let v41: vec4<f32> = v39 + 2.0f;
-    let v42: vec4<f32> = v35 * v41;
-    let v44: vec4<f32> = v37 * (-5.0f);
-    let v45: vec4<f32> = v44 + 1.0f;
-    let v46: vec4<f32> = v42 + v45;
-    let v47: vec4<f32> = v35 * v46;
-    let v48: vec4<f32> = -v37;
-    let v49: vec4<f32> = v48 + 1.0f;
-    let v50: vec4<f32> = v47 + v49;
-    let v51: vec4<f32> = v27 * v50;
-    let v52: vec4<f32> = v33 * 2.0f;
-    let v54: vec4<f32> = v34 * 3.0f;
-    let v55: vec4<f32> = v34 * v51;
-    let v56: vec4<f32> = v55 - v33;
-    let v57: vec4<f32> = v51 * v56;
+    let v39: vec4<f32> = v35 * 2.0f;
+    let v40: vec4<f32> = v39 + 1.0f;
+    let v41: vec4<f32> = v35 * v40;
+    let v42: vec4<f32> = -v37;
+    let v43: vec4<f32> = v42 + 1.0f;
+    let v44: vec4<f32> = v41 + v43;
+    let v45: vec4<f32> = v27 * v44;
+    let v46: vec4<f32> = v33 * 2.0f;
+    let v48: vec4<f32> = v34 * 3.0f;
+    let v49: vec4<f32> = v34 * v45;
+    let v50: vec4<f32> = v49 - v33;
+    let v51: vec4<f32> = v45 * v50;
+    let v52: vec4<f32> = v51 + 1.0f;
+    let v53: vec4<f32> = v45 * v52;
+    let v54: vec4<f32> = v53 - v27;
+    let v55: vec4<f32> = v45 * v48;
+    let v56: vec4<f32> = v55 - v46;
+    let v57: vec4<f32> = v45 * v56;
     let v58: vec4<f32> = v57 + 1.0f;
-    let v59: vec4<f32> = v51 * v58;
-    let v60: vec4<f32> = v59 - v27;
-    let v61: vec4<f32> = v51 * v54;
-    let v62: vec4<f32> = v61 - v52;
-    let v63: vec4<f32> = v51 * v62;
-    let v64: vec4<f32> = v63 + 1.0f;
-    let v65: vec4<f32> = v60 / v64;
-    let v66: vec4<f32> = v51 - v65;
-    let v67: vec4<f32> = vec4<f32>(rc_n2_molar_volume_wide_tab67[v10.x], rc_n2_molar_volume_wide_tab67[v10.y], rc_n2_molar_volume_wide_tab67[v10.z], rc_n2_molar_volume_wide_tab67[v10.w]);
-    let v68: vec4<f32> = v67 - v66;
-    return v68;
+    let v59: vec4<f32> = v54 / v58;
+    let v60: vec4<f32> = v45 - v59;
+    let v61: vec4<f32> = vec4<f32>(rc_n2_molar_volume_wide_tab61[v10.x], rc_n2_molar_volume_wide_tab61[v10.y], rc_n2_molar_volume_wide_tab61[v10.z], rc_n2_molar_volume_wide_tab61[v10.w]);
+    let v62: vec4<f32> = v61 - v60;
+    return v62;
 }

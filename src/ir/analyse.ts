@@ -41,6 +41,28 @@ const { abs, max } = Math;
 const isFinite = Number.isFinite;
 const INF = Infinity;
 
+/**
+ * Enclosures of some nodes' exact values over a cell, known from elsewhere
+ * (for the planner: the Bernstein enclosures of the recentred coefficients,
+ * DESIGN.md 1.10), by node index. Any enclosure of an exact value is as
+ * rigorous as the interval one, so the analysis intersects the two and
+ * carries the tighter magnitude into the rounding bound. A hook that is
+ * missing (a copied program) only makes the bound looser.
+ */
+export type EnclosureHook = (cell: readonly Interval[], segment: number) => ReadonlyMap<number, Interval> | null;
+const hooks = new WeakMap<Program, EnclosureHook>();
+export function attachEnclosures(program: Program, hook: EnclosureHook): Program {
+  hooks.set(program, hook);
+  return program;
+}
+
+function narrow(v: Interval, known: Interval | undefined): Interval {
+  if (!known) return v;
+  const lo = max(v.lo, known.lo);
+  const hi = Math.min(v.hi, known.hi);
+  return lo <= hi ? { lo, hi } : v;
+}
+
 /** Options: `flushToZero` for arithmetic that flushes subnormal results (larger eta). */
 export function analyse(
   program: Program,
@@ -55,6 +77,7 @@ export function analyse(
   const values: Interval[] = new Array(program.nodes.length);
   const errors: number[] = new Array(program.nodes.length);
   let unbounded = -1;
+  const known = hooks.get(program)?.(cell, segment) ?? null;
   for (let i = 0; i < program.nodes.length; i++) {
     const n = program.nodes[i]!;
     let v: Interval;
@@ -88,6 +111,7 @@ export function analyse(
         const a = values[n.a]!;
         const b = values[n.b]!;
         v = n.kind === 'add' ? iadd(a, b) : isub(a, b);
+        if (known) v = narrow(v, known.get(i));
         const ee = addUp(errors[n.a]!, errors[n.b]!);
         e = addUp(addUp(ee, mulUp(u, addUp(mag(v), ee))), eta);
         break;
@@ -117,6 +141,7 @@ export function analyse(
           break;
         }
         v = idiv(a, b);
+        if (known) v = narrow(v, known.get(i));
         const q = mag(v);
         const prop = divUp(addUp(ea, mulUp(q, eb)), room);
         e = addUp(addUp(prop, mulUp(u, addUp(q, prop))), eta);
@@ -138,6 +163,7 @@ export function analyse(
       default:
         throw new UnknownNodeError(n);
     }
+    if (known) v = narrow(v, known.get(i));
     if (!isFinite(v.lo) || !isFinite(v.hi)) {
       v = WHOLE;
       e = INF;

@@ -200,8 +200,13 @@ export class ProgramBuilder {
 
   /** The program that returns `result`, with every node it does not need removed. */
   finish(result: Ref): Program {
+    return this.finishMapped(result).program;
+  }
+
+  /** As `finish`, with the new index of every builder ref (-1 for a pruned one). */
+  finishMapped(result: Ref): { program: Program; map: readonly number[] } {
     const pruned = pruneTo(this.nodes, result);
-    return { arithmetic: this.arithmetic, inputs: [...this.inputNames], nodes: pruned.nodes, result: pruned.result };
+    return { program: { arithmetic: this.arithmetic, inputs: [...this.inputNames], nodes: pruned.nodes, result: pruned.result }, map: pruned.map };
   }
 
   /**
@@ -226,7 +231,7 @@ const FOLD: Readonly<Record<BinaryKind, (a: Rational, b: Rational) => Rational>>
 };
 
 /** Drops nodes the result does not depend on and renumbers the rest in order. */
-function pruneTo(nodes: readonly Node[], result: Ref): { nodes: Node[]; result: Ref } {
+function pruneTo(nodes: readonly Node[], result: Ref): { nodes: Node[]; result: Ref; map: number[] } {
   const live = new Array<boolean>(nodes.length).fill(false);
   live[result] = true;
   for (let i = result; i >= 0; i--) {
@@ -239,5 +244,5 @@ function pruneTo(nodes: readonly Node[], result: Ref): { nodes: Node[]; result: 
     map[i] = out.length;
     out.push(renumber(nodes[i]!, (r) => map[r]!));
   }
-  return { nodes: out, result: map[result]! };
+  return { nodes: out, result: map[result]!, map };
 }

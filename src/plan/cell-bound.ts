@@ -7,13 +7,14 @@
  * a(T) bounded above and a_S(T) below, both with directed rounding.
  */
 import { addDown, addUp, mulDown, mulUp, powUp, subDown, subUp } from '../math/directed.js';
-import { mag, type Interval } from '../math/interval.js';
+import { containsZero, idiv, mag, type Interval } from '../math/interval.js';
 import { Rational } from '../math/rational.js';
 import { analyse } from '../ir/analyse.js';
 import { majorantRoot } from '../series/majorant.js';
 import type { SeriesTerm } from '../series/hyper-catalan.js';
 import type { Cell } from './box.js';
 import type { AnalysisProgram } from './series-program.js';
+import { intersect, type CoefficientRanges } from './tight-range.js';
 
 export type CellState =
   | { readonly kind: 'ok' }
@@ -44,21 +45,27 @@ export interface CellFacts {
    * gives |a - 1| <= a(T) - 1, so x* = x0 - r a lies within R (a(T) - 1) of x0 - r.
    */
   readonly rootMin: number;
+  /** Enclosure of c'1 over the cell (null when it is a known constant without a tight enclosure). */
+  readonly c1Range?: Interval | null;
+  /** The tight enclosures the cell was bounded with, for the Newton step's bound. */
+  readonly ranges?: CoefficientRanges | undefined;
 }
 
 export function cellFacts(ap: AnalysisProgram, degree: number, cell: Cell, x0: number, segment: number): CellFacts {
   const an = analyse(ap.program, cell, { segment });
   const T = new Array<number>(degree + 1).fill(0);
   const Q = new Array<number>(degree + 1).fill(0);
-  const base = { cell, segment, T, Q, rRange: an.values[ap.r]!, gradeSums: [] as number[], rootMin: 0 };
+  const tight = tightRatios(ap, an.values, cell, segment);
+  const r = tight.ratio(0, an.values[ap.r]!);
+  const base = { cell, segment, T, Q, rRange: r, gradeSums: [] as number[], rootMin: 0, c1Range: tight.c1, ranges: ap.ranges };
   if (ap.c1 !== null) {
-    const v = an.values[ap.c1]!;
+    const v = tight.c1!;
     if (!Number.isFinite(v.lo) || !Number.isFinite(v.hi)) return { ...base, state: { kind: 'unbounded' }, R: Infinity, aUpper: Infinity };
     if (v.lo <= 0 && v.hi >= 0) return { ...base, state: { kind: 'slope-vanishes' }, R: Infinity, aUpper: Infinity };
   }
-  const R = mag(an.values[ap.r]!);
+  const R = mag(r);
   for (const [k, ref] of ap.q) {
-    Q[k] = mag(an.values[ref]!);
+    Q[k] = mag(tight.ratio(k, an.values[ref]!));
     T[k] = mulUp(powUp(R, k - 1), Q[k]!);
   }
   if (!Number.isFinite(R) || T.some((t) => !Number.isFinite(t))) {
@@ -67,11 +74,35 @@ export function cellFacts(ap: AnalysisProgram, degree: number, cell: Cell, x0: n
   const root = majorantRoot(T);
   if (!root.converges) return { ...base, state: { kind: 'diverges', T }, R, aUpper: Infinity };
   const spread = mulUp(R, subUp(root.upper, 1));
-  const r = an.values[ap.r]!;
   const lo = subDown(subDown(x0, r.hi), spread);
   const hi = addUp(subUp(x0, r.lo), spread);
   const rootMin = lo > 0 ? lo : hi < 0 ? -hi : 0;
   return { ...base, state: { kind: 'ok' }, R, aUpper: root.upper, rootMin };
+}
+
+/**
+ * r = c'0 / c'1 and q_k = c'k / c'1 enclosed twice: by the analysis program
+ * (interval arithmetic) and by dividing the tight enclosures of c'0, c'k by
+ * that of c'1 (src/plan/tight-range.ts, the Bernstein expansion); the result
+ * is their intersection. `c1` is c'1's enclosure (null when c'1 is a known
+ * constant and no tight enclosure exists).
+ */
+function tightRatios(ap: AnalysisProgram, values: readonly Interval[], cell: Cell, segment: number) {
+  const tight = ap.ranges?.cell(cell, segment);
+  const plainC1 = ap.c1 !== null ? values[ap.c1]! : null;
+  const c1 = intersectOrNull(plainC1, tight?.c1 ?? null);
+  const usable = tight && c1 && !containsZero(c1) && Number.isFinite(c1.lo) && Number.isFinite(c1.hi);
+  return {
+    c1,
+    ratio(j: number, plain: Interval): Interval {
+      const num = usable ? tight.shifted[j] : null;
+      return num && c1 ? intersect(plain, idiv(num, c1)) : plain;
+    },
+  };
+}
+
+function intersectOrNull(a: Interval | null, b: Interval | null): Interval | null {
+  return a ? intersect(a, b) : b;
 }
 
 /** Lower bound of H(m) as a float64 (H exact in BigInt). */

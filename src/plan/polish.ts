@@ -19,7 +19,8 @@
  * program that takes v as an exact extra input over J (src/ir/analyse.ts);
  * the emitted program computes the very same operations on the series' v.
  */
-import { addUp, divUp, mulDown, mulUp, powUp, subDown } from '../math/directed.js';
+import { addUp, divDown, divUp, mulDown, mulUp, powUp, subDown } from '../math/directed.js';
+import { containsZero, mag, mig, type Interval } from '../math/interval.js';
 import { Rational } from '../math/rational.js';
 import { analyse, largestComputed } from '../ir/analyse.js';
 import type { ProgramBuilder, Ref } from '../ir/builder.js';
@@ -29,7 +30,7 @@ import type { SeriesTerm } from '../series/hyper-catalan.js';
 import type { Family } from '../family/types.js';
 import { cellTail, type CellFacts } from './cell-bound.js';
 import { WorstParts } from './worst-parts.js';
-import { prefixBuilder, seriesCore, type Expansion, type Prefix } from './series-program.js';
+import { finishProgram, prefixBuilder, seriesCore, type Expansion, type Prefix } from './series-program.js';
 import { OVERFLOW_HEADROOM } from './tuning.js';
 
 /** A signed term of a Horner sum: sign * value of ref. */
@@ -89,13 +90,13 @@ export function polishedProgram(family: Family, e: Expansion, terms: readonly Se
   const core = seriesCore(family, e, terms);
   let v = core.v;
   for (let j = 0; j < steps; j++) v = newtonStep(core.b, core.prefix, v, core.setup.active);
-  return core.b.finish(core.b.sub(core.b.const(e.x0), v));
+  return finishProgram(family, e, core.b, core.prefix, core.b.sub(core.b.const(e.x0), v));
 }
 
 /** The series up to v alone (its rounding is the start of the chain). */
 export function coreProgram(family: Family, e: Expansion, terms: readonly SeriesTerm[]): Program {
   const core = seriesCore(family, e, terms);
-  return core.b.finish(core.v);
+  return finishProgram(family, e, core.b, core.prefix, core.v);
 }
 
 /**
@@ -106,7 +107,7 @@ export function stepProgram(family: Family, e: Expansion, last: boolean): Progra
   const d = family.inputs.length;
   const { b, setup: s, prefix: p } = prefixBuilder(family, e, ['v']);
   const v1 = newtonStep(b, p, b.input(d), s.active);
-  return b.finish(last ? b.sub(b.const(e.x0), v1) : v1);
+  return finishProgram(family, e, b, p, last ? b.sub(b.const(e.x0), v1) : v1);
 }
 
 /** The Newton factor M2 / (2 m1) over |v| <= V, or Infinity where h' may vanish. */
@@ -122,6 +123,25 @@ export function newtonFactor(c: CellFacts, V: number): number {
   const m1 = subDown(1, slopeLoss);
   if (!(m1 > 0)) return Infinity;
   return divUp(curvature, mulDown(2, m1));
+}
+
+/**
+ * The Newton factor over v in J: the smaller of the magnitude bound above and
+ * the one from tight enclosures (src/plan/tight-range.ts, Bernstein expansion)
+ * of P'(x0 - v) and P''(x0 - v) over the cell times J: since h(v) = P(x0 - v) / (-c'1),
+ *     m1 = min |P'| / max |c'1|,   M2 = max |P''| / min |c'1|.
+ * Both are rigorous, so the smaller factor is.
+ */
+export function newtonFactorOver(c: CellFacts, J: Interval): number {
+  const plain = newtonFactor(c, Math.max(Math.abs(J.lo), Math.abs(J.hi)));
+  const c1 = c.c1Range ?? null;
+  if (!c.ranges || !c1 || containsZero(c1)) return plain;
+  const der = c.ranges.derivatives(c.cell, c.segment, J);
+  if (!der) return plain;
+  const m1 = divDown(mig(der.d1), mag(c1));
+  const M2 = divUp(mag(der.d2), mig(c1));
+  if (!(m1 > 0) || !Number.isFinite(M2)) return plain;
+  return Math.min(plain, divUp(M2, mulDown(2, m1)));
 }
 
 export interface PolishBound {
@@ -166,8 +186,7 @@ export function polishBound(
     let rnd = 0;
     for (let j = 0; j < steps; j++) {
       const J = { lo: subDown(subDown(c.rRange.lo, spread), err), hi: addUp(addUp(c.rRange.hi, spread), err) };
-      const V = Math.max(Math.abs(J.lo), Math.abs(J.hi));
-      quad = mulUp(newtonFactor(c, V), mulUp(err, err));
+      quad = mulUp(newtonFactorOver(c, J), mulUp(err, err));
       if (!Number.isFinite(quad)) throw new PolishFailure('diverges', c);
       rnd = programs ? checked(analyse(programs.steps[j]!, [...c.cell, J], ftz), programs.steps[j]!, c) : 0;
       err = addUp(quad, rnd);

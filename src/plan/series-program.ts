@@ -16,9 +16,12 @@
 import { Rational } from '../math/rational.js';
 import { ProgramBuilder, SINGLE, type Ref, type Segmentation, type SegValues } from '../ir/builder.js';
 import type { Program } from '../ir/nodes.js';
+import { attachEnclosures } from '../ir/analyse.js';
+import type { Interval } from '../math/interval.js';
 import type { SeriesTerm } from '../series/hyper-catalan.js';
 import type { Family } from '../family/types.js';
 import { shiftedForms } from '../series/recenter.js';
+import { CoefficientRanges } from './tight-range.js';
 import { addForms, constantForm, formOf, isConstant, isZero, materialise, powerOf, scaleForm, uniform, type LinearForm } from './linear-form.js';
 
 export interface SeriesSetup {
@@ -43,6 +46,14 @@ export interface Prefix {
   readonly q: ReadonlyMap<number, Ref>;
   /** The shifted slope c'1 when it varies with the inputs, else null. */
   readonly c1: Ref | null;
+  /** Nodes whose exact value is c'j ('shifted') or c'j / c'1 ('ratio'): their tight enclosures go to the analysis. */
+  readonly marks: readonly Mark[];
+}
+
+interface Mark {
+  readonly ref: Ref;
+  readonly kind: 'shifted' | 'ratio';
+  readonly j: number;
 }
 
 /** Affine forms of the spec's coefficients, recentred at x0 (per segment). */
@@ -66,19 +77,60 @@ export function setupSeries(family: Family, x0: SegValues, b: ProgramBuilder): S
 function buildPrefix(b: ProgramBuilder, s: SeriesSetup): Prefix {
   const c1 = s.shifted[1]!;
   const q = new Map<number, Ref>();
+  const marks: Mark[] = [];
   if (isConstant(c1)) {
     const zero = c1.constant.findIndex((v) => v.isZero());
     if (zero >= 0) throw new ZeroSlopeError(zero);
     const inv = c1.constant.map((v) => Rational.ONE.div(v));
     const r = materialise(b, scaleForm(s.shifted[0]!, inv));
-    for (const k of s.active) q.set(k, materialise(b, scaleForm(s.shifted[k]!, inv)));
-    return { r, q, c1: null };
+    marks.push({ ref: r, kind: 'ratio', j: 0 });
+    for (const k of s.active) {
+      q.set(k, materialise(b, scaleForm(s.shifted[k]!, inv)));
+      marks.push({ ref: q.get(k)!, kind: 'ratio', j: k });
+    }
+    return { r, q, c1: null, marks };
   }
   const c1Ref = materialise(b, c1);
   const inv = b.div(b.const(Rational.ONE), c1Ref);
-  const r = b.mul(materialise(b, s.shifted[0]!), inv);
-  for (const k of s.active) q.set(k, b.mul(materialise(b, s.shifted[k]!), inv));
-  return { r, q, c1: c1Ref };
+  const c0Ref = materialise(b, s.shifted[0]!);
+  const r = b.mul(c0Ref, inv);
+  marks.push({ ref: c1Ref, kind: 'shifted', j: 1 }, { ref: c0Ref, kind: 'shifted', j: 0 }, { ref: r, kind: 'ratio', j: 0 });
+  for (const k of s.active) {
+    const ck = materialise(b, s.shifted[k]!);
+    q.set(k, b.mul(ck, inv));
+    marks.push({ ref: ck, kind: 'shifted', j: k }, { ref: q.get(k)!, kind: 'ratio', j: k });
+  }
+  return { r, q, c1: c1Ref, marks };
+}
+
+/**
+ * Finishes a program built on an expansion's prefix, and tells the analysis
+ * the tight enclosures of its recentred coefficients and of r, q_k on every
+ * cell (src/plan/tight-range.ts; src/ir/analyse.ts attachEnclosures).
+ */
+export function finishProgram(family: Family, e: Expansion, b: ProgramBuilder, p: Prefix, result: Ref): Program {
+  const { program, map } = b.finishMapped(result);
+  const marks = p.marks.map((m) => ({ ...m, at: map[m.ref] ?? -1 })).filter((m) => m.at >= 0);
+  if (marks.length === 0) return program;
+  const ranges = rangesFor(family, e);
+  return attachEnclosures(program, (cell, segment) => {
+    const t = ranges.cell(cell, segment);
+    const out = new Map<number, Interval>();
+    for (const m of marks) {
+      const v = m.kind === 'ratio' ? t.ratio[m.j] : t.shifted[m.j];
+      if (v) out.set(m.at, v);
+    }
+    return out;
+  });
+}
+
+const ranges = new WeakMap<Family, WeakMap<Expansion, CoefficientRanges>>();
+function rangesFor(family: Family, e: Expansion): CoefficientRanges {
+  let byExpansion = ranges.get(family);
+  if (!byExpansion) ranges.set(family, (byExpansion = new WeakMap()));
+  let r = byExpansion.get(e);
+  if (!r) byExpansion.set(e, (r = new CoefficientRanges(family, e.x0)));
+  return r;
 }
 
 /** A coefficient expression that cannot be evaluated anywhere (say why, at its power). */
@@ -103,6 +155,8 @@ export interface AnalysisProgram {
   readonly r: Ref;
   readonly q: ReadonlyMap<number, Ref>;
   readonly c1: Ref | null;
+  /** Tight enclosures of the recentred coefficients (DESIGN.md 1.10), intersected with the program's. */
+  readonly ranges?: CoefficientRanges;
 }
 
 /**
@@ -143,13 +197,13 @@ export function prefixBuilder(family: Family, e: Expansion, extraInputs: readonl
 export function analysisProgram(family: Family, e: Expansion): AnalysisProgram {
   const base = baseOf(family, e, []);
   const p = base.prefix;
-  return { program: base.b.snapshot(), r: p.r, q: p.q, c1: p.c1 };
+  return { program: base.b.snapshot(), r: p.r, q: p.q, c1: p.c1, ranges: rangesFor(family, e) };
 }
 
 /** The emitted program for the kept terms (ordered by grade, as termsUpToGrade gives them). */
 export function seriesProgram(family: Family, e: Expansion, terms: readonly SeriesTerm[]): Program {
   const core = seriesCore(family, e, terms);
-  return core.b.finish(core.b.subFrom(core.b.const(e.x0), core.v));
+  return finishProgram(family, e, core.b, core.prefix, core.b.subFrom(core.b.const(e.x0), core.v));
 }
 
 /** The series built up to v = r a_S (the root is x = x0 - v), for programs that go on from there. */

@@ -24,6 +24,7 @@ const SLOW = [
   'test/plan/extreme-ranges.test.ts',
   'test/ir/check.test.ts',
   'test/verify/inprocess.test.ts',
+  'test/plan/tight-enclosures.test.ts',
 ];
 
 function testFiles(dir) {

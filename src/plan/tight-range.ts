@@ -1,0 +1,193 @@
+/**
+ * Tight enclosures of the recentred coefficients over a cell (DESIGN.md 1.10).
+ *
+ * Interval evaluation of c'j(p) = sum_k binom(k, j) x0^(k-j) c_k(p) meets
+ * every input once per occurrence (the dependency problem) and overestimates
+ * badly on multi-input families. Here each c'j is expanded exactly, once per
+ * segment, as a polynomial in the scaled inputs u (p = mid + half u, exact
+ * rationals), and its range over a cell is enclosed by the Bernstein expansion
+ * (src/math/bernstein.ts: Garloff; Zettler and Garloff, IEEE TAC 1998), in
+ * float64 with outward rounding. The Newton step's derivatives
+ *     P'(x0 - v) = sum_j j c'j (-v)^(j-1),   P''(x0 - v) = sum_j j (j-1) c'j (-v)^(j-2)
+ * are expanded the same way in (u, v) and enclosed over the cell times the
+ * interval J of v.
+ *
+ * A coefficient that is not a polynomial in the inputs (it divides by one)
+ * makes every c'j it enters unknown here (null): the caller keeps the plain
+ * interval value there. Callers intersect both enclosures: each is rigorous,
+ * so their intersection is.
+ */
+import { bernsteinRange, IntervalTensor } from '../math/bernstein.js';
+import { divDown, divUp, subDown, subUp } from '../math/directed.js';
+import { containsZero, idiv, type Interval } from '../math/interval.js';
+import { MultiPoly } from '../math/multipoly.js';
+import { Rational } from '../math/rational.js';
+import { binomial } from '../series/recenter.js';
+import { exprPolynomial, type InputScaling } from '../series/expr-poly.js';
+import type { Family } from '../family/types.js';
+import { boxOf, type Cell } from './box.js';
+
+interface SegmentTensors {
+  /** c'j per power j, null where a coefficient it sums is not a polynomial. */
+  readonly shifted: readonly (IntervalTensor | null)[];
+  /** P'(x0 - v) and P''(x0 - v) in (u, v), null when some c'j is unknown (built when first asked for). */
+  readonly derivatives: () => { readonly d1: IntervalTensor | null; readonly d2: IntervalTensor | null };
+}
+
+/** A cell's tight enclosures, index = power j (null where unknown). */
+export interface TightCell {
+  readonly c1: Interval | null;
+  readonly shifted: readonly (Interval | null)[];
+  /** c'j / c'1 (r for j = 0, q_j for j >= 2). */
+  readonly ratio: readonly (Interval | null)[];
+}
+
+function totalDegree(p: MultiPoly): number {
+  let d = 0;
+  for (const [e] of p.entries()) d = Math.max(d, e.reduce((a, b) => a + b, 0));
+  return d;
+}
+
+const finite = (x: Interval): Interval | null => (Number.isFinite(x.lo) && Number.isFinite(x.hi) ? x : null);
+
+export class CoefficientRanges {
+  private readonly mid: number[];
+  private readonly half: number[];
+  private readonly polys: readonly (MultiPoly | null)[];
+  private readonly segments = new Map<number, SegmentTensors>();
+  private readonly cache = new WeakMap<Interval, unknown>();
+  private readonly noInputs = new Map<number, TightCell>();
+
+  /** `x0[s]` is segment s's expansion point. */
+  constructor(
+    family: Family,
+    private readonly x0: readonly Rational[],
+  ) {
+    const box = boxOf(family).cell;
+    // Any float mid and half > 0 will do: they only have to be exact.
+    this.mid = box.map((c) => c.lo + (c.hi - c.lo) / 2);
+    this.half = box.map((c, i) => {
+      const h = Math.max(subUp(c.hi, this.mid[i]!), subUp(this.mid[i]!, c.lo));
+      return h > 0 && Number.isFinite(h) ? h : 1;
+    });
+    const scaling: InputScaling = {
+      mid: this.mid.map((m) => Rational.fromNumber(m)),
+      half: this.half.map((h) => Rational.fromNumber(h)),
+    };
+    const d = family.inputs.length;
+    this.polys = family.coefficients.map((e) => (e === null ? MultiPoly.zero(d) : exprPolynomial(e, scaling, family.constants)));
+  }
+
+  private tensors(segment: number): SegmentTensors {
+    let t = this.segments.get(segment);
+    if (!t) {
+      t = this.build(this.x0[segment]!);
+      this.segments.set(segment, t);
+    }
+    return t;
+  }
+
+  private build(x0: Rational): SegmentTensors {
+    const n = this.polys.length - 1;
+    const shifted: (MultiPoly | null)[] = [];
+    for (let j = 0; j <= n; j++) {
+      let acc: MultiPoly | null = this.polys[j]!;
+      for (let k = j + 1; k <= n && acc; k++) {
+        const ck = this.polys[k]!;
+        acc = ck ? acc.add(ck.scale(Rational.of(binomial(k, j)).mul(x0.pow(k - j)))) : null;
+      }
+      shifted.push(acc);
+    }
+    const derivative = (order: 1 | 2): IntervalTensor | null => {
+      if (shifted.some((p, j) => j >= order && p === null)) return null;
+      const vars = this.mid.length;
+      let acc = MultiPoly.zero(vars + 1);
+      for (let j = order; j <= n; j++) {
+        const e = new Array<number>(vars + 1).fill(0);
+        e[vars] = j - order;
+        const falling = order === 1 ? j : j * (j - 1);
+        const sign = (j - order) % 2 === 0 ? 1 : -1;
+        const vPower = MultiPoly.fromTerms(vars + 1, [[e, Rational.int(sign * falling)]]);
+        acc = acc.add(shifted[j]!.extend().mul(vPower));
+      }
+      return IntervalTensor.of(acc);
+    };
+    let built: { d1: IntervalTensor | null; d2: IntervalTensor | null } | null = null;
+    return {
+      // c'j of total degree <= 1 (j != 1) is enclosed exactly enough by interval arithmetic already.
+      shifted: shifted.map((p, j) => (p && (j === 1 || totalDegree(p) > 1) ? IntervalTensor.of(p) : null)),
+      derivatives: () => (built ??= { d1: derivative(1), d2: derivative(2) }),
+    };
+  }
+
+  /** The cell in scaled inputs: origins and widths (exact floats) of a box enclosing it. */
+  private scaled(cell: readonly Interval[]): { origin: number[]; width: number[] } {
+    const origin: number[] = [];
+    const width: number[] = [];
+    cell.forEach((c, i) => {
+      const a = divDown(subDown(c.lo, this.mid[i]!), this.half[i]!);
+      const b = divUp(subUp(c.hi, this.mid[i]!), this.half[i]!);
+      origin.push(a);
+      width.push(Math.max(0, subUp(b, a)));
+    });
+    return { origin, width };
+  }
+
+  /** Enclosure of c'j over the cell, or null where c'j is not a polynomial. */
+  shifted(j: number, cell: Cell, segment: number): Interval | null {
+    return this.cell(cell, segment).shifted[j] ?? null;
+  }
+
+  /**
+   * Every c'j over the cell (the first `d` entries of `cell`), and r, q_k as
+   * c'0 / c'1, c'k / c'1 where c'1 is enclosed away from zero. Kept for the
+   * last few thousand cells: the cell's facts and every program analysed on
+   * it ask for the same numbers.
+   */
+  cell(cell: readonly Interval[], segment: number): TightCell {
+    const d = this.mid.length;
+    // Keyed by the identity of the cell's intervals (split cells share the sides they did not split).
+    let level: WeakMap<Interval, unknown> = this.cache;
+    for (let i = 0; i < d - 1; i++) {
+      let next = level.get(cell[i]!) as WeakMap<Interval, unknown> | undefined;
+      if (!next) level.set(cell[i]!, (next = new WeakMap()));
+      level = next;
+    }
+    let bySegment = (d === 0 ? this.noInputs : level.get(cell[d - 1]!)) as Map<number, TightCell> | undefined;
+    if (!bySegment) {
+      bySegment = new Map();
+      if (d > 0) level.set(cell[d - 1]!, bySegment);
+    }
+    let t = bySegment.get(segment);
+    if (!t) {
+      const tensors = this.tensors(segment);
+      const { origin, width } = this.scaled(cell.slice(0, d));
+      const shifted = tensors.shifted.map((x) => (x ? finite(bernsteinRange(x, origin, width)) : null));
+      const c1 = shifted[1] ?? null;
+      const divisible = c1 !== null && !containsZero(c1);
+      const ratio = shifted.map((x) => (x && divisible ? idiv(x, c1) : null));
+      t = { c1, shifted, ratio };
+      bySegment.set(segment, t);
+    }
+    return t;
+  }
+
+  /** Enclosures of P'(x0 - v) and P''(x0 - v) over the cell and v in J, or null. */
+  derivatives(cell: Cell, segment: number, J: Interval): { d1: Interval; d2: Interval } | null {
+    const t = this.tensors(segment).derivatives();
+    if (!t.d1 || !t.d2) return null;
+    const { origin, width } = this.scaled(cell);
+    origin.push(J.lo);
+    width.push(Math.max(0, subUp(J.hi, J.lo)));
+    return { d1: bernsteinRange(t.d1, origin, width), d2: bernsteinRange(t.d2, origin, width) };
+  }
+}
+
+/** The intersection of two enclosures of the same quantity (both rigorous). */
+export function intersect(a: Interval, b: Interval | null): Interval {
+  if (!b) return a;
+  const lo = Math.max(a.lo, b.lo);
+  const hi = Math.min(a.hi, b.hi);
+  // Disjoint enclosures of one value cannot both be right: keep the plain one.
+  return lo <= hi ? { lo, hi } : a;
+}
