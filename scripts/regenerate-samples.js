@@ -18,6 +18,7 @@ import { fileURLToPath } from 'node:url';
 import { emitFiles, targetsOf } from '../dist/cli/emit-files.js';
 import { writeFiles } from '../dist/cli/files.js';
 import { emitInputOf, planSpec } from '../dist/cli/pipeline.js';
+import { fixedFamilyOf, fixedFilesOfSpec } from '../dist/cli/fixed/pipeline.js';
 
 const ROOT = join(dirname(fileURLToPath(import.meta.url)), '..');
 process.chdir(ROOT);
@@ -25,16 +26,24 @@ process.chdir(ROOT);
 const EXAMPLES = 'examples';
 const SAMPLES = 'generated-samples';
 
-const specs = readdirSync(EXAMPLES)
-  .filter((f) => f.endsWith('.yaml'))
-  .sort();
+// The float examples, then the fixed32 ones (examples/fixed32/, emitted as `--target all` does: C and TypeScript).
+const specs = [
+  ...readdirSync(EXAMPLES)
+    .filter((f) => f.endsWith('.yaml'))
+    .sort(),
+  ...readdirSync(`${EXAMPLES}/fixed32`)
+    .filter((f) => f.endsWith('.yaml'))
+    .sort()
+    .map((f) => `fixed32/${f}`),
+];
 const wanted = new Set(specs.map((f) => basename(f, '.yaml')));
 
 // Plan and emit everything in memory first: a refusal stops the script before
 // anything under generated-samples/ is touched.
 const outputs = specs.map((f) => {
   const spec = `${EXAMPLES}/${f}`;
-  const files = emitFiles(emitInputOf(planSpec(spec)), targetsOf('all'));
+  const fixed = fixedFamilyOf(spec);
+  const files = fixed ? fixedFilesOfSpec(fixed) : emitFiles(emitInputOf(planSpec(spec)), targetsOf('all'));
   return { spec, dir: `${SAMPLES}/${basename(f, '.yaml')}`, files };
 });
 

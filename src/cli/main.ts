@@ -40,6 +40,15 @@ export async function main(argv: string[]): Promise<number> {
           .positional('spec', { type: 'string', demandOption: true, describe: 'spec file (YAML or JSON)' })
           .option('json', { type: 'boolean', default: false, describe: 'print one JSON object instead of text' }),
       async (a) => {
+        const { fixedFamilyOf } = await import('./fixed/pipeline.js');
+        const fixed = fixedFamilyOf(a.spec);
+        if (fixed) {
+          const { fixedPlanJson, fixedPlanText } = await import('./fixed/plan.js');
+          const { makeFixedPlan } = await import('../plan/fixed/plan-fixed.js');
+          const plan = makeFixedPlan(fixed);
+          out(a.json ? JSON.stringify(fixedPlanJson(plan), null, 2) : fixedPlanText(plan));
+          return;
+        }
         const { planJson, planText } = await import('./commands/plan.js');
         const { planSpec } = await import('./pipeline.js');
         const plan = planSpec(a.spec);

@@ -117,22 +117,22 @@ export function specPathForHeader(file: string): string {
   return parts[parts.length - 1] ?? file;
 }
 
-function shortHash(hash: string): string {
+export function shortHash(hash: string): string {
   if (!/^[0-9a-f]{16,}$/.test(hash)) throw new Error(`spec hash is not lower-case hex: ${JSON.stringify(hash)}`);
   return hash.slice(0, 16);
 }
 
-function constantLines(family: Family): string[] {
+export function constantLines(family: Family): string[] {
   const entries = Object.entries(family.constants);
   return entries.length === 0 ? ['none'] : entries.map(([name, value]) => `${name} = ${value}`);
 }
 
 /** First line after the label, the rest indented under it. */
-function labelled(label: string, lines: readonly string[]): string[] {
+export function labelled(label: string, lines: readonly string[]): string[] {
   return lines.map((line, i) => `${(i === 0 ? label : '').padEnd(LABEL_WIDTH)}${line}`.replace(/ +$/, ''));
 }
 
-function wrapWords(text: string, width: number): string[] {
+export function wrapWords(text: string, width: number): string[] {
   const out: string[] = [];
   let line = '';
   for (const word of text.split(' ').filter((w) => w !== '')) {

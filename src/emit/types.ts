@@ -9,8 +9,6 @@ import type { OpCounts } from '../ir/count.js';
 import type { Program } from '../ir/nodes.js';
 import type { Family } from '../family/types.js';
 
-export type Target = 'c' | 'ts' | 'glsl' | 'wgsl' | 'hlsl' | 'rust';
-
 export interface PlanClaims {
   /** Series order N (every kept term has grade w(m) <= N). */
   readonly order: number;

@@ -26,3 +26,29 @@ export function inputsUsed(e: Expr, into: Set<number> = new Set()): Set<number> 
   }
   return into;
 }
+
+/** Names of the constants `e` mentions. */
+export function constantsUsed(e: Expr, into: Set<string> = new Set()): Set<string> {
+  switch (e.kind) {
+    case 'constant':
+      into.add(e.name);
+      break;
+    case 'neg':
+      constantsUsed(e.arg, into);
+      break;
+    case 'pow':
+      constantsUsed(e.base, into);
+      break;
+    case 'add':
+    case 'sub':
+    case 'mul':
+    case 'div':
+      constantsUsed(e.left, into);
+      constantsUsed(e.right, into);
+      break;
+    case 'num':
+    case 'input':
+      break;
+  }
+  return into;
+}

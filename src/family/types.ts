@@ -5,6 +5,24 @@
  */
 import type { Arithmetic } from './arithmetic.js';
 
+/**
+ * `arithmetic: fixed32` (DESIGN.md 1.12): every argument and the result is an
+ * int32 holding value * 2^bits. The family then carries `fixed`, and its
+ * `arithmetic` is float64: the precision the planner's float stages (root
+ * choice, segment centres) work in. `arithmeticName` gives what the spec said.
+ */
+export interface FixedFormat {
+  /** Fraction bits of each input's int32, in spec input order (0..31). */
+  readonly inputs: readonly number[];
+  /** Fraction bits of the returned int32 (0..31). */
+  readonly result: number;
+}
+
+/** The arithmetic as the spec names it: float32, float64 or fixed32. */
+export function arithmeticName(family: { readonly arithmetic: Arithmetic; readonly fixed?: FixedFormat }): 'float32' | 'float64' | 'fixed32' {
+  return family.fixed ? 'fixed32' : family.arithmetic;
+}
+
 export interface Pos {
   /** 1-based line and column in the spec file. */
   line: number;
@@ -74,6 +92,8 @@ export interface Family {
   readonly bracket: readonly [string, string] | null;
   readonly accuracy: { readonly kind: 'absolute' | 'relative'; readonly value: string };
   readonly arithmetic: Arithmetic;
+  /** Present for `arithmetic: fixed32` only: the binary points (see FixedFormat). */
+  readonly fixed?: FixedFormat;
   readonly plan: PlanKnobs;
   /** `inputs_outside_box`: extrapolate (the default) or saturate. */
   readonly outsideBox: OutsideBox;

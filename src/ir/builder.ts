@@ -12,7 +12,7 @@
  */
 import { Rational } from '../math/rational.js';
 import type { Arithmetic } from '../family/arithmetic.js';
-import type { BinaryKind, Node, Program } from './nodes.js';
+import type { BinaryKind, FineIndex, Node, Program } from './nodes.js';
 import { operands, renumber } from './operands.js';
 import { roundTo } from '../family/arithmetic.js';
 
@@ -30,6 +30,8 @@ export interface Segmentation {
     readonly c0: number;
     readonly invWidth: number;
     readonly stride: number;
+    /** The two-level index of this input (nodes.ts, TWO-LEVEL INDEX); count is then the fine-grid count. */
+    readonly fine?: FineIndex;
   }[];
   readonly segments: number;
 }
@@ -119,7 +121,7 @@ export class ProgramBuilder {
       const x = this.input(p.input);
       const c0 = this.const(Rational.fromNumber(p.c0));
       const inv = this.const(Rational.fromNumber(p.invWidth));
-      return { t: this.mul(this.sub(x, c0), inv), count: p.count, stride: p.stride };
+      return { t: this.mul(this.sub(x, c0), inv), count: p.count, stride: p.stride, ...(p.fine ? { fine: p.fine } : {}) };
     });
     if (parts.length === 0) throw new RangeError('per-segment constant in a program without segments');
     this.indexRef = this.push({ kind: 'index', parts }, 'index');

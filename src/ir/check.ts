@@ -5,7 +5,7 @@
  * constants finite. Returns the problems found (empty when the program is sound).
  */
 import { operands } from './operands.js';
-import type { Program } from './nodes.js';
+import { partRows, type Program } from './nodes.js';
 
 export function checkProgram(program: Program): string[] {
   const problems: string[] = [];
@@ -27,7 +27,20 @@ export function checkProgram(program: Program): string[] {
         if (isIndex(n.a)) problems.push(`node ${i} (clamp) uses the integer segment index as a float`);
         break;
       case 'index': {
-        const count = n.parts.reduce((a, p) => a * p.count, 1);
+        const count = n.parts.reduce((a, p) => a * partRows(p), 1);
+        for (const p of n.parts) {
+          const f = p.fine;
+          if (!f) continue;
+          const cells = p.count >> f.level;
+          if (f.meta.length !== cells || cells << f.level !== p.count) problems.push(`node ${i}: ${f.meta.length} coarse cells for ${p.count} fine positions at level ${f.level}`);
+          let next = 0;
+          for (const m of f.meta) {
+            const drop = m & 31;
+            if (m >> 5 !== next || drop > f.level) problems.push(`node ${i}: coarse entry ${m} does not follow row ${next}`);
+            next += 2 ** (f.level - drop);
+          }
+          if (next !== f.rows) problems.push(`node ${i}: the coarse cells hold ${next} rows, not ${f.rows}`);
+        }
         if (segments !== null && segments !== count) problems.push(`node ${i}: a second segment index with ${count} segments`);
         segments = count;
         for (const p of n.parts) if (isIndex(p.t)) problems.push(`node ${i}: its t operand is an index, not a float`);

@@ -39,6 +39,12 @@ export function countOps(program: Program): OpCounts {
         // clamp (shift, not, and; subtract, shift, not, and, subtract), times stride and sum.
         c.add += n.parts.length;
         c.intOps += n.parts.length * 10 + (n.parts.length - 1) * 2;
+        // a two-level part: one read of its coarse-cell table, then shift, and, shift, mask, shift, add.
+        for (const p of n.parts) {
+          if (!p.fine) continue;
+          c.tableReads++;
+          c.intOps += 6;
+        }
         break;
       case 'table':
         c.tableReads++;

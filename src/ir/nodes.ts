@@ -39,8 +39,40 @@ export type Node =
 export interface IndexPart {
   /** A float node: the input's position in segment widths, centred on segment 0 (t = (x - c0) / width). */
   readonly t: number;
+  /** Positions of the rounded t: [0, count - 1] after the clamp (the fine grid when `fine` is set). */
   readonly count: number;
   readonly stride: number;
+  /** The two-level index (TWO-LEVEL INDEX below); absent for equal segments, where the row is the clamped t itself. */
+  readonly fine?: FineIndex;
+}
+
+/**
+ * TWO-LEVEL INDEX (DESIGN.md 1.11). The clamped g in [0, count - 1] counts
+ * cells of the finest grid, 2^level of them in every coarse cell; the coarse
+ * cell is g >> level. One read of `meta` at the coarse cell gives
+ * (first << 5) | drop, where the coarse cell holds 2^(level - drop) fine
+ * segments, rows first .. first + 2^(level - drop) - 1:
+ *     m = meta[g >> level];  row = (m >> 5) + ((g & (2^level - 1)) >> (m & 31)).
+ * g is clamped and first + ((g & mask) >> drop) <= first + 2^(level - drop) - 1
+ * < rows, so every read stays inside its table; integer operations only.
+ */
+export interface FineIndex {
+  readonly level: number;
+  /** Per coarse cell (count >> level of them): (first row << 5) | drop. */
+  readonly meta: readonly number[];
+  /** Rows along this input: the sum of the coarse cells' fine counts. */
+  readonly rows: number;
+}
+
+/** The row of a clamped fine-grid position g (TWO-LEVEL INDEX). */
+export function fineRow(fine: FineIndex, g: number): number {
+  const m = fine.meta[g >> fine.level]!;
+  return (m >> 5) + ((g & ((1 << fine.level) - 1)) >> (m & 31));
+}
+
+/** Rows along a part: what its stride multiplies. */
+export function partRows(p: IndexPart): number {
+  return p.fine ? p.fine.rows : p.count;
 }
 
 /**

@@ -24,7 +24,7 @@
 import { Rational } from '../math/rational.js';
 import type { Arithmetic } from '../family/arithmetic.js';
 import { evaluate } from './evaluate.js';
-import type { Node, Program } from './nodes.js';
+import { fineRow, partRows, type Node, type Program } from './nodes.js';
 import { nextDownIn, nextUpIn, roundNumber, roundTo } from '../family/arithmetic.js';
 import { clampSegment, roundedSegment } from './segment-index.js';
 
@@ -63,10 +63,13 @@ export function segmentEdges(program: Program, box: readonly EdgeBox[]): InputEd
       at[input] = x;
       return clampSegment(roundedSegment(evaluate(tProgram, at), arith), part.count);
     };
+    // With a two-level index only the fine-grid edges where the row changes are edges.
+    const rowOf = (g: number): number => (part.fine ? fineRow(part.fine, g) : g);
     const width = Rational.ONE.div(invWidth);
     const edges: number[] = [];
     const points = new Set<number>();
     for (let j = 0; j + 1 < part.count; j++) {
+      if (rowOf(j) === rowOf(j + 1)) continue;
       const exact = c0.add(width.mul(Rational.of(BigInt(2 * j + 1), 2n)));
       const edge = roundTo(exact, arith);
       if (inBox(edge)) edges.push(edge);
@@ -76,7 +79,7 @@ export function segmentEdges(program: Program, box: readonly EdgeBox[]): InputEd
       const pair = switchPair(segmentAt, j, below, above, arith);
       for (const v of [...near, ...(pair ?? [])]) if (inBox(v)) points.add(v === 0 ? 0 : v);
     }
-    out[input] = { count: part.count, edges: edges.sort((a, b) => a - b), points: [...points].sort((a, b) => a - b) };
+    out[input] = { count: partRows(part), edges: edges.sort((a, b) => a - b), points: [...points].sort((a, b) => a - b) };
   }
   return out;
 }

@@ -5,7 +5,7 @@
  */
 import type { Arithmetic } from '../family/arithmetic.js';
 import { ARITHMETICS } from '../family/arithmetic.js';
-import type { IndexPart } from './nodes.js';
+import { fineRow, type IndexPart } from './nodes.js';
 
 const f32 = new Float32Array(1);
 const u32 = new Uint32Array(f32.buffer);
@@ -29,11 +29,17 @@ export function clampSegment(n: number, count: number): number {
   return n - (d & ~(d >> 31));
 }
 
+/** One part's row: the clamped rounded t, through the two-level index when the part has one. */
+export function partSegment(t: number, part: IndexPart, arithmetic: Arithmetic): number {
+  const g = clampSegment(roundedSegment(t, arithmetic), part.count);
+  return part.fine ? fineRow(part.fine, g) : g;
+}
+
 /** The combined segment number from the parts' t values. */
 export function segmentNumber(ts: readonly number[], parts: readonly IndexPart[], arithmetic: Arithmetic): number {
   let idx = 0;
   parts.forEach((p, k) => {
-    idx += clampSegment(roundedSegment(ts[k]!, arithmetic), p.count) * p.stride;
+    idx += partSegment(ts[k]!, p, arithmetic) * p.stride;
   });
   return idx;
 }

@@ -11,8 +11,8 @@ export const addUp = (a: number, b: number): number => nextUp(a + b);
 export const addDown = (a: number, b: number): number => nextDown(a + b);
 export const mulUp = (a: number, b: number): number => nextUp(a * b);
 export const mulDown = (a: number, b: number): number => nextDown(a * b);
-export const divUp = (a: number, b: number): number => nextUp(a / b);
 export const divDown = (a: number, b: number): number => nextDown(a / b);
+export const divUp = (a: number, b: number): number => nextUp(a / b);
 export const subUp = (a: number, b: number): number => nextUp(a - b);
 export const subDown = (a: number, b: number): number => nextDown(a - b);
 
@@ -20,13 +20,6 @@ export const subDown = (a: number, b: number): number => nextDown(a - b);
 export function powUp(x: number, k: number): number {
   let r = 1;
   for (let i = 0; i < k; i++) r = mulUp(r, x);
-  return r;
-}
-
-/** Lower bound of x^k for x >= 0. */
-export function powDown(x: number, k: number): number {
-  let r = 1;
-  for (let i = 0; i < k; i++) r = mulDown(r, x);
   return r;
 }
 

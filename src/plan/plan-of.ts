@@ -39,9 +39,13 @@ export function planOf(ctx: Pick<FormContext, 'family' | 'root' | 'target' | 'co
   };
 }
 
-/** Bytes of the program's segment tables. */
+/** Bytes of the program's segment tables, the two-level index's coarse-cell tables (2 bytes an entry, uint16_t in C) included. */
 export function tableBytesOf(program: Program): number {
   let n = 0;
-  for (const node of program.nodes) if (node.kind === 'table') n += node.values.length;
-  return n * ARITHMETICS[program.arithmetic].bytes;
+  let cells = 0;
+  for (const node of program.nodes) {
+    if (node.kind === 'table') n += node.values.length;
+    if (node.kind === 'index') for (const p of node.parts) cells += p.fine ? p.fine.meta.length : 0;
+  }
+  return n * ARITHMETICS[program.arithmetic].bytes + 2 * cells;
 }

@@ -11,6 +11,7 @@ import type { Program } from '../ir/nodes.js';
 import type { Family } from '../family/types.js';
 import { grid, type Cell } from './box.js';
 import { certifyRootInBracket } from './bracket-check.js';
+import { cellTail } from './cell-bound.js';
 import { CellSet } from './cell-set.js';
 import { FoundPlans, type FormContext } from './forms/context.js';
 import { FORMS } from './forms/index.js';
@@ -25,9 +26,9 @@ import { initialCellsPerSegment, LIMITS } from './tuning.js';
 import type { Plan } from './types.js';
 
 /** `thorough` false for the trials of a segment search (see CellSet.repairBadCells). */
-export function planSegments(family: Family, box: Cell, counts: readonly number[], thorough = true): Plan {
+export function planSegments(family: Family, box: Cell, counts: readonly number[], thorough = true, refine?: readonly (readonly number[] | null)[]): Plan {
   try {
-    return planSegmentsInner(family, box, counts, thorough);
+    return planSegmentsInner(family, box, segmentLayout(family, box, counts, refine), thorough);
   } catch (e) {
     if (e instanceof ConstantOverflowError) {
       throw new RootcastError(
@@ -39,8 +40,8 @@ export function planSegments(family: Family, box: Cell, counts: readonly number[
   }
 }
 
-function planSegmentsInner(family: Family, box: Cell, counts: readonly number[], thorough: boolean): Plan {
-  const layout = segmentLayout(family, box, counts);
+function planSegmentsInner(family: Family, box: Cell, layout: SegmentLayout, thorough: boolean): Plan {
+  const counts = layout.counts;
   const { expansion, root } = expansionFor(family, layout);
   const ap = prefixOf(family, expansion, layout);
   const relative = family.accuracy.kind === 'relative';
@@ -99,7 +100,9 @@ function expansionFor(family: Family, layout: SegmentLayout): { expansion: Expan
   const root = chooseRoot(family);
   if (layout.segmentation.segments === 1) return { expansion: { segmentation: layout.segmentation, x0: [root.x0] }, root };
   const x0 = layout.centres.map((c) => rootAt(family, c));
-  const note = `the root in [${family.bracket![0]}, ${family.bracket![1]}], ${layout.counts.join(' x ')} segments, each recentred at its own root (at the segment centre)`;
+  const coarse = layout.refine.map((r, i) => (r ? `${layout.counts[i]} in ${r.length} coarse cells` : null));
+  const twoLevel = coarse.some((c) => c !== null) ? ` (two-level index: ${coarse.map((c, i) => c ?? `${layout.counts[i]} equal`).join(' x ')})` : '';
+  const note = `the root in [${family.bracket![0]}, ${family.bracket![1]}], ${layout.counts.join(' x ')} segments${twoLevel}, each recentred at its own root (at the segment centre)`;
   return { expansion: { segmentation: layout.segmentation, x0 }, root: { ...root, note } };
 }
 
@@ -133,4 +136,32 @@ function checkTable(family: Family, counts: readonly number[], program: Program)
     );
   }
   return tableBytes;
+}
+
+/**
+ * How far each segment of a layout is from meeting the target with every
+ * grade up to `order` kept: per segment, the worst over its cells of the
+ * truncation bound divided by the target (relative accuracy: by target times
+ * the least |root|); Infinity where a cell has no bound (the series diverges
+ * or the slope may vanish). The refinement search (refine.ts) splits the
+ * coarse cells holding a segment above its threshold.
+ */
+export function segmentNeeds(family: Family, box: Cell, layout: SegmentLayout, order: number): number[] {
+  const { expansion } = expansionFor(family, layout);
+  const ap = prefixOf(family, expansion, layout);
+  const relative = family.accuracy.kind === 'relative';
+  const target = Number(family.accuracy.value);
+  const perSegment = initialCellsPerSegment(family.inputs.length, layout.segmentation.segments);
+  const initial = layout.boxes.flatMap((b, segment) => grid(b, perSegment).map((cell) => ({ cell, segment })));
+  const set = new CellSet(ap, family.degree, box, expansion.x0.map((v) => v.toNumber()), initial);
+  set.repairBadCells(LIMITS.cells, relative, false);
+  const pool = new TermPool(family.degree, [...ap.q.keys()], set);
+  const needs = new Array<number>(layout.segmentation.segments).fill(0);
+  if (!pool.termsUpTo(order)) return needs.fill(Infinity);
+  for (const c of set.cells) {
+    const t = cellTail(c, order);
+    const allowed = relative ? target * c.rootMin : target;
+    needs[c.segment] = Math.max(needs[c.segment]!, allowed > 0 ? t / allowed : Infinity);
+  }
+  return needs;
 }

@@ -9,7 +9,7 @@
  */
 import { RootcastError } from '../errors.js';
 import type { Family } from '../family/types.js';
-import { boxOf } from './box.js';
+import { boxOf, type Cell } from './box.js';
 import { certifyBracket } from './bracket-check.js';
 import { candidatesOf, withCandidates } from './candidates.js';
 import { locate } from './locate.js';
@@ -17,6 +17,7 @@ import { applyOutsideBox } from './outside-box.js';
 import { planSegments } from './plan-segments.js';
 import { searchSegments } from './segment-search.js';
 import { refuseWorkLimit } from './refusals.js';
+import { TABLE_FIX } from './tuning.js';
 import type { Plan } from './types.js';
 import { startWork, WorkLimitError, type WorkObserver } from './work.js';
 
@@ -28,6 +29,8 @@ export interface PlanOptions {
 }
 
 export function makePlan(family: Family, options: PlanOptions = {}): Plan {
+  // fixed32 has its own planner (src/plan/fixed/plan-fixed.ts); the commands route it there.
+  if (family.fixed) throw new Error('a fixed32 family is planned by makeFixedPlan');
   startWork(options.onWork ?? null);
   try {
     return applyOutsideBox(planWithinLimit(family));
@@ -42,7 +45,15 @@ function planWithinLimit(family: Family): Plan {
   certifyBracket(family, box.cell);
   const knob = family.plan.segments;
   const perInput = typeof knob === 'object' ? knob : family.inputs.map(() => knob);
-  if (perInput.some((k) => k === 'auto')) return searchSegments(family, box.cell, perInput.map((k) => (k === 'auto' ? null : k)));
+  if (perInput.some((k) => k === 'auto')) {
+    const fixed = perInput.map((k) => (k === 'auto' ? null : k));
+    try {
+      return searchSegments(family, box.cell, fixed);
+    } catch (e) {
+      if (e instanceof RootcastError) refuseWithTableFix(family, box.cell, fixed, e);
+      throw e;
+    }
+  }
   const counts = perInput as readonly number[];
   if (counts.some((k) => k > 1) && !family.bracket) {
     throw new RootcastError(
@@ -52,4 +63,34 @@ function planWithinLimit(family: Family): Plan {
   }
   const p = planSegments(family, box.cell, counts);
   return withCandidates(p, candidatesOf(p));
+}
+
+/**
+ * When the segment search found no plan and plan.max_table_bytes kept it from
+ * splitting the inputs, the real fix is that knob: search again with each
+ * of TABLE_FIX.tryBytes in turn and, when a plan is found, check that its table size as
+ * the limit plans too before quoting it (a quoted fix must work). Otherwise
+ * the search's own refusal stands.
+ */
+function refuseWithTableFix(family: Family, box: Cell, fixed: readonly (number | null)[], refusal: RootcastError): void {
+  if (!family.bracket) return;
+  const withBytes = (bytes: number): Family => ({ ...family, plan: { ...family.plan, maxTableBytes: bytes } });
+  let bytes = 0;
+  for (const limit of TABLE_FIX.tryBytes) {
+    if (limit <= family.plan.maxTableBytes) continue;
+    try {
+      const found = searchSegments(withBytes(limit), box, fixed).tableBytes;
+      searchSegments(withBytes(found), box, fixed);
+      bytes = found;
+      break;
+    } catch (e) {
+      if (e instanceof WorkLimitError) return;
+      if (!(e instanceof RootcastError)) throw e;
+    }
+  }
+  if (bytes === 0) return;
+  throw new RootcastError(
+    `no plan fits plan.max_table_bytes ${family.plan.maxTableBytes}: one box is refused (${refusal.message.split(';')[0]}), and segment tables need ${bytes} bytes; set plan.max_table_bytes: ${bytes}`,
+    family.positions['plan.max_table_bytes'] ? locate(family, 'plan.max_table_bytes') : { ...locate(family, 'plan'), field: 'plan.max_table_bytes' },
+  );
 }

@@ -4,6 +4,8 @@
  * and move to the cheapest (or, when none is possible yet, double every
  * input). Stops at the table-size limit, the segment caps, or after
  * SEGMENT_SEARCH.staleSteps steps without a gain (src/plan/tuning.ts).
+ * Then two-level layouts (src/plan/refine.ts) join the equal ones, and the
+ * flash-frugal rule (frugalChoice) picks among them all.
  */
 import { RootcastError } from '../errors.js';
 import { ARITHMETICS } from '../family/arithmetic.js';
@@ -12,7 +14,8 @@ import type { Cell } from './box.js';
 import { locate } from './locate.js';
 import { candidatesOf, refusedCandidate, withCandidates } from './candidates.js';
 import { planSegments } from './plan-segments.js';
-import { SEGMENT_SEARCH } from './tuning.js';
+import { refinedPlans } from './refine.js';
+import { REFINE, SEGMENT_SEARCH } from './tuning.js';
 import { WorkLimitError } from './work.js';
 import type { Candidate, Plan } from './types.js';
 
@@ -86,8 +89,29 @@ export function searchSegments(family: Family, box: Cell, fixed: readonly (numbe
     // Steps in a row without a cheaper plan end the search (none found yet does not count).
     stale = found.best && found.best.cost >= before ? stale + 1 : 0;
   }
-  if (!found.best) throw found.firstError ?? new WorkLimitError();
-  return withCandidates(found.best, candidates);
+  const all: Plan[] = [...tried.values()].filter((p): p is Plan => p !== null);
+  if (free.some((f) => f) && !found.exhausted) {
+    try {
+      const refined = refinedPlans(family, box, fixed);
+      candidates.push(...refined.candidates);
+      all.push(...refined.plans);
+    } catch (e) {
+      // The work limit ends the two-level search too: the plans so far stand (src/plan/work.ts).
+      if (!(e instanceof WorkLimitError)) throw e;
+    }
+  }
+  if (all.length === 0) throw found.firstError ?? new WorkLimitError();
+  return withCandidates(frugalChoice(all), candidates);
+}
+
+/**
+ * The cheapest plan by the cost model, except that a plan within
+ * REFINE.costSlack of its cost with fewer table bytes wins (ties: cheaper).
+ */
+export function frugalChoice(plans: readonly Plan[]): Plan {
+  const cheapest = Math.min(...plans.map((p) => p.cost));
+  const near = plans.filter((p) => p.cost <= cheapest * (1 + REFINE.costSlack));
+  return near.reduce((a, b) => (b.tableBytes < a.tableBytes || (b.tableBytes === a.tableBytes && b.cost < a.cost) ? b : a));
 }
 
 /** A coarse check before planning: the least table a segmented plan needs must fit. */

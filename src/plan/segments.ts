@@ -19,7 +19,10 @@ import { locate } from './locate.js';
 import { boxCentre } from './root-choice.js';
 
 export interface SegmentLayout {
+  /** Segments (rows) per input, in spec order. */
   readonly counts: readonly number[];
+  /** Per input: log2 of each coarse cell's fine count (TWO-LEVEL INDEX), or null for equal segments. */
+  readonly refine: readonly (readonly number[] | null)[];
   readonly segmentation: Segmentation;
   /** Per segment: the analysed box (float64 enclosure) and the exact centre point. */
   readonly boxes: readonly Cell[];
@@ -50,25 +53,53 @@ export function layoutProblem(family: Family, box: Cell, counts: readonly number
   return null;
 }
 
-export function segmentLayout(family: Family, box: Cell, counts: readonly number[]): SegmentLayout {
-  const problem = layoutProblem(family, box, counts);
+/**
+ * `counts`: coarse cells per input. `refine` (optional, per input): for each
+ * coarse cell, log2 of its fine segment count (TWO-LEVEL INDEX in
+ * src/ir/nodes.ts); the index then rounds on the finest grid, 2^level
+ * positions per coarse cell, and a row (fine segment) covers a run of
+ * 2^(level - s) positions. Each row's analysed box is its positions' range
+ * widened by e = 3 u (count + 1) fine widths, as for equal segments.
+ */
+export function segmentLayout(family: Family, box: Cell, counts: readonly number[], refine: readonly (readonly number[] | null)[] = counts.map(() => null)): SegmentLayout {
+  const fineCounts = counts.map((k, i) => {
+    const r = refine[i];
+    return r ? k * 2 ** Math.max(...r) : k;
+  });
+  const problem = layoutProblem(family, box, fineCounts);
   if (problem) throw new RootcastError(`${problem}; use fewer segments (plan.segments: 1) or rescale the input`, locate(family, 'plan.segments'));
   const arith = family.arithmetic;
   const u = ARITHMETICS[arith].u;
   const centre = boxCentre(family);
-  const split = counts.map((k, i) => ({ i, k })).filter((p) => p.k > 1);
+  // Per input: the fine-grid runs [a, b] of its rows, and the index's fine description.
+  const axes = counts.map((k, i) => {
+    const r = refine[i];
+    if (!r || k <= 1 && Math.max(...r) === 0) return { runs: Array.from({ length: fineCounts[i]! }, (_, j) => [j, j] as [number, number]), fine: undefined };
+    if (r.length !== k) throw new RangeError(`refine for input ${i} has ${r.length} cells, not ${k}`);
+    const level = Math.max(...r);
+    const runs: [number, number][] = [];
+    const meta: number[] = [];
+    r.forEach((sk, c) => {
+      meta.push((runs.length << 5) | (level - sk));
+      const len = 2 ** (level - sk);
+      for (let j = 0; j < 2 ** sk; j++) runs.push([c * 2 ** level + j * len, c * 2 ** level + (j + 1) * len - 1]);
+    });
+    return { runs, fine: level === 0 ? undefined : { level, meta, rows: runs.length } };
+  });
+  const split = fineCounts.map((k, i) => ({ i, k, rows: axes[i]!.runs.length })).filter((p) => p.k > 1);
   let stride = 1;
   const strides = new Array<number>(split.length);
   for (let k = split.length - 1; k >= 0; k--) {
     strides[k] = stride;
-    stride *= split[k]!.k;
+    stride *= split[k]!.rows;
   }
   const parts = split.map((p, k) => {
     const { lo, hi } = box[p.i]!;
     const width = Rational.fromNumber(hi).sub(Rational.fromNumber(lo)).div(Rational.int(p.k));
     const c0 = roundTo(Rational.fromNumber(lo).add(width.mul(Rational.of(1n, 2n))), arith);
     const invWidth = roundTo(Rational.int(p.k).div(Rational.fromNumber(hi).sub(Rational.fromNumber(lo))), arith);
-    return { input: p.i, count: p.k, c0, invWidth, stride: strides[k]! };
+    const fine = axes[p.i]!.fine;
+    return { input: p.i, count: p.k, c0, invWidth, stride: strides[k]!, rows: p.rows, ...(fine ? { fine } : {}) };
   });
   const segments = stride;
   const boxes: Cell[] = [];
@@ -77,18 +108,25 @@ export function segmentLayout(family: Family, box: Cell, counts: readonly number
     const cell = box.map((c) => ({ ...c }));
     const point = [...centre];
     parts.forEach((p) => {
-      const j = Math.floor(s / p.stride) % p.count;
+      const [a, b] = axes[p.input]!.runs[Math.floor(s / p.stride) % p.rows]!;
       const c0 = Rational.fromNumber(p.c0);
       const w = Rational.ONE.div(Rational.fromNumber(p.invWidth));
       const e = Rational.fromNumber(3 * u * (p.count + 1));
       const half = Rational.of(1n, 2n);
-      const lo = j === 0 ? box[p.input]!.lo : c0.add(w.mul(Rational.int(j).sub(half).sub(e))).toNumberDown();
-      const hi = j === p.count - 1 ? box[p.input]!.hi : c0.add(w.mul(Rational.int(j).add(half).add(e))).toNumberUp();
+      const lo = a === 0 ? box[p.input]!.lo : c0.add(w.mul(Rational.int(a).sub(half).sub(e))).toNumberDown();
+      const hi = b === p.count - 1 ? box[p.input]!.hi : c0.add(w.mul(Rational.int(b).add(half).add(e))).toNumberUp();
       cell[p.input] = { lo: Math.max(lo, box[p.input]!.lo), hi: Math.min(hi, box[p.input]!.hi) };
-      point[p.input] = c0.add(w.mul(Rational.int(j)));
+      point[p.input] = c0.add(w.mul(Rational.int(a + b).mul(half)));
     });
     boxes.push(cell);
     centres.push(point);
   }
-  return { counts, segmentation: { parts, segments }, boxes, centres };
+  const rowsPerInput = counts.map((_, i) => axes[i]!.runs.length);
+  return {
+    counts: rowsPerInput,
+    refine: counts.map((_, i) => (axes[i]!.fine ? refine[i]! : null)),
+    segmentation: { parts: parts.map(({ rows: _rows, ...q }) => q), segments },
+    boxes,
+    centres,
+  };
 }

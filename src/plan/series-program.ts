@@ -14,7 +14,7 @@
  * Then x = x0 - r a.
  */
 import { Rational } from '../math/rational.js';
-import { ProgramBuilder, SINGLE, type Ref, type Segmentation, type SegValues } from '../ir/builder.js';
+import { ProgramBuilder, type Ref, type Segmentation, type SegValues } from '../ir/builder.js';
 import type { Program } from '../ir/nodes.js';
 import { attachEnclosures } from '../ir/analyse.js';
 import type { Interval } from '../math/interval.js';
@@ -39,7 +39,6 @@ export interface Expansion {
   readonly x0: SegValues;
 }
 
-export const singleExpansion = (x0: Rational): Expansion => ({ segmentation: SINGLE, x0: [x0] });
 
 export interface Prefix {
   readonly r: Ref;

@@ -34,6 +34,24 @@ export const SEGMENT_SEARCH = {
   minValuesPerSegment: 2,
 } as const;
 
+/** The two-level (non-uniform) segment search (src/plan/refine.ts, DESIGN.md 1.11). */
+export const REFINE = {
+  /** Coarse cells per searched input, by number of inputs (1, 2, 3 or more): few, so the coarse table is small and the fine counts do the work. */
+  coarse: [8, 4, 2] as const,
+  /** Series orders the refinement aims at: each gives one layout; higher orders need fewer, longer segments but cost more operations. */
+  orders: [0, 1, 2, 3, 4] as const,
+  /** Deepest split of a coarse cell (2^level fine segments): 64 per coarse cell reaches the equal segments' 512-1024 range. */
+  maxLevel: 6,
+  /** A segment is split while its truncation bound exceeds this share of the target: the rest is left to rounding. */
+  share: 0.5,
+  /**
+   * Flash-frugal choice: among the plans whose cost is within this fraction
+   * of the cheapest, the one with the fewest table bytes wins (a few percent
+   * more cycles for a table several times smaller is the trade firmware makes).
+   */
+  costSlack: 0.1,
+} as const;
+
 /**
  * The cells each segment starts with, in all (src/plan/box.ts `grid` takes
  * the nearest power): enough that the first bound is not dominated by
@@ -154,4 +172,10 @@ export const WORK = {
   orderHuntShare: 1 / 8,
   /** Progress reports over the whole limit. */
   reports: 200,
+} as const;
+
+/** The table-size fix a refusal may quote (src/plan/plan.ts). */
+export const TABLE_FIX = {
+  /** The limits the search is retried with, in turn, when plan.max_table_bytes kept it from splitting: the default 4 KiB, then 64 KiB, a table most targets still hold in memory. */
+  tryBytes: [4096, 65536] as const,
 } as const;

@@ -18,6 +18,7 @@ import { readConstants } from './section-constants.js';
 import { readInputs, type InputsSection } from './section-inputs.js';
 import { readPlan } from './section-plan.js';
 import { readRoot } from './section-root.js';
+import { readFixed } from './section-fixed.js';
 import type { Expr, Family, OutsideBox, Pos } from '../family/types.js';
 import { ARITHMETICS, type Arithmetic } from '../family/arithmetic.js';
 import { parseSpecDocument } from './yaml-document.js';
@@ -34,14 +35,15 @@ export const SPEC_FIELDS = [
   'root',
   'accuracy',
   'arithmetic',
+  'fixed',
   'plan',
   'inputs_outside_box',
 ] as const;
 
 const REQUIRED_FIELDS = ['function', 'unknown', 'degree', 'coefficients', 'inputs', 'accuracy', 'arithmetic'] as const;
 
-/** The arithmetics, in the table's order (src/family/arithmetic.ts). */
-const ARITHMETIC = Object.keys(ARITHMETICS) as Arithmetic[];
+/** The arithmetics, in the table's order (src/family/arithmetic.ts), then fixed32 (src/reader/section-fixed.ts). */
+const ARITHMETIC: readonly (Arithmetic | 'fixed32')[] = [...(Object.keys(ARITHMETICS) as Arithmetic[]), 'fixed32'];
 const OUTSIDE_BOX: readonly OutsideBox[] = ['extrapolate', 'saturate'];
 
 /** Highest degree a spec may ask for. */
@@ -79,7 +81,10 @@ export function readSpec(file: string, text: string, bytes?: Uint8Array): Family
   refuseUnusedInputs(ctx, coefficients.exprs, inputs);
   const bracket = readRoot(ctx, field('root'), positions);
   const accuracy = readAccuracy(ctx, must('accuracy'), positions);
-  const arithmetic = readChoice(ctx, valueOf(ctx, must('arithmetic'), ARITHMETIC.join(' or ')), 'arithmetic', ARITHMETIC).value;
+  const named = readChoice(ctx, valueOf(ctx, must('arithmetic'), ARITHMETIC.join(' or ')), 'arithmetic', ARITHMETIC);
+  const fixed = readFixed(ctx, field('fixed'), named, inputs.inputs, positions);
+  // fixed32: the planner's float stages work in float64 (see FixedFormat).
+  const arithmetic: Arithmetic = named.value === 'fixed32' ? 'float64' : named.value;
   const plan = readPlan(ctx, field('plan'), positions, inputs.inputs.map((i) => i.name));
   const outside = field('inputs_outside_box');
   const outsideBox = outside
@@ -101,6 +106,7 @@ export function readSpec(file: string, text: string, bytes?: Uint8Array): Family
     bracket,
     accuracy,
     arithmetic,
+    ...(fixed ? { fixed } : {}),
     plan,
     outsideBox,
     positions,

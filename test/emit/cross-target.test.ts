@@ -12,7 +12,7 @@ import { cFunction } from '../../src/emit/c/function.js';
 import { tsFunction } from '../../src/emit/ts/function.js';
 import { evaluate } from '../../src/ir/evaluate.js';
 import type { Arithmetic } from '../../src/family/arithmetic.js';
-import { float32Bits, float64Bits } from './support/bits.js';
+import { float32Hex, float64Hex } from '../support/bits.js';
 import { exactIeeeEvaluate } from './support/exact-ieee.js';
 import { demoInput } from './support/family.js';
 import { samplePoints } from './support/inputs.js';
@@ -39,8 +39,8 @@ describe('C, TypeScript and evaluate() agree bit for bit', () => {
 
     const cBits = runC(dir, cFunction(input), program, name, rows);
     const tsBits = runTs(dir, tsFunction(input), name, rows);
-    const cExpected = expected.map(arithmetic === 'float32' ? float32Bits : float64Bits);
-    const tsExpected = expected.map(float64Bits);
+    const cExpected = expected.map(arithmetic === 'float32' ? float32Hex : float64Hex);
+    const tsExpected = expected.map(float64Hex);
 
     const failures: string[] = [];
     rows.forEach((row, i) => {

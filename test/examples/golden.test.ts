@@ -16,11 +16,12 @@ import { describe, expect, test } from '@jest/globals';
 import { existsSync, readdirSync, readFileSync, statSync } from 'node:fs';
 import { join } from 'node:path';
 import type { EmittedFile } from '../../src/emit/types.js';
-import { emitExample } from './support/emit-example.js';
-import { exampleFiles, REPO_ROOT, sampleFolderOf, specPathOf } from './support/repo.js';
+import { emittedFilesOf } from './support/emit-example.js';
+import { exampleFiles, fixedExampleFiles, REPO_ROOT, sampleFolderOf, specPathOf } from './support/repo.js';
 
 const SAMPLES = join(REPO_ROOT, 'generated-samples');
-const EXAMPLES = exampleFiles();
+// The float examples and the fixed32 ones (examples/fixed32/), in the order of their sample folders.
+const EXAMPLES = [...exampleFiles(), ...fixedExampleFiles()].sort((a, b) => (sampleFolderOf(a) < sampleFolderOf(b) ? -1 : 1));
 
 /** The first line where two texts differ, with both versions, or null when they are equal. */
 function firstDifference(expected: string, actual: string): string | null {
@@ -46,7 +47,7 @@ const emitted = new Map<string, readonly EmittedFile[]>();
 function firstEmit(file: string): readonly EmittedFile[] {
   let files = emitted.get(file);
   if (!files) {
-    files = emitExample(specPathOf(file)).files;
+    files = emittedFilesOf(specPathOf(file));
     emitted.set(file, files);
   }
   return files;
@@ -94,7 +95,7 @@ describe('generated-samples/ is what the emitter writes today', () => {
 describe('emitting is deterministic', () => {
   test.each(EXAMPLES)('%s: planning and emitting twice gives identical bytes', (file) => {
     const first = firstEmit(file);
-    const again = emitExample(specPathOf(file)).files;
+    const again = emittedFilesOf(specPathOf(file));
     expect(again.map((f) => f.path)).toEqual(first.map((f) => f.path));
     const problems = first.flatMap((f, i) => {
       const diff = firstDifference(f.text, again[i]!.text);

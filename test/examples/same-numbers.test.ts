@@ -23,7 +23,7 @@ import { afterAll, describe, expect, test } from '@jest/globals';
 import { evaluate } from '../../src/ir/evaluate.js';
 import { loadSpec } from '../../src/reader/load.js';
 import { checkSamplePoints, edgePointsOf, sampleTotal } from '../../src/verify/samples.js';
-import { float32Hex, float64Hex } from './support/bits.js';
+import { float32Hex, float64Hex } from '../support/bits.js';
 import { emitExample, fileEndingWith } from './support/emit-example.js';
 import { buildCHarness, buildTsHarness, type HarnessDump } from './support/harness-dump.js';
 import { exampleFiles, REPO_ROOT, specPathOf } from './support/repo.js';

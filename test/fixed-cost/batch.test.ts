@@ -13,7 +13,7 @@ import { tsFunction } from '../../src/emit/ts/function.js';
 import { transpileTs, typeCheckTs } from '../../src/emit/ts/typecheck.js';
 import { evaluate } from '../../src/ir/evaluate.js';
 import type { Arithmetic } from '../../src/family/arithmetic.js';
-import { float64Bits } from '../emit/support/bits.js';
+import { float64Hex } from '../support/bits.js';
 import { demoInput } from '../emit/support/family.js';
 import { samplePoints } from '../emit/support/inputs.js';
 import { ALL_SAMPLES, literalZoo, quadraticSeries, sqrtTaylor, unusedArgument } from '../emit/support/programs.js';
@@ -106,8 +106,8 @@ process.stdout.write(JSON.stringify({ f64: [...out64].map(toHex), f32: [...out32
 `;
     dir.write(`run_${arithmetic}.js`, runner);
     const got = JSON.parse(execFileSync(process.execPath, [`run_${arithmetic}.js`], { cwd: dir.path, encoding: 'utf8' })) as { f64: string[]; f32: string[] };
-    expect(got.f64).toEqual(rows.map((r) => float64Bits(evaluate(program, r))));
+    expect(got.f64).toEqual(rows.map((r) => float64Hex(evaluate(program, r))));
     // Into a Float32Array each result is stored rounded to binary32 (exact for float32 programs).
-    expect(got.f32).toEqual(rows.map((r) => float64Bits(Math.fround(evaluate(program, r.map((v) => Math.fround(v)))))));
+    expect(got.f32).toEqual(rows.map((r) => float64Hex(Math.fround(evaluate(program, r.map((v) => Math.fround(v)))))));
   });
 });

@@ -13,7 +13,7 @@
  *       number), read out by probe copies of the snippet
  *       (test/glsl/support/probes.ts), is an integer in [0, count - 1]; and
  *       wherever |t| < 2^22, it is the segment C and TypeScript take
- *       (clampSegment(roundedSegment(t)), src/ir/segment-index.ts, which
+ *       (partSegment(t), src/ir/segment-index.ts, which
  *       the C and TypeScript functions match: test/emit/cross-target.test.ts).
  *       A table read returns the entry at that number.
  *   (b) the results against the emitted TypeScript function, run by node on
@@ -40,7 +40,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { evaluate } from '../../src/ir/evaluate.js';
 import type { Program } from '../../src/ir/nodes.js';
-import { clampSegment, roundedSegment } from '../../src/ir/segment-index.js';
+import { partSegment } from '../../src/ir/segment-index.js';
 import { Rational } from '../../src/math/rational.js';
 import { emitGlslExample } from '../glsl/support/examples.js';
 import { snippetProbes, type Probe } from '../glsl/support/probes.js';
@@ -212,7 +212,7 @@ describe('GLSL: inputs outside the box, NaN and infinities, both overloads', () 
     cases.forEach((c, k) => {
       const tAt = partTs(program, c.inputs);
       const exact = [...tAt.values()].flat().every((t) => Math.abs(t) < EXACT_T);
-      const csParts = probes.filter((p) => p.kind === 'part').map((p) => clampSegment(roundedSegment(tAt.get(p.node)![p.part!]!, 'float32'), p.count));
+      const csParts = probes.filter((p) => p.kind === 'part').map((p) => partSegment(tAt.get(p.node)![p.part!]!, p.indexPart!, 'float32'));
       const segmentText: string[] = [];
       for (const shape of SHAPES) {
         // (a) Every probed number is an integer in [0, count - 1].
@@ -222,7 +222,7 @@ describe('GLSL: inputs outside the box, NaN and infinities, both overloads', () 
           if (!Number.isInteger(g) || g < 0 || g > p.count - 1) problems.push(`${where}: ${g}, outside [0, ${p.count - 1}]`);
           if (p.kind === 'part') {
             const t = tAt.get(p.node)![p.part!]!;
-            const want = clampSegment(roundedSegment(t, 'float32'), p.count);
+            const want = partSegment(t, p.indexPart!, 'float32');
             if (Math.abs(t) < EXACT_T && g !== want) problems.push(`${where}: ${g}, C/TypeScript take ${want} (t = ${t})`);
           } else if (p.kind === 'index') {
             const want = evaluate({ ...program, result: p.node }, c.inputs);

@@ -34,6 +34,12 @@ describe('the JSON Schemas describe what rootcast reads and prints', () => {
     expect({ file, valid: check(doc), errors: check.errors ?? null }).toEqual({ file, valid: true, errors: null });
   });
 
+  test.each(readdirSync(join(REPO, 'examples/fixed32')))('examples/fixed32/%s validates against schema/rootcast-spec.schema.json', (file) => {
+    const check = validator().compile(schema('rootcast-spec.schema.json'));
+    const doc: unknown = parse(readFileSync(join(REPO, 'examples/fixed32', file), 'utf8'));
+    expect({ file, valid: check(doc), errors: check.errors ?? null }).toEqual({ file, valid: true, errors: null });
+  });
+
   test('the spec schema rejects broken specs the reader refuses', () => {
     const check = validator().compile(schema('rootcast-spec.schema.json'));
     const broken = ['degree-1000.yaml', 'arithmetic-float16.yaml', 'unknown-top-field.yaml', 'range-three-numbers.yaml', 'accuracy-both-kinds.yaml', 'function-too-long.yaml', 'plan-unknown-knob.yaml', 'accuracy-negative.yaml'];

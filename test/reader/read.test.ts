@@ -138,7 +138,7 @@ describe('readSpec refusals of the whole spec', () => {
   });
 
   test('an arithmetic other than float32 or float64 is refused', () => {
-    expectRefusal(edit(15, 'arithmetic: double'), 'spec.yaml:15:13: arithmetic: ', '`double` is not float32 or float64; write float32 or float64');
+    expectRefusal(edit(15, 'arithmetic: double'), 'spec.yaml:15:13: arithmetic: ', '`double` is not float32 or float64 or fixed32; write float32 or float64 or fixed32');
     expectRefusal(edit(15, 'arithmetic: float33'), 'spec.yaml:15:13: arithmetic: ', 'did you mean `float32`?');
   });
 

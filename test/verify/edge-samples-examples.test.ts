@@ -15,7 +15,7 @@ import { segmentEdges } from '../../src/ir/segment-edges.js';
 import { checkInProcess } from '../../src/verify/inprocess.js';
 import { checkSamplePoints, edgePointsOf, inputBox, sampleTotal } from '../../src/verify/samples.js';
 import { parseSummary } from '../../src/verify/summary.js';
-import { hexOf } from '../examples/support/bits.js';
+import { hexOf } from '../support/bits.js';
 import { emitExample } from '../examples/support/emit-example.js';
 import { buildCHarness, buildTsHarness } from '../examples/support/harness-dump.js';
 import { exampleFiles, specPathOf } from '../examples/support/repo.js';

@@ -1,6 +1,7 @@
 /** `rootcast emit SPEC --target c|ts|all --out DIR [--check]`. */
 import { staleFiles, writeFiles } from '../files.js';
 import { emitInputOf, planSpec } from '../pipeline.js';
+import { fixedFamilyOf } from '../fixed/pipeline.js';
 
 export interface EmitOptions {
   spec: string;
@@ -11,10 +12,18 @@ export interface EmitOptions {
 
 /** Returns the exit code; prints what it wrote or what is stale. */
 export async function runEmit(o: EmitOptions, print: (line: string) => void): Promise<number> {
-  const plan = planSpec(o.spec);
-  // The printers (and the TypeScript compiler they load) only after the spec is known to be good.
-  const { emitFiles, targetsOf } = await import('../emit-files.js');
-  const files = emitFiles(emitInputOf(plan), targetsOf(o.target));
+  const fixed = fixedFamilyOf(o.spec);
+  let files;
+  if (fixed) {
+    const { fixedEmitInputOf, fixedFiles } = await import('../fixed/pipeline.js');
+    const { makeFixedPlan } = await import('../../plan/fixed/plan-fixed.js');
+    files = fixedFiles(fixedEmitInputOf(makeFixedPlan(fixed)), o.target === 'all' ? ['c', 'ts'] : [o.target]);
+  } else {
+    const plan = planSpec(o.spec);
+    // The printers (and the TypeScript compiler they load) only after the spec is known to be good.
+    const { emitFiles, targetsOf } = await import('../emit-files.js');
+    files = emitFiles(emitInputOf(plan), targetsOf(o.target));
+  }
   if (o.check) {
     const stale = staleFiles(o.out, files);
     if (stale.length === 0) {

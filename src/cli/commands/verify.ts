@@ -26,6 +26,8 @@ import { applicableTargets, emitFiles, targetsOf } from '../emit-files.js';
 import { runGlslPage, type PageRun } from '../../verify/glsl/run-page.js';
 import { refuseUnlessFloat32 } from '../../emit/glsl/refuse.js';
 import { emitInputOf, planSpec } from '../pipeline.js';
+import { fixedFamilyOf } from '../fixed/pipeline.js';
+import { runFixedVerify } from '../fixed/verify.js';
 import { runBitCheck, type BitTarget } from '../../verify/bit-check.js';
 import type { PointResult } from '../../verify/inprocess.js';
 import { rustcAvailable } from '../../verify/rust/run.js';
@@ -50,6 +52,11 @@ export interface VerifyOptions {
 }
 
 export function runVerify(o: VerifyOptions, print: (line: string) => void): number {
+  const fixed = fixedFamilyOf(o.spec);
+  if (fixed) {
+    if (o.json || o.report !== undefined) throw new RootcastError('verify --json and --report are not available for fixed32 specs yet; run verify without them');
+    return runFixedVerify(fixed, o, print);
+  }
   const plan = planSpec(o.spec);
   const input = emitInputOf(plan);
   const name = plan.family.functionName;

@@ -25,7 +25,7 @@ export function cBodyLines(program: Program, name: string): string[] {
     if (!read.has(i)) lines.push(`(void)${name};`);
   });
   program.nodes.forEach((node, i) => {
-    if (node.kind === 'index') lines.push(...cIndexLines(program, node.parts, i));
+    if (node.kind === 'index') lines.push(...cIndexLines(program, node.parts, i, name));
     else if (node.kind === 'table') lines.push(...cTableLines(program, node, i, name));
     else if (node.kind === 'clamp') lines.push(...cClampLines(program, node, i));
     else {
@@ -66,7 +66,7 @@ function cExpression(program: Program, node: Node, at: number): string | null {
  * without branches (TOOLCHAIN.md: integer clamps written with bit operations).
  * Right shifts of negative int32_t are arithmetic in gcc and clang.
  */
-function cIndexLines(program: Program, parts: readonly IndexPart[], at: number): string[] {
+function cIndexLines(program: Program, parts: readonly IndexPart[], at: number, name: string): string[] {
   const a = ARITHMETICS[program.arithmetic];
   const significand = a.segmentRead === 'significand';
   const lines: string[] = [];
@@ -83,7 +83,13 @@ function cIndexLines(program: Program, parts: readonly IndexPart[], at: number):
     );
     lines.push(`const int32_t ${s}p = ${s}r & ~(${s}r >> 31);`);
     lines.push(`const int32_t ${s}d = ${s}p - ${p.count - 1};`);
-    lines.push(`const int32_t ${s} = ${s}p - (${s}d & ~(${s}d >> 31));`);
+    if (p.fine) {
+      // TWO-LEVEL INDEX (src/ir/nodes.ts): the coarse cell's entry, then the row.
+      const f = p.fine;
+      lines.push(`const int32_t ${s}g = ${s}p - (${s}d & ~(${s}d >> 31));`);
+      lines.push(`const int32_t ${s}m = ${cMetaName(name, at, k)}[${s}g >> ${f.level}];`);
+      lines.push(`const int32_t ${s} = (${s}m >> 5) + ((${s}g & ${(1 << f.level) - 1}) >> (${s}m & 31));`);
+    } else lines.push(`const int32_t ${s} = ${s}p - (${s}d & ~(${s}d >> 31));`);
     terms.push(p.stride === 1 ? s : `${s} * ${p.stride}`);
   });
   lines.push(`const int32_t ${valueName(at)} = ${terms.join(' + ')};`);
@@ -114,6 +120,11 @@ function cClampLines(program: Program, node: Extract<Node, { kind: 'clamp' }>, a
   ];
 }
 
+/** The file-scope name of the coarse-cell table of part k of index node `at`. */
+export function cMetaName(name: string, at: number, k: number): string {
+  return `rc_${name}_cells${at}_${k}`;
+}
+
 /** A per-segment constant: one read of its table (the table itself is at file scope, cTableDefinitions). */
 function cTableLines(program: Program, node: Extract<Node, { kind: 'table' }>, at: number, name: string): string[] {
   const type = ARITHMETICS[program.arithmetic].cType;
@@ -140,7 +151,7 @@ function cTableMacro(name: string): string {
  */
 export function cTableDefinitions(program: Program, name: string): string[] {
   const type = ARITHMETICS[program.arithmetic].cType;
-  if (!program.nodes.some((n) => n.kind === 'table')) return [];
+  if (!program.nodes.some((n) => n.kind === 'table' || (n.kind === 'index' && n.parts.some((p) => p.fine)))) return [];
   const macro = cTableMacro(name);
   const out: string[] = [
     '/* The segment tables, at file scope: gcc and clang keep one copy per program',
@@ -153,6 +164,18 @@ export function cTableDefinitions(program: Program, name: string): string[] {
     '#endif',
   ];
   program.nodes.forEach((node, at) => {
+    if (node.kind === 'index') {
+      // The two-level index's coarse-cell entries, (first row << 5) | drop: below 2^15 for any table the planner allows.
+      node.parts.forEach((p, k) => {
+        if (!p.fine) return;
+        const m = p.fine.meta;
+        if (m.some((v) => !Number.isInteger(v) || v < 0 || v > 0xffff)) throw new RangeError(`coarse-cell entry of node ${at} outside uint16_t`);
+        out.push(`${macro} uint16_t ${cMetaName(name, at, k)}[${m.length}] = {`);
+        for (let i = 0; i < m.length; i += 8) out.push(`    ${m.slice(i, i + 8).join(', ')},`);
+        out.push('};');
+      });
+      return;
+    }
     if (node.kind !== 'table') return;
     const values = node.values.map((v) => cLiteral(v, program.arithmetic));
     out.push(`${macro} ${type} ${cTableName(name, at)}[${values.length}] = {`);

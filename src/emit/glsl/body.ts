@@ -94,7 +94,7 @@ function glslNodeLines(program: Program, node: Node, at: number, vector: readonl
     case 'clamp':
       return local(glslClamp(ref(node.a), glslLiteral(node.lo), glslLiteral(node.hi), vector[at] === true));
     case 'index':
-      return glslIndexLines(program, node.parts, at, vector);
+      return glslIndexLines(program, node.parts, at, vector, name);
     case 'table':
       return glslTableLines(name, node, at, vector);
     default:
@@ -113,7 +113,7 @@ function glslNodeLines(program: Program, node: Node, at: number, vector: readonl
  * differently (seen on SwiftShader). For t outside int range, or NaN, int()
  * gives some int and clamp() still keeps the read inside the table.
  */
-function glslIndexLines(program: Program, parts: readonly IndexPart[], at: number, vector: readonly boolean[]): string[] {
+function glslIndexLines(program: Program, parts: readonly IndexPart[], at: number, vector: readonly boolean[], name: string): string[] {
   const lines: string[] = [];
   const terms: string[] = [];
   const four = vector[at] === true;
@@ -123,7 +123,19 @@ function glslIndexLines(program: Program, parts: readonly IndexPart[], at: numbe
     }
     const s = `rc_s${at}_${k}`;
     const i = vector[p.t] ? 'ivec4' : 'int';
-    lines.push(`${i} ${s} = clamp(${i}(roundEven(${glslReference(program, p.t, at)})), 0, ${p.count - 1});`);
+    const clamped = `clamp(${i}(roundEven(${glslReference(program, p.t, at)})), 0, ${p.count - 1})`;
+    if (p.fine) {
+      // TWO-LEVEL INDEX (src/ir/nodes.ts): the coarse cell's entry, then the row.
+      const meta = glslMetaName(name, at, k);
+      const cell = `${s}g >> ${p.fine.level}`;
+      lines.push(`${i} ${s}g = ${clamped};`);
+      lines.push(
+        i === 'ivec4'
+          ? `ivec4 ${s}m = ivec4(${['x', 'y', 'z', 'w'].map((c) => `${meta}[${s}g.${c} >> ${p.fine!.level}]`).join(', ')});`
+          : `int ${s}m = ${meta}[${cell}];`,
+      );
+      lines.push(`${i} ${s} = (${s}m >> 5) + ((${s}g & ${(1 << p.fine.level) - 1}) >> (${s}m & 31));`);
+    } else lines.push(`${i} ${s} = ${clamped};`);
     terms.push(p.stride === 1 ? s : `${s} * ${p.stride}`);
   });
   lines.push(`${four ? 'ivec4' : 'int'} ${valueName(at)} = ${terms.length === 0 ? (four ? 'ivec4(0)' : '0') : terms.join(' + ')};`);
@@ -154,6 +166,11 @@ function glslTableLines(name: string, node: Extract<Node, { kind: 'table' }>, at
   ];
 }
 
+/** The global name of the coarse-cell table of part k of index node `at`. */
+export function glslMetaName(name: string, at: number, k: number): string {
+  return `rc_${name}_cells${at}_${k}`;
+}
+
 /** The global name of the table of node `at` in function `name` (rc_ names are ours alone). */
 export function glslTableName(name: string, at: number): string {
   return `rc_${name}_tab${at}`;
@@ -167,6 +184,16 @@ export function glslTableName(name: string, at: number): string {
 export function glslTableDefinitions(program: Program, name: string): string[] {
   const out: string[] = [];
   program.nodes.forEach((node, at) => {
+    if (node.kind === 'index') {
+      node.parts.forEach((p, k) => {
+        if (!p.fine) return;
+        const m = p.fine.meta;
+        out.push(`const int ${glslMetaName(name, at, k)}[${m.length}] = int[${m.length}](`);
+        for (let i = 0; i < m.length; i += 8) out.push(`    ${m.slice(i, i + 8).join(', ')}${i + 8 < m.length ? ',' : ''}`);
+        out.push(');');
+      });
+      return;
+    }
     if (node.kind !== 'table') return;
     const n = node.values.length;
     if (n < 1) throw new RangeError(`table node ${at} is empty`);

@@ -8,9 +8,12 @@ import { ARITHMETICS } from '../../family/arithmetic.js';
 import type { Family } from '../../family/types.js';
 
 export function refuseUnlessFloat32(family: Family): void {
-  if (ARITHMETICS[family.arithmetic].glslType !== null) return;
+  if (ARITHMETICS[family.arithmetic].glslType !== null && !family.fixed) return;
   const pos = family.positions['arithmetic'] ?? { line: 1, column: 1 };
-  throw new RootcastError('GLSL has no float64 in ES 3.00: set arithmetic: float32 to emit GLSL', {
+  const why = family.fixed
+    ? 'GLSL gets no fixed32 code: shaders run on hardware with floating point, and fixed32 is for cores without an FPU; set arithmetic: float32 to emit GLSL'
+    : 'GLSL has no float64 in ES 3.00: set arithmetic: float32 to emit GLSL';
+  throw new RootcastError(why, {
     file: family.file,
     line: pos.line,
     column: pos.column,

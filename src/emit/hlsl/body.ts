@@ -42,10 +42,25 @@ export function hlslBodyLines(program: Program, functionName: string, shape: Hls
   return lines;
 }
 
+/** The file-scope name of the coarse-cell table of part k of index node `at` (TWO-LEVEL INDEX). */
+export function hlslCellsName(functionName: string, at: number, k: number): string {
+  return `rc_${functionName}_cells${at}_${k}`;
+}
+
 /** Every table of the program as a file-scope `static const float` array, in node order, each after a blank line. */
 export function hlslTableDeclarations(program: Program, functionName: string): string[] {
   const lines: string[] = [];
   program.nodes.forEach((node, at) => {
+    if (node.kind === 'index') {
+      node.parts.forEach((p, k) => {
+        if (!p.fine) return;
+        const m = p.fine.meta;
+        lines.push('', `static const int ${hlslCellsName(functionName, at, k)}[${m.length}] = {`);
+        for (let i = 0; i < m.length; i += 8) lines.push(`    ${m.slice(i, i + 8).join(', ')}${i + 8 < m.length ? ',' : ''}`);
+        lines.push('};');
+      });
+      return;
+    }
     if (node.kind !== 'table') return;
     const n = node.values.length;
     if (n < 1) throw new RangeError(`table node ${at} is empty`);
@@ -81,7 +96,7 @@ function hlslNodeLines(program: Program, functionName: string, node: Node, at: n
     case 'div':
       return local(`${ref(node.a)} / ${ref(node.b)}`);
     case 'index':
-      return hlslIndexLines(program, node.parts, at, vector);
+      return hlslIndexLines(program, node.parts, at, vector, functionName);
     case 'table': {
       const table = hlslTableName(functionName, at);
       const index = valueName(node.index);
@@ -95,7 +110,7 @@ function hlslNodeLines(program: Program, functionName: string, node: Node, at: n
 }
 
 /** The segment number, as the C function computes it (float32 magic constant, integer clamps). */
-function hlslIndexLines(program: Program, parts: readonly IndexPart[], at: number, vector: readonly boolean[]): string[] {
+function hlslIndexLines(program: Program, parts: readonly IndexPart[], at: number, vector: readonly boolean[], functionName: string): string[] {
   const lines: string[] = [];
   const terms: string[] = [];
   parts.forEach((p, k) => {
@@ -110,7 +125,17 @@ function hlslIndexLines(program: Program, parts: readonly IndexPart[], at: numbe
     lines.push(`${i} ${s}r = (${i})(asuint(${s}b) & 0x7fffffu) - 0x400000;`);
     lines.push(`${i} ${s}p = ${s}r & ~(${s}r >> 31);`);
     lines.push(`${i} ${s}d = ${s}p - ${p.count - 1};`);
-    lines.push(`${i} ${s} = ${s}p - (${s}d & ~(${s}d >> 31));`);
+    if (p.fine) {
+      // TWO-LEVEL INDEX (src/ir/nodes.ts): the coarse cell's entry, then the row.
+      const cells = hlslCellsName(functionName, at, k);
+      lines.push(`${i} ${s}g = ${s}p - (${s}d & ~(${s}d >> 31));`);
+      lines.push(
+        i === 'int4'
+          ? `int4 ${s}m = int4(${['x', 'y', 'z', 'w'].map((c) => `${cells}[${s}g.${c} >> ${p.fine!.level}]`).join(', ')});`
+          : `int ${s}m = ${cells}[${s}g >> ${p.fine.level}];`,
+      );
+      lines.push(`${i} ${s} = (${s}m >> 5) + ((${s}g & ${(1 << p.fine.level) - 1}) >> (${s}m & 31));`);
+    } else lines.push(`${i} ${s} = ${s}p - (${s}d & ~(${s}d >> 31));`);
     terms.push(p.stride === 1 ? s : `${s} * ${p.stride}`);
   });
   lines.push(`${vector[at] ? 'int4' : 'int'} ${valueName(at)} = ${terms.length === 0 ? '0' : terms.join(' + ')};`);

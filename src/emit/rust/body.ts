@@ -39,11 +39,26 @@ export function rustBodyLines(program: Program): string[] {
   return lines;
 }
 
+/** The static's name for the coarse-cell table of part k of index node `at` (TWO-LEVEL INDEX). */
+export function rustCellsName(at: number, k: number): string {
+  return `RC_CELLS${at}_${k}`;
+}
+
 /** Every table of the program as a module `static` array, in node order, each after a blank line. */
 export function rustTableDeclarations(program: Program): string[] {
   const type = ARITHMETICS[program.arithmetic].rustType;
   const lines: string[] = [];
   program.nodes.forEach((node, at) => {
+    if (node.kind === 'index') {
+      node.parts.forEach((p, k) => {
+        if (!p.fine) return;
+        const m = p.fine.meta;
+        lines.push('', `static ${rustCellsName(at, k)}: [u16; ${m.length}] = [`);
+        for (let i = 0; i < m.length; i += 8) lines.push(`    ${m.slice(i, i + 8).join(', ')},`);
+        lines.push('];');
+      });
+      return;
+    }
     if (node.kind !== 'table') return;
     const n = node.values.length;
     if (n < 1) throw new RangeError(`table node ${at} is empty`);
@@ -118,7 +133,12 @@ function rustIndexLines(program: Program, parts: readonly IndexPart[], at: numbe
     lines.push(significand ? `let ${s}r: i32 = (${s}b & 0x7f_ffff) as i32 - 0x40_0000;` : `let ${s}r: i32 = ${s}b as u32 as i32;`);
     lines.push(`let ${s}p: i32 = ${s}r & !(${s}r >> 31);`);
     lines.push(`let ${s}d: i32 = ${s}p - ${p.count - 1};`);
-    lines.push(`let ${s}: i32 = ${s}p - (${s}d & !(${s}d >> 31));`);
+    if (p.fine) {
+      // TWO-LEVEL INDEX (src/ir/nodes.ts): the coarse cell's entry, then the row.
+      lines.push(`let ${s}g: i32 = ${s}p - (${s}d & !(${s}d >> 31));`);
+      lines.push(`let ${s}m: i32 = ${rustCellsName(at, k)}[(${s}g >> ${p.fine.level}) as usize] as i32;`);
+      lines.push(`let ${s}: i32 = (${s}m >> 5) + ((${s}g & ${(1 << p.fine.level) - 1}) >> (${s}m & 31));`);
+    } else lines.push(`let ${s}: i32 = ${s}p - (${s}d & !(${s}d >> 31));`);
     terms.push(p.stride === 1 ? s : `${s} * ${p.stride}`);
   });
   const sum = terms.length === 0 ? '0' : terms.length === 1 ? terms[0]! : `(${terms.join(' + ')})`;

@@ -40,6 +40,7 @@ export function tsStatements(program: Program): string[] {
 }
 
 const tableName = (at: number): string => `rc_tab${at}`;
+const metaName = (at: number, k: number): string => `rc_cells${at}_${k}`;
 
 /**
  * An argument saturated to its range (CLAMP in src/ir/nodes.ts): the same two
@@ -69,6 +70,12 @@ export function tsModuleStatements(program: Program): string[] {
     );
   }
   program.nodes.forEach((n, i) => {
+    if (n.kind === 'index') {
+      n.parts.forEach((p, k) => {
+        if (p.fine) out.push(`const ${metaName(i, k)}: readonly number[] = [${p.fine.meta.join(', ')}];`);
+      });
+      return;
+    }
     if (n.kind !== 'table') return;
     const values = n.values.map((v) => tsLiteral(v, program.arithmetic));
     const rows: string[] = [];
@@ -100,7 +107,12 @@ function tsIndexLines(program: Program, parts: readonly IndexPart[], at: number)
     }
     lines.push(`const ${s}p = ${s}r & ~(${s}r >> 31);`);
     lines.push(`const ${s}d = ${s}p - ${p.count - 1};`);
-    lines.push(`const ${s} = ${s}p - (${s}d & ~(${s}d >> 31));`);
+    if (p.fine) {
+      // TWO-LEVEL INDEX (src/ir/nodes.ts): the coarse cell's entry, then the row.
+      lines.push(`const ${s}g = ${s}p - (${s}d & ~(${s}d >> 31));`);
+      lines.push(`const ${s}m = ${metaName(at, k)}[${s}g >> ${p.fine.level}]!;`);
+      lines.push(`const ${s} = (${s}m >> 5) + ((${s}g & ${(1 << p.fine.level) - 1}) >> (${s}m & 31));`);
+    } else lines.push(`const ${s} = ${s}p - (${s}d & ~(${s}d >> 31));`);
     terms.push(p.stride === 1 ? s : `${s} * ${p.stride}`);
   });
   lines.push(`const ${valueName(at)} = ${terms.join(' + ')};`);

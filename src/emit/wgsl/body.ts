@@ -42,10 +42,25 @@ export function wgslBodyLines(program: Program, functionName: string, shape: Wgs
   return lines;
 }
 
+/** The module-scope name of the coarse-cell table of part k of index node `at` (TWO-LEVEL INDEX). */
+export function wgslCellsName(functionName: string, at: number, k: number): string {
+  return `rc_${functionName}_cells${at}_${k}`;
+}
+
 /** Every table of the program as a module-scope `const` array, in node order, each after a blank line. */
 export function wgslTableDeclarations(program: Program, functionName: string): string[] {
   const lines: string[] = [];
   program.nodes.forEach((node, at) => {
+    if (node.kind === 'index') {
+      node.parts.forEach((p, k) => {
+        if (!p.fine) return;
+        const m = p.fine.meta;
+        lines.push('', `const ${wgslCellsName(functionName, at, k)} = array<i32, ${m.length}>(`);
+        for (let i = 0; i < m.length; i += 8) lines.push(`    ${m.slice(i, i + 8).join(', ')}${i + 8 < m.length ? ',' : ''}`);
+        lines.push(');');
+      });
+      return;
+    }
     if (node.kind !== 'table') return;
     const n = node.values.length;
     if (n < 1) throw new RangeError(`table node ${at} is empty`);
@@ -82,7 +97,7 @@ function wgslNodeLines(program: Program, functionName: string, node: Node, at: n
     case 'div':
       return local(`${ref(node.a)} / ${ref(node.b)}`);
     case 'index':
-      return wgslIndexLines(program, node.parts, at, vector);
+      return wgslIndexLines(program, node.parts, at, vector, functionName);
     case 'table': {
       const table = wgslTableName(functionName, at);
       const index = valueName(node.index);
@@ -96,7 +111,7 @@ function wgslNodeLines(program: Program, functionName: string, node: Node, at: n
 }
 
 /** The segment number: per part clamp(i32(round(t)), 0, count - 1), then the strided sum. */
-function wgslIndexLines(program: Program, parts: readonly IndexPart[], at: number, vector: readonly boolean[]): string[] {
+function wgslIndexLines(program: Program, parts: readonly IndexPart[], at: number, vector: readonly boolean[], functionName: string): string[] {
   const lines: string[] = [];
   const terms: string[] = [];
   const four = vector[at] === true;
@@ -106,11 +121,25 @@ function wgslIndexLines(program: Program, parts: readonly IndexPart[], at: numbe
     }
     const s = `rc_s${at}_${k}`;
     const t = operandText(program, p.t, at, WGSL_STYLE);
+    const g = p.fine ? `${s}g` : s;
     lines.push(
       vector[p.t]
-        ? `let ${s}: vec4<i32> = clamp(vec4<i32>(round(${t})), vec4<i32>(0), vec4<i32>(${p.count - 1}));`
-        : `let ${s}: i32 = clamp(i32(round(${t})), 0, ${p.count - 1});`,
+        ? `let ${g}: vec4<i32> = clamp(vec4<i32>(round(${t})), vec4<i32>(0), vec4<i32>(${p.count - 1}));`
+        : `let ${g}: i32 = clamp(i32(round(${t})), 0, ${p.count - 1});`,
     );
+    if (p.fine) {
+      // TWO-LEVEL INDEX (src/ir/nodes.ts): the coarse cell's entry, then the row (WGSL shifts take a u32 amount).
+      const cells = wgslCellsName(functionName, at, k);
+      const L = p.fine.level;
+      const mask = (1 << L) - 1;
+      if (vector[p.t]) {
+        lines.push(`let ${s}m: vec4<i32> = vec4<i32>(${['x', 'y', 'z', 'w'].map((c) => `${cells}[${g}.${c} >> ${L}u]`).join(', ')});`);
+        lines.push(`let ${s}: vec4<i32> = (${s}m >> vec4<u32>(5u)) + ((${g} & vec4<i32>(${mask})) >> vec4<u32>(${s}m & vec4<i32>(31)));`);
+      } else {
+        lines.push(`let ${s}m: i32 = ${cells}[${g} >> ${L}u];`);
+        lines.push(`let ${s}: i32 = (${s}m >> 5u) + ((${g} & ${mask}) >> u32(${s}m & 31));`);
+      }
+    }
     terms.push(p.stride === 1 ? s : `${s} * ${p.stride}`);
   });
   const zero = four ? 'vec4<i32>(0)' : '0';

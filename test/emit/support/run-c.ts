@@ -9,7 +9,7 @@ import type { Program } from '../../../src/ir/nodes.js';
 import { ARITHMETICS } from '../../../src/family/arithmetic.js';
 import type { EmittedFile } from '../../../src/emit/types.js';
 import type { WorkDir } from './workdir.js';
-import { float32Bits, float64Bits } from './bits.js';
+import { float32Hex, float64Hex } from '../../support/bits.js';
 
 export const C_FLAGS = ['-std=c99', '-O2', '-Wall', '-Wextra', '-pedantic', '-Werror'];
 
@@ -71,7 +71,7 @@ export function runC(dir: WorkDir, header: EmittedFile, program: Program, functi
   gcc(dir, ['-c', `${stem}_alone.c`, '-o', `${stem}_alone.o`]);
   dir.write(`${stem}_driver.c`, cDriver(header, program, functionName));
   gcc(dir, [`${stem}_driver.c`, '-o', `${stem}_driver`]);
-  const bits = program.arithmetic === 'float32' ? float32Bits : float64Bits;
+  const bits = program.arithmetic === 'float32' ? float32Hex : float64Hex;
   const stdin = rows.map((r) => r.map(bits).join(' ')).join('\n') + '\n';
   const out = execFileSync(join(dir.path, `${stem}_driver`), { input: stdin, encoding: 'utf8' });
   return out.split('\n').filter((l) => l !== '');

@@ -7,7 +7,7 @@
 import { execFileSync } from 'node:child_process';
 import { transpileTs, typeCheckTs } from '../../../src/emit/ts/typecheck.js';
 import type { EmittedFile } from '../../../src/emit/types.js';
-import { float64Bits } from './bits.js';
+import { float64Hex } from '../../support/bits.js';
 import type { WorkDir } from './workdir.js';
 
 const RUNNER = (module: string, name: string): string => `import { readFileSync } from 'node:fs';
@@ -31,7 +31,7 @@ export function runTs(dir: WorkDir, file: EmittedFile, functionName: string, row
   dir.write('package.json', '{ "type": "module" }\n');
   dir.write(js!.path, js!.text);
   const runner = dir.write(`${functionName}.run.js`, RUNNER(js!.path, functionName));
-  const stdin = rows.map((r) => (r.length === 0 ? '-' : r.map(float64Bits).join(' '))).join('\n') + '\n';
+  const stdin = rows.map((r) => (r.length === 0 ? '-' : r.map(float64Hex).join(' '))).join('\n') + '\n';
   const out = execFileSync(process.execPath, [runner], { input: stdin, encoding: 'utf8', cwd: dir.path });
   return out.split('\n').filter((l) => l !== '');
 }

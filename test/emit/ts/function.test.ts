@@ -11,7 +11,7 @@ import { typeCheckTs } from '../../../src/emit/ts/typecheck.js';
 import { evaluate } from '../../../src/ir/evaluate.js';
 import { UnknownNodeError, type Program } from '../../../src/ir/nodes.js';
 import type { Arithmetic } from '../../../src/family/arithmetic.js';
-import { float64Bits } from '../support/bits.js';
+import { float64Hex } from '../../support/bits.js';
 import { demoInput } from '../support/family.js';
 import { ALL_SAMPLES, constantResult, identity, quadraticSeries, sqrtTaylor, unusedArgument } from '../support/programs.js';
 import { runTs } from '../support/run-ts.js';
@@ -100,7 +100,7 @@ describe('tsFunction', () => {
     // Doubles that binary32 cannot hold: the TypeScript function must round them first.
     const rows = Array.from({ length: 200 }, (_, i) => [0.1 + i * 1e-3, 3 + Math.sin(i) / 3, Math.cos(i * 0.7)]);
     const got = runTs(dir, tsFunction(demoInput(program)), 'bridge_strain', rows);
-    expect(got).toEqual(rows.map((r) => float64Bits(evaluate(program, r))));
+    expect(got).toEqual(rows.map((r) => float64Hex(evaluate(program, r))));
   });
 
   test('an unknown node kind is refused, not skipped', () => {

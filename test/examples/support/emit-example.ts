@@ -4,6 +4,7 @@
  */
 import { emitFiles, targetsOf } from '../../../src/cli/emit-files.js';
 import { emitInputOf, planSpec } from '../../../src/cli/pipeline.js';
+import { fixedFamilyOf, fixedFilesOfSpec } from '../../../src/cli/fixed/pipeline.js';
 import type { EmitInput, EmittedFile } from '../../../src/emit/types.js';
 import type { Plan } from '../../../src/plan/plan.js';
 import { atRepoRoot } from './repo.js';
@@ -21,6 +22,13 @@ export function emitExample(specPath: string): EmittedExample {
   const plan = planSpec(specPath);
   const input = emitInputOf(plan);
   return { plan, input, files: emitFiles(input, targetsOf('all')) };
+}
+
+/** Every file `--target all` writes for a spec, fixed32 or float (what the golden files hold). */
+export function emittedFilesOf(specPath: string): readonly EmittedFile[] {
+  atRepoRoot();
+  const fixed = fixedFamilyOf(specPath);
+  return fixed ? fixedFilesOfSpec(fixed) : emitExample(specPath).files;
 }
 
 /** The emitted file whose path ends with `suffix` (`.h`, `_check.c`, `.check.ts`, or the function's `.ts`). */

@@ -21,12 +21,24 @@ export function exampleFiles(): string[] {
     .sort();
 }
 
+/**
+ * The fixed32 examples, as `fixed32/<file>` (they live in examples/fixed32/,
+ * so the tests of float examples, which read examples/*.yaml, do not see them;
+ * their samples are generated-samples/<name>/ like every other example).
+ */
+export function fixedExampleFiles(): string[] {
+  return readdirSync(`${REPO_ROOT}/examples/fixed32`)
+    .filter((f) => f.endsWith('.yaml'))
+    .sort()
+    .map((f) => `fixed32/${f}`);
+}
+
 /** The relative spec path the emitted headers carry. */
 export function specPathOf(file: string): string {
   return `examples/${file}`;
 }
 
-/** The generated-samples folder name of an example: its file name without `.yaml`. */
+/** The generated-samples folder name of an example: its file name without `.yaml` (and without `fixed32/`). */
 export function sampleFolderOf(file: string): string {
-  return file.replace(/\.yaml$/, '');
+  return file.replace(/^fixed32\//, '').replace(/\.yaml$/, '');
 }

@@ -9,7 +9,7 @@ import { execFileSync } from 'node:child_process';
 import { join } from 'node:path';
 import type { EmittedFile } from '../../../src/emit/types.js';
 import type { Arithmetic } from '../../../src/family/arithmetic.js';
-import { fromHex, hexOf } from './bits.js';
+import { fromHex, hexOf } from '../../support/bits.js';
 import type { WorkDir } from './workdir.js';
 
 export const C_FLAGS = ['-std=c99', '-O2', '-Wall', '-Wextra', '-pedantic', '-Werror'] as const;

@@ -14,7 +14,7 @@
  * does for WebGL), so a 'table' probe alone could not show an out-of-range
  * read: the 'part' and 'index' probes read the numbers before any read.
  */
-import type { Program } from '../../../src/ir/nodes.js';
+import { partRows, type IndexPart, type Program } from '../../../src/ir/nodes.js';
 import { valueName } from '../../../src/emit/names.js';
 
 export interface Probe {
@@ -22,8 +22,9 @@ export interface Probe {
   readonly kind: 'part' | 'index' | 'table';
   /** The IR node probed (the index node for 'part' and 'index', the table node for 'table'). */
   readonly node: number;
-  /** 'part' only: which part. */
+  /** 'part' only: which part, and the part itself. */
   readonly part?: number;
+  readonly indexPart?: IndexPart;
   /** 'table' only: the index node the table is read at. */
   readonly readsAt?: number;
   /** How many values the probed number can take: [0, count - 1]. */
@@ -39,8 +40,8 @@ export function snippetProbes(snippet: string, name: string, program: Program): 
   const probes: Omit<Probe, 'fn' | 'snippet'>[] = [];
   program.nodes.forEach((n, i) => {
     if (n.kind === 'index') {
-      n.parts.forEach((p, k) => probes.push({ label: `segment part ${k} (node ${i})`, kind: 'part', node: i, part: k, count: p.count }));
-      const total = n.parts.reduce((s, p) => s + (p.count - 1) * p.stride, 0) + 1;
+      n.parts.forEach((p, k) => probes.push({ label: `segment part ${k} (node ${i})`, kind: 'part', node: i, part: k, indexPart: p, count: partRows(p) }));
+      const total = n.parts.reduce((s, p) => s + (partRows(p) - 1) * p.stride, 0) + 1;
       probes.push({ label: `segment number (node ${i})`, kind: 'index', node: i, count: total });
     }
     if (n.kind === 'table') probes.push({ label: `table read (node ${i})`, kind: 'table', node: i, readsAt: n.index, count: n.values.length });
@@ -56,7 +57,7 @@ function probeSnippet(snippet: string, name: string, fn: string, p: Omit<Probe, 
   if (!snippet.includes(`#ifndef ${guard}\n#define ${guard}\n`)) throw new Error(`no include guard ${guard} in the snippet`);
   let text = snippet.split(guard).join(`${guard}_RC_PROBE_${fn.toUpperCase()}`);
   // The global tables get the probe's own names, so several probes can share one shader.
-  text = text.split(`rc_${name}_tab`).join(`rc_${fn}_tab`);
+  text = text.split(`rc_${name}_`).join(`rc_${fn}_`);
   const split = text.indexOf(`\nvec4 ${name}(`);
   if (split < 0 || !text.includes(`\nfloat ${name}(`)) throw new Error(`no float and vec4 ${name} in the snippet`);
   let scalar = text.slice(0, split).replace(`\nfloat ${name}(`, `\nfloat ${fn}(`);

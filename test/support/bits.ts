@@ -1,5 +1,5 @@
 /** IEEE bit patterns as hex words, so results are compared and passed between processes exactly. */
-import type { Arithmetic } from '../../../src/family/arithmetic.js';
+import type { Arithmetic } from '../../src/family/arithmetic.js';
 
 const view = new DataView(new ArrayBuffer(8));
 

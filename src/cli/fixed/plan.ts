@@ -1,0 +1,53 @@
+/** `rootcast plan` for a fixed32 spec: the plan as text or JSON (the fields of plan --json where they apply). */
+import { equationText } from '../../emit/header.js';
+import { formatBoundUp } from '../../emit/literals/round-up.js';
+import { m0Cost } from '../../emit/m0-cost.js';
+import type { FixedPlan } from '../../plan/fixed/plan-fixed.js';
+
+export function fixedPlanJson(plan: FixedPlan): object {
+  const f = plan.family;
+  const m0 = m0Cost(plan.program);
+  return {
+    function: f.functionName,
+    spec: f.file,
+    specSha256: f.specHash,
+    arithmetic: 'fixed32',
+    fixed: { inputs: Object.fromEntries(f.inputs.map((r, i) => [r.name, f.fixed!.inputs[i]])), result: f.fixed!.result },
+    rawBox: [plan.rawLo.toString(), plan.rawHi.toString()],
+    form: plan.form,
+    degree: plan.degree,
+    root: { x0: plan.root.x0.toNumber(), note: plan.root.note },
+    order: plan.order,
+    terms: plan.terms,
+    steps: 0,
+    cells: plan.cells,
+    bound: plan.bound,
+    absoluteBound: plan.absoluteBound,
+    target: plan.target,
+    ops: { products: plan.ops.mul, add: plan.ops.add, tableReads: plan.ops.tableReads },
+    segments: { counts: [plan.segments], rawWidthLog2: plan.segmentShift, tableBytes: plan.tableBytes },
+    cost: { model: 'cortex-m0', value: plan.cost, instructions: m0.instructions, cycles: m0.cycles, cyclesSlowMultiplier: m0.cycles + 31 * m0.muls },
+    candidates: [],
+  };
+}
+
+export function fixedPlanText(plan: FixedPlan): string {
+  const f = plan.family;
+  const b = plan.bound;
+  const m0 = m0Cost(plan.program);
+  const rows: [string, string][] = [
+    ['equation', `${equationText(f)}, solved for ${f.unknown}`],
+    ['inputs', f.inputs.map((i, k) => `${i.name} in [${i.lo}, ${i.hi}] as int32 ${i.name} * 2^${f.fixed!.inputs[k]} (raw ${plan.rawLo} to ${plan.rawHi})`).join(', ')],
+    ['result', `int32 ${f.unknown} * 2^${f.fixed!.result}`],
+    ['root', plan.root.note],
+    ['arithmetic', 'fixed32 (int32 values with per-value binary points, 64-bit products)'],
+    ['form', `series collapsed to a polynomial in ${f.inputs[0]!.name}, Chebyshev-economised to degree ${plan.degree}, Horner's rule in integers`],
+    ['series', `order ${plan.order}, ${plan.terms} terms, bound certified over ${plan.cells} cells`],
+    ['bound', `absolute: truncation ${formatBoundUp(b.truncation)} + economisation ${formatBoundUp(b.economisation)} + rounding ${formatBoundUp(b.rounding)} -> total ${formatBoundUp(b.total)}`],
+    ['target', `${f.accuracy.value} (${f.accuracy.kind})`],
+    ['ops', `${plan.ops.mul} products (32 x 32 -> 64), ${plan.ops.add} add/sub, ${plan.ops.tableReads} table reads`],
+    ['segments', `${plan.segments} of 2^${plan.segmentShift} raw units (${plan.tableBytes} table bytes)`],
+    ['cost', `Cortex-M0: about ${m0.instructions} instructions, ${m0.cycles} cycles (single-cycle multiplier; ${m0.cycles + 31 * m0.muls} with the 32-cycle one); src/emit/m0-cost.ts`],
+  ];
+  return [`${f.functionName}`, ...rows.map(([k, v]) => `  ${k.padEnd(11)} ${v}`)].join('\n');
+}

@@ -1,0 +1,14 @@
+/**
+ * The fixed32 planner's cost model: estimated Cortex-M0 cycles per call, used
+ * only to choose between segment counts. Figures from memory of the Armv6-M
+ * instruction timings (Cortex-M0 Technical Reference Manual, "Instruction set
+ * summary"; single-cycle multiplier): a 32 x 32 -> 64 product built from four
+ * MULS and its adds is about 20 cycles, the rounding shift about 8, an add 1,
+ * a table read (LDR) 2, and the segment number (subtract, shift, clamp) about 6.
+ * The header's figure is counted from the compiled code instead (src/verify/fixed-cost.ts).
+ */
+import type { FixedCounts } from '../../ir/fixed/nodes.js';
+
+export function fixedCost(ops: FixedCounts, segments: number): number {
+  return ops.mul * 28 + ops.add + ops.tableReads * 2 + (segments > 1 ? 6 : 0);
+}

@@ -1,0 +1,265 @@
+/**
+ * The fixed32 planner (DESIGN.md 1.12): one input, the collapsed series
+ * (Horner's rule in the input, no division) Chebyshev-economised per segment,
+ * evaluated in int32 with a binary point per value (program.ts). Certified
+ * bound = truncation (the majorant bound over the cells, as for float plans)
+ * + economisation (the dropped Chebyshev tail) + rounding (every constant's
+ * quantisation, every shift's rounding and the result's, from program.ts).
+ *
+ * Segments have power-of-two raw widths (layout.ts); `plan.segments: auto`
+ * tries 1, 2, 4, ... 64 and keeps the cheapest by the Cortex-M0 cost model
+ * (cost.ts). Shapes that would need a division at run time (a varying slope
+ * c1, Newton steps) and several inputs are refused in one line.
+ */
+import { RootcastError } from '../../errors.js';
+import { addUp } from '../../math/directed.js';
+import { Rational } from '../../math/rational.js';
+import { SINGLE } from '../../ir/builder.js';
+import { countFixed, type FixedCounts, type FixedProgram } from '../../ir/fixed/nodes.js';
+import { termsOfGrade, type SeriesTerm } from '../../series/hyper-catalan.js';
+import type { Family } from '../../family/types.js';
+import { boxOf, grid } from '../box.js';
+import { addGrade, cellTail } from '../cell-bound.js';
+import { CellSet } from '../cell-set.js';
+import { LIMITS } from '../tuning.js';
+import { locate } from '../locate.js';
+import { refuseBadCells } from '../refusals.js';
+import { chooseRoot, rootAt, type RootChoice } from '../root-choice.js';
+import { segmentLayout } from '../segments.js';
+import { analysisProgram, CoefficientError, collapsedSeries, ZeroSlopeError, type Expansion } from '../series-program.js';
+import { fixedCost } from './cost.js';
+import { chebyshevInW, degreeFor, economisedAt } from './economise-w.js';
+import { fixedLayout, rawBox, rawDecimal, type FixedLayout } from './layout.js';
+import { fixedHorner, ResultRangeError } from './program.js';
+
+export interface FixedBound {
+  readonly kind: 'absolute';
+  readonly truncation: number;
+  readonly economisation: number;
+  readonly rounding: number;
+  readonly total: number;
+}
+
+export interface FixedPlan {
+  /** The family as the spec gave it (`fixed` present). */
+  readonly family: Family;
+  readonly root: RootChoice;
+  readonly form: 'economised';
+  /** Series order and number of terms collapsed. */
+  readonly order: number;
+  readonly terms: number;
+  /** Degree of the economised polynomial in w. */
+  readonly degree: number;
+  readonly segments: number;
+  /** log2 of the raw segment width. */
+  readonly segmentShift: number;
+  /** The certified raw input box. */
+  readonly rawLo: bigint;
+  readonly rawHi: bigint;
+  readonly program: FixedProgram;
+  readonly bound: FixedBound;
+  readonly absoluteBound: number;
+  readonly target: number;
+  readonly ops: FixedCounts;
+  /** Estimated Cortex-M0 cycles (cost.ts). */
+  readonly cost: number;
+  readonly tableBytes: number;
+  readonly cells: number;
+}
+
+/** A refusal that no other segment count can lift (the shape of the family, the result format, the rounding floor). */
+class FinalRefusal extends RootcastError {}
+
+const AUTO_SEGMENTS = [1, 2, 4, 8, 16, 32, 64];
+const EXTRA_ORDERS = 3;
+const BUDGET_SHARES = [0.6, 0.4, 0.2, 0.1, 0];
+
+export function makeFixedPlan(family: Family): FixedPlan {
+  const fixed = family.fixed;
+  if (!fixed) throw new Error('makeFixedPlan needs a fixed32 family');
+  if (family.inputs.length !== 1) {
+    throw new RootcastError(
+      `fixed32 plans take one input (the series collapsed to a polynomial in it); this spec has ${family.inputs.length}: use float32 or float64, or make the others constants`,
+      locate(family, 'inputs'),
+    );
+  }
+  if (family.accuracy.kind !== 'absolute') {
+    throw new RootcastError('fixed32 certifies an absolute error (the last bit of the result has a fixed size); write accuracy: absolute', locate(family, 'accuracy.relative'));
+  }
+  if (typeof family.plan.newtonSteps === 'number' && family.plan.newtonSteps > 0) {
+    throw new RootcastError('fixed32 plans evaluate the collapsed polynomial only: a Newton step divides by the slope at run time; set plan.newton_steps: 0', locate(family, 'plan.newton_steps'));
+  }
+  // One input: a list of counts has one entry.
+  const knob = Array.isArray(family.plan.segments) ? family.plan.segments[0]! : (family.plan.segments as 'auto' | number);
+  if (knob !== 'auto' && (knob & (knob - 1)) !== 0) {
+    throw new RootcastError(`fixed32 segments have power-of-two widths, so their count is a power of two (found ${knob}); write 1, 2, 4, ... or auto`, locate(family, 'plan.segments'));
+  }
+  if (knob !== 'auto' && knob > 1 && !family.bracket) {
+    throw new RootcastError('segments need root.bracket: each segment recentres the series at its own root; add root.bracket or set plan.segments: 1', locate(family, 'plan.segments'));
+  }
+  const bits = fixed.inputs[0]!;
+  const input = family.inputs[0]!;
+  const raw = rawBox(input.lo, input.hi, bits);
+  // The planning family: the raw box's exact real ends, float64 for the float stages.
+  const fam: Family = { ...family, inputs: [{ name: input.name, lo: rawDecimal(raw.lo, bits), hi: rawDecimal(raw.hi, bits) }] };
+  const counts = knob !== 'auto' ? [knob] : family.bracket ? AUTO_SEGMENTS : [1];
+  let best: FixedPlan | null = null;
+  let firstError: RootcastError | null = null;
+  let stale = 0;
+  for (const count of counts) {
+    try {
+      const p = planWith(family, fam, raw, fixedLayout(raw.lo, raw.hi, bits, count));
+      if (!best || p.cost < best.cost) {
+        best = p;
+        stale = 0;
+      } else if (++stale >= 2) break;
+    } catch (e) {
+      if (!(e instanceof RootcastError)) throw e;
+      if (e instanceof FinalRefusal) throw e;
+      firstError ??= e;
+      if (best && ++stale >= 2) break;
+    }
+  }
+  if (!best) throw firstError!;
+  return best;
+}
+
+function planWith(family: Family, fam: Family, raw: { lo: bigint; hi: bigint }, layout: FixedLayout): FixedPlan {
+  const S = layout.segments.length;
+  const box = boxOf(fam).cell;
+  const rootChoice = chooseRoot(fam);
+  // The expansion point need not be the exact root (DESIGN.md 1.4): rounded to 24 bits, its short
+  // binary fraction keeps the exact rationals of the collapsed polynomial small (planning time).
+  const short = (v: Rational): Rational => Rational.fromNumber(Math.fround(v.toNumber()));
+  const x0 = (S === 1 ? [rootChoice.x0] : layout.segments.map((g) => rootAt(fam, [g.midValue]))).map(short);
+  const expansion: Expansion = { segmentation: S === 1 ? SINGLE : segmentLayout(fam, box, [S]).segmentation, x0 };
+  const root: RootChoice =
+    S === 1 ? rootChoice : { ...rootChoice, note: `the root in [${fam.bracket![0]}, ${fam.bracket![1]}], ${S} segments of 2^${layout.shift} raw units, each recentred at its own root (at the segment centre)` };
+  let ap;
+  try {
+    ap = analysisProgram(fam, expansion);
+  } catch (e) {
+    if (e instanceof CoefficientError) throw new RootcastError(`coefficient ${e.power} ${e.why}; rewrite the expression`, locate(family, `coefficients.${e.power}`));
+    if (e instanceof ZeroSlopeError) {
+      throw new RootcastError(`the slope P'(x0) is zero at an expansion point: the series needs a simple root; ${fam.bracket ? 'move root.bracket to a simple root' : 'add root.bracket around the wanted root'}`, locate(family, fam.bracket ? 'root.bracket' : 'coefficients'));
+    }
+    throw e;
+  }
+  const perSegment = Math.max(2, Math.floor(64 / S));
+  const initial = layout.segments.flatMap((g, segment) => grid(g.cell, perSegment).map((cell) => ({ cell, segment })));
+  const set = new CellSet(ap, fam.degree, box, x0.map((v) => v.toNumber()), initial);
+  set.repairBadCells(LIMITS.cells, false, true);
+  refuseBadCells(fam, set.cells, false);
+
+  const active = [...ap.q.keys()];
+  const byGrade: SeriesTerm[][] = [];
+  const kept: SeriesTerm[] = [];
+  const nextGrade = (order: number): boolean => {
+    const fresh = termsOfGrade(fam.degree, active, order);
+    byGrade.push(fresh);
+    kept.push(...fresh);
+    if (kept.length > LIMITS.terms) return false;
+    for (const c of set.cells) addGrade(c, fresh, order);
+    return true;
+  };
+  set.onNewCell = (c) => byGrade.forEach((ts, w) => addGrade(c, ts, w));
+  const termsUpTo = (w: number): SeriesTerm[] | null => {
+    while (byGrade.length <= w) if (!nextGrade(byGrade.length)) return null;
+    return kept.filter((t) => t.grade <= w);
+  };
+
+  const target = Number(family.accuracy.value);
+  const resultPoint = family.fixed!.result;
+  let found: FixedPlan | null = null;
+  let floor = Infinity;
+  for (let order = 0; order <= family.plan.maxOrder && !found; order++) {
+    if (!termsUpTo(order)) break;
+    let trunc = set.truncation(order, false);
+    if (trunc > target / 4 && trunc < target * 1e3) {
+      set.refineWorst(order, false, LIMITS.cells);
+      trunc = set.truncation(order, false);
+    }
+    if (trunc > target / 2) continue;
+    for (let n = order; n <= order + EXTRA_ORDERS; n++) {
+      const terms = termsUpTo(n);
+      if (!terms) break;
+      const collapsed = collapsedSeries(fam, expansion, terms);
+      if (!collapsed) {
+        throw new FinalRefusal(
+          'fixed32 needs the collapsed form (only coefficient 0 depends on the input, linearly, and coefficient 1 is constant): any other shape divides by the slope at run time, and fixed32 has no certified integer reciprocal; use float32 or float64',
+          locate(family, 'arithmetic'),
+        );
+      }
+      const cheb = chebyshevInW(collapsed, layout);
+      const tails = set.cells.map((c) => cellTail(c, n));
+      const room = target - Math.max(...tails);
+      const tried = new Set<number>();
+      for (const share of BUDGET_SHARES) {
+        const degree = degreeFor(cheb, room * share);
+        if (tried.has(degree)) continue;
+        tried.add(degree);
+        const e = economisedAt(cheb, layout, degree);
+        let built;
+        try {
+          built = fixedHorner(layout, e.coeffs, [fam.inputs[0]!.name], 0, resultPoint);
+        } catch (err) {
+          if (!(err instanceof ResultRangeError)) throw err;
+          const most = Math.floor(Math.log2((2 ** 31 - 1) / err.magnitude));
+          throw new FinalRefusal(
+            `the root reaches about ${err.magnitude.toPrecision(4)} over the box, beyond an int32 with ${resultPoint} fraction bits (|value| < 2^${31 - resultPoint}); ${most >= 0 ? `use at most ${most} fraction bits` : 'rescale the unknown'}`,
+            locate(family, 'fixed.result'),
+          );
+        }
+        const parts = { truncation: 0, economisation: 0, rounding: 0, total: 0 };
+        set.cells.forEach((c, i) => {
+          const t = tails[i]!;
+          const x = e.error[c.segment]!;
+          const r = built.rounding[c.segment]!;
+          parts.truncation = Math.max(parts.truncation, t);
+          parts.economisation = Math.max(parts.economisation, x);
+          parts.rounding = Math.max(parts.rounding, r);
+          parts.total = Math.max(parts.total, addUp(addUp(t, x), r));
+        });
+        floor = Math.min(floor, parts.rounding);
+        if (parts.total > target) continue;
+        const ops = countFixed(built.program);
+        const tableBytes = built.program.nodes.reduce((sum, node) => sum + (node.kind === 'table' ? 4 * node.values.length : 0), 0);
+        const plan: FixedPlan = {
+          family,
+          root,
+          form: 'economised',
+          order: n,
+          terms: terms.length,
+          degree: e.degree,
+          segments: S,
+          segmentShift: layout.shift,
+          rawLo: raw.lo,
+          rawHi: raw.hi,
+          program: built.program,
+          bound: { kind: 'absolute', ...parts },
+          absoluteBound: parts.total,
+          target,
+          ops,
+          cost: fixedCost(ops, S),
+          tableBytes,
+          cells: set.cells.length,
+        };
+        if (!found || plan.degree < found.degree || (plan.degree === found.degree && plan.bound.total < found.bound.total)) found = plan;
+        break;
+      }
+    }
+  }
+  if (!found) {
+    if (floor > target / 2 && Number.isFinite(floor)) {
+      throw new FinalRefusal(
+        `the target ${family.accuracy.value} is below the fixed32 rounding floor of this plan (rounding alone ${floor.toExponential(2)}; the result's last bit is 2^-${resultPoint}); add fraction bits to fixed.result or loosen the accuracy`,
+        locate(family, 'accuracy.absolute'),
+      );
+    }
+    throw new RootcastError(`no fixed32 plan up to order ${family.plan.maxOrder} meets the target with ${S} segment${S === 1 ? '' : 's'}; raise plan.max_order, use more segments or loosen the accuracy`, locate(family, 'plan'));
+  }
+  if (found.tableBytes > family.plan.maxTableBytes) {
+    throw new RootcastError(`the ${S} segment tables need ${found.tableBytes} bytes, more than plan.max_table_bytes ${family.plan.maxTableBytes}; raise it or use fewer segments`, locate(family, 'plan.segments'));
+  }
+  return found;
+}

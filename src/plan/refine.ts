@@ -1,0 +1,110 @@
+/**
+ * The two-level segment search (DESIGN.md 1.11, TWO-LEVEL INDEX in
+ * src/ir/nodes.ts): for each series order of REFINE.orders, start from a few
+ * equal coarse cells per searched input and split, one level at a time, the
+ * coarse cells that hold a segment whose truncation bound at that order
+ * exceeds REFINE.share of the target (segmentNeeds). When no segment does,
+ * the layout is planned and certified as any other (planSegments): the bound
+ * of every fine segment covers every input that can select it, index
+ * rounding included, exactly as for equal segments. Layouts whose tables
+ * cannot fit plan.max_table_bytes are given up.
+ */
+import { RootcastError } from '../errors.js';
+import { ARITHMETICS } from '../family/arithmetic.js';
+import type { Family } from '../family/types.js';
+import type { Cell } from './box.js';
+import { candidatesOf, refusedCandidate } from './candidates.js';
+import { planSegments, segmentNeeds } from './plan-segments.js';
+import { segmentLayout, type SegmentLayout } from './segments.js';
+import { REFINE, SEGMENT_SEARCH } from './tuning.js';
+import type { Candidate, Plan } from './types.js';
+
+export interface RefinedResult {
+  readonly plans: Plan[];
+  readonly candidates: Candidate[];
+}
+
+/** Two-level plans for the inputs free in `fixed` (null = searched); the fixed inputs keep equal segments. */
+export function refinedPlans(family: Family, box: Cell, fixed: readonly (number | null)[]): RefinedResult {
+  const d = family.inputs.length;
+  const coarseCount = REFINE.coarse[Math.min(d, REFINE.coarse.length) - 1]!;
+  const coarse = fixed.map((k) => k ?? coarseCount);
+  const plans: Plan[] = [];
+  const candidates: Candidate[] = [];
+  const seen = new Set<string>();
+  for (const order of REFINE.orders) {
+    const levels = fixed.map((k) => (k === null ? new Array<number>(coarseCount).fill(0) : null));
+    const layout = refineFor(family, box, coarse, levels, order);
+    if (!layout) continue;
+    const key = JSON.stringify(layout.refine);
+    if (seen.has(key)) continue;
+    seen.add(key);
+    try {
+      const p = planSegments(family, box, coarse, false, layout.refine);
+      plans.push(p);
+      candidates.push(...candidatesOf(p));
+    } catch (e) {
+      if (!(e instanceof RootcastError)) throw e;
+      candidates.push(refusedCandidate(layout.counts, e.message));
+    }
+  }
+  return { plans, candidates };
+}
+
+/** Splits coarse cells until every segment meets REFINE.share of the target at `order`; null when the tables outgrow the limit first. */
+function refineFor(family: Family, box: Cell, coarse: readonly number[], levels: (number[] | null)[], order: number): SegmentLayout | null {
+  const bytes = ARITHMETICS[family.arithmetic].bytes;
+  for (;;) {
+    let layout: SegmentLayout;
+    try {
+      layout = segmentLayout(family, box, coarse, levels);
+    } catch (e) {
+      if (e instanceof RootcastError) return null;
+      throw e;
+    }
+    const segments = layout.segmentation.segments;
+    const least = segments * bytes * SEGMENT_SEARCH.minValuesPerSegment + 2 * coarse.reduce((a, b) => a + b, 0);
+    if (segments > SEGMENT_SEARCH.maxTotal || least > family.plan.maxTableBytes) return null;
+    let needs: number[];
+    try {
+      needs = segmentNeeds(family, box, layout, order);
+    } catch (e) {
+      if (e instanceof RootcastError) return null;
+      throw e;
+    }
+    const marked = levels.map((l) => (l ? new Array<boolean>(l.length).fill(false) : null));
+    let any = false;
+    needs.forEach((need, s) => {
+      if (!(need > REFINE.share)) return;
+      any = true;
+      for (const part of layout.segmentation.parts) {
+        const l = levels[part.input];
+        if (!l) continue;
+        const rows = layout.counts[part.input]!;
+        marked[part.input]![coarseCellOf(l, Math.floor(s / part.stride) % rows)] = true;
+      }
+    });
+    if (!any) return layout;
+    let grew = false;
+    levels.forEach((l, i) => {
+      if (!l) return;
+      l.forEach((lv, c) => {
+        if (marked[i]![c] && lv < REFINE.maxLevel) {
+          l[c] = lv + 1;
+          grew = true;
+        }
+      });
+    });
+    if (!grew) return null;
+  }
+}
+
+/** The coarse cell that holds row `row` when coarse cell c has 2^levels[c] rows. */
+function coarseCellOf(levels: readonly number[], row: number): number {
+  let first = 0;
+  for (let c = 0; c < levels.length; c++) {
+    first += 2 ** levels[c]!;
+    if (row < first) return c;
+  }
+  return levels.length - 1;
+}
