@@ -3,7 +3,7 @@
  * Every number that came from the spec is kept as its exact decimal text, so
  * nothing is rounded before the planner decides what to round.
  */
-import type { Arithmetic } from './arithmetic.js';
+import type { Arithmetic, CostModelName } from './arithmetic.js';
 
 /**
  * `arithmetic: fixed32` (DESIGN.md 1.12): every argument and the result is an
@@ -62,6 +62,8 @@ export interface PlanKnobs {
    */
   readonly segments: SegmentCount | readonly SegmentCount[];
   readonly maxTableBytes: number;
+  /** The cost model the planner ranks by (plan.cost_model); absent: the arithmetic's default (src/family/arithmetic.ts). */
+  readonly costModel?: CostModelName;
   /** Newton polish steps after the series: 'auto' lets the planner weigh 0, 1 and 2. */
   readonly newtonSteps: 'auto' | number;
 }

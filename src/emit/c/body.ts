@@ -61,10 +61,14 @@ function cExpression(program: Program, node: Node, at: number): string | null {
 
 /**
  * The segment number (SEGMENT INDEX in src/ir/nodes.ts): round by adding the
- * magic constant, read the bits through a union (defined behaviour for every
- * value, NaN included), clamp with integer operations. gcc compiles this
- * without branches (TOOLCHAIN.md: integer clamps written with bit operations).
- * Right shifts of negative int32_t are arithmetic in gcc and clang.
+ * magic constant, copy the bits to an unsigned integer with ROOTCAST_MEMCPY
+ * (the template's memcpy: gcc's builtin, else <string.h>; defined
+ * behaviour in C99 and in C++ for every value, NaN included; a union pun is
+ * undefined in C++), clamp with integer operations. gcc turns the fixed-size
+ * memcpy into one register move and compiles the rest without branches
+ * (TOOLCHAIN.md: integer clamps written with bit operations). Right shifts of
+ * negative int32_t are arithmetic in gcc and clang (implementation-defined in
+ * C99, defined in C++20).
  */
 function cIndexLines(program: Program, parts: readonly IndexPart[], at: number, name: string): string[] {
   const a = ARITHMETICS[program.arithmetic];
@@ -75,11 +79,13 @@ function cIndexLines(program: Program, parts: readonly IndexPart[], at: number, 
     const t = cReference(program, p.t, at);
     const s = `rc_s${at}_${k}`;
     const magic = cLiteral(a.segmentMagic, program.arithmetic);
-    lines.push(`union { ${a.cType} f; ${a.cBitsType} u; } ${s}b = { ${t} + ${magic} };`);
+    lines.push(`const ${a.cType} ${s}f = ${t} + ${magic};`);
+    lines.push(`${a.cBitsType} ${s}b;`);
+    lines.push(`ROOTCAST_MEMCPY(&${s}b, &${s}f, sizeof ${s}b);`);
     lines.push(
       significand
-        ? `const int32_t ${s}r = (int32_t)(${s}b.u & 0x7fffffu) - 0x400000;`
-        : `const int32_t ${s}r = (int32_t)(uint32_t)(${s}b.u & 0xffffffffu);`,
+        ? `const int32_t ${s}r = (int32_t)(${s}b & 0x7fffffu) - 0x400000;`
+        : `const int32_t ${s}r = (int32_t)(uint32_t)(${s}b & 0xffffffffu);`,
     );
     lines.push(`const int32_t ${s}p = ${s}r & ~(${s}r >> 31);`);
     lines.push(`const int32_t ${s}d = ${s}p - ${p.count - 1};`);
@@ -146,8 +152,10 @@ function cTableMacro(name: string): string {
  * With gcc and clang they are weak definitions: every translation unit that
  * includes the header emits the same table, and the linker keeps one copy
  * per program (ELF and Mach-O weak symbols); the header stays self-contained
- * and the function stays `static inline`. Other compilers get `static const`
- * (one copy per translation unit that reads it, as before).
+ * and the function stays `static inline`. In C++ a namespace-scope const has
+ * internal linkage, which a weak symbol cannot have, so there the macro adds
+ * `extern` (ISO/IEC 14882:2017 [basic.link] 6.5/3). Other compilers get
+ * `static const` (one copy per translation unit that reads it, as before).
  */
 export function cTableDefinitions(program: Program, name: string): string[] {
   const type = ARITHMETICS[program.arithmetic].cType;
@@ -157,7 +165,9 @@ export function cTableDefinitions(program: Program, name: string): string[] {
     '/* The segment tables, at file scope: gcc and clang keep one copy per program',
     '   (weak definitions, merged by the linker); other compilers one per',
     '   translation unit. */',
-    '#if defined(__GNUC__)',
+    '#if defined(__GNUC__) && defined(__cplusplus)',
+    `#define ${macro} extern __attribute__((weak)) const`,
+    '#elif defined(__GNUC__)',
     `#define ${macro} __attribute__((weak)) const`,
     '#else',
     `#define ${macro} static const`,

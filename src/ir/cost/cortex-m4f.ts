@@ -115,7 +115,7 @@ export function cortexM4fLine(program: Program): string {
   const segments = e.tableReads + e.indexes === 0 ? '' : ` + ${e.tableReads} table reads + ${e.indexes} segment ${e.indexes === 1 ? 'index' : 'indexes'}`;
   const n = program.nodes.filter((x) => x.kind === 'clamp').length;
   const clamps = n === 0 ? '' : ` + ${n} clamped ${n === 1 ? 'input' : 'inputs'}`;
-  return `cortex-m4f estimate: ~${e.cycles} cycles (${e.fpuOps} FPU ops + ${e.constantLoads} constant loads${segments}${clamps}; Cortex-M4 TRM FPU timings, see src/ir/cost/cortex-m4f.ts)`;
+  return `cortex-m4f estimate: ~${e.cycles} cycles (${e.fpuOps} FPU ops + ${e.constantLoads} constant loads${segments}${clamps}; Cortex-M4 TRM FPU timings; README, "Performance")`;
 }
 
 /** The value operands of a node (the fields a and b of the arithmetic kinds). */

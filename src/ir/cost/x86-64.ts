@@ -41,5 +41,5 @@ export function x86Latency(program: Program): LatencyEstimate {
 export function x86LatencyLine(program: Program): string {
   const e = x86Latency(program);
   const segments = e.tableReads === 0 && e.intOps === 0 ? '' : ` + ${e.tableReads} table reads + ${e.intOps} integer ops`;
-  return `x86-64 estimate: ~${e.cycles} cycles of latency (${e.fpOps} FP ops${segments}; scalar SSE latencies, see src/ir/cost/x86-64.ts)`;
+  return `x86-64 estimate: ~${e.cycles} cycles of latency (${e.fpOps} FP ops${segments}; scalar SSE latencies; README, "Performance")`;
 }
