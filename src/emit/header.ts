@@ -45,6 +45,7 @@ export function headerLines(input: EmitInput, fileRole: string, options: { reado
     ...labelled('equation:', [equationText(family)]),
     ...labelled('constants:', constantLines(family)),
     ...labelled('inputs:', family.inputs.map((r) => `${r.name} in [${r.lo}, ${r.hi}]`)),
+    ...labelled('outside:', outsideBoxLines(input)),
     ...labelled('root:', wrapWords(claims.rootNote, WRAP_COLUMN - LABEL_WIDTH)),
     ...labelled('arithmetic:', [ARITHMETIC_NOTE[input.program.arithmetic]]),
     '',
@@ -61,11 +62,29 @@ export function headerLines(input: EmitInput, fileRole: string, options: { reado
     ...labelled('series:', [
       `order ${claims.order}, ${claims.terms} ${claims.terms === 1 ? 'term' : 'terms'}${claims.steps > 0 ? `, then ${claims.steps} Newton ${claims.steps === 1 ? 'step' : 'steps'}` : ''}`,
     ]),
-    ...labelled('operations:', [`${ops.add} add, ${ops.mul} mul, ${ops.div} div, ${ops.tableReads} table reads`]),
+    ...labelled('operations:', [`${ops.add} add, ${ops.mul} mul, ${ops.div} div, ${ops.tableReads} table reads${ops.compares > 0 ? `, ${ops.compares} compares` : ''}`]),
     ...(options.cycles === false ? [] : costHeaderLines(input.program, input.claims.costModel ? COST_MODELS[input.claims.costModel] : undefined)),
   ];
   for (const line of lines) assertCommentSafe(line);
   return lines;
+}
+
+/**
+ * Only for `inputs_outside_box: saturate` (extrapolation says nothing here, as
+ * before): what the function does with an input outside its range. The
+ * program and the spec must agree, which the clamp nodes show.
+ */
+function outsideBoxLines({ family, program }: EmitInput): string[] {
+  const clamps = program.nodes.filter((n) => n.kind === 'clamp').length;
+  const saturate = family.outsideBox === 'saturate';
+  if (!saturate) {
+    if (clamps > 0) throw new Error('the program clamps its inputs but the spec does not ask for saturate');
+    return [];
+  }
+  return wrapWords(
+    'inputs saturate: each is clamped to its range first (two comparisons, no branch), so the bound holds for every input but NaN; -inf and +inf give the value at the range ends, NaN gives NaN',
+    WRAP_COLUMN - LABEL_WIDTH,
+  );
 }
 
 /**
@@ -147,7 +166,7 @@ function assertSameShape({ family, program }: EmitInput): void {
 
 /** The plan's claimed counts must be the program's: the header shows one set of numbers. */
 function assertSameOps(claimed: OpCounts, actual: OpCounts): void {
-  const keys: (keyof OpCounts)[] = ['add', 'mul', 'div', 'tableReads'];
+  const keys: (keyof OpCounts)[] = ['add', 'mul', 'div', 'tableReads', 'compares'];
   for (const k of keys) {
     if (claimed[k] !== actual[k]) {
       throw new Error(`plan claims ${claimed[k]} ${k} operations but the program has ${actual[k]}`);

@@ -122,7 +122,7 @@ export function planText(plan: Plan): string {
       `${b.kind}: truncation ${formatBoundUp(b.truncation)}${b.economisation === undefined ? '' : ` + economisation ${formatBoundUp(b.economisation)}`} + rounding ${formatBoundUp(b.rounding)} -> total ${formatBoundUp(b.total)}`,
     ],
     ['target', `${f.accuracy.value} (${f.accuracy.kind})`],
-    ['ops', `${c.ops.add} add, ${c.ops.mul} mul, ${c.ops.div} div, ${c.ops.tableReads} table reads`],
+    ['ops', `${c.ops.add} add, ${c.ops.mul} mul, ${c.ops.div} div, ${c.ops.tableReads} table reads${c.ops.compares > 0 ? `, ${c.ops.compares} compares (inputs saturated)` : ''}`],
     ['segments', `${plan.counts.join(' x ')} (${plan.tableBytes} table bytes)`],
     ['cost', `${plan.cost} (${COST_MODELS[plan.costModel].unit}; README, "How the planner chooses")`],
   ];

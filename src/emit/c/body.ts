@@ -27,6 +27,7 @@ export function cBodyLines(program: Program, name: string): string[] {
   program.nodes.forEach((node, i) => {
     if (node.kind === 'index') lines.push(...cIndexLines(program, node.parts, i, name));
     else if (node.kind === 'table') lines.push(...cTableLines(program, node, i, name));
+    else if (node.kind === 'clamp') lines.push(...cClampLines(program, node, i));
     else {
       const rhs = cExpression(program, node, i);
       if (rhs !== null) lines.push(`const ${type} ${valueName(i)} = ${rhs};`);
@@ -99,6 +100,30 @@ function cIndexLines(program: Program, parts: readonly IndexPart[], at: number, 
   });
   lines.push(`const int32_t ${valueName(at)} = ${terms.join(' + ')};`);
   return lines;
+}
+
+/**
+ * An argument saturated to its range (CLAMP in src/ir/nodes.ts). Each
+ * comparison gives 0 or 1, negated into an all-zeros or all-ones mask, and
+ * the masks pick the bits of x, lo or hi. gcc -O2 compiles this without a
+ * conditional branch: SETcc on x86-64, IT-predicated MOVs on Cortex-M4F (a
+ * float conditional operator or fminf/fmaxf would not be: TOOLCHAIN.md). A
+ * NaN fails both comparisons and keeps its own bits.
+ */
+function cClampLines(program: Program, node: Extract<Node, { kind: 'clamp' }>, at: number): string[] {
+  const facts = ARITHMETICS[program.arithmetic];
+  const type = facts.cType;
+  const bits = facts.cBitsType;
+  const x = cReference(program, node.a, at);
+  const lo = cLiteral(node.lo, program.arithmetic);
+  const hi = cLiteral(node.hi, program.arithmetic);
+  const s = `rc_c${at}`;
+  return [
+    `const union { ${type} f; ${bits} u; } ${s}x = { ${x} }, ${s}lo = { ${lo} }, ${s}hi = { ${hi} };`,
+    `const ${bits} ${s}below = -(${bits})(${x} < ${lo}), ${s}above = -(${bits})(${x} > ${hi});`,
+    `const union { ${bits} u; ${type} f; } ${s} = { (${s}x.u & ~(${s}below | ${s}above)) | (${s}lo.u & ${s}below) | (${s}hi.u & ${s}above) };`,
+    `const ${type} ${valueName(at)} = ${s}.f;`,
+  ];
 }
 
 /** The file-scope name of the coarse-cell table of part k of index node `at`. */
