@@ -53,7 +53,7 @@ declare const process: {
 
 // ---- Exact fractions over BigInt, n / d with d > 0, deliberately not kept in
 // lowest terms: the per-point numbers are dyadic and a gcd after every
-// operation would cost more than the bisection (src/verify/fraction.ts).
+// operation would cost more than the bisection (README, "How the checks work").
 
 interface RcQ {
   readonly n: bigint;
@@ -138,7 +138,7 @@ function rc_toDoubleUp(q: RcQ): number {
   return Number(m) * 2 ** k;
 }
 
-// ---- The exact reference root (src/verify/reference.ts): the grid cell
+// ---- The exact reference root (README, "How the checks work"): the grid cell
 // [X, X + 1] / 2^s where the sign changes, every sign decided exactly by
 // Horner's rule on integers, A(X) = 2^(s n) P(X / 2^s) = sum_k C_k X^k 2^(s (n - k)).
 
@@ -162,7 +162,7 @@ function rc_signAtRational(c: readonly bigint[], p: bigint, q: bigint): number {
 /**
  * A root interval of width <= 2^-s inside [lo, hi], or null when P(lo), P(hi)
  * are non-zero with one sign. `hint` (the value under test) starts the Newton
- * shortcut of src/verify/reference.ts; bisection when it does not settle.
+ * shortcut described in README, "How the checks work"; bisection when it does not settle.
  */
 function rc_referenceRoot(coeffs: readonly RcQ[], lo: RcQ, hi: RcQ, s: number, hint: RcQ): [RcQ, RcQ] | null {
   // Integer coefficients: every c_k times the product of all denominators (> 0, signs kept).
@@ -247,7 +247,7 @@ function rc_newtonCell(
   return null;
 }
 
-/** s with 2^-s = 2^(e - rc_referenceBits), 2^e <= max(|x|, B, 2^-1000) < 2^(e+1), s >= 0 (src/verify/measure.ts). */
+/** s with 2^-s = 2^(e - rc_referenceBits), 2^e <= max(|x|, B, 2^-1000) < 2^(e+1), s >= 0 (README, "How the checks work"). */
 function rc_gridExponent(x: number): number {
   const scale = Math.max(Math.abs(x), rc_absoluteBound, 2 ** -1000);
   let e = 0;
@@ -263,7 +263,7 @@ function rc_gridExponent(x: number): number {
   return Math.max(0, rc_referenceBits - e);
 }
 
-// ---- C's %.Ne and %.Pg, digit for digit (src/verify/printf.ts): the exact
+// ---- C's %.Ne and %.Pg, digit for digit (README, "How the checks work"): the exact
 // binary value rounded half to even, C's exponent width and %g layout.
 
 function rc_cmpPow10(num: bigint, den: bigint, k: number): number {
@@ -421,7 +421,7 @@ function rc_main(args: readonly string[]): number {
     if (st.worst === null || rc_cmp(exact, st.worst.exact) > 0) st.worst = { exact, at: raw };
   };
 
-  // src/verify/fixed-samples.ts: both ends, a grid of half the rest, xorshift32 raw values, the segment edges.
+  // The sample points (README, "How the checks work"): both ends, a grid of half the rest, xorshift32 raw values, the segment edges.
   const total = Math.max(samples, 4);
   const span = rc_rawHi - rc_rawLo;
   visit(rc_rawLo);

@@ -151,7 +151,7 @@ static rc_real rc_abs(rc_real x)
     return x < 0 ? -x : x;
 }
 
-/* 2^(e - RC_REFERENCE_BITS), where 2^e <= max(|x|, B, 2^-1000) < 2^(e+1) (src/verify/measure.ts). */
+/* 2^(e - RC_REFERENCE_BITS), where 2^e <= max(|x|, B, 2^-1000) < 2^(e+1) (README, "How the checks work"). */
 static rc_real rc_resolution(double x)
 {
     double scale = x < 0 ? -x : x, p = 1.0;
@@ -268,7 +268,7 @@ int main(int argc, char **argv)
     }
     rc_set_constants();
 
-    /* src/verify/fixed-samples.ts: both ends, a grid of half the rest, xorshift32 raw values, the segment edges. */
+    /* The sample points (README, "How the checks work"): both ends, a grid of half the rest, xorshift32 raw values, the segment edges. */
     total = samples > 4 ? samples : 4;
     rc_visit(rc_lo);
     rc_visit(rc_hi);
