@@ -29,7 +29,7 @@ import { nextDown, nextUp, type Rational } from '../math/rational.js';
 export type Arithmetic = 'float32' | 'float64';
 
 /** The cost models the planner can rank by (one row each in src/ir/cost/index.ts). */
-export type CostModelName = 'cortex-m4f' | 'x86-64';
+export type CostModelName = 'cortex-m4f' | 'x86-64' | 'gpu';
 
 /** The facts of a binary floating-point arithmetic (IEEE 754 binary32 or binary64). */
 export interface FloatFacts {

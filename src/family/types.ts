@@ -3,7 +3,7 @@
  * Every number that came from the spec is kept as its exact decimal text, so
  * nothing is rounded before the planner decides what to round.
  */
-import type { Arithmetic } from './arithmetic.js';
+import type { Arithmetic, CostModelName } from './arithmetic.js';
 
 /**
  * `arithmetic: fixed32` (DESIGN.md 1.12): every argument and the result is an
@@ -62,9 +62,18 @@ export interface PlanKnobs {
    */
   readonly segments: SegmentCount | readonly SegmentCount[];
   readonly maxTableBytes: number;
+  /** The cost model the planner ranks by (plan.cost_model); absent: the arithmetic's default (src/family/arithmetic.ts). */
+  readonly costModel?: CostModelName;
   /** Newton polish steps after the series: 'auto' lets the planner weigh 0, 1 and 2. */
   readonly newtonSteps: 'auto' | number;
 }
+
+/**
+ * What the function does with an input outside its range:
+ *   extrapolate  uses it as given (no extra ops; the bound holds inside the box only);
+ *   saturate     clamps it to the range first, branch-free (the bound holds for every input).
+ */
+export type OutsideBox = 'extrapolate' | 'saturate';
 
 export interface Family {
   /** Spec path as the user gave it (used in messages and headers, never made absolute). */
@@ -88,6 +97,8 @@ export interface Family {
   /** Present for `arithmetic: fixed32` only: the binary points (see FixedFormat). */
   readonly fixed?: FixedFormat;
   readonly plan: PlanKnobs;
+  /** `inputs_outside_box`: extrapolate (the default) or saturate. */
+  readonly outsideBox: OutsideBox;
   /** Field path -> position of its value in the file, for messages after parsing. */
   readonly positions: Readonly<Record<string, Pos>>;
 }

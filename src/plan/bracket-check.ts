@@ -27,16 +27,18 @@ import type { CellFacts } from './cell-bound.js';
 import { poleOver } from './coefficient-poles.js';
 import { decimalInterval, encloseExpr } from './expr-enclose.js';
 import { locate } from './locate.js';
+import { CoefficientRanges, intersect } from './tight-range.js';
 import { boxCentre } from './root-choice.js';
 import { BRACKET_CHECK, initialCellsPerSegment } from './tuning.js';
 
 /** P at an exact point `end` over a cell, by Horner's rule on the coefficient enclosures. */
-function pOver(family: Family, cell: Cell, end: Interval, isZero: boolean): Interval {
+function pOver(family: Family, cell: Cell, end: Interval, isZero: boolean, tight?: CoefficientRanges): Interval {
   const c = family.coefficients.map((e) => (e === null ? point(0) : encloseExpr(e, cell, family.constants)));
   if (isZero) return c[0]!;
   let acc = c[c.length - 1]!;
   for (let k = c.length - 2; k >= 0; k--) acc = iadd(imul(acc, end), c[k]!);
-  return acc;
+  // P(end) is c'0 recentred at the end: its Bernstein enclosure (src/plan/tight-range.ts) avoids the dependency problem.
+  return intersect(acc, tight ? tight.shifted(0, cell, 0) : null);
 }
 
 /** The exact signs of P at the bracket ends at the box centre, or null where a division is by zero there. */
@@ -59,7 +61,7 @@ export function certifyBracket(family: Family, box: Cell): void {
   const signs = centreSigns(family);
   // No sign change at the centre (or a pole there): the root choice refuses that in its own words.
   if (!signs || signs[0] * signs[1] >= 0) return;
-  const ends = family.bracket.map((text) => ({ text, at: decimalInterval(text), zero: Rational.parseDecimal(text).isZero() }));
+  const ends = family.bracket.map((text) => ({ text, at: decimalInterval(text), zero: Rational.parseDecimal(text).isZero(), tight: new CoefficientRanges(family, [Rational.parseDecimal(text)]) }));
   const holds = (v: Interval, s: number): boolean => (s < 0 ? v.hi <= 0 : v.lo >= 0);
   const failed: [Cell[], Cell[]] = [[], []];
   const minWidth = box.map((c) => (c.hi - c.lo) * BRACKET_CHECK.minFraction);
@@ -69,7 +71,7 @@ export function certifyBracket(family: Family, box: Cell): void {
     const next: Cell[] = [];
     for (const cell of queue) {
       work++;
-      const bad = [0, 1].filter((j) => !holds(pOver(family, cell, ends[j]!.at, ends[j]!.zero), signs[j]!));
+      const bad = [0, 1].filter((j) => !holds(pOver(family, cell, ends[j]!.at, ends[j]!.zero, ends[j]!.tight), signs[j]!));
       // A coefficient with a pole in the cell is refused at its division by the planner's cell checks.
       if (bad.length === 0 || family.coefficients.some((e) => e !== null && poleOver(e, cell, family.constants) !== null)) continue;
       const small = cell.every((c, i) => c.hi - c.lo <= minWidth[i]!);

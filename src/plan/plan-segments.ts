@@ -6,7 +6,7 @@
  */
 import { RootcastError } from '../errors.js';
 import { ConstantOverflowError } from '../ir/builder.js';
-import { costModelFor } from '../ir/cost/index.js';
+import { COST_MODELS, costModelFor } from '../ir/cost/index.js';
 import type { Program } from '../ir/nodes.js';
 import type { Family } from '../family/types.js';
 import { grid, type Cell } from './box.js';
@@ -68,7 +68,7 @@ function planSegmentsInner(family: Family, box: Cell, layout: SegmentLayout, tho
     set,
     ap,
     pool: new TermPool(family.degree, [...ap.q.keys()], set),
-    costModel: costModelFor(family.arithmetic),
+    costModel: family.plan.costModel ? COST_MODELS[family.plan.costModel] : costModelFor(family.arithmetic),
     checkTable: (program) => checkTable(family, counts, program),
   };
   const found = new FoundPlans();

@@ -8,18 +8,21 @@
  *                    auto or a power of two
  *   max_table_bytes  most bytes of constant tables in the output   1..2^31-1, default 4096
  *   newton_steps     Newton polish steps after the series          auto | 0 | 1 | 2, default auto
+ *   cost_model       what the planner ranks candidates by          cortex-m4f | x86-64 | gpu, default by arithmetic
  */
 import { isMap, isScalar, isSeq, type Node } from 'yaml';
 import type { SpecContext } from './context.js';
 import { readWholeNumber } from './scalars.js';
 import { showText } from '../family/show.js';
 import type { PlanKnobs, Pos, SegmentCount } from '../family/types.js';
+import type { CostModelName } from '../family/arithmetic.js';
 import { describeNode, expectMap, refuseUnknownKeys, valueOf, type Entry } from './yaml-map.js';
 import { didYouMean } from './edit-distance.js';
 
 export const PLAN_DEFAULTS: PlanKnobs = { maxOrder: 40, segments: 'auto', maxTableBytes: 4096, newtonSteps: 'auto' };
 
-const PLAN_FIELDS = ['max_order', 'segments', 'max_table_bytes', 'newton_steps'] as const;
+const PLAN_FIELDS = ['max_order', 'segments', 'max_table_bytes', 'newton_steps', 'cost_model'] as const;
+const COST_MODEL_NAMES: readonly CostModelName[] = ['cortex-m4f', 'x86-64', 'gpu'];
 /** More than two steps never pays: each squares the error, and two already take 1e-3 to far below float64 rounding. */
 const MAX_NEWTON_STEPS = 2;
 const MAX_ORDER = 400;
@@ -35,15 +38,25 @@ export function readPlan(ctx: SpecContext, entry: Entry | undefined, positions: 
   const entries = expectMap(ctx, node, entry.field, entry.keyPos, 'a map of planner knobs such as `max_order: 40`');
   refuseUnknownKeys(ctx, entries, PLAN_FIELDS, 'under plan');
   let { maxOrder, segments, maxTableBytes, newtonSteps } = PLAN_DEFAULTS;
+  let costModel: CostModelName | undefined;
   for (const e of entries) {
     const value = valueOf(ctx, e, 'a value, or remove the line for the default');
     positions[e.field] = ctx.nodePos(value);
     if (e.key === 'max_order') maxOrder = readWholeNumber(ctx, value, e.field, 0, MAX_ORDER).value;
     else if (e.key === 'max_table_bytes') maxTableBytes = readWholeNumber(ctx, value, e.field, 1, MAX_TABLE_BYTES).value;
     else if (e.key === 'newton_steps') newtonSteps = readSteps(ctx, value, e.field);
+    else if (e.key === 'cost_model') costModel = readCostModel(ctx, value, e.field);
     else segments = readSegmentKnob(ctx, value, e.field, inputs);
   }
-  return { maxOrder, segments, maxTableBytes, newtonSteps };
+  return { maxOrder, segments, maxTableBytes, newtonSteps, ...(costModel ? { costModel } : {}) };
+}
+
+/** `cost_model`: one of the model names (src/ir/cost/). */
+function readCostModel(ctx: SpecContext, node: Node, field: string): CostModelName {
+  const name = isScalar(node) ? String(node.value) : '';
+  const found = COST_MODEL_NAMES.find((m) => m === name);
+  if (found) return found;
+  ctx.fail(`${describeNode(node)} is not a cost model; write cortex-m4f, x86-64 or gpu`, ctx.nodePos(node), field);
 }
 
 /** `segments`: one count for every input, or one per input (a list in input order or a map by name). */

@@ -55,7 +55,7 @@ describe('inputs', () => {
   test('an input name that is a C and GLSL keyword is refused at the name', () => {
     const lines = [...BASE];
     lines[4] = '  0: -float';
-    expectRefusal(edit(9, '  float: [0, 200]', lines), 'spec.yaml:9:3: inputs.float: ', '`float` is a keyword in C and GLSL; choose another name');
+    expectRefusal(edit(9, '  float: [0, 200]', lines), 'spec.yaml:9:3: inputs.float: ', '`float` is a keyword in C, GLSL and HLSL; choose another name');
   });
 
   test('an input that no coefficient uses is refused (it would be an unused parameter)', () => {

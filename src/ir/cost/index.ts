@@ -13,6 +13,7 @@ import { ARITHMETICS, type Arithmetic, type CostModelName } from '../../family/a
 import type { Program } from '../nodes.js';
 import { cortexM4fCycles, cortexM4fLine } from './cortex-m4f.js';
 import { x86Latency, x86LatencyLine } from './x86-64.js';
+import { gpuCost, gpuLine } from './gpu.js';
 
 export interface CostModel {
   readonly name: CostModelName;
@@ -35,6 +36,7 @@ export const COST_MODELS: Readonly<Record<CostModelName, CostModel>> = {
     headerLine: cortexM4fLine,
   },
   'x86-64': { name: 'x86-64', unit: 'x86-64 latency cycles, estimated', price: (program) => x86Latency(program).cycles, headerLine: x86LatencyLine },
+  gpu: { name: 'gpu', unit: 'GPU issue units (one f32 add = 1), estimated', price: (program) => gpuCost(program).units, headerLine: gpuLine },
 };
 
 /** The model the planner ranks plans of this arithmetic by. */
