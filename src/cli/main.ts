@@ -12,6 +12,9 @@ import { VERSION } from '../version.js';
 const out = (line: string): void => {
   process.stdout.write(`${line}\n`);
 };
+const err = (line: string): void => {
+  process.stderr.write(`${line}\n`);
+};
 
 const TARGET_CHOICES = ['c', 'ts', 'glsl', 'wgsl', 'hlsl', 'rust', 'all'] as const;
 
@@ -33,65 +36,58 @@ export async function main(argv: string[]): Promise<number> {
       },
     )
     .command(
-      'plan <spec>',
-      'print the chosen plan (root, centre, segments, order, terms, Newton steps, certified bounds, op counts) and every candidate weighed',
+      'plan <specs..>',
+      'print the chosen plan (root, centre, segments, order, terms, Newton steps, certified bounds, op counts) and every candidate weighed, for each spec',
       (y) =>
         y
-          .positional('spec', { type: 'string', demandOption: true, describe: 'spec file (YAML or JSON)' })
-          .option('json', { type: 'boolean', default: false, describe: 'print one JSON object instead of text' }),
+          .positional('specs', { type: 'string', array: true, demandOption: true, describe: 'spec files (YAML or JSON); a refused one prints its line, the others are still planned' })
+          .option('json', { type: 'boolean', default: false, describe: 'print one JSON object per spec (an array for several), refusals included, instead of text' }),
       async (a) => {
-        const { fixedFamilyOf } = await import('./fixed/pipeline.js');
-        const fixed = fixedFamilyOf(a.spec);
-        if (fixed) {
-          const { fixedPlanJson, fixedPlanText } = await import('./fixed/plan.js');
-          const { makeFixedPlan } = await import('../plan/fixed/plan-fixed.js');
-          const plan = makeFixedPlan(fixed);
-          out(a.json ? JSON.stringify(fixedPlanJson(plan), null, 2) : fixedPlanText(plan));
-          return;
-        }
-        const { planJson, planText } = await import('./commands/plan.js');
-        const { planSpec } = await import('./pipeline.js');
-        const plan = planSpec(a.spec);
-        out(a.json ? JSON.stringify(planJson(plan), null, 2) : planText(plan));
+        const { runPlan } = await import('./commands/plan.js');
+        code = runPlan({ specs: a.specs, json: a.json }, out, err);
       },
     )
     .command(
-      'emit <spec>',
-      'write the function and its verification harness',
+      'emit <specs..>',
+      'write the function and its verification harness for each spec',
       (y) =>
         y
-          .positional('spec', { type: 'string', demandOption: true, describe: 'spec file (YAML or JSON)' })
+          .positional('specs', { type: 'string', array: true, demandOption: true, describe: 'spec files (YAML or JSON); a refused one prints its line, the others are still emitted' })
           .option('target', { choices: TARGET_CHOICES, default: 'all' as const, describe: 'language to emit (all: c, ts and rust, plus glsl, wgsl and hlsl when the spec is float32)' })
           .option('out', { type: 'string', demandOption: true, describe: 'output directory' })
           .option('check', {
             type: 'boolean',
             default: false,
-            describe: 'write nothing; exit 1 and name the files if DIR is out of date',
-          }),
+            describe: 'write nothing; read the files\' stamps (no planning) and exit 1 naming every stale, missing or left-over file',
+          })
+          .option('harness', { type: 'boolean', default: true, describe: 'also write each target\'s verification harness (--no-harness: the function files only)' })
+          .option('depfile', { type: 'string', describe: 'also write FILE, a Make-format dependency file (outputs: spec), when every spec was emitted' }),
       async (a) => {
+        if (a.check && a.depfile !== undefined) throw new RootcastError('--depfile writes a file and --check writes nothing: leave --depfile out of the check');
         const { runEmit } = await import('./commands/emit.js');
-        code = await runEmit({ spec: a.spec, target: a.target, out: a.out, check: a.check }, out);
+        code = await runEmit({ specs: a.specs, target: a.target, out: a.out, check: a.check, harness: a.harness, depfile: a.depfile }, out, err);
       },
     )
     .command(
-      'verify <spec>',
-      'check the plan in process, then build and run each target harness against exact bisection',
+      'verify <specs..>',
+      'check the plan in process, then build and run each target harness against exact bisection, for each spec',
       (y) =>
         y
-          .positional('spec', { type: 'string', demandOption: true, describe: 'spec file (YAML or JSON)' })
+          .positional('specs', { type: 'string', array: true, demandOption: true, describe: 'spec files (YAML or JSON); a refused one prints its line, the others are still checked' })
           .option('target', { choices: TARGET_CHOICES, default: 'all' as const, describe: 'harnesses to build and run (all: c, ts, and glsl in headless Chromium when the spec is float32; wgsl, hlsl and rust run when named)' })
           .option('samples', { type: 'number', default: 10000, describe: 'sample points (corners, a grid, seeded random); segment edges and their neighbours come on top' })
           .option('seed', { type: 'number', default: 1, describe: 'seed of the random sample points' })
-          .option('json', { type: 'boolean', default: false, describe: 'print one JSON object (plan claims and every check) instead of text' })
-          .option('report', { type: 'string', describe: 'also write FILE.html, a self-contained page plotting the measured error' }),
+          .option('json', { type: 'boolean', default: false, describe: 'print one JSON object per spec (plan claims and every check; an array for several), refusals included' })
+          .option('report', { type: 'string', describe: 'also write FILE.html, a self-contained page plotting the measured error (one spec)' }),
       async (a) => {
         const { runVerify } = await import('./commands/verify.js');
         if (!Number.isInteger(a.samples) || a.samples < 1) throw new RootcastError('--samples must be a positive integer');
         if (!Number.isInteger(a.seed) || a.seed < 0 || a.seed > 0xffffffff) throw new RootcastError('--seed must be an integer from 0 to 4294967295');
         if (a.report !== undefined && !/\.html?$/i.test(a.report)) throw new RootcastError('--report needs a file name ending in .html');
         code = runVerify(
-          { spec: a.spec, target: a.target, samples: a.samples, seed: a.seed, json: a.json, report: a.report, progress: process.stderr },
+          { specs: a.specs, target: a.target, samples: a.samples, seed: a.seed, json: a.json, report: a.report, progress: process.stderr },
           out,
+          err,
         );
       },
     )
@@ -109,12 +105,14 @@ export async function main(argv: string[]): Promise<number> {
   } catch (e) {
     if (e instanceof RootcastError) {
       process.stderr.write(`${e.toLine()}\n`);
+      await printJsonRefusal(argv, e);
       return e.exitCode;
     }
     if (e instanceof UsageError) {
       // yargs writes some messages over several lines: one line, always.
       const flat = e.message.replace(/\s*\n\s*/g, '; ').replace(/:;/g, ':');
       process.stderr.write(`rootcast: ${flat} (see rootcast --help)\n`);
+      await printJsonRefusal(argv, new RootcastError(`${flat} (see rootcast --help)`));
       return 2;
     }
     throw e;
@@ -123,3 +121,10 @@ export async function main(argv: string[]): Promise<number> {
 }
 
 class UsageError extends Error {}
+
+/** Under `plan --json` and `verify --json`, a refusal of the command itself (bad usage) is a JSON object on stdout too. */
+async function printJsonRefusal(argv: readonly string[], e: RootcastError): Promise<void> {
+  if (!argv.includes('--json') || !['plan', 'verify'].includes(argv[0] ?? '')) return;
+  const { refusalJson } = await import('./refusal-json.js');
+  out(JSON.stringify(refusalJson(e, null), null, 2));
+}

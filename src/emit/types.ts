@@ -8,6 +8,7 @@ import type { CostModelName } from '../family/arithmetic.js';
 import type { OpCounts } from '../ir/count.js';
 import type { Program } from '../ir/nodes.js';
 import type { Family } from '../family/types.js';
+import type { FileRole } from './stamp.js';
 
 export interface PlanClaims {
   /** Series order N (every kept term has grade w(m) <= N). */
@@ -42,6 +43,8 @@ export interface EmitInput {
   readonly claims: PlanClaims;
   /** Generator name and version, for the header (no time, no machine). */
   readonly generator: { readonly name: string; readonly version: string };
+  /** Which file is being printed, for the stamp line (files.ts sets it). */
+  readonly role?: FileRole;
 }
 
 /** One emitted file: path relative to the output directory, and its exact text. */

@@ -68,6 +68,13 @@ export interface PlanKnobs {
   readonly newtonSteps: 'auto' | number;
 }
 
+/**
+ * What the function does with an input outside its range:
+ *   extrapolate  uses it as given (no extra ops; the bound holds inside the box only);
+ *   saturate     clamps it to the range first, branch-free (the bound holds for every input).
+ */
+export type OutsideBox = 'extrapolate' | 'saturate';
+
 export interface Family {
   /** Spec path as the user gave it (used in messages and headers, never made absolute). */
   readonly file: string;
@@ -90,6 +97,8 @@ export interface Family {
   /** Present for `arithmetic: fixed32` only: the binary points (see FixedFormat). */
   readonly fixed?: FixedFormat;
   readonly plan: PlanKnobs;
+  /** `inputs_outside_box`: extrapolate (the default) or saturate. */
+  readonly outsideBox: OutsideBox;
   /** Field path -> position of its value in the file, for messages after parsing. */
   readonly positions: Readonly<Record<string, Pos>>;
 }

@@ -15,6 +15,7 @@
  *   div:     e = (ea + Q eb) / (mb - eb) + u (Q + (ea + Q eb)/(mb - eb)) + eta,
  *            Q = max|a/b|, mb = min|b| > eb
  *   neg:     e = ea (exact)
+ *   clamp:   e = ea (exact, and |clamp(a) - clamp(b)| <= |a - b|)
  *   const:   e = |stored - exact|;  input: e = 0 (inputs are taken as received).
  *   table:   as a constant, for the cell's segment (the caller says which).
  * Every bound is computed with upward rounding, so the result is rigorous.
@@ -98,6 +99,13 @@ export function analyse(
         v = ineg(values[n.a]!);
         e = errors[n.a]!;
         break;
+      case 'clamp': {
+        // Exact, and 1-Lipschitz: the operand's error cannot grow.
+        const a = values[n.a]!;
+        v = { lo: clampTo(a.lo, n.lo, n.hi), hi: clampTo(a.hi, n.lo, n.hi) };
+        e = errors[n.a]!;
+        break;
+      }
       case 'add':
       case 'sub': {
         const a = values[n.a]!;
@@ -199,6 +207,10 @@ function constError(stored: number, exact: Rational, lo: number, hi: number): nu
   if (lo === hi) return stored === lo ? 0 : nextUp(abs(stored - lo));
   if (!isFinite(lo) || !isFinite(hi)) return Rational.fromNumber(stored).sub(exact).abs().toNumberUp();
   return nextUp(max(abs(stored - lo), abs(stored - hi)));
+}
+
+function clampTo(x: number, lo: number, hi: number): number {
+  return x < lo ? lo : x > hi ? hi : x;
 }
 
 /** Largest magnitude any computed value can reach: exact magnitude plus error, per node. */

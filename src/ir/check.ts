@@ -22,6 +22,10 @@ export function checkProgram(program: Program): string[] {
       case 'input':
         if (n.index < 0 || n.index >= program.inputs.length) problems.push(`node ${i}: no input ${n.index}`);
         break;
+      case 'clamp':
+        if (!(Number.isFinite(n.lo) && Number.isFinite(n.hi) && n.lo <= n.hi)) problems.push(`node ${i}: clamp to [${n.lo}, ${n.hi}] is not a finite range`);
+        if (isIndex(n.a)) problems.push(`node ${i} (clamp) uses the integer segment index as a float`);
+        break;
       case 'index': {
         const count = n.parts.reduce((a, p) => a * partRows(p), 1);
         for (const p of n.parts) {

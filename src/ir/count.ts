@@ -7,12 +7,17 @@ export interface OpCounts {
   div: number;
   /** Table reads (per-segment constants). */
   tableReads: number;
-  /** Integer operations of the segment index (round by magic add is counted in add). */
+  /** Integer operations of the segment index (round by magic add is counted in add) and of input clamps. */
   intOps: number;
+  /** Float comparisons (two per clamped input). */
+  compares: number;
 }
 
+export const CLAMP_COMPARES = 2;
+export const CLAMP_INT_OPS = 8;
+
 export function countOps(program: Program): OpCounts {
-  const c: OpCounts = { add: 0, mul: 0, div: 0, tableReads: 0, intOps: 0 };
+  const c: OpCounts = { add: 0, mul: 0, div: 0, tableReads: 0, intOps: 0, compares: 0 };
   for (const n of program.nodes) {
     switch (n.kind) {
       case 'const':
@@ -43,6 +48,12 @@ export function countOps(program: Program): OpCounts {
         break;
       case 'table':
         c.tableReads++;
+        break;
+      case 'clamp':
+        // Two comparisons; then, in C, each comparison's 0/1 made a mask (2), the
+        // masks joined (or, and-not) and the bits selected (2 and, 2 or): 8 integer ops.
+        c.compares += CLAMP_COMPARES;
+        c.intOps += CLAMP_INT_OPS;
         break;
       default:
         throw new UnknownNodeError(n);

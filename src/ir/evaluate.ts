@@ -23,6 +23,11 @@ export function evaluate(program: Program, inputs: readonly number[]): number {
       case 'neg':
         v[i] = -v[n.a]!;
         break;
+      case 'clamp': {
+        const x = v[n.a]!;
+        v[i] = x < n.lo ? n.lo : x > n.hi ? n.hi : x;
+        break;
+      }
       case 'add':
         v[i] = r(v[n.a]! + v[n.b]!);
         break;

@@ -20,6 +20,12 @@ export type Node =
   | { readonly kind: BinaryKind; readonly a: number; readonly b: number }
   | { readonly kind: 'neg'; readonly a: number }
   /**
+   * An argument saturated to its range (CLAMP below): `lo` if a < lo, `hi` if
+   * a > hi, else a itself, NaN included. `lo` and `hi` are numbers of the
+   * target format. Exact: it rounds nothing.
+   */
+  | { readonly kind: 'clamp'; readonly a: number; readonly lo: number; readonly hi: number }
+  /**
    * The segment number, an integer (see SEGMENT INDEX below): for each part k,
    * i_k = clamp(round(value of node t_k), 0, count_k - 1), combined as sum i_k * stride_k.
    */
@@ -83,6 +89,18 @@ export function partRows(p: IndexPart): number {
  * rule that reads n are in the arithmetic table (src/family/arithmetic.ts:
  * segmentMagic, segmentRead).
  */
+
+/**
+ * CLAMP, the same in every target: two comparisons select the value, never a
+ * float min/max (whose NaN and signed-zero rules differ between C's fminf,
+ * JavaScript's Math.max and GLSL's max):
+ *     x < lo ? lo : (x > hi ? hi : x)
+ * A NaN compares false both times and passes through, so NaN in gives NaN
+ * out as before; -inf gives lo and +inf gives hi. C selects the bits with
+ * masks made from the comparisons (no conditional branch: see src/emit/c/body.ts),
+ * GLSL with mix(x, y, bool), TypeScript with the conditional operator.
+ */
+export type NodeKind = Node['kind'];
 
 export interface Program {
   readonly arithmetic: Arithmetic;

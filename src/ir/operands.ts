@@ -7,6 +7,7 @@ export function operands(n: Node): number[] {
     case 'input':
       return [];
     case 'neg':
+    case 'clamp':
       return [n.a];
     case 'add':
     case 'sub':
@@ -29,6 +30,8 @@ export function renumber(n: Node, f: (ref: number) => number): Node {
       return n;
     case 'neg':
       return { kind: 'neg', a: f(n.a) };
+    case 'clamp':
+      return { ...n, a: f(n.a) };
     case 'add':
     case 'sub':
     case 'mul':

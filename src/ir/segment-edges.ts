@@ -19,7 +19,7 @@
  * The builder (builder.ts) makes t as mul(sub(input, const c0), const invWidth);
  * its exact identities drop the sub when c0 is 0 and the mul when invWidth is
  * 1, so t is one of: input, sub(input, const), mul(input, const),
- * mul(sub(input, const), const). Any other shape is refused, not guessed at.
+ * mul(sub(input, const), const), where the input may be clamped to its range. Any other shape is refused, not guessed at.
  */
 import { Rational } from '../math/rational.js';
 import type { Arithmetic } from '../family/arithmetic.js';
@@ -125,10 +125,20 @@ function indexShape(nodes: readonly Node[], t: number): { input: number; c0: Rat
     const n = nodes[ref];
     return n?.kind === 'const' ? n.exact : refuse();
   };
+  // An argument, or an argument clamped to its range (inputs_outside_box: saturate), which
+  // is the argument itself inside the box the edges are sampled in.
+  const argument = (ref: number): number | null => {
+    const n = nodes[ref];
+    if (n?.kind === 'input') return n.index;
+    if (n?.kind === 'clamp' && nodes[n.a]?.kind === 'input') return (nodes[n.a] as { index: number }).index;
+    return null;
+  };
   const shifted = (ref: number): { input: number; c0: Rational } => {
     const n = nodes[ref];
-    if (n?.kind === 'input') return { input: n.index, c0: Rational.ZERO };
-    if (n?.kind === 'sub' && nodes[n.a]?.kind === 'input') return { input: (nodes[n.a] as { index: number }).index, c0: constAt(n.b) };
+    const direct = argument(ref);
+    if (direct !== null) return { input: direct, c0: Rational.ZERO };
+    const inner = n?.kind === 'sub' ? argument(n.a) : null;
+    if (n?.kind === 'sub' && inner !== null) return { input: inner, c0: constAt(n.b) };
     return refuse();
   };
   const n = nodes[t];

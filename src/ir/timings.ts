@@ -16,12 +16,14 @@
  *   VNEG.F32               1        neg
  *   VDIV.F32               14       div
  *   VLDR.F32 (single)      2        vldr
- *   VMOV core <- single    1        vmovToCore
+ *   VMOV core <- single    1        vmovToCore (and back)
+ *   VCMPE.F32              1        compare
+ *   VMRS APSR_nzcv, FPSCR  1        vmrs (the flags to the core, for a predicated MOV)
  *   integer ALU op         1        intOp (TRM 3.3, data processing)
  *   LDR (literal)          2        ldrLiteral
  *
  * x86-64: scalar SSE latencies of a recent core (addsd/mulsd 4, divsd 11-14,
- * xorpd 1, an L1 load 5), from memory of Agner Fog's instruction tables, not measured
+ * xorpd 1, an L1 load 5, ucomisd and SETcc about 3 + 1), from memory of Agner Fog's instruction tables, not measured
  * here. Latency, not throughput, is the right measure for Horner's rule,
  * which is one dependency chain.
  */
@@ -38,8 +40,12 @@ export const CORTEX_M4F_CYCLES = {
   div: 14,
   /** VLDR.F32 of one single-precision value: a literal-pool constant or a table entry. */
   vldr: 2,
-  /** VMOV of a single-precision register's bits to a core register. */
+  /** VMOV of a single-precision register's bits to a core register (or back). */
   vmovToCore: 1,
+  /** VCMPE.F32 (a clamp's comparison). */
+  compare: 1,
+  /** VMRS APSR_nzcv, FPSCR: a comparison's flags to the core. */
+  vmrs: 1,
   /** One integer data-processing instruction (ADD, AND, shifts, ...). */
   intOp: 1,
   /** LDR from the literal pool (a table's base address). */
@@ -66,4 +72,6 @@ export const X86_64_LATENCY = {
   tableRead: 5,
   /** One integer ALU instruction. */
   intOp: 1,
+  /** UCOMISS/UCOMISD and the SETcc that reads its flags (a clamp's comparison). */
+  compare: 4,
 } as const;

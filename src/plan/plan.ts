@@ -13,6 +13,7 @@ import { boxOf, type Cell } from './box.js';
 import { certifyBracket } from './bracket-check.js';
 import { candidatesOf, withCandidates } from './candidates.js';
 import { locate } from './locate.js';
+import { applyOutsideBox } from './outside-box.js';
 import { planSegments } from './plan-segments.js';
 import { searchSegments } from './segment-search.js';
 import { refuseWorkLimit } from './refusals.js';
@@ -32,7 +33,7 @@ export function makePlan(family: Family, options: PlanOptions = {}): Plan {
   if (family.fixed) throw new Error('a fixed32 family is planned by makeFixedPlan');
   startWork(options.onWork ?? null);
   try {
-    return planWithinLimit(family);
+    return applyOutsideBox(planWithinLimit(family));
   } catch (e) {
     if (e instanceof WorkLimitError) refuseWorkLimit(family);
     throw e;

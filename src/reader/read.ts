@@ -19,7 +19,7 @@ import { readInputs, type InputsSection } from './section-inputs.js';
 import { readPlan } from './section-plan.js';
 import { readRoot } from './section-root.js';
 import { readFixed } from './section-fixed.js';
-import type { Expr, Family, Pos } from '../family/types.js';
+import type { Expr, Family, OutsideBox, Pos } from '../family/types.js';
 import { ARITHMETICS, type Arithmetic } from '../family/arithmetic.js';
 import { parseSpecDocument } from './yaml-document.js';
 import { expectMap, refuseUnknownKeys, valueOf, type Entry } from './yaml-map.js';
@@ -37,12 +37,14 @@ export const SPEC_FIELDS = [
   'arithmetic',
   'fixed',
   'plan',
+  'inputs_outside_box',
 ] as const;
 
 const REQUIRED_FIELDS = ['function', 'unknown', 'degree', 'coefficients', 'inputs', 'accuracy', 'arithmetic'] as const;
 
 /** The arithmetics, in the table's order (src/family/arithmetic.ts), then fixed32 (src/reader/section-fixed.ts). */
 const ARITHMETIC: readonly (Arithmetic | 'fixed32')[] = [...(Object.keys(ARITHMETICS) as Arithmetic[]), 'fixed32'];
+const OUTSIDE_BOX: readonly OutsideBox[] = ['extrapolate', 'saturate'];
 
 /** Highest degree a spec may ask for. */
 export const MAX_DEGREE = 64;
@@ -84,6 +86,10 @@ export function readSpec(file: string, text: string, bytes?: Uint8Array): Family
   // fixed32: the planner's float stages work in float64 (see FixedFormat).
   const arithmetic: Arithmetic = named.value === 'fixed32' ? 'float64' : named.value;
   const plan = readPlan(ctx, field('plan'), positions, inputs.inputs.map((i) => i.name));
+  const outside = field('inputs_outside_box');
+  const outsideBox = outside
+    ? readChoice(ctx, valueOf(ctx, outside, 'extrapolate or saturate (or remove the field for extrapolate)'), 'inputs_outside_box', OUTSIDE_BOX).value
+    : 'extrapolate';
 
   return {
     file,
@@ -102,6 +108,7 @@ export function readSpec(file: string, text: string, bytes?: Uint8Array): Family
     arithmetic,
     ...(fixed ? { fixed } : {}),
     plan,
+    outsideBox,
     positions,
   };
 }

@@ -1,9 +1,12 @@
 /**
  * The documented shape of `verify --json` (README, "verify --json";
  * schema/verify.schema.json): the plan's claims (the `plan --json` object)
- * and one entry per check. JSON has no infinity: a worst error that is not
+ * and one entry per check, the branch count of the emitted C last (its
+ * `target` is "branches"). JSON has no infinity: a worst error that is not
  * finite is null with `worstFinite: false`.
  */
+import { TOOLCHAINS } from './branches.js';
+import type { VerifyResult } from './run.js';
 import type { CheckSummary } from './summary.js';
 
 export interface CheckJson {
@@ -19,9 +22,17 @@ export interface CheckJson {
   readonly pass: boolean;
 }
 
+/** The branch check: per toolchain found, the counts in the emitted C function. */
+export interface BranchCheckJson {
+  readonly target: 'branches';
+  readonly toolchains: readonly { readonly toolchain: string; readonly conditionalBranches: number; readonly calls: number; readonly jumps: number }[];
+  readonly pass: boolean;
+}
+
 export interface VerifyJson {
+  readonly generator: object;
   readonly plan: object;
-  readonly checks: readonly CheckJson[];
+  readonly checks: readonly (CheckJson | BranchCheckJson)[];
   readonly pass: boolean;
 }
 
@@ -41,6 +52,20 @@ export function checkJson(c: CheckSummary): CheckJson {
 }
 
 /** `pass` is the command's verdict: every check passed and every harness ran (one that did not is not in `checks`). */
-export function verifyJson(plan: object, checks: readonly CheckSummary[], pass: boolean): VerifyJson {
-  return { plan, checks: checks.map(checkJson), pass: pass && checks.every((c) => c.pass) };
+export function verifyJson(plan: { readonly generator: object }, result: VerifyResult): VerifyJson {
+  const branches: BranchCheckJson[] = result.branches
+    ? [
+        {
+          target: 'branches',
+          toolchains: result.branches.reports.map((r) => ({
+            toolchain: TOOLCHAINS[r.target].label,
+            conditionalBranches: r.count.conditionalBranches,
+            calls: r.count.calls,
+            jumps: r.count.jumps,
+          })),
+          pass: result.branches.pass,
+        },
+      ]
+    : [];
+  return { generator: plan.generator, plan, checks: [...result.checks.map(checkJson), ...branches], pass: result.pass };
 }

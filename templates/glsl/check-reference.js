@@ -1,13 +1,11 @@
-// The exact reference of the GLSL page (templates/glsl/check.html.hbs): the
-// same machinery as the TypeScript harness (templates/ts/check.ts.hbs, from
-// which it was transpiled, types removed), in plain JavaScript for a browser.
-// Keep the two in step: exact BigInt fractions, the bisection reference of
-// src/verify/reference.ts, the resolution rule of src/verify/measure.ts and
-// C's %.1e / %.9g of src/verify/printf.ts. The GLSL harness tests check that
-// this page prints exactly the in-process summary line.
+// The exact reference of this GLSL page: the same machinery as the
+// TypeScript harness NAME.check.ts, in plain JavaScript for a browser:
+// exact BigInt fractions, the bisection reference, the resolution rule and
+// C's %.1e / %.9g (README, "How the checks work"). It prints exactly the
+// summary line of the in-process check.
 // ---- Exact fractions over BigInt, n / d with d > 0, deliberately not kept in
 // lowest terms: the per-point numbers are dyadic and a gcd after every
-// operation would cost more than the bisection (src/verify/fraction.ts).
+// operation would cost more than the bisection (README, "How the checks work").
 function rc_q(n, d) {
     if (d === 0n)
         throw new RangeError('division by zero in a coefficient');
@@ -86,7 +84,7 @@ function rc_toDoubleUp(q) {
         return Infinity;
     return Number(m) * 2 ** k;
 }
-// ---- The exact reference root (src/verify/reference.ts): the grid cell
+// ---- The exact reference root (README, "How the checks work"): the grid cell
 // [X, X + 1] / 2^s where the sign changes, every sign decided exactly by
 // Horner's rule on integers, A(X) = 2^(s n) P(X / 2^s) = sum_k C_k X^k 2^(s (n - k)).
 function rc_floorDiv(a, b) {
@@ -107,7 +105,7 @@ function rc_signAtRational(c, p, q) {
 /**
  * A root interval of width <= 2^-s inside [lo, hi], or null when P(lo), P(hi)
  * are non-zero with one sign. `hint` (the value under test) starts the Newton
- * shortcut of src/verify/reference.ts; bisection when it does not settle.
+ * shortcut described in README, "How the checks work"; bisection when it does not settle.
  */
 function rc_referenceRoot(coeffs, lo, hi, s, hint) {
     // Integer coefficients: every c_k times the product of all denominators (> 0, signs kept).
@@ -204,7 +202,7 @@ function rc_newtonCell(scaled, start, left, right, signLeft, signAt) {
     }
     return null;
 }
-/** s with 2^-s = 2^(e - rc_referenceBits), 2^e <= max(|x|, B, 2^-1000) < 2^(e+1), s >= 0 (src/verify/measure.ts). */
+/** s with 2^-s = 2^(e - rc_referenceBits), 2^e <= max(|x|, B, 2^-1000) < 2^(e+1), s >= 0 (README, "How the checks work"). */
 function rc_gridExponent(x) {
     const scale = Math.max(Math.abs(x), rc_absoluteBound, 2 ** -1000);
     let e = 0;
@@ -219,7 +217,7 @@ function rc_gridExponent(x) {
     }
     return Math.max(0, rc_referenceBits - e);
 }
-// ---- C's %.Ne and %.Pg, digit for digit (src/verify/printf.ts): the exact
+// ---- C's %.Ne and %.Pg, digit for digit (README, "How the checks work"): the exact
 // binary value rounded half to even, C's exponent width and %g layout.
 function rc_cmpPow10(num, den, k) {
     const a = k >= 0 ? num : num * 10n ** BigInt(-k);

@@ -87,7 +87,7 @@ describe('help and bad usage', () => {
     const r = usage.get('help')!;
     expect(r.stderr).toBe('');
     expect(r.code).toBe(0);
-    for (const cmd of ['new <name>', 'plan <spec>', 'emit <spec>', 'verify <spec>']) expect(r.stdout).toContain(`rootcast ${cmd}`);
+    for (const cmd of ['new <name>', 'plan <specs..>', 'emit <specs..>', 'verify <specs..>']) expect(r.stdout).toContain(`rootcast ${cmd}`);
   });
 
   test('an unknown command, an unknown option, a missing argument or no command exits 2 with one line', () => {

@@ -84,8 +84,8 @@ describe('the planner refuses an impossible plan in one line, exit code 2, nothi
     return line;
   }
 
-  test('plan --json refuses with the same one line as emit and prints no JSON', () => {
-    expectSpecRefusal(bracketJson);
+  test('plan --json refuses with the same one line as emit, and prints it as one JSON refusal object', () => {
+    expectSpecRefusal(bracketJson, true);
     expect(bracketJson.stderr).toBe(emits.get('bracket-no-sign-change.yaml')!.run.stderr);
   });
 
@@ -191,7 +191,7 @@ describe('the planner refuses an impossible plan in one line, exit code 2, nothi
       return spec;
     };
     const [below, at] = await runMany([{ args: ['plan', withOrder(needed - 1), '--json'] }, { args: ['plan', withOrder(needed), '--json'] }]);
-    const belowLine = expectSpecRefusal(below!);
+    const belowLine = expectSpecRefusal(below!, true);
     expect(belowLine.field).toBe('plan.max_order');
     expect(belowLine.message).toContain(`needs order ${needed};`);
     expect(at!.stderr).toBe('');

@@ -109,9 +109,24 @@ export function expectRefusal(r: CliRun): string {
   return oneLine(r.stderr);
 }
 
-/** A refusal whose one line is located in a spec file. */
-export function expectSpecRefusal(r: CliRun): SpecLine {
-  const line = expectRefusal(r);
+/**
+ * A refusal under `plan --json` or `verify --json`: exit 2, the one line on
+ * stderr, and on stdout one refusal object carrying the same location and
+ * message (schema/refusal.schema.json).
+ */
+export function expectJsonRefusal(r: CliRun): string {
+  expect(r.code).toBe(2);
+  const line = oneLine(r.stderr);
+  const o = JSON.parse(r.stdout) as { exitCode: number; refusal: { file: string | null; line: number | null; column: number | null; field: string | null; message: string } };
+  expect(o.exitCode).toBe(2);
+  const f = o.refusal;
+  expect(f.file === null ? `rootcast: ${f.message}` : `${f.file}:${f.line}:${f.column}: ${f.field}: ${f.message}`).toBe(line);
+  return line;
+}
+
+/** A refusal whose one line is located in a spec file (`json`: printed under --json, so stdout holds its object). */
+export function expectSpecRefusal(r: CliRun, json = false): SpecLine {
+  const line = json ? expectJsonRefusal(r) : expectRefusal(r);
   const m = SPEC_LINE.exec(line);
   expect({ line, matches: m !== null }).toEqual({ line, matches: true });
   const g = m!.groups!;

@@ -88,7 +88,7 @@ describe('headerLines', () => {
   });
 
   test('refuses a plan whose op counts differ from the program it printed', () => {
-    const input = demoInput(program, {}, { ops: { add: 1, mul: 6, div: 0, tableReads: 0, intOps: 0 } });
+    const input = demoInput(program, {}, { ops: { add: 1, mul: 6, div: 0, tableReads: 0, intOps: 0, compares: 0 } });
     expect(() => headerLines(input, 'C function')).toThrow(/plan claims 1 add operations but the program has 6/);
   });
 

@@ -9,7 +9,7 @@ const slots = {
   name: 'demo',
   parameters: 'float x',
   bodyLines: ['return x;'],
-  batchParameters: 'const float *restrict x, float *restrict rc_out, size_t rc_n',
+  batchParameters: 'const float *ROOTCAST_RESTRICT x, float *ROOTCAST_RESTRICT rc_out, size_t rc_n',
   batchArguments: '*x++',
   tableLines: [] as string[],
 };
@@ -18,9 +18,14 @@ describe('renderTemplate', () => {
   test('places the slots of the C function template', () => {
     const text = renderTemplate('c/function.h.hbs', slots);
     expect(text).toBe(
-      '#ifndef ROOTCAST_DEMO_H\n#define ROOTCAST_DEMO_H\n\n/*\n * demo\n */\n\n#include <stddef.h>\n#include <stdint.h>\n\nstatic inline float demo(float x)\n{\n    return x;\n}\n\n' +
+      '#ifndef ROOTCAST_DEMO_H\n#define ROOTCAST_DEMO_H\n\n/*\n * demo\n */\n\n#include <stddef.h>\n#include <stdint.h>\n\n' +
+        "// Reads a float's bits (defined in C and C++, unlike a union pun in C++);\n// gcc and clang need no <string.h>, so freestanding builds work too.\n" +
+        '#ifndef ROOTCAST_MEMCPY\n#if defined(__GNUC__) || defined(__clang__)\n#define ROOTCAST_MEMCPY __builtin_memcpy\n#else\n#include <string.h>\n#define ROOTCAST_MEMCPY memcpy\n#endif\n#endif\n\n' +
+        "// restrict is C99's; C++ compilers spell it __restrict.\n" +
+        '#ifndef ROOTCAST_RESTRICT\n#ifdef __cplusplus\n#define ROOTCAST_RESTRICT __restrict\n#else\n#define ROOTCAST_RESTRICT restrict\n#endif\n#endif\n\n' +
+        'static inline float demo(float x)\n{\n    return x;\n}\n\n' +
         '// rc_out[i] = demo(each input[i]) for i < rc_n; the arrays must not overlap.\n' +
-        'static inline void demo_batch(const float *restrict x, float *restrict rc_out, size_t rc_n)\n{\n    while (rc_n--) {\n        *rc_out++ = demo(*x++);\n    }\n}\n\n' +
+        'static inline void demo_batch(const float *ROOTCAST_RESTRICT x, float *ROOTCAST_RESTRICT rc_out, size_t rc_n)\n{\n    while (rc_n--) {\n        *rc_out++ = demo(*x++);\n    }\n}\n\n' +
         '#endif /* ROOTCAST_DEMO_H */\n',
     );
   });

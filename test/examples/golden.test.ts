@@ -83,7 +83,7 @@ describe('generated-samples/ is what the emitter writes today', () => {
 
   test.each(EXAMPLES)('%s: the headers name the spec without an absolute path', (file) => {
     // The header may name the spec by the relative path it was given or by its file name alone.
-    const named = new RegExp(`from (?:examples/)?${file.replace(/[.]/g, '\\.')} \\(sha256 [0-9a-f]+\\)`);
+    const named = new RegExp(`from (?:examples/(?:fixed32/)?)?${file.replace(/^fixed32\//, '').replace(/[.]/g, '\\.')} \\(sha256 [0-9a-f]+\\)`);
     for (const f of firstEmit(file)) {
       expect(f.text).toMatch(named);
       expect(f.text).not.toContain(REPO_ROOT);

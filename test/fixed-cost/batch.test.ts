@@ -28,9 +28,9 @@ describe('C NAME_batch', () => {
   test('the signature takes restrict input arrays, the output and a count', () => {
     const text = cFunction(demoInput(quadraticSeries('float32').program)).text;
     expect(text).toContain(
-      'static inline void bridge_strain_batch(const float *restrict a, const float *restrict b, const float *restrict c, float *restrict rc_out, size_t rc_n)',
+      'static inline void bridge_strain_batch(const float *ROOTCAST_RESTRICT a, const float *ROOTCAST_RESTRICT b, const float *ROOTCAST_RESTRICT c, float *ROOTCAST_RESTRICT rc_out, size_t rc_n)',
     );
-    expect(cFunction(demoInput(quadraticSeries('float64').program)).text).toContain('double *restrict rc_out, size_t rc_n)');
+    expect(cFunction(demoInput(quadraticSeries('float64').program)).text).toContain('double *ROOTCAST_RESTRICT rc_out, size_t rc_n)');
   });
 
   test.each(ARITHMETIC_NAMES)('gives the scalar results bit for bit, compiled with -std=c99 -pedantic -Werror at -O3 (%s)', (arithmetic) => {

@@ -63,8 +63,9 @@ describe('emit is deterministic and --check finds stale output', () => {
     const stale = snapshot(out);
     const bad = await runBuilt(['emit', spec, '--target', 'all', '--out', out, '--check']);
     expect(bad.code).toBe(1);
-    expect(bad.stdout).toContain(`${out}/kiln_probe_celsius.h`);
-    expect(bad.stdout).toContain(`${out}/kiln_probe_celsius.check.ts`);
+    expect(bad.stdout).toContain(`${out}/kiln_probe_celsius.h (edited)`);
+    expect(bad.stdout).toContain(`${out}/kiln_probe_celsius.check.ts (missing)`);
+    expect(bad.stdout).toContain(`(regenerate with rootcast emit ${spec} --target all --out ${out})`);
     expect(bad.stdout).not.toContain('kiln_probe_celsius_check.c');
     expect(snapshot(out)).toEqual(stale);
 
@@ -75,7 +76,7 @@ describe('emit is deterministic and --check finds stale output', () => {
     writeFileSync(join(cwd, 'kiln.yaml'), `${readFileSync(join(REPO, spec), 'utf8')}# a comment changes the hash\n`);
     const r = await runBuilt(['emit', 'kiln.yaml', '--target', 'c', '--out', 'gen', '--check'], cwd);
     expect(r.code).toBe(1);
-    expect(r.stdout).toContain('gen/kiln_probe_celsius.h, gen/kiln_probe_celsius_check.c');
+    expect(r.stdout).toContain('gen/kiln_probe_celsius.h (spec changed), gen/kiln_probe_celsius_check.c (spec changed)');
 
     // An empty directory: every file is missing, and --check still creates nothing.
     const empty = tempDir('check-empty');

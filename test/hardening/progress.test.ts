@@ -31,7 +31,7 @@ describe('verify shows a progress bar on a terminal only', () => {
   test('on a TTY the bar is drawn and cleared; the summary lines still go to stdout', () => {
     const tty = fakeTty(true);
     const lines: string[] = [];
-    const code = runVerify({ spec: 'examples/kiln-probe.yaml', target: 'ts', samples: 3000, seed: 1, progress: tty }, (l) => lines.push(l));
+    const code = runVerify({ specs: ['examples/kiln-probe.yaml'], target: 'ts', samples: 3000, seed: 1, progress: tty }, (l) => lines.push(l));
     expect(code).toBe(0);
     expect(tty.text).toContain('check kiln_probe_celsius (in-process) [');
     expect(tty.text).toContain('/3000 points');

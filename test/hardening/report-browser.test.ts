@@ -12,6 +12,7 @@ import { afterAll, beforeAll, describe, expect, test } from '@jest/globals';
 import { existsSync, readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { chromium, type BrowserContext } from 'playwright-core';
+import { reportHtml } from '../../src/verify/report/html.js';
 import { REPO, ensureBuilt, removeTempDirs, runBuilt, tempDir } from './support/cli.js';
 
 const ARGS = ['--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'];
@@ -131,6 +132,43 @@ describe('verify --report draws the measured error', () => {
     await page.close();
     const stats = await pixelStats(readFileSync(shot));
     expect(stats.variance).toBeGreaterThan(100);
+  }, 120_000);
+
+  test('1024 segments: the edges become ticks under the plot, and the plot area stays mostly white (no striped block)', async () => {
+    // Invented data: an error curve over [0, 1] cut into 1024 equal segments, as a wide segmented plan would give.
+    const edges = Array.from({ length: 1023 }, (_, j) => (j + 1) / 1024);
+    const points = Array.from({ length: 4000 }, (_, i) => ({ at: [i / 3999], error: 2e-5 * (1 + Math.sin(i / 50) ** 2) }));
+    const html = reportHtml({
+      functionName: 'demo_wide',
+      spec: 'demo-wide.yaml',
+      arithmetic: 'float32',
+      kind: 'absolute',
+      bound: 8.5e-5,
+      target: 1e-4,
+      inputs: [{ name: 'u', lo: 0, hi: 1 }],
+      edges: [edges],
+      points,
+      checks: [],
+    });
+    const dir = tempDir('report-1024');
+    const file = join(dir, 'wide.html');
+    writeFileSync(file, html);
+    const page = await context.newPage();
+    await page.goto(`file://${file}`);
+    expect(await page.locator('svg line.segment-edge').count()).toBe(0);
+    const ticks = (await page.locator('svg path.segment-edge-ticks').getAttribute('d')) ?? '';
+    expect(ticks.split('M').length - 1).toBe(1023);
+    const frame = page.locator('svg rect.frame');
+    const box = (await frame.boundingBox())!;
+    const shot = await page.screenshot({ clip: { x: box.x + 2, y: box.y + 2, width: box.width - 4, height: box.height - 4 } });
+    writeFileSync(join(dir, 'wide-plot.png'), shot);
+    if (process.env['ROOTCAST_KEEP_SHOT']) writeFileSync(process.env['ROOTCAST_KEEP_SHOT'], await page.screenshot({ fullPage: true }));
+    await page.close();
+    // Inside the frame: the data line, the bound and target lines and a few grid lines; with 1023 full-height
+    // dashed edges (the old drawing) more than half the pixels were grey.
+    const stats = await pixelStats(shot);
+    expect(stats.mean).toBeGreaterThan(235);
+    expect(stats.variance).toBeGreaterThan(10);
   }, 120_000);
 
   test('the report is the same bytes for the same run, and is not written when the spec is refused', async () => {

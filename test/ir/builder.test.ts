@@ -40,7 +40,7 @@ describe('program builder', () => {
     b.mul(x, x); // dead
     const r = b.add(b.mul(x, b.const(Rational.int(3))), b.const(Rational.int(2)));
     const p = b.finish(r);
-    expect(countOps(p)).toEqual({ add: 1, mul: 1, div: 0, tableReads: 0, intOps: 0 });
+    expect(countOps(p)).toEqual({ add: 1, mul: 1, div: 0, tableReads: 0, intOps: 0, compares: 0 });
     p.nodes.forEach((n, i) => {
       for (const r of operands(n)) expect(r).toBeLessThan(i);
     });

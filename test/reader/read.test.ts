@@ -44,6 +44,7 @@ describe('readSpec on the kiln example of DESIGN.md section 3', () => {
       accuracy: { kind: 'absolute', value: '0.001' },
       arithmetic: 'float32',
       plan: { maxOrder: 40, segments: 'auto', maxTableBytes: 4096, newtonSteps: 'auto' },
+      outsideBox: 'extrapolate',
     } satisfies Omit<Family, 'positions' | 'specHash'>);
     expect(specHash).toMatch(/^[0-9a-f]{64}$/);
   });
@@ -139,6 +140,13 @@ describe('readSpec refusals of the whole spec', () => {
   test('an arithmetic other than float32 or float64 is refused', () => {
     expectRefusal(edit(15, 'arithmetic: double'), 'spec.yaml:15:13: arithmetic: ', '`double` is not float32 or float64 or fixed32; write float32 or float64 or fixed32');
     expectRefusal(edit(15, 'arithmetic: float33'), 'spec.yaml:15:13: arithmetic: ', 'did you mean `float32`?');
+  });
+
+  test('inputs_outside_box is extrapolate unless the spec says saturate; any other word is refused with its position', () => {
+    expect(readSpec('spec.yaml', baseText()).outsideBox).toBe('extrapolate');
+    expect(readSpec('spec.yaml', edit(15, 'arithmetic: float32\ninputs_outside_box: saturate')).outsideBox).toBe('saturate');
+    expectRefusal(edit(15, 'arithmetic: float32\ninputs_outside_box: clamp'), 'spec.yaml:16:21: inputs_outside_box: ', '`clamp` is not extrapolate or saturate');
+    expectRefusal(edit(15, 'arithmetic: float32\ninputs_outside_box: saturat'), 'spec.yaml:16:21: inputs_outside_box: ', 'did you mean `saturate`?');
   });
 
   test('a function name that is a number is refused', () => {

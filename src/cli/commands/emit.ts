@@ -1,39 +1,78 @@
-/** `rootcast emit SPEC --target c|ts|all --out DIR [--check]`. */
-import { staleFiles, writeFiles } from '../files.js';
-import { emitInputOf, planSpec } from '../pipeline.js';
-import { fixedFamilyOf } from '../fixed/pipeline.js';
+/**
+ * `rootcast emit SPEC... --target c|ts|glsl|all --out DIR [--check] [--no-harness] [--depfile FILE]`.
+ * Each spec is handled on its own: a refused spec prints its one line and the
+ * others are still emitted or checked; the exit code is the worst one.
+ */
+import { basename, dirname } from 'node:path';
+import { RootcastError } from '../../errors.js';
+import { checkOutputs } from '../check.js';
+import { depfileText, type DepRule } from '../depfile.js';
+import { writeFiles } from '../files.js';
 
 export interface EmitOptions {
-  spec: string;
+  specs: readonly string[];
   target: string;
   out: string;
   check: boolean;
+  harness: boolean;
+  depfile?: string;
 }
 
-/** Returns the exit code; prints what it wrote or what is stale. */
-export async function runEmit(o: EmitOptions, print: (line: string) => void): Promise<number> {
-  const fixed = fixedFamilyOf(o.spec);
+type Print = (line: string) => void;
+
+/** Returns the exit code; prints what it wrote or what is stale, and refusals on `printError`. */
+export async function runEmit(o: EmitOptions, print: Print, printError: Print): Promise<number> {
+  let code = 0;
+  const rules: DepRule[] = [];
+  for (const spec of o.specs) {
+    try {
+      code = Math.max(code, o.check ? checkOne(spec, o, print, o.specs.length > 1) : await emitOne(spec, o, print, rules));
+    } catch (e) {
+      if (!(e instanceof RootcastError)) throw e;
+      printError(e.toLine());
+      code = Math.max(code, e.exitCode);
+    }
+  }
+  // Like a compiler's -MF: the dependency file is written only when every spec was emitted.
+  if (o.depfile !== undefined && !o.check && code === 0) writeFiles(dirname(o.depfile), [{ path: basename(o.depfile), text: depfileText(rules) }]);
+  return code;
+}
+
+async function emitOne(spec: string, o: EmitOptions, print: Print, rules: DepRule[]): Promise<number> {
+  const { fixedFamilyOf } = await import('../fixed/pipeline.js');
+  const fixed = fixedFamilyOf(spec);
   let files;
   if (fixed) {
+    // fixed32 specs: their own printers (no stamp line yet, so --check re-reads them as stale).
     const { fixedEmitInputOf, fixedFiles } = await import('../fixed/pipeline.js');
     const { makeFixedPlan } = await import('../../plan/fixed/plan-fixed.js');
     files = fixedFiles(fixedEmitInputOf(makeFixedPlan(fixed)), o.target === 'all' ? ['c', 'ts'] : [o.target]);
   } else {
-    const plan = planSpec(o.spec);
-    // The printers (and the TypeScript compiler they load) only after the spec is known to be good.
+    const { emitInputOf, planSpec } = await import('../pipeline.js');
+    const plan = planSpec(spec);
+    // The printers only after the spec is known to be good.
     const { emitFiles, targetsOf } = await import('../emit-files.js');
-    files = emitFiles(emitInputOf(plan), targetsOf(o.target));
-  }
-  if (o.check) {
-    const stale = staleFiles(o.out, files);
-    if (stale.length === 0) {
-      print(`up to date: ${files.length} files in ${o.out}`);
-      return 0;
-    }
-    print(`out of date (regenerate with rootcast emit ${o.spec} --target ${o.target} --out ${o.out}): ${stale.join(', ')}`);
-    return 1;
+    files = emitFiles(emitInputOf(plan), targetsOf(o.target), { harness: o.harness });
   }
   writeFiles(o.out, files);
-  for (const f of files) print(`wrote ${o.out.replace(/\/$/, '')}/${f.path}`);
+  const dir = o.out.replace(/\/$/, '');
+  for (const f of files) print(`wrote ${dir}/${f.path}`);
+  rules.push({ outputs: files.map((f) => `${dir}/${f.path}`), input: spec });
   return 0;
+}
+
+function checkOne(spec: string, o: EmitOptions, print: Print, several: boolean): number {
+  const r = checkOutputs(spec, o.out, { target: o.target, harness: o.harness });
+  if (r.stale.length === 0 && r.leftOver.length === 0) {
+    print(`up to date: ${r.expected.length} files in ${o.out}${several ? ` (from ${spec})` : ''}`);
+    return 0;
+  }
+  if (r.stale.length > 0) {
+    const command = `rootcast emit ${spec} --target ${o.target}${o.harness ? '' : ' --no-harness'} --out ${o.out}`;
+    print(`out of date (regenerate with ${command}): ${r.stale.map((s) => `${s.path} (${s.why})`).join(', ')}`);
+  }
+  if (r.leftOver.length > 0) {
+    print(`left over (${spec} no longer produces these; delete them): ${r.leftOver.join(', ')}`);
+  }
+  return 1;
 }

@@ -2,13 +2,52 @@
 import { formatBoundUp } from '../../emit/literals/round-up.js';
 import { equationText } from '../../emit/header.js';
 import type { Plan } from '../../plan/plan.js';
-import { claimsOf } from '../pipeline.js';
+import { RootcastError } from '../../errors.js';
+import { claimsOf, planSpec } from '../pipeline.js';
+import { GENERATOR, jsonOutput, refusalJson } from '../refusal-json.js';
+import { fixedFamilyOf } from '../fixed/pipeline.js';
+import { fixedPlanJson, fixedPlanText } from '../fixed/plan.js';
+import { makeFixedPlan } from '../../plan/fixed/plan-fixed.js';
+
+/**
+ * `rootcast plan SPEC... [--json]`: each spec on its own; a refused spec
+ * prints its one line on stderr (and, with --json, its refusal object in the
+ * output) while the others are still planned. Returns the worst exit code.
+ */
+export function runPlan(o: { specs: readonly string[]; json: boolean }, print: (line: string) => void, printError: (line: string) => void): number {
+  let code = 0;
+  const results: object[] = [];
+  const texts: string[] = [];
+  for (const spec of o.specs) {
+    try {
+      const fixed = fixedFamilyOf(spec);
+      if (fixed) {
+        const plan = makeFixedPlan(fixed);
+        if (o.json) results.push(fixedPlanJson(plan) as object);
+        else texts.push(fixedPlanText(plan));
+        continue;
+      }
+      const plan = planSpec(spec);
+      if (o.json) results.push(planJson(plan));
+      else texts.push(planText(plan));
+    } catch (e) {
+      if (!(e instanceof RootcastError)) throw e;
+      printError(e.toLine());
+      if (o.json) results.push(refusalJson(e, spec));
+      code = Math.max(code, e.exitCode);
+    }
+  }
+  if (o.json) print(jsonOutput(results));
+  else if (texts.length > 0) print(texts.join('\n\n'));
+  return code;
+}
 import { COST_MODELS } from '../../ir/cost/index.js';
 
 /** The documented shape of `plan --json` (see README, "plan --json"). */
-export function planJson(plan: Plan): object {
+export function planJson(plan: Plan): { readonly generator: typeof GENERATOR; readonly [field: string]: unknown } {
   const c = claimsOf(plan);
   return {
+    generator: GENERATOR,
     function: plan.family.functionName,
     spec: plan.family.file,
     specSha256: plan.family.specHash,
@@ -83,9 +122,9 @@ export function planText(plan: Plan): string {
       `${b.kind}: truncation ${formatBoundUp(b.truncation)}${b.economisation === undefined ? '' : ` + economisation ${formatBoundUp(b.economisation)}`} + rounding ${formatBoundUp(b.rounding)} -> total ${formatBoundUp(b.total)}`,
     ],
     ['target', `${f.accuracy.value} (${f.accuracy.kind})`],
-    ['ops', `${c.ops.add} add, ${c.ops.mul} mul, ${c.ops.div} div, ${c.ops.tableReads} table reads`],
+    ['ops', `${c.ops.add} add, ${c.ops.mul} mul, ${c.ops.div} div, ${c.ops.tableReads} table reads${c.ops.compares > 0 ? `, ${c.ops.compares} compares (inputs saturated)` : ''}`],
     ['segments', `${plan.counts.join(' x ')} (${plan.tableBytes} table bytes)`],
-    ['cost', `${plan.cost} (${COST_MODELS[plan.costModel].unit}; src/ir/cost/)`],
+    ['cost', `${plan.cost} (${COST_MODELS[plan.costModel].unit}; README, "How the planner chooses")`],
   ];
   return [
     `${f.functionName}`,

@@ -27,6 +27,7 @@ export function cBodyLines(program: Program, name: string): string[] {
   program.nodes.forEach((node, i) => {
     if (node.kind === 'index') lines.push(...cIndexLines(program, node.parts, i, name));
     else if (node.kind === 'table') lines.push(...cTableLines(program, node, i, name));
+    else if (node.kind === 'clamp') lines.push(...cClampLines(program, node, i));
     else {
       const rhs = cExpression(program, node, i);
       if (rhs !== null) lines.push(`const ${type} ${valueName(i)} = ${rhs};`);
@@ -60,10 +61,14 @@ function cExpression(program: Program, node: Node, at: number): string | null {
 
 /**
  * The segment number (SEGMENT INDEX in src/ir/nodes.ts): round by adding the
- * magic constant, read the bits through a union (defined behaviour for every
- * value, NaN included), clamp with integer operations. gcc compiles this
- * without branches (TOOLCHAIN.md: integer clamps written with bit operations).
- * Right shifts of negative int32_t are arithmetic in gcc and clang.
+ * magic constant, copy the bits to an unsigned integer with ROOTCAST_MEMCPY
+ * (the template's memcpy: gcc's builtin, else <string.h>; defined
+ * behaviour in C99 and in C++ for every value, NaN included; a union pun is
+ * undefined in C++), clamp with integer operations. gcc turns the fixed-size
+ * memcpy into one register move and compiles the rest without branches
+ * (TOOLCHAIN.md: integer clamps written with bit operations). Right shifts of
+ * negative int32_t are arithmetic in gcc and clang (implementation-defined in
+ * C99, defined in C++20).
  */
 function cIndexLines(program: Program, parts: readonly IndexPart[], at: number, name: string): string[] {
   const a = ARITHMETICS[program.arithmetic];
@@ -74,11 +79,13 @@ function cIndexLines(program: Program, parts: readonly IndexPart[], at: number, 
     const t = cReference(program, p.t, at);
     const s = `rc_s${at}_${k}`;
     const magic = cLiteral(a.segmentMagic, program.arithmetic);
-    lines.push(`union { ${a.cType} f; ${a.cBitsType} u; } ${s}b = { ${t} + ${magic} };`);
+    lines.push(`const ${a.cType} ${s}f = ${t} + ${magic};`);
+    lines.push(`${a.cBitsType} ${s}b;`);
+    lines.push(`ROOTCAST_MEMCPY(&${s}b, &${s}f, sizeof ${s}b);`);
     lines.push(
       significand
-        ? `const int32_t ${s}r = (int32_t)(${s}b.u & 0x7fffffu) - 0x400000;`
-        : `const int32_t ${s}r = (int32_t)(uint32_t)(${s}b.u & 0xffffffffu);`,
+        ? `const int32_t ${s}r = (int32_t)(${s}b & 0x7fffffu) - 0x400000;`
+        : `const int32_t ${s}r = (int32_t)(uint32_t)(${s}b & 0xffffffffu);`,
     );
     lines.push(`const int32_t ${s}p = ${s}r & ~(${s}r >> 31);`);
     lines.push(`const int32_t ${s}d = ${s}p - ${p.count - 1};`);
@@ -93,6 +100,30 @@ function cIndexLines(program: Program, parts: readonly IndexPart[], at: number, 
   });
   lines.push(`const int32_t ${valueName(at)} = ${terms.join(' + ')};`);
   return lines;
+}
+
+/**
+ * An argument saturated to its range (CLAMP in src/ir/nodes.ts). Each
+ * comparison gives 0 or 1, negated into an all-zeros or all-ones mask, and
+ * the masks pick the bits of x, lo or hi. gcc -O2 compiles this without a
+ * conditional branch: SETcc on x86-64, IT-predicated MOVs on Cortex-M4F (a
+ * float conditional operator or fminf/fmaxf would not be: TOOLCHAIN.md). A
+ * NaN fails both comparisons and keeps its own bits.
+ */
+function cClampLines(program: Program, node: Extract<Node, { kind: 'clamp' }>, at: number): string[] {
+  const facts = ARITHMETICS[program.arithmetic];
+  const type = facts.cType;
+  const bits = facts.cBitsType;
+  const x = cReference(program, node.a, at);
+  const lo = cLiteral(node.lo, program.arithmetic);
+  const hi = cLiteral(node.hi, program.arithmetic);
+  const s = `rc_c${at}`;
+  return [
+    `const union { ${type} f; ${bits} u; } ${s}x = { ${x} }, ${s}lo = { ${lo} }, ${s}hi = { ${hi} };`,
+    `const ${bits} ${s}below = -(${bits})(${x} < ${lo}), ${s}above = -(${bits})(${x} > ${hi});`,
+    `const union { ${bits} u; ${type} f; } ${s} = { (${s}x.u & ~(${s}below | ${s}above)) | (${s}lo.u & ${s}below) | (${s}hi.u & ${s}above) };`,
+    `const ${type} ${valueName(at)} = ${s}.f;`,
+  ];
 }
 
 /** The file-scope name of the coarse-cell table of part k of index node `at`. */
@@ -121,8 +152,10 @@ function cTableMacro(name: string): string {
  * With gcc and clang they are weak definitions: every translation unit that
  * includes the header emits the same table, and the linker keeps one copy
  * per program (ELF and Mach-O weak symbols); the header stays self-contained
- * and the function stays `static inline`. Other compilers get `static const`
- * (one copy per translation unit that reads it, as before).
+ * and the function stays `static inline`. In C++ a namespace-scope const has
+ * internal linkage, which a weak symbol cannot have, so there the macro adds
+ * `extern` (ISO/IEC 14882:2017 [basic.link] 6.5/3). Other compilers get
+ * `static const` (one copy per translation unit that reads it, as before).
  */
 export function cTableDefinitions(program: Program, name: string): string[] {
   const type = ARITHMETICS[program.arithmetic].cType;
@@ -132,7 +165,9 @@ export function cTableDefinitions(program: Program, name: string): string[] {
     '/* The segment tables, at file scope: gcc and clang keep one copy per program',
     '   (weak definitions, merged by the linker); other compilers one per',
     '   translation unit. */',
-    '#if defined(__GNUC__)',
+    '#if defined(__GNUC__) && defined(__cplusplus)',
+    `#define ${macro} extern __attribute__((weak)) const`,
+    '#elif defined(__GNUC__)',
     `#define ${macro} __attribute__((weak)) const`,
     '#else',
     `#define ${macro} static const`,

@@ -4,8 +4,13 @@
  * allocation. The framing comes from templates/c/function.h.hbs; the body is
  * printed from the IR (body.ts).
  *
+ * The header also compiles as C++ (C++17 and later): `restrict` is spelled
+ * through the macro ROOTCAST_RESTRICT (`restrict` in C, gcc's and clang's
+ * `__restrict` in C++), and the segment index reads a float's bits with
+ * memcpy, which both languages define.
+ *
  * Beside it, NAME_batch(in1, ..., rc_out, rc_n): a loop over the scalar
- * function. The pointers are `restrict` (C99 6.7.3.1: the arrays do not
+ * function. The pointers are restrict (C99 6.7.3.1: the arrays do not
  * overlap), so gcc -O3 vectorises the loop on x86-64 without a run-time
  * overlap check (test/fixed-cost/examples.test.ts shows it; segmented float64
  * programs are the known exception). Its locals start with rc_, a shape no
@@ -33,7 +38,7 @@ export function cFunction(input: EmitInput): EmittedFile {
     parameters,
     bodyLines: cBodyLines(program, name),
     tableLines: cTableDefinitions(program, name),
-    batchParameters: [...program.inputs.map((n) => `const ${type} *restrict ${n}`), `${type} *restrict rc_out`, 'size_t rc_n'].join(', '),
+    batchParameters: [...program.inputs.map((n) => `const ${type} *ROOTCAST_RESTRICT ${n}`), `${type} *ROOTCAST_RESTRICT rc_out`, 'size_t rc_n'].join(', '),
     batchArguments: program.inputs.map((n) => `*${n}++`).join(', '),
   });
   return { path: `${name}.h`, text };

@@ -51,6 +51,7 @@ export function vectorNodes(program: Program, shape: GlslShape): boolean[] {
         vector.push(shape === 'vec4');
         break;
       case 'neg':
+      case 'clamp':
         vector.push(vector[n.a] === true);
         break;
       case 'add':
@@ -90,6 +91,8 @@ function glslNodeLines(program: Program, node: Node, at: number, vector: readonl
       return local(`${ref(node.a)} * ${ref(node.b)}`);
     case 'div':
       return local(`${ref(node.a)} / ${ref(node.b)}`);
+    case 'clamp':
+      return local(glslClamp(ref(node.a), glslLiteral(node.lo), glslLiteral(node.hi), vector[at] === true));
     case 'index':
       return glslIndexLines(program, node.parts, at, vector, name);
     case 'table':
@@ -137,6 +140,19 @@ function glslIndexLines(program: Program, parts: readonly IndexPart[], at: numbe
   });
   lines.push(`${four ? 'ivec4' : 'int'} ${valueName(at)} = ${terms.length === 0 ? (four ? 'ivec4(0)' : '0') : terms.join(' + ')};`);
   return lines;
+}
+
+/**
+ * An argument saturated to its range (CLAMP in src/ir/nodes.ts): mix() with a
+ * bool (bvec4) third argument selects, it does not blend (GLSL ES 3.00 and
+ * 3.30 section 8.3), so these are the C function's two comparisons. A GPU
+ * evaluates it without a branch. Not clamp(): GLSL leaves min and max of a
+ * NaN undefined.
+ */
+function glslClamp(x: string, lo: string, hi: string, four: boolean): string {
+  return four
+    ? `mix(mix(${x}, vec4(${lo}), lessThan(${x}, vec4(${lo}))), vec4(${hi}), greaterThan(${x}, vec4(${hi})))`
+    : `mix(mix(${x}, ${lo}, ${x} < ${lo}), ${hi}, ${x} > ${hi})`;
 }
 
 /** A per-segment constant: one read of its global table (four reads in the vec4 shape). */

@@ -27,7 +27,7 @@ export function glslFunction(input: EmitInput): EmittedFile {
   program.inputs.forEach((n) => assertUserName(n, 'input name'));
   // Two overloads that differ only in their return type are not allowed in GLSL.
   if (program.inputs.length === 0) throw new RangeError('a GLSL function needs at least one input (its vec4 overload is told apart by its arguments)');
-  const header = headerLines(input, 'GLSL function (GLSL ES 3.00 and 3.30 core; float and vec4 overloads)');
+  const header = headerLines(input, 'GLSL function (GLSL ES 3.00 and 3.30 core; float and vec4 overloads)', { cycles: false });
   const text = renderTemplate('glsl/function.glsl.hbs', {
     commentLines: glslCommentLines([...header, '', ...glslAssumptionLines(input)]),
     guard: `ROOTCAST_GLSL_${name.toUpperCase()}`,

@@ -32,7 +32,7 @@ export interface HarnessParts {
   readonly commentLines: readonly string[];
 }
 
-export function harnessParts(input: EmitInput, role: string): HarnessParts {
+export function harnessParts(input: EmitInput, role: string, header: { readonly cycles?: boolean } = {}): HarnessParts {
   const { family, program, claims } = input;
   const name = family.functionName;
   assertUserName(name, 'function name');
@@ -94,7 +94,7 @@ export function harnessParts(input: EmitInput, role: string): HarnessParts {
       lo.map((l, j) => ({ lo: l, hi: hi[j]! })),
     ),
     usedConstants: Object.keys(family.constants).filter((c) => used.has(c)),
-    commentLines: headerLines(input, role).map((line) => {
+    commentLines: headerLines(input, role, header).map((line) => {
       assertCommentSafe(line);
       return line === '' ? ' *' : ` * ${line}`;
     }),

@@ -26,7 +26,7 @@ export function glslHarnessPath(name: string): string {
 export function glslHarness(input: EmitInput): EmittedFile {
   const { family, claims } = input;
   refuseUnlessFloat32(family);
-  const parts = harnessParts(input, 'GLSL verification page (WebGL2; exact BigInt bisection reference)');
+  const parts = harnessParts(input, 'GLSL verification page (WebGL2; exact BigInt bisection reference)', { cycles: false });
   const { name } = parts;
   for (const line of parts.commentLines) assertScriptSafe(line);
   const double = (v: number): string => tsLiteral(v, 'float64');

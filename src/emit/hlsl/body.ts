@@ -81,6 +81,12 @@ function hlslNodeLines(program: Program, functionName: string, node: Node, at: n
       return [];
     case 'neg':
       return local(`-${ref(node.a)}`);
+    case 'clamp': {
+      // CLAMP (src/ir/nodes.ts): ?: on floats and float4s selects per component; HLSL's clamp() leaves NaN to the implementation.
+      const x = ref(node.a);
+      const [lo, hi] = [hlslLiteral(node.lo), hlslLiteral(node.hi)].map((v) => (vector[at] ? `float4(${v}, ${v}, ${v}, ${v})` : v));
+      return local(`(${x} < ${lo}) ? ${lo} : ((${x} > ${hi}) ? ${hi} : ${x})`);
+    }
     case 'add':
       return local(`${ref(node.a)} + ${ref(node.b)}`);
     case 'sub':

@@ -26,7 +26,7 @@ export function hlslFunction(input: EmitInput): EmittedFile {
   program.inputs.forEach((n) => assertUserName(n, 'input name'));
   // Two overloads that differ only in their return type are not allowed.
   if (program.inputs.length === 0) throw new RangeError('an HLSL function needs at least one input (its float4 overload is told apart by its arguments)');
-  const header = headerLines(input, 'HLSL functions (float and float4 overloads)');
+  const header = headerLines(input, 'HLSL functions (float and float4 overloads)', { cycles: false });
   const text = renderTemplate('hlsl/function.hlsl.hbs', {
     commentLines: blockCommentLines([...header, '', ...hlslAssumptionLines(input)]),
     guard: `ROOTCAST_HLSL_${name.toUpperCase()}`,

@@ -79,6 +79,8 @@ function rustNodeLines(program: Program, node: Node, at: number): string[] {
       return [];
     case 'neg':
       return local(`-${ref(node.a)}`);
+    case 'clamp':
+      return rustClampLines(program, node, at);
     case 'add':
       return local(`${ref(node.a)} + ${ref(node.b)}`);
     case 'sub':
@@ -94,6 +96,24 @@ function rustNodeLines(program: Program, node: Node, at: number): string[] {
     default:
       throw new UnknownNodeError(node);
   }
+}
+
+/**
+ * CLAMP (src/ir/nodes.ts) as the C function does it: each comparison's 0 or 1
+ * negated into a mask that selects the bits of x, lo or hi, so no branch is
+ * written and NaN keeps its bits.
+ */
+function rustClampLines(program: Program, node: Extract<Node, { kind: 'clamp' }>, at: number): string[] {
+  const a = ARITHMETICS[program.arithmetic];
+  const x = operandText(program, node.a, at, rustStyle(program));
+  const lo = rustLiteral(node.lo, program.arithmetic);
+  const hi = rustLiteral(node.hi, program.arithmetic);
+  const s = `rc_c${at}`;
+  return [
+    `let ${s}below: ${a.rustBitsType} = ((${x} < ${lo}) as ${a.rustBitsType}).wrapping_neg();`,
+    `let ${s}above: ${a.rustBitsType} = ((${x} > ${hi}) as ${a.rustBitsType}).wrapping_neg();`,
+    `let ${valueName(at)}: ${a.rustType} = ${a.rustType}::from_bits((${x}.to_bits() & !(${s}below | ${s}above)) | ((${lo}).to_bits() & ${s}below) | ((${hi}).to_bits() & ${s}above));`,
+  ];
 }
 
 /** The segment number as a usize, computed as in C (magic constant, bits, integer clamps). */

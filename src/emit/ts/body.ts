@@ -29,6 +29,7 @@ export function tsStatements(program: Program): string[] {
   program.nodes.forEach((node, i) => {
     if (node.kind === 'index') lines.push(...tsIndexLines(program, node.parts, i));
     else if (node.kind === 'table') lines.push(`const ${valueName(i)} = ${tableName(i)}[${valueName(node.index)}]!;`);
+    else if (node.kind === 'clamp') lines.push(tsClampLine(program, node, i));
     else {
       const rhs = tsExpression(program, node, i);
       if (rhs !== null) lines.push(`const ${valueName(i)} = ${rhs};`);
@@ -40,6 +41,19 @@ export function tsStatements(program: Program): string[] {
 
 const tableName = (at: number): string => `rc_tab${at}`;
 const metaName = (at: number, k: number): string => `rc_cells${at}_${k}`;
+
+/**
+ * An argument saturated to its range (CLAMP in src/ir/nodes.ts): the same two
+ * comparisons as the C function, so every input, NaN and -0 included, gets
+ * the C function's value. Whether a JavaScript engine compiles the
+ * conditional operator to a select or a branch is its own affair.
+ */
+function tsClampLine(program: Program, node: Extract<Node, { kind: 'clamp' }>, at: number): string {
+  const x = tsReference(program, node.a, at);
+  const lo = tsOperand(node.lo, program.arithmetic);
+  const hi = tsOperand(node.hi, program.arithmetic);
+  return `const ${valueName(at)} = ${x} < ${lo} ? ${lo} : ${x} > ${hi} ? ${hi} : ${x};`;
+}
 
 /**
  * Module-level declarations the function needs: the per-segment tables, and

@@ -82,6 +82,12 @@ function wgslNodeLines(program: Program, functionName: string, node: Node, at: n
       return [];
     case 'neg':
       return local(`-${ref(node.a)}`);
+    case 'clamp': {
+      // CLAMP (src/ir/nodes.ts): select(f, t, cond) picks, it does not blend; WGSL's clamp() leaves NaN to the implementation.
+      const x = ref(node.a);
+      const [lo, hi] = [wgslLiteral(node.lo), wgslLiteral(node.hi)].map((v) => (vector[at] ? `vec4<f32>(${v})` : v));
+      return local(`select(select(${x}, ${lo}, ${x} < ${lo}), ${hi}, ${x} > ${hi})`);
+    }
     case 'add':
       return local(`${ref(node.a)} + ${ref(node.b)}`);
     case 'sub':

@@ -25,7 +25,7 @@ export function wgslFunction(input: EmitInput): EmittedFile {
   const name = family.functionName;
   assertUserName(name, 'function name');
   program.inputs.forEach((n) => assertUserName(n, 'input name'));
-  const header = headerLines(input, 'WGSL functions (WebGPU; f32 and vec4<f32> forms)');
+  const header = headerLines(input, 'WGSL functions (WebGPU; f32 and vec4<f32> forms)', { cycles: false });
   const text = renderTemplate('wgsl/function.wgsl.hbs', {
     commentLines: slashCommentLines([...header, '', ...wgslAssumptionLines(input)], true),
     tableLines: wgslTableDeclarations(program, name),

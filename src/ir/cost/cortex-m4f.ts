@@ -17,6 +17,9 @@
  *   table read             ADD + VLDR.F32         1 + 2
  *   segment index, a part  VLDR + VADD + VMOV     2 + 1 + 1, then the IR's integer ops at 1 each
  *   a table's base address LDR (literal)          2 (once per function)
+ *   clamped input          2 x (VLDR + VCMPE      2 x (2 + 1 + 1) + 1 + 1, then the IR's integer ops at 1 each
+ *                          + VMRS), VMOV to the
+ *                          core and back
  *
  * What the estimate leaves out: moving arguments in and the result out (none
  * under the hard-float calling convention, where they arrive in s0-s15), the
@@ -60,11 +63,13 @@ const VLDR_CYCLES = M4F.vldr;
 const TABLE_READ_CYCLES = CORTEX_M4F_TABLE_READ_CYCLES;
 const TABLE_BASE_CYCLES = M4F.ldrLiteral;
 const INDEX_CYCLES_PER_PART = VLDR_CYCLES + M4F.add + M4F.vmovToCore;
+const CLAMP_CYCLES = 2 * (VLDR_CYCLES + M4F.compare + M4F.vmrs) + 2 * M4F.vmovToCore;
 
 /** Cycles of one node, integer operations of the segment index excepted (charged from countOps). */
 function nodeCycles(n: Node): number {
   if (n.kind === 'index') return n.parts.length * INDEX_CYCLES_PER_PART;
   if (n.kind === 'table') return TABLE_READ_CYCLES;
+  if (n.kind === 'clamp') return CLAMP_CYCLES;
   const c = CYCLES[n.kind];
   if (c === undefined) throw new UnknownNodeError(n);
   return c;
@@ -74,7 +79,7 @@ export type CycleEstimate =
   | {
       readonly kind: 'estimated';
       readonly cycles: number;
-      /** FPU arithmetic instructions (add, sub, mul, neg, div; not the segment index). */
+      /** FPU arithmetic instructions (add, sub, mul, neg, div; not the segment index nor a clamp's comparisons). */
       readonly fpuOps: number;
       /** Constant loads (one VLDR per distinct constant that an operation reads). */
       readonly constantLoads: number;
@@ -108,7 +113,9 @@ export function cortexM4fLine(program: Program): string {
   const e = cortexM4fCycles(program);
   if (e.kind === 'software-double') return 'cortex-m4f estimate: software double: not estimated (FPv4-SP has no double unit)';
   const segments = e.tableReads + e.indexes === 0 ? '' : ` + ${e.tableReads} table reads + ${e.indexes} segment ${e.indexes === 1 ? 'index' : 'indexes'}`;
-  return `cortex-m4f estimate: ~${e.cycles} cycles (${e.fpuOps} FPU ops + ${e.constantLoads} constant loads${segments}; Cortex-M4 TRM FPU timings, see src/ir/cost/cortex-m4f.ts)`;
+  const n = program.nodes.filter((x) => x.kind === 'clamp').length;
+  const clamps = n === 0 ? '' : ` + ${n} clamped ${n === 1 ? 'input' : 'inputs'}`;
+  return `cortex-m4f estimate: ~${e.cycles} cycles (${e.fpuOps} FPU ops + ${e.constantLoads} constant loads${segments}${clamps}; Cortex-M4 TRM FPU timings; README, "Performance")`;
 }
 
 /** The value operands of a node (the fields a and b of the arithmetic kinds). */

@@ -11,6 +11,7 @@
  *   neg                    XORPD with a sign mask 1
  *   table read             MOVSD from L1          5
  *   segment index          ADDSD (magic), then the IR's integer ops (src/ir/count.ts) at 1 each
+ *   clamped input          2 x (UCOMISD + SETcc) 2 x 4, then the IR's integer ops at 1 each
  *   constant               a memory operand of the instruction that reads it: 0
  *
  * Latencies from src/ir/timings.ts (Agner Fog's instruction tables, quoted
@@ -32,7 +33,7 @@ export interface LatencyEstimate {
 export function x86Latency(program: Program): LatencyEstimate {
   const c = countOps(program);
   const negs = program.nodes.filter((n) => n.kind === 'neg').length;
-  const cycles = c.add * X86.add + c.mul * X86.mul + c.div * X86.div + negs * X86.neg + c.tableReads * X86.tableRead + c.intOps * X86.intOp;
+  const cycles = c.add * X86.add + c.mul * X86.mul + c.div * X86.div + negs * X86.neg + c.tableReads * X86.tableRead + c.intOps * X86.intOp + c.compares * X86.compare;
   return { cycles, fpOps: c.add + c.mul + c.div + negs, tableReads: c.tableReads, intOps: c.intOps };
 }
 
@@ -40,5 +41,5 @@ export function x86Latency(program: Program): LatencyEstimate {
 export function x86LatencyLine(program: Program): string {
   const e = x86Latency(program);
   const segments = e.tableReads === 0 && e.intOps === 0 ? '' : ` + ${e.tableReads} table reads + ${e.intOps} integer ops`;
-  return `x86-64 estimate: ~${e.cycles} cycles of latency (${e.fpOps} FP ops${segments}; scalar SSE latencies, see src/ir/cost/x86-64.ts)`;
+  return `x86-64 estimate: ~${e.cycles} cycles of latency (${e.fpOps} FP ops${segments}; scalar SSE latencies; README, "Performance")`;
 }

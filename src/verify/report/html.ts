@@ -7,10 +7,11 @@
  * text on the page is HTML-escaped. Same data, same bytes: no time stamps.
  */
 import Handlebars from 'handlebars';
-import { formatBoundUp } from '../../emit/literals/round-up.js';
-import type { CheckSummary } from '../summary.js';
+import { formatEUp } from '../../emit/literals/round-up.js';
+import { formatE, formatG } from '../printf.js';
+import type { CheckSummary, SummaryLanguage } from '../summary.js';
 import { errorEnvelope, type ReportPoint } from './envelope.js';
-import { svgPlot } from './svg-plot.js';
+import { MIN_EDGE_SPACING_PX, svgPlot } from './svg-plot.js';
 
 export interface ReportData {
   readonly functionName: string;
@@ -23,11 +24,16 @@ export interface ReportData {
   /** Segment edges per input (empty lists without tables). */
   readonly edges: readonly (readonly number[])[];
   readonly points: readonly ReportPoint[];
-  readonly checks: readonly CheckSummary[];
+  /** The checks, with the language their summary line names when read back from a harness. */
+  readonly checks: readonly (CheckSummary & { readonly language?: SummaryLanguage })[];
 }
 
 const esc = (s: string): string => Handlebars.Utils.escapeExpression(s);
-const sci = (x: number): string => (Number.isFinite(x) ? x.toExponential(2) : String(x));
+/** Every number as the summary lines print it (C's %.1e; input values %.9g). */
+const sci = (x: number): string => formatE(x, 1);
+
+/** The label a check's summary line gives it (`check NAME (LANGUAGE, ...)`). */
+const LABELS: Readonly<Record<CheckSummary['target'], string>> = { 'in-process': 'in-process', c: 'C', ts: 'TypeScript', glsl: 'GLSL', wgsl: 'WGSL', rust: 'Rust' };
 
 export function reportHtml(d: ReportData): string {
   const one = d.inputs.length === 1;
@@ -50,12 +56,21 @@ export function reportHtml(d: ReportData): string {
     ? `Measured ${yLabel} against ${esc(d.inputs[0]!.name)} (largest error in each of 400 equal bins), log scale.`
     : `Worst measured ${yLabel} over the other inputs, projected onto each input (80 bins each), log scale.`;
   const edgeCount = d.edges.reduce((n, e) => n + e.length, 0);
-  const edgeNote = edgeCount > 0 ? ' Grey dashed vertical lines: the segment edges, where the function switches to the next table entry.' : '';
+  const plotWidth = (one ? 760 : 380) - 80;
+  const dense = d.edges.some((e) => e.length > 0 && plotWidth / (e.length + 1) < MIN_EDGE_SPACING_PX);
+  const edgeNote =
+    edgeCount === 0
+      ? ''
+      : dense
+        ? ` Grey ticks under the plot: the ${edgeCount} segment edges, where the function switches to the next table entry (too close together for full lines).`
+        : ' Grey dashed vertical lines: the segment edges, where the function switches to the next table entry.';
+  // One rounding: every row shows the certified bound rounded up once, as the summary lines do.
+  const bound = formatEUp(d.bound, 1);
   const rows = d.checks.map(
     (c) =>
-      `<tr><td>${esc(c.target)}</td><td>${c.points}</td><td>${sci(c.worstError)}</td><td>${esc(
-        c.worstAt.map((v, j) => `${c.inputNames[j] ?? `input ${j}`} = ${v}`).join(', '),
-      )}</td><td>${formatBoundUp(c.bound)}</td><td>${sci(c.targetAccuracy)}</td><td class="${c.pass ? 'pass' : 'fail'}">${c.pass ? 'PASS' : 'FAIL'}</td></tr>`,
+      `<tr><td>${esc(c.language ?? LABELS[c.target])}</td><td>${c.points}</td><td>${c.worstAt.length > 0 ? sci(c.worstError) : 'none'}</td><td>${esc(
+        c.worstAt.map((v, j) => `${c.inputNames[j] ?? `input ${j}`} = ${formatG(v, 9)}`).join(', '),
+      )}</td><td>${bound}</td><td>${sci(c.targetAccuracy)}</td><td class="${c.pass ? 'pass' : 'fail'}">${c.pass ? 'PASS' : 'FAIL'}</td></tr>`,
   );
   return `<!DOCTYPE html>
 <html lang="en">
@@ -75,7 +90,7 @@ td.fail { color: #c03020; font-weight: bold; }
 </head>
 <body>
 <h1>${esc(d.functionName)}: measured error</h1>
-<p class="meta">spec ${esc(d.spec)}; ${esc(d.arithmetic)}; ${d.points.length} points; certified bound ${formatBoundUp(d.bound)} (rounded up); target ${sci(d.target)} (${d.kind})</p>
+<p class="meta">spec ${esc(d.spec)}; ${esc(d.arithmetic)}; ${d.points.length} points; certified bound ${bound} (rounded up); target ${sci(d.target)} (${d.kind})</p>
 <p>${caption} Red dashed line: the certified bound. Green dotted line: the target.${edgeNote}</p>
 <div class="plots">
 ${plots.join('\n')}

@@ -6,7 +6,8 @@
  * reader of the source) can find the data path, the bound and the target.
  */
 import Handlebars from 'handlebars';
-import { formatBoundUp } from '../../emit/literals/round-up.js';
+import { formatEUp } from '../../emit/literals/round-up.js';
+import { formatE, formatG } from '../printf.js';
 import type { EnvelopeBin } from './envelope.js';
 
 export interface PlotSpec {
@@ -24,8 +25,10 @@ export interface PlotSpec {
 }
 
 const esc = (s: string): string => Handlebars.Utils.escapeExpression(s);
-/** Four significant digits are plenty on an axis; fixed so the file is the same for the same data. */
-const num = (x: number): string => (Number.isFinite(x) ? Number(x.toPrecision(4)).toString() : String(x));
+/** Axis values in C's %.4g, the target in %.1e: the formats of the summary lines (printf.ts). */
+const num = (x: number): string => formatG(x, 4);
+/** Closer than this (px), full-height edge lines would merge into a striped block: they become ticks under the plot. */
+export const MIN_EDGE_SPACING_PX = 6;
 const px = (x: number): string => x.toFixed(1);
 
 export function svgPlot(p: PlotSpec): string {
@@ -57,8 +60,14 @@ export function svgPlot(p: PlotSpec): string {
     const x = p.lo + ((p.hi - p.lo) * k) / 4;
     parts.push(`<text class="tick x-tick" x="${px(sx(x))}" y="${m.top + h + 16}" text-anchor="middle" font-size="11">${num(x)}</text>`);
   }
-  for (const e of p.edges) {
-    parts.push(`<line class="segment-edge" x1="${px(sx(e))}" x2="${px(sx(e))}" y1="${m.top}" y2="${m.top + h}" stroke="#999" stroke-dasharray="2 3"/>`);
+  if (p.edges.length > 0 && w / (p.edges.length + 1) >= MIN_EDGE_SPACING_PX) {
+    for (const e of p.edges) {
+      parts.push(`<line class="segment-edge" x1="${px(sx(e))}" x2="${px(sx(e))}" y1="${m.top}" y2="${m.top + h}" stroke="#999" stroke-dasharray="2 3"/>`);
+    }
+  } else if (p.edges.length > 0) {
+    // Hundreds of edges: one short tick each just under the frame (a rug), so the data stays readable.
+    const ticks = p.edges.map((e) => `M${px(sx(e))} ${m.top + h}v5`).join('');
+    parts.push(`<path class="segment-edge-ticks" d="${ticks}" stroke="#999" stroke-width="0.5" fill="none"/>`);
   }
   const path = p.bins.map((b, i) => `${i === 0 ? 'M' : 'L'}${px(sx(b.x))} ${px(sy(b.error))}`).join(' ');
   parts.push(`<path class="data" d="${path}" fill="none" stroke="#1f5fbf" stroke-width="1.5"/>`);
@@ -69,7 +78,7 @@ export function svgPlot(p: PlotSpec): string {
   const hline = (cls: string, value: number, colour: string, dash: string, label: string, below: boolean): void => {
     const y = px(sy(value));
     parts.push(`<line class="${cls}" x1="${m.left}" x2="${m.left + w}" y1="${y}" y2="${y}" stroke="${colour}" stroke-width="1.5" stroke-dasharray="${dash}"/>`);
-    parts.push(`<text class="${cls}-label" x="${below ? m.left + w - 4 : m.left + 4}" y="${px(sy(value) + (below ? 13 : -4))}" text-anchor="${below ? 'end' : 'start'}" font-size="11" fill="${colour}">${esc(label)} ${below ? formatBoundUp(value) : num(value)}</text>`);
+    parts.push(`<text class="${cls}-label" x="${below ? m.left + w - 4 : m.left + 4}" y="${px(sy(value) + (below ? 13 : -4))}" text-anchor="${below ? 'end' : 'start'}" font-size="11" fill="${colour}">${esc(label)} ${below ? formatEUp(value, 1) : formatE(value, 1)}</text>`);
   };
   hline('bound', p.bound, '#c03020', '6 3', 'certified bound', true);
   hline('target', p.target, '#208040', '2 2', 'target', false);

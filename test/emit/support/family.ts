@@ -26,6 +26,7 @@ export function demoFamily(program: Program, overrides: Partial<Family> = {}): F
     accuracy: { kind: 'absolute', value: '0.001' },
     arithmetic: program.arithmetic,
     plan: { maxOrder: 40, segments: 'auto', maxTableBytes: 4096, newtonSteps: 'auto' },
+    outsideBox: 'extrapolate',
     positions: {},
     ...overrides,
   };
