@@ -117,12 +117,11 @@ const CASES: readonly Case[] = [
     at: '18:13: accuracy.absolute',
     says: ['below the float32 rounding floor', 'use arithmetic: float64, loosen the accuracy or narrow the input ranges'],
   },
-  // Found only at sample points, by verify.
+  // The planner proves the bracket's sign change over the whole box (src/plan/bracket-check.ts).
   {
     file: 'bracket-misses-some-inputs.yaml',
     at: '17:12: root.bracket',
-    says: ['no sign change on the bracket at R = 390.48', 'narrow or move it'],
-    by: 'verify',
+    says: ['P need not change sign between the bracket ends for R in [', 'move the high end up past the root for those inputs'],
   },
 ];
 
@@ -161,9 +160,11 @@ describe('every broken spec is refused in one located line with exit code 2', ()
     expect(runs.filter((r) => /\n\s+at |internal error/.test(r.stderr)).map((r) => r.stderr)).toEqual([]);
   });
 
-  test('plan accepts the spec whose bracket misses part of the box: only sampling finds it', async () => {
+  test('plan refuses the spec whose bracket misses part of the box, before any sampling, and names the hot end of the range', async () => {
+    // IEC 60751: R = 390.49 ohm is about 850 degC, beyond the bracket's 500 (common practice: Pt100 tables).
     const r = await runBuilt(['plan', rel('bracket-misses-some-inputs.yaml')]);
-    expect(r.code).toBe(0);
+    expect(r.code).toBe(2);
+    expect(r.stderr).toMatch(/for R in \[[\d.]+, 390\.49\]/);
   });
 
   test('emit refuses each with the same line and writes nothing (in process)', async () => {

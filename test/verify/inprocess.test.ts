@@ -48,14 +48,11 @@ describe('checkInProcess', () => {
     expect(s.worstError).toBe(Infinity);
   });
 
-  test('10,000 points of the IEC 60751 quadratic take well under 2 s', () => {
+  // Speed is a benchmark's business (bench/), not a timed test: this checks the 10,000-point run's result only.
+  test('10,000 points of the IEC 60751 quadratic pass and print one summary line', () => {
     const c = kilnCase().input;
-    checkInProcess(c, { samples: 200, seed: 2 }); // warm-up
-    const t0 = performance.now();
     const s = checkInProcess(c, { samples: 10000, seed: 1 });
-    const ms = performance.now() - t0;
     expect(s.pass).toBe(true);
-    expect(ms).toBeLessThan(1500);
     expect(formatSummary(s, 'kiln_probe_celsius', 'float32', 'in-process')).toMatch(/^check kiln_probe_celsius \(in-process, float32\): 10000 points; worst absolute error \d\.\de-0[45] at R = [\d.]+; certified bound \d\.\de-04; target 1\.0e-03; PASS$/);
     // The printed bound is rounded up: never below the proven one.
     expect(parseSummary(formatSummary(s, 'kiln_probe_celsius', 'float32', 'in-process')).bound).toBeGreaterThanOrEqual(s.bound);
