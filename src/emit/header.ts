@@ -63,7 +63,11 @@ export function headerLines(input: EmitInput, fileRole: string, options: { reado
       `order ${claims.order}, ${claims.terms} ${claims.terms === 1 ? 'term' : 'terms'}${claims.steps > 0 ? `, then ${claims.steps} Newton ${claims.steps === 1 ? 'step' : 'steps'}` : ''}`,
     ]),
     ...labelled('operations:', [`${ops.add} add, ${ops.mul} mul, ${ops.div} div, ${ops.tableReads} table reads${ops.compares > 0 ? `, ${ops.compares} compares` : ''}`]),
-    ...(options.cycles === false ? [] : costHeaderLines(input.program, input.claims.costModel ? COST_MODELS[input.claims.costModel] : undefined)),
+    ...(options.cycles === false
+      ? input.claims.costModel === 'gpu'
+        ? costHeaderLines(input.program, COST_MODELS.gpu)
+        : []
+      : costHeaderLines(input.program, input.claims.costModel ? COST_MODELS[input.claims.costModel] : undefined)),
   ];
   for (const line of lines) assertCommentSafe(line);
   return lines;

@@ -33,7 +33,7 @@ describe('cortexM4fCycles', () => {
 
   test('the header carries the estimate with its source', () => {
     expect(cortexM4fLine(sqrtTaylor('float32').program)).toBe(
-      'cortex-m4f estimate: ~26 cycles (12 FPU ops + 7 constant loads; Cortex-M4 TRM FPU timings, see src/ir/cost/cortex-m4f.ts)',
+      'cortex-m4f estimate: ~26 cycles (12 FPU ops + 7 constant loads; Cortex-M4 TRM FPU timings; README, "Performance")',
     );
   });
 
