@@ -39,8 +39,10 @@ export async function runEmit(o: EmitOptions, print: Print, printError: Print): 
 }
 
 async function emitOne(spec: string, o: EmitOptions, print: Print, rules: DepRule[]): Promise<number> {
-  const { fixedFamilyOf } = await import('../fixed/pipeline.js');
-  const fixed = fixedFamilyOf(spec);
+  // The fixed32 printers load the TypeScript compiler: import them only for a fixed32 spec.
+  const { loadSpec } = await import('../../reader/load.js');
+  const loaded = loadSpec(spec);
+  const fixed = loaded.fixed ? loaded : null;
   let files;
   if (fixed) {
     // fixed32 specs: their own printers (no stamp line yet, so --check re-reads them as stale).
