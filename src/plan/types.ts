@@ -29,6 +29,8 @@ export interface Candidate {
   readonly degree: number | null;
   /** Segments per input, in spec order. */
   readonly counts: readonly number[];
+  /** Per input, the coarse cells of a two-level index, null for equal segments along it; null when every input has equal segments. */
+  readonly coarseCells: readonly (number | null)[] | null;
   readonly order: number | null;
   readonly terms: number | null;
   /** Newton polish steps after the series (0 for none). */

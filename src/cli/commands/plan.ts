@@ -8,6 +8,7 @@ import { GENERATOR, jsonOutput, refusalJson } from '../refusal-json.js';
 import { fixedFamilyOf } from '../fixed/input.js';
 import { fixedPlanJson, fixedPlanText } from '../fixed/plan.js';
 import { makeFixedPlan } from '../../plan/fixed/plan-fixed.js';
+import { coarseCellsOf } from '../../plan/candidates.js';
 
 /**
  * `rootcast plan SPEC... [--json]`: each spec on its own; a refused spec
@@ -63,12 +64,13 @@ export function planJson(plan: Plan): { readonly generator: typeof GENERATOR; re
     absoluteBound: c.absoluteBound,
     target: c.target,
     ops: c.ops,
-    segments: { counts: plan.counts, tableBytes: plan.tableBytes },
+    segments: { counts: plan.counts, coarseCells: coarseCellsOf(plan.program), tableBytes: plan.tableBytes },
     cost: { model: plan.costModel, value: plan.cost },
     candidates: plan.candidates.map((k) => ({
       form: k.form,
       degree: k.degree,
       segments: k.counts,
+      coarseCells: k.coarseCells,
       order: k.order,
       terms: k.terms,
       steps: k.steps,
@@ -84,11 +86,12 @@ export function planJson(plan: Plan): { readonly generator: typeof GENERATOR; re
 
 /** The candidates the planner weighed, one row each; the chosen one marked with `*`. */
 export function candidateTable(plan: Plan): string[] {
-  const head = ['', 'form', 'segments', 'order', 'degree', 'terms', 'steps', 'add', 'mul', 'div', 'reads', 'bytes', 'cost', 'bound'];
+  const head = ['', 'form', 'segments', 'index', 'order', 'degree', 'terms', 'steps', 'add', 'mul', 'div', 'reads', 'bytes', 'cost', 'bound'];
   const rows = plan.candidates.map((k) => [
     k.chosen ? '*' : '',
     k.form,
     k.counts.join('x'),
+    indexText(k.coarseCells, k.counts),
     k.order === null ? '-' : String(k.order),
     k.degree === null ? '-' : String(k.degree),
     k.terms === null ? '-' : String(k.terms),
@@ -104,6 +107,16 @@ export function candidateTable(plan: Plan): string[] {
   const widths = head.map((h, i) => Math.max(h.length, ...rows.map((r) => (i === head.length - 1 ? 0 : r[i]!.length))));
   const fmt = (r: string[]): string => r.map((x, i) => (i === r.length - 1 ? x : x.padEnd(widths[i]!))).join('  ').trimEnd();
   return [fmt(head), ...rows.map(fmt)];
+}
+
+/**
+ * A candidate's segment index: `-` for one box, `equal` for equal segments,
+ * `two-level 8x8` for a two-level index with its coarse cells per input
+ * (`=` for an input with equal segments).
+ */
+function indexText(coarse: readonly (number | null)[] | null, counts?: readonly number[]): string {
+  if (coarse === null) return counts && counts.every((k) => k === 1) ? '-' : 'equal';
+  return `two-level ${coarse.map((c) => (c === null ? '=' : String(c))).join('x')}`;
 }
 
 export function planText(plan: Plan): string {
