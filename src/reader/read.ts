@@ -73,11 +73,11 @@ export function readSpec(file: string, text: string, bytes?: Uint8Array): Family
   const constants = readConstants(ctx, field('constants'), names, positions);
   const scope = {
     inputs: inputs.inputs.map((i) => i.name),
-    constants: Object.keys(constants.texts),
+    constants: Object.keys(constants),
     unknown,
     functionName,
   };
-  const coefficients = readCoefficients(ctx, must('coefficients'), degree, scope, constants.values, positions);
+  const coefficients = readCoefficients(ctx, must('coefficients'), degree, scope, constants, positions);
   refuseUnusedInputs(ctx, coefficients.exprs, inputs);
   const bracket = readRoot(ctx, field('root'), positions);
   const accuracy = readAccuracy(ctx, must('accuracy'), positions);
@@ -102,7 +102,7 @@ export function readSpec(file: string, text: string, bytes?: Uint8Array): Family
     coefficients: coefficients.exprs,
     coefficientText: coefficients.exprs.map((e) => (e === null ? null : printExpr(e))),
     inputs: inputs.inputs,
-    constants: constants.texts,
+    constants,
     bracket,
     accuracy,
     arithmetic,

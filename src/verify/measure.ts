@@ -109,8 +109,8 @@ export function makeMeasurer(
   const coefficients = coefficientEvaluator(family);
   const specBracket = family.bracket
     ? {
-        lo: fractionOfRational(Rational.parseDecimal(family.bracket[0])),
-        hi: fractionOfRational(Rational.parseDecimal(family.bracket[1])),
+        lo: fractionOfRational(family.bracket[0].value),
+        hi: fractionOfRational(family.bracket[1].value),
       }
     : null;
   return (computed, inputs) => {
