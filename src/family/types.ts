@@ -6,7 +6,7 @@
  * reader parses spec text again.
  */
 import type { Rational } from '../math/rational.js';
-import type { Arithmetic, CostModelName } from './arithmetic.js';
+import type { Arithmetic, ArithmeticName, CostModelName } from './arithmetic.js';
 import type { SpecNumber } from './spec-number.js';
 
 export type { SpecNumber } from './spec-number.js';
@@ -25,7 +25,7 @@ export interface FixedFormat {
 }
 
 /** The arithmetic as the spec names it: float32, float64 or fixed32. */
-export function arithmeticName(family: { readonly arithmetic: Arithmetic; readonly fixed?: FixedFormat }): 'float32' | 'float64' | 'fixed32' {
+export function arithmeticName(family: { readonly arithmetic: Arithmetic; readonly fixed?: FixedFormat }): ArithmeticName {
   return family.fixed ? 'fixed32' : family.arithmetic;
 }
 
