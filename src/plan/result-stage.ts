@@ -30,7 +30,7 @@ export function planWithResult(family: Family, planRoot: (f: Family) => Plan): P
     const root = planRootTo(family, planRoot, budget);
     return { root, ev: resultBound(family, spec, root.certifiedCells ?? [], root.absoluteBound, program) };
   };
-  const first = tryBudget(target * RESULT_BUDGET.firstShare);
+  const first = firstTry(RESULT_BUDGET.firstShares.map((share) => target * share), tryBudget);
   const tried = [first];
   const most = largestBudget(target, first.ev.cells);
   if (first.ev.cells.length === 0 || !(most > 0)) refuseNoRoom(family, first.ev);
@@ -49,6 +49,20 @@ export function planWithResult(family: Family, planRoot: (f: Family) => Plan): P
   const ok = tried.filter((t) => t.ev.total <= target).map((t) => withResult(family, spec, t.root, t.ev, target));
   if (ok.length === 0) refuseNoRoom(family, tried.reduce((a, b) => (b.ev.total < a.ev.total ? b : a)).ev);
   return ok.reduce((a, b) => (b.cost < a.cost ? b : a));
+}
+
+/** The first budget the root can be planned to (a slope well below 1 lets a refused first guess loosen). */
+function firstTry<T>(budgets: readonly number[], attempt: (b: number) => T): T {
+  let refusal: unknown = null;
+  for (const b of budgets) {
+    try {
+      return attempt(b);
+    } catch (e) {
+      if (!(e instanceof RootcastError)) throw e;
+      refusal ??= e;
+    }
+  }
+  throw refusal;
 }
 
 /** The root planned to an absolute budget; a refusal says it was for the result. */

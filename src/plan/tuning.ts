@@ -182,8 +182,13 @@ export const TABLE_FIX = {
 
 /** The result stage's choice of the root's accuracy budget (src/plan/result-stage.ts). */
 export const RESULT_BUDGET = {
-  /** The first root plan is made for this share of the target (as if |d result / dx| were 1): its cells give the slopes. */
-  firstShare: 1,
+  /**
+   * The first root plan is made for the first of these shares of the target
+   * (as if |d result / dx| were 1; its cells give the slopes). When the root
+   * cannot meet that (its rounding floor), the next, looser one is tried: a
+   * result whose slope is well below 1 needs only a looser root.
+   */
+  firstShares: [1, 1000] as const,
   /**
    * Shares of the largest root budget the first plan's cells allow, tried in
    * turn; the cheapest plan that meets the target wins. A looser root is
