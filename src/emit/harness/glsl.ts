@@ -51,6 +51,8 @@ export function glslHarness(input: EmitInput): EmittedFile {
       return e ? jsRationalExpr(e) : 'rc_q(0n, 1n)';
     }).join(', '),
     snippet: scriptString(glslFunction(input).text),
+    result: family.result ? `(x) => ${jsRationalExpr(family.result.expr)}` : 'null',
+    rootScale: double(family.result && family.bracket ? Math.max(...family.bracket.map((t) => Math.abs(t.toNumber()))) : 0),
     kind: claims.bound.kind,
   });
   return { path: glslHarnessPath(name), text };

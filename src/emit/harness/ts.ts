@@ -47,6 +47,8 @@ export function tsHarness(input: EmitInput): EmittedFile {
       return e ? tsRationalExpr(e) : 'rc_q(0n, 1n)';
     }).join(', '),
     callArguments: parts.inputNames.map((_, j) => `x[${j}]!`).join(', '),
+    result: family.result ? `(x) => ${tsRationalExpr(family.result.expr)}` : 'null',
+    rootScale: double(family.result && family.bracket ? Math.max(...family.bracket.map((t) => Math.abs(t.toNumber()))) : 0),
     arithmetic: family.arithmetic,
     kind: claims.bound.kind,
   });
