@@ -65,7 +65,7 @@ for (const spec of specs) {
       equal = null;
     }
   }
-  console.log(`\n${spec} (${family.arithmetic}, ${family.accuracy.kind} ${family.accuracy.value}, max_table_bytes ${family.plan.maxTableBytes})`);
+  console.log(`\n${spec} (${family.arithmetic}, ${family.accuracy.kind} ${family.accuracy.value.text ?? family.accuracy.value}, max_table_bytes ${family.plan.maxTableBytes})`);
   const rows = [
     ['chosen', layout(chosen), String(chosen.tableBytes), `order ${chosen.order}, ${chosen.steps} step${chosen.steps === 1 ? '' : 's'}`, ops(chosen.ops), String(chosen.cost), chosen.bound.toExponential(1)],
     equal
