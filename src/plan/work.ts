@@ -21,12 +21,13 @@ export class WorkLimitError extends Error {
 
 export type WorkObserver = (used: number, limit: number) => void;
 
-const meter = { used: 0, limit: WORK.limit as number, observer: null as WorkObserver | null, nextReport: 0 };
+const meter = { used: 0, limit: WORK.limit as number, cap: WORK.limit as number, observer: null as WorkObserver | null, nextReport: 0 };
 
 /** Starts counting a new plan's work. */
 export function startWork(observer: WorkObserver | null = null, limit: number = WORK.limit): void {
   meter.used = 0;
   meter.limit = limit;
+  meter.cap = limit;
   meter.observer = observer;
   meter.nextReport = limit / WORK.reports;
 }
@@ -38,7 +39,22 @@ export function spend(units: number): void {
     meter.nextReport = meter.used + meter.limit / WORK.reports;
     meter.observer(Math.min(meter.used, meter.limit), meter.limit);
   }
-  if (meter.used > meter.limit) throw new WorkLimitError();
+  if (meter.used > meter.cap) throw new WorkLimitError();
+}
+
+/**
+ * Runs `fn` with at most `units` more work (and never past the limit): a
+ * trial that may not starve what follows it. Its WorkLimitError ends only
+ * the trial (the caller catches it); the count stays deterministic.
+ */
+export function spendAtMost<T>(units: number, fn: () => T): T {
+  const saved = meter.cap;
+  meter.cap = Math.min(saved, meter.used + units);
+  try {
+    return fn();
+  } finally {
+    meter.cap = saved;
+  }
 }
 
 /** Units counted so far for the current plan. */
