@@ -1,7 +1,8 @@
 /**
  * The planner's deterministic work limit. Planning counts its work in units
  * (one unit: one term's majorant value on one cell, one IR node analysed on
- * one cell, one cell's facts per prefix node) and stops at WORK.limit: the
+ * one cell, one cell's facts per prefix node; exact sums of the series
+ * constants by their size, spendExact) and stops at WORK.limit: the
  * same spec stops at the same point on every machine, so output stays
  * byte-identical (a wall-clock limit could not promise that). A plan found
  * before the limit is kept; otherwise the refusal says the limit was reached.
@@ -60,4 +61,15 @@ export function spendAtMost<T>(units: number, fn: () => T): T {
 /** Units counted so far for the current plan. */
 export function workUsed(): number {
   return meter.used;
+}
+
+/**
+ * Counts one exact BigInt sum whose larger operand has `bits` bits: its gcd
+ * (Euclid's algorithm) takes time quadratic in that size, so the units are
+ * WORK.exactWordUnits per squared 64-bit word. Recentring at a subnormal x0
+ * makes such sums tens of thousands of bits long.
+ */
+export function spendExact(bits: number): void {
+  const words = Math.ceil(bits / 64);
+  spend(words * words * WORK.exactWordUnits);
 }
