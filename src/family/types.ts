@@ -3,7 +3,7 @@
  * Every number that came from the spec is kept as its exact decimal text, so
  * nothing is rounded before the planner decides what to round.
  */
-import type { Arithmetic, CostModelName } from './arithmetic.js';
+import type { Arithmetic, ArithmeticName, CostModelName } from './arithmetic.js';
 
 /**
  * `arithmetic: fixed32` (DESIGN.md 1.12): every argument and the result is an
@@ -19,7 +19,7 @@ export interface FixedFormat {
 }
 
 /** The arithmetic as the spec names it: float32, float64 or fixed32. */
-export function arithmeticName(family: { readonly arithmetic: Arithmetic; readonly fixed?: FixedFormat }): 'float32' | 'float64' | 'fixed32' {
+export function arithmeticName(family: { readonly arithmetic: Arithmetic; readonly fixed?: FixedFormat }): ArithmeticName {
   return family.fixed ? 'fixed32' : family.arithmetic;
 }
 

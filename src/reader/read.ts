@@ -20,7 +20,7 @@ import { readPlan } from './section-plan.js';
 import { readRoot } from './section-root.js';
 import { readFixed } from './section-fixed.js';
 import type { Expr, Family, OutsideBox, Pos } from '../family/types.js';
-import { ARITHMETICS, type Arithmetic } from '../family/arithmetic.js';
+import { SPEC_ARITHMETICS, type Arithmetic, type ArithmeticName } from '../family/arithmetic.js';
 import { parseSpecDocument } from './yaml-document.js';
 import { expectMap, refuseUnknownKeys, valueOf, type Entry } from './yaml-map.js';
 
@@ -42,8 +42,8 @@ export const SPEC_FIELDS = [
 
 const REQUIRED_FIELDS = ['function', 'unknown', 'degree', 'coefficients', 'inputs', 'accuracy', 'arithmetic'] as const;
 
-/** The arithmetics, in the table's order (src/family/arithmetic.ts), then fixed32 (src/reader/section-fixed.ts). */
-const ARITHMETIC: readonly (Arithmetic | 'fixed32')[] = [...(Object.keys(ARITHMETICS) as Arithmetic[]), 'fixed32'];
+/** The arithmetics, in the table's order (src/family/arithmetic.ts; fixed32's section: src/reader/section-fixed.ts). */
+const ARITHMETIC: readonly ArithmeticName[] = Object.keys(SPEC_ARITHMETICS) as ArithmeticName[];
 const OUTSIDE_BOX: readonly OutsideBox[] = ['extrapolate', 'saturate'];
 
 /** Highest degree a spec may ask for. */
@@ -84,7 +84,8 @@ export function readSpec(file: string, text: string, bytes?: Uint8Array): Family
   const named = readChoice(ctx, valueOf(ctx, must('arithmetic'), ARITHMETIC.join(' or ')), 'arithmetic', ARITHMETIC);
   const fixed = readFixed(ctx, field('fixed'), named, inputs.inputs, positions);
   // fixed32: the planner's float stages work in float64 (see FixedFormat).
-  const arithmetic: Arithmetic = named.value === 'fixed32' ? 'float64' : named.value;
+  const facts = SPEC_ARITHMETICS[named.value];
+  const arithmetic: Arithmetic = facts.kind === 'fixed' ? facts.planningArithmetic : (named.value as Arithmetic);
   const plan = readPlan(ctx, field('plan'), positions, inputs.inputs.map((i) => i.name));
   const outside = field('inputs_outside_box');
   const outsideBox = outside

@@ -15,6 +15,7 @@ import { maxFractionBits, toRaw, fitsInt32 } from '../ir/fixed/format.js';
 import { Rational } from '../math/rational.js';
 import type { SpecContext } from './context.js';
 import { readWholeNumber } from './scalars.js';
+import { SPEC_ARITHMETICS, type ArithmeticName } from '../family/arithmetic.js';
 import type { FixedFormat, InputRange, Pos } from '../family/types.js';
 import { expectMap, refuseUnknownKeys, valueOf, type Entry } from './yaml-map.js';
 
@@ -24,11 +25,11 @@ const EXAMPLE = '`fixed: { inputs: { R: 16 }, result: 16 }`';
 export function readFixed(
   ctx: SpecContext,
   entry: Entry | undefined,
-  arithmetic: { value: string; pos: Pos },
+  arithmetic: { value: ArithmeticName; pos: Pos },
   inputs: readonly InputRange[],
   positions: Record<string, Pos>,
 ): FixedFormat | undefined {
-  if (arithmetic.value !== 'fixed32') {
+  if (SPEC_ARITHMETICS[arithmetic.value].kind !== 'fixed') {
     if (entry) ctx.fail(`applies only to arithmetic: fixed32 (this spec says ${arithmetic.value}); remove it or set arithmetic: fixed32`, entry.keyPos, 'fixed');
     return undefined;
   }

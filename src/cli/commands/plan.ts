@@ -5,7 +5,7 @@ import type { Plan } from '../../plan/plan.js';
 import { RootcastError } from '../../errors.js';
 import { claimsOf, planSpec } from '../pipeline.js';
 import { GENERATOR, jsonOutput, refusalJson } from '../refusal-json.js';
-import { fixedFamilyOf } from '../fixed/pipeline.js';
+import { fixedFamilyOf } from '../fixed/input.js';
 import { fixedPlanJson, fixedPlanText } from '../fixed/plan.js';
 import { makeFixedPlan } from '../../plan/fixed/plan-fixed.js';
 
