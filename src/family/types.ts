@@ -75,6 +75,20 @@ export interface PlanKnobs {
  */
 export type OutsideBox = 'extrapolate' | 'saturate';
 
+/**
+ * The spec's `result:`: what the function returns instead of the root, an
+ * expression in the unknown, the inputs and the constants that is a
+ * polynomial in the unknown.
+ */
+export interface ResultSpec {
+  /** The expression as parsed: the unknown reads as input number `inputs.length`. */
+  readonly expr: Expr;
+  /** Canonical text for headers (src/family/expr-print.ts). */
+  readonly text: string;
+  /** Coefficients by power of the unknown (index = power; null = zero), in inputs and constants only. */
+  readonly powers: readonly (Expr | null)[];
+}
+
 export interface Family {
   /** Spec path as the user gave it (used in messages and headers, never made absolute). */
   readonly file: string;
@@ -99,6 +113,8 @@ export interface Family {
   readonly plan: PlanKnobs;
   /** `inputs_outside_box`: extrapolate (the default) or saturate. */
   readonly outsideBox: OutsideBox;
+  /** `result:` when the function returns an expression at the root instead of the root. */
+  readonly result?: ResultSpec;
   /** Field path -> position of its value in the file, for messages after parsing. */
   readonly positions: Readonly<Record<string, Pos>>;
 }

@@ -47,6 +47,8 @@ export interface CellFacts {
   readonly rootMin: number;
   /** Upper bound of |x*| over the cell (from the same enclosure as rootMin). */
   readonly rootMax: number;
+  /** Enclosure of the root x* over the cell (the interval rootMin is read from); absent unless the state is ok. */
+  readonly rootRange?: Interval;
   /** Enclosure of c'1 over the cell (null when it is a known constant without a tight enclosure). */
   readonly c1Range?: Interval | null;
   /** The tight enclosures the cell was bounded with, for the Newton step's bound. */
@@ -77,7 +79,7 @@ export function cellFacts(ap: AnalysisProgram, degree: number, cell: Cell, x0: n
   if (!root.converges) return { ...base, state: { kind: 'diverges', T }, R, aUpper: Infinity };
   const { lo, hi } = rootEnclosure(x0, r, R, root.upper);
   const rootMin = lo > 0 ? lo : hi < 0 ? -hi : 0;
-  return { ...base, state: { kind: 'ok' }, R, aUpper: root.upper, rootMin, rootMax: Math.max(-lo, hi) };
+  return { ...base, state: { kind: 'ok' }, R, aUpper: root.upper, rootMin, rootMax: Math.max(-lo, hi), rootRange: { lo, hi } };
 }
 
 /**

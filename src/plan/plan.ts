@@ -16,6 +16,7 @@ import { locate } from './locate.js';
 import { applyOutsideBox } from './outside-box.js';
 import { planSegments } from './plan-segments.js';
 import { plainTrial, type PlainTrial } from './plain-series.js';
+import { planWithResult } from './result-stage.js';
 import { frugalChoice, searchSegments } from './segment-search.js';
 import { refuseWorkLimit } from './refusals.js';
 import { TABLE_FIX } from './tuning.js';
@@ -34,7 +35,7 @@ export function makePlan(family: Family, options: PlanOptions = {}): Plan {
   if (family.fixed) throw new Error('a fixed32 family is planned by makeFixedPlan');
   startWork(options.onWork ?? null);
   try {
-    return applyOutsideBox(planWithinLimit(family));
+    return applyOutsideBox(planWithResult(family, planWithinLimit));
   } catch (e) {
     if (e instanceof WorkLimitError) refuseWorkLimit(family);
     throw e;

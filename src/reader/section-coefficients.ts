@@ -78,7 +78,7 @@ function readPower(ctx: SpecContext, e: Entry, degree: number): number {
 }
 
 /** Parse a coefficient written as text (`1 - R / R0`) or as a YAML number (`-5.775e-7`). */
-function readExpression(ctx: SpecContext, node: Node, field: string, scope: ExprScope): Expr {
+export function readExpression(ctx: SpecContext, node: Node, field: string, scope: ExprScope): Expr {
   let src: string;
   let offsets: number[];
   if (isScalar(node) && typeof node.value === 'string') {

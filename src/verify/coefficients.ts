@@ -92,3 +92,14 @@ export function coefficientEvaluator(family: Family): (inputs: readonly Rational
   }
   return (inputs) => parts.map((f) => f(inputs));
 }
+
+/**
+ * The spec's `result:` as written (its own expression tree, not the planner's
+ * expansion in powers): exact inputs and the exact root in, the exact result
+ * out; null when the spec has no result.
+ */
+export function resultEvaluator(family: Family): ((inputs: readonly Rational[], root: Rational) => Rational) | null {
+  if (!family.result) return null;
+  const f = compile(family.result.expr, exactConstants(family));
+  return (inputs, root) => f([...inputs, root]);
+}

@@ -36,6 +36,8 @@ export function cHarness(input: EmitInput): EmittedFile {
     degree: String(family.degree),
     relative: claims.bound.kind === 'relative' ? '1' : '0',
     specBracket: family.bracket ? '1' : '0',
+    hasResult: family.result ? '1' : '0',
+    resultExpr: family.result ? cRealExpr(family.result.expr) : '((rc_real)0LL)',
     inputNames: parts.inputNames.map((n) => `"${n}"`).join(', '),
     boxLo: parts.lo.map(double).join(', '),
     boxHi: parts.hi.map(double).join(', '),

@@ -78,6 +78,7 @@ export function harnessParts(input: EmitInput, role: string, header: { readonly 
     }
   };
   family.coefficients.forEach((e) => e && walk(e));
+  if (family.result) walk(family.result.expr);
   for (const c of used) {
     if (!(c in family.constants)) throw new Error(`constant ${c} is used but has no value`);
     assertUserName(c, 'constant name');

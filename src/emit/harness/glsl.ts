@@ -8,6 +8,7 @@
  * machinery templates/glsl/check-reference.js; this file fills in the family
  * and the snippet text.
  */
+import { Rational } from '../../math/rational.js';
 import { formatEUp } from '../literals/round-up.js';
 import { readTemplate, renderTemplate } from '../templates.js';
 import { glslFunction } from '../glsl/function.js';
@@ -51,6 +52,8 @@ export function glslHarness(input: EmitInput): EmittedFile {
       return e ? jsRationalExpr(e) : 'rc_q(0n, 1n)';
     }).join(', '),
     snippet: scriptString(glslFunction(input).text),
+    result: family.result ? `(x) => ${jsRationalExpr(family.result.expr)}` : 'null',
+    rootScale: double(family.result && family.bracket ? Math.max(...family.bracket.map((t) => Math.abs(Rational.parseDecimal(t).toNumber()))) : 0),
     kind: claims.bound.kind,
   });
   return { path: glslHarnessPath(name), text };

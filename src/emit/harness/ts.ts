@@ -9,6 +9,7 @@
  */
 import { formatEUp } from '../literals/round-up.js';
 import { tsLiteral } from '../literals/ts.js';
+import { Rational } from '../../math/rational.js';
 import { renderTemplate } from '../templates.js';
 import type { EmitInput, EmittedFile } from '../types.js';
 import { harnessParts } from './family-parts.js';
@@ -47,6 +48,8 @@ export function tsHarness(input: EmitInput): EmittedFile {
       return e ? tsRationalExpr(e) : 'rc_q(0n, 1n)';
     }).join(', '),
     callArguments: parts.inputNames.map((_, j) => `x[${j}]!`).join(', '),
+    result: family.result ? `(x) => ${tsRationalExpr(family.result.expr)}` : 'null',
+    rootScale: double(family.result && family.bracket ? Math.max(...family.bracket.map((t) => Math.abs(Rational.parseDecimal(t).toNumber()))) : 0),
     arithmetic: family.arithmetic,
     kind: claims.bound.kind,
   });
