@@ -44,14 +44,14 @@ export function headerLines(input: EmitInput, fileRole: string, options: { reado
     '',
     ...labelled('equation:', [equationText(family)]),
     ...labelled('constants:', constantLines(family)),
-    ...labelled('inputs:', family.inputs.map((r) => `${r.name} in [${r.lo}, ${r.hi}]`)),
+    ...labelled('inputs:', family.inputs.map((r) => `${r.name} in [${r.lo.text}, ${r.hi.text}]`)),
     ...labelled('outside:', outsideBoxLines(input)),
     ...labelled('root:', wrapWords(claims.rootNote, WRAP_COLUMN - LABEL_WIDTH)),
     ...(claims.result ? labelled('returns:', wrapWords(`${claims.result.text} at the root ${family.unknown} (result:)`, WRAP_COLUMN - LABEL_WIDTH)) : []),
     ...labelled('arithmetic:', [ARITHMETIC_NOTE[input.program.arithmetic]]),
     '',
     ...(claims.result ? resultBoundLines(family, claims.result, b) : boundLines(b)),
-    ...labelled('target:', [`${family.accuracy.value} (${family.accuracy.kind})`]),
+    ...labelled('target:', [`${family.accuracy.value.text} (${family.accuracy.kind})`]),
     ...labelled('series:', [
       `order ${claims.order}, ${claims.terms} ${claims.terms === 1 ? 'term' : 'terms'}${claims.steps > 0 ? `, then ${claims.steps} Newton ${claims.steps === 1 ? 'step' : 'steps'}` : ''}`,
     ]),
@@ -159,7 +159,7 @@ export function shortHash(hash: string): string {
 
 export function constantLines(family: Family): string[] {
   const entries = Object.entries(family.constants);
-  return entries.length === 0 ? ['none'] : entries.map(([name, value]) => `${name} = ${value}`);
+  return entries.length === 0 ? ['none'] : entries.map(([name, value]) => `${name} = ${value.text}`);
 }
 
 /** First line after the label, the rest indented under it. */

@@ -41,7 +41,7 @@ export function derivativePowers(powers: readonly (Expr | null)[], at: Pos): rea
   const out: Powers = [];
   for (let k = 1; k < powers.length; k++) {
     const r = powers[k];
-    out.push(r ? (k === 1 ? r : { kind: 'mul', left: exprNumber(String(k), at), right: r, pos: at }) : null);
+    out.push(r ? (k === 1 ? r : { kind: 'mul', left: exprNumber(k, at), right: r, pos: at }) : null);
   }
   return out.length === 0 ? [null] : out;
 }
@@ -52,7 +52,7 @@ function expand(e: Expr, unknown: number, name: string): Powers {
     case 'constant':
       return [e];
     case 'input':
-      return e.index === unknown ? [null, exprNumber('1', e.pos)] : [e];
+      return e.index === unknown ? [null, exprNumber(1, e.pos)] : [e];
     case 'neg':
       return expand(e.arg, unknown, name).map((c) => (c ? { kind: 'neg', arg: c, pos: e.pos } : null));
     case 'add':
@@ -82,8 +82,8 @@ function expand(e: Expr, unknown: number, name: string): Powers {
     }
     case 'pow': {
       const base = expand(e.base, unknown, name);
-      if (base.length === 1) return base[0] ? [e] : e.exponent === 0 ? [exprNumber('1', e.pos)] : [null];
-      let acc: Powers = [exprNumber('1', e.pos)];
+      if (base.length === 1) return base[0] ? [e] : e.exponent === 0 ? [exprNumber(1, e.pos)] : [null];
+      let acc: Powers = [exprNumber(1, e.pos)];
       for (let i = 0; i < e.exponent; i++) acc = times(acc, base, e);
       return acc;
     }

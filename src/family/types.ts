@@ -1,9 +1,15 @@
 /**
  * The validated equation family that the spec reader hands to the planner.
- * Every number that came from the spec is kept as its exact decimal text, so
- * nothing is rounded before the planner decides what to round.
+ * Every number that came from the spec is a SpecNumber: its exact value,
+ * parsed once by the reader, beside the text the user wrote. Nothing is
+ * rounded before the planner decides what to round, and nothing after the
+ * reader parses spec text again.
  */
+import type { Rational } from '../math/rational.js';
 import type { Arithmetic, ArithmeticName, CostModelName } from './arithmetic.js';
+import type { SpecNumber } from './spec-number.js';
+
+export type { SpecNumber } from './spec-number.js';
 
 /**
  * `arithmetic: fixed32` (DESIGN.md 1.12): every argument and the result is an
@@ -31,7 +37,7 @@ export interface Pos {
 
 /** Expression grammar: numbers, names, + - * / ^ (non-negative integer powers), unary minus. */
 export type Expr =
-  | { readonly kind: 'num'; readonly text: string; readonly pos: Pos }
+  | { readonly kind: 'num'; readonly text: string; readonly value: Rational; readonly pos: Pos }
   | { readonly kind: 'input'; readonly name: string; readonly index: number; readonly pos: Pos }
   | { readonly kind: 'constant'; readonly name: string; readonly pos: Pos }
   | { readonly kind: 'neg'; readonly arg: Expr; readonly pos: Pos }
@@ -45,10 +51,13 @@ export type Expr =
 
 export interface InputRange {
   readonly name: string;
-  /** Exact decimal text of the range ends, lo < hi. */
-  readonly lo: string;
-  readonly hi: string;
+  /** The range ends, lo < hi. */
+  readonly lo: SpecNumber;
+  readonly hi: SpecNumber;
 }
+
+/** The spec's named constants: name -> number, in the spec's order. */
+export type Constants = Readonly<Record<string, SpecNumber>>;
 
 /** A segment count: 'auto' (the planner chooses) or a power of two. */
 export type SegmentCount = 'auto' | number;
@@ -102,11 +111,10 @@ export interface Family {
   /** The coefficient expressions as the user wrote them (for headers), same indexing. */
   readonly coefficientText: readonly (string | null)[];
   readonly inputs: readonly InputRange[];
-  /** Constant name -> exact decimal text. */
-  readonly constants: Readonly<Record<string, string>>;
-  /** Exact decimal text of the bracket ends, or null for the series' own root. */
-  readonly bracket: readonly [string, string] | null;
-  readonly accuracy: { readonly kind: 'absolute' | 'relative'; readonly value: string };
+  readonly constants: Constants;
+  /** The bracket ends, or null for the series' own root. */
+  readonly bracket: readonly [SpecNumber, SpecNumber] | null;
+  readonly accuracy: { readonly kind: 'absolute' | 'relative'; readonly value: SpecNumber };
   readonly arithmetic: Arithmetic;
   /** Present for `arithmetic: fixed32` only: the binary points (see FixedFormat). */
   readonly fixed?: FixedFormat;

@@ -15,6 +15,7 @@ import { RootcastError } from '../errors.js';
 import { countOps, type OpCounts } from '../ir/count.js';
 import { COST_MODELS, programCost } from '../ir/cost/index.js';
 import type { Family, ResultSpec } from '../family/types.js';
+import { SpecNumber } from '../family/spec-number.js';
 import { locate } from './locate.js';
 import { appendResult, resultAnalysisProgram } from './result-program.js';
 import { largestBudget, resultBound, type ResultEvaluation } from './result-bound.js';
@@ -37,7 +38,7 @@ export function planWithResult(family: Family, planRoot: (f: Family) => Plan): P
   if (Number.isFinite(most)) {
     for (const share of RESULT_BUDGET.shares) {
       const budget = most * share;
-      if (tried.some((t) => t.root.family.accuracy.value === budgetText(budget))) continue;
+      if (tried.some((t) => t.root.family.accuracy.value.text === budgetText(budget))) continue;
       try {
         tried.push(tryBudget(budget));
       } catch (e) {
@@ -68,7 +69,7 @@ function firstTry<T>(budgets: readonly number[], attempt: (b: number) => T): T {
 /** The root planned to an absolute budget; a refusal says it was for the result. */
 function planRootTo(family: Family, planRoot: (f: Family) => Plan, budget: number): Plan {
   const { result: _result, ...rest } = family;
-  const rootFamily: Family = { ...rest, accuracy: { kind: 'absolute', value: budgetText(budget) } };
+  const rootFamily: Family = { ...rest, accuracy: { kind: 'absolute', value: SpecNumber.parse(budgetText(budget)) } };
   try {
     return planRoot(rootFamily);
   } catch (e) {

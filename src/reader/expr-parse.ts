@@ -154,7 +154,7 @@ class Parser {
       case 'number': {
         const checked = checkDecimalText(t.text);
         if (!checked.ok) throw new ExprError(checked.problem, t.index);
-        return { kind: 'num', text: t.text, pos: this.posAt(t.index) };
+        return { kind: 'num', text: t.text, value: checked.value, pos: this.posAt(t.index) };
       }
       case 'name':
         return this.resolveName(t);

@@ -20,7 +20,7 @@ import { readPlan } from './section-plan.js';
 import { readRoot } from './section-root.js';
 import { readFixed } from './section-fixed.js';
 import { readResult } from './section-result.js';
-import type { Expr, Family, OutsideBox, Pos } from '../family/types.js';
+import type { Expr, Family, OutsideBox, Pos, SpecNumber } from '../family/types.js';
 import { SPEC_ARITHMETICS, type Arithmetic, type ArithmeticName } from '../family/arithmetic.js';
 import { parseSpecDocument } from './yaml-document.js';
 import { expectMap, refuseUnknownKeys, valueOf, type Entry } from './yaml-map.js';
@@ -75,12 +75,12 @@ export function readSpec(file: string, text: string, bytes?: Uint8Array): Family
   const constants = readConstants(ctx, field('constants'), names, positions);
   const scope = {
     inputs: inputs.inputs.map((i) => i.name),
-    constants: Object.keys(constants.texts),
+    constants: Object.keys(constants),
     unknown,
     functionName,
   };
-  const coefficients = readCoefficients(ctx, must('coefficients'), degree, scope, constants.values, positions);
-  const result = readResult(ctx, field('result'), scope, constants.values, positions);
+  const coefficients = readCoefficients(ctx, must('coefficients'), degree, scope, constants, positions);
+  const result = readResult(ctx, field('result'), scope, constants, positions);
   refuseUnusedInputs(ctx, [...coefficients.exprs, ...(result?.powers ?? [])], inputs);
   const bracket = readRoot(ctx, field('root'), positions);
   const accuracy = readAccuracy(ctx, must('accuracy'), positions);
@@ -107,7 +107,7 @@ export function readSpec(file: string, text: string, bytes?: Uint8Array): Family
     coefficients: coefficients.exprs,
     coefficientText: coefficients.exprs.map((e) => (e === null ? null : printExpr(e))),
     inputs: inputs.inputs,
-    constants: constants.texts,
+    constants,
     bracket,
     accuracy,
     arithmetic,
@@ -139,7 +139,7 @@ function readNameField(ctx: SpecContext, e: Entry, role: 'the function' | 'the u
  * result, not the root a bracket could be built around). fixed32 has no
  * result stage yet.
  */
-function refuseResultWithout(ctx: SpecContext, e: Entry, arithmetic: string, bracket: readonly [string, string] | null): void {
+function refuseResultWithout(ctx: SpecContext, e: Entry, arithmetic: string, bracket: readonly [SpecNumber, SpecNumber] | null): void {
   const at = e.value ? ctx.nodePos(e.value) : e.keyPos;
   if (arithmetic === 'fixed32') ctx.fail('result: is not available with arithmetic: fixed32 yet; use float32 or float64, or remove result: and evaluate it after the call', at, e.field);
   if (!bracket) ctx.fail('result: needs root.bracket (the checks find the exact root in the bracket, then evaluate the result there); add root: { bracket: [low, high] } around the wanted root', at, e.field);

@@ -15,7 +15,7 @@ import { ExprError, parseExpr, type ExprScope } from './expr-parse.js';
 import { valueOffsets } from './positions.js';
 import { showText } from '../family/show.js';
 import { describeNode, expectMap, valueOf, type Entry } from './yaml-map.js';
-import type { Expr, Pos } from '../family/types.js';
+import type { Constants, Expr, Pos } from '../family/types.js';
 
 export interface CoefficientsSection {
   /** Index = power; null where the spec gives none. */
@@ -29,7 +29,7 @@ export function readCoefficients(
   entry: Entry,
   degree: number,
   scope: ExprScope,
-  constants: ReadonlyMap<string, Rational>,
+  constants: Constants,
   positions: Record<string, Pos>,
 ): CoefficientsSection {
   const node = valueOf(ctx, entry, 'the coefficient of each power, as `POWER: expression`');

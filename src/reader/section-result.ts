@@ -6,7 +6,6 @@
  *
  *   result: 3 * (1 - s) ^ 2 * s * Y1 + 3 * (1 - s) * s ^ 2 * Y2 + s ^ 3
  */
-import type { Rational } from '../math/rational.js';
 import type { SpecContext } from './context.js';
 import { ConstantPartError, foldConstantParts } from '../family/expr-fold.js';
 import { printExpr } from '../family/expr-print.js';
@@ -14,13 +13,13 @@ import { resultPowers, ResultPowersError } from '../family/result-powers.js';
 import type { ExprScope } from './expr-parse.js';
 import { readExpression } from './section-coefficients.js';
 import { valueOf, type Entry } from './yaml-map.js';
-import type { Pos, ResultSpec } from '../family/types.js';
+import type { Constants, Pos, ResultSpec } from '../family/types.js';
 
 export function readResult(
   ctx: SpecContext,
   entry: Entry | undefined,
   scope: ExprScope,
-  constants: ReadonlyMap<string, Rational>,
+  constants: Constants,
   positions: Record<string, Pos>,
 ): ResultSpec | undefined {
   if (!entry) return undefined;

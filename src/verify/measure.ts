@@ -116,14 +116,14 @@ export function makeMeasurer(
   const coefficients = coefficientEvaluator(family);
   const specBracket = family.bracket
     ? {
-        lo: fractionOfRational(Rational.parseDecimal(family.bracket[0])),
-        hi: fractionOfRational(Rational.parseDecimal(family.bracket[1])),
+        lo: fractionOfRational(family.bracket[0].value),
+        hi: fractionOfRational(family.bracket[1].value),
       }
     : null;
   const result = resultEvaluator(family);
   if (result) {
     if (!specBracket || !family.bracket) throw new Error('a result: family has root.bracket (the reader requires it)');
-    const scale = Math.max(...family.bracket.map((t) => Math.abs(Rational.parseDecimal(t).toNumber())));
+    const scale = Math.max(...family.bracket.map((t) => Math.abs(t.toNumber())));
     const s = referenceGridExponent(scale, absoluteBound);
     return (computed, inputs) => {
       if (!Number.isFinite(computed)) return { kind: 'not-finite' };

@@ -11,6 +11,7 @@
 import { describe, expect, test } from '@jest/globals';
 import fc from 'fast-check';
 import { Rational } from '../../src/math/rational.js';
+import { SpecNumber } from '../../src/family/spec-number.js';
 import { evalExprExact } from '../../src/family/expr-eval.js';
 import { readSpec } from '../../src/reader/read.js';
 import { expectRefusal, withExtra } from './helpers.js';
@@ -53,7 +54,7 @@ describe('result', () => {
 
   test('the powers of the unknown reproduce the expression exactly at random points (fast-check, exact rationals)', () => {
     const f = readSpec('spec.yaml', withExtra(...BRACKET, 'result: 3 * (1 - x) ^ 2 * x * k1 - (F - x) * (x + 2) ^ 3 / k3 + x ^ 4 * F'));
-    const constants = { k1: Rational.parseDecimal('12.5'), k3: Rational.parseDecimal('0.004') };
+    const constants = { k1: SpecNumber.parse('12.5'), k3: SpecNumber.parse('0.004') };
     const spec = f.result!;
     fc.assert(
       fc.property(fc.integer({ min: -1000, max: 1000 }), fc.integer({ min: -1000, max: 1000 }), (pn, xn) => {
