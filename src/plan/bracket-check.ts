@@ -137,8 +137,8 @@ export function plainRootAtCentre(family: Family, centre: CellFacts): void {
   if (centre.state.kind !== 'ok') {
     throw new RootcastError(`the plain series about ${family.unknown} = 0 has no bound at the box centre (${where})`, locate(family, 'root.bracket'));
   }
-  const a = Rational.parseDecimal(family.bracket[0]).toNumberDown();
-  const b = Rational.parseDecimal(family.bracket[1]).toNumberUp();
+  const a = family.bracket[0].value.toNumberDown();
+  const b = family.bracket[1].value.toNumberUp();
   const { lo, hi } = rootEnclosure(0, centre.rRange, centre.R, centre.aUpper);
   if (lo < a || hi > b) {
     throw new RootcastError(
