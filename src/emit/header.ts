@@ -12,7 +12,7 @@
 import { countOps, type OpCounts } from '../ir/count.js';
 import { COST_MODELS, costHeaderLines } from '../ir/cost/index.js';
 import type { Family } from '../family/types.js';
-import type { Arithmetic } from '../family/arithmetic.js';
+import { ARITHMETICS, type Arithmetic } from '../family/arithmetic.js';
 import { formatBoundUp } from './literals/round-up.js';
 import { stampLine } from './stamp.js';
 import type { EmitInput } from './types.js';
@@ -27,8 +27,10 @@ const WRAP_COLUMN = 76;
 const LABEL_WIDTH = 12;
 
 /**
- * `cycles: false` leaves out the Cortex-M4F estimate (GLSL files: a shader
- * runs on a GPU, so its header gives the op counts only).
+ * `cycles: false` leaves out the CPU cost figures (shader files): one line
+ * names the cost model that ranked the plan instead (its estimate when it is
+ * the GPU model): a shader runs on a GPU, so its header gives the op counts
+ * and no CPU cycles.
  */
 export function headerLines(input: EmitInput, fileRole: string, options: { readonly cycles?: boolean } = {}): string[] {
   const { family, claims, generator } = input;
@@ -64,13 +66,22 @@ export function headerLines(input: EmitInput, fileRole: string, options: { reado
     ]),
     ...labelled('operations:', [`${ops.add} add, ${ops.mul} mul, ${ops.div} div, ${ops.tableReads} table reads${ops.compares > 0 ? `, ${ops.compares} compares` : ''}`]),
     ...(options.cycles === false
-      ? input.claims.costModel === 'gpu'
-        ? costHeaderLines(input.program, COST_MODELS.gpu)
-        : []
+      ? [shaderCostLine(input)]
       : costHeaderLines(input.program, input.claims.costModel ? COST_MODELS[input.claims.costModel] : undefined)),
   ];
   for (const line of lines) assertCommentSafe(line);
   return lines;
+}
+
+/**
+ * A shader header's one cost line: which model ranked the plan. Ranked by the
+ * GPU model, its estimate; ranked by a CPU model (the arithmetic's default),
+ * its name and unit only: a CPU cycle figure says nothing about a GPU.
+ */
+function shaderCostLine(input: EmitInput): string {
+  const model = COST_MODELS[input.claims.costModel ?? ARITHMETICS[input.program.arithmetic].costModel];
+  if (model.name === 'gpu') return model.headerLine(input.program);
+  return `cost model: the plan was ranked by ${model.name}, a CPU model (no GPU figure; plan.cost_model: gpu ranks for GPUs)`;
 }
 
 /**
