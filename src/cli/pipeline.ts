@@ -37,7 +37,17 @@ export function claimsOf(plan: Plan): PlanClaims {
     target: plan.target,
     ops: plan.ops,
     costModel: plan.costModel,
+    ...(plan.result
+      ? { result: { text: plan.result.text, slope: plan.result.slope, rootBudget: plan.result.rootBudget, rootBound: rootBoundParts(plan.result.rootBound) } }
+      : {}),
   };
+}
+
+/** The root's bound without its kind (a root planned for a result is always absolute). */
+function rootBoundParts(b: Plan['bound']): { truncation: number; economisation?: number; rounding: number; total: number } {
+  return b.economisation === undefined
+    ? { truncation: b.truncation, rounding: b.rounding, total: b.total }
+    : { truncation: b.truncation, economisation: b.economisation, rounding: b.rounding, total: b.total };
 }
 
 export function emitInputOf(plan: Plan): EmitInput {

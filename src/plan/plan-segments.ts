@@ -64,7 +64,7 @@ function planSegmentsInner(family: Family, box: Cell, layout: SegmentLayout, tho
     layout,
     counts,
     relative,
-    target: Number(family.accuracy.value),
+    target: family.accuracy.value.toNumber(),
     set,
     ap,
     pool: new TermPool(family.degree, [...ap.q.keys()], set),
@@ -180,7 +180,7 @@ export function segmentNeeds(family: Family, box: Cell, layout: SegmentLayout, o
   const { expansion } = expansionFor(family, layout);
   const ap = prefixOf(family, expansion, layout);
   const relative = family.accuracy.kind === 'relative';
-  const target = Number(family.accuracy.value);
+  const target = family.accuracy.value.toNumber();
   const perSegment = initialCellsPerSegment(family.inputs.length, layout.segmentation.segments);
   const initial = layout.boxes.flatMap((b, segment) => grid(b, perSegment).map((cell) => ({ cell, segment })));
   const x0 = expansion.x0.map((v) => v.toNumber());

@@ -15,6 +15,7 @@ import { candidatesOf, withCandidates } from './candidates.js';
 import { locate } from './locate.js';
 import { applyOutsideBox } from './outside-box.js';
 import { planSegments } from './plan-segments.js';
+import { planWithResult } from './result-stage.js';
 import { searchSegments } from './segment-search.js';
 import { refuseWorkLimit } from './refusals.js';
 import { TABLE_FIX } from './tuning.js';
@@ -33,7 +34,7 @@ export function makePlan(family: Family, options: PlanOptions = {}): Plan {
   if (family.fixed) throw new Error('a fixed32 family is planned by makeFixedPlan');
   startWork(options.onWork ?? null);
   try {
-    return applyOutsideBox(planWithinLimit(family));
+    return applyOutsideBox(planWithResult(family, planWithinLimit));
   } catch (e) {
     if (e instanceof WorkLimitError) refuseWorkLimit(family);
     throw e;

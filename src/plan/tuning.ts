@@ -205,3 +205,21 @@ export const TABLE_FIX = {
   /** The limits the search is retried with, in turn, when plan.max_table_bytes kept it from splitting: the default 4 KiB, then 64 KiB, a table most targets still hold in memory. */
   tryBytes: [4096, 65536] as const,
 } as const;
+
+/** The result stage's choice of the root's accuracy budget (src/plan/result-stage.ts). */
+export const RESULT_BUDGET = {
+  /**
+   * The first root plan is made for the first of these shares of the target
+   * (as if |d result / dx| were 1; its cells give the slopes). When the root
+   * cannot meet that (its rounding floor), the next, looser one is tried: a
+   * result whose slope is well below 1 needs only a looser root.
+   */
+  firstShares: [1, 1000] as const,
+  /**
+   * Shares of the largest root budget the first plan's cells allow, tried in
+   * turn; the cheapest plan that meets the target wins. A looser root is
+   * usually cheaper, but a tighter one can change the form or the segments
+   * the planner picks, so two splits are weighed; each is one more plan.
+   */
+  shares: [0.9, 0.5] as const,
+} as const;

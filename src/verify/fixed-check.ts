@@ -68,7 +68,7 @@ export function checkFixedInProcess(c: FixedCheckInput, samples: number, seed: n
     const yr = fromRaw(y, fx.result);
     const cs = coefficients([fromRaw(raw, fx.inputs[0]!)]);
     const spread = Rational.fromNumber(2 * c.bound).add(pow2(-fx.result));
-    const [lo, hi] = family.bracket ? [Rational.parseDecimal(family.bracket[0]), Rational.parseDecimal(family.bracket[1])] : [yr.sub(spread), yr.add(spread)];
+    const [lo, hi] = family.bracket ? [family.bracket[0].value, family.bracket[1].value] : [yr.sub(spread), yr.add(spread)];
     const r = referenceRoot(cs, lo, hi, resolution);
     if (r === 'no-sign-change') {
       noSignChangeAt ??= raw;
