@@ -13,14 +13,15 @@ function candidateOf(p: Plan): Candidate {
     cost: p.cost,
     tableBytes: p.tableBytes,
     bound: p.bound.total,
+    plain: p.root.centre === null,
     refusal: null,
     chosen: false,
   };
 }
 
 /** A segmentation the planner refused, as a row. */
-export function refusedCandidate(counts: readonly number[], refusal: string): Candidate {
-  return { form: 'series', degree: null, counts, order: null, terms: null, steps: 0, ops: null, cost: null, tableBytes: null, bound: null, refusal, chosen: false };
+export function refusedCandidate(counts: readonly number[], refusal: string, plain = false): Candidate {
+  return { form: 'series', degree: null, counts, order: null, terms: null, steps: 0, ops: null, cost: null, tableBytes: null, bound: null, plain, refusal, chosen: false };
 }
 
 /** The plan and the other forms weighed for its segments, as candidate rows. */
@@ -32,6 +33,6 @@ const sameCounts = (a: readonly number[], b: readonly number[]): boolean => a.ev
 
 /** The chosen plan with its candidate rows, the row that is the plan marked chosen. */
 export function withCandidates(p: Plan, candidates: readonly Candidate[]): Plan {
-  const marked = candidates.map((c) => ({ ...c, chosen: c.refusal === null && c.form === p.form && c.steps === p.steps && sameCounts(c.counts, p.counts) }));
+  const marked = candidates.map((c) => ({ ...c, chosen: c.refusal === null && c.form === p.form && c.steps === p.steps && c.plain === (p.root.centre === null) && sameCounts(c.counts, p.counts) }));
   return { ...p, candidates: marked };
 }

@@ -60,6 +60,8 @@ export interface Candidate {
   /** Bytes of the constant tables (null when refused). */
   readonly tableBytes: number | null;
   readonly bound: number | null;
+  /** True for the plain series about the unknown = 0 (not recentred): every plan without a bracket, and a bracketed family's plain candidate. */
+  readonly plain: boolean;
   /** Why it was not possible, in one line, or null. */
   readonly refusal: string | null;
   readonly chosen: boolean;

@@ -75,6 +75,7 @@ export function planJson(plan: Plan): { readonly generator: typeof GENERATOR; re
       cost: k.cost,
       tableBytes: k.tableBytes,
       bound: k.bound,
+      plain: k.plain,
       refusal: k.refusal,
       chosen: k.chosen,
     })),
@@ -87,7 +88,8 @@ export function candidateTable(plan: Plan): string[] {
   const rows = plan.candidates.map((k) => [
     k.chosen ? '*' : '',
     k.form,
-    k.counts.join('x'),
+    // A bracketed family's plain series (not recentred, one box) says so; without a bracket every plan is plain.
+    k.plain && plan.family.bracket ? 'plain' : k.counts.join('x'),
     k.order === null ? '-' : String(k.order),
     k.degree === null ? '-' : String(k.degree),
     k.terms === null ? '-' : String(k.terms),
