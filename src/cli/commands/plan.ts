@@ -2,10 +2,10 @@
 import { formatBoundUp } from '../../emit/literals/round-up.js';
 import { equationText } from '../../emit/header.js';
 import type { Plan } from '../../plan/plan.js';
-import { RootcastError } from '../../errors.js';
-import { claimsOf, planSpec } from '../pipeline.js';
-import { GENERATOR, jsonOutput, refusalJson } from '../refusal-json.js';
-import { fixedFamilyOf } from '../fixed/input.js';
+import { claimsOf, planFamily } from '../pipeline.js';
+import { loadSpec } from '../../reader/load.js';
+import { GENERATOR, jsonOutput, reportRefusal } from '../refusal-json.js';
+import { isFixedFamily } from '../fixed/input.js';
 import { fixedPlanJson, fixedPlanText } from '../fixed/plan.js';
 import { makeFixedPlan } from '../../plan/fixed/plan-fixed.js';
 import { coarseCellsOf } from '../../plan/candidates.js';
@@ -21,21 +21,19 @@ export function runPlan(o: { specs: readonly string[]; json: boolean }, print: (
   const texts: string[] = [];
   for (const spec of o.specs) {
     try {
-      const fixed = fixedFamilyOf(spec);
-      if (fixed) {
-        const plan = makeFixedPlan(fixed);
+      // Read once: the fixed32 and the float pipelines both take the family.
+      const family = loadSpec(spec);
+      if (isFixedFamily(family)) {
+        const plan = makeFixedPlan(family);
         if (o.json) results.push(fixedPlanJson(plan) as object);
         else texts.push(fixedPlanText(plan));
         continue;
       }
-      const plan = planSpec(spec);
+      const plan = planFamily(family);
       if (o.json) results.push(planJson(plan));
       else texts.push(planText(plan));
     } catch (e) {
-      if (!(e instanceof RootcastError)) throw e;
-      printError(e.toLine());
-      if (o.json) results.push(refusalJson(e, spec));
-      code = Math.max(code, e.exitCode);
+      code = Math.max(code, reportRefusal(e, spec, o.json ? results : null, printError));
     }
   }
   if (o.json) print(jsonOutput(results));
