@@ -25,6 +25,7 @@ const SLOW = [
   'test/ir/check.test.ts',
   'test/verify/inprocess.test.ts',
   'test/plan/tight-enclosures.test.ts',
+  'test/plan/corpus-property.test.ts',
 ];
 
 function testFiles(dir) {
