@@ -2,7 +2,7 @@
 //
 // For every examples/*.yaml, in sorted order, this writes exactly what
 //     rootcast emit examples/<file> --target all --out generated-samples/<basename>
-// writes (the same planSpec -> emitInputOf -> emitFiles -> writeFiles path),
+// writes (the same filesOfSpec -> writeFiles path),
 // after clearing that folder, so a file the emitter no longer writes does not
 // linger. Folders for examples that no longer exist are removed too, so
 // generated-samples/ holds one folder per example and nothing else
@@ -15,10 +15,9 @@
 import { mkdirSync, readdirSync, rmSync, statSync } from 'node:fs';
 import { basename, dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { emitFiles, targetsOf } from '../dist/cli/emit-files.js';
+import { targetsOf } from '../dist/emit/outputs.js';
 import { writeFiles } from '../dist/cli/files.js';
-import { emitInputOf, planSpec } from '../dist/cli/pipeline.js';
-import { fixedFamilyOf, fixedFilesOfSpec } from '../dist/cli/fixed/pipeline.js';
+import { filesOfSpec } from '../dist/cli/spec-files.js';
 
 const ROOT = join(dirname(fileURLToPath(import.meta.url)), '..');
 process.chdir(ROOT);
@@ -26,7 +25,7 @@ process.chdir(ROOT);
 const EXAMPLES = 'examples';
 const SAMPLES = 'generated-samples';
 
-// The float examples, then the fixed32 ones (examples/fixed32/, emitted as `--target all` does: C and TypeScript).
+// The float examples, then the fixed32 ones (examples/fixed32/, emitted as `--target all` does: every target the fixed32 row allows).
 const specs = [
   ...readdirSync(EXAMPLES)
     .filter((f) => f.endsWith('.yaml'))
@@ -42,8 +41,7 @@ const wanted = new Set(specs.map((f) => basename(f, '.yaml')));
 // anything under generated-samples/ is touched.
 const outputs = specs.map((f) => {
   const spec = `${EXAMPLES}/${f}`;
-  const fixed = fixedFamilyOf(spec);
-  const files = fixed ? fixedFilesOfSpec(fixed) : emitFiles(emitInputOf(planSpec(spec)), targetsOf('all'));
+  const files = filesOfSpec(spec, targetsOf('all'));
   return { spec, dir: `${SAMPLES}/${basename(f, '.yaml')}`, files };
 });
 

@@ -9,12 +9,17 @@
  * four is up to date. Files in the folder whose stamp names this spec (by
  * file name) with a role this check asks for, but which it no longer produces
  * (a renamed function, a spec now float64 without GLSL), are left over.
+ * fixed32 files carry the same stamp (src/emit/fixed-header.ts), and the
+ * targets the fixed32 row allows give their names.
  */
 import { closeSync, existsSync, openSync, readdirSync, readSync, statSync } from 'node:fs';
 import { join } from 'node:path';
 import { specPathForHeader } from '../emit/header.js';
 import { refuseUnlessFloat32 } from '../emit/glsl/refuse.js';
+import { refuseTargetForFixed } from '../emit/fixed-refuse.js';
 import { readStamp } from '../emit/stamp.js';
+import { arithmeticFacts } from '../family/arithmetic.js';
+import { arithmeticName } from '../family/types.js';
 import { loadSpec } from '../reader/load.js';
 import { VERSION } from '../version.js';
 import { outputFiles, targetsOf, type TargetName } from '../emit/outputs.js';
@@ -42,8 +47,10 @@ export interface CheckOptions {
 export function checkOutputs(spec: string, dir: string, options: CheckOptions): CheckResult {
   const family = loadSpec(spec);
   const targets = targetsOf(options.target);
+  const arithmetic = arithmeticName(family);
   if (targets.length === 1 && targets[0] === 'glsl') refuseUnlessFloat32(family);
-  const files = outputFiles(family.functionName, family.arithmetic, targets, options.harness);
+  if (targets.length === 1 && arithmeticFacts(arithmetic).kind === 'fixed') refuseTargetForFixed(family, targets[0]!);
+  const files = outputFiles(family.functionName, arithmetic, targets, options.harness);
   const names = files.map((f) => f.path);
   const specName = specPathForHeader(family.file);
   const generator = `rootcast/${VERSION}`;

@@ -4,6 +4,7 @@
  * emit-files.ts, so `plan` never loads the TypeScript compiler.)
  */
 import type { EmitInput, PlanClaims } from '../emit/types.js';
+import type { Family } from '../family/types.js';
 import { makePlan, type Plan } from '../plan/plan.js';
 import { loadSpec } from '../reader/load.js';
 import { planProgress } from './progress.js';
@@ -11,7 +12,11 @@ import { VERSION } from '../version.js';
 
 /** Plans a spec file; on a terminal, a plan running past a second shows progress on stderr. */
 export function planSpec(file: string): Plan {
-  const family = loadSpec(file);
+  return planFamily(loadSpec(file));
+}
+
+/** Plans a family already read (see planSpec). */
+export function planFamily(family: Family): Plan {
   const progress = planProgress(process.stderr, `planning ${family.functionName}`);
   try {
     return makePlan(family, { onWork: progress.observe });
@@ -32,7 +37,17 @@ export function claimsOf(plan: Plan): PlanClaims {
     target: plan.target,
     ops: plan.ops,
     costModel: plan.costModel,
+    ...(plan.result
+      ? { result: { text: plan.result.text, slope: plan.result.slope, rootBudget: plan.result.rootBudget, rootBound: rootBoundParts(plan.result.rootBound) } }
+      : {}),
   };
+}
+
+/** The root's bound without its kind (a root planned for a result is always absolute). */
+function rootBoundParts(b: Plan['bound']): { truncation: number; economisation?: number; rounding: number; total: number } {
+  return b.economisation === undefined
+    ? { truncation: b.truncation, rounding: b.rounding, total: b.total }
+    : { truncation: b.truncation, economisation: b.economisation, rounding: b.rounding, total: b.total };
 }
 
 export function emitInputOf(plan: Plan): EmitInput {

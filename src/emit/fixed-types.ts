@@ -5,6 +5,7 @@
  */
 import type { FixedCounts, FixedProgram } from '../ir/fixed/nodes.js';
 import type { Family } from '../family/types.js';
+import type { FileRole } from './stamp.js';
 
 export interface FixedClaims {
   readonly order: number;
@@ -25,4 +26,6 @@ export interface FixedEmitInput {
   readonly program: FixedProgram;
   readonly claims: FixedClaims;
   readonly generator: { readonly name: string; readonly version: string };
+  /** Which file is being printed, for the stamp line (fixed-files.ts sets it). */
+  readonly role?: FileRole;
 }

@@ -15,7 +15,7 @@ import type { Family } from '../family/types.js';
 import type { Arithmetic } from '../family/arithmetic.js';
 import { formatBoundUp } from './literals/round-up.js';
 import { stampLine } from './stamp.js';
-import type { EmitInput } from './types.js';
+import type { EmitInput, ResultClaims } from './types.js';
 
 const ARITHMETIC_NOTE: Readonly<Record<Arithmetic, string>> = {
   float32: 'float32 (IEEE 754 binary32, every operation rounded to nearest)',
@@ -44,21 +44,14 @@ export function headerLines(input: EmitInput, fileRole: string, options: { reado
     '',
     ...labelled('equation:', [equationText(family)]),
     ...labelled('constants:', constantLines(family)),
-    ...labelled('inputs:', family.inputs.map((r) => `${r.name} in [${r.lo}, ${r.hi}]`)),
+    ...labelled('inputs:', family.inputs.map((r) => `${r.name} in [${r.lo.text}, ${r.hi.text}]`)),
     ...labelled('outside:', outsideBoxLines(input)),
     ...labelled('root:', wrapWords(claims.rootNote, WRAP_COLUMN - LABEL_WIDTH)),
+    ...(claims.result ? labelled('returns:', wrapWords(`${claims.result.text} at the root ${family.unknown} (result:)`, WRAP_COLUMN - LABEL_WIDTH)) : []),
     ...labelled('arithmetic:', [ARITHMETIC_NOTE[input.program.arithmetic]]),
     '',
-    `certified bound (${b.kind} error, over the whole input box):`,
-    ...(b.economisation === undefined
-      ? [`  truncation  ${formatBoundUp(b.truncation)}`, `  rounding    ${formatBoundUp(b.rounding)}`, `  total       ${formatBoundUp(b.total)}`]
-      : [
-          `  truncation     ${formatBoundUp(b.truncation)}`,
-          `  economisation  ${formatBoundUp(b.economisation)}`,
-          `  rounding       ${formatBoundUp(b.rounding)}`,
-          `  total          ${formatBoundUp(b.total)}`,
-        ]),
-    ...labelled('target:', [`${family.accuracy.value} (${family.accuracy.kind})`]),
+    ...(claims.result ? resultBoundLines(family, claims.result, b) : boundLines(b)),
+    ...labelled('target:', [`${family.accuracy.value.text} (${family.accuracy.kind})`]),
     ...labelled('series:', [
       `order ${claims.order}, ${claims.terms} ${claims.terms === 1 ? 'term' : 'terms'}${claims.steps > 0 ? `, then ${claims.steps} Newton ${claims.steps === 1 ? 'step' : 'steps'}` : ''}`,
     ]),
@@ -71,6 +64,38 @@ export function headerLines(input: EmitInput, fileRole: string, options: { reado
   ];
   for (const line of lines) assertCommentSafe(line);
   return lines;
+}
+
+type BoundParts = EmitInput['claims']['bound'];
+
+function boundLines(b: BoundParts): string[] {
+  return [
+    `certified bound (${b.kind} error, over the whole input box):`,
+    ...(b.economisation === undefined
+      ? [`  truncation  ${formatBoundUp(b.truncation)}`, `  rounding    ${formatBoundUp(b.rounding)}`, `  total       ${formatBoundUp(b.total)}`]
+      : [
+          `  truncation     ${formatBoundUp(b.truncation)}`,
+          `  economisation  ${formatBoundUp(b.economisation)}`,
+          `  rounding       ${formatBoundUp(b.rounding)}`,
+          `  total          ${formatBoundUp(b.total)}`,
+        ]),
+  ];
+}
+
+/**
+ * With `result:`: the result's bound (the root's error carried through the
+ * result's slope, plus the result's own rounding), then the root's own bound.
+ */
+function resultBoundLines(family: Family, r: ResultClaims, b: BoundParts): string[] {
+  const root = r.rootBound;
+  const rootParts = `truncation ${formatBoundUp(root.truncation)}${root.economisation === undefined ? '' : ` + economisation ${formatBoundUp(root.economisation)}`} + rounding ${formatBoundUp(root.rounding)}`;
+  return [
+    `certified bound on the result (${b.kind} error, over the whole input box):`,
+    `  from root   ${formatBoundUp(b.truncation)}  (the bound on ${family.unknown} times |d result / d ${family.unknown}| <= ${formatBoundUp(r.slope)})`,
+    `  rounding    ${formatBoundUp(b.rounding)}  (the result's own evaluation)`,
+    `  total       ${formatBoundUp(b.total)}`,
+    ...labelled('root bound:', wrapWords(`${family.unknown}: ${rootParts} -> total ${formatBoundUp(root.total)} (absolute; planned for ${formatBoundUp(r.rootBudget)})`, WRAP_COLUMN - LABEL_WIDTH)),
+  ];
 }
 
 /**
@@ -134,7 +159,7 @@ export function shortHash(hash: string): string {
 
 export function constantLines(family: Family): string[] {
   const entries = Object.entries(family.constants);
-  return entries.length === 0 ? ['none'] : entries.map(([name, value]) => `${name} = ${value}`);
+  return entries.length === 0 ? ['none'] : entries.map(([name, value]) => `${name} = ${value.text}`);
 }
 
 /** First line after the label, the rest indented under it. */

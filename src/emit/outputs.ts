@@ -1,12 +1,12 @@
 /**
  * Which files a spec produces, without planning: the names follow from the
- * function name, the arithmetic (GLSL is float32 only) and the emit options.
- * `emit --check` and `--depfile` read this; files.ts writes exactly
- * these paths (test/emit/outputs.test.ts holds them to it). A new target adds
- * one row to TARGET_FILES.
+ * function name, the spec's arithmetic (its row in src/family/arithmetic.ts
+ * says which targets have a type for it: GLSL, WGSL and HLSL are float32
+ * only) and the emit options. `emit --check` and `--depfile` read this;
+ * files.ts and fixed-files.ts write exactly these paths (test/emit/stamp.test.ts
+ * holds them to it). A new target adds one row to TARGET_FILES.
  */
-import { ARITHMETICS } from '../family/arithmetic.js';
-import type { Arithmetic } from '../family/arithmetic.js';
+import { SPEC_ARITHMETICS, type ArithmeticName } from '../family/arithmetic.js';
 
 export type TargetName = 'c' | 'ts' | 'glsl' | 'wgsl' | 'hlsl' | 'rust';
 export const TARGETS: readonly TargetName[] = ['c', 'ts', 'glsl', 'wgsl', 'hlsl', 'rust'];
@@ -25,12 +25,13 @@ export const TARGET_FILES: Readonly<Record<TargetName, { readonly function: (nam
   rust: { function: (n) => `${n}.rs`, harness: null },
 };
 
-/** Whether a target has a type for the arithmetic (the arithmetic table says; the shading languages have binary32 only). */
-export function targetAllows(target: TargetName, arithmetic: Arithmetic): boolean {
-  const a = ARITHMETICS[arithmetic];
+/** Whether a target has a type for the arithmetic (the arithmetic table says; the shading languages have binary32 only, and no integer-only form). */
+export function targetAllows(target: TargetName, arithmetic: ArithmeticName): boolean {
+  const a = SPEC_ARITHMETICS[arithmetic];
   if (target === 'glsl') return a.glslType !== null;
   if (target === 'wgsl') return a.wgslType !== null;
   if (target === 'hlsl') return a.hlslType !== null;
+  if (target === 'rust') return a.rustType !== null;
   return true;
 }
 
@@ -40,7 +41,7 @@ export function targetsOf(option: string): TargetName[] {
 }
 
 /** The requested targets in TARGETS order, without those that lack the program's arithmetic when others were requested too. */
-export function applicableTargetsFor(arithmetic: Arithmetic, targets: readonly TargetName[]): TargetName[] {
+export function applicableTargetsFor(arithmetic: ArithmeticName, targets: readonly TargetName[]): TargetName[] {
   const wanted = TARGETS.filter((t) => targets.includes(t));
   if (wanted.length > 1) return wanted.filter((t) => targetAllows(t, arithmetic));
   return wanted;
@@ -52,7 +53,7 @@ export interface OutputFile {
 }
 
 /** The files emit writes, in its order: per target, the function then (unless left out) the harness. */
-export function outputFiles(name: string, arithmetic: Arithmetic, targets: readonly TargetName[], harness: boolean): OutputFile[] {
+export function outputFiles(name: string, arithmetic: ArithmeticName, targets: readonly TargetName[], harness: boolean): OutputFile[] {
   return applicableTargetsFor(arithmetic, targets).flatMap((t) => [
     { path: TARGET_FILES[t].function(name), role: { target: t, kind: 'function' as const } },
     ...(harness && TARGET_FILES[t].harness ? [{ path: TARGET_FILES[t].harness(name), role: { target: t, kind: 'harness' as const } }] : []),

@@ -33,8 +33,30 @@ export interface PlanClaims {
   /** The target accuracy as a number, same kind as `bound`. */
   readonly target: number;
   readonly ops: OpCounts;
+  /**
+   * With the spec's `result:` the function returns the result at the root:
+   * `bound` is then the result's (its truncation the root's error carried
+   * through the result's slope, its rounding the result's own evaluation),
+   * and this says how the root was planned.
+   */
+  readonly result?: ResultClaims;
   /** The cost model the plan was ranked by (default: the arithmetic's, src/family/arithmetic.ts); the header prints its figure. */
   readonly costModel?: CostModelName;
+}
+
+export interface ResultClaims {
+  /** The result expression (canonical text). */
+  readonly text: string;
+  /** Certified upper bound of |d result / d unknown| over the root's enclosures. */
+  readonly slope: number;
+  /** The root's absolute accuracy budget and its certified absolute bound's parts. */
+  readonly rootBudget: number;
+  readonly rootBound: {
+    readonly truncation: number;
+    readonly economisation?: number;
+    readonly rounding: number;
+    readonly total: number;
+  };
 }
 
 export interface EmitInput {

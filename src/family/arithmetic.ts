@@ -17,16 +17,22 @@
  * Source: IEEE 754-2019, table 3.5 (binary32, binary64 parameters); GLSL ES
  * 3.00 has no double type (GLSL ES 3.00.6, section 4.1); both from memory.
  *
- * A fixed-point arithmetic joins as a row of its own with `kind: 'fixed'`:
- * make `ArithmeticFacts` the union `FloatFacts | FixedFacts`, where
- * `FixedFacts` carries its integer format (word bytes, fraction bits, C
- * integer type) and no float-only facts; the compiler then names every
- * reader of a float-only fact (u, subnormals, the segment magic), and each
- * narrows on `kind`.
+ * The arithmetics a spec can name are the rows of SPEC_ARITHMETICS: the two
+ * float rows above, and fixed32 with `kind: 'fixed'` (DESIGN.md 1.12; int32
+ * values with per-value binary points, 32 x 32 -> 64-bit products). A fixed
+ * row carries its integer types per target and no float-only facts; its
+ * `planningArithmetic` is the float arithmetic the planner's float stages
+ * (root choice, segment centres) work in, which a fixed32 family carries as
+ * its `arithmetic` (src/family/types.ts, FixedFormat). Code that handles the
+ * spec's arithmetic reads `arithmeticFacts(name)` and narrows on `kind`.
  */
 import { nextDown, nextUp, type Rational } from '../math/rational.js';
 
+/** The float arithmetics: what an IR program computes in (src/ir/nodes.ts). */
 export type Arithmetic = 'float32' | 'float64';
+
+/** Every arithmetic a spec can name: the float ones, then fixed32. */
+export type ArithmeticName = Arithmetic | 'fixed32';
 
 /** The cost models the planner can rank by (one row each in src/ir/cost/index.ts). */
 export type CostModelName = 'cortex-m4f' | 'x86-64' | 'gpu';
@@ -144,6 +150,66 @@ export const ARITHMETICS: Readonly<Record<Arithmetic, ArithmeticFacts>> = {
     wider: null,
   },
 };
+
+/**
+ * The facts of a fixed-point arithmetic: two's complement words with a
+ * binary point chosen per value (DESIGN.md 1.12). Sources: ISO C99 7.18.1.1
+ * (int32_t, int64_t: exact width, two's complement, no padding); The Rust
+ * Reference "Numeric types" (i32, i64); ECMAScript 2022 sections 7.1.6
+ * (ToInt32, what `| 0` computes) and 21.2 (BigInt). All from memory.
+ */
+export interface FixedFacts {
+  readonly kind: 'fixed';
+  /** Bits per value, and per product before it is shifted back. */
+  readonly wordBits: 32;
+  readonly productBits: 64;
+  /** Bytes per stored value (table sizes). */
+  readonly bytes: 4;
+  /** The C types of a value and of a product. */
+  readonly cType: 'int32_t';
+  readonly cWideType: 'int64_t';
+  /** No shader target: shaders run on hardware with floating point, and fixed point is for cores without an FPU. */
+  readonly glslType: null;
+  readonly wgslType: null;
+  readonly hlslType: null;
+  /** The Rust types of a value and of a product; null while the Rust printer has no fixed32 form. */
+  readonly rustType: 'i32' | null;
+  readonly rustWideType: 'i64';
+  /** How TypeScript holds a value: an int32 in a number (`| 0`), products in BigInt. */
+  readonly tsType: 'number';
+  /** The float arithmetic the planner's float stages work in for this arithmetic (the family's `arithmetic`). */
+  readonly planningArithmetic: Arithmetic;
+  /** The core the header's cost lines and `plan` describe: no FPU, Armv6-M timings (src/emit/m0-cost.ts). */
+  readonly costCore: 'cortex-m0';
+}
+
+export const FIXED32: FixedFacts = {
+  kind: 'fixed',
+  wordBits: 32,
+  productBits: 64,
+  bytes: 4,
+  cType: 'int32_t',
+  cWideType: 'int64_t',
+  glslType: null,
+  wgslType: null,
+  hlslType: null,
+  rustType: null,
+  rustWideType: 'i64',
+  tsType: 'number',
+  planningArithmetic: 'float64',
+  costCore: 'cortex-m0',
+};
+
+/** Every arithmetic a spec can name, in the order the reader lists them. */
+export const SPEC_ARITHMETICS: Readonly<Record<ArithmeticName, FloatFacts | FixedFacts>> = {
+  float32: ARITHMETICS.float32,
+  float64: ARITHMETICS.float64,
+  fixed32: FIXED32,
+};
+
+export function arithmeticFacts(name: ArithmeticName): FloatFacts | FixedFacts {
+  return SPEC_ARITHMETICS[name];
+}
 
 /** The value nearest to `exact` in the target arithmetic (round to nearest, ties to even). */
 export function roundTo(exact: Rational, arithmetic: Arithmetic): number {

@@ -5,9 +5,10 @@
  * range, which the generated code could not hold.
  */
 import { Rational } from '../math/rational.js';
+import { constantValue } from './expr-eval.js';
 import { printExpr } from './expr-print.js';
 import { showText } from './show.js';
-import type { Expr } from './types.js';
+import type { Constants, Expr } from './types.js';
 
 /** A problem in a constant part; `node` is where to point (the operator). */
 export class ConstantPartError extends Error {
@@ -35,23 +36,20 @@ const MAX_BITS = 1 << 16;
  * The exact value of `e` when it mentions no input, otherwise null, after
  * checking every constant part inside it. Throws ConstantPartError.
  */
-export function foldConstantParts(e: Expr, constants: ReadonlyMap<string, Rational>): Rational | null {
+export function foldConstantParts(e: Expr, constants: Constants): Rational | null {
   const v = fold(e, constants);
   if (v !== null) checkRange(e, v);
   return v;
 }
 
-function fold(e: Expr, constants: ReadonlyMap<string, Rational>): Rational | null {
+function fold(e: Expr, constants: Constants): Rational | null {
   switch (e.kind) {
     case 'num':
-      return Rational.parseDecimal(e.text);
+      return e.value;
     case 'input':
       return null;
-    case 'constant': {
-      const v = constants.get(e.name);
-      if (v === undefined) throw new RangeError(`no value for constant ${e.name}`);
-      return v;
-    }
+    case 'constant':
+      return constantValue(constants, e.name);
     case 'neg': {
       const a = fold(e.arg, constants);
       return a === null ? null : a.neg();

@@ -1,9 +1,15 @@
 /**
  * The validated equation family that the spec reader hands to the planner.
- * Every number that came from the spec is kept as its exact decimal text, so
- * nothing is rounded before the planner decides what to round.
+ * Every number that came from the spec is a SpecNumber: its exact value,
+ * parsed once by the reader, beside the text the user wrote. Nothing is
+ * rounded before the planner decides what to round, and nothing after the
+ * reader parses spec text again.
  */
-import type { Arithmetic, CostModelName } from './arithmetic.js';
+import type { Rational } from '../math/rational.js';
+import type { Arithmetic, ArithmeticName, CostModelName } from './arithmetic.js';
+import type { SpecNumber } from './spec-number.js';
+
+export type { SpecNumber } from './spec-number.js';
 
 /**
  * `arithmetic: fixed32` (DESIGN.md 1.12): every argument and the result is an
@@ -19,7 +25,7 @@ export interface FixedFormat {
 }
 
 /** The arithmetic as the spec names it: float32, float64 or fixed32. */
-export function arithmeticName(family: { readonly arithmetic: Arithmetic; readonly fixed?: FixedFormat }): 'float32' | 'float64' | 'fixed32' {
+export function arithmeticName(family: { readonly arithmetic: Arithmetic; readonly fixed?: FixedFormat }): ArithmeticName {
   return family.fixed ? 'fixed32' : family.arithmetic;
 }
 
@@ -31,7 +37,7 @@ export interface Pos {
 
 /** Expression grammar: numbers, names, + - * / ^ (non-negative integer powers), unary minus. */
 export type Expr =
-  | { readonly kind: 'num'; readonly text: string; readonly pos: Pos }
+  | { readonly kind: 'num'; readonly text: string; readonly value: Rational; readonly pos: Pos }
   | { readonly kind: 'input'; readonly name: string; readonly index: number; readonly pos: Pos }
   | { readonly kind: 'constant'; readonly name: string; readonly pos: Pos }
   | { readonly kind: 'neg'; readonly arg: Expr; readonly pos: Pos }
@@ -45,10 +51,13 @@ export type Expr =
 
 export interface InputRange {
   readonly name: string;
-  /** Exact decimal text of the range ends, lo < hi. */
-  readonly lo: string;
-  readonly hi: string;
+  /** The range ends, lo < hi. */
+  readonly lo: SpecNumber;
+  readonly hi: SpecNumber;
 }
+
+/** The spec's named constants: name -> number, in the spec's order. */
+export type Constants = Readonly<Record<string, SpecNumber>>;
 
 /** A segment count: 'auto' (the planner chooses) or a power of two. */
 export type SegmentCount = 'auto' | number;
@@ -75,6 +84,20 @@ export interface PlanKnobs {
  */
 export type OutsideBox = 'extrapolate' | 'saturate';
 
+/**
+ * The spec's `result:`: what the function returns instead of the root, an
+ * expression in the unknown, the inputs and the constants that is a
+ * polynomial in the unknown.
+ */
+export interface ResultSpec {
+  /** The expression as parsed: the unknown reads as input number `inputs.length`. */
+  readonly expr: Expr;
+  /** Canonical text for headers (src/family/expr-print.ts). */
+  readonly text: string;
+  /** Coefficients by power of the unknown (index = power; null = zero), in inputs and constants only. */
+  readonly powers: readonly (Expr | null)[];
+}
+
 export interface Family {
   /** Spec path as the user gave it (used in messages and headers, never made absolute). */
   readonly file: string;
@@ -88,17 +111,18 @@ export interface Family {
   /** The coefficient expressions as the user wrote them (for headers), same indexing. */
   readonly coefficientText: readonly (string | null)[];
   readonly inputs: readonly InputRange[];
-  /** Constant name -> exact decimal text. */
-  readonly constants: Readonly<Record<string, string>>;
-  /** Exact decimal text of the bracket ends, or null for the series' own root. */
-  readonly bracket: readonly [string, string] | null;
-  readonly accuracy: { readonly kind: 'absolute' | 'relative'; readonly value: string };
+  readonly constants: Constants;
+  /** The bracket ends, or null for the series' own root. */
+  readonly bracket: readonly [SpecNumber, SpecNumber] | null;
+  readonly accuracy: { readonly kind: 'absolute' | 'relative'; readonly value: SpecNumber };
   readonly arithmetic: Arithmetic;
   /** Present for `arithmetic: fixed32` only: the binary points (see FixedFormat). */
   readonly fixed?: FixedFormat;
   readonly plan: PlanKnobs;
   /** `inputs_outside_box`: extrapolate (the default) or saturate. */
   readonly outsideBox: OutsideBox;
+  /** `result:` when the function returns an expression at the root instead of the root. */
+  readonly result?: ResultSpec;
   /** Field path -> position of its value in the file, for messages after parsing. */
   readonly positions: Readonly<Record<string, Pos>>;
 }

@@ -12,7 +12,7 @@
  */
 import { Rational } from '../math/rational.js';
 import type { Arithmetic } from '../family/arithmetic.js';
-import type { BinaryKind, FineIndex, Node, Program } from './nodes.js';
+import { UnknownNodeError, type BinaryKind, type FineIndex, type Node, type Program } from './nodes.js';
 import { operands, renumber } from './operands.js';
 import { roundTo } from '../family/arithmetic.js';
 
@@ -63,6 +63,25 @@ export class ProgramBuilder {
     for (const [k, v] of this.memo) c.memo.set(k, v);
     c.indexRef = this.indexRef;
     return c;
+  }
+
+  /**
+   * A builder holding a finished program's nodes, to go on from its result
+   * (the result stage appends the spec's `result:` after the root). Nodes
+   * keep their indices and are shared as if this builder had made them.
+   * Only uniform constants may be added: the segmentation is not known here.
+   */
+  static resume(program: Program): ProgramBuilder {
+    const table = program.nodes.find((n) => n.kind === 'table');
+    const segments = table && table.kind === 'table' ? table.values.length : 1;
+    const b = new ProgramBuilder(program.arithmetic, program.inputs, { parts: [], segments });
+    program.nodes.forEach((n, i) => {
+      b.nodes.push(n);
+      const key = nodeKey(n);
+      if (key !== null && !b.memo.has(key)) b.memo.set(key, i);
+      if (n.kind === 'index') b.indexRef = i;
+    });
+    return b;
   }
 
   get segments(): number {
@@ -247,4 +266,29 @@ function pruneTo(nodes: readonly Node[], result: Ref): { nodes: Node[]; result: 
     out.push(renumber(nodes[i]!, (r) => map[r]!));
   }
   return { nodes: out, result: map[result]!, map };
+}
+
+/** The sharing key a builder gives a node (null: never shared). */
+function nodeKey(n: Node): string | null {
+  switch (n.kind) {
+    case 'const':
+      return `c:${n.exact.toString()}`;
+    case 'table':
+      return `t:${n.exact.join(',')}`;
+    case 'input':
+      return `i:${n.index}`;
+    case 'neg':
+      return `n:${n.a}`;
+    case 'add':
+    case 'sub':
+    case 'mul':
+    case 'div':
+      return `${n.kind}:${n.a}:${n.b}`;
+    case 'index':
+      return 'index';
+    case 'clamp':
+      return null;
+    default:
+      throw new UnknownNodeError(n);
+  }
 }

@@ -23,7 +23,7 @@ export interface Box {
 }
 
 export function boxOf(family: Family): Box {
-  const exact = family.inputs.map((i) => ({ lo: Rational.parseDecimal(i.lo), hi: Rational.parseDecimal(i.hi) }));
+  const exact = family.inputs.map((i) => ({ lo: i.lo.value, hi: i.hi.value }));
   exact.forEach(({ lo, hi }, i) => {
     for (const end of [lo, hi]) {
       if (Number.isFinite(roundTo(end, family.arithmetic))) continue;

@@ -43,12 +43,10 @@ function pOver(family: Family, cell: Cell, end: Interval, isZero: boolean, tight
 
 /** The exact signs of P at the bracket ends at the box centre, or null where a division is by zero there. */
 function centreSigns(family: Family): [number, number] | null {
-  const constants: Record<string, Rational> = {};
-  for (const [k, v] of Object.entries(family.constants)) constants[k] = Rational.parseDecimal(v);
   const centre = boxCentre(family);
   try {
-    const c = family.coefficients.map((e) => (e === null ? Rational.ZERO : evalExprExact(e, centre, constants)));
-    return [signAt(c, Rational.parseDecimal(family.bracket![0])), signAt(c, Rational.parseDecimal(family.bracket![1]))];
+    const c = family.coefficients.map((e) => (e === null ? Rational.ZERO : evalExprExact(e, centre, family.constants)));
+    return [signAt(c, family.bracket![0].value), signAt(c, family.bracket![1].value)];
   } catch (e) {
     if (e instanceof RangeError) return null;
     throw e;
@@ -61,7 +59,7 @@ export function certifyBracket(family: Family, box: Cell): void {
   const signs = centreSigns(family);
   // No sign change at the centre (or a pole there): the root choice refuses that in its own words.
   if (!signs || signs[0] * signs[1] >= 0) return;
-  const ends = family.bracket.map((text) => ({ text, at: decimalInterval(text), zero: Rational.parseDecimal(text).isZero(), tight: new CoefficientRanges(family, [Rational.parseDecimal(text)]) }));
+  const ends = family.bracket.map((end) => ({ text: end.text, at: decimalInterval(end.value), zero: end.value.isZero(), tight: new CoefficientRanges(family, [end.value]) }));
   const holds = (v: Interval, s: number): boolean => (s < 0 ? v.hi <= 0 : v.lo >= 0);
   const failed: [Cell[], Cell[]] = [[], []];
   const minWidth = box.map((c) => (c.hi - c.lo) * BRACKET_CHECK.minFraction);
@@ -104,8 +102,8 @@ export function certifyBracket(family: Family, box: Cell): void {
  */
 export function certifyRootInBracket(family: Family, x0: readonly number[], cells: readonly CellFacts[]): void {
   if (!family.bracket) return;
-  const a = Rational.parseDecimal(family.bracket[0]).toNumberDown();
-  const b = Rational.parseDecimal(family.bracket[1]).toNumberUp();
+  const a = family.bracket[0].value.toNumberDown();
+  const b = family.bracket[1].value.toNumberUp();
   const budget = { left: BRACKET_CHECK.exclusionWork };
   const below: { cell: CellFacts; reach: number }[] = [];
   const above: { cell: CellFacts; reach: number }[] = [];

@@ -45,6 +45,8 @@ export interface CellFacts {
    * gives |a - 1| <= a(T) - 1, so x* = x0 - r a lies within R (a(T) - 1) of x0 - r.
    */
   readonly rootMin: number;
+  /** Enclosure of the root x* over the cell (the interval rootMin is read from); absent unless the state is ok. */
+  readonly rootRange?: Interval;
   /** Enclosure of c'1 over the cell (null when it is a known constant without a tight enclosure). */
   readonly c1Range?: Interval | null;
   /** The tight enclosures the cell was bounded with, for the Newton step's bound. */
@@ -77,7 +79,7 @@ export function cellFacts(ap: AnalysisProgram, degree: number, cell: Cell, x0: n
   const lo = subDown(subDown(x0, r.hi), spread);
   const hi = addUp(subUp(x0, r.lo), spread);
   const rootMin = lo > 0 ? lo : hi < 0 ? -hi : 0;
-  return { ...base, state: { kind: 'ok' }, R, aUpper: root.upper, rootMin };
+  return { ...base, state: { kind: 'ok' }, R, aUpper: root.upper, rootMin, rootRange: { lo, hi } };
 }
 
 /**

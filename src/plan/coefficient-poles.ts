@@ -8,14 +8,14 @@
  * The enclosures are outward-rounded float64 intervals (math/interval.ts),
  * evaluated on the spec's expression tree as written.
  */
-import type { Expr } from '../family/types.js';
+import type { Constants, Expr } from '../family/types.js';
 import type { Cell } from './box.js';
 import { encloseExpr, type Division } from './expr-enclose.js';
 
 export type { Division } from './expr-enclose.js';
 
 /** The first division in `e` (inner ones first) whose divisor can be zero over `cell`, or null. */
-export function poleOver(e: Expr, cell: Cell, constants: Readonly<Record<string, string>>): Division | null {
+export function poleOver(e: Expr, cell: Cell, constants: Constants): Division | null {
   let found: Division | null = null;
   encloseExpr(e, cell, constants, (d) => {
     found = d;

@@ -5,8 +5,9 @@
  * overestimated: callers subdivide cells where that matters).
  */
 import { containsZero, iadd, idiv, imul, ineg, interval, isub, mag, mig, point, type Interval } from '../math/interval.js';
-import { Rational } from '../math/rational.js';
-import type { Expr } from '../family/types.js';
+import type { Rational } from '../math/rational.js';
+import { constantValue } from '../family/expr-eval.js';
+import type { Constants, Expr } from '../family/types.js';
 import type { Cell } from './box.js';
 
 /** A binary node of the expression tree whose kind is 'div'. */
@@ -19,16 +20,16 @@ export const WHOLE: Interval = { lo: -Infinity, hi: Infinity };
  * holds zero gives the whole line, and `onPole` (when given) hears of the
  * first such division (inner ones first); a later division is not looked at.
  */
-export function encloseExpr(e: Expr, cell: Cell, constants: Readonly<Record<string, string>>, onPole?: (d: Division) => void): Interval {
+export function encloseExpr(e: Expr, cell: Cell, constants: Constants, onPole?: (d: Division) => void): Interval {
   let found = false;
   const enclose = (x: Expr): Interval => {
     switch (x.kind) {
       case 'num':
-        return decimalInterval(x.text);
+        return decimalInterval(x.value);
       case 'input':
         return cell[x.index]!;
       case 'constant':
-        return decimalInterval(constants[x.name]!);
+        return decimalInterval(constantValue(constants, x.name));
       case 'neg':
         return ineg(enclose(x.arg));
       case 'pow':
@@ -57,14 +58,13 @@ export function encloseExpr(e: Expr, cell: Cell, constants: Readonly<Record<stri
   return enclose(e);
 }
 
-const decimals = new Map<string, Interval>();
-/** The float64 enclosure of an exact decimal. */
-export function decimalInterval(text: string): Interval {
-  let v = decimals.get(text);
+const enclosures = new WeakMap<Rational, Interval>();
+/** The float64 enclosure of an exact value, kept per value object (each spec number has one). */
+export function decimalInterval(q: Rational): Interval {
+  let v = enclosures.get(q);
   if (v === undefined) {
-    const q = Rational.parseDecimal(text);
     v = interval(q.toNumberDown(), q.toNumberUp());
-    decimals.set(text, v);
+    enclosures.set(q, v);
   }
   return v;
 }

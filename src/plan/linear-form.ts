@@ -10,7 +10,8 @@
  */
 import { Rational } from '../math/rational.js';
 import type { ProgramBuilder, Ref, SegValues } from '../ir/builder.js';
-import type { Expr } from '../family/types.js';
+import { constantValue } from '../family/expr-eval.js';
+import type { Constants, Expr } from '../family/types.js';
 
 export interface LinearForm {
   readonly constant: SegValues;
@@ -76,16 +77,13 @@ export function materialise(b: ProgramBuilder, f: LinearForm): Ref {
 }
 
 /** The form of a spec expression; non-affine parts become atoms (products, quotients, powers). */
-export function formOf(b: ProgramBuilder, e: Expr, constants: Readonly<Record<string, string>>): LinearForm {
+export function formOf(b: ProgramBuilder, e: Expr, constants: Constants): LinearForm {
   const S = b.segments;
   switch (e.kind) {
     case 'num':
-      return constantForm(uniform(Rational.parseDecimal(e.text), S));
-    case 'constant': {
-      const text = constants[e.name];
-      if (text === undefined) throw new RangeError(`unknown constant ${e.name}`);
-      return constantForm(uniform(Rational.parseDecimal(text), S));
-    }
+      return constantForm(uniform(e.value, S));
+    case 'constant':
+      return constantForm(uniform(constantValue(constants, e.name), S));
     case 'input':
       return { constant: uniform(Rational.ZERO, S), terms: new Map([[b.input(e.index), uniform(Rational.ONE, S)]]) };
     case 'neg':

@@ -12,7 +12,6 @@
 import { countOps, type OpCounts } from '../ir/count.js';
 import { roundTo } from '../family/arithmetic.js';
 import { saturateInputs } from '../ir/saturate.js';
-import { Rational } from '../math/rational.js';
 import { COST_MODELS, programCost } from '../ir/cost/index.js';
 import type { Plan } from './types.js';
 
@@ -20,8 +19,8 @@ export function applyOutsideBox(plan: Plan): Plan {
   const { family } = plan;
   if (family.outsideBox !== 'saturate') return plan;
   const ranges = family.inputs.map((r) => ({
-    lo: roundTo(Rational.parseDecimal(r.lo), family.arithmetic),
-    hi: roundTo(Rational.parseDecimal(r.hi), family.arithmetic),
+    lo: roundTo(r.lo.value, family.arithmetic),
+    hi: roundTo(r.hi.value, family.arithmetic),
   }));
   const program = saturateInputs(plan.program, ranges);
   const ops = countOps(program);

@@ -33,6 +33,7 @@ export function planOf(ctx: Pick<FormContext, 'family' | 'root' | 'target' | 'co
     costModel: ctx.costModel.name,
     note: parts.note ?? null,
     cells: ctx.set.cells.length,
+    certifiedCells: [...ctx.set.cells],
     counts: [...ctx.counts],
     tableBytes: tableBytesOf(program),
     candidates: [],

@@ -11,7 +11,7 @@ import type { Program } from '../ir/nodes.js';
 import type { Family } from '../family/types.js';
 import { grid, type Cell } from './box.js';
 import { certifyRootInBracket } from './bracket-check.js';
-import { cellTail } from './cell-bound.js';
+import { cellTail, type CellFacts } from './cell-bound.js';
 import { CellSet } from './cell-set.js';
 import { FoundPlans, type FormContext } from './forms/context.js';
 import { FORMS } from './forms/index.js';
@@ -22,7 +22,7 @@ import { chooseRoot, pointText, rootAt, type RootChoice } from './root-choice.js
 import { segmentLayout, type SegmentLayout } from './segments.js';
 import { analysisProgram, CoefficientError, ZeroSlopeError, type AnalysisProgram, type Expansion } from './series-program.js';
 import { TermPool } from './term-pool.js';
-import { initialCellsPerSegment, LIMITS } from './tuning.js';
+import { initialCellsPerSegment, LIMITS, REFINE } from './tuning.js';
 import type { Plan } from './types.js';
 
 /** `thorough` false for the trials of a segment search (see CellSet.repairBadCells). */
@@ -64,7 +64,7 @@ function planSegmentsInner(family: Family, box: Cell, layout: SegmentLayout, tho
     layout,
     counts,
     relative,
-    target: Number(family.accuracy.value),
+    target: family.accuracy.value.toNumber(),
     set,
     ap,
     pool: new TermPool(family.degree, [...ap.q.keys()], set),
@@ -135,29 +135,87 @@ function checkTable(family: Family, counts: readonly number[], program: Program)
 }
 
 /**
+ * What a refinement aims at: the series alone meeting the target, or the
+ * series meeting what one Newton step turns into the target (`polished`).
+ */
+export type RefineAim = 'series' | 'polished';
+
+/**
+ * The error a Newton step may start from to end within `allowed`: the step
+ * leaves about K e^2 with K = |P''| / (2 |P'|) near the root, which is
+ * |c'2 / c'1| = |q_2| at the expansion point; the cell's Q_2 bounds it (the
+ * higher q_k are left out: a guide for the layout, not a bound). With no
+ * quadratic term the step leaves no e^2 term at this order: the series' own
+ * allowance stands.
+ */
+function beforeStep(allowed: number, c: CellFacts): number {
+  const k = c.Q[2] ?? 0;
+  return k > 0 ? Math.sqrt(allowed / k) * REFINE.polishShare : allowed;
+}
+
+/** Per segment, how far it is from the target (`needs`); for the segments above `over`, the same with one input varying alone (`alone`). */
+export interface SegmentNeeds {
+  readonly needs: number[];
+  /** segment -> per input: the segment's need when only that input varies (the others at the segment's middle); NaN for an input not split. */
+  readonly alone: Map<number, number[]>;
+}
+
+/**
  * How far each segment of a layout is from meeting the target with every
  * grade up to `order` kept: per segment, the worst over its cells of the
  * truncation bound divided by the target (relative accuracy: by target times
  * the least |root|); Infinity where a cell has no bound (the series diverges
  * or the slope may vanish). The refinement search (refine.ts) splits the
- * coarse cells holding a segment above its threshold.
+ * coarse cells holding a segment above its threshold `over`. For those
+ * segments `alone` says which input the need comes from: the need again with
+ * every other input pinned at the segment's middle, over REFINE.aloneCells
+ * cells along the one input left free (a guide for where to split, never a
+ * bound: the chosen layout is certified by planSegments as any other).
  */
-export function segmentNeeds(family: Family, box: Cell, layout: SegmentLayout, order: number): number[] {
+export function segmentNeeds(family: Family, box: Cell, layout: SegmentLayout, order: number, over = Infinity, aim: RefineAim = 'series'): SegmentNeeds {
   const { expansion } = expansionFor(family, layout);
   const ap = prefixOf(family, expansion, layout);
   const relative = family.accuracy.kind === 'relative';
-  const target = Number(family.accuracy.value);
+  const target = family.accuracy.value.toNumber();
   const perSegment = initialCellsPerSegment(family.inputs.length, layout.segmentation.segments);
   const initial = layout.boxes.flatMap((b, segment) => grid(b, perSegment).map((cell) => ({ cell, segment })));
-  const set = new CellSet(ap, family.degree, box, expansion.x0.map((v) => v.toNumber()), initial);
-  set.repairBadCells(LIMITS.cells, relative, false);
-  const pool = new TermPool(family.degree, [...ap.q.keys()], set);
+  const x0 = expansion.x0.map((v) => v.toNumber());
+  const needOf = (cells: readonly { cell: Cell; segment: number }[], each: (c: CellFacts, need: number) => void): boolean => {
+    const set = new CellSet(ap, family.degree, box, x0, cells);
+    set.repairBadCells(LIMITS.cells, relative, false);
+    const pool = new TermPool(family.degree, [...ap.q.keys()], set);
+    if (!pool.termsUpTo(order)) return false;
+    for (const c of set.cells) {
+      const t = cellTail(c, order);
+      const plain = relative ? target * c.rootMin : target;
+      const allowed = aim === 'series' ? plain : beforeStep(plain, c);
+      each(c, allowed > 0 ? t / allowed : Infinity);
+    }
+    return true;
+  };
   const needs = new Array<number>(layout.segmentation.segments).fill(0);
-  if (!pool.termsUpTo(order)) return needs.fill(Infinity);
-  for (const c of set.cells) {
-    const t = cellTail(c, order);
-    const allowed = relative ? target * c.rootMin : target;
-    needs[c.segment] = Math.max(needs[c.segment]!, allowed > 0 ? t / allowed : Infinity);
-  }
-  return needs;
+  const alone = new Map<number, number[]>();
+  if (!needOf(initial, (c, need) => (needs[c.segment] = Math.max(needs[c.segment]!, need)))) return { needs: needs.fill(Infinity), alone };
+  const splitInputs = layout.segmentation.parts.map((p) => p.input);
+  const pinned: { cell: Cell; segment: number }[] = [];
+  needs.forEach((need, segment) => {
+    if (!(need > over)) return;
+    alone.set(segment, family.inputs.map((_, i) => (splitInputs.includes(i) ? 0 : NaN)));
+    const b = layout.boxes[segment]!;
+    const mid = b.map((iv) => iv.lo + (iv.hi - iv.lo) / 2);
+    for (const i of splitInputs) {
+      const line = b.map((iv, j) => (j === i ? iv : { lo: mid[j]!, hi: mid[j]! }));
+      for (const cell of grid(line.filter((_, j) => j === i), REFINE.aloneCells)) {
+        pinned.push({ cell: line.map((iv, j) => (j === i ? cell[0]! : iv)), segment });
+      }
+    }
+  });
+  if (pinned.length === 0) return { needs, alone };
+  const ok = needOf(pinned, (c, need) => {
+    const i = c.cell.findIndex((iv, j) => splitInputs.includes(j) && iv.hi > iv.lo);
+    const row = alone.get(c.segment)!;
+    if (i >= 0) row[i] = Math.max(row[i]!, need);
+  });
+  if (!ok) alone.forEach((row) => row.forEach((v, i) => (row[i] = Number.isNaN(v) ? v : Infinity)));
+  return { needs, alone };
 }

@@ -15,6 +15,7 @@ import { candidatesOf, withCandidates } from './candidates.js';
 import { locate } from './locate.js';
 import { applyOutsideBox } from './outside-box.js';
 import { planSegments } from './plan-segments.js';
+import { planWithResult } from './result-stage.js';
 import { searchSegments } from './segment-search.js';
 import { QuotedFixRefusal, refuseWorkLimit } from './refusals.js';
 import { QUOTED_FIX, TABLE_FIX } from './tuning.js';
@@ -33,10 +34,11 @@ export function makePlan(family: Family, options: PlanOptions = {}): Plan {
   if (family.fixed) throw new Error('a fixed32 family is planned by makeFixedPlan');
   startWork(options.onWork ?? null);
   try {
-    return applyOutsideBox(planWithinLimit(family));
+    return applyOutsideBox(planWithResult(family, planWithinLimit));
   } catch (e) {
     if (e instanceof WorkLimitError) refuseWorkLimit(family);
-    if (e instanceof QuotedFixRefusal) throw confirmedFix(family, e, options);
+    // A result spec plans its root to a budget of its own choosing: a quote would name that budget, not the spec's target.
+    if (e instanceof QuotedFixRefusal && !family.result) throw confirmedFix(family, e, options);
     throw e;
   }
 }

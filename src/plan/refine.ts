@@ -14,7 +14,7 @@ import { ARITHMETICS } from '../family/arithmetic.js';
 import type { Family } from '../family/types.js';
 import type { Cell } from './box.js';
 import { candidatesOf, refusedCandidate } from './candidates.js';
-import { planSegments, segmentNeeds } from './plan-segments.js';
+import { planSegments, segmentNeeds, type RefineAim, type SegmentNeeds } from './plan-segments.js';
 import { segmentLayout, type SegmentLayout } from './segments.js';
 import { REFINE, SEGMENT_SEARCH } from './tuning.js';
 import type { Candidate, Plan } from './types.js';
@@ -32,9 +32,9 @@ export function refinedPlans(family: Family, box: Cell, fixed: readonly (number 
   const plans: Plan[] = [];
   const candidates: Candidate[] = [];
   const seen = new Set<string>();
-  for (const order of REFINE.orders) {
+  for (const aim of REFINE.aims) for (const order of REFINE.orders) {
     const levels = fixed.map((k) => (k === null ? new Array<number>(coarseCount).fill(0) : null));
-    const layout = refineFor(family, box, coarse, levels, order);
+    const layout = refineFor(family, box, coarse, levels, order, aim);
     if (!layout) continue;
     const key = JSON.stringify(layout.refine);
     if (seen.has(key)) continue;
@@ -52,7 +52,7 @@ export function refinedPlans(family: Family, box: Cell, fixed: readonly (number 
 }
 
 /** Splits coarse cells until every segment meets REFINE.share of the target at `order`; null when the tables outgrow the limit first. */
-function refineFor(family: Family, box: Cell, coarse: readonly number[], levels: (number[] | null)[], order: number): SegmentLayout | null {
+function refineFor(family: Family, box: Cell, coarse: readonly number[], levels: (number[] | null)[], order: number, aim: RefineAim): SegmentLayout | null {
   const bytes = ARITHMETICS[family.arithmetic].bytes;
   for (;;) {
     let layout: SegmentLayout;
@@ -65,21 +65,22 @@ function refineFor(family: Family, box: Cell, coarse: readonly number[], levels:
     const segments = layout.segmentation.segments;
     const least = segments * bytes * SEGMENT_SEARCH.minValuesPerSegment + 2 * coarse.reduce((a, b) => a + b, 0);
     if (segments > SEGMENT_SEARCH.maxTotal || least > family.plan.maxTableBytes) return null;
-    let needs: number[];
+    let needs: SegmentNeeds;
     try {
-      needs = segmentNeeds(family, box, layout, order);
+      needs = segmentNeeds(family, box, layout, order, REFINE.share, aim);
     } catch (e) {
       if (e instanceof RootcastError) return null;
       throw e;
     }
     const marked = levels.map((l) => (l ? new Array<boolean>(l.length).fill(false) : null));
     let any = false;
-    needs.forEach((need, s) => {
+    needs.needs.forEach((need, s) => {
       if (!(need > REFINE.share)) return;
       any = true;
+      const chosen = splitDirections(needs.alone.get(s), levels, order);
       for (const part of layout.segmentation.parts) {
         const l = levels[part.input];
-        if (!l) continue;
+        if (!l || !chosen.has(part.input)) continue;
         const rows = layout.counts[part.input]!;
         marked[part.input]![coarseCellOf(l, Math.floor(s / part.stride) % rows)] = true;
       }
@@ -97,6 +98,27 @@ function refineFor(family: Family, box: Cell, coarse: readonly number[], levels:
     });
     if (!grew) return null;
   }
+}
+
+/**
+ * Which searched inputs a segment above the threshold splits along, from its
+ * needs with one input varying alone (`alone`, segmentNeeds). A truncation
+ * bound at order k grows about as the (k+1)-th power of the spread of r over
+ * the segment, and that spread is about a sum of one part per input, so
+ * alone^(1/(k+1)) is each input's part: every input whose part is at least
+ * REFINE.balance of the largest splits, the others wait. Splitting every
+ * input of a two-input family where one would do doubles the rows of both:
+ * the wide landing-time quadratic (test/plan/refine-direction.test.ts) fits
+ * the default table limit only with this choice. Without a finite guide
+ * every searched input splits.
+ */
+export function splitDirections(alone: readonly number[] | undefined, levels: readonly (readonly number[] | null)[], order: number): Set<number> {
+  const searched = levels.flatMap((l, i) => (l ? [i] : []));
+  if (!alone) return new Set(searched);
+  const parts = new Map(searched.filter((i) => !Number.isNaN(alone[i]!)).map((i) => [i, Math.pow(alone[i]!, 1 / (order + 1))]));
+  const largest = Math.max(...parts.values());
+  if (parts.size === 0 || !Number.isFinite(largest)) return new Set(searched);
+  return new Set([...parts].filter(([, part]) => part >= largest * REFINE.balance).map(([i]) => i));
 }
 
 /** The coarse cell that holds row `row` when coarse cell c has 2^levels[c] rows. */

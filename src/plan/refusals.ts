@@ -11,6 +11,7 @@ import { LIMITS } from './tuning.js';
 import { locate } from './locate.js';
 import { ARITHMETICS } from '../family/arithmetic.js';
 import { evalExprExact } from '../family/expr-eval.js';
+import { SpecNumber } from '../family/spec-number.js';
 import { Rational } from '../math/rational.js';
 
 export function refuseBadCells(family: Family, cells: readonly CellFacts[], relative: boolean): void {
@@ -75,15 +76,13 @@ export function refuseBadCells(family: Family, cells: readonly CellFacts[], rela
 function rootIsZeroIn(family: Family, cells: readonly CellFacts[]): boolean {
   const c0 = family.coefficients[0];
   if (!c0) return true;
-  if (family.bracket && !(Rational.parseDecimal(family.bracket[0]).sign() <= 0 && Rational.parseDecimal(family.bracket[1]).sign() >= 0)) return false;
-  const constants: Record<string, Rational> = {};
-  for (const [k, v] of Object.entries(family.constants)) constants[k] = Rational.parseDecimal(v);
+  if (family.bracket && !(family.bracket[0].value.sign() <= 0 && family.bracket[1].value.sign() >= 0)) return false;
   return cells.some((c) => {
     const signs = new Set<number>();
     for (let mask = 0; mask < 1 << c.cell.length; mask++) {
       const corner = c.cell.map((iv, i) => Rational.fromNumber(mask & (1 << i) ? iv.hi : iv.lo));
       try {
-        signs.add(evalExprExact(c0, corner, constants).sign());
+        signs.add(evalExprExact(c0, corner, family.constants).sign());
       } catch (e) {
         if (!(e instanceof RangeError)) throw e;
       }
@@ -206,7 +205,7 @@ export function refuseFloor(family: Family, total: number, rounding: number, ste
   throw new QuotedFixRefusal(
     `${head}: the best certified ${kind} error is ${quoted} (rounding alone ${short(rounding)})${tables}; ${fix}${wide}`,
     at,
-    (f) => ({ ...f, accuracy: { kind, value: quoted }, plan: bigger ? { ...f.plan, maxTableBytes: tableBytes } : f.plan }),
+    (f) => ({ ...f, accuracy: { kind, value: SpecNumber.parse(quoted) }, plan: bigger ? { ...f.plan, maxTableBytes: tableBytes } : f.plan }),
     new RootcastError(`${head} (rounding alone ${short(rounding)}); loosen accuracy.${kind}${wide}`, at),
     'floor',
     total,

@@ -26,17 +26,15 @@ export interface RootChoice {
 /** The exact centre of the spec's box. */
 export function boxCentre(family: Family): Rational[] {
   const half = Rational.of(1n, 2n);
-  return family.inputs.map((i) => Rational.parseDecimal(i.lo).add(Rational.parseDecimal(i.hi)).mul(half));
+  return family.inputs.map((i) => i.lo.value.add(i.hi.value).mul(half));
 }
 
 /** The bracketed root at an input point, rounded to the target arithmetic (exact bisection). */
 export function rootAt(family: Family, point: readonly Rational[]): Rational {
   if (!family.bracket) throw new RangeError('rootAt needs a bracket');
-  const constants: Record<string, Rational> = {};
-  for (const [k, v] of Object.entries(family.constants)) constants[k] = Rational.parseDecimal(v);
-  const c = family.coefficients.map((e, k) => (e === null ? Rational.ZERO : coefficientAt(family, k, e, point, constants)));
-  const lo = Rational.parseDecimal(family.bracket[0]);
-  const hi = Rational.parseDecimal(family.bracket[1]);
+  const c = family.coefficients.map((e, k) => (e === null ? Rational.ZERO : coefficientAt(family, k, e, point)));
+  const lo = family.bracket[0].value;
+  const hi = family.bracket[1].value;
   // The sign change is checked exactly at the bracket ends; inside, float64
   // bisection is enough: the expansion point need not be the exact root
   // (DESIGN.md 1.4), only a number of the target format near it.
@@ -58,9 +56,9 @@ export function rootAt(family: Family, point: readonly Rational[]): Rational {
 }
 
 /** Coefficient k exactly at a point; a division by zero there is refused at that division. */
-function coefficientAt(family: Family, k: number, e: Expr, point: readonly Rational[], constants: Record<string, Rational>): Rational {
+function coefficientAt(family: Family, k: number, e: Expr, point: readonly Rational[]): Rational {
   try {
-    return evalExprExact(e, point, constants);
+    return evalExprExact(e, point, family.constants);
   } catch (err) {
     if (!(err instanceof RangeError) || !/division by zero/.test(err.message)) throw err;
     const cell = point.map((v) => {

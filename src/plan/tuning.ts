@@ -36,14 +36,40 @@ export const SEGMENT_SEARCH = {
 
 /** The two-level (non-uniform) segment search (src/plan/refine.ts, DESIGN.md 1.11). */
 export const REFINE = {
-  /** Coarse cells per searched input, by number of inputs (1, 2, 3 or more): few, so the coarse table is small and the fine counts do the work. */
-  coarse: [8, 4, 2] as const,
+  /**
+   * Coarse cells per searched input, by number of inputs (1, 2, 3 or more):
+   * few, so the coarse table is small and the fine counts do the work. Two
+   * inputs get 8 each (4 before): a difficulty in one corner, as in the
+   * landing-time quadratic, is graded only when the coarse cells are narrow
+   * enough that splitting the corner's cell does not split half the box.
+   */
+  coarse: [8, 8, 2] as const,
   /** Series orders the refinement aims at: each gives one layout; higher orders need fewer, longer segments but cost more operations. */
   orders: [0, 1, 2, 3, 4] as const,
   /** Deepest split of a coarse cell (2^level fine segments): 64 per coarse cell reaches the equal segments' 512-1024 range. */
   maxLevel: 6,
   /** A segment is split while its truncation bound exceeds this share of the target: the rest is left to rounding. */
   share: 0.5,
+  /**
+   * Cells along the one free input when a segment's need is weighed input by
+   * input (segmentNeeds' `alone`): four, so a wide segment's need is not
+   * lost to interval overestimation, few enough to stay cheap beside the
+   * layout's own cells.
+   */
+  aloneCells: 4,
+  /** An input splits when its part of a segment's need is at least this share of the largest part (refine.ts splitDirections): halving the largest leaves it about this size. */
+  balance: 0.5,
+  /**
+   * A layout aimed at a series plus one Newton step asks the series for this
+   * share of sqrt(allowed / K) (plan-segments.ts beforeStep). No margin: a
+   * margin of ten (0.1) made the landing-time quadratic's layout twice as
+   * large (357 segments against 180) and past the default table limit; the
+   * layout is certified afterwards like any other, so a too-hopeful aim
+   * costs one refused candidate row, never a wrong bound.
+   */
+  polishShare: 1,
+  /** Aims of the refinement, each tried at every order of `orders`. */
+  aims: ['series', 'polished'] as const,
   /**
    * Flash-frugal choice: among the plans whose cost is within this fraction
    * of the cheapest, the one with the fewest table bytes wins (a few percent
@@ -188,4 +214,22 @@ export const QUOTED_FIX = {
 export const TABLE_FIX = {
   /** The limits the search is retried with, in turn, when plan.max_table_bytes kept it from splitting: the default 4 KiB, then 64 KiB, a table most targets still hold in memory. */
   tryBytes: [4096, 65536] as const,
+} as const;
+
+/** The result stage's choice of the root's accuracy budget (src/plan/result-stage.ts). */
+export const RESULT_BUDGET = {
+  /**
+   * The first root plan is made for the first of these shares of the target
+   * (as if |d result / dx| were 1; its cells give the slopes). When the root
+   * cannot meet that (its rounding floor), the next, looser one is tried: a
+   * result whose slope is well below 1 needs only a looser root.
+   */
+  firstShares: [1, 1000] as const,
+  /**
+   * Shares of the largest root budget the first plan's cells allow, tried in
+   * turn; the cheapest plan that meets the target wins. A looser root is
+   * usually cheaper, but a tighter one can change the form or the segments
+   * the planner picks, so two splits are weighed; each is one more plan.
+   */
+  shares: [0.9, 0.5] as const,
 } as const;

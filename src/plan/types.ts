@@ -5,6 +5,7 @@ import type { SeriesTerm } from '../series/hyper-catalan.js';
 import type { CostModelName } from '../family/arithmetic.js';
 import type { Family } from '../family/types.js';
 import type { RootChoice } from './root-choice.js';
+import type { CellFacts } from './cell-bound.js';
 
 /**
  * 'series': every term up to the order, evaluated as built; 'greedy': the
@@ -21,6 +22,27 @@ export interface Bound {
   readonly economisation?: number;
   readonly rounding: number;
   readonly total: number;
+}
+
+/**
+ * The result stage (the spec's `result:`): the function returns y = result(x, inputs)
+ * at the computed root x. Per cell, |y - y*| <= L E + rounding, where E is the
+ * root's certified absolute bound, L a certified bound of |d result / d x| over
+ * the cell and the root's enclosure widened by E, and rounding the a priori
+ * bound of the result's own evaluation with x an exact input. The plan's
+ * `bound` is then the result's: its `truncation` is the carried part L E and
+ * its `rounding` the result's own rounding (both in the spec's accuracy kind).
+ */
+export interface ResultPlan {
+  /** The result expression as the header prints it. */
+  readonly text: string;
+  /** Largest certified |d result / d unknown| over the cells. */
+  readonly slope: number;
+  /** The root's accuracy budget the planner chose (absolute), and the root plan's bound (absolute). */
+  readonly rootBudget: number;
+  readonly rootBound: Bound;
+  /** Op counts of the root part alone (the result adds the rest). */
+  readonly rootOps: OpCounts;
 }
 
 /** One plan the search weighed (for `rootcast plan`'s table). */
@@ -66,6 +88,10 @@ export interface Plan {
   readonly note: string | null;
   /** Number of cells the bound was certified over. */
   readonly cells: number;
+  /** The certified cells themselves (each with the root's enclosure), for the result stage (src/plan/result-stage.ts). */
+  readonly certifiedCells?: readonly CellFacts[];
+  /** With the spec's `result:`, its bound's parts and the root's own plan (src/plan/result-stage.ts). */
+  readonly result?: ResultPlan;
   /** Segments per input, in spec order (all 1 for one box), and the table size in bytes. */
   readonly counts: readonly number[];
   readonly tableBytes: number;

@@ -27,6 +27,12 @@ export interface ExprScope {
   readonly constants: readonly string[];
   readonly unknown: string;
   readonly functionName: string;
+  /**
+   * Where the unknown may appear (the spec's `result:`): it then reads as an
+   * input with this index, one past the family's inputs. Absent: the unknown
+   * is refused, as in a coefficient.
+   */
+  readonly unknownIndex?: number;
 }
 
 /** Largest exponent allowed after ^ (the degree limit). */
@@ -148,7 +154,7 @@ class Parser {
       case 'number': {
         const checked = checkDecimalText(t.text);
         if (!checked.ok) throw new ExprError(checked.problem, t.index);
-        return { kind: 'num', text: t.text, pos: this.posAt(t.index) };
+        return { kind: 'num', text: t.text, value: checked.value, pos: this.posAt(t.index) };
       }
       case 'name':
         return this.resolveName(t);
@@ -182,7 +188,8 @@ class Parser {
     const pos = this.posAt(t.index);
     if (index >= 0) return { kind: 'input', name: t.text, index, pos };
     if (constants.includes(t.text)) return { kind: 'constant', name: t.text, pos };
-    const only = 'a coefficient may use only inputs and constants';
+    if (t.text === unknown && this.scope.unknownIndex !== undefined) return { kind: 'input', name: t.text, index: this.scope.unknownIndex, pos };
+    const only = this.scope.unknownIndex !== undefined ? 'the result may use only the unknown, inputs and constants' : 'a coefficient may use only inputs and constants';
     if (t.text === unknown) throw new ExprError(`\`${showText(t.text)}\` is the unknown; ${only}`, t.index);
     if (t.text === functionName) throw new ExprError(`\`${showText(t.text)}\` is the function's name; ${only}`, t.index);
     const hint = didYouMean(t.text, [...inputs, ...constants]) || '; declare it under inputs or constants';

@@ -19,8 +19,9 @@ import { readInputs, type InputsSection } from './section-inputs.js';
 import { readPlan } from './section-plan.js';
 import { readRoot } from './section-root.js';
 import { readFixed } from './section-fixed.js';
-import type { Expr, Family, OutsideBox, Pos } from '../family/types.js';
-import { ARITHMETICS, type Arithmetic } from '../family/arithmetic.js';
+import { readResult } from './section-result.js';
+import type { Expr, Family, OutsideBox, Pos, SpecNumber } from '../family/types.js';
+import { SPEC_ARITHMETICS, type Arithmetic, type ArithmeticName } from '../family/arithmetic.js';
 import { parseSpecDocument } from './yaml-document.js';
 import { expectMap, refuseUnknownKeys, valueOf, type Entry } from './yaml-map.js';
 
@@ -38,12 +39,13 @@ export const SPEC_FIELDS = [
   'fixed',
   'plan',
   'inputs_outside_box',
+  'result',
 ] as const;
 
 const REQUIRED_FIELDS = ['function', 'unknown', 'degree', 'coefficients', 'inputs', 'accuracy', 'arithmetic'] as const;
 
-/** The arithmetics, in the table's order (src/family/arithmetic.ts), then fixed32 (src/reader/section-fixed.ts). */
-const ARITHMETIC: readonly (Arithmetic | 'fixed32')[] = [...(Object.keys(ARITHMETICS) as Arithmetic[]), 'fixed32'];
+/** The arithmetics, in the table's order (src/family/arithmetic.ts; fixed32's section: src/reader/section-fixed.ts). */
+const ARITHMETIC: readonly ArithmeticName[] = Object.keys(SPEC_ARITHMETICS) as ArithmeticName[];
 const OUTSIDE_BOX: readonly OutsideBox[] = ['extrapolate', 'saturate'];
 
 /** Highest degree a spec may ask for. */
@@ -73,19 +75,22 @@ export function readSpec(file: string, text: string, bytes?: Uint8Array): Family
   const constants = readConstants(ctx, field('constants'), names, positions);
   const scope = {
     inputs: inputs.inputs.map((i) => i.name),
-    constants: Object.keys(constants.texts),
+    constants: Object.keys(constants),
     unknown,
     functionName,
   };
-  const coefficients = readCoefficients(ctx, must('coefficients'), degree, scope, constants.values, positions);
-  refuseUnusedInputs(ctx, coefficients.exprs, inputs);
+  const coefficients = readCoefficients(ctx, must('coefficients'), degree, scope, constants, positions);
+  const result = readResult(ctx, field('result'), scope, constants, positions);
+  refuseUnusedInputs(ctx, [...coefficients.exprs, ...(result?.powers ?? [])], inputs);
   const bracket = readRoot(ctx, field('root'), positions);
   const accuracy = readAccuracy(ctx, must('accuracy'), positions);
   const named = readChoice(ctx, valueOf(ctx, must('arithmetic'), ARITHMETIC.join(' or ')), 'arithmetic', ARITHMETIC);
   const fixed = readFixed(ctx, field('fixed'), named, inputs.inputs, positions);
   // fixed32: the planner's float stages work in float64 (see FixedFormat).
-  const arithmetic: Arithmetic = named.value === 'fixed32' ? 'float64' : named.value;
+  const facts = SPEC_ARITHMETICS[named.value];
+  const arithmetic: Arithmetic = facts.kind === 'fixed' ? facts.planningArithmetic : (named.value as Arithmetic);
   const plan = readPlan(ctx, field('plan'), positions, inputs.inputs.map((i) => i.name));
+  if (result) refuseResultWithout(ctx, must('result'), named.value, bracket);
   const outside = field('inputs_outside_box');
   const outsideBox = outside
     ? readChoice(ctx, valueOf(ctx, outside, 'extrapolate or saturate (or remove the field for extrapolate)'), 'inputs_outside_box', OUTSIDE_BOX).value
@@ -102,13 +107,14 @@ export function readSpec(file: string, text: string, bytes?: Uint8Array): Family
     coefficients: coefficients.exprs,
     coefficientText: coefficients.exprs.map((e) => (e === null ? null : printExpr(e))),
     inputs: inputs.inputs,
-    constants: constants.texts,
+    constants,
     bracket,
     accuracy,
     arithmetic,
     ...(fixed ? { fixed } : {}),
     plan,
     outsideBox,
+    ...(result ? { result } : {}),
     positions,
   };
 }
@@ -125,6 +131,18 @@ function readNameField(ctx: SpecContext, e: Entry, role: 'the function' | 'the u
   const name = readName(ctx, valueOf(ctx, e, 'a name'), e.field);
   names.claim(ctx, name.value, role, name.pos, e.field);
   return name.value;
+}
+
+/**
+ * `result:` needs root.bracket: the checks find the exact root in the spec's
+ * bracket before they evaluate the result there (the function returns the
+ * result, not the root a bracket could be built around). fixed32 has no
+ * result stage yet.
+ */
+function refuseResultWithout(ctx: SpecContext, e: Entry, arithmetic: string, bracket: readonly [SpecNumber, SpecNumber] | null): void {
+  const at = e.value ? ctx.nodePos(e.value) : e.keyPos;
+  if (arithmetic === 'fixed32') ctx.fail('result: is not available with arithmetic: fixed32 yet; use float32 or float64, or remove result: and evaluate it after the call', at, e.field);
+  if (!bracket) ctx.fail('result: needs root.bracket (the checks find the exact root in the bracket, then evaluate the result there); add root: { bracket: [low, high] } around the wanted root', at, e.field);
 }
 
 function refuseUnusedInputs(ctx: SpecContext, exprs: readonly (Expr | null)[], inputs: InputsSection): void {

@@ -5,6 +5,7 @@
  */
 import { isScalar, isSeq, type Node } from 'yaml';
 import type { Rational } from '../math/rational.js';
+import { SpecNumber } from '../family/spec-number.js';
 import type { SpecContext } from './context.js';
 import { checkDecimalText } from '../family/decimal-text.js';
 import { didYouMean } from './edit-distance.js';
@@ -55,6 +56,11 @@ export function readWholeNumber(ctx: SpecContext, node: Node, field: string, min
   const n = BigInt(source);
   if (n < BigInt(min) || n > BigInt(max)) ctx.fail(`expected ${expected}, found ${showText(source)}`, pos, field);
   return { value: Number(n), pos };
+}
+
+/** The model's number (src/family/spec-number.ts) for a number the reader has read. */
+export function specNumberOf(d: DecimalValue): SpecNumber {
+  return new SpecNumber(d.text, d.value);
 }
 
 /** A finite decimal number, kept exactly as written. */

@@ -4,7 +4,7 @@
  */
 import { Rational } from '../math/rational.js';
 import type { SpecContext } from './context.js';
-import { readDecimal } from './scalars.js';
+import { readDecimal, specNumberOf } from './scalars.js';
 import { showText } from '../family/show.js';
 import type { Family, Pos } from '../family/types.js';
 import { expectMap, refuseUnknownKeys, valueOf, type Entry } from './yaml-map.js';
@@ -27,5 +27,5 @@ export function readAccuracy(ctx: SpecContext, entry: Entry, positions: Record<s
     ctx.fail(`a relative accuracy of ${showText(value.text)} allows any answer; write a fraction such as 1e-6`, value.pos, e.field);
   }
   positions[e.field] = value.pos;
-  return { kind, value: value.text };
+  return { kind, value: specNumberOf(value) };
 }

@@ -15,7 +15,7 @@ import { ExprError, parseExpr, type ExprScope } from './expr-parse.js';
 import { valueOffsets } from './positions.js';
 import { showText } from '../family/show.js';
 import { describeNode, expectMap, valueOf, type Entry } from './yaml-map.js';
-import type { Expr, Pos } from '../family/types.js';
+import type { Constants, Expr, Pos } from '../family/types.js';
 
 export interface CoefficientsSection {
   /** Index = power; null where the spec gives none. */
@@ -29,7 +29,7 @@ export function readCoefficients(
   entry: Entry,
   degree: number,
   scope: ExprScope,
-  constants: ReadonlyMap<string, Rational>,
+  constants: Constants,
   positions: Record<string, Pos>,
 ): CoefficientsSection {
   const node = valueOf(ctx, entry, 'the coefficient of each power, as `POWER: expression`');
@@ -78,7 +78,7 @@ function readPower(ctx: SpecContext, e: Entry, degree: number): number {
 }
 
 /** Parse a coefficient written as text (`1 - R / R0`) or as a YAML number (`-5.775e-7`). */
-function readExpression(ctx: SpecContext, node: Node, field: string, scope: ExprScope): Expr {
+export function readExpression(ctx: SpecContext, node: Node, field: string, scope: ExprScope): Expr {
   let src: string;
   let offsets: number[];
   if (isScalar(node) && typeof node.value === 'string') {

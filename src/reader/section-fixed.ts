@@ -12,9 +12,9 @@
  * the planner checks that (at `fixed.result`).
  */
 import { maxFractionBits, toRaw, fitsInt32 } from '../ir/fixed/format.js';
-import { Rational } from '../math/rational.js';
 import type { SpecContext } from './context.js';
 import { readWholeNumber } from './scalars.js';
+import { SPEC_ARITHMETICS, type ArithmeticName } from '../family/arithmetic.js';
 import type { FixedFormat, InputRange, Pos } from '../family/types.js';
 import { expectMap, refuseUnknownKeys, valueOf, type Entry } from './yaml-map.js';
 
@@ -24,11 +24,11 @@ const EXAMPLE = '`fixed: { inputs: { R: 16 }, result: 16 }`';
 export function readFixed(
   ctx: SpecContext,
   entry: Entry | undefined,
-  arithmetic: { value: string; pos: Pos },
+  arithmetic: { value: ArithmeticName; pos: Pos },
   inputs: readonly InputRange[],
   positions: Record<string, Pos>,
 ): FixedFormat | undefined {
-  if (arithmetic.value !== 'fixed32') {
+  if (SPEC_ARITHMETICS[arithmetic.value].kind !== 'fixed') {
     if (entry) ctx.fail(`applies only to arithmetic: fixed32 (this spec says ${arithmetic.value}); remove it or set arithmetic: fixed32`, entry.keyPos, 'fixed');
     return undefined;
   }
@@ -56,12 +56,12 @@ export function readFixed(
     const v = valueOf(ctx, e, 'the fraction bits, 0 to 31');
     const f = readWholeNumber(ctx, v, e.field, 0, 31);
     positions[e.field] = f.pos;
-    const lo = Rational.parseDecimal(input.lo);
-    const hi = Rational.parseDecimal(input.hi);
+    const lo = input.lo.value;
+    const hi = input.hi.value;
     if (!fitsInt32(toRaw(lo, f.value)) || !fitsInt32(toRaw(hi, f.value))) {
       const most = maxFractionBits(lo, hi);
       const fix = most >= 0 ? `use at most ${most} fraction bits` : 'rescale the input';
-      ctx.fail(`the range [${input.lo}, ${input.hi}] of \`${input.name}\` does not fit an int32 with ${f.value} fraction bits (|value| < 2^${31 - f.value}); ${fix}`, f.pos, e.field);
+      ctx.fail(`the range [${input.lo.text}, ${input.hi.text}] of \`${input.name}\` does not fit an int32 with ${f.value} fraction bits (|value| < 2^${31 - f.value}); ${fix}`, f.pos, e.field);
     }
     return f.value;
   });

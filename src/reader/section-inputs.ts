@@ -7,7 +7,7 @@
  */
 import type { SpecContext } from './context.js';
 import type { NameTable } from './name-table.js';
-import { readInterval, readName } from './scalars.js';
+import { readInterval, readName, specNumberOf } from './scalars.js';
 import type { InputRange, Pos } from '../family/types.js';
 import { expectMap, valueOf, type Entry } from './yaml-map.js';
 
@@ -30,7 +30,7 @@ export function readInputs(ctx: SpecContext, entry: Entry, names: NameTable, pos
     names.claim(ctx, name, 'an input', e.keyPos, e.field);
     const value = valueOf(ctx, e, 'the range as [low, high]');
     const [lo, hi] = readInterval(ctx, value, e.field, 'range', 'an input with a single value belongs under constants');
-    inputs.push({ name, lo: lo.text, hi: hi.text });
+    inputs.push({ name, lo: specNumberOf(lo), hi: specNumberOf(hi) });
     keyPos.push(e.keyPos);
     fields.push(e.field);
     positions[e.field] = ctx.nodePos(value);

@@ -4,13 +4,14 @@
  * function returns the series' own root, the one that tends to -c0/c1.
  */
 import type { SpecContext } from './context.js';
-import { readInterval } from './scalars.js';
+import { readInterval, specNumberOf } from './scalars.js';
+import type { SpecNumber } from '../family/spec-number.js';
 import type { Pos } from '../family/types.js';
 import { expectMap, refuseUnknownKeys, valueOf, type Entry } from './yaml-map.js';
 
 const ROOT_FIELDS = ['bracket'] as const;
 
-export function readRoot(ctx: SpecContext, entry: Entry | undefined, positions: Record<string, Pos>): readonly [string, string] | null {
+export function readRoot(ctx: SpecContext, entry: Entry | undefined, positions: Record<string, Pos>): readonly [SpecNumber, SpecNumber] | null {
   if (!entry) return null;
   const node = valueOf(ctx, entry, '`bracket: [low, high]` (or remove the field to get the series root)');
   const entries = expectMap(ctx, node, entry.field, entry.keyPos, 'a map with `bracket: [low, high]`');
@@ -20,5 +21,5 @@ export function readRoot(ctx: SpecContext, entry: Entry | undefined, positions: 
   const value = valueOf(ctx, bracket, 'the bracket as [low, high]');
   const [lo, hi] = readInterval(ctx, value, bracket.field, 'bracket');
   positions[bracket.field] = ctx.nodePos(value);
-  return [lo.text, hi.text];
+  return [specNumberOf(lo), specNumberOf(hi)];
 }

@@ -6,7 +6,8 @@
  */
 import { MultiPoly } from '../math/multipoly.js';
 import { Rational } from '../math/rational.js';
-import type { Expr } from '../family/types.js';
+import { constantValue } from '../family/expr-eval.js';
+import type { Constants, Expr } from '../family/types.js';
 
 /** p_i = mid_i + half_i u_i (exact, half_i > 0). */
 export interface InputScaling {
@@ -18,17 +19,14 @@ export interface InputScaling {
  * The exact polynomial of `e` in the scaled inputs, or null when `e` is not a
  * polynomial (it divides by an expression of the inputs).
  */
-export function exprPolynomial(e: Expr, scaling: InputScaling, constants: Readonly<Record<string, string>>): MultiPoly | null {
+export function exprPolynomial(e: Expr, scaling: InputScaling, constants: Constants): MultiPoly | null {
   const vars = scaling.mid.length;
   const walk = (x: Expr): MultiPoly | null => {
     switch (x.kind) {
       case 'num':
-        return MultiPoly.constant(vars, Rational.parseDecimal(x.text));
-      case 'constant': {
-        const text = constants[x.name];
-        if (text === undefined) throw new RangeError(`unknown constant ${x.name}`);
-        return MultiPoly.constant(vars, Rational.parseDecimal(text));
-      }
+        return MultiPoly.constant(vars, x.value);
+      case 'constant':
+        return MultiPoly.constant(vars, constantValue(constants, x.name));
       case 'input':
         return MultiPoly.affine(vars, x.index, scaling.mid[x.index]!, scaling.half[x.index]!);
       case 'neg': {

@@ -28,6 +28,8 @@ export interface FixedCheck {
   readonly pass: boolean;
   /** Every sampled raw input and raw result, for bit comparisons with the targets. */
   readonly results: readonly (readonly [bigint, bigint])[];
+  /** Each point's absolute error in real units (null where the bracket showed no sign change), in the order of `results`. */
+  readonly errors: readonly (number | null)[];
 }
 
 export interface FixedCheckInput {
@@ -45,6 +47,7 @@ export function checkFixedInProcess(c: FixedCheckInput, samples: number, seed: n
   const coefficients = coefficientEvaluator(family);
   const points = fixedSamplePoints(program, c.rawLo, c.rawHi, samples, seed);
   const results: [bigint, bigint][] = [];
+  const errors: (number | null)[] = [];
   let worstError = -1;
   let worstAt: bigint | null = null;
   let noSignChangeAt: bigint | null = null;
@@ -65,14 +68,16 @@ export function checkFixedInProcess(c: FixedCheckInput, samples: number, seed: n
     const yr = fromRaw(y, fx.result);
     const cs = coefficients([fromRaw(raw, fx.inputs[0]!)]);
     const spread = Rational.fromNumber(2 * c.bound).add(pow2(-fx.result));
-    const [lo, hi] = family.bracket ? [Rational.parseDecimal(family.bracket[0]), Rational.parseDecimal(family.bracket[1])] : [yr.sub(spread), yr.add(spread)];
+    const [lo, hi] = family.bracket ? [family.bracket[0].value, family.bracket[1].value] : [yr.sub(spread), yr.add(spread)];
     const r = referenceRoot(cs, lo, hi, resolution);
     if (r === 'no-sign-change') {
       noSignChangeAt ??= raw;
+      errors.push(null);
       continue;
     }
     // The distance to the farther end of the root's enclosure, rounded up.
     const err = Math.max(yr.sub(r.lo).abs().toNumberUp(), yr.sub(r.hi).abs().toNumberUp());
+    errors.push(err);
     if (err > c.bound) within = false;
     if (err > worstError) {
       worstError = err;
@@ -80,7 +85,7 @@ export function checkFixedInProcess(c: FixedCheckInput, samples: number, seed: n
     }
   }
   const pass = within && noSignChangeAt === null && worstAt !== null && c.bound <= c.target;
-  return { points: points.length, worstError, worstAt, noSignChangeAt, overflowAt, bound: c.bound, target: c.target, pass, results };
+  return { points: points.length, worstError, worstAt, noSignChangeAt, overflowAt, bound: c.bound, target: c.target, pass, results, errors };
 }
 
 /** The summary line, in the layout of the fixed32 harnesses. */

@@ -1,8 +1,9 @@
 /**
  * The documented shape of `verify --json` (README, "verify --json";
  * schema/verify.schema.json): the plan's claims (the `plan --json` object)
- * and one entry per check, the branch count of the emitted C last (its
- * `target` is "branches"). JSON has no infinity: a worst error that is not
+ * and one entry per check: the sample checks, the bit comparisons (`target`
+ * "bits"), the branch count of the emitted C last (its `target` is
+ * "branches"); fixed32 specs have the same shape (fixed-run.ts). JSON has no infinity: a worst error that is not
  * finite is null with `worstFinite: false`.
  */
 import { TOOLCHAINS } from './branches.js';
@@ -29,10 +30,28 @@ export interface BranchCheckJson {
   readonly pass: boolean;
 }
 
+/**
+ * A bit comparison: the emitted code's results, run by a target or on an
+ * emulated core, against rootcast's in-process evaluation of the same program
+ * at the same points (equal bits carry the certified bound over).
+ */
+export interface BitCheckJson {
+  readonly target: 'bits';
+  /** What ran the code: a target (`c`, `ts`, `rust`) or an emulated core (`cortex-m0`, `cortex-m4f`, on QEMU). */
+  readonly of: string;
+  readonly points: number;
+  readonly differing: number;
+  /** Input name -> value of the first point whose bits differ; null when all agree. */
+  readonly firstDifferenceAt: Readonly<Record<string, number>> | null;
+  readonly pass: boolean;
+}
+
 export interface VerifyJson {
   readonly generator: object;
   readonly plan: object;
-  readonly checks: readonly (CheckJson | BranchCheckJson)[];
+  readonly checks: readonly (CheckJson | BitCheckJson | BranchCheckJson)[];
+  /** Checks that could not run here, one line each (a missing tool); absent when none was skipped. */
+  readonly skipped?: readonly string[];
   readonly pass: boolean;
 }
 
@@ -67,5 +86,10 @@ export function verifyJson(plan: { readonly generator: object }, result: VerifyR
         },
       ]
     : [];
-  return { generator: plan.generator, plan, checks: [...result.checks.map(checkJson), ...branches], pass: result.pass };
+  return { generator: plan.generator, plan, checks: [...result.checks.map(checkJson), ...(result.bitChecks ?? []), ...branches], ...skippedJson(result.skipped), pass: result.pass };
+}
+
+/** `skipped` only when something was. */
+export function skippedJson(skipped: readonly string[] | undefined): { readonly skipped?: readonly string[] } {
+  return skipped && skipped.length > 0 ? { skipped } : {};
 }

@@ -15,10 +15,16 @@
  *   reference   the midpoint of the final grid cell (reference.ts; the value under
  *               test is the hint of its Newton shortcut).
  * Per point everything after the coefficients is unreduced fractions (no gcd).
+ *
+ * With the spec's `result:` the function returns the result, not the root:
+ * the root is found in the spec's bracket (the reader requires one) on the
+ * grid of the rule above with x = the larger bracket end, without a hint, and the
+ * reference is the result expression evaluated exactly at that interval's
+ * midpoint.
  */
 import { Rational } from '../math/rational.js';
 import type { Family } from '../family/types.js';
-import { coefficientEvaluator } from './coefficients.js';
+import { coefficientEvaluator, resultEvaluator } from './coefficients.js';
 import {
   absFraction,
   addFractions,
@@ -29,6 +35,7 @@ import {
   midpoint,
   scaleFraction,
   subFractions,
+  toRational,
   type Fraction,
 } from './fraction.js';
 import { bisectRoot, integerCoefficients } from './reference.js';
@@ -109,10 +116,23 @@ export function makeMeasurer(
   const coefficients = coefficientEvaluator(family);
   const specBracket = family.bracket
     ? {
-        lo: fractionOfRational(Rational.parseDecimal(family.bracket[0])),
-        hi: fractionOfRational(Rational.parseDecimal(family.bracket[1])),
+        lo: fractionOfRational(family.bracket[0].value),
+        hi: fractionOfRational(family.bracket[1].value),
       }
     : null;
+  const result = resultEvaluator(family);
+  if (result) {
+    if (!specBracket || !family.bracket) throw new Error('a result: family has root.bracket (the reader requires it)');
+    const scale = Math.max(...family.bracket.map((t) => Math.abs(t.toNumber())));
+    const s = referenceGridExponent(scale, absoluteBound);
+    return (computed, inputs) => {
+      if (!Number.isFinite(computed)) return { kind: 'not-finite' };
+      const exact = inputs.map((v) => Rational.fromNumber(v));
+      const root = bisectRoot(integerCoefficients(coefficients(exact)), specBracket.lo, specBracket.hi, s);
+      if (root === 'no-sign-change') return { kind: 'no-sign-change', bracket: specBracket };
+      return judged(fractionOfNumber(computed), root, fractionOfRational(result(exact, toRational(midpoint(root.lo, root.hi)))));
+    };
+  }
   return (computed, inputs) => {
     if (!Number.isFinite(computed)) return { kind: 'not-finite' };
     const c = integerCoefficients(coefficients(inputs.map((v) => Rational.fromNumber(v))));
@@ -120,19 +140,23 @@ export function makeMeasurer(
     const xf = fractionOfNumber(computed);
     const root = bisectRoot(c, bracket.lo, bracket.hi, referenceGridExponent(computed, absoluteBound), xf);
     if (root === 'no-sign-change') return { kind: 'no-sign-change', bracket };
-    const reference = midpoint(root.lo, root.hi);
-    const absoluteExact = absFraction(subFractions(xf, reference));
-    const relativeExact =
-      reference.num === 0n ? (absoluteExact.num === 0n ? absoluteExact : null) : divFractions(absoluteExact, absFraction(reference));
-    return {
-      kind: 'measured',
-      root,
-      reference,
-      absoluteExact,
-      absolute: fractionToNumberUp(absoluteExact),
-      relativeExact,
-      relative: relativeExact === null ? Infinity : fractionToNumberUp(relativeExact),
-    };
+    return judged(xf, root, midpoint(root.lo, root.hi));
+  };
+}
+
+/** The measure of a computed value against its reference (the root's midpoint, or the result there). */
+function judged(xf: Fraction, root: FractionInterval, reference: Fraction): PointMeasure {
+  const absoluteExact = absFraction(subFractions(xf, reference));
+  const relativeExact =
+    reference.num === 0n ? (absoluteExact.num === 0n ? absoluteExact : null) : divFractions(absoluteExact, absFraction(reference));
+  return {
+    kind: 'measured',
+    root,
+    reference,
+    absoluteExact,
+    absolute: fractionToNumberUp(absoluteExact),
+    relativeExact,
+    relative: relativeExact === null ? Infinity : fractionToNumberUp(relativeExact),
   };
 }
 

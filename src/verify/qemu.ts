@@ -41,11 +41,11 @@ export function qemuMissing(): string | null {
 export interface QemuProgram {
   readonly header: { readonly path: string; readonly text: string };
   readonly name: string;
-  /** C types of the argument and the result (one argument). */
+  /** C types of the arguments (all alike) and of the result. */
   readonly argType: 'int32_t' | 'float';
   readonly resultType: 'int32_t' | 'float';
-  /** The arguments as C literals. */
-  readonly inputs: readonly string[];
+  /** The arguments of each call as C literals: one literal for a one-argument function, else one per argument. */
+  readonly inputs: readonly (string | readonly string[])[];
 }
 
 export interface QemuRun {
@@ -62,13 +62,21 @@ export function runOnCore(p: QemuProgram, core: QemuCore, count = false, timeout
   try {
     writeFileSync(join(dir, p.header.path), p.header.text);
     writeFileSync(join(dir, 'link.ld'), LINK_SCRIPT);
+    const rows = p.inputs.map((r) => (typeof r === 'string' ? [r] : r));
+    const arity = rows[0]?.length ?? 1;
+    if (rows.some((r) => r.length !== arity)) throw new Error('every call needs the same number of arguments');
+    const indices = Array.from({ length: arity }, (_, j) => j);
     const source = renderTemplate('c/qemu-main.c.hbs', {
       header: p.header.path,
       name: p.name,
       count: String(p.inputs.length),
+      arity: String(arity),
       argType: p.argType,
       resultType: p.resultType,
-      inputRows: p.inputs,
+      parameters: indices.map((j) => `${p.argType} x${j}`).join(', '),
+      arguments: indices.map((j) => `x${j}`).join(', '),
+      reads: indices.map((j) => `*(const volatile ${p.argType} *)&rc_in[i][${j}]`).join(', '),
+      inputRows: rows.map((r) => `{ ${r.join(', ')} }`),
       enableFpu: c.fpu,
     });
     writeFileSync(join(dir, 'main.c'), source);

@@ -32,6 +32,7 @@ import type { ReportPoint } from './report/envelope.js';
 import { runCHarness, runTsHarness } from './run-harness.js';
 import { edgePointsOf, sampleTotal } from './samples.js';
 import { formatSummary, parseSummary, type CheckSummary } from './summary.js';
+import type { BitCheckJson } from './json.js';
 
 export interface VerifyOptions {
   readonly targets: readonly TargetName[];
@@ -93,6 +94,10 @@ export interface VerifyResult {
   readonly harnessFailures: readonly string[];
   readonly points: readonly ReportPoint[];
   readonly inProcess: CheckSummary;
+  /** Bit comparisons with the in-process results (the emulated cores). */
+  readonly bitChecks?: readonly BitCheckJson[];
+  /** Checks that could not run here (a missing tool), one line each; also in `lines`. */
+  readonly skipped?: readonly string[];
   readonly pass: boolean;
 }
 

@@ -38,7 +38,6 @@
  * that is not a float32 value may round just outside the box; the reference is
  * computed for the value the function received, so the check stays exact.
  */
-import { Rational } from '../math/rational.js';
 import type { Program } from '../ir/nodes.js';
 import { roundNumber } from '../family/arithmetic.js';
 import { edgeSamplePoints } from '../ir/segment-edges.js';
@@ -60,8 +59,8 @@ export const MAX_SAMPLED_INPUTS = 24;
 /** The box of a family, each end the nearest binary64 to the spec's decimal. */
 export function inputBox(family: Family): SampleBox[] {
   return family.inputs.map((r) => ({
-    lo: Rational.parseDecimal(r.lo).toNumber(),
-    hi: Rational.parseDecimal(r.hi).toNumber(),
+    lo: r.lo.toNumber(),
+    hi: r.hi.toNumber(),
   }));
 }
 

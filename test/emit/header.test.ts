@@ -8,6 +8,7 @@ import { createHash } from 'node:crypto';
 import { hostname } from 'node:os';
 import { assertCommentSafe, equationText, headerLines, specPathForHeader } from '../../src/emit/header.js';
 import { Rational } from '../../src/math/rational.js';
+import { SpecNumber } from '../../src/family/spec-number.js';
 import { DEMO_SPEC_TEXT, demoInput } from './support/family.js';
 import { quadraticSeries, sqrtTaylor } from './support/programs.js';
 
@@ -83,7 +84,7 @@ describe('headerLines', () => {
     // A path like `a/b*/c.yaml` cannot close the comment: only the file name is printed, and it holds no `/`.
     expect(headerLines(demoInput(program, { file: 'a/b*/c.yaml' }), 'C function')[1]).toContain(' from c.yaml ');
     expect(() => headerLines(demoInput(program, { coefficientText: ['1\n#include <x>', 'A', 'B'] }), 'C function')).toThrow(/line break/);
-    expect(() => headerLines(demoInput(program, { constants: { A: '1\u2028' } }), 'C function')).toThrow(/line break/);
+    expect(() => headerLines(demoInput(program, { constants: { A: new SpecNumber('1\u2028', Rational.ONE) } }), 'C function')).toThrow(/line break/);
     expect(() => assertCommentSafe('tab\there')).toThrow(/control character/);
   });
 
@@ -94,7 +95,7 @@ describe('headerLines', () => {
 
   test('refuses a family and a program that disagree on arithmetic or arguments', () => {
     expect(() => headerLines(demoInput(program, { arithmetic: 'float64' }), 'C function')).toThrow(/asks for float64 but the program computes in float32/);
-    const inputs = [{ name: 'y', lo: '0', hi: '1' }];
+    const inputs = [{ name: 'y', lo: SpecNumber.parse('0'), hi: SpecNumber.parse('1') }];
     expect(() => headerLines(demoInput(program, { inputs }), 'C function')).toThrow(/inputs \(y\) differ from the program's arguments \(x\)/);
   });
 

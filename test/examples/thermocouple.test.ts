@@ -31,7 +31,7 @@ const family = loadSpec('examples/thermocouple-t.yaml');
 
 describe('type T thermocouple (ITS-90, 0 to 400 degC)', () => {
   test('the example coefficients reproduce the published table to within its 1 uV rounding', () => {
-    const c = Object.fromEntries(Object.entries(family.constants).map(([name, text]) => [name, new Decimal(text)]));
+    const c = Object.fromEntries(Object.entries(family.constants).map(([name, n]) => [name, new Decimal(n.text)]));
     for (const [t, e] of TABLE) {
       let sum = new Decimal(0);
       for (let i = 1; i <= 8; i++) sum = sum.add(c[`c${i}`]!.mul(new Decimal(t).pow(i)));

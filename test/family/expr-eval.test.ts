@@ -3,6 +3,7 @@ import { readFileSync } from 'node:fs';
 import fc from 'fast-check';
 import { all, create } from 'mathjs';
 import { Rational } from '../../src/math/rational.js';
+import { SpecNumber } from '../../src/family/spec-number.js';
 import { evalExprExact } from '../../src/family/expr-eval.js';
 import { parseExpr } from '../../src/reader/expr-parse.js';
 import { printExpr } from '../../src/family/expr-print.js';
@@ -10,7 +11,7 @@ import { readSpec } from '../../src/reader/read.js';
 import { colAt, exprArb, SCOPE } from '../reader/expr-arbitrary.js';
 
 const q = Rational.parseDecimal;
-const CONSTANTS = { R0: q('100'), A: q('3.9083e-3') };
+const CONSTANTS = { R0: SpecNumber.parse('100'), A: SpecNumber.parse('3.9083e-3') };
 const INPUTS = [q('390.48'), q('-2.5')];
 
 describe('evalExprExact', () => {
@@ -25,8 +26,7 @@ describe('evalExprExact', () => {
     // IEC 60751: R(T) = R0 (1 + A T + B T^2) for T >= 0 degC, R0 = 100 ohm, A = 3.9083e-3, B = -5.775e-7,
     // so R(100) = 138.5055 ohm exactly, and c0 + c1 T + c2 T^2 = 1 - R/R0 + A T + B T^2 is zero there.
     const kiln = readSpec('kiln.yaml', readFileSync(new URL('../reader/fixtures/kiln.yaml', import.meta.url), 'utf8'));
-    const constants = Object.fromEntries(Object.entries(kiln.constants).map(([k, v]) => [k, q(v)]));
-    const c = kiln.coefficients.map((e) => evalExprExact(e!, [q('138.5055')], constants));
+    const c = kiln.coefficients.map((e) => evalExprExact(e!, [q('138.5055')], kiln.constants));
     const T = q('100');
     expect(c[0]!.add(c[1]!.mul(T)).add(c[2]!.mul(T.pow(2))).isZero()).toBe(true);
   });

@@ -1,14 +1,12 @@
 import { describe, expect, test } from '@jest/globals';
 import { Rational } from '../../src/math/rational.js';
+import { SpecNumber } from '../../src/family/spec-number.js';
 import { ConstantPartError, foldConstantParts } from '../../src/family/expr-fold.js';
 import { parseExpr } from '../../src/reader/expr-parse.js';
 import { colAt, SCOPE } from '../reader/expr-arbitrary.js';
 
 const q = Rational.parseDecimal;
-const CONSTANTS = new Map([
-  ['R0', q('100')],
-  ['A', q('3.9083e-3')],
-]);
+const CONSTANTS = { R0: SpecNumber.parse('100'), A: SpecNumber.parse('3.9083e-3') };
 const fold = (s: string) => foldConstantParts(parseExpr(s, SCOPE, colAt), CONSTANTS);
 
 function problem(s: string): [number, string] {

@@ -15,6 +15,7 @@ import { afterAll, describe, expect, test } from '@jest/globals';
 import { glslHarness } from '../../src/emit/harness/glsl.js';
 import { evaluate } from '../../src/ir/evaluate.js';
 import type { Program } from '../../src/ir/nodes.js';
+import { SpecNumber } from '../../src/family/spec-number.js';
 import { checkSamplePoints } from '../../src/verify/samples.js';
 import { demoInput } from '../emit/support/family.js';
 import { ALL_SAMPLES } from '../emit/support/programs.js';
@@ -52,7 +53,7 @@ afterAll(() => console.log(`GLSL printer programs on WebGL2, bit-identical to ev
 describe('every printer program gives the bits of evaluate() on WebGL2, both overloads', () => {
   test.each(cases)('%s', (label, { program, box }) => {
     const name = 'x_gpu';
-    const input = demoInput(program, { functionName: name, inputs: program.inputs.map((n, j) => ({ name: n, lo: String(box[j]![0]), hi: String(box[j]![1]) })) });
+    const input = demoInput(program, { functionName: name, inputs: program.inputs.map((n, j) => ({ name: n, lo: SpecNumber.parse(String(box[j]![0])), hi: SpecNumber.parse(String(box[j]![1])) })) });
     const dump = dumpPage(name, glslHarness(input), program.inputs.length, POINTS, 7);
     expect(dump.run.stderr).toBe('');
     // The segment edge points included (src/verify/samples.ts, step 4).

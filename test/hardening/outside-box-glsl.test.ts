@@ -41,7 +41,6 @@ import { join } from 'node:path';
 import { evaluate } from '../../src/ir/evaluate.js';
 import type { Program } from '../../src/ir/nodes.js';
 import { partSegment } from '../../src/ir/segment-index.js';
-import { Rational } from '../../src/math/rational.js';
 import { emitGlslExample } from '../glsl/support/examples.js';
 import { snippetProbes, type Probe } from '../glsl/support/probes.js';
 import { fragmentShader, openShaderBrowser, type ShaderBrowser } from '../glsl/support/shader-run.js';
@@ -195,7 +194,7 @@ describe('GLSL: inputs outside the box, NaN and infinities, both overloads', () 
     const { program, family } = input;
     const name = family.functionName;
     const d = program.inputs.length;
-    const box = family.inputs.map((r) => [Rational.parseDecimal(r.lo).toNumber(), Rational.parseDecimal(r.hi).toNumber()] as const);
+    const box = family.inputs.map((r) => [r.lo.toNumber(), r.hi.toNumber()] as const);
     const cases = casesFor(box);
     const points = cases.map((c) => c.inputs);
     const probes = snippetProbes(snippet.text, name, program);
@@ -276,7 +275,7 @@ describe('GLSL: inputs outside the box, NaN and infinities, both overloads', () 
     const unclamped = snippet.text.replace(/clamp\(((?:int|ivec4)\(roundEven\([^;]*\)\)), 0, \d+\);/g, '$1;');
     expect(unclamped).not.toBe(snippet.text);
     const probes = snippetProbes(unclamped, name, program).filter((p) => p.kind === 'part');
-    const box = family.inputs.map((r) => [Rational.parseDecimal(r.lo).toNumber(), Rational.parseDecimal(r.hi).toNumber()] as const);
+    const box = family.inputs.map((r) => [r.lo.toNumber(), r.hi.toNumber()] as const);
     const cases = casesFor(box).filter((c) => /widths/.test(c.label));
     const gpu = await runOnGpu(unclamped, name, probes, program.inputs.length, cases.map((c) => c.inputs));
     for (const shape of SHAPES) {

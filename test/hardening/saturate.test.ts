@@ -63,7 +63,7 @@ interface Case {
 
 function casesFor(input: EmitInput): Case[] {
   const a = input.program.arithmetic;
-  const ends = input.family.inputs.map((r) => [roundTo(Rational.parseDecimal(r.lo), a), roundTo(Rational.parseDecimal(r.hi), a)] as const);
+  const ends = input.family.inputs.map((r) => [roundTo(r.lo.value, a), roundTo(r.hi.value, a)] as const);
   const mid = ends.map(([lo, hi]) => roundTo(Rational.fromNumber(lo).add(Rational.fromNumber(hi)).div(Rational.fromNumber(2)), a));
   const max = a === 'float32' ? 3.4028234663852886e38 : Number.MAX_VALUE;
   const out: Case[] = [];

@@ -4,6 +4,7 @@ import { makePlan } from '../../src/plan/plan.js';
 import { boxOf } from '../../src/plan/box.js';
 import { loadSpec } from '../../src/reader/load.js';
 import type { Family } from '../../src/family/types.js';
+import { SpecNumber } from '../../src/family/spec-number.js';
 import { checkInProcess } from '../../src/verify/inprocess.js';
 import { termsOfGrade } from '../../src/series/hyper-catalan.js';
 import { emitInputOf } from '../../src/cli/pipeline.js';
@@ -27,13 +28,13 @@ describe('planner', () => {
 
   test('a tighter target needs at least as high an order (the kiln probe at 1e-3 and 3e-4 degC)', () => {
     const loose = makePlan(kiln);
-    const tight = makePlan({ ...kiln, accuracy: { kind: 'absolute', value: '3e-4' } });
+    const tight = makePlan({ ...kiln, accuracy: { kind: 'absolute', value: SpecNumber.parse('3e-4') } });
     expect(tight.order).toBeGreaterThanOrEqual(loose.order);
     expect(tight.bound.total).toBeLessThanOrEqual(3e-4);
   });
 
   test('float32 cannot certify 1e-6 degC near 850 degC: refused with the rounding floor', () => {
-    expect(() => makePlan({ ...kiln, accuracy: { kind: 'absolute', value: '1e-6' } })).toThrow(/rounding floor/);
+    expect(() => makePlan({ ...kiln, accuracy: { kind: 'absolute', value: SpecNumber.parse('1e-6') } })).toThrow(/rounding floor/);
   });
 
   test('the analysed box holds the float32 roundings of the range ends (390.49 is not a float32 number)', () => {
@@ -45,7 +46,7 @@ describe('planner', () => {
 
   test('without a bracket the plain series is used (x0 = 0); with one, x0 is a float32 number inside it', () => {
     // The plain series about 0 needs |r| up to 743 degC, so float32 rounding grows with the order: 2e-3 is certifiable, 1e-3 is not.
-    const plain = makePlan({ ...kiln, bracket: null, accuracy: { kind: 'absolute', value: '2e-3' } });
+    const plain = makePlan({ ...kiln, bracket: null, accuracy: { kind: 'absolute', value: SpecNumber.parse('2e-3') } });
     expect(plain.root.x0.isZero()).toBe(true);
     const centred = makePlan(kiln);
     const x0 = centred.root.x0.toNumber();

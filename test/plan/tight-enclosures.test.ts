@@ -133,8 +133,7 @@ describe('coefficient enclosures are sound', () => {
     const family = fixture('torus-hit.yaml');
     const x0 = Rational.parseDecimal('1.75');
     const ranges = new CoefficientRanges(family, [x0]);
-    const box = family.inputs.map((i) => [Number(i.lo), Number(i.hi)] as const);
-    const constants = Object.fromEntries(Object.entries(family.constants).map(([k, v]) => [k, Rational.parseDecimal(v)]));
+    const box = family.inputs.map((i) => [i.lo.toNumber(), i.hi.toNumber()] as const);
     const frac = fc.integer({ min: 0, max: 1024 }).map((k) => k / 1024);
     const arb = fc.record({
       corner: fc.array(frac, { minLength: 3, maxLength: 3 }),
@@ -151,7 +150,7 @@ describe('coefficient enclosures are sound', () => {
           const p = cell.map((c, i) => Rational.fromNumber(c.lo + (c.hi - c.lo) * t[i]!));
           // Clamp to the cell (the float sum may round past hi).
           const point = p.map((v, i) => (v.cmp(Rational.fromNumber(cell[i]!.hi)) > 0 ? Rational.fromNumber(cell[i]!.hi) : v));
-          const c = family.coefficients.map((e) => (e ? evalExprExact(e, point, constants) : Rational.ZERO));
+          const c = family.coefficients.map((e) => (e ? evalExprExact(e, point, family.constants) : Rational.ZERO));
           for (let j = 0; j < c.length; j++) {
             let exact = Rational.ZERO;
             for (let k = j; k < c.length; k++) exact = exact.add(Rational.of(binomial(k, j)).mul(x0.pow(k - j)).mul(c[k]!));

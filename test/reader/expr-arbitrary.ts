@@ -1,6 +1,7 @@
 /** fast-check generators of coefficient expression trees, for the expression tests. */
 import fc from 'fast-check';
 import type { Expr, Pos } from '../../src/family/types.js';
+import { Rational } from '../../src/math/rational.js';
 
 export const SCOPE = { inputs: ['R', 'p'], constants: ['R0', 'A'], unknown: 'T', functionName: 'f' };
 
@@ -20,7 +21,7 @@ const numText = fc.oneof(
 export const exprArb: fc.Arbitrary<Expr> = fc.letrec<{ e: Expr }>((tie) => ({
   e: fc.oneof(
     { depthSize: 'small', withCrossShrink: true },
-    numText.map((text): Expr => ({ kind: 'num', text, pos: P })),
+    numText.map((text): Expr => ({ kind: 'num', text, value: Rational.parseDecimal(text), pos: P })),
     fc.constantFrom(0, 1).map((index): Expr => ({ kind: 'input', name: SCOPE.inputs[index]!, index, pos: P })),
     fc.constantFrom(...SCOPE.constants).map((name): Expr => ({ kind: 'constant', name, pos: P })),
     tie('e').map((arg): Expr => ({ kind: 'neg', arg, pos: P })),

@@ -5,11 +5,14 @@ import fc from 'fast-check';
 import { RootcastError } from '../../src/errors.js';
 import { readSpec } from '../../src/reader/read.js';
 import type { Expr, Family } from '../../src/family/types.js';
+import { Rational } from '../../src/math/rational.js';
+import { SpecNumber } from '../../src/family/spec-number.js';
 import { BASE, baseText, edit, expectRefusal } from './helpers.js';
 
 const fixture = (name: string): string => readFileSync(new URL(`./fixtures/${name}`, import.meta.url), 'utf8');
 const KILN_YAML = fixture('kiln.yaml');
 const KILN_JSON = fixture('kiln.json');
+const n = SpecNumber.parse;
 
 const at = (line: number, column: number) => ({ line, column });
 
@@ -18,11 +21,11 @@ describe('readSpec on the kiln example of DESIGN.md section 3', () => {
   // the IEC 60751 values A = 3.9083e-3, B = -5.775e-7 and R0 = 100 ohm (Pt100).
   const family = readSpec('examples/kiln.yaml', KILN_YAML);
 
-  test('gives the expected equation family, every number kept as its exact text', () => {
+  test('gives the expected equation family, every number its exact value beside its text', () => {
     const { positions, specHash, ...rest } = family;
     const c0: Expr = {
       kind: 'sub',
-      left: { kind: 'num', text: '1', pos: at(6, 6) },
+      left: { kind: 'num', text: '1', value: Rational.ONE, pos: at(6, 6) },
       right: {
         kind: 'div',
         left: { kind: 'input', name: 'R', index: 0, pos: at(6, 10) },
@@ -38,10 +41,10 @@ describe('readSpec on the kiln example of DESIGN.md section 3', () => {
       degree: 2,
       coefficients: [c0, { kind: 'constant', name: 'A', pos: at(7, 6) }, { kind: 'constant', name: 'B', pos: at(8, 6) }],
       coefficientText: ['1 - R / R0', 'A', 'B'],
-      inputs: [{ name: 'R', lo: '100', hi: '390.48' }],
-      constants: { R0: '100', A: '3.9083e-3', B: '-5.775e-7' },
-      bracket: ['-10', '900'],
-      accuracy: { kind: 'absolute', value: '0.001' },
+      inputs: [{ name: 'R', lo: n('100'), hi: n('390.48') }],
+      constants: { R0: n('100'), A: n('3.9083e-3'), B: n('-5.775e-7') },
+      bracket: [n('-10'), n('900')],
+      accuracy: { kind: 'absolute', value: n('0.001') },
       arithmetic: 'float32',
       plan: { maxOrder: 40, segments: 'auto', maxTableBytes: 4096, newtonSteps: 'auto' },
       outsideBox: 'extrapolate',

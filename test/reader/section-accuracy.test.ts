@@ -1,16 +1,19 @@
 import { describe, expect, test } from '@jest/globals';
 import { readSpec } from '../../src/reader/read.js';
 import { edit, expectRefusal } from './helpers.js';
+import { SpecNumber } from '../../src/family/spec-number.js';
+
+const n = SpecNumber.parse;
 
 describe('accuracy', () => {
   test('absolute accuracy keeps its exact text', () => {
     const f = readSpec('spec.yaml', edit(14, '  absolute: 1.0e-3'));
-    expect(f.accuracy).toEqual({ kind: 'absolute', value: '1.0e-3' });
+    expect(f.accuracy).toEqual({ kind: 'absolute', value: n('1.0e-3') });
     expect(f.positions['accuracy.absolute']).toEqual({ line: 14, column: 13 });
   });
 
   test('relative accuracy is accepted', () => {
-    expect(readSpec('spec.yaml', edit(14, '  relative: 1e-6')).accuracy).toEqual({ kind: 'relative', value: '1e-6' });
+    expect(readSpec('spec.yaml', edit(14, '  relative: 1e-6')).accuracy).toEqual({ kind: 'relative', value: n('1e-6') });
   });
 
   test('both absolute and relative is refused at the second', () => {

@@ -1,5 +1,6 @@
 import { describe, expect, test } from '@jest/globals';
 import { readSpec } from '../../src/reader/read.js';
+import { Rational } from '../../src/math/rational.js';
 import { BASE, edit, expectRefusal } from './helpers.js';
 
 describe('coefficients', () => {
@@ -11,11 +12,11 @@ describe('coefficients', () => {
     expect(f.positions['coefficients.3']).toEqual({ line: 7, column: 6 });
   });
 
-  test('a coefficient written as a YAML number keeps its exact text, a minus sign becoming unary minus', () => {
+  test('a coefficient written as a YAML number keeps its exact text and value, a minus sign becoming unary minus', () => {
     const f = readSpec('spec.yaml', edit(7, '  3: -5.775e-7'));
     expect(f.coefficients[3]).toEqual({
       kind: 'neg',
-      arg: { kind: 'num', text: '5.775e-7', pos: { line: 7, column: 7 } },
+      arg: { kind: 'num', text: '5.775e-7', value: Rational.of(5775n, 10n ** 10n), pos: { line: 7, column: 7 } },
       pos: { line: 7, column: 6 },
     });
     expect(f.coefficientText[3]).toBe('-5.775e-7');

@@ -1,17 +1,20 @@
 import { describe, expect, test } from '@jest/globals';
 import { readSpec } from '../../src/reader/read.js';
 import { BASE, edit, expectRefusal } from './helpers.js';
+import { SpecNumber } from '../../src/family/spec-number.js';
+
+const n = SpecNumber.parse;
 
 describe('constants', () => {
   test('constants keep their exact decimal text and file order', () => {
     const f = readSpec('spec.yaml', edit(12, '  k3: 4.000E-3'));
-    expect(f.constants).toEqual({ k1: '12.5', k3: '4.000E-3' });
+    expect(f.constants).toEqual({ k1: n('12.5'), k3: n('4.000E-3') });
     expect(Object.keys(f.constants)).toEqual(['k1', 'k3']);
     expect(f.positions['constants.k3']).toEqual({ line: 12, column: 7 });
   });
 
   test('a leading + is dropped from the kept text', () => {
-    expect(readSpec('spec.yaml', edit(11, '  k1: +12.5')).constants['k1']).toBe('12.5');
+    expect(readSpec('spec.yaml', edit(11, '  k1: +12.5')).constants['k1']?.text).toBe('12.5');
   });
 
   test('the constants field is optional', () => {

@@ -1,6 +1,9 @@
 import { describe, expect, test } from '@jest/globals';
 import { readSpec } from '../../src/reader/read.js';
 import { BASE, edit, expectRefusal } from './helpers.js';
+import { SpecNumber } from '../../src/family/spec-number.js';
+
+const n = SpecNumber.parse;
 
 describe('inputs', () => {
   test('inputs keep their order, which is the signature order, and their exact range texts', () => {
@@ -9,9 +12,9 @@ describe('inputs', () => {
     lines[8] = '  F: [0, 200]\n  G: [-1.50, 2.5e1]\n  a1: [1e-3, .5]';
     const f = readSpec('spec.yaml', lines.join('\n'));
     expect(f.inputs).toEqual([
-      { name: 'F', lo: '0', hi: '200' },
-      { name: 'G', lo: '-1.50', hi: '2.5e1' },
-      { name: 'a1', lo: '1e-3', hi: '.5' },
+      { name: 'F', lo: n('0'), hi: n('200') },
+      { name: 'G', lo: n('-1.50'), hi: n('2.5e1') },
+      { name: 'a1', lo: n('1e-3'), hi: n('.5') },
     ]);
     expect(f.positions['inputs.G']).toEqual({ line: 10, column: 6 });
   });

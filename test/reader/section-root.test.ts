@@ -1,6 +1,9 @@
 import { describe, expect, test } from '@jest/globals';
 import { readSpec } from '../../src/reader/read.js';
 import { expectRefusal, withExtra } from './helpers.js';
+import { SpecNumber } from '../../src/family/spec-number.js';
+
+const n = SpecNumber.parse;
 
 describe('root', () => {
   test('without root the bracket is null', () => {
@@ -9,7 +12,7 @@ describe('root', () => {
 
   test('a bracket keeps its exact texts and its position', () => {
     const f = readSpec('spec.yaml', withExtra('root:', '  bracket: [-1, 2.0e1]'));
-    expect(f.bracket).toEqual(['-1', '2.0e1']);
+    expect(f.bracket).toEqual([n('-1'), n('2.0e1')]);
     expect(f.positions['root.bracket']).toEqual({ line: 17, column: 12 });
   });
 

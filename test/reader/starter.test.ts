@@ -22,6 +22,14 @@ describe('starterSpec', () => {
     }
   });
 
+  test('the commented result: line is a valid result once uncommented (the stored energy, a polynomial in x)', () => {
+    const text = starterSpec('spring_energy').replace('# result: ', 'result: ');
+    const f = readSpec('spring_energy.yaml', text);
+    expect(f.result?.text).toBe('k1 * x ^ 2 / 2 + k3 * x ^ 4 / 4');
+    expect(f.result?.powers.map((p) => p !== null)).toEqual([false, false, true, false, true]);
+    expect(readSpec('s.yaml', starterSpec('s')).result).toBeUndefined();
+  });
+
   test('is the same text every time (no dates, no paths)', () => {
     expect(starterSpec('a1')).toBe(starterSpec('a1'));
     expect(starterSpec('a1')).not.toMatch(/20\d\d|\/work|\/home/);

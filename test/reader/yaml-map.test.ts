@@ -1,6 +1,9 @@
 import { describe, expect, test } from '@jest/globals';
 import { readSpec } from '../../src/reader/read.js';
 import { BASE, edit, expectRefusal } from './helpers.js';
+import { SpecNumber } from '../../src/family/spec-number.js';
+
+const n = SpecNumber.parse;
 
 describe('reading maps', () => {
   test('a duplicate key is refused at the second occurrence, naming the first', () => {
@@ -31,6 +34,6 @@ describe('reading maps', () => {
 
   test('a map with comments and blank lines between entries reads the same', () => {
     const spaced = [...BASE.slice(0, 8), '', '  # the measured force', '  F: [0, 200]   # N', ...BASE.slice(9)].join('\n');
-    expect(readSpec('s', spaced).inputs).toEqual([{ name: 'F', lo: '0', hi: '200' }]);
+    expect(readSpec('s', spaced).inputs).toEqual([{ name: 'F', lo: n('0'), hi: n('200') }]);
   });
 });

@@ -18,6 +18,7 @@ const HEAVY = /from ['"](node:)?child_process['"]|from ['"]playwright(-core)?['"
 const SLOW = [
   'test/plan/bound-property.test.ts',
   'test/plan/polish-property.test.ts',
+  'test/plan/result-property.test.ts',
   'test/plan/plan.test.ts',
   'test/plan/segments.test.ts',
   'test/plan/cost-model.test.ts',
@@ -26,6 +27,7 @@ const SLOW = [
   'test/verify/inprocess.test.ts',
   'test/plan/tight-enclosures.test.ts',
   'test/plan/corpus-property.test.ts',
+  'test/plan/landing-time.test.ts',
 ];
 
 function testFiles(dir) {

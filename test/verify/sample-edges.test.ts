@@ -9,6 +9,7 @@
 import { describe, expect, test } from '@jest/globals';
 import { ProgramBuilder } from '../../src/ir/builder.js';
 import { Rational } from '../../src/math/rational.js';
+import { SpecNumber } from '../../src/family/spec-number.js';
 import { checkSamplePoints, edgePointsOf, samplePoints, sampleTotal } from '../../src/verify/samples.js';
 import { demoFamily } from '../emit/support/family.js';
 
@@ -40,7 +41,7 @@ describe('the segment edge points of step 4', () => {
   test('a float32 program of 4 segments on [0, 4] (edges 1, 2, 3) adds each edge and its neighbours', () => {
     const b = new ProgramBuilder('float32', ['x'], { parts: [{ input: 0, count: 4, c0: 0.5, invWidth: 1, stride: 1 }], segments: 4 });
     const program = b.finish(b.mul(b.input(0), b.const([1, 2, 3, 4].map((k) => Rational.of(BigInt(k), 7n)))));
-    const family = demoFamily(program, { inputs: [{ name: 'x', lo: '0', hi: '4' }] });
+    const family = demoFamily(program, { inputs: [{ name: 'x', lo: SpecNumber.parse('0'), hi: SpecNumber.parse('4') }] });
     const edges = [1 - 2 ** -24, 1, 1 + 2 ** -23, 2 - 2 ** -23, 2, 2 + 2 ** -22, 3 - 2 ** -22, 3, 3 + 2 ** -22];
     expect(edgePointsOf(family, program)).toEqual(edges.map((v) => [v]));
     const pts = checkSamplePoints(family, program, 100, 1);

@@ -16,6 +16,7 @@ import { evaluate } from '../../src/ir/evaluate.js';
 import type { Program } from '../../src/ir/nodes.js';
 import { edgeSamplePoints, segmentEdges } from '../../src/ir/segment-edges.js';
 import { Rational } from '../../src/math/rational.js';
+import { SpecNumber } from '../../src/family/spec-number.js';
 import { boxOf } from '../../src/plan/box.js';
 import { segmentLayout, type SegmentLayout } from '../../src/plan/segments.js';
 import { loadSpec } from '../../src/reader/load.js';
@@ -49,7 +50,7 @@ const example = (file: string): Family => loadSpec(`examples/${file}`);
 const withRange = (f: Family, lo: string, hi: string, arithmetic: Arithmetic = f.arithmetic): Family => ({
   ...f,
   arithmetic,
-  inputs: [{ ...f.inputs[0]!, lo, hi }],
+  inputs: [{ ...f.inputs[0]!, lo: SpecNumber.parse(lo), hi: SpecNumber.parse(hi) }],
 });
 const spring = example('spring-scale.yaml');
 

@@ -5,6 +5,7 @@
  */
 import { basename, dirname } from 'node:path';
 import { RootcastError } from '../../errors.js';
+import { targetsOf } from '../../emit/outputs.js';
 import { checkOutputs } from '../check.js';
 import { depfileText, type DepRule } from '../depfile.js';
 import { writeFiles } from '../files.js';
@@ -39,23 +40,9 @@ export async function runEmit(o: EmitOptions, print: Print, printError: Print): 
 }
 
 async function emitOne(spec: string, o: EmitOptions, print: Print, rules: DepRule[]): Promise<number> {
-  // The fixed32 printers load the TypeScript compiler: import them only for a fixed32 spec.
-  const { loadSpec } = await import('../../reader/load.js');
-  const loaded = loadSpec(spec);
-  const fixed = loaded.fixed ? loaded : null;
-  let files;
-  if (fixed) {
-    // fixed32 specs: their own printers (no stamp line yet, so --check re-reads them as stale).
-    const { fixedEmitInputOf, fixedFiles } = await import('../fixed/pipeline.js');
-    const { makeFixedPlan } = await import('../../plan/fixed/plan-fixed.js');
-    files = fixedFiles(fixedEmitInputOf(makeFixedPlan(fixed)), o.target === 'all' ? ['c', 'ts'] : [o.target]);
-  } else {
-    const { emitInputOf, planSpec } = await import('../pipeline.js');
-    const plan = planSpec(spec);
-    // The printers only after the spec is known to be good.
-    const { emitFiles, targetsOf } = await import('../emit-files.js');
-    files = emitFiles(emitInputOf(plan), targetsOf(o.target), { harness: o.harness });
-  }
+  // The planners and printers only when emitting (`--check` reads stamps and plans nothing).
+  const { filesOfSpec } = await import('../spec-files.js');
+  const files = filesOfSpec(spec, targetsOf(o.target), { harness: o.harness });
   writeFiles(o.out, files);
   const dir = o.out.replace(/\/$/, '');
   for (const f of files) print(`wrote ${dir}/${f.path}`);

@@ -5,7 +5,7 @@ import type { Plan } from '../../plan/plan.js';
 import { RootcastError } from '../../errors.js';
 import { claimsOf, planSpec } from '../pipeline.js';
 import { GENERATOR, jsonOutput, refusalJson } from '../refusal-json.js';
-import { fixedFamilyOf } from '../fixed/pipeline.js';
+import { fixedFamilyOf } from '../fixed/input.js';
 import { fixedPlanJson, fixedPlanText } from '../fixed/plan.js';
 import { makeFixedPlan } from '../../plan/fixed/plan-fixed.js';
 
@@ -60,6 +60,7 @@ export function planJson(plan: Plan): { readonly generator: typeof GENERATOR; re
     steps: c.steps,
     cells: plan.cells,
     bound: c.bound,
+    ...(c.result ? { result: { expression: c.result.text, slope: c.result.slope, rootBudget: c.result.rootBudget, rootBound: c.result.rootBound } } : {}),
     absoluteBound: c.absoluteBound,
     target: c.target,
     ops: c.ops,
@@ -109,7 +110,6 @@ export function candidateTable(plan: Plan): string[] {
 export function planText(plan: Plan): string {
   const c = claimsOf(plan);
   const f = plan.family;
-  const b = c.bound;
   const rows: [string, string][] = [
     ['equation', `${equationText(f)}, solved for ${f.unknown}`],
     ['inputs', f.inputs.map((i) => `${i.name} in [${i.lo}, ${i.hi}]`).join(', ')],
@@ -117,10 +117,7 @@ export function planText(plan: Plan): string {
     ['arithmetic', f.arithmetic],
     ['form', formText(plan)],
     ['series', `order ${c.order}, ${c.terms} terms, bound certified over ${plan.cells} cells`],
-    [
-      'bound',
-      `${b.kind}: truncation ${formatBoundUp(b.truncation)}${b.economisation === undefined ? '' : ` + economisation ${formatBoundUp(b.economisation)}`} + rounding ${formatBoundUp(b.rounding)} -> total ${formatBoundUp(b.total)}`,
-    ],
+    ...boundRows(plan),
     ['target', `${f.accuracy.value} (${f.accuracy.kind})`],
     ['ops', `${c.ops.add} add, ${c.ops.mul} mul, ${c.ops.div} div, ${c.ops.tableReads} table reads${c.ops.compares > 0 ? `, ${c.ops.compares} compares (inputs saturated)` : ''}`],
     ['segments', `${plan.counts.join(' x ')} (${plan.tableBytes} table bytes)`],
@@ -133,6 +130,22 @@ export function planText(plan: Plan): string {
     '  candidates weighed (* = chosen):',
     ...candidateTable(plan).map((l) => `    ${l}`),
   ].join('\n');
+}
+
+/** The bound rows: the root's, or with `result:` the result's, then the root's. */
+function boundRows(plan: Plan): [string, string][] {
+  const c = claimsOf(plan);
+  const b = c.bound;
+  const parts = (x: { truncation: number; economisation?: number; rounding: number; total: number }): string =>
+    `truncation ${formatBoundUp(x.truncation)}${x.economisation === undefined ? '' : ` + economisation ${formatBoundUp(x.economisation)}`} + rounding ${formatBoundUp(x.rounding)} -> total ${formatBoundUp(x.total)}`;
+  const r = c.result;
+  if (!r) return [['bound', `${b.kind}: ${parts(b)}`]];
+  const u = plan.family.unknown;
+  return [
+    ['result', `${r.text} at the root ${u}`],
+    ['bound', `${b.kind}, of the result: from the root ${formatBoundUp(b.truncation)} (|d result / d ${u}| <= ${formatBoundUp(r.slope)}) + rounding ${formatBoundUp(b.rounding)} -> total ${formatBoundUp(b.total)}`],
+    ['root bound', `absolute, of ${u}: ${parts(r.rootBound)} (planned for ${formatBoundUp(r.rootBudget)})`],
+  ];
 }
 
 function formText(plan: Plan): string {

@@ -20,8 +20,8 @@ import { startProgress, type ProgressStream } from '../progress.js';
 import { emitInputOf, planSpec } from '../pipeline.js';
 import { jsonOutput, refusalJson } from '../refusal-json.js';
 import { planJson } from './plan.js';
-import { fixedFamilyOf } from '../fixed/pipeline.js';
-import { runFixedVerify } from '../fixed/verify.js';
+import { fixedFamilyOf } from '../fixed/input.js';
+import { fixedReportData, fixedVerifyJson, runFixedVerify } from '../fixed/verify.js';
 import type { Plan } from '../../plan/plan.js';
 
 export interface VerifyCommandOptions {
@@ -45,8 +45,11 @@ export function runVerify(o: VerifyCommandOptions, print: Print, printError: Pri
     try {
       const fixed = fixedFamilyOf(spec);
       if (fixed) {
-        if (o.json || o.report !== undefined) throw new RootcastError('verify --json and --report are not available for fixed32 specs yet; run verify without them');
-        code = Math.max(code, runFixedVerify(fixed, { target: o.target, samples: o.samples, seed: o.seed }, print));
+        const run = runFixedVerify(fixed, { target: o.target, samples: o.samples, seed: o.seed });
+        if (o.json) results.push(fixedVerifyJson(run));
+        else for (const line of run.result.lines) print(line);
+        if (o.report !== undefined) writeFiles(dirname(o.report), [{ path: basename(o.report), text: reportHtml(fixedReportData(run)) }]);
+        code = Math.max(code, run.result.pass ? 0 : 1);
         continue;
       }
       const plan = planSpec(spec);

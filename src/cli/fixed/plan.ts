@@ -3,15 +3,19 @@ import { equationText } from '../../emit/header.js';
 import { formatBoundUp } from '../../emit/literals/round-up.js';
 import { m0Cost } from '../../emit/m0-cost.js';
 import type { FixedPlan } from '../../plan/fixed/plan-fixed.js';
+import { GENERATOR } from '../refusal-json.js';
+import { arithmeticName } from '../../family/types.js';
 
-export function fixedPlanJson(plan: FixedPlan): object {
+/** The `plan --json` object of a fixed32 spec (schema/plan.schema.json, definitions/plan: `arithmetic` fixed32, `fixed` and `rawBox` added). */
+export function fixedPlanJson(plan: FixedPlan): { readonly generator: typeof GENERATOR; readonly [field: string]: unknown } {
   const f = plan.family;
   const m0 = m0Cost(plan.program);
   return {
+    generator: GENERATOR,
     function: f.functionName,
     spec: f.file,
     specSha256: f.specHash,
-    arithmetic: 'fixed32',
+    arithmetic: arithmeticName(f),
     fixed: { inputs: Object.fromEntries(f.inputs.map((r, i) => [r.name, f.fixed!.inputs[i]])), result: f.fixed!.result },
     rawBox: [plan.rawLo.toString(), plan.rawHi.toString()],
     form: plan.form,
@@ -24,7 +28,7 @@ export function fixedPlanJson(plan: FixedPlan): object {
     bound: plan.bound,
     absoluteBound: plan.absoluteBound,
     target: plan.target,
-    ops: { products: plan.ops.mul, add: plan.ops.add, tableReads: plan.ops.tableReads },
+    ops: { add: plan.ops.add, mul: plan.ops.mul, div: 0, tableReads: plan.ops.tableReads },
     segments: { counts: [plan.segments], rawWidthLog2: plan.segmentShift, tableBytes: plan.tableBytes },
     cost: { model: 'cortex-m0', value: plan.cost, instructions: m0.instructions, cycles: m0.cycles, cyclesSlowMultiplier: m0.cycles + 31 * m0.muls },
     candidates: [],
@@ -47,7 +51,7 @@ export function fixedPlanText(plan: FixedPlan): string {
     ['target', `${f.accuracy.value} (${f.accuracy.kind})`],
     ['ops', `${plan.ops.mul} products (32 x 32 -> 64), ${plan.ops.add} add/sub, ${plan.ops.tableReads} table reads`],
     ['segments', `${plan.segments} of 2^${plan.segmentShift} raw units (${plan.tableBytes} table bytes)`],
-    ['cost', `Cortex-M0: about ${m0.instructions} instructions, ${m0.cycles} cycles (single-cycle multiplier; ${m0.cycles + 31 * m0.muls} with the 32-cycle one); src/emit/m0-cost.ts`],
+    ['cost', `Cortex-M0: about ${m0.instructions} instructions, ${m0.cycles} cycles (single-cycle multiplier; ${m0.cycles + 31 * m0.muls} with the 32-cycle one); README, "Fixed point"`],
   ];
   return [`${f.functionName}`, ...rows.map(([k, v]) => `  ${k.padEnd(11)} ${v}`)].join('\n');
 }

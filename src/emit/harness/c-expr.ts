@@ -6,6 +6,7 @@
  * is an integer literal scaled by an exact power of ten (decimal-parts.ts).
  */
 import type { Expr } from '../../family/types.js';
+import type { Rational } from '../../math/rational.js';
 import { decimalParts } from './decimal-parts.js';
 
 /** Largest chunk that a `long long` literal always holds: 10^18 - 1 < 2^63. */
@@ -18,9 +19,9 @@ export function cRealInteger(n: bigint): string {
   return `(${cRealInteger(n / CHUNK)} * ((rc_real)${CHUNK}LL) + ((rc_real)${n % CHUNK}LL))`;
 }
 
-/** A C expression for the exact decimal `text`, one rounding when the mantissa is exact. */
-export function cRealDecimal(text: string): string {
-  const { mantissa, exponent } = decimalParts(text);
+/** A C expression for the exact decimal `q` (a spec number), one rounding when the mantissa is exact. */
+export function cRealDecimal(q: Rational): string {
+  const { mantissa, exponent } = decimalParts(q);
   const m = cRealInteger(mantissa);
   return exponent === 0 ? m : `rc_scale10(${m}, ${exponent})`;
 }
@@ -32,7 +33,7 @@ export function cConstantName(name: string): string {
 export function cRealExpr(e: Expr): string {
   switch (e.kind) {
     case 'num':
-      return cRealDecimal(e.text);
+      return cRealDecimal(e.value);
     case 'input':
       return `in[${e.index}]`;
     case 'constant':

@@ -36,6 +36,8 @@ export function cHarness(input: EmitInput): EmittedFile {
     degree: String(family.degree),
     relative: claims.bound.kind === 'relative' ? '1' : '0',
     specBracket: family.bracket ? '1' : '0',
+    hasResult: family.result ? '1' : '0',
+    resultExpr: family.result ? cRealExpr(family.result.expr) : '((rc_real)0LL)',
     inputNames: parts.inputNames.map((n) => `"${n}"`).join(', '),
     boxLo: parts.lo.map(double).join(', '),
     boxHi: parts.hi.map(double).join(', '),
@@ -47,13 +49,13 @@ export function cHarness(input: EmitInput): EmittedFile {
     target: double(claims.target),
     absoluteBound: double(claims.absoluteBound),
     constantDeclarations: parts.usedConstants.map((c) => `static rc_real ${cConstantName(c)};`),
-    constantLines: parts.usedConstants.map((c) => `${cConstantName(c)} = ${cRealDecimal(family.constants[c]!)};`),
+    constantLines: parts.usedConstants.map((c) => `${cConstantName(c)} = ${cRealDecimal(family.constants[c]!.value)};`),
     coefficientLines: Array.from({ length: family.degree + 1 }, (_, k) => {
       const e = family.coefficients[k];
       return `c[${k}] = ${e ? cRealExpr(e) : '((rc_real)0LL)'};`;
     }),
-    bracketLo: family.bracket ? cRealDecimal(family.bracket[0]) : '0',
-    bracketHi: family.bracket ? cRealDecimal(family.bracket[1]) : '0',
+    bracketLo: family.bracket ? cRealDecimal(family.bracket[0].value) : '0',
+    bracketHi: family.bracket ? cRealDecimal(family.bracket[1].value) : '0',
     callArguments: parts.inputNames.map((_, j) => `x[${j}]`).join(', '),
     arithmetic: family.arithmetic,
     kind: claims.bound.kind,

@@ -5,7 +5,6 @@
  * expressions use, and the header comment lines.
  */
 import { edgeSamplePoints } from '../../ir/segment-edges.js';
-import { Rational } from '../../math/rational.js';
 import type { Expr } from '../../family/types.js';
 import { assertCommentSafe, headerLines } from '../header.js';
 import { assertUserName } from '../names.js';
@@ -78,12 +77,13 @@ export function harnessParts(input: EmitInput, role: string, header: { readonly 
     }
   };
   family.coefficients.forEach((e) => e && walk(e));
+  if (family.result) walk(family.result.expr);
   for (const c of used) {
     if (!(c in family.constants)) throw new Error(`constant ${c} is used but has no value`);
     assertUserName(c, 'constant name');
   }
-  const lo = family.inputs.map((r) => Rational.parseDecimal(r.lo).toNumber());
-  const hi = family.inputs.map((r) => Rational.parseDecimal(r.hi).toNumber());
+  const lo = family.inputs.map((r) => r.lo.toNumber());
+  const hi = family.inputs.map((r) => r.hi.toNumber());
   return {
     name,
     inputNames,

@@ -44,13 +44,13 @@ export function cFixedHarness(input: FixedEmitInput): EmittedFile {
     boundText: formatEUp(claims.bound.total, 1),
     target: double(claims.target),
     constantDeclarations: used.map((c) => `static rc_real ${cConstantName(c)};`),
-    constantLines: used.map((c) => `${cConstantName(c)} = ${cRealDecimal(family.constants[c]!)};`),
+    constantLines: used.map((c) => `${cConstantName(c)} = ${cRealDecimal(family.constants[c]!.value)};`),
     coefficientLines: Array.from({ length: family.degree + 1 }, (_, k) => {
       const e = family.coefficients[k];
       return `c[${k}] = ${e ? cRealExpr(e) : '((rc_real)0LL)'};`;
     }),
-    bracketLo: family.bracket ? cRealDecimal(family.bracket[0]) : '0',
-    bracketHi: family.bracket ? cRealDecimal(family.bracket[1]) : '0',
+    bracketLo: family.bracket ? cRealDecimal(family.bracket[0].value) : '0',
+    bracketHi: family.bracket ? cRealDecimal(family.bracket[1].value) : '0',
   });
   return { path: `${name}_check.c`, text };
 }

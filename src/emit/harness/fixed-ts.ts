@@ -13,7 +13,7 @@ import { tsLiteral } from '../literals/ts.js';
 import { renderTemplate } from '../templates.js';
 import type { EmittedFile } from '../types.js';
 import { tsHarnessCompileCommand } from './ts.js';
-import { tsConstantName, tsRationalDecimal, tsRationalExpr } from './ts-expr.js';
+import { tsConstantName, tsRational, tsRationalExpr } from './ts-expr.js';
 import { usedConstantsOf } from './used-constants.js';
 
 export function tsFixedHarness(input: FixedEmitInput): EmittedFile {
@@ -35,8 +35,8 @@ export function tsFixedHarness(input: FixedEmitInput): EmittedFile {
     bound: double(claims.bound.total),
     boundText: formatEUp(claims.bound.total, 1),
     target: double(claims.target),
-    constantLines: usedConstantsOf(family).map((c) => `const ${tsConstantName(c)}: RcQ = ${tsRationalDecimal(family.constants[c]!)};`),
-    bracket: family.bracket ? `[${tsRationalDecimal(family.bracket[0])}, ${tsRationalDecimal(family.bracket[1])}]` : 'null',
+    constantLines: usedConstantsOf(family).map((c) => `const ${tsConstantName(c)}: RcQ = ${tsRational(family.constants[c]!.value)};`),
+    bracket: family.bracket ? `[${tsRational(family.bracket[0].value)}, ${tsRational(family.bracket[1].value)}]` : 'null',
     coefficients: Array.from({ length: family.degree + 1 }, (_, k) => {
       const e = family.coefficients[k];
       return e ? tsRationalExpr(e) : 'rc_q(0n, 1n)';

@@ -15,7 +15,7 @@ import { refuseUnlessFloat32 } from '../glsl/refuse.js';
 import { tsLiteral } from '../literals/ts.js';
 import type { EmitInput, EmittedFile } from '../types.js';
 import { harnessParts } from './family-parts.js';
-import { tsConstantName, tsRationalDecimal, tsRationalExpr } from './ts-expr.js';
+import { tsConstantName, tsRational, tsRationalExpr } from './ts-expr.js';
 import type { Expr } from '../../family/types.js';
 
 /** The page's file name for a function name. */
@@ -44,13 +44,15 @@ export function glslHarness(input: EmitInput): EmittedFile {
     target: double(claims.target),
     absoluteBound: double(claims.absoluteBound),
     relative: claims.bound.kind === 'relative' ? 'true' : 'false',
-    constantLines: parts.usedConstants.map((c) => `const ${tsConstantName(c)} = ${tsRationalDecimal(family.constants[c]!)};`),
-    bracket: family.bracket ? `[${tsRationalDecimal(family.bracket[0])}, ${tsRationalDecimal(family.bracket[1])}]` : 'null',
+    constantLines: parts.usedConstants.map((c) => `const ${tsConstantName(c)} = ${tsRational(family.constants[c]!.value)};`),
+    bracket: family.bracket ? `[${tsRational(family.bracket[0].value)}, ${tsRational(family.bracket[1].value)}]` : 'null',
     coefficients: Array.from({ length: family.degree + 1 }, (_, k) => {
       const e = family.coefficients[k];
       return e ? jsRationalExpr(e) : 'rc_q(0n, 1n)';
     }).join(', '),
     snippet: scriptString(glslFunction(input).text),
+    result: family.result ? `(x) => ${jsRationalExpr(family.result.expr)}` : 'null',
+    rootScale: double(family.result && family.bracket ? Math.max(...family.bracket.map((t) => Math.abs(t.toNumber()))) : 0),
     kind: claims.bound.kind,
   });
   return { path: glslHarnessPath(name), text };

@@ -4,12 +4,11 @@
  * templates/ts/check.ts.hbs). Inputs are `x[i]!`, the spec's constants the
  * module constants `rc_k_NAME`; every number is its exact value in lowest terms.
  */
-import { Rational } from '../../math/rational.js';
+import type { Rational } from '../../math/rational.js';
 import type { Expr } from '../../family/types.js';
 
-/** The exact decimal `text` as a rational literal `rc_q(num, den)`. */
-export function tsRationalDecimal(text: string): string {
-  const r = Rational.parseDecimal(text);
+/** An exact value as a rational literal `rc_q(num, den)`. */
+export function tsRational(r: Rational): string {
   return `rc_q(${r.num}n, ${r.den}n)`;
 }
 
@@ -20,7 +19,7 @@ export function tsConstantName(name: string): string {
 export function tsRationalExpr(e: Expr): string {
   switch (e.kind) {
     case 'num':
-      return tsRationalDecimal(e.text);
+      return tsRational(e.value);
     case 'input':
       return `x[${e.index}]!`;
     case 'constant':

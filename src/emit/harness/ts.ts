@@ -12,7 +12,7 @@ import { tsLiteral } from '../literals/ts.js';
 import { renderTemplate } from '../templates.js';
 import type { EmitInput, EmittedFile } from '../types.js';
 import { harnessParts } from './family-parts.js';
-import { tsConstantName, tsRationalDecimal, tsRationalExpr } from './ts-expr.js';
+import { tsConstantName, tsRational, tsRationalExpr } from './ts-expr.js';
 import { ARITHMETICS } from '../../family/arithmetic.js';
 
 /** How the harness is built (also printed in its header comment). */
@@ -40,13 +40,15 @@ export function tsHarness(input: EmitInput): EmittedFile {
     absoluteBound: double(claims.absoluteBound),
     relative: claims.bound.kind === 'relative' ? 'true' : 'false',
     float32: ARITHMETICS[family.arithmetic].tsRound ? 'true' : 'false',
-    constantLines: parts.usedConstants.map((c) => `const ${tsConstantName(c)}: RcQ = ${tsRationalDecimal(family.constants[c]!)};`),
-    bracket: family.bracket ? `[${tsRationalDecimal(family.bracket[0])}, ${tsRationalDecimal(family.bracket[1])}]` : 'null',
+    constantLines: parts.usedConstants.map((c) => `const ${tsConstantName(c)}: RcQ = ${tsRational(family.constants[c]!.value)};`),
+    bracket: family.bracket ? `[${tsRational(family.bracket[0].value)}, ${tsRational(family.bracket[1].value)}]` : 'null',
     coefficients: Array.from({ length: family.degree + 1 }, (_, k) => {
       const e = family.coefficients[k];
       return e ? tsRationalExpr(e) : 'rc_q(0n, 1n)';
     }).join(', '),
     callArguments: parts.inputNames.map((_, j) => `x[${j}]!`).join(', '),
+    result: family.result ? `(x) => ${tsRationalExpr(family.result.expr)}` : 'null',
+    rootScale: double(family.result && family.bracket ? Math.max(...family.bracket.map((t) => Math.abs(t.toNumber()))) : 0),
     arithmetic: family.arithmetic,
     kind: claims.bound.kind,
   });

@@ -5,47 +5,38 @@
  * and subtracts wrap with `| 0` as the C ones do in uint32; each rounded
  * product is formed exactly in BigInt and shifted with BigInt's `>>` (a floor,
  * as the C's biased logical shift), then wrapped to int32 with BigInt.asIntN.
- * Tables are module-level Int32Arrays.
+ * Tables are module-level Int32Arrays. The framing comes from
+ * templates/ts/fixed-function.ts.hbs, so emitting never loads the TypeScript
+ * compiler (as for float specs, templates/ts/function.ts.hbs).
  */
-import { IndentationText, NewLineKind, Project, QuoteKind } from 'ts-morph';
 import { UnknownFixedNodeError, type FixedProgram } from '../../ir/fixed/nodes.js';
 import { fixedHeaderLines } from '../fixed-header.js';
-import { assertCommentSafe } from '../header.js';
 import { assertUserName, valueName } from '../names.js';
+import { renderTemplate } from '../templates.js';
 import type { FixedEmitInput } from '../fixed-types.js';
 import type { EmittedFile } from '../types.js';
-import { tsBlockComment } from './function.js';
+import { commentLines } from './function.js';
 
 export function tsFixedFunction(input: FixedEmitInput): EmittedFile {
   const { program, family } = input;
   const name = family.functionName;
   assertUserName(name, 'function name');
   program.inputs.forEach((n) => assertUserName(n, 'input name'));
-  const project = new Project({
-    useInMemoryFileSystem: true,
-    manipulationSettings: { indentationText: IndentationText.TwoSpaces, newLineKind: NewLineKind.LineFeed, quoteKind: QuoteKind.Single },
-  });
-  const path = `${name}.ts`;
-  const file = project.createSourceFile(`/${path}`, '');
   const fx = family.fixed!;
-  const docText = [
+  const doc = [
     `Returns round(${family.unknown} * 2^${fx.result}) of the root in the header comment, as an int32,`,
     'computed with integers only: the same bits as the C function.',
+    ...program.inputs.map((n, i) => `@param ${n} an int32 holding ${n} * 2^${fx.inputs[i]}`),
   ];
-  const paramTags = program.inputs.map((n, i) => ({ tagName: 'param', text: `${n} an int32 holding ${n} * 2^${fx.inputs[i]}` }));
-  for (const t of [...docText, ...paramTags.map((t) => t.text)]) assertCommentSafe(t);
-  const module = tsFixedModuleStatements(program);
-  if (module.length > 0) file.addStatements(module);
-  file.addFunction({
-    isExported: true,
+  const text = renderTemplate('ts/fixed-function.ts.hbs', {
+    commentLines: commentLines(fixedHeaderLines(input, 'TypeScript function (ES module, integer-only)')),
+    moduleStatements: tsFixedModuleStatements(program),
+    docLines: commentLines(doc),
     name,
-    parameters: program.inputs.map((n) => ({ name: n, type: 'number' })),
-    returnType: 'number',
-    statements: tsFixedStatements(program),
-    docs: [{ description: docText.join('\n'), tags: paramTags }],
+    parameters: program.inputs.map((n) => `${n}: number`).join(', '),
+    bodyLines: tsFixedStatements(program),
   });
-  file.insertText(0, `${tsBlockComment(fixedHeaderLines(input, 'TypeScript function (ES module, integer-only)'))}\n`);
-  return { path, text: file.getFullText() };
+  return { path: `${name}.ts`, text };
 }
 
 export function tsFixedModuleStatements(p: FixedProgram): string[] {

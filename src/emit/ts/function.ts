@@ -49,7 +49,7 @@ export function tsFunction(input: EmitInput): EmittedFile {
 }
 
 /** Lines as the inside of a block comment (` * text`, ` *` for a blank). */
-function commentLines(lines: readonly string[]): string[] {
+export function commentLines(lines: readonly string[]): string[] {
   return lines.map((line) => {
     assertCommentSafe(line);
     return line === '' ? ' *' : ` * ${line}`;
@@ -59,9 +59,4 @@ function commentLines(lines: readonly string[]): string[] {
 function rangeText(input: EmitInput, name: string): string {
   const r = input.family.inputs.find((x) => x.name === name);
   return r ? `in [${r.lo}, ${r.hi}]` : '';
-}
-
-/** The header as a block comment, one ` * ` line each (the fixed32 TypeScript printer uses it). */
-export function tsBlockComment(lines: readonly string[]): string {
-  return ['/*', ...commentLines(lines), ' */', ''].join('\n');
 }

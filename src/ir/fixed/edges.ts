@@ -17,3 +17,11 @@ export function fixedEdgePoints(p: FixedProgram, lo: bigint, hi: bigint): bigint
   }
   return out;
 }
+
+/** The raw values where a new segment starts (segments 1 to count - 1): the edges a report draws. */
+export function fixedSegmentStarts(p: FixedProgram): bigint[] {
+  const seg = p.nodes.find((n) => n.kind === 'segment');
+  if (!seg || seg.kind !== 'segment') return [];
+  const width = 1n << BigInt(seg.shift);
+  return Array.from({ length: seg.count - 1 }, (_, s) => seg.origin + BigInt(s + 1) * width);
+}

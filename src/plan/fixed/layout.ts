@@ -11,6 +11,7 @@
  */
 import { Rational } from '../../math/rational.js';
 import { fromRaw, toRaw } from '../../ir/fixed/format.js';
+import { SpecNumber } from '../../family/spec-number.js';
 import type { Cell } from '../box.js';
 
 export interface FixedSegment {
@@ -39,8 +40,13 @@ export interface FixedLayout {
 }
 
 /** The raw box for an input range with `bits` fraction bits. */
-export function rawBox(lo: string, hi: string, bits: number): { lo: bigint; hi: bigint } {
-  return { lo: toRaw(Rational.parseDecimal(lo), bits), hi: toRaw(Rational.parseDecimal(hi), bits) };
+export function rawBox(lo: Rational, hi: Rational, bits: number): { lo: bigint; hi: bigint } {
+  return { lo: toRaw(lo, bits), hi: toRaw(hi, bits) };
+}
+
+/** raw * 2^-bits as a model number: its exact value and its decimal text. */
+export function rawNumber(raw: bigint, bits: number): SpecNumber {
+  return new SpecNumber(rawDecimal(raw, bits), Rational.of(raw, 1n << BigInt(bits)));
 }
 
 /** Exact decimal text of raw * 2^-bits (a binary fraction has a finite decimal expansion). */

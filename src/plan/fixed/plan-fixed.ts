@@ -29,7 +29,7 @@ import { segmentLayout } from '../segments.js';
 import { analysisProgram, CoefficientError, collapsedSeries, ZeroSlopeError, type Expansion } from '../series-program.js';
 import { fixedCost } from './cost.js';
 import { chebyshevInW, degreeFor, economisedAt } from './economise-w.js';
-import { fixedLayout, rawBox, rawDecimal, type FixedLayout } from './layout.js';
+import { fixedLayout, rawBox, rawNumber, type FixedLayout } from './layout.js';
 import { fixedHorner, ResultRangeError } from './program.js';
 
 export interface FixedBound {
@@ -99,9 +99,9 @@ export function makeFixedPlan(family: Family): FixedPlan {
   }
   const bits = fixed.inputs[0]!;
   const input = family.inputs[0]!;
-  const raw = rawBox(input.lo, input.hi, bits);
+  const raw = rawBox(input.lo.value, input.hi.value, bits);
   // The planning family: the raw box's exact real ends, float64 for the float stages.
-  const fam: Family = { ...family, inputs: [{ name: input.name, lo: rawDecimal(raw.lo, bits), hi: rawDecimal(raw.hi, bits) }] };
+  const fam: Family = { ...family, inputs: [{ name: input.name, lo: rawNumber(raw.lo, bits), hi: rawNumber(raw.hi, bits) }] };
   const counts = knob !== 'auto' ? [knob] : family.bracket ? AUTO_SEGMENTS : [1];
   let best: FixedPlan | null = null;
   let firstError: RootcastError | null = null;
@@ -168,7 +168,7 @@ function planWith(family: Family, fam: Family, raw: { lo: bigint; hi: bigint }, 
     return kept.filter((t) => t.grade <= w);
   };
 
-  const target = Number(family.accuracy.value);
+  const target = family.accuracy.value.toNumber();
   const resultPoint = family.fixed!.result;
   let found: FixedPlan | null = null;
   let floor = Infinity;

@@ -8,6 +8,7 @@ import { countOps } from '../../../src/ir/count.js';
 import type { Program } from '../../../src/ir/nodes.js';
 import type { EmitInput, PlanClaims } from '../../../src/emit/types.js';
 import type { Family } from '../../../src/family/types.js';
+import { SpecNumber } from '../../../src/family/spec-number.js';
 
 export const DEMO_SPEC_TEXT = 'function: bridge_strain\nunknown: T\n# invented demo spec\n';
 
@@ -20,10 +21,10 @@ export function demoFamily(program: Program, overrides: Partial<Family> = {}): F
     degree: 2,
     coefficients: [null, null, null],
     coefficientText: ['1 - R / R0', 'A', 'B'],
-    inputs: program.inputs.map((name) => ({ name, lo: '-0.5', hi: '0.5' })),
-    constants: { R0: '100', A: '3.9083e-3', B: '-5.775e-7' },
+    inputs: program.inputs.map((name) => ({ name, lo: SpecNumber.parse('-0.5'), hi: SpecNumber.parse('0.5') })),
+    constants: { R0: SpecNumber.parse('100'), A: SpecNumber.parse('3.9083e-3'), B: SpecNumber.parse('-5.775e-7') },
     bracket: null,
-    accuracy: { kind: 'absolute', value: '0.001' },
+    accuracy: { kind: 'absolute', value: SpecNumber.parse('0.001') },
     arithmetic: program.arithmetic,
     plan: { maxOrder: 40, segments: 'auto', maxTableBytes: 4096, newtonSteps: 'auto' },
     outsideBox: 'extrapolate',

@@ -4,7 +4,7 @@
  */
 import { emitFiles, targetsOf } from '../../../src/cli/emit-files.js';
 import { emitInputOf, planSpec } from '../../../src/cli/pipeline.js';
-import { fixedFamilyOf, fixedFilesOfSpec } from '../../../src/cli/fixed/pipeline.js';
+import { filesOfSpec } from '../../../src/cli/spec-files.js';
 import type { EmitInput, EmittedFile } from '../../../src/emit/types.js';
 import type { Plan } from '../../../src/plan/plan.js';
 import { atRepoRoot } from './repo.js';
@@ -24,11 +24,10 @@ export function emitExample(specPath: string): EmittedExample {
   return { plan, input, files: emitFiles(input, targetsOf('all')) };
 }
 
-/** Every file `--target all` writes for a spec, fixed32 or float (what the golden files hold). */
+/** Every file `--target all` writes for a spec, fixed32 or float (what the golden files hold), by emit's own path. */
 export function emittedFilesOf(specPath: string): readonly EmittedFile[] {
   atRepoRoot();
-  const fixed = fixedFamilyOf(specPath);
-  return fixed ? fixedFilesOfSpec(fixed) : emitExample(specPath).files;
+  return filesOfSpec(specPath, targetsOf('all'));
 }
 
 /** The emitted file whose path ends with `suffix` (`.h`, `_check.c`, `.check.ts`, or the function's `.ts`). */

@@ -1,0 +1,116 @@
+/**
+ * The certified bound of the spec's `result:` over the root plan's cells.
+ * On a cell C with the root's enclosure J* (src/plan/cell-bound.ts) and the
+ * root's certified absolute bound E, the computed root x~ and the exact root
+ * x* both lie in J = J* widened by E, so by the mean value theorem
+ *     |result(x~) - result(x*)| <= L E,   L >= max |d result / dx| over C x J,
+ * and the computed y differs from result(x~) by at most the a priori rounding
+ * bound of the result's own evaluation with x~ an exact input over J
+ * (src/ir/analyse.ts; the program of src/plan/result-program.ts). So
+ *     |y - y*| <= L E + rounding.
+ * L is the magnitude of d result / dx = sum_k k r_k x^(k-1) evaluated by
+ * Horner's rule in outward-rounded interval arithmetic, r_k enclosed over C
+ * (src/plan/expr-enclose.ts). For relative accuracy each part is divided by
+ * a lower bound of |y*| over the cell: the mignitude of result over C x J*.
+ */
+import { addUp, divUp, mulUp, subDown } from '../math/directed.js';
+import { iadd, imul, mag, mig, point, type Interval } from '../math/interval.js';
+import { analyse, largestComputed } from '../ir/analyse.js';
+import type { Program } from '../ir/nodes.js';
+import { ARITHMETICS } from '../family/arithmetic.js';
+import { derivativePowers } from '../family/result-powers.js';
+import type { Expr, Family, ResultSpec } from '../family/types.js';
+import type { Cell } from './box.js';
+import type { CellFacts } from './cell-bound.js';
+import { encloseExpr } from './expr-enclose.js';
+import { OVERFLOW_HEADROOM } from './tuning.js';
+
+/** One cell's facts for the result, independent of the root's budget but for J's widening. */
+export interface ResultCell {
+  /** Upper bound of |d result / dx| over the cell and the widened root enclosure. */
+  readonly slope: number;
+  /** The result's own rounding bound (absolute). */
+  readonly rounding: number;
+  /** What a part is divided by: 1 for absolute accuracy, a lower bound of |y*| for relative. */
+  readonly scale: number;
+}
+
+export interface ResultEvaluation {
+  /** Box-wide parts in the accuracy kind: carried L E, own rounding, total. */
+  readonly carried: number;
+  readonly rounding: number;
+  readonly total: number;
+  /** Largest absolute total. */
+  readonly absolute: number;
+  /** Largest slope bound over the cells. */
+  readonly slope: number;
+  readonly cells: readonly ResultCell[];
+}
+
+/** Horner's rule in outward-rounded intervals: sum_k c_k x^k. */
+function hornerInterval(coeffs: readonly Interval[], x: Interval): Interval {
+  let acc = coeffs[coeffs.length - 1]!;
+  for (let k = coeffs.length - 2; k >= 0; k--) acc = iadd(imul(acc, x), coeffs[k]!);
+  return acc;
+}
+
+function enclosures(powers: readonly (Expr | null)[], cell: Cell, family: Family): Interval[] {
+  return powers.map((e) => (e ? encloseExpr(e, cell, family.constants) : point(0)));
+}
+
+/**
+ * The result's bound for a root plan whose certified absolute bound is E,
+ * over its certified cells. A cell without a finite bound makes the total
+ * Infinity (the caller refuses or tries a smaller root budget).
+ */
+export function resultBound(family: Family, spec: ResultSpec, cells: readonly CellFacts[], E: number, program: Program): ResultEvaluation {
+  const relative = family.accuracy.kind === 'relative';
+  const derivative = derivativePowers(spec.powers, spec.expr.pos);
+  const flushToZero = ARITHMETICS[program.arithmetic].boundsAllowFlush;
+  const out: ResultCell[] = [];
+  let carried = 0;
+  let rounding = 0;
+  let total = 0;
+  let absolute = 0;
+  let slopeMax = 0;
+  for (const c of cells) {
+    const root = c.rootRange;
+    if (!root || !(E >= 0) || !Number.isFinite(E)) return unbounded(out);
+    const J = { lo: subDown(root.lo, E), hi: addUp(root.hi, E) };
+    const slope = mag(hornerInterval(enclosures(derivative, c.cell, family), J));
+    const an = analyse(program, [...c.cell, J], { segment: c.segment, flushToZero });
+    const rnd = an.errors[program.result]!;
+    const overflow = largestComputed(an) > ARITHMETICS[program.arithmetic].maxFinite / OVERFLOW_HEADROOM;
+    const scale = relative ? mig(hornerInterval(enclosures(spec.powers, c.cell, family), root)) : 1;
+    if (!Number.isFinite(slope) || !Number.isFinite(rnd) || overflow || !(scale > 0)) return unbounded(out);
+    out.push({ slope, rounding: rnd, scale });
+    const part = mulUp(slope, E);
+    const sum = addUp(part, rnd);
+    const k = (x: number): number => (relative ? divUp(x, scale) : x);
+    carried = Math.max(carried, k(part));
+    rounding = Math.max(rounding, k(rnd));
+    total = Math.max(total, k(sum));
+    absolute = Math.max(absolute, sum);
+    slopeMax = Math.max(slopeMax, slope);
+  }
+  return { carried, rounding, total, absolute, slope: slopeMax, cells: out };
+}
+
+function unbounded(cells: readonly ResultCell[]): ResultEvaluation {
+  return { carried: Infinity, rounding: Infinity, total: Infinity, absolute: Infinity, slope: Infinity, cells };
+}
+
+/**
+ * The largest root budget b with L_c b + rounding_c <= target scale_c on
+ * every cell, from one root plan's cell facts (Infinity when the result does
+ * not depend on the root; <= 0 when the result's own rounding leaves no room).
+ */
+export function largestBudget(target: number, cells: readonly ResultCell[]): number {
+  let b = Infinity;
+  for (const c of cells) {
+    const room = target * c.scale - c.rounding;
+    if (c.slope > 0) b = Math.min(b, room / c.slope);
+    else if (room < 0) return room;
+  }
+  return b;
+}

@@ -1,0 +1,124 @@
+/**
+ * The result stage (the spec's `result:`): the root is planned to an
+ * absolute accuracy budget E, then the result is evaluated at the computed
+ * root and its bound carried (src/plan/result-bound.ts):
+ *     |y - y*| <= L E + rounding of the result's own evaluation, per cell.
+ * The budget is chosen by a small deterministic search: a first root plan
+ * (RESULT_BUDGET.firstShare of the target) gives per-cell slopes and
+ * roundings, hence the largest budget b_max meeting the target; then root
+ * plans for RESULT_BUDGET.shares of b_max are made and checked with their
+ * own cells, and the cheapest plan (root and result together) that meets
+ * the target wins. Each root plan is an ordinary plan of the family with
+ * `accuracy: absolute E` and no result.
+ */
+import { RootcastError } from '../errors.js';
+import { countOps, type OpCounts } from '../ir/count.js';
+import { COST_MODELS, programCost } from '../ir/cost/index.js';
+import type { Family, ResultSpec } from '../family/types.js';
+import { SpecNumber } from '../family/spec-number.js';
+import { locate } from './locate.js';
+import { appendResult, resultAnalysisProgram } from './result-program.js';
+import { largestBudget, resultBound, type ResultEvaluation } from './result-bound.js';
+import { RESULT_BUDGET } from './tuning.js';
+import type { Plan } from './types.js';
+
+export function planWithResult(family: Family, planRoot: (f: Family) => Plan): Plan {
+  const spec = family.result;
+  if (!spec) return planRoot(family);
+  const target = Number(family.accuracy.value);
+  const program = resultAnalysisProgram(family, spec);
+  const tryBudget = (budget: number): { root: Plan; ev: ResultEvaluation } => {
+    const root = planRootTo(family, planRoot, budget);
+    return { root, ev: resultBound(family, spec, root.certifiedCells ?? [], root.absoluteBound, program) };
+  };
+  const first = firstTry(RESULT_BUDGET.firstShares.map((share) => target * share), tryBudget);
+  const tried = [first];
+  const most = largestBudget(target, first.ev.cells);
+  if (first.ev.cells.length === 0 || !(most > 0)) refuseNoRoom(family, first.ev);
+  if (Number.isFinite(most)) {
+    for (const share of RESULT_BUDGET.shares) {
+      const budget = most * share;
+      if (tried.some((t) => t.root.family.accuracy.value.text === budgetText(budget))) continue;
+      try {
+        tried.push(tryBudget(budget));
+      } catch (e) {
+        // A budget the root cannot reach: the looser ones tried already decide.
+        if (!(e instanceof RootcastError)) throw e;
+      }
+    }
+  }
+  const ok = tried.filter((t) => t.ev.total <= target).map((t) => withResult(family, spec, t.root, t.ev, target));
+  if (ok.length === 0) refuseNoRoom(family, tried.reduce((a, b) => (b.ev.total < a.ev.total ? b : a)).ev);
+  return ok.reduce((a, b) => (b.cost < a.cost ? b : a));
+}
+
+/** The first budget the root can be planned to (a slope well below 1 lets a refused first guess loosen). */
+function firstTry<T>(budgets: readonly number[], attempt: (b: number) => T): T {
+  let refusal: unknown = null;
+  for (const b of budgets) {
+    try {
+      return attempt(b);
+    } catch (e) {
+      if (!(e instanceof RootcastError)) throw e;
+      refusal ??= e;
+    }
+  }
+  throw refusal;
+}
+
+/** The root planned to an absolute budget; a refusal says it was for the result. */
+function planRootTo(family: Family, planRoot: (f: Family) => Plan, budget: number): Plan {
+  const { result: _result, ...rest } = family;
+  const rootFamily: Family = { ...rest, accuracy: { kind: 'absolute', value: SpecNumber.parse(budgetText(budget)) } };
+  try {
+    return planRoot(rootFamily);
+  } catch (e) {
+    if (!(e instanceof RootcastError)) throw e;
+    throw new RootcastError(`for the result to meet the target, the root ${family.unknown} needs absolute accuracy ${budgetText(budget)}: ${e.message}`, e.location);
+  }
+}
+
+/** Three significant digits, at most the budget (a budget is only asked for, the bound is proven after). */
+function budgetText(b: number): string {
+  return Number((b * (1 - 1e-2)).toPrecision(3)).toString();
+}
+
+function refuseNoRoom(family: Family, ev: ResultEvaluation): never {
+  const kind = family.accuracy.kind;
+  throw new RootcastError(
+    Number.isFinite(ev.rounding)
+      ? `the result's own rounding (${ev.rounding.toExponential(2)} ${kind}) leaves no room for the root's error within the target ${family.accuracy.value}; use arithmetic: float64, a looser target, or rewrite result:`
+      : kind === 'relative'
+        ? `the result may be zero, or its bound is not finite, somewhere over the box, so no relative bound holds; use accuracy: absolute or narrow the input ranges`
+        : `the result's bound is not finite over the box (its values may overflow ${family.arithmetic}); rewrite result: or narrow the input ranges`,
+    locate(family, 'result'),
+  );
+}
+
+/** The plan returning the result: the root plan's program with the result appended, the result's bound. */
+function withResult(family: Family, spec: ResultSpec, root: Plan, ev: ResultEvaluation, target: number): Plan {
+  const program = appendResult(root.program, family, spec);
+  const ops = countOps(program);
+  const cost = programCost(program, COST_MODELS[root.costModel]);
+  const extra = { ops: minus(ops, root.ops), cost: cost - root.cost };
+  return {
+    ...root,
+    family,
+    program,
+    ops,
+    cost,
+    target,
+    bound: { kind: family.accuracy.kind, truncation: ev.carried, rounding: ev.rounding, total: ev.total },
+    absoluteBound: ev.absolute,
+    result: { text: spec.text, slope: ev.slope, rootBudget: Number(root.family.accuracy.value), rootBound: root.bound, rootOps: root.ops },
+    candidates: root.candidates.map((c) => (c.ops === null || c.cost === null ? c : { ...c, ops: plus(c.ops, extra.ops), cost: c.cost + extra.cost })),
+  };
+}
+
+function minus(a: OpCounts, b: OpCounts): OpCounts {
+  return { add: a.add - b.add, mul: a.mul - b.mul, div: a.div - b.div, tableReads: a.tableReads - b.tableReads, intOps: a.intOps - b.intOps, compares: a.compares - b.compares };
+}
+
+function plus(a: OpCounts, b: OpCounts): OpCounts {
+  return { add: a.add + b.add, mul: a.mul + b.mul, div: a.div + b.div, tableReads: a.tableReads + b.tableReads, intOps: a.intOps + b.intOps, compares: a.compares + b.compares };
+}
