@@ -18,7 +18,7 @@ import { planSegments } from './plan-segments.js';
 import { planWithResult } from './result-stage.js';
 import { searchSegments } from './segment-search.js';
 import { QuotedFixRefusal, refuseWorkLimit } from './refusals.js';
-import { QUOTED_FIX, TABLE_FIX } from './tuning.js';
+import { QUOTED_FIX, TABLE_FIX, WORK } from './tuning.js';
 import type { Plan } from './types.js';
 import { startWork, WorkLimitError, type WorkObserver } from './work.js';
 
@@ -48,14 +48,14 @@ export function makePlan(family: Family, options: PlanOptions = {}): Plan {
  * it applied is planned as the user's next run would plan it (a fresh work
  * meter, so the same computation). A rounding floor can move with the target
  * (the segment search takes another path): when the check meets a looser
- * floor, that one is checked in turn, for QUOTED_FIX.rounds in all. When no
+ * floor, that one is checked in turn, for QUOTED_FIX.rounds checks in all. When no
  * quote plans, the refusal is shown without one. The confirming plan is
  * thrown away: a quote costs its refusal one more planning time per round.
  */
 function confirmedFix(family: Family, refusal: QuotedFixRefusal, options: PlanOptions): RootcastError {
   let quote = refusal;
   for (let round = 0; round < QUOTED_FIX.rounds; round++) {
-    startWork(options.onWork ?? null);
+    startWork(options.onWork ?? null, WORK.limit * QUOTED_FIX.workShare);
     try {
       applyOutsideBox(planWithinLimit(quote.apply(family)));
       return quote;

@@ -205,9 +205,16 @@ export const QUOTED_FIX = {
   /**
    * Plans made to check a quote, at most: a rounding floor found by the segment
    * search can move a little with the target (another search path), and one
-   * or two more checks settle it; each costs up to one planning time.
+   * more check settles it.
    */
-  rounds: 3,
+  rounds: 2,
+  /**
+   * Share of WORK.limit one check may use. A check that plans within less work
+   * than the user's run has also plans in that run (the same deterministic
+   * computation, stopped later); one that runs out only drops the quote. So a
+   * refusal costs at most twice the work limit in all.
+   */
+  workShare: 1 / 2,
 } as const;
 
 /** The table-size fix a refusal may quote (src/plan/plan.ts). */
