@@ -74,7 +74,7 @@ export async function main(argv: string[]): Promise<number> {
       (y) =>
         y
           .positional('specs', { type: 'string', array: true, demandOption: true, describe: 'spec files (YAML or JSON); a refused one prints its line, the others are still checked' })
-          .option('target', { choices: TARGET_CHOICES, default: 'all' as const, describe: 'harnesses to build and run (all: c, ts, and glsl in headless Chromium when the spec is float32; wgsl, hlsl and rust run when named)' })
+          .option('target', { choices: TARGET_CHOICES, default: 'all' as const, describe: 'targets to check (all, the default: c and ts, plus glsl in headless Chromium when the spec is float32; the bit runners wgsl, hlsl and rust each start a browser or a compiler and run only when named; float32 and fixed32 C also run on QEMU\'s emulated cores)' })
           .option('samples', { type: 'number', default: 10000, describe: 'sample points (corners, a grid, seeded random); segment edges and their neighbours come on top' })
           .option('seed', { type: 'number', default: 1, describe: 'seed of the random sample points' })
           .option('json', { type: 'boolean', default: false, describe: 'print one JSON object per spec (plan claims and every check; an array for several), refusals included' })

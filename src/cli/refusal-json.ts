@@ -21,6 +21,18 @@ export interface RefusalJson {
   };
 }
 
+/**
+ * A spec a command refused: its one stderr line, its refusal object in
+ * `results` under --json (null otherwise), and its exit code. Anything that is
+ * not a RootcastError is a bug and is thrown on.
+ */
+export function reportRefusal(e: unknown, spec: string, results: object[] | null, printError: (line: string) => void): number {
+  if (!(e instanceof RootcastError)) throw e;
+  printError(e.toLine());
+  results?.push(refusalJson(e, spec));
+  return e.exitCode;
+}
+
 export function refusalJson(e: RootcastError, spec: string | null): RefusalJson {
   const loc = e.location;
   return {

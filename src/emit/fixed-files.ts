@@ -15,6 +15,7 @@ import { refuseTargetForFixed } from './fixed-refuse.js';
 import { applicableTargetsFor, type TargetName } from './outputs.js';
 import { sealStamp } from './stamp.js';
 import { tsFixedFunction } from './ts/fixed-function.js';
+import { rustFixedFunction } from './rust/fixed-function.js';
 import type { EmittedFile } from './types.js';
 
 type FixedPrinter = (input: FixedEmitInput) => EmittedFile;
@@ -23,6 +24,8 @@ type FixedPrinter = (input: FixedEmitInput) => EmittedFile;
 const FIXED_PRINTERS: Readonly<Partial<Record<TargetName, { readonly function: FixedPrinter; readonly harness: FixedPrinter | null }>>> = {
   c: { function: cFixedFunction, harness: cFixedHarness },
   ts: { function: tsFixedFunction, harness: tsFixedHarness },
+  // Checked through the bit runner in src/verify/rust/fixed-run.ts: no harness file.
+  rust: { function: rustFixedFunction, harness: null },
 };
 
 /** The files for the targets; `harness: false` leaves the harnesses out. */

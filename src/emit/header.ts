@@ -12,7 +12,7 @@
 import { countOps, type OpCounts } from '../ir/count.js';
 import { COST_MODELS, costHeaderLines } from '../ir/cost/index.js';
 import type { Family } from '../family/types.js';
-import type { Arithmetic } from '../family/arithmetic.js';
+import { ARITHMETICS, type Arithmetic } from '../family/arithmetic.js';
 import { formatBoundUp } from './literals/round-up.js';
 import { stampLine } from './stamp.js';
 import type { EmitInput, ResultClaims } from './types.js';
@@ -27,8 +27,10 @@ const WRAP_COLUMN = 76;
 const LABEL_WIDTH = 12;
 
 /**
- * `cycles: false` leaves out the Cortex-M4F estimate (GLSL files: a shader
- * runs on a GPU, so its header gives the op counts only).
+ * `cycles: false` leaves out the CPU cost figures (shader files): one line
+ * names the cost model that ranked the plan instead (its estimate when it is
+ * the GPU model): a shader runs on a GPU, so its header gives the op counts
+ * and no CPU cycles.
  */
 export function headerLines(input: EmitInput, fileRole: string, options: { readonly cycles?: boolean } = {}): string[] {
   const { family, claims, generator } = input;
@@ -57,9 +59,7 @@ export function headerLines(input: EmitInput, fileRole: string, options: { reado
     ]),
     ...labelled('operations:', [`${ops.add} add, ${ops.mul} mul, ${ops.div} div, ${ops.tableReads} table reads${ops.compares > 0 ? `, ${ops.compares} compares` : ''}`]),
     ...(options.cycles === false
-      ? input.claims.costModel === 'gpu'
-        ? costHeaderLines(input.program, COST_MODELS.gpu)
-        : []
+      ? [shaderCostLine(input)]
       : costHeaderLines(input.program, input.claims.costModel ? COST_MODELS[input.claims.costModel] : undefined)),
   ];
   for (const line of lines) assertCommentSafe(line);
@@ -96,6 +96,17 @@ function resultBoundLines(family: Family, r: ResultClaims, b: BoundParts): strin
     `  total       ${formatBoundUp(b.total)}`,
     ...labelled('root bound:', wrapWords(`${family.unknown}: ${rootParts} -> total ${formatBoundUp(root.total)} (absolute; planned for ${formatBoundUp(r.rootBudget)})`, WRAP_COLUMN - LABEL_WIDTH)),
   ];
+}
+
+/**
+ * A shader header's one cost line: which model ranked the plan. Ranked by the
+ * GPU model, its estimate; ranked by a CPU model (the arithmetic's default),
+ * its name and unit only: a CPU cycle figure says nothing about a GPU.
+ */
+function shaderCostLine(input: EmitInput): string {
+  const model = COST_MODELS[input.claims.costModel ?? ARITHMETICS[input.program.arithmetic].costModel];
+  if (model.name === 'gpu') return model.headerLine(input.program);
+  return `cost model: the plan was ranked by ${model.name}, a CPU model (no GPU figure; plan.cost_model: gpu ranks for GPUs)`;
 }
 
 /**

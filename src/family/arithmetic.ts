@@ -172,8 +172,8 @@ export interface FixedFacts {
   readonly glslType: null;
   readonly wgslType: null;
   readonly hlslType: null;
-  /** The Rust types of a value and of a product; null while the Rust printer has no fixed32 form. */
-  readonly rustType: 'i32' | null;
+  /** The Rust types of a value and of a product. */
+  readonly rustType: 'i32';
   readonly rustWideType: 'i64';
   /** How TypeScript holds a value: an int32 in a number (`| 0`), products in BigInt. */
   readonly tsType: 'number';
@@ -193,7 +193,7 @@ export const FIXED32: FixedFacts = {
   glslType: null,
   wgslType: null,
   hlslType: null,
-  rustType: null,
+  rustType: 'i32',
   rustWideType: 'i64',
   tsType: 'number',
   planningArithmetic: 'float64',

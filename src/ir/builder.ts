@@ -125,13 +125,13 @@ export class ProgramBuilder {
     if (uniform) {
       const value = roundTo(uniform, this.arithmetic);
       if (!Number.isFinite(value)) throw new ConstantOverflowError(uniform);
-      return this.push({ kind: 'const', value, exact: uniform }, `c:${uniform.toString()}`);
+      return this.push({ kind: 'const', value, exact: uniform }, `c:${exactKey(uniform)}`);
     }
     const index = this.segmentIndex();
     const vs = values!.map((v) => roundTo(v, this.arithmetic));
     const big = vs.findIndex((v) => !Number.isFinite(v));
     if (big >= 0) throw new ConstantOverflowError(values![big]!);
-    return this.push({ kind: 'table', index, values: vs, exact: values! }, `t:${values!.join(',')}`);
+    return this.push({ kind: 'table', index, values: vs, exact: values! }, `t:${values!.map(exactKey).join(',')}`);
   }
 
   private segmentIndex(): Ref {
@@ -272,9 +272,9 @@ function pruneTo(nodes: readonly Node[], result: Ref): { nodes: Node[]; result: 
 function nodeKey(n: Node): string | null {
   switch (n.kind) {
     case 'const':
-      return `c:${n.exact.toString()}`;
+      return `c:${exactKey(n.exact)}`;
     case 'table':
-      return `t:${n.exact.join(',')}`;
+      return `t:${n.exact.map(exactKey).join(',')}`;
     case 'input':
       return `i:${n.index}`;
     case 'neg':
@@ -291,4 +291,9 @@ function nodeKey(n: Node): string | null {
     default:
       throw new UnknownNodeError(n);
   }
+}
+
+/** A constant's memo key: its exact value in hex (linear in its size; decimal text is quadratic on the huge values of subnormal expansion points). */
+function exactKey(v: Rational): string {
+  return v.den === 1n ? v.num.toString(16) : `${v.num.toString(16)}/${v.den.toString(16)}`;
 }

@@ -117,6 +117,11 @@ export function edgeSamplePoints(program: Program, box: readonly EdgeBox[]): num
 }
 
 /** The input and the exact c0, invWidth of t = (x - c0) * invWidth, from the node shapes the builder makes. */
+/** The argument an index part's t is computed from. */
+export function partInput(program: Program, t: number): number {
+  return indexShape(program.nodes, t).input;
+}
+
 function indexShape(nodes: readonly Node[], t: number): { input: number; c0: Rational; invWidth: Rational } {
   const refuse = (): never => {
     throw new Error(`the index part at node ${t} is not (input - const) * const`);

@@ -21,6 +21,7 @@
  *   VMRS APSR_nzcv, FPSCR  1        vmrs (the flags to the core, for a predicated MOV)
  *   integer ALU op         1        intOp (TRM 3.3, data processing)
  *   LDR (literal)          2        ldrLiteral
+ *   LDRH, LDR (register)   2        ldr (an integer table entry)
  *
  * x86-64: scalar SSE latencies of a recent core (addsd/mulsd 4, divsd 11-14,
  * xorpd 1, an L1 load 5, ucomisd and SETcc about 3 + 1), from memory of Agner Fog's instruction tables, not measured
@@ -50,7 +51,17 @@ export const CORTEX_M4F_CYCLES = {
   intOp: 1,
   /** LDR from the literal pool (a table's base address). */
   ldrLiteral: 2,
+  /** LDRH/LDR of an integer table entry (a two-level index's coarse-cell table). */
+  ldr: 2,
 } as const;
+
+/**
+ * One read of a two-level index's coarse-cell table (TWO-LEVEL INDEX,
+ * src/ir/nodes.ts) on the Cortex-M4F: the address (ADD with a shifted
+ * register) and the integer load; its shifts and masks are among the
+ * index's integer ops (src/ir/count.ts).
+ */
+export const CORTEX_M4F_COARSE_READ_CYCLES = CORTEX_M4F_CYCLES.intOp + CORTEX_M4F_CYCLES.ldr;
 
 /**
  * One table read on the Cortex-M4F: the address computation (ADD with a

@@ -146,6 +146,11 @@ export class Rational {
     return [c <= 0 ? x : nextDown(x), c >= 0 ? x : nextUp(x)];
   }
 
+  /** Bits of the numerator and denominator together (a size for work counts). */
+  bits(): number {
+    return bitLength(this.num < 0n ? -this.num : this.num) + bitLength(this.den);
+  }
+
   toString(): string {
     return this.den === 1n ? this.num.toString() : `${this.num}/${this.den}`;
   }
@@ -156,7 +161,8 @@ const abs = (n: bigint): bigint => (n < 0n ? -n : n);
 /** a + n/d in lowest terms, for a in lowest terms and n/d in lowest terms (d > 0). */
 function sumOf(a: Rational, n: bigint, d: bigint): Rational {
   if (n === 0n) return a;
-  if (a.num === 0n) return Rational.of(n, d);
+  // n/d is in lowest terms already: no gcd (on the huge values of recentring at a subnormal x0 it cost seconds).
+  if (a.num === 0n) return Rational.of(n, d, true);
   if (a.den === d) return Rational.of(a.num + n, d);
   const d1 = gcd(a.den, d);
   if (d1 === 1n) return Rational.of(a.num * d + n * a.den, a.den * d, true);

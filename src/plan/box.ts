@@ -50,6 +50,40 @@ export function split(cell: Cell, dim: number): [Cell, Cell] {
   return [a, b];
 }
 
+/**
+ * Splits a cell in two along input `dim` at the geometric mean of its ends
+ * (which must have one sign and differ): the halves share that point exactly,
+ * so they cover the cell.
+ */
+export function splitGeometric(cell: Cell, dim: number): [Cell, Cell] {
+  const { lo, hi } = cell[dim]!;
+  const sign = lo < 0 ? -1 : 1;
+  const g = sign * Math.sqrt(Math.abs(lo)) * Math.sqrt(Math.abs(hi));
+  const mid = g > lo && g < hi ? g : lo + (hi - lo) / 2;
+  const a = cell.map((c, i) => (i === dim ? { lo, hi: mid } : c));
+  const b = cell.map((c, i) => (i === dim ? { lo: mid, hi } : c));
+  return [a, b];
+}
+
+/**
+ * The input whose ends have one sign and the largest ratio |far end| / |near
+ * end|, when that ratio exceeds `least`; -1 when there is none (every side
+ * touches or straddles zero, or is already narrow in ratio).
+ */
+export function widestRatioDim(cell: Cell, least: number): number {
+  let best = -1;
+  let bestRatio = least;
+  cell.forEach((c, i) => {
+    if (!(c.lo > 0 || c.hi < 0)) return;
+    const ratio = Math.max(Math.abs(c.lo), Math.abs(c.hi)) / Math.min(Math.abs(c.lo), Math.abs(c.hi));
+    if (ratio > bestRatio) {
+      bestRatio = ratio;
+      best = i;
+    }
+  });
+  return best;
+}
+
 /** A uniform grid of about `target` cells over the box (the same count per input). */
 export function grid(box: Cell, target: number): Cell[] {
   const d = box.length;

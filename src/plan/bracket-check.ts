@@ -8,7 +8,7 @@
  *    is certain or a cell is BRACKET_CHECK.minFraction of the box. By the
  *    intermediate value theorem P then has a root in [a, b] for every input.
  * 2. `certifyRootInBracket`: over every certified cell of a plan, the series'
- *    root enclosure x0 - r a, a in [1 - (a(T) - 1), a(T)] (src/plan/cell-bound.ts),
+ *    root enclosure x0 - r a, a in [1 - (a(T) - 1), a(T)] (src/plan/cell-bound.ts rootEnclosure),
  *    lies inside [a, b], so the root the emitted code follows is a root in
  *    the bracket.
  *
@@ -16,14 +16,13 @@
  * and the end at fault.
  */
 import { RootcastError } from '../errors.js';
-import { addUp, mulUp, subDown, subUp } from '../math/directed.js';
 import { iadd, imul, point, type Interval } from '../math/interval.js';
 import { Rational } from '../math/rational.js';
 import { evalExprExact } from '../family/expr-eval.js';
 import type { Family } from '../family/types.js';
 import { signAt } from '../series/recenter.js';
 import { describeCell, grid, short, split, widestDim, type Cell } from './box.js';
-import type { CellFacts } from './cell-bound.js';
+import { rootEnclosure, type CellFacts } from './cell-bound.js';
 import { poleOver } from './coefficient-poles.js';
 import { decimalInterval, encloseExpr } from './expr-enclose.js';
 import { locate } from './locate.js';
@@ -109,10 +108,7 @@ export function certifyRootInBracket(family: Family, x0: readonly number[], cell
   const above: { cell: CellFacts; reach: number }[] = [];
   for (const c of cells) {
     if (c.state.kind !== 'ok') continue;
-    const spread = mulUp(c.R, subUp(c.aUpper, 1));
-    const x = x0[c.segment]!;
-    const rootLo = subDown(subDown(x, c.rRange.hi), spread);
-    const rootHi = addUp(subUp(x, c.rRange.lo), spread);
+    const { lo: rootLo, hi: rootHi } = rootEnclosure(x0[c.segment]!, c.rRange, c.R, c.aUpper);
     if (rootLo < a && !noZero(family, c.cell, rootLo, a, budget)) below.push({ cell: c, reach: rootLo });
     if (rootHi > b && !noZero(family, c.cell, b, rootHi, budget)) above.push({ cell: c, reach: rootHi });
   }
@@ -126,6 +122,30 @@ export function certifyRootInBracket(family: Family, x0: readonly number[], cell
     `the root the series follows is not certainly inside the bracket for ${region(family, out.list.map((x) => x.cell.cell))}: its certified enclosure reaches ${short(out.reach)} there, ${out.dir} the ${out.which} end ${out.end}, where P can vanish; move the ${out.which} end ${out.dir === 'below' ? 'down' : 'up'} past ${short(out.reach)}`,
     locate(family, 'root.bracket'),
   );
+}
+
+/**
+ * A quick check before the plain series (x0 = 0) of a bracketed family is
+ * planned: at the box centre (`centre`, a point's facts) its root enclosure
+ * must lie inside the bracket, or it follows another root (or none) and is
+ * refused at once, before any cell is refined. The full proof over every
+ * cell is certifyRootInBracket's, as for any plan.
+ */
+export function plainRootAtCentre(family: Family, centre: CellFacts): void {
+  if (!family.bracket) return;
+  const where = describeCell(family, centre.cell);
+  if (centre.state.kind !== 'ok') {
+    throw new RootcastError(`the plain series about ${family.unknown} = 0 has no bound at the box centre (${where})`, locate(family, 'root.bracket'));
+  }
+  const a = family.bracket[0].value.toNumberDown();
+  const b = family.bracket[1].value.toNumberUp();
+  const { lo, hi } = rootEnclosure(0, centre.rRange, centre.R, centre.aUpper);
+  if (lo < a || hi > b) {
+    throw new RootcastError(
+      `the root the plain series about ${family.unknown} = 0 follows is not certainly inside the bracket at the box centre (${where}): its enclosure is [${short(lo)}, ${short(hi)}]`,
+      locate(family, 'root.bracket'),
+    );
+  }
 }
 
 /**

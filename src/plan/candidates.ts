@@ -1,11 +1,27 @@
 /** The candidate rows of `rootcast plan`'s table: every plan weighed, and which one was chosen. */
+import type { Program } from '../ir/nodes.js';
+import { partInput } from '../ir/segment-edges.js';
 import type { Candidate, Plan } from './types.js';
+
+/**
+ * Per input, the coarse cells of a two-level index (TWO-LEVEL INDEX in
+ * src/ir/nodes.ts), null for an input with equal segments; null as a whole
+ * when every input has equal segments.
+ */
+export function coarseCellsOf(program: Program): (number | null)[] | null {
+  const index = program.nodes.find((n) => n.kind === 'index');
+  if (index?.kind !== 'index' || !index.parts.some((p) => p.fine)) return null;
+  const out: (number | null)[] = program.inputs.map(() => null);
+  for (const part of index.parts) if (part.fine) out[partInput(program, part.t)] = part.fine.meta.length;
+  return out;
+}
 
 function candidateOf(p: Plan): Candidate {
   return {
     form: p.form,
     degree: p.degree,
     counts: p.counts,
+    coarseCells: coarseCellsOf(p.program),
     order: p.order,
     terms: p.terms.length,
     steps: p.steps,
@@ -13,14 +29,15 @@ function candidateOf(p: Plan): Candidate {
     cost: p.cost,
     tableBytes: p.tableBytes,
     bound: p.bound.total,
+    plain: p.root.centre === null,
     refusal: null,
     chosen: false,
   };
 }
 
 /** A segmentation the planner refused, as a row. */
-export function refusedCandidate(counts: readonly number[], refusal: string): Candidate {
-  return { form: 'series', degree: null, counts, order: null, terms: null, steps: 0, ops: null, cost: null, tableBytes: null, bound: null, refusal, chosen: false };
+export function refusedCandidate(counts: readonly number[], refusal: string, plain = false, coarseCells: readonly (number | null)[] | null = null): Candidate {
+  return { form: 'series', degree: null, counts, coarseCells, order: null, terms: null, steps: 0, ops: null, cost: null, tableBytes: null, bound: null, plain, refusal, chosen: false };
 }
 
 /** The plan and the other forms weighed for its segments, as candidate rows. */
@@ -29,9 +46,15 @@ export function candidatesOf(p: Plan): Candidate[] {
 }
 
 const sameCounts = (a: readonly number[], b: readonly number[]): boolean => a.every((k, i) => k === b[i]);
+const sameCoarse = (a: readonly (number | null)[] | null, b: readonly (number | null)[] | null): boolean =>
+  a === null || b === null ? a === b : a.every((k, i) => k === b[i]);
 
 /** The chosen plan with its candidate rows, the row that is the plan marked chosen. */
 export function withCandidates(p: Plan, candidates: readonly Candidate[]): Plan {
-  const marked = candidates.map((c) => ({ ...c, chosen: c.refusal === null && c.form === p.form && c.steps === p.steps && sameCounts(c.counts, p.counts) }));
+  const marked = candidates.map((c) => ({
+    ...c,
+    chosen:
+      c.refusal === null && c.form === p.form && c.steps === p.steps && c.plain === (p.root.centre === null) && sameCounts(c.counts, p.counts) && sameCoarse(c.coarseCells, coarseCellsOf(p.program)),
+  }));
   return { ...p, candidates: marked };
 }

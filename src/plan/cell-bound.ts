@@ -7,7 +7,7 @@
  * a(T) bounded above and a_S(T) below, both with directed rounding.
  */
 import { addDown, addUp, mulDown, mulUp, powUp, subDown, subUp } from '../math/directed.js';
-import { containsZero, idiv, mag, type Interval } from '../math/interval.js';
+import { containsZero, idiv, imul, isub, mag, point, type Interval } from '../math/interval.js';
 import { Rational } from '../math/rational.js';
 import { analyse } from '../ir/analyse.js';
 import { majorantRoot } from '../series/majorant.js';
@@ -45,6 +45,8 @@ export interface CellFacts {
    * gives |a - 1| <= a(T) - 1, so x* = x0 - r a lies within R (a(T) - 1) of x0 - r.
    */
   readonly rootMin: number;
+  /** Upper bound of |x*| over the cell (from the same enclosure as rootMin). */
+  readonly rootMax: number;
   /** Enclosure of the root x* over the cell (the interval rootMin is read from); absent unless the state is ok. */
   readonly rootRange?: Interval;
   /** Enclosure of c'1 over the cell (null when it is a known constant without a tight enclosure). */
@@ -59,7 +61,7 @@ export function cellFacts(ap: AnalysisProgram, degree: number, cell: Cell, x0: n
   const Q = new Array<number>(degree + 1).fill(0);
   const tight = tightRatios(ap, an.values, cell, segment);
   const r = tight.ratio(0, an.values[ap.r]!);
-  const base = { cell, segment, T, Q, rRange: r, gradeSums: [] as number[], rootMin: 0, c1Range: tight.c1, ranges: ap.ranges };
+  const base = { cell, segment, T, Q, rRange: r, gradeSums: [] as number[], rootMin: 0, rootMax: Infinity, c1Range: tight.c1, ranges: ap.ranges };
   if (ap.c1 !== null) {
     const v = tight.c1!;
     if (!Number.isFinite(v.lo) || !Number.isFinite(v.hi)) return { ...base, state: { kind: 'unbounded' }, R: Infinity, aUpper: Infinity };
@@ -75,11 +77,26 @@ export function cellFacts(ap: AnalysisProgram, degree: number, cell: Cell, x0: n
   }
   const root = majorantRoot(T);
   if (!root.converges) return { ...base, state: { kind: 'diverges', T }, R, aUpper: Infinity };
-  const spread = mulUp(R, subUp(root.upper, 1));
-  const lo = subDown(subDown(x0, r.hi), spread);
-  const hi = addUp(subUp(x0, r.lo), spread);
+  const { lo, hi } = rootEnclosure(x0, r, R, root.upper);
   const rootMin = lo > 0 ? lo : hi < 0 ? -hi : 0;
-  return { ...base, state: { kind: 'ok' }, R, aUpper: root.upper, rootMin, rootRange: { lo, hi } };
+  return { ...base, state: { kind: 'ok' }, R, aUpper: root.upper, rootMin, rootMax: Math.max(-lo, hi), rootRange: { lo, hi } };
+}
+
+/**
+ * An enclosure of the root x* = x0 - r a over a cell: the kept set {1} gives
+ * |a - 1| <= a(T) - 1, so a lies in [2 - a(T), a(T)] and x* in
+ * x0 - r [2 - a(T), a(T)] (interval product, outward rounded). Intersected
+ * with x0 - r -+ R (a(T) - 1), both enclosures being rigorous. The product
+ * keeps the root's scale where it tends to zero with r (the plain series,
+ * x0 = 0): there the sum form's R (a(T) - 1) can exceed |x*| itself.
+ */
+export function rootEnclosure(x0: number, r: Interval, R: number, aUpper: number): Interval {
+  const spread = mulUp(R, subUp(aUpper, 1));
+  const product = isub(point(x0), imul(r, { lo: subDown(2, aUpper), hi: aUpper }));
+  return {
+    lo: Math.max(product.lo, subDown(subDown(x0, r.hi), spread)),
+    hi: Math.min(product.hi, addUp(subUp(x0, r.lo), spread)),
+  };
 }
 
 /**

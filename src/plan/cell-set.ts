@@ -6,7 +6,7 @@
  * bound keeps improving and the cell budget lasts.
  */
 import { divUp } from '../math/directed.js';
-import { widestDim, split, type Cell } from './box.js';
+import { splitGeometric, widestDim, widestRatioDim, split, type Cell } from './box.js';
 import { cellFacts, cellTail, type CellFacts } from './cell-bound.js';
 import type { AnalysisProgram } from './series-program.js';
 import { SUBDIVISION } from './tuning.js';
@@ -32,6 +32,15 @@ export class CellSet {
   private facts(cell: Cell, segment: number): CellFacts {
     spend(this.ap.program.nodes.length);
     return cellFacts(this.ap, this.degree, cell, this.x0[segment]!, segment);
+  }
+
+  /** The facts at the centre point of the box (one segment's expansion), counted as work. */
+  centreFacts(segment = 0): CellFacts {
+    const centre = this.box.map((iv) => {
+      const m = iv.lo + (iv.hi - iv.lo) / 2;
+      return { lo: m, hi: m };
+    });
+    return this.facts(centre, segment);
   }
 
   private tooSmall(cell: Cell): boolean {
@@ -78,6 +87,37 @@ export class CellSet {
       if (bad.length === 0 || (!thorough && doubling >= SUBDIVISION.regionRounds) || this.cells.length + bad.length > budget) return;
       // Split from the end so earlier indices stay valid.
       for (let k = bad.length - 1; k >= 0; k--) this.splitAt(bad[k]!);
+    }
+  }
+
+  /**
+   * Relative accuracy where the root tends to zero with an input: a cell whose
+   * root bounds differ by more than SUBDIVISION.scaleRatio (|x*| <= rootMax,
+   * rootMin <= |x*|) has its bound divided by a rootMin far below the errors'
+   * scale, and halving it at the midpoint narrows that ratio only slowly (and
+   * stops at SUBDIVISION.minFraction of the box). Such a cell is split at the
+   * geometric mean of the input whose ends (of one sign) are furthest apart in
+   * ratio, so the ratio of its ends halves in log scale with every split: an
+   * input range [1e-6, 1] is cut into octaves in about five rounds. Cells are
+   * split in at most SUBDIVISION.scaleRounds rounds and within `budget` cells,
+   * each split counted as work like any other: the result is deterministic.
+   */
+  splitTowardZero(budget: number): void {
+    for (let round = 0; round < SUBDIVISION.scaleRounds; round++) {
+      const wide: { index: number; dim: number }[] = [];
+      this.cells.forEach((c, index) => {
+        if (c.state.kind !== 'ok' || !(c.rootMin > 0) || !(c.rootMax > SUBDIVISION.scaleRatio * c.rootMin)) return;
+        const dim = widestRatioDim(c.cell, SUBDIVISION.scaleRatio);
+        if (dim >= 0) wide.push({ index, dim });
+      });
+      if (wide.length === 0 || this.cells.length + wide.length > budget) return;
+      for (let k = wide.length - 1; k >= 0; k--) {
+        const { index, dim } = wide[k]!;
+        const c = this.cells[index]!;
+        const halves = splitGeometric(c.cell, dim).map((h) => this.facts(h, c.segment));
+        halves.forEach((h) => this.onNewCell(h));
+        this.cells.splice(index, 1, ...halves);
+      }
     }
   }
 

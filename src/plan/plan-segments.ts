@@ -10,7 +10,7 @@ import { COST_MODELS, costModelFor } from '../ir/cost/index.js';
 import type { Program } from '../ir/nodes.js';
 import type { Family } from '../family/types.js';
 import { grid, type Cell } from './box.js';
-import { certifyRootInBracket } from './bracket-check.js';
+import { certifyRootInBracket, plainRootAtCentre } from './bracket-check.js';
 import { cellTail, type CellFacts } from './cell-bound.js';
 import { CellSet } from './cell-set.js';
 import { FoundPlans, type FormContext } from './forms/context.js';
@@ -18,17 +18,20 @@ import { FORMS } from './forms/index.js';
 import { locate } from './locate.js';
 import { tableBytesOf } from './plan-of.js';
 import { refuseBadCells, refuseSteps, refuseTable } from './refusals.js';
-import { chooseRoot, pointText, rootAt, type RootChoice } from './root-choice.js';
+import { chooseRoot, plainRoot, pointText, rootAt, type RootChoice } from './root-choice.js';
 import { segmentLayout, type SegmentLayout } from './segments.js';
 import { analysisProgram, CoefficientError, ZeroSlopeError, type AnalysisProgram, type Expansion } from './series-program.js';
 import { TermPool } from './term-pool.js';
 import { initialCellsPerSegment, LIMITS, REFINE } from './tuning.js';
 import type { Plan } from './types.js';
 
-/** `thorough` false for the trials of a segment search (see CellSet.repairBadCells). */
-export function planSegments(family: Family, box: Cell, counts: readonly number[], thorough = true, refine?: readonly (readonly number[] | null)[]): Plan {
+/**
+ * `thorough` false for the trials of a segment search (see CellSet.repairBadCells);
+ * `plain` true for the plain series of a bracketed family (one box, x0 = 0; src/plan/plain-series.ts).
+ */
+export function planSegments(family: Family, box: Cell, counts: readonly number[], thorough = true, refine?: readonly (readonly number[] | null)[], plain = false): Plan {
   try {
-    return planSegmentsInner(family, box, segmentLayout(family, box, counts, refine), thorough);
+    return planSegmentsInner(family, box, segmentLayout(family, box, counts, refine), thorough, plain);
   } catch (e) {
     if (e instanceof ConstantOverflowError) {
       throw new RootcastError(
@@ -40,20 +43,22 @@ export function planSegments(family: Family, box: Cell, counts: readonly number[
   }
 }
 
-function planSegmentsInner(family: Family, box: Cell, layout: SegmentLayout, thorough: boolean): Plan {
+function planSegmentsInner(family: Family, box: Cell, layout: SegmentLayout, thorough: boolean, plain: boolean): Plan {
   const counts = layout.counts;
-  const { expansion, root } = expansionFor(family, layout);
+  const { expansion, root } = plain ? plainExpansion(family, layout) : expansionFor(family, layout);
   const ap = prefixOf(family, expansion, layout);
   const relative = family.accuracy.kind === 'relative';
   const perSegment = initialCellsPerSegment(family.inputs.length, layout.segmentation.segments);
   const initial = layout.boxes.flatMap((b, segment) => grid(b, perSegment).map((cell) => ({ cell, segment })));
   const set = new CellSet(ap, family.degree, box, expansion.x0.map((v) => v.toNumber()), initial);
+  if (plain) plainRootAtCentre(family, set.centreFacts());
   if (!thorough) {
     // A search trial with a cell that is bad at its very centre cannot be repaired: refuse it now.
     const hopeless = set.badAtCentre(relative);
     if (hopeless.length > 0) refuseBadCells(family, hopeless, relative);
   }
   set.repairBadCells(LIMITS.cells, relative, thorough);
+  if (relative) set.splitTowardZero(LIMITS.cells);
   refuseBadCells(family, set.cells, relative);
   certifyRootInBracket(family, expansion.x0.map((v) => v.toNumber()), set.cells);
 
@@ -94,6 +99,13 @@ function planSegmentsInner(family: Family, box: Cell, layout: SegmentLayout, tho
   }
   const best = eligible.reduce((a, b) => (b.cost < a.cost ? b : a));
   return { ...best, alternatives: found.all.filter((f) => f !== best) };
+}
+
+/** The plain series' expansion: one box, x0 = 0. */
+function plainExpansion(family: Family, layout: SegmentLayout): { expansion: Expansion; root: RootChoice } {
+  if (layout.segmentation.segments !== 1) throw new RangeError('the plain series has one box');
+  const root = plainRoot(family);
+  return { expansion: { segmentation: layout.segmentation, x0: [root.x0] }, root };
 }
 
 /** The expansion for a segmentation: one x0 per segment (the bracketed root at its centre). */
@@ -183,6 +195,7 @@ export function segmentNeeds(family: Family, box: Cell, layout: SegmentLayout, o
   const needOf = (cells: readonly { cell: Cell; segment: number }[], each: (c: CellFacts, need: number) => void): boolean => {
     const set = new CellSet(ap, family.degree, box, x0, cells);
     set.repairBadCells(LIMITS.cells, relative, false);
+    if (relative) set.splitTowardZero(LIMITS.cells);
     const pool = new TermPool(family.degree, [...ap.q.keys()], set);
     if (!pool.termsUpTo(order)) return false;
     for (const c of set.cells) {

@@ -11,12 +11,13 @@ import { RootcastError } from '../errors.js';
 import type { Family } from '../family/types.js';
 import { boxOf, type Cell } from './box.js';
 import { certifyBracket } from './bracket-check.js';
-import { candidatesOf, withCandidates } from './candidates.js';
+import { candidatesOf, refusedCandidate, withCandidates } from './candidates.js';
 import { locate } from './locate.js';
 import { applyOutsideBox } from './outside-box.js';
 import { planSegments } from './plan-segments.js';
+import { plainTrial, type PlainTrial } from './plain-series.js';
 import { planWithResult } from './result-stage.js';
-import { searchSegments } from './segment-search.js';
+import { frugalChoice, searchSegments } from './segment-search.js';
 import { QuotedFixRefusal, refuseWorkLimit } from './refusals.js';
 import { QUOTED_FIX, TABLE_FIX, WORK } from './tuning.js';
 import type { Plan } from './types.js';
@@ -76,10 +77,12 @@ function planWithinLimit(family: Family): Plan {
   certifyBracket(family, box.cell);
   const knob = family.plan.segments;
   const perInput = typeof knob === 'object' ? knob : family.inputs.map(() => knob);
+  // The plain series is one box: weighed unless the spec fixes a segment count above 1.
+  const plain = perInput.every((k) => k === 'auto' || k === 1) ? plainTrial(family, box.cell) : NO_PLAIN;
   if (perInput.some((k) => k === 'auto')) {
     const fixed = perInput.map((k) => (k === 'auto' ? null : k));
     try {
-      return searchSegments(family, box.cell, fixed);
+      return searchSegments(family, box.cell, fixed, plain);
     } catch (e) {
       if (e instanceof RootcastError) refuseWithTableFix(family, box.cell, fixed, e);
       throw e;
@@ -92,9 +95,18 @@ function planWithinLimit(family: Family): Plan {
       locate(family, 'plan.segments'),
     );
   }
-  const p = planSegments(family, box.cell, counts);
-  return withCandidates(p, candidatesOf(p));
+  let p: Plan;
+  try {
+    p = planSegments(family, box.cell, counts);
+  } catch (e) {
+    if (!plain.plan || !(e instanceof RootcastError || e instanceof WorkLimitError)) throw e;
+    const why = e instanceof RootcastError ? e.message : 'stopped at the planner work limit';
+    return withCandidates(plain.plan, [refusedCandidate(counts, why), ...plain.candidates]);
+  }
+  return withCandidates(plain.plan ? frugalChoice([p, plain.plan]) : p, [...candidatesOf(p), ...plain.candidates]);
 }
+
+const NO_PLAIN: PlainTrial = { plan: null, candidates: [] };
 
 /**
  * When the segment search found no plan and plan.max_table_bytes kept it from

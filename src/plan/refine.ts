@@ -45,7 +45,7 @@ export function refinedPlans(family: Family, box: Cell, fixed: readonly (number 
       candidates.push(...candidatesOf(p));
     } catch (e) {
       if (!(e instanceof RootcastError)) throw e;
-      candidates.push(refusedCandidate(layout.counts, e.message));
+      candidates.push(refusedCandidate(layout.counts, e.message, false, layout.refine.map((r) => (r ? r.length : null))));
     }
   }
   return { plans, candidates };

@@ -98,6 +98,20 @@ export function pointText(family: Family, point: readonly Rational[]): string {
   return family.inputs.map((inp, i) => `${inp.name} = ${point[i]!.toNumber()}`).join(', ');
 }
 
+/**
+ * The plain series (x0 = 0, no recentring) for a family with a bracket: it
+ * follows the root that tends to -c0/c1, and is weighed only where the
+ * planner proves that root inside the bracket (src/plan/plain-series.ts).
+ */
+export function plainRoot(family: Family): RootChoice {
+  if (!family.bracket) return chooseRoot(family);
+  return {
+    x0: Rational.ZERO,
+    centre: null,
+    note: `the root in [${family.bracket[0]}, ${family.bracket[1]}], plain series about ${family.unknown} = 0 (not recentred: the root it follows, the one that tends to -c0/c1, is certified inside the bracket)`,
+  };
+}
+
 export function chooseRoot(family: Family): RootChoice {
   if (!family.bracket) {
     return { x0: Rational.ZERO, centre: null, note: `the root that tends to -c0/c1 (series about ${family.unknown} = 0)` };

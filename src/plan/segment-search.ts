@@ -15,6 +15,7 @@ import type { Cell } from './box.js';
 import { locate } from './locate.js';
 import { candidatesOf, refusedCandidate, withCandidates } from './candidates.js';
 import { planSegments } from './plan-segments.js';
+import type { PlainTrial } from './plain-series.js';
 import { refinedPlans } from './refine.js';
 import { moreActionable } from './refusals.js';
 import { REFINE, SEGMENT_SEARCH } from './tuning.js';
@@ -22,7 +23,11 @@ import { WorkLimitError } from './work.js';
 import type { Candidate, Plan } from './types.js';
 
 /** `fixed`: per input, the count the spec sets, or null where the search chooses (all null for `segments: auto`). */
-export function searchSegments(family: Family, box: Cell, fixed: readonly (number | null)[] = family.inputs.map(() => null)): Plan {
+/**
+ * `plain`: the plain series' trial of a bracketed family (src/plan/plain-series.ts),
+ * whose plan joins the equal and two-level ones in the final choice.
+ */
+export function searchSegments(family: Family, box: Cell, fixed: readonly (number | null)[] = family.inputs.map(() => null), plain: PlainTrial = { plan: null, candidates: [] }): Plan {
   const d = family.inputs.length;
   const candidates: Candidate[] = [];
   const found: { best: Plan | null; refusal: RootcastError | null; exhausted: boolean } = { best: null, refusal: null, exhausted: false };
@@ -45,12 +50,12 @@ export function searchSegments(family: Family, box: Cell, fixed: readonly (numbe
       if (e instanceof WorkLimitError) {
         // The work limit ends the search: the best plan so far stands (src/plan/work.ts).
         found.exhausted = true;
-        candidates.push(refusedCandidate(counts, 'stopped at the planner work limit'));
+        candidates.push(refusedCandidate(counts, 'stopped at the planner work limit', !family.bracket));
         return null;
       }
       if (!(e instanceof RootcastError)) throw e;
       found.refusal = moreActionable(found.refusal, e);
-      candidates.push(refusedCandidate(counts, e.message));
+      candidates.push(refusedCandidate(counts, e.message, !family.bracket));
       return null;
     }
   };
@@ -103,6 +108,8 @@ export function searchSegments(family: Family, box: Cell, fixed: readonly (numbe
       if (!(e instanceof WorkLimitError) && !(e instanceof ConstantOverflowError)) throw e;
     }
   }
+  candidates.push(...plain.candidates);
+  if (plain.plan) all.push(plain.plan);
   if (all.length === 0) throw found.refusal ?? new WorkLimitError();
   return withCandidates(frugalChoice(all), candidates);
 }

@@ -22,6 +22,7 @@ import type { SeriesTerm } from '../series/hyper-catalan.js';
 import type { Family } from '../family/types.js';
 import { shiftedForms } from '../series/recenter.js';
 import { CoefficientRanges } from './tight-range.js';
+import { spendExact } from './work.js';
 import { addForms, constantForm, formOf, isConstant, isZero, materialise, powerOf, scaleForm, uniform, type LinearForm } from './linear-form.js';
 
 export interface SeriesSetup {
@@ -237,6 +238,8 @@ function hornerInR(b: ProgramBuilder, p: Prefix, terms: readonly SeriesTerm[], a
     for (let seg = 0; seg < S; seg++) {
       let v = c;
       for (const k of active) v = v.mul(b.segValues(p.q.get(k)!)![seg]!.pow(t.m[k]!));
+      // The sum's gcd is the costly exact work (src/plan/work.ts): count it before doing it.
+      if (!sum[seg]!.isZero()) spendExact(Math.max(sum[seg]!.bits(), v.bits()));
       sum[seg] = sum[seg]!.add(v);
     }
     D.set(t.grade, sum);

@@ -116,6 +116,16 @@ export const SUBDIVISION = {
   gain: 0.98,
   /** Rounds in a row without a gain that end the refinement. */
   staleRounds: 2,
+  /**
+   * Relative accuracy (src/plan/cell-set.ts splitTowardZero): a cell whose
+   * upper bound of |x*| exceeds this multiple of its lower bound is split at
+   * the geometric mean of an input, so each cell's relative bound is divided
+   * by a |x*| at most twice too small: the relative rounding floor is then a
+   * few u wherever the program's error scales with the root.
+   */
+  scaleRatio: 2,
+  /** Rounds of such splits at most: each halves the log ratio of the split input's ends, so 24 rounds take a float64 range's 2^2100 ratio to below 2 with room to spare. */
+  scaleRounds: 24,
 } as const;
 
 /** The order search of the graded series (src/plan/forms/series-order.ts). */
@@ -196,6 +206,19 @@ export const WORK = {
   limit: 2e8,
   /** Share of the limit the search for the order needed past plan.max_order may use (it only words a refusal). */
   orderHuntShare: 1 / 8,
+  /**
+   * Share of the limit the plain series of a bracketed family may use
+   * (src/plan/plain-series.ts): one box, usually far less; the rest stays
+   * for the recentred search, which the plain series must not starve.
+   */
+  plainShare: 1 / 4,
+  /**
+   * Units per squared 64-bit word of one exact BigInt sum (src/plan/work.ts
+   * spendExact): its gcd took 200 to 350 ns of CPU per squared word for
+   * operands of 1 to 16 thousand bits (measured under node 20 on the 2-core
+   * machine, loaded), against the 10 to 20 ns a unit stands for.
+   */
+  exactWordUnits: 20,
   /** Progress reports over the whole limit. */
   reports: 200,
 } as const;

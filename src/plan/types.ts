@@ -51,6 +51,8 @@ export interface Candidate {
   readonly degree: number | null;
   /** Segments per input, in spec order. */
   readonly counts: readonly number[];
+  /** Per input, the coarse cells of a two-level index, null for equal segments along it; null when every input has equal segments. */
+  readonly coarseCells: readonly (number | null)[] | null;
   readonly order: number | null;
   readonly terms: number | null;
   /** Newton polish steps after the series (0 for none). */
@@ -60,6 +62,8 @@ export interface Candidate {
   /** Bytes of the constant tables (null when refused). */
   readonly tableBytes: number | null;
   readonly bound: number | null;
+  /** True for the plain series about the unknown = 0 (not recentred): every plan without a bracket, and a bracketed family's plain candidate. */
+  readonly plain: boolean;
   /** Why it was not possible, in one line, or null. */
   readonly refusal: string | null;
   readonly chosen: boolean;

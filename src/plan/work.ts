@@ -1,7 +1,8 @@
 /**
  * The planner's deterministic work limit. Planning counts its work in units
  * (one unit: one term's majorant value on one cell, one IR node analysed on
- * one cell, one cell's facts per prefix node) and stops at WORK.limit: the
+ * one cell, one cell's facts per prefix node; exact sums of the series
+ * constants by their size, spendExact) and stops at WORK.limit: the
  * same spec stops at the same point on every machine, so output stays
  * byte-identical (a wall-clock limit could not promise that). A plan found
  * before the limit is kept; otherwise the refusal says the limit was reached.
@@ -21,12 +22,13 @@ export class WorkLimitError extends Error {
 
 export type WorkObserver = (used: number, limit: number) => void;
 
-const meter = { used: 0, limit: WORK.limit as number, observer: null as WorkObserver | null, nextReport: 0 };
+const meter = { used: 0, limit: WORK.limit as number, cap: WORK.limit as number, observer: null as WorkObserver | null, nextReport: 0 };
 
 /** Starts counting a new plan's work. */
 export function startWork(observer: WorkObserver | null = null, limit: number = WORK.limit): void {
   meter.used = 0;
   meter.limit = limit;
+  meter.cap = limit;
   meter.observer = observer;
   meter.nextReport = limit / WORK.reports;
 }
@@ -38,10 +40,36 @@ export function spend(units: number): void {
     meter.nextReport = meter.used + meter.limit / WORK.reports;
     meter.observer(Math.min(meter.used, meter.limit), meter.limit);
   }
-  if (meter.used > meter.limit) throw new WorkLimitError();
+  if (meter.used > meter.cap) throw new WorkLimitError();
+}
+
+/**
+ * Runs `fn` with at most `units` more work (and never past the limit): a
+ * trial that may not starve what follows it. Its WorkLimitError ends only
+ * the trial (the caller catches it); the count stays deterministic.
+ */
+export function spendAtMost<T>(units: number, fn: () => T): T {
+  const saved = meter.cap;
+  meter.cap = Math.min(saved, meter.used + units);
+  try {
+    return fn();
+  } finally {
+    meter.cap = saved;
+  }
 }
 
 /** Units counted so far for the current plan. */
 export function workUsed(): number {
   return meter.used;
+}
+
+/**
+ * Counts one exact BigInt sum whose larger operand has `bits` bits: its gcd
+ * (Euclid's algorithm) takes time quadratic in that size, so the units are
+ * WORK.exactWordUnits per squared 64-bit word. Recentring at a subnormal x0
+ * makes such sums tens of thousands of bits long.
+ */
+export function spendExact(bits: number): void {
+  const words = Math.ceil(bits / 64);
+  spend(words * words * WORK.exactWordUnits);
 }

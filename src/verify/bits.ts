@@ -4,12 +4,14 @@
  * comparison with the in-process evaluation is exact (sign of zero and NaN
  * payloads included).
  */
-import type { Arithmetic } from '../family/arithmetic.js';
+import { ARITHMETICS, type Arithmetic } from '../family/arithmetic.js';
 
 const view = new DataView(new ArrayBuffer(8));
 
+/** The bits of x in the arithmetic's width (its `bytes` in the table), as 2 hex digits a byte. */
 export function bitsOf(x: number, arithmetic: Arithmetic): string {
-  if (arithmetic === 'float32') {
+  const { bytes } = ARITHMETICS[arithmetic];
+  if (bytes === 4) {
     view.setFloat32(0, x);
     return view.getUint32(0).toString(16).padStart(8, '0');
   }
@@ -18,7 +20,8 @@ export function bitsOf(x: number, arithmetic: Arithmetic): string {
 }
 
 export function valueOfBits(hex: string, arithmetic: Arithmetic): number {
-  if (arithmetic === 'float32') {
+  const { bytes } = ARITHMETICS[arithmetic];
+  if (bytes === 4) {
     view.setUint32(0, Number.parseInt(hex, 16));
     return view.getFloat32(0);
   }

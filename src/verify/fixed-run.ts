@@ -6,6 +6,8 @@
  *      reference (fixed-check.ts);
  *   2. the C and TypeScript harnesses (raw int32 inputs), read back from their
  *      summary lines, and their results' bits against the in-process integers;
+ *      the Rust function (no harness file) built with rustc and run on the
+ *      same raw inputs, its integers against the in-process ones;
  *   3. the branch count of the emitted C on Cortex-M0, Cortex-M3 and x86-64;
  *   4. the C on emulated Cortex-M0 (microbit) and Cortex-M4F (mps2-an386)
  *      cores with QEMU, every result's bits against the host's; without
@@ -22,10 +24,11 @@ import type { BitCheckJson, BranchCheckJson } from './json.js';
 import { qemuMissing, runOnCore, type QemuCore } from './qemu.js';
 import type { ReportPoint } from './report/envelope.js';
 import { runCHarness, runTsHarness } from './run-harness.js';
+import { runRustFixed } from './rust/fixed-run.js';
 import type { CheckSummary } from './summary.js';
 
 export interface FixedVerifyOptions {
-  /** The targets to run, among those with a fixed32 harness (c, ts). */
+  /** The targets to run: c and ts (harnesses), rust (bit runner). */
   readonly targets: readonly TargetName[];
   readonly samples: number;
   readonly seed: number;
@@ -85,6 +88,20 @@ export function verifyFixedProgram(input: FixedEmitInput, o: FixedVerifyOptions)
     bitChecks.push(bitCheck);
     lines.push(`bits ${name} (${run.language}): ${bitCheck.pass ? `the in-process integers at all ${bitCheck.points} points PASS` : `differs from the in-process integers at ${bitCheck.differing} of ${bitCheck.points} points FAIL`}`);
     if (run.exitCode !== 0 || !parsed || !parsed.pass || !bitCheck.pass) pass = false;
+  }
+
+  if (o.targets.includes('rust')) {
+    const file = fixedEmitFiles(input, ['rust'])[0]!;
+    const run = runRustFixed(file, name, program.inputs.length, raws.map((r) => [r]));
+    if (run.results === null) {
+      lines.push(`rust ${name}: ${run.problem} FAIL`);
+      pass = false;
+    } else {
+      const bitCheck = compare('rust', run.results);
+      bitChecks.push(bitCheck);
+      lines.push(`bits ${name} (Rust): ${bitCheck.pass ? `the in-process integers at all ${bitCheck.points} points PASS` : `differs from the in-process integers at ${bitCheck.differing} of ${bitCheck.points} points FAIL`}`);
+      pass &&= bitCheck.pass;
+    }
   }
 
   let branches: BranchCheckJson | null = null;

@@ -12,7 +12,9 @@
  *   2. each target's harness, built and run out of process, read back from
  *      its summary lines (one row of RUNNERS per target: a new target adds a
  *      row);
- *   3. the branch count of the emitted C on each toolchain found (branches.ts).
+ *   3. the branch count of the emitted C on each toolchain found (branches.ts);
+ *   4. for float32, the C on an emulated Cortex-M4F (QEMU mps2-an386), every
+ *      result's bits against the in-process evaluation (float-core.ts).
  */
 import { existsSync } from 'node:fs';
 import { RootcastError } from '../errors.js';
@@ -33,6 +35,7 @@ import { runCHarness, runTsHarness } from './run-harness.js';
 import { edgePointsOf, sampleTotal } from './samples.js';
 import { formatSummary, parseSummary, type CheckSummary } from './summary.js';
 import type { BitCheckJson } from './json.js';
+import { floatCoreApplies, runFloatOnM4 } from './float-core.js';
 
 export interface VerifyOptions {
   readonly targets: readonly TargetName[];
@@ -124,13 +127,15 @@ export function verifyProgram(input: EmitInput, o: VerifyOptions): VerifyResult 
   const points: ReportPoint[] = [];
   const checked: PointResult[] = [];
   const harnessFailures: string[] = [];
+  // A float32 program's C also runs on an emulated Cortex-M4F (float-core.ts).
+  const onCore = targets.includes('c') && floatCoreApplies(input);
   const total = sampleTotal(family.inputs.length, o.samples, edgePointsOf(family, program).length);
   const inProcess = checkInProcess(input, {
     samples: o.samples,
     seed: o.seed,
     onPoint: (p) => {
       o.onProgress?.(p.index + 1, total);
-      if (targets.some(isBitTarget)) checked.push(p);
+      if (targets.some(isBitTarget) || onCore) checked.push(p);
       if (o.keepPoints && p.error !== null) points.push({ at: p.at, error: p.error });
     },
   });
@@ -175,9 +180,19 @@ export function verifyProgram(input: EmitInput, o: VerifyOptions): VerifyResult 
       pass &&= branches.pass;
     }
   }
+  const bitChecks: BitCheckJson[] = [];
+  if (onCore) {
+    const core = runFloatOnM4(input, emitFiles(input, ['c'], { harness: false })[0]!, checked);
+    if ('skipped' in core) skipped.push(core.skipped);
+    else {
+      lines.push(core.line);
+      bitChecks.push(core.check);
+      pass &&= core.check.pass;
+    }
+  }
   lines.push(...skipped);
   if (skippedGlsl) lines.push(`glsl ${name}: skipped (Chromium is not installed: apt-get install chromium, then rootcast verify --target glsl)`);
-  return { lines, checks, branches, harnessFailures, points, inProcess, pass: pass && checks.every((c) => c.pass) };
+  return { lines, checks, branches, harnessFailures, points, inProcess, bitChecks, skipped, pass: pass && checks.every((c) => c.pass) };
 }
 
 function noSignChange(input: EmitInput, c: CheckSummary): RootcastError {

@@ -30,10 +30,12 @@ describe.each(files)('generated-samples/%s', (file) => {
     for (const m of text.matchAll(/README, "([^"]+)"/g)) expect(headings).toContain(m[1]);
   });
 
-  if (/\.glsl$|glsl-check\.html$/.test(file)) {
-    test('a shader file gives op counts and no Cortex-M4F cycle estimate', () => {
+  if (/\.(glsl|wgsl|hlsl)$|glsl-check\.html$/.test(file)) {
+    test('a shader file gives op counts and no Cortex-M4F cycle estimate, and names the cost model that ranked the plan in one line', () => {
       expect(text).toMatch(/operations: \d+ add, \d+ mul, \d+ div/);
-      expect(text).not.toMatch(/cortex-m4f|cycles/i);
+      expect(text).not.toMatch(/cycles|estimate: ~\d/i);
+      // One header line (a GLSL page also embeds the snippet as a string, whose lines are not lines of the page).
+      expect(text.match(/^(?: \*|\/\/) (?:cost model: the plan was ranked by [a-z0-9-]+, a CPU model|gpu estimate: ~\d+ issue units)/gm)).toHaveLength(1);
     });
   }
 });

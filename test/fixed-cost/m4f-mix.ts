@@ -15,8 +15,10 @@ export interface M4fMix {
   readonly divisions: number;
   /** VLDR plus VMOV.F32 with an immediate operand. */
   readonly constantLoads: number;
-  /** Integer instructions (segment index and table addressing), 1 cycle each; LDR counts 2. */
+  /** Integer instructions (segment index and table addressing), 1 cycle each; a core load counts 2. */
   readonly integer: number;
+  /** Core-register loads: LDR (literal pool, table base addresses) and LDRH/LDRSH/LDR of integer tables (a two-level index's coarse-cell table), 2 cycles each (TRM 3.3; from memory). */
+  readonly coreLoads: number;
   /** The same table as cycles.ts: 1 per arithmetic op, 14 per VDIV, 2 per VLDR, 1 per VMOV immediate, 3 per VMLA (TRM). */
   readonly cycles: number;
 }
@@ -50,7 +52,7 @@ export function m4fMix(files: readonly { path: string; text: string }[], source:
       else if (m === 'vdiv.f32') divisions++;
       else if (m === 'vldr') vldr++;
       else if (m === 'vmov.f32' && line.includes('#')) vmovImmediate++;
-      else if (m === 'ldr') coreLoads++;
+      else if (m === 'ldr' || m === 'ldrh' || m === 'ldrsh') coreLoads++;
       else if (m === 'vmov' && /\tr\d+, s\d+/.test(line)) integer++; // float bits to a core register (segment index)
       else if (!m.startsWith('v') && m !== 'bx' && m !== 'nop') integer++;
     }
@@ -59,6 +61,7 @@ export function m4fMix(files: readonly { path: string; text: string }[], source:
       divisions,
       constantLoads: vldr + vmovImmediate,
       integer,
+      coreLoads,
       cycles: arithmetic - 2 * chained + 3 * chained + 14 * divisions + 2 * vldr + vmovImmediate + 2 * coreLoads + integer,
     };
   } finally {

@@ -15,7 +15,7 @@ import { expectSpecRefusal, removeTempDirs, runCli, tempDir, type CliRun } from 
 import { REPO } from './support.js';
 
 const SPEC = join(REPO, 'examples/fixed32/pt1000-celsius.yaml');
-const NAMES = ['pt1000_celsius.h', 'pt1000_celsius_check.c', 'pt1000_celsius.ts', 'pt1000_celsius.check.ts'];
+const NAMES = ['pt1000_celsius.h', 'pt1000_celsius_check.c', 'pt1000_celsius.ts', 'pt1000_celsius.check.ts', 'pt1000_celsius.rs'];
 
 let out: string;
 let emitted: CliRun;
@@ -38,12 +38,12 @@ describe('emit --check for a fixed32 spec', () => {
   });
 
   test('the shaders have no fixed32 form: the table leaves them out of all', () => {
-    expect(TARGETS.filter((t) => targetAllows(t, 'fixed32'))).toEqual(['c', 'ts']);
+    expect(TARGETS.filter((t) => targetAllows(t, 'fixed32'))).toEqual(['c', 'ts', 'rust']);
   });
 
   test('the committed samples are up to date (the command of the README), exit 0', async () => {
     const r = await runCli(['emit', 'examples/fixed32/pt1000-celsius.yaml', '--target', 'all', '--out', 'generated-samples/pt1000-celsius', '--check']);
-    expect({ code: r.code, stdout: r.stdout, stderr: r.stderr }).toEqual({ code: 0, stdout: 'up to date: 4 files in generated-samples/pt1000-celsius\n', stderr: '' });
+    expect({ code: r.code, stdout: r.stdout, stderr: r.stderr }).toEqual({ code: 0, stdout: 'up to date: 5 files in generated-samples/pt1000-celsius\n', stderr: '' });
   });
 
   test('fresh output is up to date; after an edit the file is named, exit 1; --no-harness checks the function files only', async () => {

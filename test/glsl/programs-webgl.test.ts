@@ -2,7 +2,7 @@
  * The GLSL printer's promise on a real WebGL2 implementation (SwiftShader in
  * headless Chromium): for the printer's hand-made programs (every node kind,
  * extreme literals, an unread argument, constant and input results, segment
- * tables) both overloads return, point for point, the bits of evaluate() —
+ * tables, equal and two-level) both overloads return, point for point, the bits of evaluate() —
  * which the C and TypeScript functions match (test/emit/cross-target.test.ts)
  * — except where a subnormal value (a constant or an intermediate result)
  * takes part, which the GPU may flush to zero (TOOLCHAIN.md: SwiftShader
@@ -20,7 +20,7 @@ import { checkSamplePoints } from '../../src/verify/samples.js';
 import { demoInput } from '../emit/support/family.js';
 import { ALL_SAMPLES } from '../emit/support/programs.js';
 import { dumpPage } from './support/page.js';
-import { segmentedProgram } from './support/segmented.js';
+import { segmentedProgram, twoLevelProgram } from './support/segmented.js';
 
 const view = new DataView(new ArrayBuffer(4));
 const bits = (x: number): string => {
@@ -43,6 +43,8 @@ function touchesSubnormal(program: Program, inputs: readonly number[]): boolean 
 const cases: [string, { program: Program; box: readonly (readonly [number, number])[] }][] = [
   ...ALL_SAMPLES.map((make) => [make('float32').label, make('float32')] as [string, { program: Program; box: readonly (readonly [number, number])[] }]),
   ['segment tables', segmentedProgram()],
+  // The two-level index: its segment edges (where the computed row changes) and their neighbours are among the points.
+  ['two-level segment tables', twoLevelProgram()],
 ];
 
 const POINTS = 300;

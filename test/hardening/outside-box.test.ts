@@ -9,7 +9,8 @@
  *   - the C runs under AddressSanitizer and UndefinedBehaviorSanitizer, so an
  *     out-of-bounds table read or an undefined float-to-int conversion for
  *     these inputs fails this test (gas-molar-volume and ease-in-out read
- *     segment tables).
+ *     segment tables; battery-soc and the landing-time fixture read a
+ *     two-level index's coarse-cell table first).
  */
 import { afterAll, beforeAll, describe, expect, test } from '@jest/globals';
 import { spawnSync } from 'node:child_process';
@@ -34,6 +35,11 @@ const SPECS: readonly SpecUnderTest[] = [
   { file: 'examples/spring-scale.yaml', name: 'spring_deflection_mm', arithmetic: 'float32', box: [[0, 200]] },
   // Segmented in both inputs (a 16 x 8 grid): each index part clamps on its own.
   { file: 'examples/gas-wide.yaml', name: 'n2_molar_volume_wide', arithmetic: 'float32', box: [[40, 80], [250, 350]] },
+  // The two-level index (TWO-LEVEL INDEX in src/ir/nodes.ts): the clamped fine position picks a coarse cell, whose
+  // table entry gives the row; no input may read outside the coarse-cell table or the segment tables.
+  { file: 'examples/battery-soc.yaml', name: 'battery_soc', arithmetic: 'float32', box: [[3.1, 4.1]] },
+  // Two-level in both inputs.
+  { file: 'test/fixtures/segments/landing-time.yaml', name: 'landing_time', arithmetic: 'float32', box: [[5, 30], [0, 50]] },
 ];
 
 /** Values tried in each input in turn (the others at the box centre). */

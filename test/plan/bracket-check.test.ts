@@ -71,6 +71,7 @@ describe('the series root enclosure must stay in the bracket where P can vanish 
     aUpper: 1 + spread / 0.05,
     gradeSums: [],
     rootMin: 0,
+    rootMax: Infinity,
   });
   const run = (spread: number): string | null => {
     try {
@@ -93,8 +94,9 @@ describe('the series root enclosure must stay in the bracket where P can vanish 
   });
 
   test('an enclosure that reaches the other root 1.2 is refused, naming the high end', () => {
-    // [0.75, 1.25] holds the root 1.2, outside the bracket: the series could follow it.
-    const message = run(0.25);
+    // Spread 0.3, a(T) = 7: x0 - r [2 - a(T), a(T)] = 1 - [0, 0.05] [-5, 7] = [0.65, 1.25]
+    // (inside the sum form's [0.65, 1.3]) holds the root 1.2, outside the bracket: the series could follow it.
+    const message = run(0.3);
     expect(message).toContain('above the high end 1.1');
     expect(message).toContain('y in [0.95, 1]');
     expect(message).toContain('move the high end up past 1.25');

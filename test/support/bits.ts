@@ -1,27 +1,27 @@
-/** IEEE bit patterns as hex words, so results are compared and passed between processes exactly. */
+/**
+ * IEEE bit patterns as hex words for the tests, so results are compared and
+ * passed between processes exactly: src/verify/bits.ts does the conversion;
+ * these names add the tests' guard that a float32 word is only ever made
+ * from a binary32 value.
+ */
 import type { Arithmetic } from '../../src/family/arithmetic.js';
-
-const view = new DataView(new ArrayBuffer(8));
+import { bitsOf, valueOfBits } from '../../src/verify/bits.js';
 
 export function float32Hex(x: number): string {
   if (Math.fround(x) !== x && !Number.isNaN(x)) throw new RangeError(`not a binary32 value: ${x}`);
-  view.setFloat32(0, x);
-  return view.getUint32(0).toString(16).padStart(8, '0');
+  return bitsOf(x, 'float32');
 }
 
 export function float64Hex(x: number): string {
-  view.setFloat64(0, x);
-  return view.getBigUint64(0).toString(16).padStart(16, '0');
+  return bitsOf(x, 'float64');
 }
 
 export function fromFloat32Hex(hex: string): number {
-  view.setUint32(0, parseInt(hex, 16));
-  return view.getFloat32(0);
+  return valueOfBits(hex, 'float32');
 }
 
 export function fromFloat64Hex(hex: string): number {
-  view.setBigUint64(0, BigInt(`0x${hex}`));
-  return view.getFloat64(0);
+  return valueOfBits(hex, 'float64');
 }
 
 /** Hex word of a value in the given arithmetic (8 digits for float32, 16 for float64). */
@@ -30,5 +30,5 @@ export function hexOf(x: number, arithmetic: Arithmetic): string {
 }
 
 export function fromHex(hex: string, arithmetic: Arithmetic): number {
-  return arithmetic === 'float32' ? fromFloat32Hex(hex) : fromFloat64Hex(hex);
+  return valueOfBits(hex, arithmetic);
 }

@@ -27,7 +27,9 @@ const SLOW = [
   'test/verify/inprocess.test.ts',
   'test/plan/tight-enclosures.test.ts',
   'test/plan/corpus-property.test.ts',
+  'test/plan/plain-series.test.ts',
   'test/plan/landing-time.test.ts',
+  'test/plan/segments-property.test.ts',
 ];
 
 function testFiles(dir) {

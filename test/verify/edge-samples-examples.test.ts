@@ -28,10 +28,13 @@ const SEED = 1;
 /** Planning is slow under jest (vm contexts); each example has its own test and timeout. */
 const EXAMPLE_TIMEOUT_MS = 300_000;
 /** The examples whose plans have segments today (README, Performance). */
-const KNOWN_SEGMENTED = ['ease-in-out.yaml', 'spring-scale.yaml', 'gas-wide.yaml'];
+const KNOWN_SEGMENTED = ['ease-in-out.yaml', 'spring-scale.yaml', 'gas-wide.yaml', 'battery-soc.yaml'];
+/** The examples whose plans use the two-level index (TWO-LEVEL INDEX in src/ir/nodes.ts): its edges are where the computed row changes. */
+const KNOWN_TWO_LEVEL = ['battery-soc.yaml'];
 
 
 const segmented = new Set<string>();
+const twoLevel = new Set<string>();
 const dirs: WorkDir[] = [];
 afterAll(() => dirs.forEach((d) => d.remove()));
 
@@ -55,6 +58,8 @@ describe('segment edges are sampled by every check, and pass', () => {
         return;
       }
       segmented.add(file);
+      const index = program.nodes.find((n) => n.kind === 'index');
+      if (index?.kind === 'index' && index.parts.some((p) => p.fine)) twoLevel.add(file);
 
       // Every edge and both neighbours, with the other inputs at the corners of their box and at its centre.
       const perValue = d === 1 ? 1 : 2 ** (d - 1) + 1;
@@ -101,7 +106,8 @@ describe('segment edges are sampled by every check, and pass', () => {
     EXAMPLE_TIMEOUT_MS,
   );
 
-  test('the segmented examples include ease-in-out, spring-scale and gas-wide', () => {
+  test('the segmented examples include ease-in-out, spring-scale, gas-wide and battery-soc; battery-soc has a two-level index', () => {
     expect([...segmented].sort()).toEqual(expect.arrayContaining(KNOWN_SEGMENTED.sort()));
+    expect([...twoLevel].sort()).toEqual(expect.arrayContaining(KNOWN_TWO_LEVEL));
   });
 });

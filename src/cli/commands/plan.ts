@@ -2,12 +2,13 @@
 import { formatBoundUp } from '../../emit/literals/round-up.js';
 import { equationText } from '../../emit/header.js';
 import type { Plan } from '../../plan/plan.js';
-import { RootcastError } from '../../errors.js';
-import { claimsOf, planSpec } from '../pipeline.js';
-import { GENERATOR, jsonOutput, refusalJson } from '../refusal-json.js';
-import { fixedFamilyOf } from '../fixed/input.js';
+import { claimsOf, planFamily } from '../pipeline.js';
+import { loadSpec } from '../../reader/load.js';
+import { GENERATOR, jsonOutput, reportRefusal } from '../refusal-json.js';
+import { isFixedFamily } from '../fixed/input.js';
 import { fixedPlanJson, fixedPlanText } from '../fixed/plan.js';
 import { makeFixedPlan } from '../../plan/fixed/plan-fixed.js';
+import { coarseCellsOf } from '../../plan/candidates.js';
 
 /**
  * `rootcast plan SPEC... [--json]`: each spec on its own; a refused spec
@@ -20,21 +21,19 @@ export function runPlan(o: { specs: readonly string[]; json: boolean }, print: (
   const texts: string[] = [];
   for (const spec of o.specs) {
     try {
-      const fixed = fixedFamilyOf(spec);
-      if (fixed) {
-        const plan = makeFixedPlan(fixed);
+      // Read once: the fixed32 and the float pipelines both take the family.
+      const family = loadSpec(spec);
+      if (isFixedFamily(family)) {
+        const plan = makeFixedPlan(family);
         if (o.json) results.push(fixedPlanJson(plan) as object);
         else texts.push(fixedPlanText(plan));
         continue;
       }
-      const plan = planSpec(spec);
+      const plan = planFamily(family);
       if (o.json) results.push(planJson(plan));
       else texts.push(planText(plan));
     } catch (e) {
-      if (!(e instanceof RootcastError)) throw e;
-      printError(e.toLine());
-      if (o.json) results.push(refusalJson(e, spec));
-      code = Math.max(code, e.exitCode);
+      code = Math.max(code, reportRefusal(e, spec, o.json ? results : null, printError));
     }
   }
   if (o.json) print(jsonOutput(results));
@@ -64,12 +63,13 @@ export function planJson(plan: Plan): { readonly generator: typeof GENERATOR; re
     absoluteBound: c.absoluteBound,
     target: c.target,
     ops: c.ops,
-    segments: { counts: plan.counts, tableBytes: plan.tableBytes },
+    segments: { counts: plan.counts, coarseCells: coarseCellsOf(plan.program), tableBytes: plan.tableBytes },
     cost: { model: plan.costModel, value: plan.cost },
     candidates: plan.candidates.map((k) => ({
       form: k.form,
       degree: k.degree,
       segments: k.counts,
+      coarseCells: k.coarseCells,
       order: k.order,
       terms: k.terms,
       steps: k.steps,
@@ -77,6 +77,7 @@ export function planJson(plan: Plan): { readonly generator: typeof GENERATOR; re
       cost: k.cost,
       tableBytes: k.tableBytes,
       bound: k.bound,
+      plain: k.plain,
       refusal: k.refusal,
       chosen: k.chosen,
     })),
@@ -85,11 +86,13 @@ export function planJson(plan: Plan): { readonly generator: typeof GENERATOR; re
 
 /** The candidates the planner weighed, one row each; the chosen one marked with `*`. */
 export function candidateTable(plan: Plan): string[] {
-  const head = ['', 'form', 'segments', 'order', 'degree', 'terms', 'steps', 'add', 'mul', 'div', 'reads', 'bytes', 'cost', 'bound'];
+  const head = ['', 'form', 'segments', 'index', 'order', 'degree', 'terms', 'steps', 'add', 'mul', 'div', 'reads', 'bytes', 'cost', 'bound'];
   const rows = plan.candidates.map((k) => [
     k.chosen ? '*' : '',
     k.form,
-    k.counts.join('x'),
+    // A bracketed family's plain series (not recentred, one box) says so; without a bracket every plan is plain.
+    k.plain && plan.family.bracket ? 'plain' : k.counts.join('x'),
+    indexText(k.coarseCells, k.counts),
     k.order === null ? '-' : String(k.order),
     k.degree === null ? '-' : String(k.degree),
     k.terms === null ? '-' : String(k.terms),
@@ -105,6 +108,16 @@ export function candidateTable(plan: Plan): string[] {
   const widths = head.map((h, i) => Math.max(h.length, ...rows.map((r) => (i === head.length - 1 ? 0 : r[i]!.length))));
   const fmt = (r: string[]): string => r.map((x, i) => (i === r.length - 1 ? x : x.padEnd(widths[i]!))).join('  ').trimEnd();
   return [fmt(head), ...rows.map(fmt)];
+}
+
+/**
+ * A candidate's segment index: `-` for one box, `equal` for equal segments,
+ * `two-level 8x8` for a two-level index with its coarse cells per input
+ * (`=` for an input with equal segments).
+ */
+function indexText(coarse: readonly (number | null)[] | null, counts?: readonly number[]): string {
+  if (coarse === null) return counts && counts.every((k) => k === 1) ? '-' : 'equal';
+  return `two-level ${coarse.map((c) => (c === null ? '=' : String(c))).join('x')}`;
 }
 
 export function planText(plan: Plan): string {

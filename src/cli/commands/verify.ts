@@ -17,10 +17,11 @@ import { verifyProgram, type VerifyResult } from '../../verify/run.js';
 import { inputBox } from '../../verify/samples.js';
 import { writeFiles } from '../files.js';
 import { startProgress, type ProgressStream } from '../progress.js';
-import { emitInputOf, planSpec } from '../pipeline.js';
-import { jsonOutput, refusalJson } from '../refusal-json.js';
+import { emitInputOf, planFamily } from '../pipeline.js';
+import { loadSpec } from '../../reader/load.js';
+import { jsonOutput, reportRefusal } from '../refusal-json.js';
 import { planJson } from './plan.js';
-import { fixedFamilyOf } from '../fixed/input.js';
+import { isFixedFamily } from '../fixed/input.js';
 import { fixedReportData, fixedVerifyJson, runFixedVerify } from '../fixed/verify.js';
 import type { Plan } from '../../plan/plan.js';
 
@@ -43,16 +44,17 @@ export function runVerify(o: VerifyCommandOptions, print: Print, printError: Pri
   const results: object[] = [];
   for (const spec of o.specs) {
     try {
-      const fixed = fixedFamilyOf(spec);
-      if (fixed) {
-        const run = runFixedVerify(fixed, { target: o.target, samples: o.samples, seed: o.seed });
+      // Read once: the fixed32 and the float pipelines both take the family.
+      const family = loadSpec(spec);
+      if (isFixedFamily(family)) {
+        const run = runFixedVerify(family, { target: o.target, samples: o.samples, seed: o.seed });
         if (o.json) results.push(fixedVerifyJson(run));
         else for (const line of run.result.lines) print(line);
         if (o.report !== undefined) writeFiles(dirname(o.report), [{ path: basename(o.report), text: reportHtml(fixedReportData(run)) }]);
         code = Math.max(code, run.result.pass ? 0 : 1);
         continue;
       }
-      const plan = planSpec(spec);
+      const plan = planFamily(family);
       const result = verifyOne(plan, o);
       if (o.json) {
         results.push(verifyJson(planJson(plan), result));
@@ -63,10 +65,7 @@ export function runVerify(o: VerifyCommandOptions, print: Print, printError: Pri
       if (o.report !== undefined) writeReport(plan, result, o.report);
       code = Math.max(code, result.pass ? 0 : 1);
     } catch (e) {
-      if (!(e instanceof RootcastError)) throw e;
-      printError(e.toLine());
-      if (o.json) results.push(refusalJson(e, spec));
-      code = Math.max(code, e.exitCode);
+      code = Math.max(code, reportRefusal(e, spec, o.json ? results : null, printError));
     }
   }
   if (o.json) print(jsonOutput(results));

@@ -10,7 +10,7 @@ import type { Family } from '../../family/types.js';
 import { fromRaw } from '../../ir/fixed/format.js';
 import { fixedSegmentStarts } from '../../ir/fixed/edges.js';
 import { makeFixedPlan, type FixedPlan } from '../../plan/fixed/plan-fixed.js';
-import { verifyFixedProgram, type FixedVerifyResult } from '../../verify/fixed-run.js';
+import { FIXED_HARNESS_TARGETS, verifyFixedProgram, type FixedVerifyResult } from '../../verify/fixed-run.js';
 import { checkJson, skippedJson, type VerifyJson } from '../../verify/json.js';
 import type { ReportData } from '../../verify/report/html.js';
 import { fixedEmitInputOf } from './input.js';
@@ -30,7 +30,9 @@ export interface FixedVerifyRun {
 export function runFixedVerify(family: Family, o: FixedVerifyOptions): FixedVerifyRun {
   if (o.target !== 'all') refuseTargetForFixed(family, o.target as TargetName);
   const plan = makeFixedPlan(family);
-  const result = verifyFixedProgram(fixedEmitInputOf(plan), { targets: targetsOf(o.target), samples: o.samples, seed: o.seed });
+  // As for float specs, `all` runs the harness targets; the Rust bit runner (a compiler) runs when named.
+  const targets = o.target === 'all' ? FIXED_HARNESS_TARGETS : targetsOf(o.target);
+  const result = verifyFixedProgram(fixedEmitInputOf(plan), { targets, samples: o.samples, seed: o.seed });
   return { plan, result };
 }
 

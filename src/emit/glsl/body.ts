@@ -26,6 +26,7 @@ import { UnknownNodeError, type IndexPart, type Node, type Program } from '../..
 import { glslLiteral, glslOperand } from '../literals/glsl.js';
 import { valueName } from '../names.js';
 import { operandText, resultText, type OperandStyle } from '../operands.js';
+import { componentReads, indexLines, tableLines } from '../segment-print.js';
 
 export type GlslShape = 'float' | 'vec4';
 
@@ -114,32 +115,14 @@ function glslNodeLines(program: Program, node: Node, at: number, vector: readonl
  * gives some int and clamp() still keeps the read inside the table.
  */
 function glslIndexLines(program: Program, parts: readonly IndexPart[], at: number, vector: readonly boolean[], name: string): string[] {
-  const lines: string[] = [];
-  const terms: string[] = [];
-  const four = vector[at] === true;
-  parts.forEach((p, k) => {
-    if (!Number.isInteger(p.count) || p.count < 1 || !Number.isInteger(p.stride) || p.stride < 0) {
-      throw new RangeError(`index part ${k} of node ${at} has count ${p.count} and stride ${p.stride}`);
-    }
-    const s = `rc_s${at}_${k}`;
-    const i = vector[p.t] ? 'ivec4' : 'int';
-    const clamped = `clamp(${i}(roundEven(${glslReference(program, p.t, at)})), 0, ${p.count - 1})`;
-    if (p.fine) {
-      // TWO-LEVEL INDEX (src/ir/nodes.ts): the coarse cell's entry, then the row.
-      const meta = glslMetaName(name, at, k);
-      const cell = `${s}g >> ${p.fine.level}`;
-      lines.push(`${i} ${s}g = ${clamped};`);
-      lines.push(
-        i === 'ivec4'
-          ? `ivec4 ${s}m = ivec4(${['x', 'y', 'z', 'w'].map((c) => `${meta}[${s}g.${c} >> ${p.fine!.level}]`).join(', ')});`
-          : `int ${s}m = ${meta}[${cell}];`,
-      );
-      lines.push(`${i} ${s} = (${s}m >> 5) + ((${s}g & ${(1 << p.fine.level) - 1}) >> (${s}m & 31));`);
-    } else lines.push(`${i} ${s} = ${clamped};`);
-    terms.push(p.stride === 1 ? s : `${s} * ${p.stride}`);
+  return indexLines(parts, at, (p) => vector[p.t] === true, vector[at] === true, {
+    clamped: (p, _s, v, four) => [`${four ? 'ivec4' : 'int'} ${v} = clamp(${four ? 'ivec4' : 'int'}(roundEven(${glslReference(program, p.t, at)})), 0, ${p.count - 1});`],
+    coarse: (m, table, g, level, four) =>
+      four ? `ivec4 ${m} = ivec4(${['x', 'y', 'z', 'w'].map((c) => `${table}[${g}.${c} >> ${level}]`).join(', ')});` : `int ${m} = ${table}[${g} >> ${level}];`,
+    row: (s, mask, four) => `${four ? 'ivec4' : 'int'} ${s} = (${s}m >> 5) + ((${s}g & ${mask}) >> (${s}m & 31));`,
+    cellsName: (a, k) => glslMetaName(name, a, k),
+    sum: (v, terms, four) => `${four ? 'ivec4' : 'int'} ${v} = ${terms.length === 0 ? (four ? 'ivec4(0)' : '0') : terms.join(' + ')};`,
   });
-  lines.push(`${four ? 'ivec4' : 'int'} ${valueName(at)} = ${terms.length === 0 ? (four ? 'ivec4(0)' : '0') : terms.join(' + ')};`);
-  return lines;
 }
 
 /**
@@ -161,7 +144,7 @@ function glslTableLines(name: string, node: Extract<Node, { kind: 'table' }>, at
   const index = valueName(node.index);
   return [
     vector[at]
-      ? `vec4 ${valueName(at)} = vec4(${['x', 'y', 'z', 'w'].map((c) => `${table}[${index}.${c}]`).join(', ')});`
+      ? `vec4 ${valueName(at)} = vec4(${componentReads(table, index)});`
       : `float ${valueName(at)} = ${table}[${index}];`,
   ];
 }
@@ -182,27 +165,16 @@ export function glslTableName(name: string, at: number): string {
  * global constant arrays with an array constructor).
  */
 export function glslTableDefinitions(program: Program, name: string): string[] {
-  const out: string[] = [];
-  program.nodes.forEach((node, at) => {
-    if (node.kind === 'index') {
-      node.parts.forEach((p, k) => {
-        if (!p.fine) return;
-        const m = p.fine.meta;
-        out.push(`const int ${glslMetaName(name, at, k)}[${m.length}] = int[${m.length}](`);
-        for (let i = 0; i < m.length; i += 8) out.push(`    ${m.slice(i, i + 8).join(', ')}${i + 8 < m.length ? ',' : ''}`);
-        out.push(');');
-      });
-      return;
-    }
-    if (node.kind !== 'table') return;
-    const n = node.values.length;
-    if (n < 1) throw new RangeError(`table node ${at} is empty`);
-    const values = node.values.map((v) => glslLiteral(v));
-    out.push(`const float ${glslTableName(name, at)}[${n}] = float[${n}](`);
-    for (let k = 0; k < n; k += 4) out.push(`    ${values.slice(k, k + 4).join(', ')}${k + 4 < n ? ',' : ''}`);
-    out.push(');');
+  return tableLines(program, {
+    blankBefore: false,
+    trailingComma: false,
+    cellsOpen: (t, n) => `const int ${t}[${n}] = int[${n}](`,
+    tableOpen: (t, n) => `const float ${t}[${n}] = float[${n}](`,
+    close: ');',
+    cellsName: (at, k) => glslMetaName(name, at, k),
+    tableName: (at) => glslTableName(name, at),
+    literal: glslLiteral,
   });
-  return out;
 }
 
 const GLSL_STYLE: OperandStyle = { operand: glslOperand, literal: glslLiteral, input: (name) => name };

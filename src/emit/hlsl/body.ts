@@ -24,6 +24,7 @@ import { hlslLiteral, hlslOperand } from '../literals/hlsl.js';
 import { valueName } from '../names.js';
 import { operandText, resultText, type OperandStyle } from '../operands.js';
 import { vectorNodes } from '../glsl/body.js';
+import { componentReads, indexLines, tableLines } from '../segment-print.js';
 
 export type HlslShape = 'float' | 'float4';
 
@@ -49,27 +50,16 @@ export function hlslCellsName(functionName: string, at: number, k: number): stri
 
 /** Every table of the program as a file-scope `static const float` array, in node order, each after a blank line. */
 export function hlslTableDeclarations(program: Program, functionName: string): string[] {
-  const lines: string[] = [];
-  program.nodes.forEach((node, at) => {
-    if (node.kind === 'index') {
-      node.parts.forEach((p, k) => {
-        if (!p.fine) return;
-        const m = p.fine.meta;
-        lines.push('', `static const int ${hlslCellsName(functionName, at, k)}[${m.length}] = {`);
-        for (let i = 0; i < m.length; i += 8) lines.push(`    ${m.slice(i, i + 8).join(', ')}${i + 8 < m.length ? ',' : ''}`);
-        lines.push('};');
-      });
-      return;
-    }
-    if (node.kind !== 'table') return;
-    const n = node.values.length;
-    if (n < 1) throw new RangeError(`table node ${at} is empty`);
-    const values = node.values.map((v) => hlslLiteral(v));
-    lines.push('', `static const float ${hlslTableName(functionName, at)}[${n}] = {`);
-    for (let k = 0; k < n; k += 4) lines.push(`    ${values.slice(k, k + 4).join(', ')}${k + 4 < n ? ',' : ''}`);
-    lines.push('};');
+  return tableLines(program, {
+    blankBefore: true,
+    trailingComma: false,
+    cellsOpen: (t, n) => `static const int ${t}[${n}] = {`,
+    tableOpen: (t, n) => `static const float ${t}[${n}] = {`,
+    close: '};',
+    cellsName: (at, k) => hlslCellsName(functionName, at, k),
+    tableName: (at) => hlslTableName(functionName, at),
+    literal: hlslLiteral,
   });
-  return lines;
 }
 
 function hlslNodeLines(program: Program, functionName: string, node: Node, at: number, vector: readonly boolean[]): string[] {
@@ -101,7 +91,7 @@ function hlslNodeLines(program: Program, functionName: string, node: Node, at: n
       const table = hlslTableName(functionName, at);
       const index = valueName(node.index);
       return vector[at]
-        ? [`float4 ${valueName(at)} = float4(${['x', 'y', 'z', 'w'].map((c) => `${table}[${index}.${c}]`).join(', ')});`]
+        ? [`float4 ${valueName(at)} = float4(${componentReads(table, index)});`]
         : [`float ${valueName(at)} = ${table}[${index}];`];
     }
     default:
@@ -111,35 +101,24 @@ function hlslNodeLines(program: Program, functionName: string, node: Node, at: n
 
 /** The segment number, as the C function computes it (float32 magic constant, integer clamps). */
 function hlslIndexLines(program: Program, parts: readonly IndexPart[], at: number, vector: readonly boolean[], functionName: string): string[] {
-  const lines: string[] = [];
-  const terms: string[] = [];
-  parts.forEach((p, k) => {
-    if (!Number.isInteger(p.count) || p.count < 1 || !Number.isInteger(p.stride) || p.stride < 0) {
-      throw new RangeError(`index part ${k} of node ${at} has count ${p.count} and stride ${p.stride}`);
-    }
-    const f = vector[p.t] ? 'float4' : 'float';
-    const i = vector[p.t] ? 'int4' : 'int';
-    const s = `rc_s${at}_${k}`;
-    const t = operandText(program, p.t, at, HLSL_STYLE);
-    lines.push(`precise ${f} ${s}b = ${t} + ${hlslLiteral(ARITHMETICS.float32.segmentMagic)};`);
-    lines.push(`${i} ${s}r = (${i})(asuint(${s}b) & 0x7fffffu) - 0x400000;`);
-    lines.push(`${i} ${s}p = ${s}r & ~(${s}r >> 31);`);
-    lines.push(`${i} ${s}d = ${s}p - ${p.count - 1};`);
-    if (p.fine) {
-      // TWO-LEVEL INDEX (src/ir/nodes.ts): the coarse cell's entry, then the row.
-      const cells = hlslCellsName(functionName, at, k);
-      lines.push(`${i} ${s}g = ${s}p - (${s}d & ~(${s}d >> 31));`);
-      lines.push(
-        i === 'int4'
-          ? `int4 ${s}m = int4(${['x', 'y', 'z', 'w'].map((c) => `${cells}[${s}g.${c} >> ${p.fine!.level}]`).join(', ')});`
-          : `int ${s}m = ${cells}[${s}g >> ${p.fine.level}];`,
-      );
-      lines.push(`${i} ${s} = (${s}m >> 5) + ((${s}g & ${(1 << p.fine.level) - 1}) >> (${s}m & 31));`);
-    } else lines.push(`${i} ${s} = ${s}p - (${s}d & ~(${s}d >> 31));`);
-    terms.push(p.stride === 1 ? s : `${s} * ${p.stride}`);
+  return indexLines(parts, at, (p) => vector[p.t] === true, vector[at] === true, {
+    clamped: (p, s, v, four) => {
+      const i = four ? 'int4' : 'int';
+      const t = operandText(program, p.t, at, HLSL_STYLE);
+      return [
+        `precise ${four ? 'float4' : 'float'} ${s}b = ${t} + ${hlslLiteral(ARITHMETICS.float32.segmentMagic)};`,
+        `${i} ${s}r = (${i})(asuint(${s}b) & 0x7fffffu) - 0x400000;`,
+        `${i} ${s}p = ${s}r & ~(${s}r >> 31);`,
+        `${i} ${s}d = ${s}p - ${p.count - 1};`,
+        `${i} ${v} = ${s}p - (${s}d & ~(${s}d >> 31));`,
+      ];
+    },
+    coarse: (m, table, g, level, four) =>
+      four ? `int4 ${m} = int4(${['x', 'y', 'z', 'w'].map((c) => `${table}[${g}.${c} >> ${level}]`).join(', ')});` : `int ${m} = ${table}[${g} >> ${level}];`,
+    row: (s, mask, four) => `${four ? 'int4' : 'int'} ${s} = (${s}m >> 5) + ((${s}g & ${mask}) >> (${s}m & 31));`,
+    cellsName: (a, k) => hlslCellsName(functionName, a, k),
+    sum: (v, terms, four) => `${four ? 'int4' : 'int'} ${v} = ${terms.length === 0 ? '0' : terms.join(' + ')};`,
   });
-  lines.push(`${vector[at] ? 'int4' : 'int'} ${valueName(at)} = ${terms.length === 0 ? '0' : terms.join(' + ')};`);
-  return lines;
 }
 
 const HLSL_STYLE: OperandStyle = { operand: hlslOperand, literal: hlslLiteral, input: (name) => name };

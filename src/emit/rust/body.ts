@@ -22,6 +22,7 @@ import { rustLiteral, rustOperand } from '../literals/rust.js';
 import { valueName } from '../names.js';
 import { operandText, resultText, type OperandStyle } from '../operands.js';
 import { readInputs } from '../read-inputs.js';
+import { indexLines, tableLines } from '../segment-print.js';
 
 /** The static's name for node `at`'s table (upper case, as Rust names statics). */
 export function rustTableName(at: number): string {
@@ -47,27 +48,16 @@ export function rustCellsName(at: number, k: number): string {
 /** Every table of the program as a module `static` array, in node order, each after a blank line. */
 export function rustTableDeclarations(program: Program): string[] {
   const type = ARITHMETICS[program.arithmetic].rustType;
-  const lines: string[] = [];
-  program.nodes.forEach((node, at) => {
-    if (node.kind === 'index') {
-      node.parts.forEach((p, k) => {
-        if (!p.fine) return;
-        const m = p.fine.meta;
-        lines.push('', `static ${rustCellsName(at, k)}: [u16; ${m.length}] = [`);
-        for (let i = 0; i < m.length; i += 8) lines.push(`    ${m.slice(i, i + 8).join(', ')},`);
-        lines.push('];');
-      });
-      return;
-    }
-    if (node.kind !== 'table') return;
-    const n = node.values.length;
-    if (n < 1) throw new RangeError(`table node ${at} is empty`);
-    const values = node.values.map((v) => rustLiteral(v, program.arithmetic));
-    lines.push('', `static ${rustTableName(at)}: [${type}; ${n}] = [`);
-    for (let k = 0; k < n; k += 4) lines.push(`    ${values.slice(k, k + 4).join(', ')},`);
-    lines.push('];');
+  return tableLines(program, {
+    blankBefore: true,
+    trailingComma: true,
+    cellsOpen: (t, n) => `static ${t}: [u16; ${n}] = [`,
+    tableOpen: (t, n) => `static ${t}: [${type}; ${n}] = [`,
+    close: '];',
+    cellsName: rustCellsName,
+    tableName: rustTableName,
+    literal: (v) => rustLiteral(v, program.arithmetic),
   });
-  return lines;
 }
 
 function rustNodeLines(program: Program, node: Node, at: number): string[] {
@@ -120,30 +110,23 @@ function rustClampLines(program: Program, node: Extract<Node, { kind: 'clamp' }>
 function rustIndexLines(program: Program, parts: readonly IndexPart[], at: number): string[] {
   const a = ARITHMETICS[program.arithmetic];
   const significand = a.segmentRead === 'significand';
-  const lines: string[] = [];
-  const terms: string[] = [];
-  parts.forEach((p, k) => {
-    if (!Number.isInteger(p.count) || p.count < 1 || !Number.isInteger(p.stride) || p.stride < 0) {
-      throw new RangeError(`index part ${k} of node ${at} has count ${p.count} and stride ${p.stride}`);
-    }
-    const s = `rc_s${at}_${k}`;
-    const t = operandText(program, p.t, at, rustStyle(program));
-    const magic = rustLiteral(a.segmentMagic, program.arithmetic);
-    lines.push(`let ${s}b: ${a.rustBitsType} = (${t} + ${magic}).to_bits();`);
-    lines.push(significand ? `let ${s}r: i32 = (${s}b & 0x7f_ffff) as i32 - 0x40_0000;` : `let ${s}r: i32 = ${s}b as u32 as i32;`);
-    lines.push(`let ${s}p: i32 = ${s}r & !(${s}r >> 31);`);
-    lines.push(`let ${s}d: i32 = ${s}p - ${p.count - 1};`);
-    if (p.fine) {
-      // TWO-LEVEL INDEX (src/ir/nodes.ts): the coarse cell's entry, then the row.
-      lines.push(`let ${s}g: i32 = ${s}p - (${s}d & !(${s}d >> 31));`);
-      lines.push(`let ${s}m: i32 = ${rustCellsName(at, k)}[(${s}g >> ${p.fine.level}) as usize] as i32;`);
-      lines.push(`let ${s}: i32 = (${s}m >> 5) + ((${s}g & ${(1 << p.fine.level) - 1}) >> (${s}m & 31));`);
-    } else lines.push(`let ${s}: i32 = ${s}p - (${s}d & !(${s}d >> 31));`);
-    terms.push(p.stride === 1 ? s : `${s} * ${p.stride}`);
+  return indexLines(parts, at, () => false, false, {
+    clamped: (p, s, v) => {
+      const t = operandText(program, p.t, at, rustStyle(program));
+      const magic = rustLiteral(a.segmentMagic, program.arithmetic);
+      return [
+        `let ${s}b: ${a.rustBitsType} = (${t} + ${magic}).to_bits();`,
+        significand ? `let ${s}r: i32 = (${s}b & 0x7f_ffff) as i32 - 0x40_0000;` : `let ${s}r: i32 = ${s}b as u32 as i32;`,
+        `let ${s}p: i32 = ${s}r & !(${s}r >> 31);`,
+        `let ${s}d: i32 = ${s}p - ${p.count - 1};`,
+        `let ${v}: i32 = ${s}p - (${s}d & !(${s}d >> 31));`,
+      ];
+    },
+    coarse: (m, table, g, level) => `let ${m}: i32 = ${table}[(${g} >> ${level}) as usize] as i32;`,
+    row: (s, mask) => `let ${s}: i32 = (${s}m >> 5) + ((${s}g & ${mask}) >> (${s}m & 31));`,
+    cellsName: rustCellsName,
+    sum: (v, terms) => `let ${v}: usize = ${terms.length === 0 ? '0' : terms.length === 1 ? terms[0]! : `(${terms.join(' + ')})`} as usize;`,
   });
-  const sum = terms.length === 0 ? '0' : terms.length === 1 ? terms[0]! : `(${terms.join(' + ')})`;
-  lines.push(`let ${valueName(at)}: usize = ${sum} as usize;`);
-  return lines;
 }
 
 const rustStyle = (program: Program): OperandStyle => ({

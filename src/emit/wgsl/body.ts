@@ -24,6 +24,7 @@ import { wgslLiteral, wgslOperand } from '../literals/wgsl.js';
 import { valueName } from '../names.js';
 import { operandText, resultText, type OperandStyle } from '../operands.js';
 import { vectorNodes } from '../glsl/body.js';
+import { componentReads, indexLines, tableLines } from '../segment-print.js';
 
 export type WgslShape = 'f32' | 'vec4';
 
@@ -49,27 +50,16 @@ export function wgslCellsName(functionName: string, at: number, k: number): stri
 
 /** Every table of the program as a module-scope `const` array, in node order, each after a blank line. */
 export function wgslTableDeclarations(program: Program, functionName: string): string[] {
-  const lines: string[] = [];
-  program.nodes.forEach((node, at) => {
-    if (node.kind === 'index') {
-      node.parts.forEach((p, k) => {
-        if (!p.fine) return;
-        const m = p.fine.meta;
-        lines.push('', `const ${wgslCellsName(functionName, at, k)} = array<i32, ${m.length}>(`);
-        for (let i = 0; i < m.length; i += 8) lines.push(`    ${m.slice(i, i + 8).join(', ')}${i + 8 < m.length ? ',' : ''}`);
-        lines.push(');');
-      });
-      return;
-    }
-    if (node.kind !== 'table') return;
-    const n = node.values.length;
-    if (n < 1) throw new RangeError(`table node ${at} is empty`);
-    const values = node.values.map((v) => wgslLiteral(v));
-    lines.push('', `const ${wgslTableName(functionName, at)} = array<f32, ${n}>(`);
-    for (let k = 0; k < n; k += 4) lines.push(`    ${values.slice(k, k + 4).join(', ')}${k + 4 < n ? ',' : ''}`);
-    lines.push(');');
+  return tableLines(program, {
+    blankBefore: true,
+    trailingComma: false,
+    cellsOpen: (t, n) => `const ${t} = array<i32, ${n}>(`,
+    tableOpen: (t, n) => `const ${t} = array<f32, ${n}>(`,
+    close: ');',
+    cellsName: (at, k) => wgslCellsName(functionName, at, k),
+    tableName: (at) => wgslTableName(functionName, at),
+    literal: wgslLiteral,
   });
-  return lines;
 }
 
 /** The lines for one node: none for constants and inputs, which print inline. */
@@ -102,7 +92,7 @@ function wgslNodeLines(program: Program, functionName: string, node: Node, at: n
       const table = wgslTableName(functionName, at);
       const index = valueName(node.index);
       return vector[at]
-        ? [`let ${valueName(at)}: vec4<f32> = vec4<f32>(${['x', 'y', 'z', 'w'].map((c) => `${table}[${index}.${c}]`).join(', ')});`]
+        ? [`let ${valueName(at)}: vec4<f32> = vec4<f32>(${componentReads(table, index)});`]
         : [`let ${valueName(at)}: f32 = ${table}[${index}];`];
     }
     default:
@@ -110,41 +100,28 @@ function wgslNodeLines(program: Program, functionName: string, node: Node, at: n
   }
 }
 
-/** The segment number: per part clamp(i32(round(t)), 0, count - 1), then the strided sum. */
+/** The segment number: per part clamp(i32(round(t)), 0, count - 1) (WGSL shifts take a u32 amount), then the strided sum. */
 function wgslIndexLines(program: Program, parts: readonly IndexPart[], at: number, vector: readonly boolean[], functionName: string): string[] {
-  const lines: string[] = [];
-  const terms: string[] = [];
-  const four = vector[at] === true;
-  parts.forEach((p, k) => {
-    if (!Number.isInteger(p.count) || p.count < 1 || !Number.isInteger(p.stride) || p.stride < 0) {
-      throw new RangeError(`index part ${k} of node ${at} has count ${p.count} and stride ${p.stride}`);
-    }
-    const s = `rc_s${at}_${k}`;
-    const t = operandText(program, p.t, at, WGSL_STYLE);
-    const g = p.fine ? `${s}g` : s;
-    lines.push(
-      vector[p.t]
-        ? `let ${g}: vec4<i32> = clamp(vec4<i32>(round(${t})), vec4<i32>(0), vec4<i32>(${p.count - 1}));`
-        : `let ${g}: i32 = clamp(i32(round(${t})), 0, ${p.count - 1});`,
-    );
-    if (p.fine) {
-      // TWO-LEVEL INDEX (src/ir/nodes.ts): the coarse cell's entry, then the row (WGSL shifts take a u32 amount).
-      const cells = wgslCellsName(functionName, at, k);
-      const L = p.fine.level;
-      const mask = (1 << L) - 1;
-      if (vector[p.t]) {
-        lines.push(`let ${s}m: vec4<i32> = vec4<i32>(${['x', 'y', 'z', 'w'].map((c) => `${cells}[${g}.${c} >> ${L}u]`).join(', ')});`);
-        lines.push(`let ${s}: vec4<i32> = (${s}m >> vec4<u32>(5u)) + ((${g} & vec4<i32>(${mask})) >> vec4<u32>(${s}m & vec4<i32>(31)));`);
-      } else {
-        lines.push(`let ${s}m: i32 = ${cells}[${g} >> ${L}u];`);
-        lines.push(`let ${s}: i32 = (${s}m >> 5u) + ((${g} & ${mask}) >> u32(${s}m & 31));`);
-      }
-    }
-    terms.push(p.stride === 1 ? s : `${s} * ${p.stride}`);
+  return indexLines(parts, at, (p) => vector[p.t] === true, vector[at] === true, {
+    clamped: (p, _s, v, four) => {
+      const t = operandText(program, p.t, at, WGSL_STYLE);
+      return [
+        four
+          ? `let ${v}: vec4<i32> = clamp(vec4<i32>(round(${t})), vec4<i32>(0), vec4<i32>(${p.count - 1}));`
+          : `let ${v}: i32 = clamp(i32(round(${t})), 0, ${p.count - 1});`,
+      ];
+    },
+    coarse: (m, table, g, level, four) =>
+      four
+        ? `let ${m}: vec4<i32> = vec4<i32>(${['x', 'y', 'z', 'w'].map((c) => `${table}[${g}.${c} >> ${level}u]`).join(', ')});`
+        : `let ${m}: i32 = ${table}[${g} >> ${level}u];`,
+    row: (s, mask, four) =>
+      four
+        ? `let ${s}: vec4<i32> = (${s}m >> vec4<u32>(5u)) + ((${s}g & vec4<i32>(${mask})) >> vec4<u32>(${s}m & vec4<i32>(31)));`
+        : `let ${s}: i32 = (${s}m >> 5u) + ((${s}g & ${mask}) >> u32(${s}m & 31));`,
+    cellsName: (a, k) => wgslCellsName(functionName, a, k),
+    sum: (v, terms, four) => `let ${v}: ${four ? 'vec4<i32>' : 'i32'} = ${terms.length === 0 ? (four ? 'vec4<i32>(0)' : '0') : terms.join(' + ')};`,
   });
-  const zero = four ? 'vec4<i32>(0)' : '0';
-  lines.push(`let ${valueName(at)}: ${four ? 'vec4<i32>' : 'i32'} = ${terms.length === 0 ? zero : terms.join(' + ')};`);
-  return lines;
 }
 
 const WGSL_STYLE: OperandStyle = { operand: wgslOperand, literal: wgslLiteral, input: (name) => name };

@@ -16,6 +16,8 @@
  *   constant operand       VLDR.F32 (single)      2 (once per distinct constant)
  *   table read             ADD + VLDR.F32         1 + 2
  *   segment index, a part  VLDR + VADD + VMOV     2 + 1 + 1, then the IR's integer ops at 1 each
+ *   two-level part, its    ADD + LDRH             1 + 2 (its shifts and masks are among the integer ops)
+ *   coarse-cell read
  *   a table's base address LDR (literal)          2 (once per function)
  *   clamped input          2 x (VLDR + VCMPE      2 x (2 + 1 + 1) + 1 + 1, then the IR's integer ops at 1 each
  *                          + VMRS), VMOV to the
@@ -36,7 +38,7 @@
 import { ARITHMETICS } from '../../family/arithmetic.js';
 import { countOps } from '../count.js';
 import { UnknownNodeError, type Node, type Program } from '../nodes.js';
-import { CORTEX_M4F_CYCLES as M4F, CORTEX_M4F_TABLE_READ_CYCLES } from '../timings.js';
+import { CORTEX_M4F_COARSE_READ_CYCLES, CORTEX_M4F_CYCLES as M4F, CORTEX_M4F_TABLE_READ_CYCLES } from '../timings.js';
 
 /** Cycles per arithmetic IR node kind (see the table above); constants are charged per use in cortexM4fCycles. */
 const CYCLES: Readonly<Record<string, number>> = {
@@ -58,7 +60,10 @@ const VLDR_CYCLES = M4F.vldr;
  * once per function). The segment index costs, per part, the VLDR of the
  * rounding constant, its VADD and a VMOV to a core register, then the integer
  * operations the IR counts (src/ir/count.ts intOps), 1 cycle each (integer
- * data processing, TRM section 3.3).
+ * data processing, TRM section 3.3). A two-level part also reads its
+ * coarse-cell table: an ADD for the address and an LDRH (integer table; its
+ * base address shares the float tables' literal-pool load, as gcc's section
+ * anchors give on ARM).
  */
 const TABLE_READ_CYCLES = CORTEX_M4F_TABLE_READ_CYCLES;
 const TABLE_BASE_CYCLES = M4F.ldrLiteral;
@@ -67,7 +72,7 @@ const CLAMP_CYCLES = 2 * (VLDR_CYCLES + M4F.compare + M4F.vmrs) + 2 * M4F.vmovTo
 
 /** Cycles of one node, integer operations of the segment index excepted (charged from countOps). */
 function nodeCycles(n: Node): number {
-  if (n.kind === 'index') return n.parts.length * INDEX_CYCLES_PER_PART;
+  if (n.kind === 'index') return n.parts.length * INDEX_CYCLES_PER_PART + n.parts.filter((p) => p.fine).length * CORTEX_M4F_COARSE_READ_CYCLES;
   if (n.kind === 'table') return TABLE_READ_CYCLES;
   if (n.kind === 'clamp') return CLAMP_CYCLES;
   const c = CYCLES[n.kind];
@@ -86,6 +91,8 @@ export type CycleEstimate =
       /** Table reads and segment index nodes (zero for unsegmented programs). */
       readonly tableReads: number;
       readonly indexes: number;
+      /** Reads of two-level coarse-cell tables (one per two-level index part). */
+      readonly coarseReads: number;
     }
   | { readonly kind: 'software-double' };
 
@@ -104,15 +111,17 @@ export function cortexM4fCycles(program: Program): CycleEstimate {
   if (program.nodes[program.result]?.kind === 'const') usedConstants.add(program.result);
   const tableReads = program.nodes.filter((n) => n.kind === 'table').length;
   const indexes = program.nodes.filter((n) => n.kind === 'index').length;
+  const coarseReads = program.nodes.reduce((k, n) => k + (n.kind === 'index' ? n.parts.filter((p) => p.fine).length : 0), 0);
   cycles += usedConstants.size * VLDR_CYCLES + countOps(program).intOps * M4F.intOp + (tableReads > 0 ? TABLE_BASE_CYCLES : 0);
-  return { kind: 'estimated', cycles, fpuOps, constantLoads: usedConstants.size, tableReads, indexes };
+  return { kind: 'estimated', cycles, fpuOps, constantLoads: usedConstants.size, tableReads, indexes, coarseReads };
 }
 
 /** The header line, e.g. `cortex-m4f estimate: ~40 cycles (18 FPU ops + 11 constant loads; ...)`. */
 export function cortexM4fLine(program: Program): string {
   const e = cortexM4fCycles(program);
   if (e.kind === 'software-double') return 'cortex-m4f estimate: software double: not estimated (FPv4-SP has no double unit)';
-  const segments = e.tableReads + e.indexes === 0 ? '' : ` + ${e.tableReads} table reads + ${e.indexes} segment ${e.indexes === 1 ? 'index' : 'indexes'}`;
+  const coarse = e.coarseReads === 0 ? '' : ` (${e.coarseReads} coarse-cell ${e.coarseReads === 1 ? 'read' : 'reads'})`;
+  const segments = e.tableReads + e.indexes === 0 ? '' : ` + ${e.tableReads} table reads + ${e.indexes} segment ${e.indexes === 1 ? 'index' : 'indexes'}${coarse}`;
   const n = program.nodes.filter((x) => x.kind === 'clamp').length;
   const clamps = n === 0 ? '' : ` + ${n} clamped ${n === 1 ? 'input' : 'inputs'}`;
   return `cortex-m4f estimate: ~${e.cycles} cycles (${e.fpuOps} FPU ops + ${e.constantLoads} constant loads${segments}${clamps}; Cortex-M4 TRM FPU timings; README, "Performance")`;

@@ -50,5 +50,5 @@ export function gpuCost(program: Program): GpuEstimate {
 export function gpuLine(program: Program): string {
   const e = gpuCost(program);
   const segments = e.tableReads === 0 ? '' : ` + ${e.tableReads} table reads + ${e.indexParts} index ${e.indexParts === 1 ? 'part' : 'parts'}`;
-  return `gpu estimate: ~${e.units} issue units of one f32 add (${e.fpOps} FP ops${segments}; CUDA guide throughput table, see src/ir/cost/gpu.ts)`;
+  return `gpu estimate: ~${e.units} issue units of one f32 add (${e.fpOps} FP ops${segments}; CUDA guide throughput table; README, "WGSL, HLSL and Rust")`;
 }

@@ -16,6 +16,7 @@ import type { EmittedFile } from '../../emit/types.js';
 import { renderTemplate } from '../../emit/templates.js';
 import type { Program } from '../../ir/nodes.js';
 import { bitsOf } from '../bits.js';
+import { ARITHMETICS } from '../../family/arithmetic.js';
 
 /** rustc flags: optimised, edition 2021 (TOOLCHAIN.md, "HLSL and Rust"). */
 export const RUSTC_FLAGS = ['-O', '--edition', '2021'] as const;
@@ -41,15 +42,15 @@ export function runRustBits(file: EmittedFile, program: Program, name: string, r
     writeFileSync(join(dir, 'lib.rs'), `#![no_std]\npub mod ${module};\n`);
     const lib = spawnSync(rustc, [...RUSTC_FLAGS, '--crate-type=lib', '-D', 'warnings', '-o', join(dir, 'libcheck.rlib'), join(dir, 'lib.rs')], { encoding: 'utf8' });
     if (lib.status !== 0) return { bits: null, problem: `the #![no_std] library build failed: ${firstLines(lib.stderr)}` };
-    const f32 = program.arithmetic === 'float32';
+    const facts = ARITHMETICS[program.arithmetic];
     const driver = renderTemplate('rust/bits-driver.rs.hbs', {
       modulePath: join(dir, file.path),
-      word: f32 ? 'u32' : 'u64',
-      type: f32 ? 'f32' : 'f64',
-      digits: f32 ? 8 : 16,
+      word: facts.rustBitsType,
+      type: facts.rustType,
+      digits: 2 * facts.bytes,
       inputCount: program.inputs.length,
       name,
-      arguments: program.inputs.map((_, i) => `${f32 ? 'f32' : 'f64'}::from_bits(w[${i}])`).join(', '),
+      arguments: program.inputs.map((_, i) => `${facts.rustType}::from_bits(w[${i}])`).join(', '),
     });
     writeFileSync(join(dir, 'driver.rs'), driver);
     const exe = join(dir, 'driver');

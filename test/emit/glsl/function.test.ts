@@ -43,7 +43,9 @@ describe('glslFunction', () => {
       expect(text).toContain(line === '' ? ' *\n' : ` * ${line}\n`);
     }
     expect(text).toMatch(/ \* operations: \d+ add, \d+ mul, \d+ div, \d+ table reads\n/);
-    expect(text).not.toContain('cortex-m4f');
+    // ... and one line naming the cost model that ranked the plan (issue 14): the float32 default, a CPU model, with no figure.
+    expect(text).not.toMatch(/estimate: ~|cycles/);
+    expect(text.match(/^ \* cost model: .*$/gm)).toEqual([' * cost model: the plan was ranked by cortex-m4f, a CPU model (no GPU figure; plan.cost_model: gpu ranks for GPUs)']);
     expect(text).toContain('IEEE 754 binary32');
     expect(text).toContain('flushes subnormal values to zero');
     expect(text).toMatch(/^[\x09\x0a\x20-\x7e]*$/);

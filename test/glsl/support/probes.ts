@@ -5,6 +5,10 @@
  *   - 'part':  one part's clamped segment number `rc_s<node>_<k>`, the
  *              printer's `clamp(int(roundEven(t)), 0, count - 1)`;
  *   - 'index': the combined segment number `v<node>` the tables are read at;
+ *   - 'coarse': for a part with a two-level index (TWO-LEVEL INDEX in
+ *              src/ir/nodes.ts), the coarse cell its coarse-cell table is
+ *              read at, `rc_s<node>_<k>g >> level` (the printer's clamped
+ *              fine-grid position, shifted as the printed read shifts it);
  *   - 'table': the value a table read returns, with the table's entries
  *              replaced by their own positions 0, 1, ..., n - 1, so the value
  *              read is the position read.
@@ -19,10 +23,10 @@ import { valueName } from '../../../src/emit/names.js';
 
 export interface Probe {
   readonly label: string;
-  readonly kind: 'part' | 'index' | 'table';
+  readonly kind: 'part' | 'coarse' | 'index' | 'table';
   /** The IR node probed (the index node for 'part' and 'index', the table node for 'table'). */
   readonly node: number;
-  /** 'part' only: which part, and the part itself. */
+  /** 'part' and 'coarse' only: which part, and the part itself. */
   readonly part?: number;
   readonly indexPart?: IndexPart;
   /** 'table' only: the index node the table is read at. */
@@ -40,7 +44,10 @@ export function snippetProbes(snippet: string, name: string, program: Program): 
   const probes: Omit<Probe, 'fn' | 'snippet'>[] = [];
   program.nodes.forEach((n, i) => {
     if (n.kind === 'index') {
-      n.parts.forEach((p, k) => probes.push({ label: `segment part ${k} (node ${i})`, kind: 'part', node: i, part: k, indexPart: p, count: partRows(p) }));
+      n.parts.forEach((p, k) => {
+        probes.push({ label: `segment part ${k} (node ${i})`, kind: 'part', node: i, part: k, indexPart: p, count: partRows(p) });
+        if (p.fine) probes.push({ label: `coarse cell of part ${k} (node ${i})`, kind: 'coarse', node: i, part: k, indexPart: p, count: p.fine.meta.length });
+      });
       const total = n.parts.reduce((s, p) => s + (partRows(p) - 1) * p.stride, 0) + 1;
       probes.push({ label: `segment number (node ${i})`, kind: 'index', node: i, count: total });
     }
@@ -63,7 +70,8 @@ function probeSnippet(snippet: string, name: string, fn: string, p: Omit<Probe, 
   let scalar = text.slice(0, split).replace(`\nfloat ${name}(`, `\nfloat ${fn}(`);
   let vector = text.slice(split).replace(`\nvec4 ${name}(`, `\nvec4 ${fn}(`);
   // The printer's names: `rc_s<node>_<part>` for a part, `v<node>` for the index and a table read.
-  const value = p.kind === 'part' ? `rc_s${p.node}_${p.part!}` : valueName(p.node);
+  const value = p.kind === 'part' ? `rc_s${p.node}_${p.part!}` : p.kind === 'coarse' ? `rc_s${p.node}_${p.part!}g` : valueName(p.node);
+  const read = p.kind === 'coarse' ? `${value} >> ${p.indexPart!.fine!.level}` : value;
   const declared = new RegExp(`\\b(int|ivec4|float|vec4) ${value} = `);
   for (const body of [scalar, vector]) if (!declared.test(body)) throw new Error(`the snippet computes no ${value} (the printer's names changed?)`);
   if (p.kind === 'table') {
@@ -76,8 +84,8 @@ function probeSnippet(snippet: string, name: string, fn: string, p: Omit<Probe, 
   }
   const ret = /^( +)return [^\n]*;$/m;
   if (!ret.test(scalar) || !ret.test(vector)) throw new Error('no return line in a function of the snippet');
-  scalar = scalar.replace(ret, `$1return float(${value});`);
-  vector = vector.replace(ret, `$1return vec4(${value});`);
+  scalar = scalar.replace(ret, `$1return float(${read});`);
+  vector = vector.replace(ret, `$1return vec4(${read});`);
   text = scalar + vector;
   return text;
 }
