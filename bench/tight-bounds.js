@@ -48,7 +48,7 @@ if (process.argv.includes('--one')) {
     const ops = plan.ops;
     out = { spec, outcome: 'planned', planS, bound: s.bound, measured: s.worstError, target: s.targetAccuracy, ops: ops.add + ops.mul + ops.div, form: plan.form, order: plan.order, steps: plan.steps, planCpuS };
   } catch (e) {
-    out = { spec, outcome: e?.constructor?.name === 'RootcastError' ? 'refused' : 'error', planS: Number(process.hrtime.bigint() - t0) / 1e9, message: String(e?.message ?? e).split('\n')[0] };
+    out = { spec, outcome: e?.name === 'RootcastError' ? 'refused' : 'error', planS: Number(process.hrtime.bigint() - t0) / 1e9, message: String(e?.message ?? e).split('\n')[0] };
   }
   process.stdout.write(JSON.stringify(out) + '\n');
   process.exit(0);

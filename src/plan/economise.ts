@@ -34,14 +34,18 @@ export interface ChebyshevForm {
   readonly cheb: readonly (readonly Rational[])[];
 }
 
-export function chebyshevForm(family: Family, c: Collapsed, boxes: readonly Cell[]): ChebyshevForm {
+/** Null when the input's scale 1 / half-width is beyond the arithmetic's range (a tiny or subnormal range): no such form. */
+export function chebyshevForm(family: Family, c: Collapsed, boxes: readonly Cell[]): ChebyshevForm | null {
   const S = c.inR.length;
   const mid: Rational[] = [];
   const cheb: Rational[][] = [];
   const rho: Rational[] = [];
   // One scale for every segment: half the width of a segment's analysed box (the widest).
   const half = Math.max(...boxes.map((b) => (b[c.input]!.hi - b[c.input]!.lo) / 2));
-  const invHalf = Rational.fromNumber(roundTo(Rational.ONE.div(Rational.fromNumber(half)), family.arithmetic));
+  if (!(half > 0)) return null;
+  const scale = roundTo(Rational.ONE.div(Rational.fromNumber(half)), family.arithmetic);
+  if (!Number.isFinite(scale)) return null;
+  const invHalf = Rational.fromNumber(scale);
   for (let s = 0; s < S; s++) {
     const { lo, hi } = boxes[s]![c.input]!;
     const m = Rational.fromNumber(roundTo(Rational.fromNumber(lo).add(Rational.fromNumber(hi)).mul(Rational.of(1n, 2n)), family.arithmetic));

@@ -17,7 +17,7 @@ import { FoundPlans, type FormContext } from './forms/context.js';
 import { FORMS } from './forms/index.js';
 import { locate } from './locate.js';
 import { tableBytesOf } from './plan-of.js';
-import { refuseBadCells } from './refusals.js';
+import { refuseBadCells, refuseSteps, refuseTable } from './refusals.js';
 import { chooseRoot, plainRoot, pointText, rootAt, type RootChoice } from './root-choice.js';
 import { segmentLayout, type SegmentLayout } from './segments.js';
 import { analysisProgram, CoefficientError, ZeroSlopeError, type AnalysisProgram, type Expansion } from './series-program.js';
@@ -90,9 +90,10 @@ function planSegmentsInner(family: Family, box: Cell, layout: SegmentLayout, tho
   const stepsKnob = family.plan.newtonSteps;
   const eligible = found.all.filter((f) => stepsKnob === 'auto' || f.steps === stepsKnob);
   if (eligible.length === 0) {
-    // The series' own refusal says most; a fixed step count that no plan meets says so.
+    // The series' own refusal says most; a fixed step count that no plan meets, where another count does, says so.
+    if (found.all.length > 0 && stepsKnob !== 'auto') refuseSteps(family, stepsKnob);
     throw refusal ?? new RootcastError(
-      `no plan with ${stepsKnob} Newton step${stepsKnob === 1 ? '' : 's'} meets the target for these segments; set plan.newton_steps: auto`,
+      `no plan with ${stepsKnob} Newton step${stepsKnob === 1 ? '' : 's'} meets the target for these segments; loosen the accuracy`,
       locate(family, 'plan.newton_steps'),
     );
   }
@@ -141,12 +142,7 @@ function prefixOf(family: Family, expansion: Expansion, layout: SegmentLayout): 
 /** A program's table bytes, or the refusal when they exceed plan.max_table_bytes. */
 function checkTable(family: Family, counts: readonly number[], program: Program): number {
   const tableBytes = tableBytesOf(program);
-  if (tableBytes > family.plan.maxTableBytes) {
-    throw new RootcastError(
-      `the ${counts.join(' x ')} segment tables need ${tableBytes} bytes, more than plan.max_table_bytes ${family.plan.maxTableBytes}; raise it or use fewer segments`,
-      locate(family, family.positions['plan.max_table_bytes'] ? 'plan.max_table_bytes' : 'plan.segments'),
-    );
-  }
+  if (tableBytes > family.plan.maxTableBytes) refuseTable(family, counts, tableBytes);
   return tableBytes;
 }
 

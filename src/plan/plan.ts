@@ -18,8 +18,8 @@ import { planSegments } from './plan-segments.js';
 import { plainTrial, type PlainTrial } from './plain-series.js';
 import { planWithResult } from './result-stage.js';
 import { frugalChoice, searchSegments } from './segment-search.js';
-import { refuseWorkLimit } from './refusals.js';
-import { TABLE_FIX } from './tuning.js';
+import { QuotedFixRefusal, refuseWorkLimit } from './refusals.js';
+import { QUOTED_FIX, TABLE_FIX, WORK } from './tuning.js';
 import type { Plan } from './types.js';
 import { startWork, WorkLimitError, type WorkObserver } from './work.js';
 
@@ -38,8 +38,38 @@ export function makePlan(family: Family, options: PlanOptions = {}): Plan {
     return applyOutsideBox(planWithResult(family, planWithinLimit));
   } catch (e) {
     if (e instanceof WorkLimitError) refuseWorkLimit(family);
+    // A result spec plans its root to a budget of its own choosing: a quote would name that budget, not the spec's target.
+    if (e instanceof QuotedFixRefusal && !family.result) throw confirmedFix(family, e, options);
     throw e;
   }
+}
+
+/**
+ * A refusal that quotes a fix stands only if the fix works: the family with
+ * it applied is planned as the user's next run would plan it (a fresh work
+ * meter, so the same computation). A rounding floor can move with the target
+ * (the segment search takes another path): when the check meets a looser
+ * floor, that one is checked in turn, for QUOTED_FIX.rounds checks in all. When no
+ * quote plans, the refusal is shown without one. The confirming plan is
+ * thrown away: a quote costs its refusal one more planning time per round.
+ */
+function confirmedFix(family: Family, refusal: QuotedFixRefusal, options: PlanOptions): RootcastError {
+  let quote = refusal;
+  for (let round = 0; round < QUOTED_FIX.rounds; round++) {
+    startWork(options.onWork ?? null, WORK.limit * QUOTED_FIX.workShare);
+    try {
+      applyOutsideBox(planWithinLimit(quote.apply(family)));
+      return quote;
+    } catch (e) {
+      if (e instanceof QuotedFixRefusal && e.kind === 'floor' && quote.kind === 'floor' && e.best > quote.best) {
+        quote = e.reword(family);
+        continue;
+      }
+      if (e instanceof WorkLimitError || e instanceof RootcastError) break;
+      throw e;
+    }
+  }
+  return refusal.unquoted;
 }
 
 function planWithinLimit(family: Family): Plan {
@@ -103,7 +133,7 @@ function refuseWithTableFix(family: Family, box: Cell, fixed: readonly (number |
   }
   if (bytes === 0) return;
   throw new RootcastError(
-    `no plan fits plan.max_table_bytes ${family.plan.maxTableBytes}: one box is refused (${refusal.message.split(';')[0]}), and segment tables need ${bytes} bytes; set plan.max_table_bytes: ${bytes}`,
+    `no plan fits plan.max_table_bytes ${family.plan.maxTableBytes}: the plans within it are refused (${refusal.message.split(';')[0]}), and segment tables need ${bytes} bytes; set plan.max_table_bytes: ${bytes}`,
     family.positions['plan.max_table_bytes'] ? locate(family, 'plan.max_table_bytes') : { ...locate(family, 'plan'), field: 'plan.max_table_bytes' },
   );
 }

@@ -1,5 +1,5 @@
 /** The planner's one-line refusals (exit code 2), each saying what to change. */
-import { RootcastError } from '../errors.js';
+import { RootcastError, type SourceLocation } from '../errors.js';
 import { criticalT } from '../series/hyper-catalan.js';
 import { printExpr } from '../family/expr-print.js';
 import { showText } from '../family/show.js';
@@ -10,6 +10,9 @@ import { poleOver, type Division } from './coefficient-poles.js';
 import { LIMITS } from './tuning.js';
 import { locate } from './locate.js';
 import { ARITHMETICS } from '../family/arithmetic.js';
+import { evalExprExact } from '../family/expr-eval.js';
+import { SpecNumber } from '../family/spec-number.js';
+import { Rational } from '../math/rational.js';
 
 export function refuseBadCells(family: Family, cells: readonly CellFacts[], relative: boolean): void {
   const noSeries = cells.filter((c) => c.state.kind === 'unbounded' || c.state.kind === 'slope-vanishes');
@@ -52,12 +55,40 @@ export function refuseBadCells(family: Family, cells: readonly CellFacts[], rela
   if (relative) {
     const zero = cells.filter((c) => !(c.rootMin > 0));
     if (zero.length > 0) {
+      const what = rootIsZeroIn(family, zero)
+        ? 'the root can be zero'
+        : 'the certified enclosure of the root reaches zero (the root itself is not shown to be zero there)';
       throw new RootcastError(
-        `the root can be zero for ${region(family, zero)}, so a relative accuracy cannot be certified there; use accuracy.absolute or narrow the input ranges`,
+        `${what} for ${region(family, zero)}, so a relative accuracy cannot be certified there; use accuracy.absolute or narrow the input ranges`,
         locate(family, 'accuracy.relative'),
       );
     }
   }
+}
+
+/**
+ * True when the root is exactly zero at some input of `cells`: x = 0 solves
+ * P = 0 where c0 = 0, which holds at a corner where c0 is exactly zero or, by
+ * continuity, inside a cell whose corners give c0 both signs (a cell with a
+ * bound has no pole). That root is the one followed when there is no bracket
+ * (the series root is -(c0/c1) a, zero with c0) or the bracket holds zero.
+ */
+function rootIsZeroIn(family: Family, cells: readonly CellFacts[]): boolean {
+  const c0 = family.coefficients[0];
+  if (!c0) return true;
+  if (family.bracket && !(family.bracket[0].value.sign() <= 0 && family.bracket[1].value.sign() >= 0)) return false;
+  return cells.some((c) => {
+    const signs = new Set<number>();
+    for (let mask = 0; mask < 1 << c.cell.length; mask++) {
+      const corner = c.cell.map((iv, i) => Rational.fromNumber(mask & (1 << i) ? iv.hi : iv.lo));
+      try {
+        signs.add(evalExprExact(c0, corner, family.constants).sign());
+      } catch (e) {
+        if (!(e instanceof RangeError)) throw e;
+      }
+    }
+    return signs.has(0) || (signs.has(1) && signs.has(-1));
+  });
 }
 
 /**
@@ -97,11 +128,88 @@ function region(family: Family, cells: readonly CellFacts[]): string {
   return describeCell(family, hull);
 }
 
-export function refuseFloor(family: Family, total: number, rounding: number): never {
+/**
+ * A refusal that quotes a fix (a target, a limit): `apply` edits the family the
+ * way the user would, and makePlan (src/plan/plan.ts) plans that family before
+ * the refusal is shown, so a quoted fix is one that works. When it does not,
+ * `unquoted` is shown instead: the same reason without the number.
+ */
+export class QuotedFixRefusal extends RootcastError {
+  constructor(
+    message: string,
+    location: SourceLocation,
+    /** The family with the quoted fix applied. */
+    readonly apply: (family: Family) => Family,
+    /** The refusal without the quote, for when the fix does not plan. */
+    readonly unquoted: RootcastError,
+    /**
+     * What the quote is, for the segment search's choice among the refusals of
+     * its trials (src/plan/segment-search.ts): a rounding floor (the lower the
+     * better), a plan.max_order, a plan.newton_steps.
+     */
+    readonly kind: 'floor' | 'order' | 'steps',
+    /** The best certified error quoted by a floor; the order quoted by an order refusal. */
+    readonly best: number,
+    /** The same refusal, worded for another family (the spec as the user wrote it, when this one was met while checking a quote). */
+    readonly reword: (family: Family) => QuotedFixRefusal,
+  ) {
+    super(message, location);
+  }
+}
+
+/** The QuotedFixRefusal a refusing function throws. */
+function catchRefusal(refuse: () => never): QuotedFixRefusal {
+  try {
+    refuse();
+  } catch (e) {
+    if (e instanceof QuotedFixRefusal) return e;
+    throw e;
+  }
+}
+
+/**
+ * `x` to three significant digits, rounded up: the text parses to a number
+ * no smaller than `x`, so a target set to it is no tighter than the bound.
+ */
+export function upText(x: number): string {
+  const [mantissa, exponent] = x.toExponential(2).split('e') as [string, string];
+  if (Number(`${mantissa}e${exponent}`) >= x) return short(Number(`${mantissa}e${exponent}`));
+  // One unit up in the third digit (9.99 becomes 10.0, which parses as 1.00e(exponent + 1)).
+  const up = (Math.round(Number(mantissa) * 100) + 1) / 100;
+  return short(Number(`${up}e${exponent}`));
+}
+
+/**
+ * The target is below what any plan for these segments certifies: `total` is
+ * the best certified error, `rounding` its rounding part. `steps`: the fixed
+ * plan.newton_steps the plan had, if the knob fixes them. `tableBytes`: the
+ * plan's table bytes when they exceed plan.max_table_bytes (no plan for these
+ * segments fits it): the quote then raises that limit too.
+ */
+export function refuseFloor(family: Family, total: number, rounding: number, steps: number | null = null, tableBytes = 0): never {
   const kind = family.accuracy.kind;
-  throw new RootcastError(
-    `the target ${family.accuracy.value} is below the ${family.arithmetic} rounding floor of this plan: the best certified ${kind} error is ${short(total)} (rounding alone ${short(rounding)}); ${ARITHMETICS[family.arithmetic].wider ? `use arithmetic: ${ARITHMETICS[family.arithmetic].wider}, ` : ''}loosen the accuracy or narrow the input ranges`,
-    locate(family, `accuracy.${kind}`),
+  const wider = ARITHMETICS[family.arithmetic].wider;
+  const quoted = upText(total);
+  const withSteps = steps === null ? '' : ` with ${steps} Newton step${steps === 1 ? '' : 's'}`;
+  const head = `the target ${family.accuracy.value} is below the ${family.arithmetic} rounding floor of this plan${withSteps}`;
+  const at = locate(family, `accuracy.${kind}`);
+  const bigger = tableBytes > family.plan.maxTableBytes;
+  const tables = bigger ? `, with ${tableBytes} bytes of tables (plan.max_table_bytes is ${family.plan.maxTableBytes})` : '';
+  // A wider arithmetic lowers the floor but not the table bytes: not advised when they do not fit.
+  const wide = wider && !bigger ? `, or use arithmetic: ${wider}` : '';
+  const fix = `set accuracy.${kind}: ${quoted} or looser${bigger ? ` and plan.max_table_bytes: ${tableBytes}` : ''}`;
+  if (kind === 'relative' && Number(quoted) >= 1) {
+    // A relative accuracy of 1 or more is no accuracy (the reader refuses it): nothing to quote.
+    throw new RootcastError(`${head}: the best certified relative error is ${short(total)} (rounding alone ${short(rounding)}), no better than no answer; ${wider && !bigger ? `use arithmetic: ${wider} or ` : ''}use accuracy.absolute`, at);
+  }
+  throw new QuotedFixRefusal(
+    `${head}: the best certified ${kind} error is ${quoted} (rounding alone ${short(rounding)})${tables}; ${fix}${wide}`,
+    at,
+    (f) => ({ ...f, accuracy: { kind, value: SpecNumber.parse(quoted) }, plan: bigger ? { ...f.plan, maxTableBytes: tableBytes } : f.plan }),
+    new RootcastError(`${head} (rounding alone ${short(rounding)}); loosen accuracy.${kind}${wide}`, at),
+    'floor',
+    total,
+    (f) => catchRefusal(() => refuseFloor(f, total, rounding, steps, tableBytes)),
   );
 }
 
@@ -113,9 +221,55 @@ export function refuseOrder(family: Family, needed: number | null, reached: numb
       locate(family, `accuracy.${family.accuracy.kind}`),
     );
   }
-  throw new RootcastError(
-    `plan.max_order ${family.plan.maxOrder} is too small: the truncation bound alone needs order ${needed}; set plan.max_order: ${needed} or more`,
-    family.positions['plan.max_order'] ? locate(family, 'plan.max_order') : { ...locate(family, `accuracy.${family.accuracy.kind}`), field: 'plan.max_order' },
+  const at = family.positions['plan.max_order'] ? locate(family, 'plan.max_order') : { ...locate(family, `accuracy.${family.accuracy.kind}`), field: 'plan.max_order' };
+  const head = `plan.max_order ${family.plan.maxOrder} is too small: the truncation bound alone needs order ${needed}`;
+  throw new QuotedFixRefusal(
+    `${head}; set plan.max_order: ${needed} or more`,
+    at,
+    (f) => ({ ...f, plan: { ...f.plan, maxOrder: needed } }),
+    new RootcastError(`${head}, but a plan of that order misses the target for other reasons; raise plan.max_order and loosen the accuracy`, at),
+    'order',
+    needed,
+    (f) => catchRefusal(() => refuseOrder(f, needed)),
+  );
+}
+
+/** A program's segment tables exceed plan.max_table_bytes. */
+export class TableRefusal extends RootcastError {}
+
+export function refuseTable(family: Family, counts: readonly number[], tableBytes: number): never {
+  throw new TableRefusal(
+    `the ${counts.join(' x ')} segment tables need ${tableBytes} bytes, more than plan.max_table_bytes ${family.plan.maxTableBytes}; raise it or use fewer segments`,
+    locate(family, family.positions['plan.max_table_bytes'] ? 'plan.max_table_bytes' : 'plan.segments'),
+  );
+}
+
+/**
+ * Of two refusals of the segment search's trials, the one that names the
+ * more actionable fix: a quoted plan.max_order or plan.newton_steps (they keep
+ * the target), then the lowest rounding floor, then a table limit, then the
+ * first refusal (a series that has no bound on some cells).
+ */
+export function moreActionable(a: RootcastError | null, b: RootcastError): RootcastError {
+  if (!a) return b;
+  const rank = (e: RootcastError): number =>
+    e instanceof QuotedFixRefusal ? { order: 0, steps: 1, floor: 2 }[e.kind] : e instanceof TableRefusal ? 3 : 4;
+  if (rank(b) !== rank(a)) return rank(b) < rank(a) ? b : a;
+  return a instanceof QuotedFixRefusal && b instanceof QuotedFixRefusal && a.kind === 'floor' && b.best < a.best ? b : a;
+}
+
+/** No plan with the fixed plan.newton_steps met the target, while a plan with another step count did. */
+export function refuseSteps(family: Family, steps: number): never {
+  const at = locate(family, 'plan.newton_steps');
+  const head = `no plan with ${steps} Newton step${steps === 1 ? '' : 's'} meets the target for these segments`;
+  throw new QuotedFixRefusal(
+    `${head}; set plan.newton_steps: auto`,
+    at,
+    (f) => ({ ...f, plan: { ...f.plan, newtonSteps: 'auto' } }),
+    new RootcastError(`${head}; loosen the accuracy`, at),
+    'steps',
+    steps,
+    (f) => catchRefusal(() => refuseSteps(f, steps)),
   );
 }
 

@@ -9,6 +9,7 @@
  */
 import { RootcastError } from '../errors.js';
 import { ARITHMETICS } from '../family/arithmetic.js';
+import { ConstantOverflowError } from '../ir/builder.js';
 import type { Family } from '../family/types.js';
 import type { Cell } from './box.js';
 import { locate } from './locate.js';
@@ -16,6 +17,7 @@ import { candidatesOf, refusedCandidate, withCandidates } from './candidates.js'
 import { planSegments } from './plan-segments.js';
 import type { PlainTrial } from './plain-series.js';
 import { refinedPlans } from './refine.js';
+import { moreActionable } from './refusals.js';
 import { REFINE, SEGMENT_SEARCH } from './tuning.js';
 import { WorkLimitError } from './work.js';
 import type { Candidate, Plan } from './types.js';
@@ -28,7 +30,7 @@ import type { Candidate, Plan } from './types.js';
 export function searchSegments(family: Family, box: Cell, fixed: readonly (number | null)[] = family.inputs.map(() => null), plain: PlainTrial = { plan: null, candidates: [] }): Plan {
   const d = family.inputs.length;
   const candidates: Candidate[] = [];
-  const found: { best: Plan | null; firstError: RootcastError | null; exhausted: boolean } = { best: null, firstError: null, exhausted: false };
+  const found: { best: Plan | null; refusal: RootcastError | null; exhausted: boolean } = { best: null, refusal: null, exhausted: false };
   const tried = new Map<string, Plan | null>();
   const attempt = (counts: number[]): Plan | null => {
     const key = counts.join('x');
@@ -52,7 +54,7 @@ export function searchSegments(family: Family, box: Cell, fixed: readonly (numbe
         return null;
       }
       if (!(e instanceof RootcastError)) throw e;
-      found.firstError ??= e;
+      found.refusal = moreActionable(found.refusal, e);
       candidates.push(refusedCandidate(counts, e.message, !family.bracket));
       return null;
     }
@@ -67,7 +69,7 @@ export function searchSegments(family: Family, box: Cell, fixed: readonly (numbe
   }
   const currentPlan = attempt(current);
   if (!family.bracket) {
-    if (!currentPlan) throw found.firstError ?? new WorkLimitError();
+    if (!currentPlan) throw found.refusal ?? new WorkLimitError();
     return withCandidates(currentPlan, candidatesOf(currentPlan));
   }
   let stale = 0;
@@ -102,12 +104,13 @@ export function searchSegments(family: Family, box: Cell, fixed: readonly (numbe
       all.push(...refined.plans);
     } catch (e) {
       // The work limit ends the two-level search too: the plans so far stand (src/plan/work.ts).
-      if (!(e instanceof WorkLimitError)) throw e;
+      // A constant beyond the arithmetic's range in its trial layouts leaves it without a plan, as planSegments refuses one.
+      if (!(e instanceof WorkLimitError) && !(e instanceof ConstantOverflowError)) throw e;
     }
   }
   candidates.push(...plain.candidates);
   if (plain.plan) all.push(plain.plan);
-  if (all.length === 0) throw found.firstError ?? new WorkLimitError();
+  if (all.length === 0) throw found.refusal ?? new WorkLimitError();
   return withCandidates(frugalChoice(all), candidates);
 }
 

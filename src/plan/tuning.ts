@@ -223,6 +223,23 @@ export const WORK = {
   reports: 200,
 } as const;
 
+/** Checking a fix a refusal quotes (src/plan/plan.ts confirmedFix). */
+export const QUOTED_FIX = {
+  /**
+   * Plans made to check a quote, at most: a rounding floor found by the segment
+   * search can move a little with the target (another search path), and one
+   * more check settles it.
+   */
+  rounds: 2,
+  /**
+   * Share of WORK.limit one check may use. A check that plans within less work
+   * than the user's run has also plans in that run (the same deterministic
+   * computation, stopped later); one that runs out only drops the quote. So a
+   * refusal costs at most twice the work limit in all.
+   */
+  workShare: 1 / 2,
+} as const;
+
 /** The table-size fix a refusal may quote (src/plan/plan.ts). */
 export const TABLE_FIX = {
   /** The limits the search is retried with, in turn, when plan.max_table_bytes kept it from splitting: the default 4 KiB, then 64 KiB, a table most targets still hold in memory. */

@@ -26,6 +26,7 @@ const SLOW = [
   'test/ir/check.test.ts',
   'test/verify/inprocess.test.ts',
   'test/plan/tight-enclosures.test.ts',
+  'test/plan/corpus-property.test.ts',
   'test/plan/plain-series.test.ts',
   'test/plan/landing-time.test.ts',
   'test/plan/segments-property.test.ts',

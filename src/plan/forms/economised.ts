@@ -28,6 +28,7 @@ export function economisedPlan(ctx: FormContext, series: Plan): Plan | null {
       room = Math.min(room, allowed - cellTail(c, n));
     }
     const form = chebyshevForm(family, collapsed, layout.boxes);
+    if (!form) return null;
     for (let budget = room * ECONOMISE.firstBudget; budget > room * ECONOMISE.leastBudget && budget > 0; budget /= ECONOMISE.budgetStep) {
       const e = economise(family, expansion, form, budget);
       if (!e) break;

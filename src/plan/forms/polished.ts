@@ -8,6 +8,7 @@
 import { programCost } from '../../ir/cost/index.js';
 import { planOf } from '../plan-of.js';
 import { coreProgram, polishBound, polishedProgram, PolishFailure, stepProgram } from '../polish.js';
+import { refuseFloor } from '../refusals.js';
 import { POLISH } from '../tuning.js';
 import type { Plan } from '../types.js';
 import type { FormContext, FoundPlans } from './context.js';
@@ -22,6 +23,8 @@ export function polishedPlans(ctx: FormContext, found: FoundPlans): Plan[] {
   const maxOrder = series ? series.order - 1 : Math.min(family.plan.maxOrder, pool.grades - 1);
   const cells = ctx.set.cells;
   const out: Plan[] = [];
+  // With plan.newton_steps fixed, the best miss: the floor quoted when no plan with those steps meets the target.
+  let best: { total: number; rounding: number } | null = null;
   // Cost of the cheapest plan found for these segments without steps (Infinity if none, or for a fixed step count).
   let toBeat = knob === 'auto' ? Math.min(...found.all.map((f) => f.cost)) : Infinity;
   // Order 0 with k steps is the cheapest program with k steps, and more steps cost more:
@@ -53,6 +56,7 @@ export function polishedPlans(ctx: FormContext, found: FoundPlans): Plan[] {
       }
       // Rounding does not shrink with the order: past a share of the target, stop.
       if (full.total > target) {
+        if (!best || full.total < best.total) best = { total: full.total, rounding: full.rounding };
         if (full.rounding > target * POLISH.roundingStopShare) break;
         continue;
       }
@@ -66,5 +70,7 @@ export function polishedPlans(ctx: FormContext, found: FoundPlans): Plan[] {
       break;
     }
   }
+  // A fixed step count whose best plan misses on rounding: that is the floor to quote.
+  if (knob !== 'auto' && out.length === 0 && best && best.rounding > target * POLISH.roundingStopShare) refuseFloor(family, best.total, best.rounding, knob);
   return out;
 }

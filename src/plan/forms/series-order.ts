@@ -6,7 +6,7 @@
  */
 import { cellTail } from '../cell-bound.js';
 import { evaluate } from '../evaluate.js';
-import { planOf } from '../plan-of.js';
+import { planOf, tableBytesOf } from '../plan-of.js';
 import { refuseFloor, refuseOrder } from '../refusals.js';
 import { seriesProgram } from '../series-program.js';
 import { LIMITS, ORDER_SEARCH, WORK } from '../tuning.js';
@@ -16,7 +16,16 @@ import type { FormContext } from './context.js';
 
 export function seriesOrderPlan(ctx: FormContext): Plan {
   const { family, expansion, set, pool, relative, target } = ctx;
-  let best: { order: number; total: number; rounding: number } | null = null;
+  // The best miss among programs whose tables fit (a floor quoted from a program that cannot be
+  // emitted would not plan when the user sets the target to it), and among those that do not
+  // (quoted with their table bytes when none fits).
+  type Miss = { total: number; rounding: number; bytes: number };
+  let best: Miss | null = null;
+  let oversize: Miss | null = null;
+  const atFloor = (): never => {
+    const miss = (best ?? oversize)!;
+    refuseFloor(family, miss.total, miss.rounding, null, miss.bytes);
+  };
   for (let order = 0; order <= family.plan.maxOrder; order++) {
     if (!pool.nextGrade(order)) break;
     let trunc = set.truncation(order, relative);
@@ -32,11 +41,14 @@ export function seriesOrderPlan(ctx: FormContext): Plan {
       // A copy: the pool keeps growing as later forms ask for more grades.
       return planOf(ctx, { form: 'series', order, degree: null, terms: [...pool.kept], steps: 0, program, evaluated });
     }
-    if (!best || evaluated.bound.total < best.total) best = { order, total: evaluated.bound.total, rounding: evaluated.bound.rounding };
+    const miss = { total: evaluated.bound.total, rounding: evaluated.bound.rounding, bytes: tableBytesOf(program) };
+    if (miss.bytes > family.plan.maxTableBytes) {
+      if (!oversize || miss.total < oversize.total) oversize = miss;
+    } else if (!best || miss.total < best.total) best = miss;
     // Truncation is already negligible next to rounding: more terms cannot help.
-    if (evaluated.bound.truncation < ORDER_SEARCH.negligibleTruncation * evaluated.bound.rounding) refuseFloor(family, best.total, best.rounding);
+    if (evaluated.bound.truncation < ORDER_SEARCH.negligibleTruncation * evaluated.bound.rounding) atFloor();
   }
-  if (best && best.rounding > target * ORDER_SEARCH.roundingFloorShare) refuseFloor(family, best.total, best.rounding);
+  if ((best ?? oversize) && (best ?? oversize)!.rounding > target * ORDER_SEARCH.roundingFloorShare) atFloor();
   // Past max_order: find the order the truncation bound alone needs (no refinement), within a
   // share of the work limit; quote it only when its program meets the target with rounding too,
   // so that setting plan.max_order to it plans.
@@ -46,7 +58,10 @@ export function seriesOrderPlan(ctx: FormContext): Plan {
     for (; order <= LIMITS.grade && workUsed() < huntEnd; order++) {
       if (!pool.nextGrade(order)) break;
       if (set.truncation(order, relative) > target) continue;
-      const evaluated = evaluate(family, seriesProgram(family, expansion, pool.kept), set.cells, (c) => cellTail(c, order), relative);
+      const program = seriesProgram(family, expansion, pool.kept);
+      const evaluated = evaluate(family, program, set.cells, (c) => cellTail(c, order), relative);
+      // Either quote would fail if this program's tables did not fit: refuse at the table then.
+      ctx.checkTable(program);
       if (evaluated.bound.total <= target) refuseOrder(family, order);
       refuseFloor(family, evaluated.bound.total, evaluated.bound.rounding);
     }
