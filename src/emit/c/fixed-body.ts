@@ -16,7 +16,7 @@
  * operators instead, so -fsanitize=signed-integer-overflow reports any
  * overflow (the tests build the harness that way).
  */
-import { UnknownFixedNodeError, type FixedNode, type FixedProgram } from '../../ir/fixed/nodes.js';
+import { fixedOperands, UnknownFixedNodeError, type FixedNode, type FixedProgram } from '../../ir/fixed/nodes.js';
 import { valueName } from '../names.js';
 
 export function cInt32(v: bigint): string {
@@ -28,7 +28,7 @@ const u64 = (v: bigint): string => `UINT64_C(${v})`;
 export function cFixedBodyLines(p: FixedProgram): string[] {
   const lines: string[] = [];
   const used = new Set<number>();
-  p.nodes.forEach((n) => operandsOf(n).forEach((o) => used.add(o)));
+  p.nodes.forEach((n) => fixedOperands(n).forEach((o) => used.add(o)));
   p.inputs.forEach((name, i) => {
     if (!p.nodes.some((n) => n.kind === 'input' && n.index === i)) lines.push(`(void)${name};`);
   });
@@ -80,22 +80,4 @@ function mulShift(a: number, b: number, s: number): string {
   if (s <= 32) return `rc_fx_i32((uint32_t)((${product} + ${u64(1n << BigInt(s - 1))}) >> ${s}))`;
   const bias = (1n << 63n) + (1n << BigInt(s - 1));
   return `rc_fx_i32((uint32_t)((${product} + ${u64(bias)}) >> ${s}) - ${1n << BigInt(63 - s)}u)`;
-}
-
-function operandsOf(n: FixedNode): number[] {
-  switch (n.kind) {
-    case 'input':
-    case 'const':
-      return [];
-    case 'segment':
-      return [n.input];
-    case 'table':
-      return [n.index];
-    case 'add':
-    case 'sub':
-    case 'mulshift':
-      return [n.a, n.b];
-    default:
-      throw new UnknownFixedNodeError(n);
-  }
 }

@@ -16,7 +16,7 @@
  *   with `min`, so every table index is in bounds (no bounds-check panic in
  *   reach).
  */
-import { UnknownFixedNodeError, type FixedNode, type FixedProgram } from '../../ir/fixed/nodes.js';
+import { fixedOperands, UnknownFixedNodeError, type FixedNode, type FixedProgram } from '../../ir/fixed/nodes.js';
 import { FIXED32 } from '../../family/arithmetic.js';
 import { fixedHeaderLines } from '../fixed-header.js';
 import type { FixedEmitInput } from '../fixed-types.js';
@@ -68,7 +68,7 @@ function rustFixedTables(p: FixedProgram): string[] {
 export function rustFixedBodyLines(p: FixedProgram): string[] {
   const lines: string[] = [];
   const used = new Set<number>();
-  p.nodes.forEach((n) => operandsOf(n).forEach((o) => used.add(o)));
+  p.nodes.forEach((n) => fixedOperands(n).forEach((o) => used.add(o)));
   p.inputs.forEach((name, i) => {
     if (!p.nodes.some((n) => n.kind === 'input' && n.index === i)) lines.push(`let _ = ${name};`);
   });
@@ -115,22 +115,4 @@ function mulShift(a: number, b: number, s: number): string {
   if (s <= 32) return `((${bits}).wrapping_add(${1n << BigInt(s - 1)}_u64) >> ${s}) as u32 as i32`;
   const bias = (1n << 63n) + (1n << BigInt(s - 1));
   return `(((${bits}).wrapping_add(${bias}_u64) >> ${s}) as u32).wrapping_sub(${1n << BigInt(63 - s)}_u32) as i32`;
-}
-
-function operandsOf(n: FixedNode): number[] {
-  switch (n.kind) {
-    case 'input':
-    case 'const':
-      return [];
-    case 'segment':
-      return [n.input];
-    case 'table':
-      return [n.index];
-    case 'add':
-    case 'sub':
-    case 'mulshift':
-      return [n.a, n.b];
-    default:
-      throw new UnknownFixedNodeError(n);
-  }
 }

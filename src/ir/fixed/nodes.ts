@@ -51,6 +51,25 @@ export class UnknownFixedNodeError extends Error {
   }
 }
 
+/** The nodes a fixed node reads, in operand order (one place for every printer). */
+export function fixedOperands(n: FixedNode): number[] {
+  switch (n.kind) {
+    case 'input':
+    case 'const':
+      return [];
+    case 'segment':
+      return [n.input];
+    case 'table':
+      return [n.index];
+    case 'add':
+    case 'sub':
+    case 'mulshift':
+      return [n.a, n.b];
+    default:
+      throw new UnknownFixedNodeError(n);
+  }
+}
+
 /** Operation counts of a fixed program: 32 x 32 -> 64 products, adds and subtracts, table reads. */
 export interface FixedCounts {
   readonly mul: number;
