@@ -278,8 +278,9 @@ export function refuseWorkLimit(family: Family): never {
   const hint = family.bracket
     ? family.plan.segments === 'auto' ? '' : ', set plan.segments: auto'
     : ', add root.bracket to recentre the series';
+  const wider = ARITHMETICS[family.arithmetic].wider;
   throw new RootcastError(
-    `no plan met the target ${family.accuracy.value} within the planner's work limit (the certified bound still missed it); loosen the accuracy${family.arithmetic === 'float32' ? ', use arithmetic: float64' : ''}${hint} or narrow the input ranges`,
+    `no plan met the target ${family.accuracy.value} within the planner's work limit (the certified bound still missed it); loosen the accuracy${wider ? `, use arithmetic: ${wider}` : ''}${hint} or narrow the input ranges`,
     locate(family, `accuracy.${family.accuracy.kind}`),
   );
 }
