@@ -31,6 +31,7 @@ const SLOW = [
   'test/plan/plain-series.test.ts',
   'test/plan/landing-time.test.ts',
   'test/plan/segments-property.test.ts',
+  'test/support/plan-cache.test.ts',
 ];
 
 function testFiles(dir) {
