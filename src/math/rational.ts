@@ -177,11 +177,87 @@ function sumOf(a: Rational, n: bigint, d: bigint): Rational {
   return Rational.of(t / d2, (a.den / d1) * (d / d2), true);
 }
 
-function gcd(a: bigint, b: bigint): bigint {
-  while (b !== 0n) {
-    [a, b] = [b, a % b];
+/** gcd(a, b) for a, b >= 0 (1 when both are 0, so a division by it is harmless). */
+export function gcd(a: bigint, b: bigint): bigint {
+  if (a < b) [a, b] = [b, a];
+  if (b === 0n) return a === 0n ? 1n : a;
+  if (a <= SMALL) return BigInt(smallGcd(Number(a), Number(b)));
+  return lehmerGcd(a, b);
+}
+
+/** Operands at most 2^53 - 1 are exact as doubles: Euclid's algorithm on numbers. */
+const SMALL = 2n ** 53n - 1n;
+/** Leading bits Lehmer's step reads: the quotients' test stays exact in doubles (see lehmerGcd). */
+const LEAD = 50;
+const LEAD_LOW = 2 ** (LEAD - 1);
+
+function smallGcd(a: number, b: number): number {
+  while (b !== 0) {
+    const t = a % b;
+    a = b;
+    b = t;
   }
-  return a === 0n ? 1n : a;
+  return a;
+}
+
+/** Bits of an integer 0 <= x < 2^53 held in a double. */
+function numberBits(x: number): number {
+  return x >= 2 ** 32 ? 64 - Math.clz32(Math.floor(x / 2 ** 32)) : 32 - Math.clz32(x);
+}
+
+/**
+ * Lehmer's gcd (Knuth, TAOCP vol. 2, 4.5.2, Algorithm L) for a >= b > 0: the
+ * quotients of Euclid's algorithm are found from the leading LEAD bits of a
+ * and b in doubles, as long as both ends of the cofactor test agree on them,
+ * and applied to the full numbers as one 2x2 cofactor matrix (four products by
+ * numbers below 2^LEAD); a multi-precision division is done only when the
+ * leading bits decide no quotient. The doubles stay exact: the leading parts
+ * are below 2^LEAD, the cofactors below them, so every sum is below 2^(LEAD+1)
+ * and floor(p / q) of two such integers is the exact quotient (its rounding
+ * error is below 1/q). Each matrix step removes about LEAD/2 bits where
+ * Euclid's step removes about one, and the BigInt work per step is linear in
+ * the size either way.
+ */
+function lehmerGcd(a: bigint, b: bigint): bigint {
+  let shift = Math.max(0, bitLength(a) - LEAD);
+  while (b !== 0n) {
+    if (a <= SMALL) return BigInt(smallGcd(Number(a), Number(b)));
+    let x = Number(a >> BigInt(shift));
+    // a shrinks as the steps go: move the window down so x keeps about LEAD bits.
+    if (x < LEAD_LOW && shift > 0) {
+      shift = Math.max(0, shift - (LEAD - numberBits(x)));
+      x = Number(a >> BigInt(shift));
+    }
+    let y = Number(b >> BigInt(shift));
+    let A = 1;
+    let B = 0;
+    let C = 0;
+    let D = 1;
+    for (;;) {
+      if (y + C <= 0 || y + D <= 0) break;
+      const q = Math.floor((x + A) / (y + C));
+      if (q !== Math.floor((x + B) / (y + D))) break;
+      let t = A - q * C;
+      A = C;
+      C = t;
+      t = B - q * D;
+      B = D;
+      D = t;
+      t = x - q * y;
+      x = y;
+      y = t;
+    }
+    if (B === 0) {
+      const r = a % b;
+      a = b;
+      b = r;
+    } else {
+      const na = BigInt(A) * a + BigInt(B) * b;
+      b = BigInt(C) * a + BigInt(D) * b;
+      a = na;
+    }
+  }
+  return a;
 }
 
 function bitLength(n: bigint): number {

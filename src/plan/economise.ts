@@ -12,7 +12,7 @@
 import { Rational } from '../math/rational.js';
 import { roundTo } from '../family/arithmetic.js';
 import type { Program } from '../ir/nodes.js';
-import { composeAffine, fromChebyshev, scaleArgument, toChebyshev } from '../series/chebyshev.js';
+import { rationalsOf, scaledArgument, scaledComposeAffine, scaledFromChebyshev, scaledOf, scaledToChebyshev, type Scaled } from '../series/chebyshev.js';
 import type { Family } from '../family/types.js';
 import type { Cell } from './box.js';
 import { polynomialProgram, type Collapsed, type Expansion } from './series-program.js';
@@ -31,14 +31,18 @@ export interface ChebyshevForm {
   readonly mid: readonly Rational[];
   readonly invHalf: Rational;
   readonly rho: readonly Rational[];
-  readonly cheb: readonly (readonly Rational[])[];
+  /** Per segment: the Chebyshev coefficients in v = u / rho, over one denominator. */
+  readonly cheb: readonly Scaled[];
+  /** Per segment: tail[d] = sum over k > d of |cheb num[k]|, over the same denominator (the error of keeping degree d). */
+  readonly tail: readonly (readonly bigint[])[];
 }
 
 /** Null when the input's scale 1 / half-width is beyond the arithmetic's range (a tiny or subnormal range): no such form. */
 export function chebyshevForm(family: Family, c: Collapsed, boxes: readonly Cell[]): ChebyshevForm | null {
   const S = c.inR.length;
   const mid: Rational[] = [];
-  const cheb: Rational[][] = [];
+  const cheb: Scaled[] = [];
+  const tail: bigint[][] = [];
   const rho: Rational[] = [];
   // One scale for every segment: half the width of a segment's analysed box (the widest).
   const half = Math.max(...boxes.map((b) => (b[c.input]!.hi - b[c.input]!.lo) / 2));
@@ -53,14 +57,18 @@ export function chebyshevForm(family: Family, c: Collapsed, boxes: readonly Cell
     // r = alpha + beta p, p = mid + u / invHalf  =>  r = (alpha + beta mid) + (beta / invHalf) u.
     const a = c.alpha[s]!.add(c.beta[s]!.mul(m));
     const b = c.beta[s]!.div(invHalf);
-    const inU = composeAffine(c.inR[s]!, a, b);
+    const inU = scaledComposeAffine(scaledOf(c.inR[s]!), a, b);
     const uLo = Rational.fromNumber(lo).sub(m).mul(invHalf).abs();
     const uHi = Rational.fromNumber(hi).sub(m).mul(invHalf).abs();
     const r = uLo.cmp(uHi) > 0 ? uLo : uHi;
     rho.push(r);
-    cheb.push(toChebyshev(scaleArgument(inU, r)));
+    const ch = scaledToChebyshev(scaledArgument(inU, r));
+    cheb.push(ch);
+    const t = new Array<bigint>(ch.num.length).fill(0n);
+    for (let d = ch.num.length - 2; d >= 0; d--) t[d] = t[d + 1]! + abs(ch.num[d + 1]!);
+    tail.push(t);
   }
-  return { input: c.input, mid, invHalf, rho, cheb };
+  return { input: c.input, mid, invHalf, rho, cheb, tail };
 }
 
 /**
@@ -68,20 +76,26 @@ export function chebyshevForm(family: Family, c: Collapsed, boxes: readonly Cell
  * collapsed one fits the budget in every segment.
  */
 export function economise(family: Family, e: Expansion, form: ChebyshevForm, budget: number): Economised | null {
-  const { cheb, rho, mid, invHalf } = form;
-  const full = Math.max(...cheb.map((ch) => ch.length - 1));
-  // The smallest degree whose dropped tail fits the budget in every segment.
-  let degree = full;
-  const tailAbove = (ch: readonly Rational[], d: number): Rational => ch.slice(d + 1).reduce((acc, v) => acc.add(v.abs()), Rational.ZERO);
+  const { cheb, tail, rho, mid, invHalf } = form;
+  const full = Math.max(...cheb.map((ch) => ch.num.length - 1));
+  // The smallest degree whose dropped tail fits the budget in every segment:
+  // tail / den <= budget, compared exactly as tail * budget.den <= budget.num * den.
   const limit = Rational.fromNumber(budget);
-  while (degree > 0 && cheb.every((ch) => tailAbove(ch, degree - 1).cmp(limit) <= 0)) degree--;
+  const fits = (s: number, d: number): boolean => (tail[s]![d] ?? 0n) * limit.den <= limit.num * cheb[s]!.den;
+  let degree = full;
+  while (degree > 0 && cheb.every((_, s) => fits(s, degree - 1))) degree--;
   if (degree === full) return null;
-  const error = cheb.map((ch) => {
-    const t = tailAbove(ch, degree);
-    return t.isZero() ? 0 : t.toNumberUp();
+  const error = cheb.map((ch, s) => {
+    const t = tail[s]![degree] ?? 0n;
+    return t === 0n ? 0 : Rational.of(t, ch.den).toNumberUp();
   });
   // Kept Chebyshev terms back to monomials in v, then in u = rho v.
-  const perSegment = cheb.map((ch, s) => scaleArgument(fromChebyshev(ch.slice(0, degree + 1)), Rational.ONE.div(rho[s]!)));
+  const perSegment = cheb.map((ch, s) => {
+    const kept = { num: ch.num.slice(0, degree + 1), den: ch.den };
+    return rationalsOf(scaledArgument(scaledFromChebyshev(kept), Rational.ONE.div(rho[s]!)));
+  });
   const coeffs = Array.from({ length: degree + 1 }, (_, k) => perSegment.map((m) => m[k] ?? Rational.ZERO));
   return { program: polynomialProgram(family, e, form.input, mid, invHalf, coeffs), degree, error };
 }
+
+const abs = (n: bigint): bigint => (n < 0n ? -n : n);

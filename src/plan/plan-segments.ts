@@ -86,9 +86,11 @@ function planSegmentsInner(family: Family, box: Cell, layout: SegmentLayout, tho
   const eligible = found.all.filter((f) => stepsKnob === 'auto' || f.steps === stepsKnob);
   if (eligible.length === 0) {
     // A fixed step count that no plan meets: plan.newton_steps: auto is quoted where it plans (makePlan checks).
+    if (found.all.length > 0 && stepsKnob !== 'auto') refuseSteps(family, stepsKnob);
+    if (family.foldResult) throw new RootcastError('the result folded into the series meets the target with no economised degree for these segments', locate(family, 'result'));
     // Where no plan of any kind met the target, the series' own refusal is kept when it quotes a fix of its
     // own, and shown instead of the steps quote when auto does not plan either.
-    if (stepsKnob !== 'auto' && (found.all.length > 0 || !(refusal instanceof QuotedFixRefusal))) refuseSteps(family, stepsKnob, found.all.length > 0 ? null : refusal);
+    if (stepsKnob !== 'auto' && !(refusal instanceof QuotedFixRefusal)) refuseSteps(family, stepsKnob, refusal);
     throw refusal ?? new RootcastError(
       `no plan with ${stepsKnob} Newton step${stepsKnob === 1 ? '' : 's'} meets the target for these segments; loosen the accuracy`,
       locate(family, 'plan.newton_steps'),

@@ -8,7 +8,8 @@ import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { cFunction } from '../../src/emit/c/function.js';
 import type { EmitInput, EmittedFile } from '../../src/emit/types.js';
-import { emitInputOf, planSpec } from '../../src/cli/pipeline.js';
+import { emitInputOf } from '../../src/cli/pipeline.js';
+import { cachedPlanSpec } from '../support/plan-cache.js';
 
 export const REPO_ROOT = join(fileURLToPath(new URL('.', import.meta.url)), '..', '..');
 
@@ -33,7 +34,7 @@ export function cExample(spec: string): CExample {
   const hit = cache.get(spec);
   if (hit) return hit;
   process.chdir(REPO_ROOT);
-  const input = emitInputOf(planSpec(spec));
+  const input = emitInputOf(cachedPlanSpec(spec));
   const made = { spec, name: input.family.functionName, input, header: cFunction(input) };
   cache.set(spec, made);
   return made;

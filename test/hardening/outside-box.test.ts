@@ -17,7 +17,7 @@ import { spawnSync } from 'node:child_process';
 import { readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { transpileTs } from '../../src/emit/ts/typecheck.js';
-import { REPO, ensureBuilt, removeTempDirs, runBuilt, tempDir } from './support/cli.js';
+import { ensureBuilt, removeTempDirs, runBuilt, tempDir } from './support/cli.js';
 
 interface SpecUnderTest {
   readonly file: string;

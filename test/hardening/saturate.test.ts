@@ -23,13 +23,12 @@ import type { EmitInput } from '../../src/emit/types.js';
 import { transpileTs } from '../../src/emit/ts/typecheck.js';
 import { roundTo } from '../../src/family/arithmetic.js';
 import { Rational } from '../../src/math/rational.js';
-import { makePlan } from '../../src/plan/plan.js';
-import { readSpec } from '../../src/reader/read.js';
 import { branchy, checkEmittedBranches } from '../../src/verify/branches.js';
 import { compileHlsl } from '../../src/verify/hlsl/compile.js';
 import { runRustBits } from '../../src/verify/rust/run.js';
 import { runWgslBits } from '../../src/verify/wgsl/run.js';
 import { fragmentShader, openShaderBrowser, type ShaderBrowser } from '../glsl/support/shader-run.js';
+import { cachedPlanOf } from '../support/plan-cache.js';
 import { REPO } from './support/cli.js';
 
 const EXAMPLES = ['kiln-probe', 'gas-molar-volume', 'lens-undistort', 'ease-in-out', 'spring-scale', 'gas-wide'];
@@ -176,7 +175,7 @@ function saturated(example: string): EmitInput {
   if (!planned.has(example)) {
     const file = `examples/${example}.yaml`;
     const text = `${readFileSync(join(REPO, file), 'utf8')}\ninputs_outside_box: saturate\n`;
-    planned.set(example, emitInputOf(makePlan(readSpec(file, text))));
+    planned.set(example, emitInputOf(cachedPlanOf(file, text)));
   }
   return planned.get(example)!;
 }
@@ -257,7 +256,7 @@ describe('inputs_outside_box: saturate', () => {
 
   test('the check can fail: the same cases on the extrapolating function break the promise', () => {
     const file = 'examples/kiln-probe.yaml';
-    const input = emitInputOf(makePlan(readSpec(file, readFileSync(join(REPO, file), 'utf8'))));
+    const input = emitInputOf(cachedPlanOf(file, readFileSync(join(REPO, file), 'utf8')));
     const dir = temp();
     for (const f of emitFiles(input, ['c'])) writeFileSync(join(dir, f.path), f.text);
     const cases = casesFor(input);

@@ -1,15 +1,14 @@
-/** The IR checker accepts every program the planner emits and catches broken ones. */
+/** The IR checker accepts every program the planner emits (plans read through test/support/plan-cache.ts) and catches broken ones. */
 import { describe, expect, test } from '@jest/globals';
 import { readdirSync } from 'node:fs';
 import { Rational } from '../../src/math/rational.js';
 import { checkProgram } from '../../src/ir/check.js';
 import type { Program } from '../../src/ir/nodes.js';
-import { makePlan } from '../../src/plan/plan.js';
-import { loadSpec } from '../../src/reader/load.js';
+import { cachedPlanSpec } from '../support/plan-cache.js';
 
 describe('IR checker', () => {
   test.each(readdirSync('examples').filter((f) => f.endsWith('.yaml')).sort())('the plan for %s is a sound program, and so is every candidate form', (f) => {
-    const plan = makePlan(loadSpec(`examples/${f}`));
+    const plan = cachedPlanSpec(`examples/${f}`);
     expect(checkProgram(plan.program)).toEqual([]);
     for (const alt of plan.alternatives ?? []) expect(checkProgram(alt.program)).toEqual([]);
   });

@@ -3,12 +3,14 @@
  * against outside references: ECMAScript's Number parsing (correctly rounded
  * to binary64 by the language specification), Math.fround (correctly rounded
  * binary64 -> binary32, ECMAScript spec), Number.EPSILON and Number.MIN_VALUE,
- * and decimal.js at 60 significant digits for the field operations.
+ * and decimal.js at 60 significant digits for the field operations; the gcd
+ * (Lehmer's algorithm) against mathjs `gcd` on BigNumbers.
  */
 import { describe, expect, test } from '@jest/globals';
 import { Decimal } from 'decimal.js';
 import fc from 'fast-check';
-import { nextDown, nextUp, Rational } from '../../src/math/rational.js';
+import { create, all } from 'mathjs';
+import { gcd, nextDown, nextUp, Rational } from '../../src/math/rational.js';
 
 const D = Decimal.clone({ precision: 60 });
 /** Equal as numbers: a rational has no signed zero, so -0 and 0 are the same value here. */
@@ -118,5 +120,36 @@ describe('Rational against Number, Math.fround and decimal.js', () => {
 
   test('parseDecimal refuses text that is not a decimal number', () => {
     for (const bad of ['', '.', 'e5', '1e', '0x10', '1.2.3']) expect(() => Rational.parseDecimal(bad)).toThrow(SyntaxError);
+  });
+});
+
+describe('gcd (Lehmer) against mathjs gcd', () => {
+  // mathjs on decimal.js BigNumbers with more digits than any operand here (2300 bits < 700 digits), so its gcd is exact.
+  const big = create(all, { number: 'BigNumber', precision: 800 });
+  const reference = (a: bigint, b: bigint): bigint => BigInt(big.gcd(big.bignumber(a.toString()), big.bignumber(b.toString())).toFixed());
+  /** Random integers of 1 to 768 bits, from 32-bit words (several Lehmer steps each, past the 2^53 fast path). */
+  const wide = fc.array(fc.integer({ min: 0, max: 2 ** 32 - 1 }), { minLength: 1, maxLength: 24 }).map((ws) => ws.reduce((acc, w) => (acc << 32n) | BigInt(w), 0n));
+
+  test('gcd(g x, g y) agrees with mathjs for operands up to 1536 bits with a shared factor up to 768 bits', () => {
+    fc.assert(
+      fc.property(wide, wide, wide, (g, x, y) => {
+        const a = g * x;
+        const b = g * y;
+        const expected = a === 0n && b === 0n ? 1n : reference(a, b);
+        expect(gcd(a, b)).toBe(expected);
+      }),
+      { numRuns: 60, seed: 20261202 },
+    );
+  });
+
+  test('consecutive Fibonacci numbers (the longest quotient sequence, Knuth 4.5.3) are coprime; zero operands', () => {
+    let [f0, f1] = [0n, 1n];
+    for (let i = 0; i < 3000; i++) [f0, f1] = [f1, f0 + f1];
+    expect(gcd(f1, f0)).toBe(1n);
+    expect(gcd(f1 * 977n, f0 * 977n)).toBe(977n);
+    expect(gcd(0n, 12n)).toBe(12n);
+    expect(gcd(12n, 0n)).toBe(12n);
+    // Both zero: 1 by this module's convention, so dividing by it is harmless.
+    expect(gcd(0n, 0n)).toBe(1n);
   });
 });

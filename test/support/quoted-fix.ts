@@ -38,7 +38,7 @@ export function quotedEdits(message: string): SpecEdit[] {
 export function applyEdits(text: string, edits: readonly SpecEdit[]): string {
   const doc = parseDocument(text);
   const literal = (i: number): string => `__quoted_value_${i}__`;
-  edits.forEach(({ field, value }, i) => {
+  edits.forEach(({ field }, i) => {
     const path = field.split('.');
     if (path[0] === 'accuracy') doc.set('accuracy', doc.createNode({}));
     doc.setIn(path, literal(i));

@@ -16,7 +16,7 @@
  * operators instead, so -fsanitize=signed-integer-overflow reports any
  * overflow (the tests build the harness that way).
  */
-import { fixedOperands, UnknownFixedNodeError, type FixedNode, type FixedProgram } from '../../ir/fixed/nodes.js';
+import { fixedOperands, UnknownFixedNodeError, type FixedProgram } from '../../ir/fixed/nodes.js';
 import { valueName } from '../names.js';
 
 export function cInt32(v: bigint): string {

@@ -16,7 +16,7 @@
  *   with `min`, so every table index is in bounds (no bounds-check panic in
  *   reach).
  */
-import { fixedOperands, UnknownFixedNodeError, type FixedNode, type FixedProgram } from '../../ir/fixed/nodes.js';
+import { fixedOperands, UnknownFixedNodeError, type FixedProgram } from '../../ir/fixed/nodes.js';
 import { FIXED32 } from '../../family/arithmetic.js';
 import { fixedHeaderLines } from '../fixed-header.js';
 import type { FixedEmitInput } from '../fixed-types.js';
@@ -100,7 +100,7 @@ export function rustFixedBodyLines(p: FixedProgram): string[] {
         throw new UnknownFixedNodeError(n);
     }
   });
-  p.nodes.forEach((n, i) => {
+  p.nodes.forEach((_, i) => {
     if (!used.has(i) && i !== p.result) lines.push(`let _ = ${valueName(i)};`);
   });
   lines.push(valueName(p.result));

@@ -1,12 +1,14 @@
 /**
  * The pipeline run through the source modules, exactly as `rootcast emit --target all`
  * runs it: planSpec -> emitInputOf -> emitFiles(targetsOf('all')).
+ * The plan is read through the test plan cache (test/support/plan-cache.ts).
  */
 import { emitFiles, targetsOf } from '../../../src/cli/emit-files.js';
-import { emitInputOf, planSpec } from '../../../src/cli/pipeline.js';
+import { emitInputOf } from '../../../src/cli/pipeline.js';
 import { filesOfSpec } from '../../../src/cli/spec-files.js';
 import type { EmitInput, EmittedFile } from '../../../src/emit/types.js';
 import type { Plan } from '../../../src/plan/plan.js';
+import { cachedPlanSpec } from '../../support/plan-cache.js';
 import { atRepoRoot } from './repo.js';
 
 export interface EmittedExample {
@@ -16,10 +18,10 @@ export interface EmittedExample {
   readonly files: readonly EmittedFile[];
 }
 
-/** Plans and emits a spec given by its path relative to the repository root. */
+/** Plans (through the test plan cache, test/support/plan-cache.ts) and emits a spec given by its path relative to the repository root. */
 export function emitExample(specPath: string): EmittedExample {
   atRepoRoot();
-  const plan = planSpec(specPath);
+  const plan = cachedPlanSpec(specPath);
   const input = emitInputOf(plan);
   return { plan, input, files: emitFiles(input, targetsOf('all')) };
 }

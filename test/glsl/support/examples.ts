@@ -6,7 +6,8 @@
 import { readdirSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { emitFiles } from '../../../src/cli/emit-files.js';
-import { emitInputOf, planSpec } from '../../../src/cli/pipeline.js';
+import { emitInputOf } from '../../../src/cli/pipeline.js';
+import { cachedPlanSpec } from '../../support/plan-cache.js';
 import type { EmitInput, EmittedFile } from '../../../src/emit/types.js';
 import { loadSpec } from '../../../src/reader/load.js';
 
@@ -36,7 +37,7 @@ export function float32Examples(): string[] {
 
 export function emitGlslExample(spec: string): GlslExample {
   if (process.cwd() !== REPO_ROOT) process.chdir(REPO_ROOT);
-  const input = emitInputOf(planSpec(spec));
+  const input = emitInputOf(cachedPlanSpec(spec));
   const files = emitFiles(input, ['glsl']);
   const snippet = files.find((f) => f.path.endsWith('.glsl'));
   const page = files.find((f) => f.path.endsWith('.glsl-check.html'));
