@@ -21,13 +21,21 @@ import { widerAdvice } from './refusals.js';
 import { appendResult, resultAnalysisProgram } from './result-program.js';
 import { largestBudget, resultBound, type ResultEvaluation } from './result-bound.js';
 import { withCandidates } from './candidates.js';
+import { withDerivedBracket } from './derived-bracket.js';
 import { FOLD, RESULT_BUDGET, WORK } from './tuning.js';
 import { spendAtMost, WorkLimitError } from './work.js';
 import type { Plan } from './types.js';
 
-export function planWithResult(family: Family, planRoot: (f: Family) => Plan): Plan {
-  const spec = family.result;
-  if (!spec) return planRoot(family);
+export function planWithResult(given: Family, planRoot: (f: Family) => Plan): Plan {
+  if (!given.result) return planRoot(given);
+  if (given.bracket) return planResult(given, given.result, planRoot);
+  // Without root.bracket the checks need one: derived from the plain series' certified root enclosures and proved.
+  const root = firstTry(DERIVED_ROOT_SHARES.map((s) => Number(given.accuracy.value) * s), (b) => planRootTo(given, planRoot, b));
+  const p = planResult(withDerivedBracket(given, root), given.result, planRoot);
+  return { ...p, root: { ...p.root, note: `${p.root.note} (a bracket derived and proved by the planner: the spec has no root.bracket)` } };
+}
+
+function planResult(family: Family, spec: ResultSpec, planRoot: (f: Family) => Plan): Plan {
   let unfolded: Plan | null = null;
   let refusal: unknown = null;
   try {
@@ -90,6 +98,9 @@ function planUnfolded(family: Family, spec: ResultSpec, planRoot: (f: Family) =>
   if (ok.length === 0) refuseNoRoom(family, tried.reduce((a, b) => (b.ev.total < a.ev.total ? b : a)).ev);
   return ok.reduce((a, b) => (b.cost < a.cost ? b : a));
 }
+
+/** Root budgets (shares of the target) tried in turn for the derived bracket's root plan: any plan's cells enclose the root, the loosest is the quickest. */
+const DERIVED_ROOT_SHARES = [...RESULT_BUDGET.firstShares].reverse();
 
 /** The first budget the root can be planned to (a slope well below 1 lets a refused first guess loosen). */
 function firstTry<T>(budgets: readonly number[], attempt: (b: number) => T): T {
