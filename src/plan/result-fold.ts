@@ -22,13 +22,34 @@ import { spend } from './work.js';
 
 type Poly = readonly Rational[];
 
+/**
+ * Exact product of two polynomials: each brought to integers over one common
+ * denominator first, so the convolution is plain BigInt arithmetic and only
+ * the n + m - 1 results are reduced (a gcd per product term made the fold
+ * trial's exact work several times longer).
+ */
 function polyMul(a: Poly, b: Poly): Rational[] {
-  const out = new Array<Rational>(a.length + b.length - 1).fill(Rational.ZERO);
-  a.forEach((x, i) => {
-    if (x.isZero()) return;
-    b.forEach((y, j) => (out[i + j] = out[i + j]!.add(x.mul(y))));
+  const [na, da] = overCommon(a);
+  const [nb, db] = overCommon(b);
+  const out = new Array<bigint>(a.length + b.length - 1).fill(0n);
+  na.forEach((x, i) => {
+    if (x === 0n) return;
+    nb.forEach((y, j) => (out[i + j] = out[i + j]! + x * y));
   });
-  return out;
+  const den = da * db;
+  return out.map((n) => Rational.of(n, den));
+}
+
+/** Integer numerators over the least common denominator. */
+function overCommon(p: Poly): [bigint[], bigint] {
+  let den = 1n;
+  for (const c of p) den = (den / gcd(den, c.den)) * c.den;
+  return [p.map((c) => c.num * (den / c.den)), den];
+}
+
+function gcd(a: bigint, b: bigint): bigint {
+  while (b !== 0n) [a, b] = [b, a % b];
+  return a < 0n ? -a : a;
 }
 
 function polyAdd(a: Poly, b: Poly): Rational[] {

@@ -17,6 +17,7 @@ import { COST_MODELS, programCost } from '../ir/cost/index.js';
 import type { Family, ResultSpec } from '../family/types.js';
 import { SpecNumber } from '../family/spec-number.js';
 import { locate } from './locate.js';
+import { widerAdvice } from './refusals.js';
 import { appendResult, resultAnalysisProgram } from './result-program.js';
 import { largestBudget, resultBound, type ResultEvaluation } from './result-bound.js';
 import { withCandidates } from './candidates.js';
@@ -136,7 +137,7 @@ function refuseNoRoom(family: Family, ev: ResultEvaluation): never {
   const kind = family.accuracy.kind;
   throw new RootcastError(
     Number.isFinite(ev.rounding)
-      ? `the result's own rounding (${ev.rounding.toExponential(2)} ${kind}) leaves no room for the root's error within the target ${family.accuracy.value}; use arithmetic: float64, a looser target, or rewrite result:`
+      ? `the result's own rounding (${ev.rounding.toExponential(2)} ${kind}) leaves no room for the root's error within the target ${family.accuracy.value}; ${widerAdvice(family, ', ')}a looser target, or rewrite result:`
       : kind === 'relative'
         ? `the result may be zero, or its bound is not finite, somewhere over the box, so no relative bound holds; use accuracy: absolute or narrow the input ranges`
         : `the result's bound is not finite over the box (its values may overflow ${family.arithmetic}); rewrite result: or narrow the input ranges`,
