@@ -34,6 +34,13 @@ const SLOW = [
   'test/support/plan-cache.test.ts',
   // Runs scripts/gen-harness.js (ts-morph) through a dynamic import, which the import scan does not follow.
   'test/verify/harness-machinery.test.ts',
+  // These set their own timeouts (minutes): they plan every example or a slow one, so they are not unit tests.
+  'test/examples/golden.test.ts',
+  'test/examples/thermocouple.test.ts',
+  'test/plan/work-exact.test.ts',
+  'test/targets/gpu-cost.test.ts',
+  // Reads every test file's imports (as jest.config.js does at start-up): seconds on a busy machine.
+  'test/layout/test-kinds.test.ts',
 ];
 
 function testFiles(dir) {
