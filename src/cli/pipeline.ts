@@ -38,7 +38,7 @@ export function claimsOf(plan: Plan): PlanClaims {
     ops: plan.ops,
     costModel: plan.costModel,
     ...(plan.result
-      ? { result: { text: plan.result.text, slope: plan.result.slope, rootBudget: plan.result.rootBudget, rootBound: rootBoundParts(plan.result.rootBound) } }
+      ? { result: { text: plan.result.text, slope: plan.result.slope, rootBudget: plan.result.rootBudget, ...(plan.result.folded ? { folded: true } : {}), rootBound: rootBoundParts(plan.result.rootBound) } }
       : {}),
   };
 }

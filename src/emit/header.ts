@@ -88,6 +88,16 @@ function boundLines(b: BoundParts): string[] {
  */
 function resultBoundLines(family: Family, r: ResultClaims, b: BoundParts): string[] {
   const root = r.rootBound;
+  if (r.folded) {
+    return [
+      `certified bound on the result (${b.kind} error, over the whole input box):`,
+      `  from series ${formatBoundUp(b.truncation)}  (the series' truncation on ${family.unknown} times |d result / d ${family.unknown}| <= ${formatBoundUp(r.slope)})`,
+      `  economised  ${formatBoundUp(b.economisation ?? 0)}  (the folded polynomial's dropped Chebyshev terms)`,
+      `  rounding    ${formatBoundUp(b.rounding)}  (the one polynomial evaluated)`,
+      `  total       ${formatBoundUp(b.total)}`,
+      ...labelled('root bound:', wrapWords(`${family.unknown}: truncation ${formatBoundUp(root.truncation)} (absolute; the result is folded into the series, so ${family.unknown} itself is never computed)`, WRAP_COLUMN - LABEL_WIDTH)),
+    ];
+  }
   const rootParts = `truncation ${formatBoundUp(root.truncation)}${root.economisation === undefined ? '' : ` + economisation ${formatBoundUp(root.economisation)}`} + rounding ${formatBoundUp(root.rounding)}`;
   return [
     `certified bound on the result (${b.kind} error, over the whole input box):`,

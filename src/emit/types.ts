@@ -51,6 +51,8 @@ export interface ResultClaims {
   readonly slope: number;
   /** The root's absolute accuracy budget and its certified absolute bound's parts. */
   readonly rootBudget: number;
+  /** True when the result is folded into the series (the root is never computed; its bound is the series' truncation alone). */
+  readonly folded?: boolean;
   readonly rootBound: {
     readonly truncation: number;
     readonly economisation?: number;

@@ -123,6 +123,12 @@ export interface Family {
   readonly outsideBox: OutsideBox;
   /** `result:` when the function returns an expression at the root instead of the root. */
   readonly result?: ResultSpec;
+  /**
+   * Set by the planner's result stage only (never by the reader): plan the
+   * result folded into the series (src/plan/forms/folded.ts) instead of the
+   * root, with `accuracy` the result's.
+   */
+  readonly foldResult?: true;
   /** Field path -> position of its value in the file, for messages after parsing. */
   readonly positions: Readonly<Record<string, Pos>>;
 }

@@ -92,6 +92,7 @@ function planSegmentsInner(family: Family, box: Cell, layout: SegmentLayout, tho
   if (eligible.length === 0) {
     // The series' own refusal says most; a fixed step count that no plan meets, where another count does, says so.
     if (found.all.length > 0 && stepsKnob !== 'auto') refuseSteps(family, stepsKnob);
+    if (family.foldResult) throw new RootcastError('the result folded into the series meets the target with no economised degree for these segments', locate(family, 'result'));
     throw refusal ?? new RootcastError(
       `no plan with ${stepsKnob} Newton step${stepsKnob === 1 ? '' : 's'} meets the target for these segments; loosen the accuracy`,
       locate(family, 'plan.newton_steps'),

@@ -45,6 +45,18 @@ export function makePlan(family: Family, options: PlanOptions = {}): Plan {
 }
 
 /**
+ * The folded plan alone (src/plan/forms/folded.ts), as the result stage's
+ * folded trial finds it, whichever plan the choice would keep: for tests and
+ * benchmarks that check the folded form's bound. A RootcastError when no
+ * folded plan meets the target.
+ */
+export function makeFoldedPlan(family: Family, options: PlanOptions = {}): Plan {
+  if (!family.result || family.inputs.length !== 1) throw new RangeError('a folded plan needs result: and one input');
+  startWork(options.onWork ?? null);
+  return applyOutsideBox(planWithinLimit({ ...family, foldResult: true }));
+}
+
+/**
  * A refusal that quotes a fix stands only if the fix works: the family with
  * it applied is planned as the user's next run would plan it (a fresh work
  * meter, so the same computation). A rounding floor can move with the target

@@ -58,6 +58,16 @@ function enclosures(powers: readonly (Expr | null)[], cell: Cell, family: Family
   return powers.map((e) => (e ? encloseExpr(e, cell, family.constants) : point(0)));
 }
 
+/** Upper bound of |d result / dx| over the cell times the interval J of the unknown (`derivative` from derivativePowers). */
+export function slopeOver(family: Family, derivative: readonly (Expr | null)[], cell: Cell, J: Interval): number {
+  return mag(hornerInterval(enclosures(derivative, cell, family), J));
+}
+
+/** Lower bound of |result| over the cell times the root's enclosure (what a relative part is divided by; 0 when it may vanish). */
+export function resultFloor(family: Family, spec: ResultSpec, cell: Cell, root: Interval): number {
+  return mig(hornerInterval(enclosures(spec.powers, cell, family), root));
+}
+
 /**
  * The result's bound for a root plan whose certified absolute bound is E,
  * over its certified cells. A cell without a finite bound makes the total
@@ -77,11 +87,11 @@ export function resultBound(family: Family, spec: ResultSpec, cells: readonly Ce
     const root = c.rootRange;
     if (!root || !(E >= 0) || !Number.isFinite(E)) return unbounded(out);
     const J = { lo: subDown(root.lo, E), hi: addUp(root.hi, E) };
-    const slope = mag(hornerInterval(enclosures(derivative, c.cell, family), J));
+    const slope = slopeOver(family, derivative, c.cell, J);
     const an = analyse(program, [...c.cell, J], { segment: c.segment, flushToZero });
     const rnd = an.errors[program.result]!;
     const overflow = largestComputed(an) > ARITHMETICS[program.arithmetic].maxFinite / OVERFLOW_HEADROOM;
-    const scale = relative ? mig(hornerInterval(enclosures(spec.powers, c.cell, family), root)) : 1;
+    const scale = relative ? resultFloor(family, spec, c.cell, root) : 1;
     if (!Number.isFinite(slope) || !Number.isFinite(rnd) || overflow || !(scale > 0)) return unbounded(out);
     out.push({ slope, rounding: rnd, scale });
     const part = mulUp(slope, E);

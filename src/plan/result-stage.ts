@@ -19,12 +19,50 @@ import { SpecNumber } from '../family/spec-number.js';
 import { locate } from './locate.js';
 import { appendResult, resultAnalysisProgram } from './result-program.js';
 import { largestBudget, resultBound, type ResultEvaluation } from './result-bound.js';
-import { RESULT_BUDGET } from './tuning.js';
+import { withCandidates } from './candidates.js';
+import { FOLD, RESULT_BUDGET, WORK } from './tuning.js';
+import { spendAtMost, WorkLimitError } from './work.js';
 import type { Plan } from './types.js';
 
 export function planWithResult(family: Family, planRoot: (f: Family) => Plan): Plan {
   const spec = family.result;
   if (!spec) return planRoot(family);
+  let unfolded: Plan | null = null;
+  let refusal: unknown = null;
+  try {
+    unfolded = planUnfolded(family, spec, planRoot);
+  } catch (e) {
+    if (!(e instanceof RootcastError)) throw e;
+    refusal = e;
+  }
+  const folded = foldedTrial(family, planRoot);
+  if (!folded) {
+    if (unfolded) return unfolded;
+    throw refusal;
+  }
+  // The cheaper wins (a tie keeps the unfolded plan); both kinds of rows are shown.
+  const best = unfolded && unfolded.cost <= folded.cost ? unfolded : folded;
+  const foldedRows = folded.candidates.filter((c) => c.refusal === null && c.form === 'folded');
+  return withCandidates(best, [...(unfolded?.candidates ?? []), ...foldedRows]);
+}
+
+/**
+ * The folded trial (src/plan/forms/folded.ts): one input only, within
+ * FOLD.workShare of the work limit; null when no folded plan meets the
+ * target (its refusals are not the user's: the unfolded plan's stand).
+ */
+function foldedTrial(family: Family, planRoot: (f: Family) => Plan): Plan | null {
+  if (family.inputs.length !== 1) return null;
+  try {
+    return spendAtMost(WORK.limit * FOLD.workShare, () => planRoot({ ...family, foldResult: true }));
+  } catch (e) {
+    if (e instanceof RootcastError || e instanceof WorkLimitError) return null;
+    throw e;
+  }
+}
+
+/** The root planned to the cheapest budget, the result appended. */
+function planUnfolded(family: Family, spec: ResultSpec, planRoot: (f: Family) => Plan): Plan {
   const target = Number(family.accuracy.value);
   const program = resultAnalysisProgram(family, spec);
   const tryBudget = (budget: number): { root: Plan; ev: ResultEvaluation } => {
@@ -68,7 +106,7 @@ function firstTry<T>(budgets: readonly number[], attempt: (b: number) => T): T {
 
 /** The root planned to an absolute budget; a refusal says it was for the result. */
 function planRootTo(family: Family, planRoot: (f: Family) => Plan, budget: number): Plan {
-  const { result: _result, ...rest } = family;
+  const { result: _result, foldResult: _fold, ...rest } = family;
   const rootFamily: Family = { ...rest, accuracy: { kind: 'absolute', value: SpecNumber.parse(budgetText(budget)) } };
   try {
     return planRoot(rootFamily);
@@ -110,7 +148,7 @@ function withResult(family: Family, spec: ResultSpec, root: Plan, ev: ResultEval
     target,
     bound: { kind: family.accuracy.kind, truncation: ev.carried, rounding: ev.rounding, total: ev.total },
     absoluteBound: ev.absolute,
-    result: { text: spec.text, slope: ev.slope, rootBudget: Number(root.family.accuracy.value), rootBound: root.bound, rootOps: root.ops },
+    result: { text: spec.text, slope: ev.slope, rootBudget: Number(root.family.accuracy.value), rootBound: root.bound, rootOps: root.ops, folded: false },
     candidates: root.candidates.map((c) => (c.ops === null || c.cost === null ? c : { ...c, ops: plus(c.ops, extra.ops), cost: c.cost + extra.cost })),
   };
 }

@@ -160,6 +160,44 @@ export const ECONOMISE = {
   leastBudget: 1 / 32,
 } as const;
 
+/**
+ * The result folded into the series (src/plan/forms/folded.ts,
+ * src/plan/result-fold.ts): the composite of the result polynomial with the
+ * collapsed series, economised.
+ */
+export const FOLD = {
+  /**
+   * Composite degree limit before economisation: exact Chebyshev arithmetic
+   * is quadratic in it per segment, and a composite this long economises to
+   * far fewer terms or not at all (48 is three times a cubic result of the
+   * graded form's highest economised order, ECONOMISE.maxOrder).
+   */
+  maxDegree: 48,
+  /** Series orders weighed: beyond ECONOMISE.maxOrder the composite passes maxDegree for any result above linear. */
+  maxOrder: 16,
+  /** Orders past the first one whose carried part fits: more terms leave more of the target to economisation. */
+  extraOrders: 2,
+  /** Economisation budgets as in ECONOMISE: the first is this share of the room the carried part leaves... */
+  firstBudget: 1 / 2,
+  /** ...divided by this factor between trials... */
+  budgetStep: 4,
+  /** ...down to this share. */
+  leastBudget: 1 / 32,
+  /**
+   * Share of the work limit the folded trial may use (a second segment
+   * search, one input only): it must not starve the unfolded plan, which
+   * the result stage has already found when the trial starts.
+   */
+  workShare: 0.25,
+  /**
+   * Significand bits the folded polynomial's exact coefficients are rounded
+   * to (toward zero, the change bounded exactly and added to the bound):
+   * 2^-128 relative is far below any float64 bound, and short rationals keep
+   * the Chebyshev basis change fast.
+   */
+  bits: 128,
+} as const;
+
 /** The greedy term set (src/plan/forms/greedy.ts). */
 export const GREEDY = {
   /** Grades past the graded plan's order that the greedy pool may draw on: a term of a higher grade can matter more than one of the order's own grade. */

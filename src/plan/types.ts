@@ -10,9 +10,12 @@ import type { CellFacts } from './cell-bound.js';
 /**
  * 'series': every term up to the order, evaluated as built; 'greedy': the
  * series with a greedy term set (src/plan/term-choice.ts); 'economised':
- * collapsed to a polynomial in the input and Chebyshev-economised.
+ * collapsed to a polynomial in the input and Chebyshev-economised; 'folded':
+ * the spec's result composed with the collapsed series and economised
+ * (src/plan/forms/folded.ts; the program returns the result, the root is
+ * never computed).
  */
-export type PlanForm = 'series' | 'greedy' | 'economised';
+export type PlanForm = 'series' | 'greedy' | 'economised' | 'folded';
 
 export interface Bound {
   readonly kind: 'absolute' | 'relative';
@@ -41,8 +44,15 @@ export interface ResultPlan {
   /** The root's accuracy budget the planner chose (absolute), and the root plan's bound (absolute). */
   readonly rootBudget: number;
   readonly rootBound: Bound;
-  /** Op counts of the root part alone (the result adds the rest). */
+  /** Op counts of the root part alone (the result adds the rest; none when folded). */
   readonly rootOps: OpCounts;
+  /**
+   * True when the result is folded into the series (form 'folded'): the bound's
+   * truncation is then L times the series' truncation bound on the root (the
+   * root's `rootBound`, which has no rounding: the root is never computed), and
+   * its economisation the composite's.
+   */
+  readonly folded: boolean;
 }
 
 /** One plan the search weighed (for `rootcast plan`'s table). */

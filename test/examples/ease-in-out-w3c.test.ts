@@ -19,10 +19,17 @@
  * grid, xorshift32 points, segment edges). Tolerance: the certified bound of
  * the plan (the result's bound, absolute), which must itself be within the
  * spec's target 1e-5.
+ *
+ * The folded plan (the result composed with the collapsed series and
+ * economised, src/plan/forms/folded.ts) is weighed beside the chosen one; it
+ * is planned on its own here (makeFoldedPlan) and its program, evaluated in
+ * process, is held to its own certified bound against the same reference.
  */
 import { afterAll, beforeAll, describe, expect, test } from '@jest/globals';
 import { Decimal } from 'decimal.js';
 import { evaluate } from '../../src/ir/evaluate.js';
+import { makeFoldedPlan } from '../../src/plan/plan.js';
+import { loadSpec } from '../../src/reader/load.js';
 import { checkSamplePoints } from '../../src/verify/samples.js';
 import { emitExample, fileEndingWith, type EmittedExample } from './support/emit-example.js';
 import { transpileTsFunction } from './support/run-ts.js';
@@ -74,6 +81,17 @@ beforeAll(() => {
 
 afterAll(() => dir.remove());
 
+function failuresAgainstW3c(values: readonly number[], at: readonly number[][], bound: number): { failures: string[]; worst: number } {
+  const failures: string[] = [];
+  let worst = 0;
+  at.forEach((p, i) => {
+    const error = new D(values[i]!).sub(w3cEaseInOut(p[0]!)).abs().toNumber();
+    worst = Math.max(worst, error);
+    if (!(error <= bound)) failures.push(`x = ${p[0]}: y = ${values[i]}, W3C ${w3cEaseInOut(p[0]!).toString()}, difference ${error}, tolerance ${bound}`);
+  });
+  return { failures, worst };
+}
+
 describe('ease_in_out (result: y) against the W3C cubic-bezier(0.42, 0, 0.58, 1)', () => {
   test('the spec uses the W3C control points, returns y through result:, and its bound is within the target', () => {
     const f = example.plan.family;
@@ -104,4 +122,14 @@ describe('ease_in_out (result: y) against the W3C cubic-bezier(0.42, 0, 0.58, 1)
     // The comparison is not vacuous: the float32 function is not exact.
     expect(worst).toBeGreaterThan(0);
   });
+
+  test('the folded plan (in process): every sample point is within its own certified bound of the W3C value', () => {
+    const folded = makeFoldedPlan(loadSpec(SPEC));
+    expect(folded.form).toBe('folded');
+    expect(folded.bound.total).toBeLessThanOrEqual(TARGET);
+    const at = checkSamplePoints(folded.family, folded.program, 2000, 1);
+    const { failures, worst } = failuresAgainstW3c(at.map((p) => evaluate(folded.program, p)), at, folded.bound.total);
+    expect(failures).toEqual([]);
+    expect(worst).toBeGreaterThan(0);
+  }, 600_000);
 });

@@ -19,7 +19,7 @@ import { SpecNumber } from '../../src/family/spec-number.js';
 import { checkSamplePoints } from '../../src/verify/samples.js';
 import { demoInput } from '../emit/support/family.js';
 import { ALL_SAMPLES } from '../emit/support/programs.js';
-import { dumpPage } from './support/page.js';
+import { dumpPages, type PageDump } from './support/page.js';
 import { segmentedProgram, twoLevelProgram } from './support/segmented.js';
 
 const view = new DataView(new ArrayBuffer(4));
@@ -52,11 +52,20 @@ const POINTS = 300;
 const report: string[] = [];
 afterAll(() => console.log(`GLSL printer programs on WebGL2, bit-identical to evaluate():\n${report.join('\n')}`));
 
+const inputOf = (program: Program, box: readonly (readonly [number, number])[]) =>
+  demoInput(program, { functionName: 'x_gpu', inputs: program.inputs.map((n, j) => ({ name: n, lo: SpecNumber.parse(String(box[j]![0])), hi: SpecNumber.parse(String(box[j]![1])) })) });
+
+/** Every case's page in one Chromium, one tab after another, run on the first test that needs them. */
+let dumps: PageDump[] | null = null;
+const dumpOf = (k: number): PageDump => {
+  dumps ??= dumpPages(cases.map(([, { program, box }]) => ({ name: 'x_gpu', page: glslHarness(inputOf(program, box)), inputs: program.inputs.length, samples: POINTS, seed: 7 })));
+  return dumps[k]!;
+};
+
 describe('every printer program gives the bits of evaluate() on WebGL2, both overloads', () => {
-  test.each(cases)('%s', (label, { program, box }) => {
-    const name = 'x_gpu';
-    const input = demoInput(program, { functionName: name, inputs: program.inputs.map((n, j) => ({ name: n, lo: SpecNumber.parse(String(box[j]![0])), hi: SpecNumber.parse(String(box[j]![1])) })) });
-    const dump = dumpPage(name, glslHarness(input), program.inputs.length, POINTS, 7);
+  test.each(cases.map(([label, c], k) => [label, c, k] as const))('%s', (label, { program, box }, k) => {
+    const input = inputOf(program, box);
+    const dump = dumpOf(k);
     expect(dump.run.stderr).toBe('');
     // The segment edge points included (src/verify/samples.ts, step 4).
     const points = checkSamplePoints(input.family, program, POINTS, 7);

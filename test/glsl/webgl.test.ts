@@ -16,11 +16,11 @@ import { evaluate } from '../../src/ir/evaluate.js';
 import { RootcastError } from '../../src/errors.js';
 import { glslHarness } from '../../src/emit/harness/glsl.js';
 import { checkInProcess } from '../../src/verify/inprocess.js';
-import { runGlslPage } from '../../src/verify/glsl/run-page.js';
+import { runGlslPage, runGlslPages, type PageRun } from '../../src/verify/glsl/run-page.js';
 import { checkSamplePoints } from '../../src/verify/samples.js';
 import { formatSummary, parseSummary } from '../../src/verify/summary.js';
 import { emitGlslExample, float32Examples } from './support/examples.js';
-import { dumpPage } from './support/page.js';
+import { dumpPages, type PageDump } from './support/page.js';
 
 /** 2000 points per example keep the run short on a loaded two-core machine; verify uses 10000 by default. */
 const SAMPLES = 2000;
@@ -44,13 +44,38 @@ afterAll(() => {
   if (report.length > 0) console.log(`GLSL on WebGL2 (SwiftShader), bit-identical to C/TypeScript/evaluate():\n${report.join('\n')}`);
 });
 
+/**
+ * Every page of this file in one Chromium, one tab after another (a browser
+ * start per page was most of the file's time): the examples' pages, then the
+ * page with a false claim, then the page with bad parameters. Run once, on
+ * the first test that needs it.
+ */
+let batch: { dumps: Map<string, PageDump>; tight: PageRun; bad: PageRun } | null = null;
+function pages(): NonNullable<typeof batch> {
+  if (batch) return batch;
+  const specs = float32Examples();
+  const examples = specs.map((spec) => {
+    const { input, page } = emitGlslExample(spec);
+    return { name: input.family.functionName, page, inputs: input.program.inputs.length, samples: SAMPLES, seed: SEED };
+  });
+  const { input } = emitGlslExample(specs[0]!);
+  const tight = { ...input, claims: { ...input.claims, bound: { ...input.claims.bound, total: 1e-7 } } };
+  const name = input.family.functionName;
+  const dumps = dumpPages(examples);
+  const [falseClaim, badParameters] = runGlslPages([
+    { name, files: [glslHarness(tight)], options: { samples: 500, seed: 3 } },
+    { name, files: [emitGlslExample(specs[0]!).page], options: { samples: 0, seed: 1 } },
+  ]);
+  batch = { dumps: new Map(specs.map((spec, k) => [spec, dumps[k]!])), tight: falseClaim!, bad: badParameters! };
+  return batch;
+}
+
 describe('the GLSL page on WebGL2 in headless Chromium', () => {
   test.each(float32Examples())('%s: both overloads pass with measured <= bound <= target', (spec) => {
-    const { input, page } = emitGlslExample(spec);
+    const { input } = emitGlslExample(spec);
     const { family, program, claims } = input;
     const name = family.functionName;
-    const d = program.inputs.length;
-    const dump = dumpPage(name, page, d, SAMPLES, SEED);
+    const dump = pages().dumps.get(spec)!;
     expect({ exitCode: dump.run.exitCode, stderr: dump.run.stderr }).toEqual({ exitCode: 0, stderr: '' });
 
     // The page visits exactly the points of src/verify/samples.ts, the segment edge points included.
@@ -102,10 +127,7 @@ describe('the GLSL page on WebGL2 in headless Chromium', () => {
   }, BROWSER_MS);
 
   test('the page can fail: claiming a bound far below the measured error gives FAIL on both lines and exit code 1', () => {
-    const { input } = emitGlslExample(float32Examples()[0]!);
-    const tight = { ...input, claims: { ...input.claims, bound: { ...input.claims.bound, total: 1e-7 } } };
-    const page = glslHarness(tight);
-    const run = runGlslPage(input.family.functionName, [page], { samples: 500, seed: 3 });
+    const run = pages().tight;
     expect(run.exitCode).toBe(1);
     const lines = run.stdout.trim().split('\n');
     expect(lines.map((l) => parseSummary(l)).map((s) => [s.language, s.pass, s.bound])).toEqual([
@@ -115,8 +137,7 @@ describe('the GLSL page on WebGL2 in headless Chromium', () => {
   }, BROWSER_MS);
 
   test('bad page parameters exit 2 with a usage line', () => {
-    const { input, page } = emitGlslExample(float32Examples()[0]!);
-    const run = runGlslPage(input.family.functionName, [page], { samples: 0, seed: 1 });
+    const run = pages().bad;
     expect(run.exitCode).toBe(2);
     expect(run.stdout).toMatch(/^usage: \w+\.glsl-check\.html\?samples=N&seed=S&dump=1 /);
   }, BROWSER_MS);

@@ -26,7 +26,7 @@ import { Rational } from '../../src/math/rational.js';
 import { branchy, checkEmittedBranches } from '../../src/verify/branches.js';
 import { compileHlsl } from '../../src/verify/hlsl/compile.js';
 import { runRustBits } from '../../src/verify/rust/run.js';
-import { runWgslBits } from '../../src/verify/wgsl/run.js';
+import { runWgslMany, type WgslRun } from '../../src/verify/wgsl/run.js';
 import { fragmentShader, openShaderBrowser, type ShaderBrowser } from '../glsl/support/shader-run.js';
 import { cachedPlanOf } from '../support/plan-cache.js';
 import { REPO } from './support/cli.js';
@@ -242,11 +242,25 @@ describe('inputs_outside_box: saturate', () => {
     expect(cases.map((k, i) => ({ k: k.label, c: c[i]!, rust: rs.bits![i]! })).filter((r) => r.c !== r.rust && !(Number.isNaN(fromBits(r.c, a)) && Number.isNaN(fromBits(r.rust, a))))).toEqual([]);
   }, 300_000);
 
+  /** Every float32 example's saturated shader in one Chromium, a tab each (runWgslMany), run on the first test that needs them. */
+  let wgslRuns: Map<string, WgslRun> | null = null;
+  const wgslRunOf = (example: string): WgslRun => {
+    if (!wgslRuns) {
+      const jobs = float32.map((e) => {
+        const input = saturated(e);
+        return { file: emitFiles(input, ['wgsl']).find((f) => f.path.endsWith('.wgsl'))!, program: input.program, name: input.family.functionName, rows: casesFor(input).map((c) => c.inputs) };
+      });
+      const runs = runWgslMany(jobs);
+      wgslRuns = new Map(float32.map((e, k) => [e, runs[k]!]));
+    }
+    return wgslRuns.get(example)!;
+  };
+
   test.each(float32)('%s: WGSL on WebGPU (SwiftShader), f32 and vec4 forms, returns the range end value bit for bit outside the box; HLSL compiles', (example) => {
     const input = saturated(example);
     const name = input.family.functionName;
     const cases = casesFor(input);
-    const run = runWgslBits(emitFiles(input, ['wgsl']).find((f) => f.path.endsWith('.wgsl'))!, input.program, name, cases.map((c) => c.inputs));
+    const run = wgslRunOf(example);
     expect({ problem: run.problem, messages: run.messages }).toEqual({ problem: '', messages: [] });
     expect(broken(cases, run.bits, 'float32', true)).toEqual([]);
     expect(broken(cases, run.vectorBits.slice(0, cases.length), 'float32', true)).toEqual([]);

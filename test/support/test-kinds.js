@@ -19,6 +19,7 @@ const SLOW = [
   'test/plan/bound-property.test.ts',
   'test/plan/polish-property.test.ts',
   'test/plan/result-property.test.ts',
+  'test/plan/result-fold.test.ts',
   'test/plan/plan.test.ts',
   'test/plan/segments.test.ts',
   'test/plan/cost-model.test.ts',

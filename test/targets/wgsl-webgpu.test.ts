@@ -20,7 +20,7 @@ import { DEFAULT_CHROMIUM } from '../../src/verify/glsl/browser.js';
 import { agreement, bitsOf, valueOfBits } from '../../src/verify/bits.js';
 import { makeMeasurer } from '../../src/verify/measure.js';
 import { checkSamplePoints } from '../../src/verify/samples.js';
-import { runWgslBits } from '../../src/verify/wgsl/run.js';
+import { runWgslBits, runWgslMany, type WgslRun } from '../../src/verify/wgsl/run.js';
 import { emitExample } from '../examples/support/emit-example.js';
 import { exampleFiles, specPathOf } from '../examples/support/repo.js';
 import { compileCFunction } from '../examples/support/run-c.js';
@@ -30,6 +30,22 @@ import { makeWorkDir } from '../examples/support/workdir.js';
 const dir = makeWorkDir('wgsl');
 afterAll(() => dir.remove());
 const SAMPLES = 2000;
+
+/** Every float32 example's shader in one Chromium, a tab each (runWgslMany), run on the first test that needs them. */
+let runs: Map<string, WgslRun> | null = null;
+function runOf(file: string): WgslRun {
+  if (!runs) {
+    const files = exampleFiles().filter((f) => emitExample(specPathOf(f)).input.program.arithmetic === 'float32');
+    const jobs = files.map((f) => {
+      const { input } = emitExample(specPathOf(f));
+      const { family, program } = input;
+      return { file: wgslFunction(input), program, name: family.functionName, rows: checkSamplePoints(family, program, SAMPLES, 1) };
+    });
+    const results = runWgslMany(jobs);
+    runs = new Map(files.map((f, k) => [f, results[k]!]));
+  }
+  return runs.get(file)!;
+}
 
 describe('every float32 example runs on WebGPU (SwiftShader) within its certified bound', () => {
   if (!existsSync(DEFAULT_CHROMIUM)) throw new Error(`${DEFAULT_CHROMIUM} is missing: .ci/run installs chromium`);
@@ -42,7 +58,7 @@ describe('every float32 example runs on WebGPU (SwiftShader) within its certifie
     }
     const name = family.functionName;
     const rows = checkSamplePoints(family, program, SAMPLES, 1);
-    const run = runWgslBits(wgslFunction(input), program, name, rows);
+    const run = runOf(file);
     expect(run.problem).toBe('');
     expect(run.messages).toEqual([]);
     expect(run.bits.length).toBe(rows.length);

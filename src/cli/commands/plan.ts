@@ -59,7 +59,7 @@ export function planJson(plan: Plan): { readonly generator: typeof GENERATOR; re
     steps: c.steps,
     cells: plan.cells,
     bound: c.bound,
-    ...(c.result ? { result: { expression: c.result.text, slope: c.result.slope, rootBudget: c.result.rootBudget, rootBound: c.result.rootBound } } : {}),
+    ...(c.result ? { result: { expression: c.result.text, slope: c.result.slope, rootBudget: c.result.rootBudget, folded: c.result.folded === true, rootBound: c.result.rootBound } } : {}),
     absoluteBound: c.absoluteBound,
     target: c.target,
     ops: c.ops,
@@ -154,6 +154,13 @@ function boundRows(plan: Plan): [string, string][] {
   const r = c.result;
   if (!r) return [['bound', `${b.kind}: ${parts(b)}`]];
   const u = plan.family.unknown;
+  if (r.folded) {
+    return [
+      ['result', `${r.text} at the root ${u}, folded into the series`],
+      ['bound', `${b.kind}, of the result: from the series ${formatBoundUp(b.truncation)} (|d result / d ${u}| <= ${formatBoundUp(r.slope)}) + economisation ${formatBoundUp(b.economisation ?? 0)} + rounding ${formatBoundUp(b.rounding)} -> total ${formatBoundUp(b.total)}`],
+      ['root bound', `absolute, of ${u}: truncation ${formatBoundUp(r.rootBound.truncation)} (the series in ${u}, composed exactly; ${u} itself is never computed)`],
+    ];
+  }
   return [
     ['result', `${r.text} at the root ${u}`],
     ['bound', `${b.kind}, of the result: from the root ${formatBoundUp(b.truncation)} (|d result / d ${u}| <= ${formatBoundUp(r.slope)}) + rounding ${formatBoundUp(b.rounding)} -> total ${formatBoundUp(b.total)}`],
@@ -162,6 +169,7 @@ function boundRows(plan: Plan): [string, string][] {
 }
 
 function formText(plan: Plan): string {
+  if (plan.form === 'folded') return `the result composed with the collapsed series as a polynomial in ${plan.family.inputs[0]!.name}, Chebyshev-economised to degree ${plan.degree}`;
   if (plan.form === 'economised') return `series collapsed to a polynomial in ${plan.family.inputs[0]!.name}, Chebyshev-economised to degree ${plan.degree}`;
   const steps = plan.steps > 0 ? `, then ${plan.steps} Newton step${plan.steps === 1 ? '' : 's'}` : '';
   const terms = plan.form === 'greedy' ? ' with a greedy term set (largest majorant contributions first)' : '';

@@ -16,6 +16,7 @@
 import { ECONOMISE } from '../tuning.js';
 import type { FormRow, Precondition } from './context.js';
 import { economisedPlan } from './economised.js';
+import { foldedPlan } from './folded.js';
 import { greedyPlan, qVaries } from './greedy.js';
 import { polishedPlans } from './polished.js';
 import { seriesOrderPlan } from './series-order.js';
@@ -27,16 +28,21 @@ const seriesOrderAtMost = (n: number): Precondition => ({ says: `the graded seri
 const someQVaries: Precondition = { says: 'some q_k varies with the inputs', holds: (ctx) => qVaries(ctx.ap) };
 const stepsAllowed: Precondition = { says: 'plan.newton_steps is not 0', holds: (ctx) => ctx.family.plan.newtonSteps !== 0 };
 
+/** The result stage's folded trial weighs the folded form alone; every other form plans the root. */
+const rootPlanned: Precondition = { says: 'the root is planned (not the folded trial)', holds: (ctx) => !ctx.family.foldResult };
+const folding: Precondition = { says: "the result stage's folded trial", holds: (ctx) => ctx.family.foldResult === true && ctx.family.result !== undefined };
+
 const one = <T>(x: T | null): T[] => (x ? [x] : []);
 
 export const FORMS: readonly FormRow[] = [
-  { name: 'series-order', requires: [], keepsRefusal: true, build: (ctx) => [seriesOrderPlan(ctx)] },
+  { name: 'series-order', requires: [rootPlanned], keepsRefusal: true, build: (ctx) => [seriesOrderPlan(ctx)] },
   {
     name: 'economised',
-    requires: [seriesFound, oneInput, atMostSegments(ECONOMISE.maxSegments), seriesOrderAtMost(ECONOMISE.maxOrder)],
+    requires: [rootPlanned, seriesFound, oneInput, atMostSegments(ECONOMISE.maxSegments), seriesOrderAtMost(ECONOMISE.maxOrder)],
     keepsRefusal: false,
     build: (ctx, found) => one(economisedPlan(ctx, found.first('series-order')!)),
   },
-  { name: 'greedy', requires: [seriesFound, someQVaries], keepsRefusal: false, build: (ctx, found) => one(greedyPlan(ctx, found.first('series-order')!)) },
-  { name: 'polished', requires: [stepsAllowed], keepsRefusal: false, build: polishedPlans },
+  { name: 'greedy', requires: [rootPlanned, seriesFound, someQVaries], keepsRefusal: false, build: (ctx, found) => one(greedyPlan(ctx, found.first('series-order')!)) },
+  { name: 'polished', requires: [rootPlanned, stepsAllowed], keepsRefusal: false, build: polishedPlans },
+  { name: 'folded', requires: [folding, oneInput], keepsRefusal: false, build: (ctx) => one(foldedPlan(ctx)) },
 ];

@@ -32,61 +32,102 @@ export interface PageOptions {
   readonly timeoutMs?: number;
 }
 
-/** The child's program: launch, load, wait, print the page's output, exit with the page's code. */
+/**
+ * The child's program: launch once, then load each page in turn in a new tab,
+ * wait, and collect its output; print them as one JSON array. A page that
+ * fails is reported in its own entry and the next page still runs.
+ */
 const CHILD = `
 const job = JSON.parse(process.env.ROOTCAST_GLSL_JOB);
 const pw = await import(job.playwright);
 const chromium = pw.chromium ?? pw.default.chromium;
-const context = await chromium.launchPersistentContext(job.profile, { executablePath: job.chromium, headless: true, args: job.args });
-let code = 1;
+const results = [];
+const firstLine = (e) => String(e && e.message ? e.message : e).split('\\n')[0];
+let context = null;
 try {
-  const page = await context.newPage();
-  const errors = [];
-  page.on('pageerror', (e) => errors.push(String(e && e.message ? e.message : e)));
-  await page.goto(job.url);
-  try {
-    await page.waitForFunction(() => window.rootcastDone !== undefined, null, { timeout: job.timeoutMs, polling: 100 });
-  } catch (e) {
-    throw new Error(errors.length > 0 ? 'the page failed: ' + errors[0] : 'the page did not finish within ' + job.timeoutMs + ' ms');
+  context = await chromium.launchPersistentContext(job.profile, { executablePath: job.chromium, headless: true, args: job.args });
+  for (const p of job.pages) {
+    const page = await context.newPage();
+    const errors = [];
+    page.on('pageerror', (e) => errors.push(String(e && e.message ? e.message : e)));
+    try {
+      await page.goto(p.url);
+      try {
+        await page.waitForFunction(() => window.rootcastDone !== undefined, null, { timeout: p.timeoutMs, polling: 100 });
+      } catch (e) {
+        throw new Error(errors.length > 0 ? 'the page failed: ' + errors[0] : 'the page did not finish within ' + p.timeoutMs + ' ms');
+      }
+      const done = await page.evaluate(() => window.rootcastDone);
+      results.push({ exitCode: done.exitCode, stdout: done.output, stderr: '' });
+    } catch (e) {
+      results.push({ exitCode: 1, stdout: '', stderr: firstLine(e) + '\\n' });
+    } finally {
+      await page.close();
+    }
   }
-  const done = await page.evaluate(() => window.rootcastDone);
-  process.stdout.write(done.output);
-  code = done.exitCode;
 } catch (e) {
-  process.stderr.write(String(e && e.message ? e.message : e).split('\\n')[0] + '\\n');
-  code = 1;
+  const line = firstLine(e) + '\\n';
+  while (results.length < job.pages.length) results.push({ exitCode: 1, stdout: '', stderr: line });
 } finally {
-  await context.close();
+  if (context) await context.close();
 }
-process.exitCode = code;
+process.stdout.write(JSON.stringify(results));
 `;
+
+/** One page to run: the function's name, the emitted files (NAME.glsl-check.html among them) and the page's options. */
+export interface PageJob {
+  readonly name: string;
+  readonly files: readonly EmittedFile[];
+  readonly options: PageOptions;
+}
 
 /** Writes the page into a temporary folder and runs it; `files` must hold NAME.glsl-check.html. */
 export function runGlslPage(name: string, files: readonly EmittedFile[], o: PageOptions): PageRun {
-  const chromium = chromiumPath(o.chromium);
+  return runGlslPages([{ name, files, options: o }])[0]!;
+}
+
+/**
+ * Runs several pages in one Chromium, one tab after another, and returns one
+ * PageRun per job, in order: what runGlslPage returns for each, without a
+ * browser start per page. Every job must name the same Chromium.
+ */
+export function runGlslPages(jobs: readonly PageJob[]): PageRun[] {
+  if (jobs.length === 0) return [];
+  const executables = new Set(jobs.map((j) => j.options.chromium));
+  if (executables.size !== 1) throw new Error('runGlslPages: every job must name the same Chromium');
+  const chromium = chromiumPath(jobs[0]!.options.chromium);
   const playwright = playwrightModuleUrl();
-  const pagePath = `${name}.glsl-check.html`;
-  const page = files.find((f) => f.path === pagePath);
-  if (!page) throw new Error(`no ${pagePath} among the emitted files`);
   const dir = mkdtempSync(join(tmpdir(), 'rootcast-glsl-'));
   try {
     const profile = join(dir, 'profile');
     mkdirSync(profile);
-    const file = join(dir, pagePath);
-    writeFileSync(file, page.text);
-    const query = new URLSearchParams({ samples: String(o.samples), seed: String(o.seed), ...(o.dump ? { dump: '1' } : {}) });
-    const job = {
-      playwright,
-      chromium,
-      profile,
-      args: CHROMIUM_ARGS,
-      url: `${pathToFileURL(file).href}?${query.toString()}`,
-      timeoutMs: o.timeoutMs ?? 60_000 + 10 * o.samples,
-    };
+    const pages = jobs.map(({ name, files, options: o }, k) => {
+      const pagePath = `${name}.glsl-check.html`;
+      const page = files.find((f) => f.path === pagePath);
+      if (!page) throw new Error(`no ${pagePath} among the emitted files`);
+      const folder = join(dir, `page-${k}`);
+      mkdirSync(folder);
+      const file = join(folder, pagePath);
+      writeFileSync(file, page.text);
+      const query = new URLSearchParams({ samples: String(o.samples), seed: String(o.seed), ...(o.dump ? { dump: '1' } : {}) });
+      return { url: `${pathToFileURL(file).href}?${query.toString()}`, timeoutMs: o.timeoutMs ?? 60_000 + 10 * o.samples };
+    });
+    const job = { playwright, chromium, profile, args: CHROMIUM_ARGS, pages };
     const env: NodeJS.ProcessEnv = { ...process.env, ROOTCAST_GLSL_JOB: JSON.stringify(job) };
     delete env['NODE_OPTIONS'];
     const run = spawnSync(process.execPath, ['--input-type=module', '-e', CHILD], { env, encoding: 'utf8', maxBuffer: 1 << 30 });
-    return { language: 'GLSL', exitCode: run.status ?? 1, stdout: run.stdout ?? '', stderr: run.stderr ?? '' };
+    let results: { exitCode: number; stdout: string; stderr: string }[] | null = null;
+    try {
+      results = JSON.parse(run.stdout ?? '') as { exitCode: number; stdout: string; stderr: string }[];
+    } catch {
+      results = null;
+    }
+    if (results === null || results.length !== jobs.length) {
+      // The child itself failed (it could not load playwright, say): every page gets its first line.
+      const line = `${(run.stderr ?? '').split('\n').find((l) => l.trim() !== '') ?? `the browser runner exited with ${run.status}`}\n`;
+      return jobs.map(() => ({ language: 'GLSL', exitCode: 1, stdout: '', stderr: line }));
+    }
+    return results.map((r) => ({ language: 'GLSL', exitCode: r.exitCode, stdout: r.stdout, stderr: r.stderr }));
   } finally {
     rmSync(dir, { recursive: true, force: true });
   }

@@ -35,22 +35,38 @@ export interface WgslRun {
   readonly problem: string;
 }
 
+/**
+ * The child's program: launch once, then load each page in turn in a new
+ * tab and collect what it returned; print one JSON array. A page that fails
+ * gets its first error line as `problem`, and the next page still runs.
+ */
 const CHILD = `
 const job = JSON.parse(process.env.ROOTCAST_WGSL_JOB);
 const pw = await import(job.playwright);
 const chromium = pw.chromium ?? pw.default.chromium;
-const context = await chromium.launchPersistentContext(job.profile, { executablePath: job.chromium, headless: true, args: job.args });
+const firstLine = (e) => String(e && e.message ? e.message : e).split('\\n')[0];
+const results = [];
+let context = null;
 try {
-  const page = await context.newPage();
-  await page.goto(job.url);
-  await page.waitForFunction(() => window.rootcastDone !== undefined, null, { timeout: job.timeoutMs, polling: 100 });
-  process.stdout.write(JSON.stringify(await page.evaluate(() => window.rootcastDone)));
+  context = await chromium.launchPersistentContext(job.profile, { executablePath: job.chromium, headless: true, args: job.args });
+  for (const p of job.pages) {
+    const page = await context.newPage();
+    try {
+      await page.goto(p.url);
+      await page.waitForFunction(() => window.rootcastDone !== undefined, null, { timeout: p.timeoutMs, polling: 100 });
+      results.push({ done: await page.evaluate(() => window.rootcastDone), problem: '' });
+    } catch (e) {
+      results.push({ done: null, problem: firstLine(e) });
+    } finally {
+      await page.close();
+    }
+  }
 } catch (e) {
-  process.stderr.write(String(e && e.message ? e.message : e).split('\\n')[0] + '\\n');
-  process.exitCode = 1;
+  while (results.length < job.pages.length) results.push({ done: null, problem: firstLine(e) });
 } finally {
-  await context.close();
+  if (context) await context.close();
 }
+process.stdout.write(JSON.stringify(results));
 `;
 
 export interface WgslRunOptions {
@@ -58,50 +74,68 @@ export interface WgslRunOptions {
   readonly timeoutMs?: number;
 }
 
+/** One shader to run: NAME.wgsl, its program and name, and the rows (float32 input values). */
+export interface WgslJob {
+  readonly file: EmittedFile;
+  readonly program: Program;
+  readonly name: string;
+  readonly rows: readonly (readonly number[])[];
+}
+
 /** Runs `file` (NAME.wgsl) on the rows (float32 input values). */
 export function runWgslBits(file: EmittedFile, program: Program, name: string, rows: readonly (readonly number[])[], o: WgslRunOptions = {}): WgslRun {
+  return runWgslMany([{ file, program, name, rows }], o)[0]!;
+}
+
+/** runWgslBits for several shaders in one Chromium, a tab each, one after another; one WgslRun per job, in order. */
+export function runWgslMany(jobs: readonly WgslJob[], o: WgslRunOptions = {}): WgslRun[] {
+  if (jobs.length === 0) return [];
   const chromium = chromiumPath(o.chromium);
   const playwright = playwrightModuleUrl();
-  const k = program.inputs.length;
-  // Pad to a multiple of 4 rows with copies of the last row, so every vec4 call reads real inputs.
-  const padded = [...rows];
-  while (padded.length % 4 !== 0 || padded.length === 0) padded.push(rows[rows.length - 1] ?? new Array<number>(k).fill(0));
-  const shader = renderTemplate('wgsl/compute-check.wgsl.hbs', {
-    functions: file.text,
-    rows: padded.length,
-    name,
-    scalarArguments: Array.from({ length: k }, (_, j) => `rc_in[${k}u * rc_i + ${j}u]`).join(', '),
-    vectorArguments: Array.from({ length: k }, (_, j) =>
-      `vec4<f32>(${[0, 1, 2, 3].map((c) => `rc_in[${k}u * (rc_i + ${c}u) + ${j}u]`).join(', ')})`,
-    ).join(', '),
-  });
-  const job = { shader, rows: padded.length, inputBits: padded.flatMap((r) => r.map((x) => bitsOf(x, 'float32'))) };
-  const page = renderTemplate('wgsl/bits-page.html.hbs', { name, jobJson: JSON.stringify(job).replace(/</g, '\\u003c') });
   const dir = mkdtempSync(join(tmpdir(), 'rootcast-wgsl-'));
   try {
     const profile = join(dir, 'profile');
     mkdirSync(profile);
-    const pagePath = join(dir, `${name}.wgsl-bits.html`);
-    writeFileSync(pagePath, page);
-    const childJob = {
-      playwright,
-      chromium,
-      profile,
-      args: WEBGPU_ARGS,
-      url: pathToFileURL(pagePath).href,
-      timeoutMs: o.timeoutMs ?? 60_000 + 5 * padded.length,
-    };
+    const pages = jobs.map(({ file, program, name, rows }, n) => {
+      const k = program.inputs.length;
+      // Pad to a multiple of 4 rows with copies of the last row, so every vec4 call reads real inputs.
+      const padded = [...rows];
+      while (padded.length % 4 !== 0 || padded.length === 0) padded.push(rows[rows.length - 1] ?? new Array<number>(k).fill(0));
+      const shader = renderTemplate('wgsl/compute-check.wgsl.hbs', {
+        functions: file.text,
+        rows: padded.length,
+        name,
+        scalarArguments: Array.from({ length: k }, (_, j) => `rc_in[${k}u * rc_i + ${j}u]`).join(', '),
+        vectorArguments: Array.from({ length: k }, (_, j) =>
+          `vec4<f32>(${[0, 1, 2, 3].map((c) => `rc_in[${k}u * (rc_i + ${c}u) + ${j}u]`).join(', ')})`,
+        ).join(', '),
+      });
+      const job = { shader, rows: padded.length, inputBits: padded.flatMap((r) => r.map((x) => bitsOf(x, 'float32'))) };
+      const page = renderTemplate('wgsl/bits-page.html.hbs', { name, jobJson: JSON.stringify(job).replace(/</g, '\\u003c') });
+      const pagePath = join(dir, `${n}-${name}.wgsl-bits.html`);
+      writeFileSync(pagePath, page);
+      return { url: pathToFileURL(pagePath).href, timeoutMs: o.timeoutMs ?? 60_000 + 5 * padded.length };
+    });
+    const childJob = { playwright, chromium, profile, args: WEBGPU_ARGS, pages };
     const env: NodeJS.ProcessEnv = { ...process.env, ROOTCAST_WGSL_JOB: JSON.stringify(childJob) };
     delete env['NODE_OPTIONS'];
     const run = spawnSync(process.execPath, ['--input-type=module', '-e', CHILD], { env, encoding: 'utf8', maxBuffer: 1 << 30 });
-    if (run.status !== 0) return { messages: [], bits: [], vectorBits: [], problem: (run.stderr ?? '').trim() || `exit ${run.status}` };
-    const done = JSON.parse(run.stdout) as { messages: string[]; bits: string[]; vectorBits: string[] };
-    return {
-      messages: done.messages,
-      bits: done.bits.slice(0, rows.length),
-      vectorBits: done.vectorBits.slice(0, rows.length),
-      problem: '',
-    };
+    type PageResult = { done: { messages: string[]; bits: string[]; vectorBits: string[] } | null; problem: string };
+    let results: PageResult[] | null = null;
+    try {
+      results = JSON.parse(run.stdout ?? '') as PageResult[];
+    } catch {
+      results = null;
+    }
+    if (results === null || results.length !== jobs.length) {
+      const problem = (run.stderr ?? '').trim() || `exit ${run.status}`;
+      return jobs.map(() => ({ messages: [], bits: [], vectorBits: [], problem }));
+    }
+    return results.map((r, n) =>
+      r.done === null
+        ? { messages: [], bits: [], vectorBits: [], problem: r.problem }
+        : { messages: r.done.messages, bits: r.done.bits.slice(0, jobs[n]!.rows.length), vectorBits: r.done.vectorBits.slice(0, jobs[n]!.rows.length), problem: '' },
+    );
   } finally {
     rmSync(dir, { recursive: true, force: true });
   }

@@ -4,7 +4,7 @@
  * result bits, all binary32 in hex), then the two summary lines.
  */
 import type { EmittedFile } from '../../../src/emit/types.js';
-import { runGlslPage, type PageRun } from '../../../src/verify/glsl/run-page.js';
+import { runGlslPages, type PageRun } from '../../../src/verify/glsl/run-page.js';
 
 export interface PageRow {
   readonly inputs: readonly string[];
@@ -19,16 +19,28 @@ export interface PageDump {
   readonly summaries: readonly string[];
 }
 
-export function dumpPage(name: string, page: EmittedFile, inputs: number, samples: number, seed: number): PageDump {
-  const run = runGlslPage(name, [page], { samples, seed, dump: true });
-  const lines = run.stdout.split('\n').filter((l) => l !== '');
-  const summaries = lines.filter((l) => l.startsWith('check '));
-  const rows = lines
-    .filter((l) => !l.startsWith('check '))
-    .map((line) => {
-      const words = line.split(' ');
-      if (words.length !== inputs + 2 || words.some((w) => !/^[0-9a-f]{8}$/.test(w))) throw new Error(`not a dump line: ${JSON.stringify(line)}`);
-      return { inputs: words.slice(0, inputs), scalar: words[inputs]!, vector: words[inputs + 1]! };
-    });
-  return { run, rows, summaries };
+export interface DumpJob {
+  readonly name: string;
+  readonly page: EmittedFile;
+  readonly inputs: number;
+  readonly samples: number;
+  readonly seed: number;
+}
+
+/** dumpPage for several pages, run one after another in one Chromium (runGlslPages). */
+export function dumpPages(jobs: readonly DumpJob[]): PageDump[] {
+  const runs = runGlslPages(jobs.map((j) => ({ name: j.name, files: [j.page], options: { samples: j.samples, seed: j.seed, dump: true } })));
+  return runs.map((run, k) => {
+    const inputs = jobs[k]!.inputs;
+    const lines = run.stdout.split('\n').filter((l) => l !== '');
+    const summaries = lines.filter((l) => l.startsWith('check '));
+    const rows = lines
+      .filter((l) => !l.startsWith('check '))
+      .map((line) => {
+        const words = line.split(' ');
+        if (words.length !== inputs + 2 || words.some((w) => !/^[0-9a-f]{8}$/.test(w))) throw new Error(`not a dump line: ${JSON.stringify(line)}`);
+        return { inputs: words.slice(0, inputs), scalar: words[inputs]!, vector: words[inputs + 1]! };
+      });
+    return { run, rows, summaries };
+  });
 }
