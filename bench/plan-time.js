@@ -71,7 +71,7 @@ for (const spec of specs) {
   const cpu = cpuLine ? Number(cpuLine[1]) / 1000 : cpuKilled ? Number(cpuLimit) : wall;
   const unitsLine = /@work-units (\d+)/.exec(r.stderr ?? '');
   const units = unitsLine ? Number(unitsLine[1]) : null;
-  const message = (r.stderr ?? '').replace(/\n?@work-units \d+\n@cpu-ms \d+\n$/, '').trim();
+  const message = (r.stderr ?? '').replace(/(\n?@work-units \d+)?\n?@cpu-ms \d+\n$/, '').trim();
   let outcome;
   if (r.status === 0) outcome = 'planned';
   else if (r.status === 2 && message.split('\n').length === 1 && !/internal error/.test(message)) outcome = 'refused';
