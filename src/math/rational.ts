@@ -127,14 +127,19 @@ export class Rational {
   toFloat32(): number {
     return roundToBinary(this, 24, -149);
   }
-  /** Largest float64 <= this (toward -infinity). */
+  /** Largest float64 <= this (toward -infinity; -Infinity below -MAX_VALUE, MAX_VALUE above it). */
   toNumberDown(): number {
     const x = this.toNumber();
+    // Rounded to an infinity: the value lies beyond the largest finite double on that side.
+    if (x === Infinity) return Number.MAX_VALUE;
+    if (x === -Infinity) return x;
     return Rational.fromNumber(x).cmp(this) <= 0 ? x : nextDown(x);
   }
-  /** Smallest float64 >= this (toward +infinity). */
+  /** Smallest float64 >= this (toward +infinity; Infinity above MAX_VALUE, -MAX_VALUE below -MAX_VALUE). */
   toNumberUp(): number {
     const x = this.toNumber();
+    if (x === -Infinity) return -Number.MAX_VALUE;
+    if (x === Infinity) return x;
     return Rational.fromNumber(x).cmp(this) >= 0 ? x : nextUp(x);
   }
 

@@ -13,6 +13,7 @@ import type { Family } from '../family/types.js';
 import { describeCell } from './box.js';
 import type { CellFacts } from './cell-bound.js';
 import { locate } from './locate.js';
+import { widerAdvice } from './refusals.js';
 import { OVERFLOW_HEADROOM } from './tuning.js';
 import type { Bound } from './types.js';
 import { spend } from './work.js';
@@ -41,7 +42,7 @@ export function evaluate(
     const rnd = an.errors[program.result]!;
     if (!Number.isFinite(rnd) || largestComputed(an) > ARITHMETICS[program.arithmetic].maxFinite / OVERFLOW_HEADROOM) {
       throw new RootcastError(
-        `intermediate values can overflow ${program.arithmetic} (or a divisor can vanish) for ${describeCell(family, c.cell)}; use arithmetic: float64, rescale the unknown or narrow the input ranges`,
+        `intermediate values can overflow ${program.arithmetic} (or a divisor can vanish) for ${describeCell(family, c.cell)}; ${widerAdvice(family, ', ')}rescale the unknown or narrow the input ranges`,
         locate(family, 'arithmetic'),
       );
     }

@@ -17,7 +17,7 @@ import { FoundPlans, type FormContext } from './forms/context.js';
 import { FORMS } from './forms/index.js';
 import { locate } from './locate.js';
 import { tableBytesOf } from './plan-of.js';
-import { refuseBadCells, refuseSteps, refuseTable } from './refusals.js';
+import { QuotedFixRefusal, refuseBadCells, refuseConstant, refuseSteps, refuseTable } from './refusals.js';
 import { chooseRoot, plainRoot, pointText, rootAt, type RootChoice } from './root-choice.js';
 import { segmentLayout, type SegmentLayout } from './segments.js';
 import { analysisProgram, CoefficientError, ZeroSlopeError, type AnalysisProgram, type Expansion } from './series-program.js';
@@ -33,12 +33,7 @@ export function planSegments(family: Family, box: Cell, counts: readonly number[
   try {
     return planSegmentsInner(family, box, segmentLayout(family, box, counts, refine), thorough, plain);
   } catch (e) {
-    if (e instanceof ConstantOverflowError) {
-      throw new RootcastError(
-        `the series needs the constant ${e.exact.toNumber().toExponential(2)}, beyond the ${family.arithmetic} range; use arithmetic: float64 or rescale the unknown or the inputs`,
-        locate(family, 'arithmetic'),
-      );
-    }
+    if (e instanceof ConstantOverflowError) refuseConstant(family, e.exact);
     throw e;
   }
 }
@@ -90,9 +85,12 @@ function planSegmentsInner(family: Family, box: Cell, layout: SegmentLayout, tho
   const stepsKnob = family.plan.newtonSteps;
   const eligible = found.all.filter((f) => stepsKnob === 'auto' || f.steps === stepsKnob);
   if (eligible.length === 0) {
-    // The series' own refusal says most; a fixed step count that no plan meets, where another count does, says so.
+    // A fixed step count that no plan meets: plan.newton_steps: auto is quoted where it plans (makePlan checks).
     if (found.all.length > 0 && stepsKnob !== 'auto') refuseSteps(family, stepsKnob);
     if (family.foldResult) throw new RootcastError('the result folded into the series meets the target with no economised degree for these segments', locate(family, 'result'));
+    // Where no plan of any kind met the target, the series' own refusal is kept when it quotes a fix of its
+    // own, and shown instead of the steps quote when auto does not plan either.
+    if (stepsKnob !== 'auto' && !(refusal instanceof QuotedFixRefusal)) refuseSteps(family, stepsKnob, refusal);
     throw refusal ?? new RootcastError(
       `no plan with ${stepsKnob} Newton step${stepsKnob === 1 ? '' : 's'} meets the target for these segments; loosen the accuracy`,
       locate(family, 'plan.newton_steps'),

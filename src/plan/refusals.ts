@@ -234,6 +234,32 @@ export function refuseOrder(family: Family, needed: number | null, reached: numb
   );
 }
 
+/**
+ * A value the arithmetic cannot hold, for a refusal: three digits when it is
+ * a finite double, else a power of ten it exceeds (from the digit counts of
+ * numerator and denominator: num >= 10^(n-1) and den < 10^d).
+ */
+export function magnitudeText(x: Rational): string {
+  const v = x.toNumber();
+  if (Number.isFinite(v)) return v.toExponential(2);
+  const digits = (b: bigint): number => (b < 0n ? -b : b).toString().length;
+  return `above 1e+${digits(x.num) - 1 - digits(x.den)}`;
+}
+
+/** `use arithmetic: float64<sep>` where a wider arithmetic exists, else '' (float64 is the widest). */
+export function widerAdvice(family: Family, sep: string): string {
+  const wider = ARITHMETICS[family.arithmetic].wider;
+  return wider ? `use arithmetic: ${wider}${sep}` : '';
+}
+
+/** A series constant (an H(m) or a product of constants) beyond the arithmetic's range. */
+export function refuseConstant(family: Family, exact: Rational): never {
+  throw new RootcastError(
+    `the series needs the constant ${magnitudeText(exact)}, beyond the ${family.arithmetic} range; ${widerAdvice(family, ' or ')}rescale the unknown or the inputs`,
+    locate(family, 'arithmetic'),
+  );
+}
+
 /** A program's segment tables exceed plan.max_table_bytes. */
 export class TableRefusal extends RootcastError {}
 
@@ -258,18 +284,24 @@ export function moreActionable(a: RootcastError | null, b: RootcastError): Rootc
   return a instanceof QuotedFixRefusal && b instanceof QuotedFixRefusal && a.kind === 'floor' && b.best < a.best ? b : a;
 }
 
-/** No plan with the fixed plan.newton_steps met the target, while a plan with another step count did. */
-export function refuseSteps(family: Family, steps: number): never {
+/**
+ * No plan with the fixed plan.newton_steps met the target. The quote,
+ * plan.newton_steps: auto, stands only when makePlan plans it (another step
+ * count, or none, meets the target); otherwise `otherwise` is shown (the
+ * series' own refusal when no plan of any kind met the target), or the same
+ * reason without the quote.
+ */
+export function refuseSteps(family: Family, steps: number, otherwise: RootcastError | null = null): never {
   const at = locate(family, 'plan.newton_steps');
   const head = `no plan with ${steps} Newton step${steps === 1 ? '' : 's'} meets the target for these segments`;
   throw new QuotedFixRefusal(
     `${head}; set plan.newton_steps: auto`,
     at,
     (f) => ({ ...f, plan: { ...f.plan, newtonSteps: 'auto' } }),
-    new RootcastError(`${head}; loosen the accuracy`, at),
+    otherwise ?? new RootcastError(`${head}; loosen the accuracy`, at),
     'steps',
     steps,
-    (f) => catchRefusal(() => refuseSteps(f, steps)),
+    (f) => catchRefusal(() => refuseSteps(f, steps, otherwise)),
   );
 }
 

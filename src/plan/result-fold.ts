@@ -22,13 +22,34 @@ import { spend } from './work.js';
 
 type Poly = readonly Rational[];
 
+/**
+ * Exact product of two polynomials: each brought to integers over one common
+ * denominator first, so the convolution is plain BigInt arithmetic and only
+ * the n + m - 1 results are reduced (a gcd per product term made the fold
+ * trial's exact work several times longer).
+ */
 function polyMul(a: Poly, b: Poly): Rational[] {
-  const out = new Array<Rational>(a.length + b.length - 1).fill(Rational.ZERO);
-  a.forEach((x, i) => {
-    if (x.isZero()) return;
-    b.forEach((y, j) => (out[i + j] = out[i + j]!.add(x.mul(y))));
+  const [na, da] = overCommon(a);
+  const [nb, db] = overCommon(b);
+  const out = new Array<bigint>(a.length + b.length - 1).fill(0n);
+  na.forEach((x, i) => {
+    if (x === 0n) return;
+    nb.forEach((y, j) => (out[i + j] = out[i + j]! + x * y));
   });
-  return out;
+  const den = da * db;
+  return out.map((n) => Rational.of(n, den));
+}
+
+/** Integer numerators over the least common denominator. */
+function overCommon(p: Poly): [bigint[], bigint] {
+  let den = 1n;
+  for (const c of p) den = (den / gcd(den, c.den)) * c.den;
+  return [p.map((c) => c.num * (den / c.den)), den];
+}
+
+function gcd(a: bigint, b: bigint): bigint {
+  while (b !== 0n) [a, b] = [b, a % b];
+  return a < 0n ? -a : a;
 }
 
 function polyAdd(a: Poly, b: Poly): Rational[] {
@@ -61,23 +82,30 @@ function inInput(family: Family, spec: ResultSpec, k: number, input: number): Ra
  */
 function dyadic(r: Rational): Rational {
   if (r.isZero()) return r;
-  const n = r.num < 0n ? -r.num : r.num;
-  const e = n.toString(2).length - r.den.toString(2).length - FOLD.bits;
-  const m = e < 0 ? (r.num << BigInt(-e)) / r.den : r.num / (r.den << BigInt(e));
-  return e < 0 ? Rational.of(m, 1n << BigInt(-e)) : Rational.of(m << BigInt(e));
+  const e = bitLength(r.num < 0n ? -r.num : r.num) - bitLength(r.den) - FOLD.bits;
+  if (e <= 0) return r.den === 1n && e >= -FOLD.bits ? r : Rational.of((r.num << BigInt(-e)) / r.den, 1n << BigInt(-e));
+  return Rational.of((r.num / (r.den << BigInt(e))) << BigInt(e));
 }
 
-/** Coefficients rounded by `dyadic`, and an upper bound of the change over |p| <= pMax: sum |delta_j| pMax^j. */
-function rounded(poly: readonly Rational[], pMax: Rational): { poly: Rational[]; error: number } {
-  let err = Rational.ZERO;
-  let power = Rational.ONE;
-  const out = poly.map((c) => {
+function bitLength(n: bigint): number {
+  return n === 0n ? 0 : n.toString(16).length * 4;
+}
+
+/**
+ * Coefficients rounded by `dyadic`, and an upper bound of the change over
+ * |p| <= pMax: sum |delta_j| 2^(k j) with 2^k >= pMax, summed in float64
+ * rounded upward (src/math/directed.ts), so the bound costs no long sums.
+ */
+function rounded(poly: readonly Rational[], pMax: number): { poly: Rational[]; error: number } {
+  const k = pMax > 0 ? Math.ceil(Math.log2(pMax)) + 1 : 0;
+  let err = 0;
+  const out = poly.map((c, j) => {
     const d = dyadic(c);
-    err = err.add(c.sub(d).abs().mul(power));
-    power = power.mul(pMax);
+    const delta = c.sub(d);
+    if (!delta.isZero()) err = addUp(err, delta.abs().toNumberUp() * 2 ** (k * j));
     return d;
   });
-  return { poly: out, error: err.isZero() ? 0 : err.toNumberUp() };
+  return { poly: out, error: err };
 }
 
 /**
@@ -114,10 +142,10 @@ export function foldResult(family: Family, spec: ResultSpec, c: Collapsed, boxes
   const foldError: number[] = [];
   for (let s = 0; s < c.inR.length; s++) {
     const { lo, hi } = boxes[s]![c.input]!;
-    const pMax = Rational.fromNumber(Math.max(Math.abs(lo), Math.abs(hi)));
+    const pMax = Math.max(Math.abs(lo), Math.abs(hi));
     // x_S(p) = X(alpha + beta p): X rounded in r (|r| <= rMax over the segment), composed exactly, rounded in p.
-    const r = (p: number): Rational => c.alpha[s]!.add(c.beta[s]!.mul(Rational.fromNumber(p))).abs();
-    const rMax = r(lo).cmp(r(hi)) > 0 ? r(lo) : r(hi);
+    const r = (p: number): number => c.alpha[s]!.add(c.beta[s]!.mul(Rational.fromNumber(p))).abs().toNumberUp();
+    const rMax = Math.max(r(lo), r(hi));
     const xr = rounded(c.inR[s]!, rMax);
     const xp = rounded(composeAffine(xr.poly, c.alpha[s]!, c.beta[s]!), pMax);
     const x = { poly: xp.poly, error: addUp(xr.error, xp.error) };

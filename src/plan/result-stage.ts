@@ -17,16 +17,25 @@ import { COST_MODELS, programCost } from '../ir/cost/index.js';
 import type { Family, ResultSpec } from '../family/types.js';
 import { SpecNumber } from '../family/spec-number.js';
 import { locate } from './locate.js';
+import { widerAdvice } from './refusals.js';
 import { appendResult, resultAnalysisProgram } from './result-program.js';
 import { largestBudget, resultBound, type ResultEvaluation } from './result-bound.js';
 import { withCandidates } from './candidates.js';
+import { withDerivedBracket } from './derived-bracket.js';
 import { FOLD, RESULT_BUDGET, WORK } from './tuning.js';
 import { spendAtMost, WorkLimitError } from './work.js';
 import type { Plan } from './types.js';
 
-export function planWithResult(family: Family, planRoot: (f: Family) => Plan): Plan {
-  const spec = family.result;
-  if (!spec) return planRoot(family);
+export function planWithResult(given: Family, planRoot: (f: Family) => Plan): Plan {
+  if (!given.result) return planRoot(given);
+  if (given.bracket) return planResult(given, given.result, planRoot);
+  // Without root.bracket the checks need one: derived from the plain series' certified root enclosures and proved.
+  const root = firstTry(DERIVED_ROOT_SHARES.map((s) => Number(given.accuracy.value) * s), (b) => planRootTo(given, planRoot, b));
+  const p = planResult(withDerivedBracket(given, root), given.result, planRoot);
+  return { ...p, root: { ...p.root, note: `${p.root.note} (a bracket derived and proved by the planner: the spec has no root.bracket)` } };
+}
+
+function planResult(family: Family, spec: ResultSpec, planRoot: (f: Family) => Plan): Plan {
   let unfolded: Plan | null = null;
   let refusal: unknown = null;
   try {
@@ -90,6 +99,9 @@ function planUnfolded(family: Family, spec: ResultSpec, planRoot: (f: Family) =>
   return ok.reduce((a, b) => (b.cost < a.cost ? b : a));
 }
 
+/** Root budgets (shares of the target) tried in turn for the derived bracket's root plan: any plan's cells enclose the root, the loosest is the quickest. */
+const DERIVED_ROOT_SHARES = [...RESULT_BUDGET.firstShares].reverse();
+
 /** The first budget the root can be planned to (a slope well below 1 lets a refused first guess loosen). */
 function firstTry<T>(budgets: readonly number[], attempt: (b: number) => T): T {
   let refusal: unknown = null;
@@ -125,7 +137,7 @@ function refuseNoRoom(family: Family, ev: ResultEvaluation): never {
   const kind = family.accuracy.kind;
   throw new RootcastError(
     Number.isFinite(ev.rounding)
-      ? `the result's own rounding (${ev.rounding.toExponential(2)} ${kind}) leaves no room for the root's error within the target ${family.accuracy.value}; use arithmetic: float64, a looser target, or rewrite result:`
+      ? `the result's own rounding (${ev.rounding.toExponential(2)} ${kind}) leaves no room for the root's error within the target ${family.accuracy.value}; ${widerAdvice(family, ', ')}a looser target, or rewrite result:`
       : kind === 'relative'
         ? `the result may be zero, or its bound is not finite, somewhere over the box, so no relative bound holds; use accuracy: absolute or narrow the input ranges`
         : `the result's bound is not finite over the box (its values may overflow ${family.arithmetic}); rewrite result: or narrow the input ranges`,

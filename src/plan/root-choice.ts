@@ -15,6 +15,7 @@ import type { Expr, Family } from '../family/types.js';
 import { poleOver } from './coefficient-poles.js';
 import { signAt } from '../series/recenter.js';
 import { locate } from './locate.js';
+import { magnitudeText, widerAdvice } from './refusals.js';
 
 export interface RootChoice {
   readonly x0: Rational;
@@ -48,7 +49,7 @@ export function rootAt(family: Family, point: readonly Rational[]): Rational {
   const x0 = roundTo(root, family.arithmetic);
   if (!Number.isFinite(x0)) {
     throw new RootcastError(
-      `the root at ${pointText(family, point)} is about ${root.toNumber().toExponential(2)}, beyond the ${family.arithmetic} range; use arithmetic: float64 or rescale the unknown`,
+      `the root at ${pointText(family, point)} is about ${magnitudeText(root)}, beyond the ${family.arithmetic} range; ${widerAdvice(family, ' or ')}rescale the unknown`,
       locate(family, 'arithmetic'),
     );
   }

@@ -198,6 +198,20 @@ export const FOLD = {
   bits: 128,
 } as const;
 
+/** The bracket derived for a `result:` spec without root.bracket (src/plan/derived-bracket.ts). */
+export const DERIVED_BRACKET = {
+  /**
+   * The hull of the root's certified enclosures is widened by this share of
+   * its size (or of its largest end): the planner's own bracket checks need
+   * the series' enclosures strictly inside, and a little room keeps the
+   * refinement of those checks short. A wider bracket only risks the
+   * uniqueness proof (P' may vanish further out).
+   */
+  margin: 1 / 16,
+  /** Significant digits of the bracket's ends, rounded outward: short enough to read in the header. */
+  digits: 3,
+} as const;
+
 /** The greedy term set (src/plan/forms/greedy.ts). */
 export const GREEDY = {
   /** Grades past the graded plan's order that the greedy pool may draw on: a term of a higher grade can matter more than one of the order's own grade. */

@@ -20,7 +20,7 @@ import { readPlan } from './section-plan.js';
 import { readRoot } from './section-root.js';
 import { readFixed } from './section-fixed.js';
 import { readResult } from './section-result.js';
-import type { Expr, Family, OutsideBox, Pos, SpecNumber } from '../family/types.js';
+import type { Expr, Family, OutsideBox, Pos } from '../family/types.js';
 import { SPEC_ARITHMETICS, type Arithmetic, type ArithmeticName } from '../family/arithmetic.js';
 import { parseSpecDocument } from './yaml-document.js';
 import { expectMap, refuseUnknownKeys, valueOf, type Entry } from './yaml-map.js';
@@ -90,7 +90,7 @@ export function readSpec(file: string, text: string, bytes?: Uint8Array): Family
   const facts = SPEC_ARITHMETICS[named.value];
   const arithmetic: Arithmetic = facts.kind === 'fixed' ? facts.planningArithmetic : (named.value as Arithmetic);
   const plan = readPlan(ctx, field('plan'), positions, inputs.inputs.map((i) => i.name));
-  if (result) refuseResultWithout(ctx, must('result'), named.value, bracket);
+  if (result) refuseResultWithout(ctx, must('result'), named.value);
   const outside = field('inputs_outside_box');
   const outsideBox = outside
     ? readChoice(ctx, valueOf(ctx, outside, 'extrapolate or saturate (or remove the field for extrapolate)'), 'inputs_outside_box', OUTSIDE_BOX).value
@@ -134,15 +134,12 @@ function readNameField(ctx: SpecContext, e: Entry, role: 'the function' | 'the u
 }
 
 /**
- * `result:` needs root.bracket: the checks find the exact root in the spec's
- * bracket before they evaluate the result there (the function returns the
- * result, not the root a bracket could be built around). fixed32 has no
- * result stage yet.
+ * fixed32 has no result stage yet. (Without root.bracket the planner derives
+ * the bracket the checks need, src/plan/derived-bracket.ts.)
  */
-function refuseResultWithout(ctx: SpecContext, e: Entry, arithmetic: string, bracket: readonly [SpecNumber, SpecNumber] | null): void {
+function refuseResultWithout(ctx: SpecContext, e: Entry, arithmetic: string): void {
   const at = e.value ? ctx.nodePos(e.value) : e.keyPos;
   if (arithmetic === 'fixed32') ctx.fail('result: is not available with arithmetic: fixed32 yet; use float32 or float64, or remove result: and evaluate it after the call', at, e.field);
-  if (!bracket) ctx.fail('result: needs root.bracket (the checks find the exact root in the bracket, then evaluate the result there); add root: { bracket: [low, high] } around the wanted root', at, e.field);
 }
 
 function refuseUnusedInputs(ctx: SpecContext, exprs: readonly (Expr | null)[], inputs: InputsSection): void {

@@ -1,6 +1,6 @@
 /**
- * Verification of a fixed32 program, as plain data (the counterpart of
- * run.ts's verifyProgram; `rootcast verify` prints it, as lines or as
+ * Verification of a fixed32 program, as plain data: the same VerifyResult as
+ * run.ts's verifyProgram (`rootcast verify` prints it, as lines or as
  * `--json`, and writes `--report` from it):
  *   1. in process: the fixed IR evaluated strictly in BigInt against the exact
  *      reference (fixed-check.ts);
@@ -23,36 +23,23 @@ import { checkFixedInProcess, fixedSummaryLine, type FixedCheck } from './fixed-
 import type { BitCheckJson, BranchCheckJson } from './json.js';
 import { qemuMissing, runOnCore, type QemuCore } from './qemu.js';
 import type { ReportPoint } from './report/envelope.js';
+import type { ReportData } from './report/html.js';
+import type { VerifyOptions, VerifyResult } from './types.js';
+import { fixedSegmentStarts } from '../ir/fixed/edges.js';
 import { runCHarness, runTsHarness } from './run-harness.js';
 import { runRustFixed } from './rust/fixed-run.js';
 import type { CheckSummary } from './summary.js';
 
-export interface FixedVerifyOptions {
-  /** The targets to run: c and ts (harnesses), rust (bit runner). */
-  readonly targets: readonly TargetName[];
-  readonly samples: number;
-  readonly seed: number;
-}
-
-export interface FixedVerifyResult {
-  /** Every line to show, in order. */
-  readonly lines: readonly string[];
-  /** The in-process check, then each harness's. */
-  readonly checks: readonly CheckSummary[];
-  readonly bitChecks: readonly BitCheckJson[];
-  readonly branches: BranchCheckJson | null;
-  readonly skipped: readonly string[];
-  /** Every in-process point with its error in real units (for the report). */
-  readonly points: readonly ReportPoint[];
-  readonly inProcess: CheckSummary;
-  readonly pass: boolean;
-}
-
 /** The targets whose harness `verify` runs for fixed32, in order. */
 export const FIXED_HARNESS_TARGETS: readonly ('c' | 'ts')[] = ['c', 'ts'];
 
-export function verifyFixedProgram(input: FixedEmitInput, o: FixedVerifyOptions): FixedVerifyResult {
+/**
+ * `o.targets` as for a float program; with `o.all` the harness targets
+ * (FIXED_HARNESS_TARGETS) run, and the Rust bit runner (a compiler) only when named.
+ */
+export function verifyFixedProgram(input: FixedEmitInput, o: VerifyOptions): VerifyResult {
   const { family, program, claims } = input;
+  const targets: readonly TargetName[] = o.all ? FIXED_HARNESS_TARGETS : o.targets;
   const name = family.functionName;
   const inputName = family.inputs[0]!.name;
   const bits = family.fixed!.inputs[0]!;
@@ -76,7 +63,7 @@ export function verifyFixedProgram(input: FixedEmitInput, o: FixedVerifyOptions)
   };
 
   const harnessArgs = ['--samples', String(o.samples), '--seed', String(o.seed), '--dump'];
-  for (const t of FIXED_HARNESS_TARGETS.filter((x) => o.targets.includes(x))) {
+  for (const t of FIXED_HARNESS_TARGETS.filter((x) => targets.includes(x))) {
     const files = fixedEmitFiles(input, [t]);
     const run = t === 'c' ? runCHarness(name, files, harnessArgs) : runTsHarness(name, files, harnessArgs);
     const out = run.stdout.trim().split('\n');
@@ -90,7 +77,7 @@ export function verifyFixedProgram(input: FixedEmitInput, o: FixedVerifyOptions)
     if (run.exitCode !== 0 || !parsed || !parsed.pass || !bitCheck.pass) pass = false;
   }
 
-  if (o.targets.includes('rust')) {
+  if (targets.includes('rust')) {
     const file = fixedEmitFiles(input, ['rust'])[0]!;
     const run = runRustFixed(file, name, program.inputs.length, raws.map((r) => [r]));
     if (run.results === null) {
@@ -105,7 +92,7 @@ export function verifyFixedProgram(input: FixedEmitInput, o: FixedVerifyOptions)
   }
 
   let branches: BranchCheckJson | null = null;
-  if (o.targets.includes('c')) {
+  if (targets.includes('c')) {
     const header = fixedEmitFiles(input, ['c'], { harness: false })[0]!;
     const reports = checkFixedBranches(header, name, 1);
     if (reports.length > 0) {
@@ -138,11 +125,26 @@ export function verifyFixedProgram(input: FixedEmitInput, o: FixedVerifyOptions)
   }
   lines.push(...skipped);
   const points: ReportPoint[] = [];
-  inproc.results.forEach(([x], i) => {
-    const e = inproc.errors[i];
-    if (e !== null && e !== undefined) points.push({ at: [real(x)], error: e });
-  });
-  return { lines, checks, bitChecks, branches, skipped, points, inProcess, pass: pass && checks.every((c) => c.pass) };
+  if (o.keepPoints) {
+    inproc.results.forEach(([x], i) => {
+      const e = inproc.errors[i];
+      if (e !== null && e !== undefined) points.push({ at: [real(x)], error: e });
+    });
+  }
+  // The report: the in-process errors in real units over the real input, the segment edges at their raw values.
+  const report: ReportData = {
+    functionName: name,
+    spec: family.file,
+    arithmetic: 'fixed32',
+    kind: 'absolute',
+    bound: claims.bound.total,
+    target: claims.target,
+    inputs: [{ name: inputName, lo: real(claims.rawLo), hi: real(claims.rawHi) }],
+    edges: [fixedSegmentStarts(program).map(real)],
+    points,
+    checks,
+  };
+  return { lines, checks, bitChecks, branches, harnessFailures: [], skipped, report, inProcess, pass: pass && checks.every((c) => c.pass) };
 }
 
 function summaryOf(target: CheckSummary['target'], inputName: string, points: number, worst: readonly [number, number] | null, c: Pick<FixedCheck, 'bound' | 'target' | 'pass'>): CheckSummary {

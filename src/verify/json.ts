@@ -3,11 +3,11 @@
  * schema/verify.schema.json): the plan's claims (the `plan --json` object)
  * and one entry per check: the sample checks, the bit comparisons (`target`
  * "bits"), the branch count of the emitted C last (its `target` is
- * "branches"); fixed32 specs have the same shape (fixed-run.ts). JSON has no infinity: a worst error that is not
+ * "branches"); fixed32 specs have the same shape (one VerifyResult). JSON has no infinity: a worst error that is not
  * finite is null with `worstFinite: false`.
  */
-import { TOOLCHAINS } from './branches.js';
-import type { VerifyResult } from './run.js';
+import { branchy, TOOLCHAINS, type BranchReport } from './branches.js';
+import type { VerifyResult } from './types.js';
 import type { CheckSummary } from './summary.js';
 
 export interface CheckJson {
@@ -72,21 +72,22 @@ export function checkJson(c: CheckSummary): CheckJson {
 
 /** `pass` is the command's verdict: every check passed and every harness ran (one that did not is not in `checks`). */
 export function verifyJson(plan: { readonly generator: object }, result: VerifyResult): VerifyJson {
-  const branches: BranchCheckJson[] = result.branches
-    ? [
-        {
-          target: 'branches',
-          toolchains: result.branches.reports.map((r) => ({
-            toolchain: TOOLCHAINS[r.target].label,
-            conditionalBranches: r.count.conditionalBranches,
-            calls: r.count.calls,
-            jumps: r.count.jumps,
-          })),
-          pass: result.branches.pass,
-        },
-      ]
-    : [];
-  return { generator: plan.generator, plan, checks: [...result.checks.map(checkJson), ...(result.bitChecks ?? []), ...branches], ...skippedJson(result.skipped), pass: result.pass };
+  const checks = [...result.checks.map(checkJson), ...result.bitChecks, ...(result.branches ? [result.branches] : [])];
+  return { generator: plan.generator, plan, checks, ...skippedJson(result.skipped), pass: result.pass };
+}
+
+/** The branch counts of the emitted C, one entry per toolchain. */
+export function branchCheckJson(reports: readonly BranchReport[]): BranchCheckJson {
+  return {
+    target: 'branches',
+    toolchains: reports.map((r) => ({
+      toolchain: TOOLCHAINS[r.target].label,
+      conditionalBranches: r.count.conditionalBranches,
+      calls: r.count.calls,
+      jumps: r.count.jumps,
+    })),
+    pass: !reports.some((r) => branchy(r.count)),
+  };
 }
 
 /** `skipped` only when something was. */

@@ -4,7 +4,8 @@
  * function received them; the bracket is the spec's, or the computed value
  * widened by twice the certified absolute bound.
  *
- * The same three rules are written into both harnesses; keep them in step:
+ * The rules (the TypeScript and GLSL harnesses run this very code, the C
+ * harness a port of it):
  *   bracket     spec bracket if any, else [x - 2B - tiny, x + 2B + tiny],
  *               tiny = 2^-60 * max(1, |x|) (a non-empty bracket even when B = 0);
  *   resolution  2^(e - REFERENCE_BITS), 2^e <= max(|x|, B, 2^-1000) < 2^(e+1):
@@ -21,6 +22,11 @@
  * grid of the rule above with x = the larger bracket end, without a hint, and the
  * reference is the result expression evaluated exactly at that interval's
  * midpoint.
+ *
+ * measurePoint and what it reaches are part of the harness machinery
+ * (scripts/gen-harness.js copies them, renamed rc_*, into the TypeScript and
+ * GLSL harnesses): keep them free of imports beyond fraction.ts and
+ * reference.ts; the family-bound part is measureRule.
  */
 import { Rational } from '../math/rational.js';
 import type { Family } from '../family/types.js';
@@ -106,6 +112,63 @@ export function referenceBracket(bracket: FractionInterval | null, x: number, ab
 }
 
 /**
+ * What measuring a point needs to know of the family, as plain exact data:
+ * the in-process check builds it from the spec (makeMeasurer), the harnesses
+ * from the literals printed into them.
+ */
+export interface MeasureRule {
+  /** The coefficients c0..c_degree at exact inputs, from the spec's expressions. */
+  readonly coefficients: (inputs: readonly Fraction[]) => readonly Fraction[];
+  /** The spec's bracket, exactly, or null (then the computed value +- (2 B + tiny)). */
+  readonly bracket: FractionInterval | null;
+  /** The spec's result at the exact inputs and the exact root, or null when the function returns the root. */
+  readonly result: ((inputs: readonly Fraction[], root: Fraction) => Fraction) | null;
+  /** With a result: the larger magnitude of the bracket ends, the scale of the root's grid. */
+  readonly rootScale: number;
+  /** The certified absolute bound B. */
+  readonly absoluteBound: number;
+}
+
+/**
+ * One point's measure: `computed` is what the function returned at `inputs`
+ * (the values it received). The three rules of the header, nothing else.
+ */
+export function measurePoint(rule: MeasureRule, computed: number, inputs: readonly number[]): PointMeasure {
+  if (!Number.isFinite(computed)) return { kind: 'not-finite' };
+  const exact = inputs.map(fractionOfNumber);
+  const c = integerCoefficients(rule.coefficients(exact));
+  const xf = fractionOfNumber(computed);
+  if (rule.result !== null) {
+    if (rule.bracket === null) throw new RangeError('a result needs the spec bracket');
+    const s = referenceGridExponent(rule.rootScale, rule.absoluteBound);
+    const root = bisectRoot(c, rule.bracket.lo, rule.bracket.hi, s);
+    if (root === 'no-sign-change') return { kind: 'no-sign-change', bracket: rule.bracket };
+    return judged(xf, root, rule.result(exact, midpoint(root.lo, root.hi)));
+  }
+  const bracket = referenceBracket(rule.bracket, computed, rule.absoluteBound);
+  const root = bisectRoot(c, bracket.lo, bracket.hi, referenceGridExponent(computed, rule.absoluteBound), xf);
+  if (root === 'no-sign-change') return { kind: 'no-sign-change', bracket };
+  return judged(xf, root, midpoint(root.lo, root.hi));
+}
+
+/** The measure rule of a family: its exact coefficients, bracket and result from the spec. */
+export function measureRule(family: Family, absoluteBound: number): MeasureRule {
+  const coefficients = coefficientEvaluator(family);
+  const result = resultEvaluator(family);
+  const bracket = family.bracket
+    ? { lo: fractionOfRational(family.bracket[0].value), hi: fractionOfRational(family.bracket[1].value) }
+    : null;
+  if (result && !bracket) throw new Error('a result: family has root.bracket (the reader requires it)');
+  return {
+    coefficients: (x) => coefficients(x.map(toRational)),
+    bracket,
+    result: result ? (x, root) => fractionOfRational(result(x.map(toRational), toRational(root))) : null,
+    rootScale: family.bracket ? Math.max(...family.bracket.map((t) => Math.abs(t.toNumber()))) : 0,
+    absoluteBound,
+  };
+}
+
+/**
  * A measurer for one family: (computed value, inputs as the function received
  * them) -> the point's measure. Constants and the spec bracket are parsed once.
  */
@@ -113,39 +176,12 @@ export function makeMeasurer(
   family: Family,
   absoluteBound: number,
 ): (computed: number, inputs: readonly number[]) => PointMeasure {
-  const coefficients = coefficientEvaluator(family);
-  const specBracket = family.bracket
-    ? {
-        lo: fractionOfRational(family.bracket[0].value),
-        hi: fractionOfRational(family.bracket[1].value),
-      }
-    : null;
-  const result = resultEvaluator(family);
-  if (result) {
-    if (!specBracket || !family.bracket) throw new Error('a result: family has root.bracket (the reader requires it)');
-    const scale = Math.max(...family.bracket.map((t) => Math.abs(t.toNumber())));
-    const s = referenceGridExponent(scale, absoluteBound);
-    return (computed, inputs) => {
-      if (!Number.isFinite(computed)) return { kind: 'not-finite' };
-      const exact = inputs.map((v) => Rational.fromNumber(v));
-      const root = bisectRoot(integerCoefficients(coefficients(exact)), specBracket.lo, specBracket.hi, s);
-      if (root === 'no-sign-change') return { kind: 'no-sign-change', bracket: specBracket };
-      return judged(fractionOfNumber(computed), root, fractionOfRational(result(exact, toRational(midpoint(root.lo, root.hi)))));
-    };
-  }
-  return (computed, inputs) => {
-    if (!Number.isFinite(computed)) return { kind: 'not-finite' };
-    const c = integerCoefficients(coefficients(inputs.map((v) => Rational.fromNumber(v))));
-    const bracket = referenceBracket(specBracket, computed, absoluteBound);
-    const xf = fractionOfNumber(computed);
-    const root = bisectRoot(c, bracket.lo, bracket.hi, referenceGridExponent(computed, absoluteBound), xf);
-    if (root === 'no-sign-change') return { kind: 'no-sign-change', bracket };
-    return judged(xf, root, midpoint(root.lo, root.hi));
-  };
+  const rule = measureRule(family, absoluteBound);
+  return (computed, inputs) => measurePoint(rule, computed, inputs);
 }
 
 /** The measure of a computed value against its reference (the root's midpoint, or the result there). */
-function judged(xf: Fraction, root: FractionInterval, reference: Fraction): PointMeasure {
+export function judged(xf: Fraction, root: FractionInterval, reference: Fraction): PointMeasure {
   const absoluteExact = absFraction(subFractions(xf, reference));
   const relativeExact =
     reference.num === 0n ? (absoluteExact.num === 0n ? absoluteExact : null) : divFractions(absoluteExact, absFraction(reference));

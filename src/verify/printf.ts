@@ -13,21 +13,10 @@
  *     up: 0.125 is `1.2e-01` in C and `1.3e-1` in JS.
  * So the digits are produced here from the exact value with BigInt.
  *
- * The same code is copied into templates/ts/check.ts.hbs (the harness must be
- * self-contained); test/verify/printf.test.ts holds both to glibc's output.
+ * The harnesses print with this very code (scripts/gen-harness.js copies it
+ * into their machinery); test/verify/printf.test.ts holds it to glibc's output.
  */
-
-const F64 = new Float64Array(1);
-const U64 = new BigUint64Array(F64.buffer);
-
-/** x = m * 2^e exactly, for finite x > 0. */
-function binaryParts(x: number): { m: bigint; e: number } {
-  F64[0] = x;
-  const bits = U64[0]!;
-  const bexp = Number((bits >> 52n) & 0x7ffn);
-  const frac = bits & 0xfffffffffffffn;
-  return bexp === 0 ? { m: frac, e: -1074 } : { m: frac | (1n << 52n), e: bexp - 1075 };
-}
+import { binaryParts } from './fraction.js';
 
 /** Sign of num/den - 10^k (num, den > 0). */
 function cmpPow10(num: bigint, den: bigint, k: number): number {

@@ -25,9 +25,13 @@
  * answer is still a cell whose end signs were evaluated exactly. When the
  * bracket holds one root (the spec's promise) the cell is the very one
  * bisection finds; when the shortcut does not settle, bisection runs.
+ *
+ * bisectRoot and integerCoefficients are part of the harness machinery
+ * (scripts/gen-harness.js copies them, renamed rc_*): keep them free of imports
+ * beyond fraction.ts.
  */
 import { Rational } from '../math/rational.js';
-import { fractionOfRational, toRational, type Fraction } from './fraction.js';
+import { bitLength, fractionOfRational, toRational, type Fraction } from './fraction.js';
 
 export interface RootInterval {
   readonly lo: Rational;
@@ -174,8 +178,11 @@ function newtonCell(
   return null;
 }
 
-/** Integer coefficients C_k = c_k * D, D the least common denominator (> 0, so signs are kept). */
-export function integerCoefficients(coeffs: readonly Rational[]): bigint[] {
+/**
+ * Integer coefficients C_k = c_k * D, D the least common denominator (> 0, so
+ * signs are kept). The fractions need not be in lowest terms (a Rational is one).
+ */
+export function integerCoefficients(coeffs: readonly Fraction[]): bigint[] {
   if (coeffs.length === 0) throw new RangeError('referenceRoot: no coefficients');
   let den = 1n;
   for (const r of coeffs) den = (den / gcd(den, r.den)) * r.den;
@@ -215,8 +222,4 @@ function gcd(a: bigint, b: bigint): bigint {
   if (a < 0n) a = -a;
   while (b !== 0n) [a, b] = [b, a % b];
   return a;
-}
-
-function bitLength(x: bigint): number {
-  return x === 0n ? 0 : x.toString(2).length;
 }

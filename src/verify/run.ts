@@ -1,12 +1,11 @@
 /**
- * Verification's one main function: `verifyProgram` takes the plan's emit
- * input and the options, runs every check and returns plain data (the summary
- * lines in the order they are shown, the checks, the branch check, what was
- * skipped, the points for the report and the verdict). It prints nothing and
- * knows no exit codes: `rootcast verify` (src/cli/commands/verify.ts) prints
- * and decides.
- *
- * The checks, in order:
+ * Verification's one main function: `verify` takes the plan's emit input
+ * (float or fixed32) and the options, runs every check and returns plain data
+ * (types.ts VerifyResult: the summary lines in the order they are shown, the
+ * checks, the bit and branch checks, what was skipped, the report's data and
+ * the verdict). It prints nothing and knows no exit codes: `rootcast verify`
+ * (src/cli/commands/verify.ts) prints and decides. A fixed32 program's checks
+ * are fixed-run.ts's; a float program's, in order:
  *   1. in process: the IR evaluated in the target arithmetic against exact
  *      bisection (inprocess.ts);
  *   2. each target's harness, built and run out of process, read back from
@@ -23,7 +22,7 @@ import { refuseUnlessFloat32 } from '../emit/glsl/refuse.js';
 import type { TargetName } from '../emit/outputs.js';
 import { locate } from '../plan/locate.js';
 import type { EmitInput, EmittedFile } from '../emit/types.js';
-import { branchy, checkEmittedBranches, formatBranchLine, type BranchReport } from './branches.js';
+import { checkEmittedBranches, formatBranchLine } from './branches.js';
 import { DEFAULT_CHROMIUM } from './glsl/browser.js';
 import { runGlslPage } from './glsl/run-page.js';
 import { runBitCheck, type BitTarget } from './bit-check.js';
@@ -32,22 +31,14 @@ import { checkInProcess, type PointResult } from './inprocess.js';
 import { rustcAvailable } from './rust/run.js';
 import type { ReportPoint } from './report/envelope.js';
 import { runCHarness, runTsHarness } from './run-harness.js';
-import { edgePointsOf, sampleTotal } from './samples.js';
+import { edgePointsOf, inputBox, sampleTotal } from './samples.js';
+import type { ReportData } from './report/html.js';
+import { segmentEdges } from '../ir/segment-edges.js';
 import { formatSummary, parseSummary, type CheckSummary } from './summary.js';
-import type { BitCheckJson } from './json.js';
+import { branchCheckJson, type BitCheckJson, type BranchCheckJson } from './json.js';
+import { verifyFixedProgram } from './fixed-run.js';
+import type { VerifyInput, VerifyOptions, VerifyResult } from './types.js';
 import { floatCoreApplies, runFloatOnM4 } from './float-core.js';
-
-export interface VerifyOptions {
-  readonly targets: readonly TargetName[];
-  /** True for `--target all`: a missing Chromium skips GLSL instead of refusing. */
-  readonly all: boolean;
-  readonly samples: number;
-  readonly seed: number;
-  /** Keep every in-process point's error (for the report). */
-  readonly keepPoints?: boolean;
-  /** Called with (points done, total) during the in-process check. */
-  readonly onProgress?: (done: number, total: number) => void;
-}
 
 /** What a harness run gives back, whatever the target. */
 export interface TargetRun {
@@ -81,29 +72,16 @@ export const BIT_TOOLS: Readonly<Record<BitTarget, { readonly available: () => b
 
 const isBitTarget = (t: TargetName): t is BitTarget => t in BIT_TOOLS;
 
-export interface BranchCheck {
-  readonly line: string;
-  readonly reports: readonly BranchReport[];
-  readonly pass: boolean;
+/**
+ * Verification's one main function: a float or a fixed32 program's emit
+ * input and the options in, plain data out (VerifyResult). It prints nothing
+ * and knows no exit codes.
+ */
+export function verify(input: VerifyInput, o: VerifyOptions): VerifyResult {
+  return input.kind === 'fixed32' ? verifyFixedProgram(input.emit, o) : verifyProgram(input.emit, o);
 }
 
-export interface VerifyResult {
-  /** Every line to show, in order: summary lines, harness failures, the branch line, skips. */
-  readonly lines: readonly string[];
-  readonly checks: readonly CheckSummary[];
-  /** Null when no C was checked or no toolchain was found. */
-  readonly branches: BranchCheck | null;
-  /** Harness failures (a harness that did not run to its summary), one line each. */
-  readonly harnessFailures: readonly string[];
-  readonly points: readonly ReportPoint[];
-  readonly inProcess: CheckSummary;
-  /** Bit comparisons with the in-process results (the emulated cores). */
-  readonly bitChecks?: readonly BitCheckJson[];
-  /** Checks that could not run here (a missing tool), one line each; also in `lines`. */
-  readonly skipped?: readonly string[];
-  readonly pass: boolean;
-}
-
+/** A float program's verification (float32 or float64). */
 export function verifyProgram(input: EmitInput, o: VerifyOptions): VerifyResult {
   const { family, program } = input;
   const name = family.functionName;
@@ -171,12 +149,12 @@ export function verifyProgram(input: EmitInput, o: VerifyOptions): VerifyResult 
       }
     }
   }
-  let branches: BranchCheck | null = null;
+  let branches: BranchCheckJson | null = null;
   if (targets.includes('c')) {
     const reports = checkEmittedBranches(emitFiles(input, ['c'])[0]!, name, family.arithmetic, family.inputs.length);
     if (reports.length > 0) {
-      branches = { line: formatBranchLine(name, reports), reports, pass: !reports.some((r) => branchy(r.count)) };
-      lines.push(branches.line);
+      branches = branchCheckJson(reports);
+      lines.push(formatBranchLine(name, reports));
       pass &&= branches.pass;
     }
   }
@@ -192,7 +170,26 @@ export function verifyProgram(input: EmitInput, o: VerifyOptions): VerifyResult 
   }
   lines.push(...skipped);
   if (skippedGlsl) lines.push(`glsl ${name}: skipped (Chromium is not installed: apt-get install chromium, then rootcast verify --target glsl)`);
-  return { lines, checks, branches, harnessFailures, points, inProcess, bitChecks, skipped, pass: pass && checks.every((c) => c.pass) };
+  const report = floatReportData(input, points, checks);
+  return { lines, checks, branches, harnessFailures, report, inProcess, bitChecks, skipped, pass: pass && checks.every((c) => c.pass) };
+}
+
+/** The report's data: the in-process errors over the box, the segment edges read from the program's index node. */
+function floatReportData(input: EmitInput, points: readonly ReportPoint[], checks: readonly CheckSummary[]): ReportData {
+  const { family, program, claims } = input;
+  const box = inputBox(family);
+  return {
+    functionName: family.functionName,
+    spec: family.file,
+    arithmetic: family.arithmetic,
+    kind: claims.bound.kind,
+    bound: claims.bound.total,
+    target: claims.target,
+    inputs: family.inputs.map((r, j) => ({ name: r.name, lo: box[j]!.lo, hi: box[j]!.hi })),
+    edges: segmentEdges(program, box).map((e) => e.edges),
+    points,
+    checks,
+  };
 }
 
 function noSignChange(input: EmitInput, c: CheckSummary): RootcastError {

@@ -1,8 +1,9 @@
 /**
- * The sample points every check visits: the in-process check here, and the C,
- * TypeScript and GLSL harnesses, which hard-code this same algorithm (and
- * carry the edge points of step 4 as literal tables) so that all of them see
- * bit-identical inputs. Everything is IEEE binary64 arithmetic with no
+ * The sample points every check visits: the in-process check here, the
+ * TypeScript and GLSL harnesses, which run this very code (visitSamplePoints,
+ * copied by scripts/gen-harness.js), and the C harness, a port of it; the
+ * edge points of step 4 reach the harnesses as literal tables. So all of them
+ * see bit-identical inputs. Everything is IEEE binary64 arithmetic with no
  * library calls, so C (compiled with -std=c99, no contraction) and JavaScript
  * agree bit for bit.
  *
@@ -119,29 +120,47 @@ export function samplePoints(
   arithmetic: Arithmetic,
   edges: readonly (readonly number[])[] = [],
 ): number[][] {
+  const out: number[][] = [];
+  visitSamplePoints(box, n, seed, (v) => roundNumber(v, arithmetic), edges, (p) => out.push(p));
+  return out;
+}
+
+/**
+ * Steps 1 to 4, one point at a time: `round` rounds a binary64 value to the
+ * target arithmetic. The harnesses run this very function (their generated
+ * machinery; it stays free of imports), so they never hold a billion points
+ * in memory.
+ */
+export function visitSamplePoints(
+  box: readonly SampleBox[],
+  n: number,
+  seed: number,
+  round: (v: number) => number,
+  edges: readonly (readonly number[])[],
+  visit: (point: number[]) => void,
+): void {
   const d = box.length;
   if (d < 1 || d > MAX_SAMPLED_INPUTS) throw new RangeError(`samplePoints: ${d} inputs (1 to ${MAX_SAMPLED_INPUTS} supported)`);
   if (!Number.isInteger(n) || n < 1) throw new RangeError(`samplePoints: sample count ${n} is not a positive integer`);
   if (!Number.isInteger(seed) || seed < 0 || seed > 0xffffffff) throw new RangeError(`samplePoints: seed ${seed} is not a uint32`);
   if (edges.some((p) => p.length !== d)) throw new RangeError(`samplePoints: an edge point does not have ${d} coordinates`);
   const total = sampleTotal(d, n);
-  const out: number[][] = [];
-  const finish = (raw: number[]): number[] =>
+  const finish = (raw: readonly number[]): number[] =>
     raw.map((v, j) => {
       const { lo, hi } = box[j]!;
-      return roundNumber(v < lo ? lo : v > hi ? hi : v, arithmetic);
+      return round(v < lo ? lo : v > hi ? hi : v);
     });
 
   const corners = 2 ** d;
   for (let c = 0; c < corners; c++) {
-    out.push(finish(box.map((b, j) => ((c >>> j) & 1 ? b.hi : b.lo))));
+    visit(finish(box.map((b, j) => ((c >>> j) & 1 ? b.hi : b.lo))));
   }
 
   const g = gridSide(d, total);
   const idx = new Array<number>(d).fill(0);
   const gridCount = g ** d;
   for (let k = 0; k < gridCount; k++) {
-    out.push(finish(box.map((b, j) => b.lo + (b.hi - b.lo) * (idx[j]! / (g - 1)))));
+    visit(finish(box.map((b, j) => b.lo + (b.hi - b.lo) * (idx[j]! / (g - 1)))));
     for (let j = 0; j < d; j++) {
       if (++idx[j]! < g) break;
       idx[j] = 0;
@@ -149,8 +168,8 @@ export function samplePoints(
   }
 
   let x = seed === 0 ? XORSHIFT_ZERO_SEED : seed;
-  while (out.length < total) {
-    out.push(
+  for (let k = corners + gridCount; k < total; k++) {
+    visit(
       finish(
         box.map((b) => {
           x = xorshift32(x);
@@ -160,6 +179,5 @@ export function samplePoints(
     );
   }
 
-  for (const p of edges) out.push(finish([...p]));
-  return out;
+  for (const p of edges) visit(finish(p));
 }

@@ -11,32 +11,23 @@
  * (one line; E, T in `%.1e`, V in `%.9g`, B in the `%.1e` layout but rounded
  * up, so the printed bound is never below the proven one (formatEUp); "worst
  * KIND error none" when no point could be measured).
+ *
+ * summaryText and what it reaches are part of the harness machinery
+ * (scripts/gen-harness.js copies them, renamed rc_*): keep them free of
+ * imports beyond printf.ts and tally.ts.
  */
 import { formatEUp } from '../emit/literals/round-up.js';
 import type { Arithmetic } from '../family/arithmetic.js';
 import { formatE, formatG } from './printf.js';
+import type { TallyFigures } from './tally.js';
 
 /** `GLSL` is the scalar GLSL function, `GLSL vec4` its vec4 overload (both run on WebGL2). */
 export type SummaryLanguage = 'C' | 'TypeScript' | 'GLSL' | 'GLSL vec4' | 'WGSL' | 'WGSL vec4' | 'Rust' | 'in-process';
 export type CheckTarget = 'in-process' | 'c' | 'ts' | 'glsl' | 'wgsl' | 'rust';
 
-export interface CheckSummary {
+/** A check's figures (tally.ts) and which check it was. */
+export interface CheckSummary extends TallyFigures {
   readonly target: CheckTarget;
-  /** Input names, in signature order (for the `at` parts). */
-  readonly inputNames: readonly string[];
-  readonly points: number;
-  /** Worst measured error (rounded up); 0 with an empty `worstAt` when no point was measured. */
-  readonly worstError: number;
-  readonly worstAt: readonly number[];
-  readonly kind: 'absolute' | 'relative';
-  /** Certified total bound and the target accuracy, in `kind`. */
-  readonly bound: number;
-  readonly targetAccuracy: number;
-  /** Every measured error <= bound, bound <= target, no point without a sign change. */
-  readonly pass: boolean;
-  /** First point whose bracket showed no sign change, and how many did. */
-  readonly noSignChangeAt?: readonly number[];
-  readonly noSignChangeCount?: number;
 }
 
 /** A summary read back from a line: the numbers carry the line's printed digits only. */
@@ -71,6 +62,15 @@ export function formatSummary(
   arithmetic: Arithmetic,
   language: SummaryLanguage,
 ): string {
+  return summaryText(s, formatEUp(s.bound, 1), functionName, arithmetic, language);
+}
+
+/**
+ * The line itself, the bound given as its printed text (rounded up, never
+ * below the proven bound): the harnesses print it with the text the emitter
+ * computed, so they need no decimal machinery of their own.
+ */
+export function summaryText(s: TallyFigures, boundText: string, functionName: string, arithmetic: string, language: string): string {
   const worst =
     s.worstAt.length === 0
       ? `worst ${s.kind} error none`
@@ -81,7 +81,7 @@ export function formatSummary(
       : '';
   return (
     `check ${functionName} (${language}, ${arithmetic}): ${plural(s.points)}; ${worst}${noSign}; ` +
-    `certified bound ${formatEUp(s.bound, 1)}; target ${formatE(s.targetAccuracy, 1)}; ${s.pass ? 'PASS' : 'FAIL'}`
+    `certified bound ${boundText}; target ${formatE(s.targetAccuracy, 1)}; ${s.pass ? 'PASS' : 'FAIL'}`
   );
 }
 

@@ -10,24 +10,34 @@
  * of IEC 60751 (R0 = 100 ohm, A = 3.9083e-3, B = -5.775e-7), as in
  * examples/kiln-probe.yaml; the float32 spacing near 850 degC is from IEEE 754
  * binary32 (a 24-bit significand: one ulp in [512, 1024) is 2^-14 = 6.1e-5).
+ * The forklift fixture (steps-auto.yaml) is also checked against the
+ * quadratic formula in decimal.js (40 digits). A refusal that advises
+ * `arithmetic: float64` is followed too: the spec with float64 plans soundly.
  */
 import { afterAll, beforeAll, describe, expect, test } from '@jest/globals';
 import { Decimal } from 'decimal.js';
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { REPO, ensureBuilt, expectSpecRefusal, listFiles, removeTempDirs, runMany, type CliRun, type SpecLine } from './run-cli.js';
+import { evaluate } from '../../src/ir/evaluate.js';
 import { applyEdits, planAndMeasure, quotedEdits, type Planned } from '../support/quoted-fix.js';
 
 const DIR = 'test/fixtures/quoted-fixes';
-const FILES = ['floor-segments.yaml', 'floor-newton-steps.yaml', 'floor-table.yaml', 'root-near-zero.yaml'] as const;
+const FILES = ['floor-segments.yaml', 'floor-newton-steps.yaml', 'floor-table.yaml', 'root-near-zero.yaml', 'steps-auto.yaml'] as const;
+/** Refused in float32 with the advice `use arithmetic: float64` (besides floor-segments.yaml, checked with its quote). */
+const FLOAT64_ADVISED = [`${DIR}/floor-newton-steps.yaml`, 'test/fixtures/edge/root-beyond-float32.yaml'] as const;
 const rel = (f: string): string => `${DIR}/${f}`;
 const textOf = (f: string): string => readFileSync(join(REPO, rel(f)), 'utf8');
 
 const runs = new Map<string, CliRun>();
+const advised = new Map<string, CliRun>();
 beforeAll(async () => {
   ensureBuilt();
-  const results = await runMany(FILES.map((f) => ({ args: ['plan', rel(f)] })));
+  const extra = FLOAT64_ADVISED.filter((f) => !f.startsWith(DIR));
+  const results = await runMany([...FILES.map((f) => ({ args: ['plan', rel(f)] })), ...extra.map((f) => ({ args: ['plan', f] }))]);
   FILES.forEach((f, i) => runs.set(f, results[i]!));
+  extra.forEach((f, i) => advised.set(f, results[FILES.length + i]!));
+  FILES.forEach((f) => advised.set(rel(f), runs.get(f)!));
 }, 1_800_000);
 afterAll(removeTempDirs);
 
@@ -89,6 +99,38 @@ describe('a refusal quotes a fix only when the fix plans', () => {
     const p = expectSound(result);
     expect(p.plan.counts).toEqual([16]);
     expect(p.plan.tableBytes).toBeLessThanOrEqual(bytes);
+  });
+
+  test('one fixed Newton step that no order meets: the quote plan.newton_steps: auto plans (with two steps), measured <= bound <= target, and the quadratic formula agrees', () => {
+    const line = refusal('steps-auto.yaml');
+    expect(line.field).toBe('plan.newton_steps');
+    // A knob fixes it: not "needs more than order 400 ... narrow the input ranges" (what 0.1.0 said).
+    expect(line.message).toBe('no plan with 1 Newton step meets the target for these segments; set plan.newton_steps: auto');
+    const { edits, result } = applied('steps-auto.yaml', line);
+    expect(edits).toEqual([{ field: 'plan.newton_steps', value: 'auto' }]);
+    const p = expectSound(result);
+    expect(p.plan.steps).toBe(2);
+    // Second reference: d = TR v + v^2 / (2 DEC) solved by the quadratic formula, v = DEC (sqrt(TR^2 + 2 d / DEC) - TR),
+    // in decimal.js at 40 digits, at both ends and inside (the end 0.745 m is where the series converges slowest).
+    const D = Decimal.clone({ precision: 40 });
+    const [TR, DEC] = [new D(1), new D('1.5')];
+    for (const d of [0, 0.1, 0.3, 0.5, 0.7, 0.74, 0.745]) {
+      const v = DEC.mul(TR.pow(2).add(new D(d).mul(2).div(DEC)).sqrt().sub(TR));
+      const got = evaluate(p.plan.program, [d]);
+      expect(new D(got).sub(v).abs().toNumber()).toBeLessThanOrEqual(p.bound);
+    }
+  });
+
+  test.each(FLOAT64_ADVISED)('%s: the refusal advises arithmetic: float64, and the spec with it (every other setting kept) plans soundly', (file) => {
+    const line = expectSpecRefusal(advised.get(file)!);
+    expect(line.message).toMatch(/use arithmetic: float64/);
+    const text = readFileSync(join(REPO, file), 'utf8');
+    expect(text).toMatch(/^arithmetic: float32$/m);
+    const p = expectSound(planAndMeasure(file, text.replace(/^arithmetic: float32$/m, 'arithmetic: float64')));
+    expect(p.plan.program.arithmetic).toBe('float64');
+    // A fixed step count stays what the spec says.
+    const steps = /^ {2}newton_steps: (\d+)$/m.exec(text);
+    if (steps) expect(p.plan.steps).toBe(Number(steps[1]));
   });
 
   test('a root near zero, never zero, is refused for a relative target without the claim that it can be zero', () => {

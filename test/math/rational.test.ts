@@ -95,6 +95,29 @@ describe('Rational against Number, Math.fround and decimal.js', () => {
     expect(nextUp(-Number.MIN_VALUE)).toBe(-0);
   });
 
+  test('directed rounding beyond the binary64 range: the largest finite double on the near side, an infinity on the far side (IEEE 754 roundTowardNegative/Positive)', () => {
+    // IEEE 754-2019, 4.3.2 and 7.4: a directed rounding of an overflowing value gives the largest finite
+    // number toward zero and an infinity away from it. Number.MAX_VALUE = (2 - 2^-52) * 2^1023 (ECMAScript).
+    const max = Rational.fromNumber(Number.MAX_VALUE);
+    const halfUlp = Rational.of(2n ** 970n);
+    const cases = [
+      Rational.of(2n ** 1024n), // rounds to nearest as Infinity
+      max.add(halfUlp), // the tie: rounds to nearest (even) as Infinity
+      max.add(halfUlp.div(Rational.int(2))), // rounds to nearest as MAX_VALUE, still above it
+      Rational.parseDecimal('1e400'),
+    ];
+    for (const x of cases) {
+      expect(x.cmp(max)).toBe(1);
+      expect(x.toNumberDown()).toBe(Number.MAX_VALUE);
+      expect(x.toNumberUp()).toBe(Infinity);
+      expect(x.toNumberBounds()).toEqual([Number.MAX_VALUE, Infinity]);
+      const neg = x.neg();
+      expect(neg.toNumberDown()).toBe(-Infinity);
+      expect(neg.toNumberUp()).toBe(-Number.MAX_VALUE);
+      expect(neg.toNumberBounds()).toEqual([-Infinity, -Number.MAX_VALUE]);
+    }
+  });
+
   test('parseDecimal refuses text that is not a decimal number', () => {
     for (const bad of ['', '.', 'e5', '1e', '0x10', '1.2.3']) expect(() => Rational.parseDecimal(bad)).toThrow(SyntaxError);
   });

@@ -3,10 +3,17 @@
  * tiny normal ranges and subnormal ranges, with and without a bracket, plan or
  * get one located line with exit code 2, never an internal error.
  *
+ * Huge values too: bench/corpus/random/313.yaml (inputs near 1e300, float64;
+ * it ended in "internal error: not finite" in the Bernstein enclosure of a
+ * recentred coefficient beyond float64) and bench/corpus/cases/edge-huge-float64.yaml
+ * (series constants beyond float64: refused without advising float64, which
+ * the spec already uses).
+ *
  * Outside reference: IEEE 754-2019, binary32: largest finite number
  * (2 - 2^-23) * 2^127 = 3.4028235e38, smallest normal 2^-126 = 1.1754944e-38
  * (the standard's format parameters; the decimal values from memory, checked
- * here against Math.fround).
+ * here against Math.fround); binary64: largest finite (2 - 2^-52) * 2^1023
+ * (Number.MAX_VALUE, ECMAScript).
  */
 import { afterAll, beforeAll, describe, expect, test } from '@jest/globals';
 import { readFileSync, writeFileSync } from 'node:fs';
@@ -22,6 +29,8 @@ const CASES = [
   'edge-subnormal32-bracket',
   'edge-subnormal64',
   'edge-subnormal64-bracket',
+  'edge-huge-float64',
+  '../random/313',
 ] as const;
 const spec = (name: string): string => `bench/corpus/cases/${name}.yaml`;
 
@@ -57,6 +66,14 @@ describe('extreme ranges plan or are refused in one located line', () => {
     expect(line.message).toContain('1.00e+39');
     expect(line.message).toContain('3.40e+38');
     expect(line.message).toContain('arithmetic: float64');
+  });
+
+  test('edge-huge-float64: constants beyond float64 are refused without advising float64 (the widest arithmetic)', () => {
+    expect(Number.MAX_VALUE).toBe((2 - 2 ** -52) * 2 ** 1023);
+    const line = expectSpecRefusal(runs.get('edge-huge-float64')!);
+    expect(line.message).toContain('beyond the float64 range');
+    expect(line.message).not.toContain('Infinity');
+    expect(line.message).not.toContain('arithmetic: float64');
   });
 
   test('fixed segments whose 1/width overflows float32 are refused at plan.segments', () => {

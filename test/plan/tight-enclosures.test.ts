@@ -129,6 +129,23 @@ describe('tunable cubic-bezier easing curve (CSS Easing Functions Level 1)', () 
 });
 
 describe('coefficient enclosures are sound', () => {
+  test('recentred coefficients beyond float64 are left to the interval value (null), never an internal error (bench/corpus/random/313.yaml)', () => {
+    // 0.001 s^3 + 1.53 s - x with x near 1e300, recentred at the bracket end 1.307e299: c'0 holds
+    // 0.001 x0^3 ~ 2.2e894, beyond the largest double ((2 - 2^-52) 2^1023 ~ 1.8e308, IEEE 754 binary64).
+    // Formerly the float64 enclosure of that coefficient threw "not finite: Infinity".
+    const file = 'bench/corpus/random/313.yaml';
+    const family = readSpec(file, readFileSync(file, 'utf8'));
+    const x0 = Rational.parseDecimal('1.307e299');
+    const c0 = Rational.parseDecimal('0.001').mul(x0.pow(3));
+    expect(c0.toNumber()).toBe(Infinity);
+    const ranges = new CoefficientRanges(family, [x0]);
+    const cell = family.inputs.map((i) => ({ lo: i.lo.toNumber(), hi: i.hi.toNumber() }));
+    const t = ranges.cell(cell, 0);
+    // Every c'j here has a term beyond float64: none gets a Bernstein enclosure, so callers keep the interval value.
+    expect(t.shifted.every((x) => x === null)).toBe(true);
+    expect(t.c1).toBeNull();
+  });
+
   test('exact c_j(x0) shifts at sampled points of random cells lie in the Bernstein enclosures (fast-check)', () => {
     const family = fixture('torus-hit.yaml');
     const x0 = Rational.parseDecimal('1.75');

@@ -1,8 +1,8 @@
 /**
  * `result:`: parsed in the coefficients' grammar with the unknown allowed,
  * expanded in powers of the unknown (src/family/result-powers.ts), refused in
- * one located line where it is not a polynomial in the unknown, lacks the
- * bracket the checks need, or asks for fixed32.
+ * one located line where it is not a polynomial in the unknown or asks for
+ * fixed32.
  *
  * The expansion is checked against exact evaluation of the expression as
  * written (exact rationals, src/family/expr-eval.ts) at random points with
@@ -43,8 +43,10 @@ describe('result', () => {
     expectRefusal(withExtra(...BRACKET, 'result: k2 * x'), 'spec.yaml:18:9: result: ', '`k2` is not an input or a constant; did you mean `k1`?');
   });
 
-  test('a result without root.bracket is refused', () => {
-    expectRefusal(withExtra('result: x ^ 2'), 'spec.yaml:16:9: result: ', 'result: needs root.bracket');
+  test('a result without root.bracket is read (the planner derives the bracket: test/plan/derived-bracket.test.ts)', () => {
+    const f = readSpec('spec.yaml', withExtra('result: x ^ 2'));
+    expect(f.bracket).toBeNull();
+    expect(f.result?.text).toBe('x ^ 2');
   });
 
   test('a result with fixed32 is refused in one line', () => {

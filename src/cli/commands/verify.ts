@@ -1,7 +1,9 @@
 /**
  * `rootcast verify SPEC... [--target c|ts|glsl|all] [--samples N] [--seed S] [--json] [--report FILE.html]`:
- * plans each spec and hands it to verification's main function
- * (src/verify/run.ts), then prints what it returns and sets the exit code:
+ * plans each spec (the float or the fixed32 planner) and hands it to
+ * verification's main function (src/verify/run.ts `verify`), then prints what
+ * it returns (lines, or the `--json` object) and writes the report page from
+ * its data, and sets the exit code:
  * 1 if any check fails, 2 for a refused spec (the others still run; the
  * worst code wins). `--json` prints one object per spec (an array for
  * several) instead of the lines; `--report` writes an HTML page of the
@@ -9,21 +11,22 @@
  */
 import { basename, dirname } from 'node:path';
 import { RootcastError } from '../../errors.js';
-import { targetsOf } from '../../emit/outputs.js';
-import { segmentEdges } from '../../ir/segment-edges.js';
+import { refuseTargetForFixed } from '../../emit/fixed-refuse.js';
+import { targetsOf, type TargetName } from '../../emit/outputs.js';
+import type { Family } from '../../family/types.js';
+import { makeFixedPlan } from '../../plan/fixed/plan-fixed.js';
 import { verifyJson } from '../../verify/json.js';
 import { reportHtml } from '../../verify/report/html.js';
-import { verifyProgram, type VerifyResult } from '../../verify/run.js';
-import { inputBox } from '../../verify/samples.js';
+import { verify } from '../../verify/run.js';
+import type { VerifyInput, VerifyResult } from '../../verify/types.js';
 import { writeFiles } from '../files.js';
 import { startProgress, type ProgressStream } from '../progress.js';
 import { emitInputOf, planFamily } from '../pipeline.js';
 import { loadSpec } from '../../reader/load.js';
 import { jsonOutput, reportRefusal } from '../refusal-json.js';
 import { planJson } from './plan.js';
-import { isFixedFamily } from '../fixed/input.js';
-import { fixedReportData, fixedVerifyJson, runFixedVerify } from '../fixed/verify.js';
-import type { Plan } from '../../plan/plan.js';
+import { fixedEmitInputOf, isFixedFamily } from '../fixed/input.js';
+import { fixedPlanJson } from '../fixed/plan.js';
 
 export interface VerifyCommandOptions {
   specs: readonly string[];
@@ -44,25 +47,15 @@ export function runVerify(o: VerifyCommandOptions, print: Print, printError: Pri
   const results: object[] = [];
   for (const spec of o.specs) {
     try {
-      // Read once: the fixed32 and the float pipelines both take the family.
-      const family = loadSpec(spec);
-      if (isFixedFamily(family)) {
-        const run = runFixedVerify(family, { target: o.target, samples: o.samples, seed: o.seed });
-        if (o.json) results.push(fixedVerifyJson(run));
-        else for (const line of run.result.lines) print(line);
-        if (o.report !== undefined) writeFiles(dirname(o.report), [{ path: basename(o.report), text: reportHtml(fixedReportData(run)) }]);
-        code = Math.max(code, run.result.pass ? 0 : 1);
-        continue;
-      }
-      const plan = planFamily(family);
-      const result = verifyOne(plan, o);
+      const { input, plan } = planned(loadSpec(spec), o.target);
+      const result = verifyOne(input, o);
       if (o.json) {
-        results.push(verifyJson(planJson(plan), result));
+        results.push(verifyJson(plan, result));
         for (const why of result.harnessFailures) printError(`rootcast: ${why}`);
       } else {
         for (const line of result.lines) print(line);
       }
-      if (o.report !== undefined) writeReport(plan, result, o.report);
+      if (o.report !== undefined) writeFiles(dirname(o.report), [{ path: basename(o.report), text: reportHtml(result.report) }]);
       code = Math.max(code, result.pass ? 0 : 1);
     } catch (e) {
       code = Math.max(code, reportRefusal(e, spec, o.json ? results : null, printError));
@@ -72,11 +65,22 @@ export function runVerify(o: VerifyCommandOptions, print: Print, printError: Pri
   return code;
 }
 
-function verifyOne(plan: Plan, o: VerifyCommandOptions): VerifyResult {
-  const name = plan.family.functionName;
+/** The family planned by the float or the fixed32 planner: verification's input and the `plan --json` object. */
+function planned(family: Family, target: string): { input: VerifyInput; plan: { readonly generator: object } } {
+  if (isFixedFamily(family)) {
+    if (target !== 'all') refuseTargetForFixed(family, target as TargetName);
+    const plan = makeFixedPlan(family);
+    return { input: { kind: 'fixed32', emit: fixedEmitInputOf(plan) }, plan: fixedPlanJson(plan) };
+  }
+  const plan = planFamily(family);
+  return { input: { kind: 'float', emit: emitInputOf(plan) }, plan: planJson(plan) };
+}
+
+function verifyOne(input: VerifyInput, o: VerifyCommandOptions): VerifyResult {
+  const name = input.emit.family.functionName;
   let bar: ReturnType<typeof startProgress> | null = null;
   try {
-    return verifyProgram(emitInputOf(plan), {
+    return verify(input, {
       targets: targetsOf(o.target),
       all: o.target === 'all',
       samples: o.samples,
@@ -90,23 +94,4 @@ function verifyOne(plan: Plan, o: VerifyCommandOptions): VerifyResult {
   } finally {
     (bar as ReturnType<typeof startProgress> | null)?.stop();
   }
-}
-
-function writeReport(plan: Plan, result: VerifyResult, file: string): void {
-  const box = inputBox(plan.family);
-  const inproc = result.inProcess;
-  const html = reportHtml({
-    functionName: plan.family.functionName,
-    spec: plan.family.file,
-    arithmetic: plan.family.arithmetic,
-    kind: inproc.kind,
-    bound: inproc.bound,
-    target: inproc.targetAccuracy,
-    inputs: plan.family.inputs.map((r, j) => ({ name: r.name, lo: box[j]!.lo, hi: box[j]!.hi })),
-    // The segment edges (rounded to the target arithmetic), read from the program's index node (src/ir/segment-edges.ts).
-    edges: segmentEdges(emitInputOf(plan).program, box).map((e) => e.edges),
-    points: result.points,
-    checks: result.checks,
-  });
-  writeFiles(dirname(file), [{ path: basename(file), text: html }]);
 }

@@ -1,6 +1,7 @@
 /**
  * The fixed32 TypeScript verification harness NAME.check.ts
- * (templates/ts/fixed-check.ts.hbs): raw int32 inputs over the certified box
+ * (templates/ts/fixed-check.ts.hbs, its machinery the verifier's own code in
+ * templates/ts/fixed-check-machinery.ts.hbs): raw int32 inputs over the certified box
  * (src/verify/fixed-samples.ts), each judged exactly against the BigInt
  * bisection root at raw / 2^bits.
  */
@@ -24,6 +25,7 @@ export function tsFixedHarness(input: FixedEmitInput): EmittedFile {
     commentLines: cCommentLines(fixedHeaderLines(input, 'TypeScript verification harness (exact BigInt bisection reference)')),
     compileCommand: `${tsHarnessCompileCommand(name)}   (in a folder whose package.json says "type": "module")`,
     name,
+    machinery: renderTemplate('ts/fixed-check-machinery.ts.hbs', {}),
     inputName: family.inputs[0]!.name,
     inputBits: String(family.fixed!.inputs[0]),
     resultBits: String(family.fixed!.result),
@@ -35,11 +37,11 @@ export function tsFixedHarness(input: FixedEmitInput): EmittedFile {
     bound: double(claims.bound.total),
     boundText: formatEUp(claims.bound.total, 1),
     target: double(claims.target),
-    constantLines: usedConstantsOf(family).map((c) => `const ${tsConstantName(c)}: RcQ = ${tsRational(family.constants[c]!.value)};`),
-    bracket: family.bracket ? `[${tsRational(family.bracket[0].value)}, ${tsRational(family.bracket[1].value)}]` : 'null',
+    constantLines: usedConstantsOf(family).map((c) => `const ${tsConstantName(c)}: rc_Fraction = ${tsRational(family.constants[c]!.value)};`),
+    bracket: family.bracket ? `{ lo: ${tsRational(family.bracket[0].value)}, hi: ${tsRational(family.bracket[1].value)} }` : 'null',
     coefficients: Array.from({ length: family.degree + 1 }, (_, k) => {
       const e = family.coefficients[k];
-      return e ? tsRationalExpr(e) : 'rc_q(0n, 1n)';
+      return e ? tsRationalExpr(e) : 'rc_fraction(0n, 1n)';
     }).join(', '),
   });
   return { path: `${name}.check.ts`, text };

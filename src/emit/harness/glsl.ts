@@ -4,17 +4,19 @@
  * src/verify/samples.ts (the segment edge points arrive as a table of exact
  * double literals), finds each reference root by exact BigInt bisection
  * and prints the summary line of src/verify/summary.ts (languages `GLSL` and
- * `GLSL vec4`). The page is templates/glsl/check.html.hbs, its reference
- * machinery templates/glsl/check-reference.js; this file fills in the family
- * and the snippet text.
+ * `GLSL vec4`). The page is templates/glsl/check.html.hbs, its verification
+ * machinery the verifier's own code as JavaScript
+ * (templates/glsl/check-machinery.js.hbs, written by scripts/gen-harness.js);
+ * this file fills in the family and the snippet text.
  */
 import { formatEUp } from '../literals/round-up.js';
-import { readTemplate, renderTemplate } from '../templates.js';
+import { renderTemplate } from '../templates.js';
 import { glslFunction } from '../glsl/function.js';
 import { refuseUnlessFloat32 } from '../glsl/refuse.js';
 import { tsLiteral } from '../literals/ts.js';
 import type { EmitInput, EmittedFile } from '../types.js';
 import { harnessParts } from './family-parts.js';
+import { measureRuleParts } from './ts.js';
 import { tsConstantName, tsRational, tsRationalExpr } from './ts-expr.js';
 import type { Expr } from '../../family/types.js';
 
@@ -33,7 +35,7 @@ export function glslHarness(input: EmitInput): EmittedFile {
   const text = renderTemplate('glsl/check.html.hbs', {
     commentLines: parts.commentLines,
     name,
-    reference: readTemplate('glsl/check-reference.js'),
+    machinery: renderTemplate('glsl/check-machinery.js.hbs', {}),
     inputNames: parts.inputNames.map((n) => `'${n}'`).join(', '),
     boxLo: parts.lo.map(double).join(', '),
     boxHi: parts.hi.map(double).join(', '),
@@ -45,14 +47,8 @@ export function glslHarness(input: EmitInput): EmittedFile {
     absoluteBound: double(claims.absoluteBound),
     relative: claims.bound.kind === 'relative' ? 'true' : 'false',
     constantLines: parts.usedConstants.map((c) => `const ${tsConstantName(c)} = ${tsRational(family.constants[c]!.value)};`),
-    bracket: family.bracket ? `[${tsRational(family.bracket[0].value)}, ${tsRational(family.bracket[1].value)}]` : 'null',
-    coefficients: Array.from({ length: family.degree + 1 }, (_, k) => {
-      const e = family.coefficients[k];
-      return e ? jsRationalExpr(e) : 'rc_q(0n, 1n)';
-    }).join(', '),
+    ...measureRuleParts(family, jsRationalExpr),
     snippet: scriptString(glslFunction(input).text),
-    result: family.result ? `(x) => ${jsRationalExpr(family.result.expr)}` : 'null',
-    rootScale: double(family.result && family.bracket ? Math.max(...family.bracket.map((t) => Math.abs(t.toNumber()))) : 0),
     kind: claims.bound.kind,
   });
   return { path: glslHarnessPath(name), text };

@@ -1,15 +1,17 @@
 /**
  * Spec expressions printed as TypeScript expressions over the harness's exact
- * BigInt rationals (type RcQ, helpers rc_add ... rc_powi in
- * templates/ts/check.ts.hbs). Inputs are `x[i]!`, the spec's constants the
- * module constants `rc_k_NAME`; every number is its exact value in lowest terms.
+ * BigInt fractions (type rc_Fraction, functions rc_fraction, rc_addFractions
+ * ... rc_powFraction: the verifier's fraction arithmetic, copied into the
+ * harness machinery by scripts/gen-harness.js). Inputs are `x[i]!`, the spec's
+ * constants the module constants `rc_k_NAME`; every number is its exact value
+ * in lowest terms.
  */
 import type { Rational } from '../../math/rational.js';
 import type { Expr } from '../../family/types.js';
 
-/** An exact value as a rational literal `rc_q(num, den)`. */
+/** An exact value as a fraction literal `rc_fraction(num, den)`. */
 export function tsRational(r: Rational): string {
-  return `rc_q(${r.num}n, ${r.den}n)`;
+  return `rc_fraction(${r.num}n, ${r.den}n)`;
 }
 
 export function tsConstantName(name: string): string {
@@ -25,17 +27,17 @@ export function tsRationalExpr(e: Expr): string {
     case 'constant':
       return tsConstantName(e.name);
     case 'neg':
-      return `rc_neg(${tsRationalExpr(e.arg)})`;
+      return `rc_negFraction(${tsRationalExpr(e.arg)})`;
     case 'add':
-      return `rc_add(${tsRationalExpr(e.left)}, ${tsRationalExpr(e.right)})`;
+      return `rc_addFractions(${tsRationalExpr(e.left)}, ${tsRationalExpr(e.right)})`;
     case 'sub':
-      return `rc_sub(${tsRationalExpr(e.left)}, ${tsRationalExpr(e.right)})`;
+      return `rc_subFractions(${tsRationalExpr(e.left)}, ${tsRationalExpr(e.right)})`;
     case 'mul':
-      return `rc_mul(${tsRationalExpr(e.left)}, ${tsRationalExpr(e.right)})`;
+      return `rc_mulFractions(${tsRationalExpr(e.left)}, ${tsRationalExpr(e.right)})`;
     case 'div':
-      return `rc_div(${tsRationalExpr(e.left)}, ${tsRationalExpr(e.right)})`;
+      return `rc_divFractions(${tsRationalExpr(e.left)}, ${tsRationalExpr(e.right)})`;
     case 'pow':
-      return `rc_powi(${tsRationalExpr(e.base)}, ${e.exponent})`;
+      return `rc_powFraction(${tsRationalExpr(e.base)}, ${e.exponent})`;
     default:
       throw new RangeError(`unknown expression kind: ${(e as { kind: string }).kind}`);
   }

@@ -4,8 +4,10 @@
  * src/verify/samples.ts (the segment edge points arrive as a table of exact
  * double literals), finds each reference root by exact BigInt rational
  * bisection, prints the summary line of src/verify/summary.ts and sets exit
- * code 0 on pass, 1 on fail. The machinery is templates/ts/check.ts.hbs; this
- * file fills in the family: box, bounds, constants and coefficient expressions.
+ * code 0 on pass, 1 on fail. The frame is templates/ts/check.ts.hbs, the
+ * machinery the verifier's own code (templates/ts/check-machinery.ts.hbs,
+ * written by scripts/gen-harness.js); this file fills in the family: box,
+ * bounds, constants and coefficient expressions.
  */
 import { formatEUp } from '../literals/round-up.js';
 import { tsLiteral } from '../literals/ts.js';
@@ -14,6 +16,7 @@ import type { EmitInput, EmittedFile } from '../types.js';
 import { harnessParts } from './family-parts.js';
 import { tsConstantName, tsRational, tsRationalExpr } from './ts-expr.js';
 import { ARITHMETICS } from '../../family/arithmetic.js';
+import type { Expr, Family } from '../../family/types.js';
 
 /** How the harness is built (also printed in its header comment). */
 export function tsHarnessCompileCommand(name: string): string {
@@ -40,17 +43,29 @@ export function tsHarness(input: EmitInput): EmittedFile {
     absoluteBound: double(claims.absoluteBound),
     relative: claims.bound.kind === 'relative' ? 'true' : 'false',
     float32: ARITHMETICS[family.arithmetic].tsRound ? 'true' : 'false',
-    constantLines: parts.usedConstants.map((c) => `const ${tsConstantName(c)}: RcQ = ${tsRational(family.constants[c]!.value)};`),
-    bracket: family.bracket ? `[${tsRational(family.bracket[0].value)}, ${tsRational(family.bracket[1].value)}]` : 'null',
-    coefficients: Array.from({ length: family.degree + 1 }, (_, k) => {
-      const e = family.coefficients[k];
-      return e ? tsRationalExpr(e) : 'rc_q(0n, 1n)';
-    }).join(', '),
+    machinery: renderTemplate('ts/check-machinery.ts.hbs', {}),
+    constantLines: parts.usedConstants.map((c) => `const ${tsConstantName(c)}: rc_Fraction = ${tsRational(family.constants[c]!.value)};`),
+    ...measureRuleParts(family, tsRationalExpr),
     callArguments: parts.inputNames.map((_, j) => `x[${j}]!`).join(', '),
-    result: family.result ? `(x) => ${tsRationalExpr(family.result.expr)}` : 'null',
-    rootScale: double(family.result && family.bracket ? Math.max(...family.bracket.map((t) => Math.abs(t.toNumber()))) : 0),
     arithmetic: family.arithmetic,
     kind: claims.bound.kind,
   });
   return { path: `${name}.check.ts`, text };
+}
+
+/**
+ * The bracket, coefficients, result and rootScale slots of the measure rule
+ * (MeasureRule in the machinery), printed by `expr` (TypeScript or JavaScript).
+ */
+export function measureRuleParts(family: Family, expr: (e: Expr) => string): Record<'bracket' | 'coefficients' | 'result' | 'rootScale', string> {
+  const rootScale = family.result && family.bracket ? Math.max(...family.bracket.map((t) => Math.abs(t.toNumber()))) : 0;
+  return {
+    bracket: family.bracket ? `{ lo: ${tsRational(family.bracket[0].value)}, hi: ${tsRational(family.bracket[1].value)} }` : 'null',
+    coefficients: Array.from({ length: family.degree + 1 }, (_, k) => {
+      const e = family.coefficients[k];
+      return e ? expr(e) : 'rc_fraction(0n, 1n)';
+    }).join(', '),
+    result: family.result ? `(inputs, root) => {\n    const x = [...inputs, root];\n    return ${expr(family.result.expr)};\n  }` : 'null',
+    rootScale: tsLiteral(rootScale, 'float64'),
+  };
 }

@@ -5,6 +5,7 @@
  * any program is built; a step count whose cheapest program (order 0) costs
  * no less than a plan in hand is not weighed.
  */
+import { ConstantOverflowError } from '../../ir/builder.js';
 import { programCost } from '../../ir/cost/index.js';
 import { planOf } from '../plan-of.js';
 import { coreProgram, polishBound, polishedProgram, PolishFailure, stepProgram } from '../polish.js';
@@ -20,7 +21,10 @@ export function polishedPlans(ctx: FormContext, found: FoundPlans): Plan[] {
   const stepCounts: readonly number[] = knob === 'auto' ? POLISH.autoSteps : [knob];
   const series = found.first('series-order');
   // Below the graded plan's order (a polished plan of the same order costs more), or up to max_order.
-  const maxOrder = series ? series.order - 1 : Math.min(family.plan.maxOrder, pool.grades - 1);
+  // A fixed step count is the user's choice: its plans are weighed up to max_order even where the
+  // series alone is cheaper, so "no plan with k steps meets the target" is only said when none does.
+  const upTo = Math.min(family.plan.maxOrder, pool.grades - 1);
+  const maxOrder = knob !== 'auto' ? upTo : series ? series.order - 1 : upTo;
   const cells = ctx.set.cells;
   const out: Plan[] = [];
   // With plan.newton_steps fixed, the best miss: the floor quoted when no plan with those steps meets the target.
@@ -46,12 +50,13 @@ export function polishedPlans(ctx: FormContext, found: FoundPlans): Plan[] {
       if (cheap.total > target) continue;
       const terms = pool.termsUpTo(n);
       if (!terms) break;
-      const programs = { core: coreProgram(family, expansion, terms), steps: Array.from({ length: k }, (_, j) => stepProgram(family, expansion, j === k - 1)) };
       let full;
       try {
+        const programs = { core: coreProgram(family, expansion, terms), steps: Array.from({ length: k }, (_, j) => stepProgram(family, expansion, j === k - 1)) };
         full = polishBound(cells, n, k, relative, programs);
       } catch (e) {
-        if (e instanceof PolishFailure) break;
+        // No bound, or a series constant beyond the arithmetic's range: higher orders cannot help.
+        if (e instanceof PolishFailure || e instanceof ConstantOverflowError) break;
         throw e;
       }
       // Rounding does not shrink with the order: past a share of the target, stop.

@@ -7,15 +7,32 @@
 import { cellTail } from '../cell-bound.js';
 import { evaluate } from '../evaluate.js';
 import { planOf, tableBytesOf } from '../plan-of.js';
-import { refuseFloor, refuseOrder } from '../refusals.js';
+import { ConstantOverflowError } from '../../ir/builder.js';
+import type { Program } from '../../ir/nodes.js';
+import { refuseConstant, refuseFloor, refuseOrder } from '../refusals.js';
 import { seriesProgram } from '../series-program.js';
 import { LIMITS, ORDER_SEARCH, WORK } from '../tuning.js';
 import { WorkLimitError, workUsed } from '../work.js';
 import type { Plan } from '../types.js';
 import type { FormContext } from './context.js';
 
+/**
+ * The program of the terms kept so far. A constant beyond the arithmetic's range
+ * (H(m) grows like 4^m: past order 60 or so in float32) ends this form's search
+ * with its refusal; the forms below it (Newton steps after a shorter series) are
+ * still weighed.
+ */
+function programOf(ctx: FormContext): Program {
+  try {
+    return seriesProgram(ctx.family, ctx.expansion, ctx.pool.kept);
+  } catch (e) {
+    if (e instanceof ConstantOverflowError) refuseConstant(ctx.family, e.exact);
+    throw e;
+  }
+}
+
 export function seriesOrderPlan(ctx: FormContext): Plan {
-  const { family, expansion, set, pool, relative, target } = ctx;
+  const { family, set, pool, relative, target } = ctx;
   // The best miss among programs whose tables fit (a floor quoted from a program that cannot be
   // emitted would not plan when the user sets the target to it), and among those that do not
   // (quoted with their table bytes when none fits).
@@ -34,7 +51,7 @@ export function seriesOrderPlan(ctx: FormContext): Plan {
       trunc = set.truncation(order, relative);
     }
     if (trunc > target) continue;
-    const program = seriesProgram(family, expansion, pool.kept);
+    const program = programOf(ctx);
     const evaluated = evaluate(family, program, set.cells, (c) => cellTail(c, order), relative);
     if (evaluated.bound.total <= target) {
       ctx.checkTable(program);
@@ -58,7 +75,7 @@ export function seriesOrderPlan(ctx: FormContext): Plan {
     for (; order <= LIMITS.grade && workUsed() < huntEnd; order++) {
       if (!pool.nextGrade(order)) break;
       if (set.truncation(order, relative) > target) continue;
-      const program = seriesProgram(family, expansion, pool.kept);
+      const program = programOf(ctx);
       const evaluated = evaluate(family, program, set.cells, (c) => cellTail(c, order), relative);
       // Either quote would fail if this program's tables did not fit: refuse at the table then.
       ctx.checkTable(program);
