@@ -1,0 +1,96 @@
+/**
+ * plan/linear-form.ts: coefficient expressions as exact affine forms
+ * constant + sum w_i atom_i, and their materialisation as a program.
+ *
+ * Outside references: the rational arithmetic below is worked by hand
+ * (3 (s/4 - 2/3) + 0.5 t = 3/4 s + 1/2 t - 2, and so on); the programs are
+ * run in process (ir/evaluate.ts, float64) and compared with decimal.js
+ * evaluations of the same formulas written out here.
+ */
+import { describe, expect, test } from '@jest/globals';
+import { Decimal } from 'decimal.js';
+import { addForms, formOf, materialise, powerOf, scaleForm, uniform } from '../../src/plan/linear-form.js';
+import { ProgramBuilder } from '../../src/ir/builder.js';
+import { evaluate } from '../../src/ir/evaluate.js';
+import { readSpec } from '../../src/reader/read.js';
+import { Rational } from '../../src/math/rational.js';
+import { exactDecimal } from '../support/exact-decimal.js';
+
+const D = Decimal.clone({ precision: 120 });
+const exact = (x: number): Decimal => exactDecimal(D, x);
+const q = (n: bigint, d = 1n): Rational => Rational.of(n, d);
+
+const family = readSpec(
+  'forms.yaml',
+  [
+    'function: f',
+    'unknown: x',
+    'degree: 2',
+    'coefficients:',
+    '  0: "3 * (s / 4 - 2 / 3) + 0.5 * t"',
+    '  1: "(s + t) * (s - t) / k"',
+    '  2: "-(2 * s - t) ^ 3 + k ^ 2"',
+    'inputs:',
+    '  s: [1, 2]',
+    '  t: [0, 1]',
+    'constants:',
+    '  k: 1.25',
+    'accuracy:',
+    '  absolute: 1e-6',
+    'arithmetic: float64',
+    '',
+  ].join('\n'),
+);
+const builder = (): ProgramBuilder => new ProgramBuilder('float64', ['s', 't'], { parts: [], segments: 1 });
+
+describe('linear forms', () => {
+  test('an affine expression folds exactly: 3 (s/4 - 2/3) + 0.5 t = 3/4 s + 1/2 t - 2', () => {
+    const b = builder();
+    const f = formOf(b, family.coefficients[0]!, family.constants);
+    expect(f.constant[0]!.eq(q(-2n))).toBe(true);
+    expect([...f.terms.values()].map((w) => w[0]!.toString()).sort()).toEqual(['1/2', '3/4']);
+  });
+
+  test('adding and scaling forms is exact, and a weight that cancels drops its atom', () => {
+    const b = builder();
+    const f = formOf(b, family.coefficients[0]!, family.constants);
+    const doubled = scaleForm(f, uniform(q(2n), 1));
+    expect(doubled.constant[0]!.eq(q(-4n))).toBe(true);
+    const back = addForms(doubled, f, -1);
+    expect(back.constant[0]!.eq(f.constant[0]!)).toBe(true);
+    expect(addForms(f, f, -1).terms.size).toBe(0);
+  });
+
+  test('non-affine parts become atoms; the materialised programs compute the expressions (decimal.js, within rounding)', () => {
+    const k = new D('1.25');
+    const want = [
+      (s: Decimal, t: Decimal) => s.div(4).minus(new D(2).div(3)).times(3).plus(t.div(2)),
+      (s: Decimal, t: Decimal) => s.plus(t).times(s.minus(t)).div(k),
+      (s: Decimal, t: Decimal) => s.times(2).minus(t).pow(3).neg().plus(k.pow(2)),
+    ];
+    for (let j = 0; j < 3; j++) {
+      const b = builder();
+      const program = b.finish(materialise(b, formOf(b, family.coefficients[j]!, family.constants)));
+      for (const [s, t] of [
+        [1, 0],
+        [1.5, 0.25],
+        [2, 1],
+        [1.125, 0.875],
+      ] as const) {
+        const got = exact(evaluate(program, [s, t]));
+        const w = want[j]!(exact(s), exact(t));
+        const tol = w.abs().plus(8).times(2 ** -48);
+        if (got.minus(w).abs().gt(tol)) throw new Error(`c${j} at s = ${s}, t = ${t}: got ${got}, want ${w}`);
+      }
+    }
+  });
+
+  test('powerOf squares repeatedly: x^13 takes 5 multiplications (13 = 1101 in binary: 3 squarings, 2 extra)', () => {
+    const b = builder();
+    const x = b.input(0);
+    const p = powerOf(b, x, 13);
+    const program = b.finish(p);
+    expect(program.nodes.filter((n) => n.kind === 'mul').length).toBe(5);
+    expect(evaluate(program, [1.5, 0])).toBe(1.5 ** 13); // 1.5^13 = 3^13 / 2^13 is exact in binary64 (3^13 < 2^53)
+  });
+});

@@ -1,0 +1,73 @@
+/**
+ * plan/series-program.ts: the truncated hyper-Catalan series as a program.
+ *
+ * For 0.1 x^2 + x - s = 0 expanded at x0 = 0: r = c0 / c1 = -s, q2 = c2 / c1,
+ * t2 = r q2, and the root is x = -r a with 1 - a + t2 a^2 = 0, so
+ * a = sum_k C_k t2^k, the Catalan generating function (C_k: OEIS A000108,
+ * 1, 1, 2, 5, 14, 42, 132, 429, 1430, 4862; from memory). Keeping the grades
+ * up to N gives x_N = s sum_{k<=N} C_k (-q2 s)^k exactly. The program, run in
+ * process in float64 (ir/evaluate.ts), must agree with x_N (computed with
+ * decimal.js) to within rounding, and x_N tends to the quadratic formula's
+ * root (sqrt(1 + 4 q2 s) - 1) / (2 q2).
+ * Two families: q2 = 0.1 constant (the Horner-in-r shape) and q2 = 0.1 + 0.05 s
+ * (varying q_k, the nested shape).
+ */
+import { describe, expect, test } from '@jest/globals';
+import { Decimal } from 'decimal.js';
+import { seriesProgram } from '../../src/plan/series-program.js';
+import { evaluate } from '../../src/ir/evaluate.js';
+import { termsUpToGrade } from '../../src/series/hyper-catalan.js';
+import { readSpec } from '../../src/reader/read.js';
+import { Rational } from '../../src/math/rational.js';
+import { exactDecimal } from '../support/exact-decimal.js';
+
+const D = Decimal.clone({ precision: 120 });
+const exact = (x: number): Decimal => exactDecimal(D, x);
+const A000108 = [1, 1, 2, 5, 14, 42, 132, 429, 1430, 4862];
+
+const family = (c2: string) =>
+  readSpec(
+    'series.yaml',
+    ['function: f', 'unknown: x', 'degree: 2', 'coefficients:', '  0: -s', '  1: 1', `  2: ${c2}`, 'inputs:', '  s: [0, 1]', 'accuracy:', '  absolute: 1e-9', 'arithmetic: float64', ''].join('\n'),
+  );
+const oneBox = { segmentation: { parts: [], segments: 1 }, x0: [Rational.ZERO] };
+
+function partialSum(s: Decimal, q2: Decimal, N: number): Decimal {
+  let sum = new D(0);
+  for (let k = 0; k <= N; k++) sum = sum.plus(new D(A000108[k]!).times(q2.neg().times(s).pow(k)));
+  return s.times(sum);
+}
+
+describe('seriesProgram', () => {
+  const cases: [string, string, (s: Decimal) => Decimal][] = [
+    ['q2 constant', '0.1', () => new D('0.1')],
+    ['q2 varying', '0.1 + 0.05 * s', (s) => new D('0.1').plus(new D('0.05').times(s))],
+  ];
+
+  test.each(cases)('%s: the program computes the Catalan partial sum x_N to within rounding, for N = 0 .. 9', (_, c2, q2Of) => {
+    const f = family(c2);
+    for (let N = 0; N <= 9; N++) {
+      const program = seriesProgram(f, oneBox, termsUpToGrade(2, [2], N)!);
+      for (const s of [0, 0.125, 0.3, 0.5, 0.77, 1]) {
+        const want = partialSum(exact(s), q2Of(exact(s)), N);
+        const got = exact(evaluate(program, [s]));
+        // Rounding: a few dozen operations of relative error 2^-53 each on terms no larger than about |x|.
+        const tol = want.abs().times(2 ** -46).plus(2 ** -1000);
+        if (got.minus(want).abs().gt(tol)) throw new Error(`N = ${N}, s = ${s}: got ${got}, want ${want}, tolerance ${tol}`);
+      }
+    }
+  });
+
+  test.each(cases)('%s: x_9 is within the Catalan tail of the quadratic formula\'s root (decimal.js)', (_, c2, q2Of) => {
+    const program = seriesProgram(family(c2), oneBox, termsUpToGrade(2, [2], 9)!);
+    for (const s of [0.25, 1]) {
+      const q2 = q2Of(exact(s));
+      const root = q2.times(4).times(exact(s)).plus(1).sqrt().minus(1).div(q2.times(2));
+      // The first dropped term C_10 (q2 s)^10 s = 16796 (q2 s)^10 s bounds the tail's size up to a small factor here (|q2 s| <= 0.15).
+      const firstDropped = new D(16796).times(q2.times(exact(s)).pow(10)).times(exact(s));
+      const err = exact(evaluate(program, [s])).minus(root).abs();
+      expect(err.lte(firstDropped.times(2))).toBe(true);
+      expect(err.gte(firstDropped.div(2))).toBe(true);
+    }
+  });
+});
