@@ -9,6 +9,11 @@
 // more than one line, or killed at --timeout seconds). Figures, not a timed
 // test: the machine's load is printed with them.
 //
+// With each spec, the planner's work units (src/plan/work.ts, all plans of the
+// run) are read from a marker line, and the CPU nanoseconds per unit are
+// printed as a distribution: the deterministic work limit bounds CPU only as
+// far as that ratio stays in a narrow band.
+//
 //   node bench/plan-time.js [--timeout S] [--only REGEX] [--slowest N] [--json FILE]
 import { spawnSync } from 'node:child_process';
 import { readdirSync, writeFileSync } from 'node:fs';
@@ -19,10 +24,26 @@ const arg = (name, dflt) => {
   const i = process.argv.indexOf(name);
   return i > 0 ? process.argv[i + 1] : dflt;
 };
+if (process.argv.includes('--help')) {
+  console.log(`node bench/plan-time.js [--timeout S] [--cpu-limit S] [--only REGEX] [--slowest N] [--json FILE]
+
+Plans every spec of examples/, bench/corpus/cases/ and bench/corpus/random/ in a
+fresh process and prints the wall and CPU time distribution, the CPU ns per
+work unit, the outcomes and the slowest specs.
+
+  --timeout S    kill a plan after S seconds of wall time (default 30)
+  --cpu-limit S  also kill it after S seconds of its own CPU time (ulimit -t):
+                 on a shared machine a wall-time limit kills early
+  --only REGEX   only the spec paths matching REGEX
+  --slowest N    list the N slowest specs (default 8)
+  --json FILE    write every row (spec, outcome, wall, cpu, units) to FILE`);
+  process.exit(0);
+}
 const timeoutS = Number(arg('--timeout', '30'));
 const only = new RegExp(arg('--only', '.'));
 const slowestN = Number(arg('--slowest', '8'));
 const jsonOut = arg('--json', null);
+const cpuLimit = arg('--cpu-limit', null);
 
 const list = (dir) => readdirSync(dir).filter((f) => /\.ya?ml$/.test(f)).sort().map((f) => join(dir, f));
 const specs = [...list('examples'), ...list('bench/corpus/cases'), ...list('bench/corpus/random')].filter((s) => only.test(s));
@@ -36,36 +57,45 @@ console.log(`machine: ${cpus()[0]?.model ?? 'unknown cpu'}, ${cpus().length} cor
 const rows = [];
 for (const spec of specs) {
   const t0 = process.hrtime.bigint();
-  const r = spawnSync(process.execPath, ['--import', './bench/cpu-note.js', 'dist/cli.js', 'plan', spec], {
+  const argv = ['--import', './bench/cpu-note.js', 'dist/cli.js', 'plan', spec];
+  const [cmd, args] = cpuLimit ? ['/bin/sh', ['-c', `ulimit -t ${Number(cpuLimit)}; exec "$0" "$@"`, process.execPath, ...argv]] : [process.execPath, argv];
+  const r = spawnSync(cmd, args, {
     encoding: 'utf8',
     timeout: timeoutS * 1000,
     killSignal: 'SIGKILL',
   });
   const wall = Number(process.hrtime.bigint() - t0) / 1e9;
   const cpuLine = /@cpu-ms (\d+)/.exec(r.stderr ?? '');
-  const cpu = cpuLine ? Number(cpuLine[1]) / 1000 : wall;
-  const message = (r.stderr ?? '').replace(/\n?@cpu-ms \d+\n$/, '').trim();
+  // Killed: by ulimit -t (SIGXCPU, or SIGKILL at the hard limit) before the wall timeout, it used the CPU limit.
+  const cpuKilled = cpuLimit && r.signal && wall < timeoutS;
+  const cpu = cpuLine ? Number(cpuLine[1]) / 1000 : cpuKilled ? Number(cpuLimit) : wall;
+  const unitsLine = /@work-units (\d+)/.exec(r.stderr ?? '');
+  const units = unitsLine ? Number(unitsLine[1]) : null;
+  const message = (r.stderr ?? '').replace(/(\n?@work-units \d+)?\n?@cpu-ms \d+\n$/, '').trim();
   let outcome;
   if (r.status === 0) outcome = 'planned';
   else if (r.status === 2 && message.split('\n').length === 1 && !/internal error/.test(message)) outcome = 'refused';
   else if (r.status === null) outcome = 'timeout';
   else outcome = 'error';
-  rows.push({ spec, outcome, wall, cpu, message: outcome === 'planned' ? '' : message.split('\n')[0] });
+  rows.push({ spec, outcome, wall, cpu, units, message: outcome === 'planned' ? '' : message.split('\n')[0] });
   if (process.stdout.isTTY) process.stdout.write(`\r${rows.length}/${specs.length} ${spec}      `);
 }
 if (process.stdout.isTTY) process.stdout.write('\n');
 
 const count = (o) => rows.filter((r) => r.outcome === o).length;
-console.log(`${rows.length} specs: ${count('planned')} planned, ${count('refused')} refused, ${count('error')} internal errors, ${count('timeout')} killed at ${timeoutS} s`);
+console.log(`${rows.length} specs: ${count('planned')} planned, ${count('refused')} refused, ${count('error')} internal errors, ${count('timeout')} killed at ${timeoutS} s wall${cpuLimit ? ` or ${cpuLimit} s CPU` : ''}`);
 for (const [label, key] of [['wall', 'wall'], ['cpu', 'cpu']]) {
   const xs = rows.map((r) => r[key]);
   console.log(`${label.padEnd(4)} s: median ${q(xs, 0.5).toFixed(2)}, p95 ${q(xs, 0.95).toFixed(2)}, max ${Math.max(...xs).toFixed(2)}; over 1 s ${xs.filter((x) => x > 1).length}, over 3 s ${xs.filter((x) => x > 3).length}, over 10 s ${xs.filter((x) => x > 10).length}`);
 }
+// CPU per unit, counting only specs with some work (a refusal by the reader plans nothing).
+const perUnit = rows.filter((r) => r.units && r.units > 1e6 && r.outcome !== 'timeout').map((r) => (r.cpu * 1e9) / r.units);
+if (perUnit.length) console.log(`cpu ns per work unit (${perUnit.length} specs over 1e6 units): min ${Math.min(...perUnit).toFixed(0)}, median ${q(perUnit, 0.5).toFixed(0)}, p95 ${q(perUnit, 0.95).toFixed(0)}, max ${Math.max(...perUnit).toFixed(0)}`);
 const ex = rows.filter((r) => r.spec.startsWith('examples/'));
 if (ex.length) console.log(`examples: ${ex.map((r) => `${r.spec.slice(9)} ${r.wall.toFixed(2)} s`).join(', ')}`);
-console.log(`slowest ${slowestN} (wall s, cpu s, outcome):`);
+console.log(`slowest ${slowestN} (wall s, cpu s, work units, outcome):`);
 for (const r of [...rows].sort((a, b) => b.wall - a.wall).slice(0, slowestN)) {
-  console.log(`  ${r.wall.toFixed(2).padStart(6)} ${r.cpu.toFixed(2).padStart(6)}  ${r.outcome.padEnd(8)} ${r.spec}${r.message ? `  ${r.message.slice(0, 140)}` : ''}`);
+  console.log(`  ${r.wall.toFixed(2).padStart(6)} ${r.cpu.toFixed(2).padStart(6)} ${r.units === null ? '     -' : (r.units / 1e6).toFixed(0).padStart(5) + 'M'}  ${r.outcome.padEnd(8)} ${r.spec}${r.message ? `  ${r.message.slice(0, 140)}` : ''}`);
 }
 for (const r of rows.filter((x) => x.outcome === 'error' || x.outcome === 'timeout')) console.log(`  ${r.outcome}: ${r.spec}: ${r.message.slice(0, 160)}`);
 if (jsonOut) writeFileSync(jsonOut, JSON.stringify(rows, null, 1));

@@ -9,7 +9,7 @@ import { divUp } from '../math/directed.js';
 import { splitGeometric, widestDim, widestRatioDim, split, type Cell } from './box.js';
 import { cellFacts, cellTail, type CellFacts } from './cell-bound.js';
 import type { AnalysisProgram } from './series-program.js';
-import { SUBDIVISION } from './tuning.js';
+import { SUBDIVISION, WORK } from './tuning.js';
 import { spend } from './work.js';
 
 export class CellSet {
@@ -28,9 +28,9 @@ export class CellSet {
     this.cells = initial.map((c) => this.facts(c.cell, c.segment));
   }
 
-  /** One cell's facts, counted as work (src/plan/work.ts). */
+  /** One cell's facts, counted as work (src/plan/work.ts): a fixed cost per cell (WORK.cellUnits) and a unit per prefix node. */
   private facts(cell: Cell, segment: number): CellFacts {
-    spend(this.ap.program.nodes.length);
+    spend(WORK.cellUnits + this.ap.program.nodes.length);
     return cellFacts(this.ap, this.degree, cell, this.x0[segment]!, segment);
   }
 

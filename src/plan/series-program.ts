@@ -22,7 +22,8 @@ import type { SeriesTerm } from '../series/hyper-catalan.js';
 import type { Family } from '../family/types.js';
 import { shiftedForms } from '../series/recenter.js';
 import { CoefficientRanges } from './tight-range.js';
-import { spendExact } from './work.js';
+import { checkWork } from './work.js';
+import { gradeSums } from '../series/grade-sums.js';
 import { addForms, constantForm, formOf, isConstant, isZero, materialise, powerOf, scaleForm, uniform, type LinearForm } from './linear-form.js';
 
 export interface SeriesSetup {
@@ -232,17 +233,14 @@ function gcd(a: number, b: number): number {
 function hornerInR(b: ProgramBuilder, p: Prefix, terms: readonly SeriesTerm[], active: readonly number[]): Ref {
   const S = b.segments;
   const D = new Map<number, Rational[]>();
-  for (const t of terms) {
-    const c = signedCoefficient(t);
-    const sum = D.get(t.grade) ?? new Array<Rational>(S).fill(Rational.ZERO);
-    for (let seg = 0; seg < S; seg++) {
-      let v = c;
-      for (const k of active) v = v.mul(b.segValues(p.q.get(k)!)![seg]!.pow(t.m[k]!));
-      // The sum's gcd is the costly exact work (src/plan/work.ts): count it before doing it.
-      if (!sum[seg]!.isZero()) spendExact(Math.max(sum[seg]!.bits(), v.bits()));
-      sum[seg] = sum[seg]!.add(v);
+  for (let seg = 0; seg < S; seg++) {
+    // The exact sums are the costly part (src/plan/work.ts): checkWork stops them at the limit.
+    checkWork();
+    const sums = gradeSums(terms, active, (k) => b.segValues(p.q.get(k)!)![seg]!, checkWork);
+    for (const [grade, v] of sums) {
+      if (!D.has(grade)) D.set(grade, new Array<Rational>(S).fill(Rational.ZERO));
+      D.get(grade)![seg] = v;
     }
-    D.set(t.grade, sum);
   }
   const zero = new Array<Rational>(S).fill(Rational.ZERO);
   const g = active.reduce((acc, k) => gcd(acc, k - 1), 0) || 1;
@@ -313,11 +311,10 @@ export function collapsedSeries(family: Family, e: Expansion, terms: readonly Se
   const inR: Rational[][] = [];
   for (let seg = 0; seg < S; seg++) {
     const m: Rational[] = [e.x0[seg]!];
-    for (const t of terms) {
-      let v = signedCoefficient(t);
-      for (const k of s.active) v = v.mul(q.get(k)![seg]!.pow(t.m[k]!));
-      while (m.length <= t.grade + 1) m.push(Rational.ZERO);
-      m[t.grade + 1] = m[t.grade + 1]!.sub(v);
+    checkWork();
+    for (const [grade, v] of gradeSums(terms, s.active, (k) => q.get(k)![seg]!, checkWork)) {
+      while (m.length <= grade + 1) m.push(Rational.ZERO);
+      m[grade + 1] = v.neg();
     }
     inR.push(m);
   }

@@ -251,11 +251,15 @@ export const BRACKET_CHECK = {
 /** The deterministic work limit of one plan (src/plan/work.ts). */
 export const WORK = {
   /**
-   * Units of work one plan may use: about 2.5 to 4 s of planning (CPU) on a 2-core
-   * AMD EPYC under node 20 (measured with bench/plan-time.js); the
-   * goal is no plan over 10 s on such a machine.
+   * Units of work one plan may use. With every cell and the exact arithmetic
+   * counted (cellUnits, exactStepUnits, exactWordUnits), planning the
+   * examples ran 10 to 37 ns of CPU per unit (bench/plan-time.js with its
+   * work-units marker, 2-core AMD EPYC, node 20, loaded), so the limit is
+   * about 6 to 22 s of planning. The largest example, gas-wide, needs 4.8e8:
+   * a lower limit changes its plan. The goal is no plan over 10 s on such a
+   * machine; the cells are the cost to cut next (issue 10).
    */
-  limit: 2e8,
+  limit: 6e8,
   /** Share of the limit the search for the order needed past plan.max_order may use (it only words a refusal). */
   orderHuntShare: 1 / 8,
   /**
@@ -265,12 +269,25 @@ export const WORK = {
    */
   plainShare: 1 / 4,
   /**
-   * Units per squared 64-bit word of one exact BigInt sum (src/plan/work.ts
-   * spendExact): its gcd took 200 to 350 ns of CPU per squared word for
-   * operands of 1 to 16 thousand bits (measured under node 20 on the 2-core
-   * machine, loaded), against the 10 to 20 ns a unit stands for.
+   * Units per multi-precision operation counted by math/rational.ts
+   * (`exactWork.steps`): such an operation's fixed cost was about 200 ns of
+   * CPU under node 20 on the 2-core machine (BigInt products and Lehmer gcd
+   * steps of 128 to 64000 bits, measured with process.cpuUsage), against
+   * the 15 ns a unit stands for.
    */
-  exactWordUnits: 20,
+  exactStepUnits: 14,
+  /** Units per 64-bit word product (`exactWork.words`): about 1 ns each on the same machine. */
+  exactWordUnits: 0.07,
+  /**
+   * Units per cell whose facts are computed (src/plan/cell-set.ts), beside
+   * one unit per prefix node: a cell's interval analysis, its Bernstein
+   * enclosures, the majorant's root and the cell's share of the refinement
+   * around them cost 150 to 650 us of planning CPU per cell on the examples
+   * (cells counted against `node --cpu-prof` and process CPU time, 2-core
+   * machine, loaded); counted as one node (1 unit) each, planning ran 50 to
+   * 600 ns of CPU per unit, so the limit bounded nothing.
+   */
+  cellUnits: 10000,
   /** Progress reports over the whole limit. */
   reports: 200,
 } as const;

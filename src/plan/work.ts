@@ -1,8 +1,9 @@
 /**
  * The planner's deterministic work limit. Planning counts its work in units
  * (one unit: one term's majorant value on one cell, one IR node analysed on
- * one cell, one cell's facts per prefix node; exact sums of the series
- * constants by their size, spendExact) and stops at WORK.limit: the
+ * one cell, one cell's facts per prefix node; exact arithmetic by the
+ * operations and words math/rational.ts counts, `exactWork`, converted at
+ * every `spend`) and stops at WORK.limit: the
  * same spec stops at the same point on every machine, so output stays
  * byte-identical (a wall-clock limit could not promise that). A plan found
  * before the limit is kept; otherwise the refusal says the limit was reached.
@@ -11,6 +12,7 @@
  * An observer (the command line's progress bar) may watch the units; it
  * never changes what is planned.
  */
+import { exactWork } from '../math/rational.js';
 import { WORK } from './tuning.js';
 
 /** Thrown by `spend` past the limit; caught by the segment search and makePlan, never shown. */
@@ -22,10 +24,24 @@ export class WorkLimitError extends Error {
 
 export type WorkObserver = (used: number, limit: number) => void;
 
-const meter = { used: 0, limit: WORK.limit as number, cap: WORK.limit as number, observer: null as WorkObserver | null, nextReport: 0 };
+const meter = {
+  used: 0,
+  limit: WORK.limit as number,
+  cap: WORK.limit as number,
+  observer: null as WorkObserver | null,
+  nextReport: 0,
+  /** exactWork as last converted into units. */
+  steps: 0,
+  words: 0,
+  /** Units over every plan of this process (the benchmark's units per CPU second). */
+  total: 0,
+};
 
 /** Starts counting a new plan's work. */
 export function startWork(observer: WorkObserver | null = null, limit: number = WORK.limit): void {
+  meter.total += meter.used;
+  meter.steps = exactWork.steps;
+  meter.words = exactWork.words;
   meter.used = 0;
   meter.limit = limit;
   meter.cap = limit;
@@ -33,9 +49,13 @@ export function startWork(observer: WorkObserver | null = null, limit: number = 
   meter.nextReport = limit / WORK.reports;
 }
 
-/** Counts `units` of work; throws WorkLimitError past the limit. */
+/** Counts `units` of work, and the exact work done since the last call; throws WorkLimitError past the limit. */
 export function spend(units: number): void {
-  meter.used += units;
+  const steps = exactWork.steps - meter.steps;
+  const words = exactWork.words - meter.words;
+  meter.steps = exactWork.steps;
+  meter.words = exactWork.words;
+  meter.used += units + steps * WORK.exactStepUnits + words * WORK.exactWordUnits;
   if (meter.observer && meter.used >= meter.nextReport) {
     meter.nextReport = meter.used + meter.limit / WORK.reports;
     meter.observer(Math.min(meter.used, meter.limit), meter.limit);
@@ -58,18 +78,21 @@ export function spendAtMost<T>(units: number, fn: () => T): T {
   }
 }
 
-/** Units counted so far for the current plan. */
+/** Units counted so far for the current plan (exact work included up to the last `spend`). */
 export function workUsed(): number {
   return meter.used;
 }
 
+/** Units counted over every plan of this process so far. */
+export function workTotal(): number {
+  return meter.total + meter.used;
+}
+
 /**
- * Counts one exact BigInt sum whose larger operand has `bits` bits: its gcd
- * (Euclid's algorithm) takes time quadratic in that size, so the units are
- * WORK.exactWordUnits per squared 64-bit word. Recentring at a subnormal x0
- * makes such sums tens of thousands of bits long.
+ * Converts the exact work done so far and stops at the limit: called before
+ * and inside long exact computations (the series constants' sums, the
+ * Chebyshev form), so none runs far past the limit uncounted.
  */
-export function spendExact(bits: number): void {
-  const words = Math.ceil(bits / 64);
-  spend(words * words * WORK.exactWordUnits);
+export function checkWork(): void {
+  spend(0);
 }
