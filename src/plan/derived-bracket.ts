@@ -43,7 +43,6 @@ export function withDerivedBracket(family: Family, root: Plan): Family {
   const margin = Math.max(hi - lo, Math.abs(lo), Math.abs(hi), Number.MIN_VALUE) * DERIVED_BRACKET.margin;
   const a = SpecNumber.parse(shortText(lo - margin, 'down'));
   const b = SpecNumber.parse(shortText(hi + margin, 'up'));
-  // The decimal ends must still contain the hull (the float steps above are not exact).
   // X encloses the exact decimal ends; they must still contain the hull (the float steps above are not exact).
   const X = { lo: a.value.toNumberDown(), hi: b.value.toNumberUp() };
   if (a.value.toNumberUp() > lo || b.value.toNumberDown() < hi) refuse(family, 'its ends cannot be written');

@@ -21,7 +21,7 @@ import { frugalChoice, searchSegments } from './segment-search.js';
 import { QuotedFixRefusal, refuseWorkLimit } from './refusals.js';
 import { QUOTED_FIX, TABLE_FIX, WORK } from './tuning.js';
 import type { Plan } from './types.js';
-import { startWork, WorkLimitError, type WorkObserver } from './work.js';
+import { restartWork, startWork, WorkLimitError, type WorkObserver } from './work.js';
 
 export type { Bound, Candidate, Plan, PlanForm } from './types.js';
 
@@ -134,7 +134,10 @@ function refuseWithTableFix(family: Family, box: Cell, fixed: readonly (number |
   for (const limit of TABLE_FIX.tryBytes) {
     if (limit <= family.plan.maxTableBytes) continue;
     try {
+      // The refused search is over: each trial gets a count of its own, as a quoted fix's check does (confirmedFix).
+      restartWork(WORK.limit * QUOTED_FIX.workShare);
       const found = searchSegments(withBytes(limit), box, fixed).tableBytes;
+      restartWork(WORK.limit * QUOTED_FIX.workShare);
       searchSegments(withBytes(found), box, fixed);
       bytes = found;
       break;

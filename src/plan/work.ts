@@ -49,6 +49,15 @@ export function startWork(observer: WorkObserver | null = null, limit: number = 
   meter.nextReport = limit / WORK.reports;
 }
 
+/**
+ * Starts a new count with the same observer: a search made after the plan's
+ * own search has ended (the table-size fix of a refusal, src/plan/plan.ts),
+ * which must not inherit what that search spent.
+ */
+export function restartWork(limit: number): void {
+  startWork(meter.observer, limit);
+}
+
 /** Counts `units` of work, and the exact work done since the last call; throws WorkLimitError past the limit. */
 export function spend(units: number): void {
   const steps = exactWork.steps - meter.steps;
