@@ -21,6 +21,7 @@ import { QuotedFixRefusal, refuseBadCells, refuseConstant, refuseSteps, refuseTa
 import { chooseRoot, plainRoot, pointText, rootAt, type RootChoice } from './root-choice.js';
 import { segmentLayout, type SegmentLayout } from './segments.js';
 import { analysisProgram, CoefficientError, ZeroSlopeError, type AnalysisProgram, type Expansion } from './series-program.js';
+import { tableLimitBit } from './table-limit.js';
 import { TermPool } from './term-pool.js';
 import { initialCellsPerSegment, LIMITS, REFINE } from './tuning.js';
 import type { Plan } from './types.js';
@@ -141,7 +142,10 @@ function prefixOf(family: Family, expansion: Expansion, layout: SegmentLayout): 
 /** A program's table bytes, or the refusal when they exceed plan.max_table_bytes. */
 function checkTable(family: Family, counts: readonly number[], program: Program): number {
   const tableBytes = tableBytesOf(program);
-  if (tableBytes > family.plan.maxTableBytes) refuseTable(family, counts, tableBytes);
+  if (tableBytes > family.plan.maxTableBytes) {
+    tableLimitBit();
+    refuseTable(family, counts, tableBytes);
+  }
   return tableBytes;
 }
 

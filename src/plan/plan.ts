@@ -19,6 +19,7 @@ import { plainTrial, type PlainTrial } from './plain-series.js';
 import { planWithResult } from './result-stage.js';
 import { frugalChoice, searchSegments } from './segment-search.js';
 import { QuotedFixRefusal, refuseWorkLimit } from './refusals.js';
+import { tableLimitBites } from './table-limit.js';
 import { QUOTED_FIX, TABLE_FIX, WORK } from './tuning.js';
 import type { Plan } from './types.js';
 import { restartWork, startWork, WorkLimitError, type WorkObserver } from './work.js';
@@ -93,10 +94,12 @@ function planWithinLimit(family: Family): Plan {
   const plain = perInput.every((k) => k === 'auto' || k === 1) ? plainTrial(family, box.cell) : NO_PLAIN;
   if (perInput.some((k) => k === 'auto')) {
     const fixed = perInput.map((k) => (k === 'auto' ? null : k));
+    const bites = tableLimitBites();
     try {
       return searchSegments(family, box.cell, fixed, plain);
     } catch (e) {
-      if (e instanceof RootcastError) refuseWithTableFix(family, box.cell, fixed, e);
+      // A search the table limit never touched would end the same with a larger one (src/plan/table-limit.ts).
+      if (e instanceof RootcastError && tableLimitBites() > bites) refuseWithTableFix(family, box.cell, fixed, e);
       throw e;
     }
   }
@@ -122,7 +125,7 @@ const NO_PLAIN: PlainTrial = { plan: null, candidates: [] };
 
 /**
  * When the segment search found no plan and plan.max_table_bytes kept it from
- * splitting the inputs, the real fix is that knob: search again with each
+ * splitting the inputs (it turned a layout, a plan or a form away: src/plan/table-limit.ts), the real fix is that knob: search again with each
  * of TABLE_FIX.tryBytes in turn and, when a plan is found, check that its table size as
  * the limit plans too before quoting it (a quoted fix must work). Otherwise
  * the search's own refusal stands.

@@ -19,6 +19,7 @@ import type { PlainTrial } from './plain-series.js';
 import { refinedPlans } from './refine.js';
 import { moreActionable } from './refusals.js';
 import { REFINE, SEGMENT_SEARCH } from './tuning.js';
+import { tableLimitBit } from './table-limit.js';
 import { WorkLimitError } from './work.js';
 import type { Candidate, Plan } from './types.js';
 
@@ -127,5 +128,8 @@ export function frugalChoice(plans: readonly Plan[]): Plan {
 /** A coarse check before planning: the least table a segmented plan needs must fit. */
 function tableFits(family: Family, counts: readonly number[]): boolean {
   const segments = counts.reduce((a, b) => a * b, 1);
-  return segments <= SEGMENT_SEARCH.maxTotal && segments * ARITHMETICS[family.arithmetic].bytes * SEGMENT_SEARCH.minValuesPerSegment <= family.plan.maxTableBytes;
+  if (segments > SEGMENT_SEARCH.maxTotal) return false;
+  const fits = segments * ARITHMETICS[family.arithmetic].bytes * SEGMENT_SEARCH.minValuesPerSegment <= family.plan.maxTableBytes;
+  if (!fits) tableLimitBit();
+  return fits;
 }
