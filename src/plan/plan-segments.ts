@@ -22,6 +22,7 @@ import { chooseRoot, plainRoot, pointText, rootAt, type RootChoice } from './roo
 import { segmentLayout, type SegmentLayout } from './segments.js';
 import { analysisProgram, CoefficientError, ZeroSlopeError, type AnalysisProgram, type Expansion } from './series-program.js';
 import { tableLimitBit } from './table-limit.js';
+import { planFound } from './work.js';
 import { TermPool } from './term-pool.js';
 import { initialCellsPerSegment, LIMITS, REFINE } from './tuning.js';
 import type { Plan } from './types.js';
@@ -32,7 +33,9 @@ import type { Plan } from './types.js';
  */
 export function planSegments(family: Family, box: Cell, counts: readonly number[], thorough = true, refine?: readonly (readonly number[] | null)[], plain = false): Plan {
   try {
-    return planSegmentsInner(family, box, segmentLayout(family, box, counts, refine), thorough, plain);
+    const p = planSegmentsInner(family, box, segmentLayout(family, box, counts, refine), thorough, plain);
+    planFound();
+    return p;
   } catch (e) {
     if (e instanceof ConstantOverflowError) refuseConstant(family, e.exact);
     throw e;

@@ -22,7 +22,7 @@ import { QuotedFixRefusal, refuseWorkLimit } from './refusals.js';
 import { tableLimitBites } from './table-limit.js';
 import { QUOTED_FIX, TABLE_FIX, WORK } from './tuning.js';
 import type { Plan } from './types.js';
-import { restartWork, startWork, WorkLimitError, type WorkObserver } from './work.js';
+import { everyPlan, restartWork, startWork, untilFirstPlan, WorkLimitError, type WorkObserver } from './work.js';
 
 export type { Bound, Candidate, Plan, PlanForm } from './types.js';
 
@@ -71,7 +71,8 @@ function confirmedFix(family: Family, refusal: QuotedFixRefusal, options: PlanOp
   for (let round = 0; round < QUOTED_FIX.rounds; round++) {
     startWork(options.onWork ?? null, WORK.limit * QUOTED_FIX.workShare);
     try {
-      applyOutsideBox(planWithinLimit(quote.apply(family)));
+      // Whether it plans is all the check asks: it stops at the first plan (a search that found one returns one).
+      untilFirstPlan(() => planWithinLimit(quote.apply(family)));
       return quote;
     } catch (e) {
       if (e instanceof QuotedFixRefusal && e.kind === 'floor' && quote.kind === 'floor' && e.best > quote.best) {
@@ -139,9 +140,9 @@ function refuseWithTableFix(family: Family, box: Cell, fixed: readonly (number |
     try {
       // The refused search is over: each trial gets a count of its own, as a quoted fix's check does (confirmedFix).
       restartWork(WORK.limit * QUOTED_FIX.workShare);
-      const found = searchSegments(withBytes(limit), box, fixed).tableBytes;
+      const found = everyPlan(() => searchSegments(withBytes(limit), box, fixed)).tableBytes;
       restartWork(WORK.limit * QUOTED_FIX.workShare);
-      searchSegments(withBytes(found), box, fixed);
+      untilFirstPlan(() => searchSegments(withBytes(found), box, fixed));
       bytes = found;
       break;
     } catch (e) {

@@ -105,3 +105,50 @@ export function workTotal(): number {
 export function checkWork(): void {
   spend(0);
 }
+
+/**
+ * Thrown at the first plan found while `untilFirstPlan` runs: a search that
+ * has found one plan returns a plan (the best so far stands, src/plan/segment-search.ts),
+ * so a check that only asks whether a spec plans can stop there.
+ */
+export class FirstPlanFound extends Error {
+  constructor() {
+    super('a plan was found');
+  }
+}
+
+let stopAtPlan = false;
+
+/** Called by src/plan/plan-segments.ts for every plan it makes; ends an `untilFirstPlan` run. */
+export function planFound(): void {
+  if (stopAtPlan) throw new FirstPlanFound();
+}
+
+/**
+ * Runs `fn` (a planning run) only until it makes its first plan, and
+ * returns then: the run would have planned. Its refusals and the work limit
+ * come out as thrown, as when it runs to the end.
+ */
+export function untilFirstPlan(fn: () => unknown): void {
+  const saved = stopAtPlan;
+  stopAtPlan = true;
+  try {
+    fn();
+  } catch (e) {
+    if (e instanceof FirstPlanFound) return;
+    throw e;
+  } finally {
+    stopAtPlan = saved;
+  }
+}
+
+/** Runs `fn` with every plan kept (a search whose plan is needed, inside an `untilFirstPlan` run). */
+export function everyPlan<T>(fn: () => T): T {
+  const saved = stopAtPlan;
+  stopAtPlan = false;
+  try {
+    return fn();
+  } finally {
+    stopAtPlan = saved;
+  }
+}
