@@ -18,9 +18,9 @@ import { planSegments } from './plan-segments.js';
 import type { PlainTrial } from './plain-series.js';
 import { refinedPlans } from './refine.js';
 import { moreActionable } from './refusals.js';
-import { REFINE, SEGMENT_SEARCH } from './tuning.js';
+import { QUOTED_FIX, REFINE, SEGMENT_SEARCH, WORK } from './tuning.js';
 import { tableLimitBit } from './table-limit.js';
-import { WorkLimitError } from './work.js';
+import { WorkLimitError, workUsed } from './work.js';
 import type { Candidate, Plan } from './types.js';
 
 /** `fixed`: per input, the count the spec sets, or null where the search chooses (all null for `segments: auto`). */
@@ -55,7 +55,7 @@ export function searchSegments(family: Family, box: Cell, fixed: readonly (numbe
         return null;
       }
       if (!(e instanceof RootcastError)) throw e;
-      found.refusal = moreActionable(found.refusal, e);
+      found.refusal = moreActionable(found.refusal, e, workUsed() > WORK.limit * QUOTED_FIX.workShare);
       candidates.push(refusedCandidate(counts, e.message, !family.bracket));
       return null;
     }
