@@ -22,7 +22,7 @@ import { QuotedFixRefusal, refuseWorkLimit } from './refusals.js';
 import { tableLimitBites } from './table-limit.js';
 import { QUOTED_FIX, TABLE_FIX, WORK } from './tuning.js';
 import type { Plan } from './types.js';
-import { everyPlan, restartWork, startWork, untilFirstPlan, WorkLimitError, type WorkObserver } from './work.js';
+import { everyPlan, restartWork, startWork, untilFirstPlan, untilFirstPlanBy, WorkLimitError, type WorkObserver } from './work.js';
 
 export type { Bound, Candidate, Plan, PlanForm } from './types.js';
 
@@ -97,7 +97,10 @@ function planWithinLimit(family: Family): Plan {
     const fixed = perInput.map((k) => (k === 'auto' ? null : k));
     const bites = tableLimitBites();
     try {
-      return searchSegments(family, box.cell, fixed, plain);
+      // A search with no plan (the plain series' included) after a share of the limit ends there (src/plan/work.ts).
+      const search = (): Plan => searchSegments(family, box.cell, fixed, plain);
+      // Without a bracket the one box is the only trial: it keeps the whole limit.
+      return plain.plan || !family.bracket ? search() : untilFirstPlanBy(WORK.limit * WORK.firstPlanShare, search);
     } catch (e) {
       // A search the table limit never touched would end the same with a larger one (src/plan/table-limit.ts).
       if (e instanceof RootcastError && tableLimitBites() > bites) refuseWithTableFix(family, box.cell, fixed, e);

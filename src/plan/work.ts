@@ -35,6 +35,8 @@ const meter = {
   words: 0,
   /** Units over every plan of this process (the benchmark's units per CPU second). */
   total: 0,
+  /** Where a search that has made no plan yet stops (`untilFirstPlanBy`); Infinity when none is set. */
+  firstPlanBy: Infinity,
 };
 
 /** Starts counting a new plan's work. */
@@ -47,6 +49,7 @@ export function startWork(observer: WorkObserver | null = null, limit: number = 
   meter.cap = limit;
   meter.observer = observer;
   meter.nextReport = limit / WORK.reports;
+  meter.firstPlanBy = Infinity;
 }
 
 /**
@@ -69,7 +72,7 @@ export function spend(units: number): void {
     meter.nextReport = meter.used + meter.limit / WORK.reports;
     meter.observer(Math.min(meter.used, meter.limit), meter.limit);
   }
-  if (meter.used > meter.cap) throw new WorkLimitError();
+  if (meter.used > meter.cap || meter.used > meter.firstPlanBy) throw new WorkLimitError();
 }
 
 /**
@@ -121,7 +124,23 @@ let stopAtPlan = false;
 
 /** Called by src/plan/plan-segments.ts for every plan it makes; ends an `untilFirstPlan` run. */
 export function planFound(): void {
+  meter.firstPlanBy = Infinity;
   if (stopAtPlan) throw new FirstPlanFound();
+}
+
+/**
+ * Runs `fn` (a segment search) with at most `units` more work until its
+ * first plan (`planFound` lifts the bound; the rest of the limit stays for
+ * better plans): a search that has found nothing after that much work ends
+ * as at the work limit. The bound counts work, so it stays deterministic.
+ */
+export function untilFirstPlanBy<T>(units: number, fn: () => T): T {
+  meter.firstPlanBy = meter.used + units;
+  try {
+    return fn();
+  } finally {
+    meter.firstPlanBy = Infinity;
+  }
 }
 
 /**

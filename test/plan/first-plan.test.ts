@@ -16,7 +16,7 @@ import { Decimal } from 'decimal.js';
 import { RootcastError } from '../../src/errors.js';
 import { evaluate } from '../../src/ir/evaluate.js';
 import { makePlan } from '../../src/plan/plan.js';
-import { untilFirstPlan, workUsed } from '../../src/plan/work.js';
+import { planFound, spend, startWork, untilFirstPlan, untilFirstPlanBy, workUsed, WorkLimitError } from '../../src/plan/work.js';
 import { readSpec } from '../../src/reader/read.js';
 
 const spec = (bracket: string): string => `function: q
@@ -57,5 +57,29 @@ describe('a run stopped at its first plan', () => {
     }
     expect(refusal).toMatch(/does not converge/);
     expect(() => untilFirstPlan(() => makePlan(family))).toThrow(refusal);
+  });
+});
+
+describe('a search that has made no plan after its share of the work', () => {
+  // No outside reference is needed: these are counts of work units, compared with the bound they were given.
+  test('ends as at the work limit; its first plan lifts the bound for the rest of the limit', () => {
+    startWork(null, 1000);
+    expect(() => untilFirstPlanBy(100, () => spend(101))).toThrow(WorkLimitError);
+    startWork(null, 1000);
+    expect(
+      untilFirstPlanBy(100, () => {
+        spend(60);
+        planFound();
+        spend(500);
+        return workUsed();
+      }),
+    ).toBe(560);
+    expect(() => spend(500)).toThrow(WorkLimitError);
+  });
+
+  test('the bound ends with the search it was given to', () => {
+    startWork(null, 1000);
+    expect(() => untilFirstPlanBy(100, () => { throw new RangeError('refused'); })).toThrow(RangeError);
+    expect(() => spend(300)).not.toThrow();
   });
 });
