@@ -89,16 +89,30 @@ export class CoefficientRanges {
 
   private build(x0: Rational): SegmentTensors {
     const n = this.polys.length - 1;
-    const shifted: (MultiPoly | null)[] = [];
-    for (let j = 0; j <= n; j++) {
+    const degrees = this.polys.map((p) => (p ? totalDegree(p) : 0));
+    // c'j exactly, computed when first asked for: most are never needed (see `needed`).
+    const exact = new Map<number, MultiPoly | null>();
+    const shiftedPoly = (j: number): MultiPoly | null => {
+      if (exact.has(j)) return exact.get(j)!;
       let acc: MultiPoly | null = this.polys[j]!;
       for (let k = j + 1; k <= n && acc; k++) {
         const ck = this.polys[k]!;
         acc = ck ? acc.add(ck.scale(Rational.of(binomial(k, j)).mul(x0.pow(k - j)))) : null;
       }
-      shifted.push(acc);
-    }
+      exact.set(j, acc);
+      return acc;
+    };
+    // c'j of total degree <= 1 (j != 1) is enclosed exactly enough by interval arithmetic already.
+    // Its total degree is at most the largest of the c_k it sums (k >= j): when that is <= 1 the
+    // exact expansion is not needed to know it is skipped.
+    const needed = (j: number): IntervalTensor | null => {
+      if (this.polys.slice(j).some((p) => p === null)) return null;
+      if (j !== 1 && Math.max(...degrees.slice(j)) <= 1) return null;
+      const p = shiftedPoly(j);
+      return p && (j === 1 || totalDegree(p) > 1) ? IntervalTensor.of(p) : null;
+    };
     const derivative = (order: 1 | 2): IntervalTensor | null => {
+      const shifted = Array.from({ length: n + 1 }, (_, j) => (j >= order ? shiftedPoly(j) : null));
       if (shifted.some((p, j) => j >= order && p === null)) return null;
       const vars = this.mid.length;
       let acc = MultiPoly.zero(vars + 1);
@@ -114,8 +128,7 @@ export class CoefficientRanges {
     };
     let built: { d1: IntervalTensor | null; d2: IntervalTensor | null } | null = null;
     return {
-      // c'j of total degree <= 1 (j != 1) is enclosed exactly enough by interval arithmetic already.
-      shifted: shifted.map((p, j) => (p && (j === 1 || totalDegree(p) > 1) ? IntervalTensor.of(p) : null)),
+      shifted: Array.from({ length: n + 1 }, (_, j) => needed(j)),
       derivatives: () => (built ??= { d1: derivative(1), d2: derivative(2) }),
     };
   }
