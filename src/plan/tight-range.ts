@@ -50,10 +50,43 @@ function totalDegree(p: MultiPoly): number {
 
 const finite = (x: Interval): Interval | null => (Number.isFinite(x.lo) && Number.isFinite(x.hi) ? x : null);
 
+/**
+ * What depends on the family alone: the scaled box, the exact coefficient
+ * polynomials, and the tensors of every expansion point met so far (by its
+ * exact value). Every segmentation the search tries builds its own
+ * CoefficientRanges, and many of them share expansion points.
+ */
+interface FamilyShare {
+  readonly mid: number[];
+  readonly half: number[];
+  readonly polys: readonly (MultiPoly | null)[];
+  readonly byX0: Map<string, SegmentTensors>;
+}
+const shares = new WeakMap<Family, FamilyShare>();
+
+function shareOf(family: Family): FamilyShare {
+  let s = shares.get(family);
+  if (!s) {
+    const box = boxOf(family).cell;
+    // Any float mid and half > 0 will do: they only have to be exact.
+    const mid = box.map((c) => c.lo + (c.hi - c.lo) / 2);
+    const half = box.map((c, i) => {
+      const h = Math.max(subUp(c.hi, mid[i]!), subUp(mid[i]!, c.lo));
+      return h > 0 && Number.isFinite(h) ? h : 1;
+    });
+    const scaling: InputScaling = { mid: mid.map((m) => Rational.fromNumber(m)), half: half.map((h) => Rational.fromNumber(h)) };
+    const d = family.inputs.length;
+    const polys = family.coefficients.map((e) => (e === null ? MultiPoly.zero(d) : exprPolynomial(e, scaling, family.constants)));
+    shares.set(family, (s = { mid, half, polys, byX0: new Map() }));
+  }
+  return s;
+}
+
 export class CoefficientRanges {
   private readonly mid: number[];
   private readonly half: number[];
   private readonly polys: readonly (MultiPoly | null)[];
+  private readonly share: FamilyShare;
   private readonly segments = new Map<number, SegmentTensors>();
   private readonly cache = new WeakMap<Interval, unknown>();
   private readonly noInputs = new Map<number, TightCell>();
@@ -63,25 +96,19 @@ export class CoefficientRanges {
     family: Family,
     private readonly x0: readonly Rational[],
   ) {
-    const box = boxOf(family).cell;
-    // Any float mid and half > 0 will do: they only have to be exact.
-    this.mid = box.map((c) => c.lo + (c.hi - c.lo) / 2);
-    this.half = box.map((c, i) => {
-      const h = Math.max(subUp(c.hi, this.mid[i]!), subUp(this.mid[i]!, c.lo));
-      return h > 0 && Number.isFinite(h) ? h : 1;
-    });
-    const scaling: InputScaling = {
-      mid: this.mid.map((m) => Rational.fromNumber(m)),
-      half: this.half.map((h) => Rational.fromNumber(h)),
-    };
-    const d = family.inputs.length;
-    this.polys = family.coefficients.map((e) => (e === null ? MultiPoly.zero(d) : exprPolynomial(e, scaling, family.constants)));
+    this.share = shareOf(family);
+    this.mid = this.share.mid;
+    this.half = this.share.half;
+    this.polys = this.share.polys;
   }
 
   private tensors(segment: number): SegmentTensors {
     let t = this.segments.get(segment);
     if (!t) {
-      t = this.build(this.x0[segment]!);
+      const x0 = this.x0[segment]!;
+      const key = x0.toString();
+      t = this.share.byX0.get(key);
+      if (!t) this.share.byX0.set(key, (t = this.build(x0)));
       this.segments.set(segment, t);
     }
     return t;
