@@ -18,7 +18,8 @@
 //
 // The output files are Handlebars templates with no slots: the header below
 // is a Handlebars comment, so it stays out of the emitted harnesses. The C
-// harness is a port, held to the same output by test/verify/harness-cross.test.ts.
+// harnesses are ports, held to the same output by test/verify/harness-cross.test.ts
+// (float) and test/verify/fixed-harness.test.ts (fixed32).
 // test/verify/harness-machinery.test.ts regenerates and fails on any difference.
 import { readFileSync, writeFileSync } from 'node:fs';
 import { dirname, join, relative } from 'node:path';
@@ -36,6 +37,8 @@ export const MODULES = [
   'src/verify/printf.ts',
   'src/verify/summary.ts',
   'src/verify/samples.ts',
+  'src/verify/fixed-judge.ts',
+  'src/verify/fixed-samples.ts',
 ];
 
 /** Arithmetic the harness writers print coefficient expressions in (emit/harness/ts-expr.ts). */
@@ -72,14 +75,12 @@ export const BUNDLES = [
     roots: [
       ...EXPRESSION_ARITHMETIC,
       'fraction.ts:fractionOfNumber',
-      'fraction.ts:compareFractions',
-      'fraction.ts:absFraction',
-      'fraction.ts:midpoint',
-      'fraction.ts:fractionToNumberUp',
-      'reference.ts:bisectRoot',
-      'reference.ts:integerCoefficients',
-      'measure.ts:referenceGridExponent',
-      'printf.ts:formatE',
+      'fixed-judge.ts:judgeFixedPoint',
+      'fixed-judge.ts:newFixedTally',
+      'fixed-judge.ts:tallyFixedPoint',
+      'fixed-judge.ts:fixedTallyPasses',
+      'fixed-judge.ts:fixedSummaryText',
+      'fixed-samples.ts:visitFixedSamplePoints',
     ],
     ts: 'templates/ts/fixed-check-machinery.ts.hbs',
   },

@@ -49,12 +49,28 @@ const sameCounts = (a: readonly number[], b: readonly number[]): boolean => a.ev
 const sameCoarse = (a: readonly (number | null)[] | null, b: readonly (number | null)[] | null): boolean =>
   a === null || b === null ? a === b : a.every((k, i) => k === b[i]);
 
-/** The chosen plan with its candidate rows, the row that is the plan marked chosen. */
+/**
+ * The chosen plan with its candidate rows, exactly one row marked chosen when
+ * any describes it. A row describes the plan when it has the plan's form,
+ * steps, plain-or-recentred root and segment layout; several can (an
+ * economised form weighs several degrees, a polished one several orders), so
+ * the rows of the plan's degree, order and term count are preferred, then
+ * those of its bound, and the first of what remains is marked. (A result
+ * plan keeps its root plan's rows, whose bound is the root's: the bound is a
+ * preference, not a condition.)
+ */
 export function withCandidates(p: Plan, candidates: readonly Candidate[]): Plan {
-  const marked = candidates.map((c) => ({
-    ...c,
-    chosen:
-      c.refusal === null && c.form === p.form && c.steps === p.steps && c.plain === (p.root.centre === null) && sameCounts(c.counts, p.counts) && sameCoarse(c.coarseCells, coarseCellsOf(p.program)),
-  }));
-  return { ...p, candidates: marked };
+  const coarse = coarseCellsOf(p.program);
+  const plain = p.root.centre === null;
+  let rows = candidates.flatMap((c, i) =>
+    c.refusal === null && c.form === p.form && c.steps === p.steps && c.plain === plain && sameCounts(c.counts, p.counts) && sameCoarse(c.coarseCells, coarse) ? [i] : [],
+  );
+  const prefer = (holds: (c: Candidate) => boolean): void => {
+    const kept = rows.filter((i) => holds(candidates[i]!));
+    if (kept.length > 0) rows = kept;
+  };
+  prefer((c) => c.degree === p.degree && c.order === p.order && c.terms === p.terms.length);
+  prefer((c) => c.bound === p.bound.total);
+  const at = rows[0] ?? -1;
+  return { ...p, candidates: candidates.map((c, i) => ({ ...c, chosen: i === at })) };
 }

@@ -15,7 +15,8 @@ import type { Family } from '../family/types.js';
 import type { Cell } from './box.js';
 import { candidatesOf, refusedCandidate } from './candidates.js';
 import { planSegments, segmentNeeds, type RefineAim, type SegmentNeeds } from './plan-segments.js';
-import { segmentLayout, type SegmentLayout } from './segments.js';
+import type { SegmentLayout } from './segments.js';
+import { layoutOnce } from './layout-memo.js';
 import { REFINE, SEGMENT_SEARCH } from './tuning.js';
 import type { Candidate, Plan } from './types.js';
 
@@ -57,7 +58,7 @@ function refineFor(family: Family, box: Cell, coarse: readonly number[], levels:
   for (;;) {
     let layout: SegmentLayout;
     try {
-      layout = segmentLayout(family, box, coarse, levels);
+      layout = layoutOnce(family, box, coarse, levels);
     } catch (e) {
       if (e instanceof RootcastError) return null;
       throw e;
@@ -67,7 +68,9 @@ function refineFor(family: Family, box: Cell, coarse: readonly number[], levels:
     if (segments > SEGMENT_SEARCH.maxTotal || least > family.plan.maxTableBytes) return null;
     let needs: SegmentNeeds;
     try {
-      needs = segmentNeeds(family, box, layout, order, REFINE.share, aim);
+      // With one searched input every split is along it (splitDirections): its needs input by input would guide nothing.
+      const guided = levels.filter((l) => l !== null).length > 1 ? REFINE.share : Infinity;
+      needs = segmentNeeds(family, box, layout, order, guided, aim);
     } catch (e) {
       if (e instanceof RootcastError) return null;
       throw e;

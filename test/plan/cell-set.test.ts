@@ -16,8 +16,8 @@ import { Decimal } from 'decimal.js';
 import { CellSet } from '../../src/plan/cell-set.js';
 import { TermPool } from '../../src/plan/term-pool.js';
 import { analysisProgram } from '../../src/plan/series-program.js';
-import { readSpec } from '../../src/reader/read.js';
 import { Rational } from '../../src/math/rational.js';
+import { catalanPartialSum, quadraticFamily, quadraticRoot } from './support/quadratic.js';
 import { exactDecimal } from '../support/exact-decimal.js';
 
 const D = Decimal.clone({ precision: 80 });
@@ -25,10 +25,7 @@ const exact = (x: number): Decimal => exactDecimal(D, x);
 const oneBox = { segmentation: { parts: [], segments: 1 }, x0: [Rational.ZERO] };
 
 function setOf(hi: number): CellSet {
-  const family = readSpec(
-    'cells.yaml',
-    ['function: f', 'unknown: x', 'degree: 2', 'coefficients:', '  0: -s', '  1: 1', '  2: 0.1', 'inputs:', `  s: [0, ${hi}]`, 'accuracy:', '  absolute: 1e-9', 'arithmetic: float64', ''].join('\n'),
-  );
+  const family = quadraticFamily({ s: ['0', String(hi)] });
   const box = [{ lo: 0, hi }];
   const set = new CellSet(analysisProgram(family, oneBox), 2, box, [0], [{ cell: box, segment: 0 }]);
   new TermPool(2, [2], set).termsUpTo(4);
@@ -37,9 +34,7 @@ function setOf(hi: number): CellSet {
 
 /** The exact truncation error of the grade-4 series at s (decimal.js). */
 function truncationAt(s: Decimal): Decimal {
-  const root = s.times('0.4').plus(1).sqrt().minus(1).div('0.2');
-  const partial = s.times([1, 1, 2, 5, 14].reduce((sum, c, k) => sum.plus(new D(c).times(new D('-0.1').times(s).pow(k))), new D(0)));
-  return root.minus(partial).abs();
+  return quadraticRoot(s).minus(catalanPartialSum(s, 4)).abs();
 }
 
 describe('CellSet', () => {

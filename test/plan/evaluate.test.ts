@@ -17,19 +17,16 @@ import type { CellFacts } from '../../src/plan/cell-bound.js';
 import { seriesProgram } from '../../src/plan/series-program.js';
 import { evaluate as run } from '../../src/ir/evaluate.js';
 import { termsUpToGrade } from '../../src/series/hyper-catalan.js';
-import { readSpec } from '../../src/reader/read.js';
 import { Rational } from '../../src/math/rational.js';
+import { catalanPartialSum, quadraticFamily } from './support/quadratic.js';
 import { exactDecimal } from '../support/exact-decimal.js';
 
 const D = Decimal.clone({ precision: 120 });
 const exact = (x: number): Decimal => exactDecimal(D, x);
 
-const family = readSpec(
-  'eval.yaml',
-  ['function: f', 'unknown: x', 'degree: 2', 'coefficients:', '  0: -s', '  1: 1', '  2: 0.1', 'inputs:', '  s: [0.5, 1]', 'accuracy:', '  absolute: 1e-9', 'arithmetic: float64', ''].join('\n'),
-);
+const family = quadraticFamily();
 const program = seriesProgram(family, { segmentation: { parts: [], segments: 1 }, x0: [Rational.ZERO] }, termsUpToGrade(2, [2], 4)!);
-const catalan4 = (s: Decimal): Decimal => s.times([1, 1, 2, 5, 14].reduce((sum, c, k) => sum.plus(new D(c).times(new D('-0.1').times(s).pow(k))), new D(0)));
+const catalan4 = (s: Decimal): Decimal => catalanPartialSum(s, 4);
 
 function cell(lo: number, hi: number, rootMin: number): CellFacts {
   return { cell: [{ lo, hi }], segment: 0, state: { kind: 'ok' }, R: hi, T: [0, 0, 0.1 * hi], Q: [0, 0, 0.1], rRange: { lo: -hi, hi: -lo }, aUpper: 1.2, gradeSums: [], rootMin, rootMax: hi };

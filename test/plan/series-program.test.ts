@@ -17,19 +17,15 @@ import { Decimal } from 'decimal.js';
 import { seriesProgram } from '../../src/plan/series-program.js';
 import { evaluate } from '../../src/ir/evaluate.js';
 import { termsUpToGrade } from '../../src/series/hyper-catalan.js';
-import { readSpec } from '../../src/reader/read.js';
 import { Rational } from '../../src/math/rational.js';
+import { CATALAN, quadraticFamily } from './support/quadratic.js';
 import { exactDecimal } from '../support/exact-decimal.js';
 
 const D = Decimal.clone({ precision: 120 });
 const exact = (x: number): Decimal => exactDecimal(D, x);
-const A000108 = [1, 1, 2, 5, 14, 42, 132, 429, 1430, 4862];
+const A000108 = CATALAN;
 
-const family = (c2: string) =>
-  readSpec(
-    'series.yaml',
-    ['function: f', 'unknown: x', 'degree: 2', 'coefficients:', '  0: -s', '  1: 1', `  2: ${c2}`, 'inputs:', '  s: [0, 1]', 'accuracy:', '  absolute: 1e-9', 'arithmetic: float64', ''].join('\n'),
-  );
+const family = (c2: string) => quadraticFamily({ c2, s: ['0', '1'] });
 const oneBox = { segmentation: { parts: [], segments: 1 }, x0: [Rational.ZERO] };
 
 function partialSum(s: Decimal, q2: Decimal, N: number): Decimal {

@@ -12,14 +12,10 @@ import { describe, expect, test } from '@jest/globals';
 import { TermPool } from '../../src/plan/term-pool.js';
 import { CellSet } from '../../src/plan/cell-set.js';
 import { analysisProgram } from '../../src/plan/series-program.js';
-import { readSpec } from '../../src/reader/read.js';
 import { Rational } from '../../src/math/rational.js';
+import { quadraticFamily } from './support/quadratic.js';
 
-const spec = (c3: string | null) =>
-  readSpec(
-    'pool.yaml',
-    ['function: f', 'unknown: x', `degree: ${c3 ? 3 : 2}`, 'coefficients:', '  0: -s', '  1: 1', '  2: 0.1', ...(c3 ? [`  3: ${c3}`] : []), 'inputs:', '  s: [0.5, 1]', 'accuracy:', '  absolute: 1e-9', 'arithmetic: float64', ''].join('\n'),
-  );
+const spec = (c3: string | null) => quadraticFamily(c3 ? { c3 } : {});
 const oneBox = { segmentation: { parts: [], segments: 1 }, x0: [Rational.ZERO] };
 
 function poolOf(c3: string | null, active: number[]): { pool: TermPool; set: CellSet } {

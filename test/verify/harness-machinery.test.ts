@@ -68,4 +68,15 @@ describe('the harness machinery generated from src/verify', () => {
     expect(ts).not.toMatch(/^export /m);
     expect(ts).not.toMatch(/\bimport\b/);
   });
+
+  test('the fixed32 harness judges and samples with the verifier\'s own rule: the machinery holds it, the template ports none of it', async () => {
+    const { generateMachinery } = await load();
+    const fixed = generateMachinery().find((f) => f.path === 'templates/ts/fixed-check-machinery.ts.hbs')!.text;
+    for (const name of ['rc_judgeFixedPoint', 'rc_tallyFixedPoint', 'rc_fixedSummaryText', 'rc_visitFixedSamplePoints', 'rc_bisectRoot']) {
+      expect(fixed).toMatch(new RegExp(`^function ${name}\\(`, 'm'));
+    }
+    const template = readFileSync(join(REPO_ROOT, 'templates/ts/fixed-check.ts.hbs'), 'utf8');
+    // No bisection, grid, xorshift or error rule of its own.
+    expect(template).not.toMatch(/rc_bisectRoot|rc_midpoint|rc_referenceGridExponent|state << 13|rc_compareFractions/);
+  });
 });

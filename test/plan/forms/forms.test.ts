@@ -4,7 +4,7 @@
  *
  * Family: 0.1 x^2 + x - s = 0, s in [0, 1], the root that tends to s (no
  * bracket): x = (sqrt(1 + 0.4 s) - 1) / 0.2 in closed form (the quadratic
- * formula, evaluated with decimal.js at 60 digits). Each plan's program is
+ * formula, evaluated with decimal.js; test/plan/support/quadratic.ts). Each plan's program is
  * run in process (ir/evaluate.ts, float64) at 65 points and its error
  * against the closed form must stay within the plan's certified bound.
  */
@@ -13,35 +13,17 @@ import { Decimal } from 'decimal.js';
 import { makePlan } from '../../../src/plan/plan.js';
 import { FORMS } from '../../../src/plan/forms/index.js';
 import { evaluate } from '../../../src/ir/evaluate.js';
-import { readSpec } from '../../../src/reader/read.js';
 import type { Plan } from '../../../src/plan/types.js';
 import { exactDecimal } from '../../support/exact-decimal.js';
+import { quadraticFamily, quadraticRoot } from '../support/quadratic.js';
 
 /** 120 digits: every double met here (above 2^-70 in magnitude, or 0) is exact, and the closed form is far finer than an ulp. */
 const D = Decimal.clone({ precision: 120 });
 const exact = (x: number): Decimal => exactDecimal(D, x);
 
-const TEXT = (steps: string) =>
-  [
-    'function: f',
-    'unknown: x',
-    'degree: 2',
-    'coefficients:',
-    '  0: -s',
-    '  1: 1',
-    '  2: 0.1',
-    'inputs:',
-    '  s: [0, 1]',
-    'accuracy:',
-    '  absolute: 1e-7',
-    'arithmetic: float64',
-    'plan:',
-    '  segments: 1',
-    `  newton_steps: ${steps}`,
-    '',
-  ].join('\n');
+const spec = (steps: string) => quadraticFamily({ s: ['0', '1'], accuracy: 'absolute: 1e-7', plan: ['segments: 1', `newton_steps: ${steps}`] });
 
-const closedForm = (s: Decimal): Decimal => s.times('0.4').plus(1).sqrt().minus(1).div('0.2');
+const closedForm = (s: Decimal): Decimal => quadraticRoot(s);
 
 /** The largest error of a plan's program over 65 evenly spaced points, exactly (decimal.js). */
 function measured(p: Plan): Decimal {
@@ -57,8 +39,8 @@ function measured(p: Plan): Decimal {
 const plans = (p: Plan): Plan[] => [p, ...(p.alternatives ?? [])];
 
 describe('the forms of the table on 0.1 x^2 + x - s = 0', () => {
-  const polished = makePlan(readSpec('forms.yaml', TEXT('auto')));
-  const plain = makePlan(readSpec('forms.yaml', TEXT('0')));
+  const polished = makePlan(spec('auto'));
+  const plain = makePlan(spec('0'));
 
   test('the table lists the forms in the order they are weighed, only the graded series keeping its refusal', () => {
     expect(FORMS.map((f) => f.name)).toEqual(['series-order', 'economised', 'greedy', 'polished', 'folded']);
