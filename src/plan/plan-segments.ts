@@ -22,6 +22,8 @@ import { chooseRoot, plainRoot, pointText, rootAt, type RootChoice } from './roo
 import type { SegmentLayout } from './segments.js';
 import { choiceOnce, layoutOnce, rootOnce, sharedOf, type LayoutShared, type NeedsCells } from './layout-memo.js';
 import { analysisProgram, CoefficientError, ZeroSlopeError, type AnalysisProgram, type Expansion } from './series-program.js';
+import { tableLimitBit } from './table-limit.js';
+import { planFound } from './work.js';
 import { TermPool } from './term-pool.js';
 import { initialCellsPerSegment, LIMITS, REFINE } from './tuning.js';
 import type { Plan } from './types.js';
@@ -32,7 +34,9 @@ import type { Plan } from './types.js';
  */
 export function planSegments(family: Family, box: Cell, counts: readonly number[], thorough = true, refine?: readonly (readonly number[] | null)[], plain = false): Plan {
   try {
-    return planSegmentsInner(family, box, layoutOnce(family, box, counts, refine), thorough, plain);
+    const p = planSegmentsInner(family, box, layoutOnce(family, box, counts, refine), thorough, plain);
+    planFound();
+    return p;
   } catch (e) {
     if (e instanceof ConstantOverflowError) refuseConstant(family, e.exact);
     throw e;
@@ -174,7 +178,10 @@ function prefixOf(family: Family, expansion: Expansion, layout: SegmentLayout, s
 /** A program's table bytes, or the refusal when they exceed plan.max_table_bytes. */
 function checkTable(family: Family, counts: readonly number[], program: Program): number {
   const tableBytes = tableBytesOf(program);
-  if (tableBytes > family.plan.maxTableBytes) refuseTable(family, counts, tableBytes);
+  if (tableBytes > family.plan.maxTableBytes) {
+    tableLimitBit();
+    refuseTable(family, counts, tableBytes);
+  }
   return tableBytes;
 }
 
