@@ -189,11 +189,45 @@ function constantFacts(node: object, stored: number, exact: Rational, segment = 
   }
   let f = bySegment.get(segment);
   if (!f) {
-    const [lo, hi] = exact.toNumberBounds();
+    const [lo, hi] = boundsOf(exact);
     f = { value: { lo, hi }, error: constError(stored, exact, lo, hi) };
     bySegment.set(segment, f);
   }
   return f;
+}
+
+/**
+ * The binary64 enclosure of an exact value, kept by value: every program the
+ * planner builds has new constant and table nodes, but their exact values
+ * recur (one segment's coefficients in every trial that has the segment).
+ * Looked up by the quotient of the parts as doubles and confirmed by exact
+ * equality (a Map keyed by the BigInts themselves was slower than the rounding
+ * it saved). Dropped whole past BOUNDS_KEPT values, so a long process does not grow.
+ */
+const BOUNDS_KEPT = 1 << 16;
+interface KnownBounds {
+  readonly num: bigint;
+  readonly den: bigint;
+  readonly bounds: readonly [number, number];
+}
+let boundsByValue = new Map<number, KnownBounds[]>();
+let boundsCount = 0;
+function boundsOf(exact: Rational): readonly [number, number] {
+  const key = Number(exact.num) / Number(exact.den);
+  let list = boundsByValue.get(key);
+  if (list) {
+    for (const k of list) if (k.num === exact.num && k.den === exact.den) return k.bounds;
+  }
+  if (boundsCount >= BOUNDS_KEPT) {
+    boundsByValue = new Map();
+    boundsCount = 0;
+    list = undefined;
+  }
+  if (!list) boundsByValue.set(key, (list = []));
+  const bounds = exact.toNumberBounds();
+  list.push({ num: exact.num, den: exact.den, bounds });
+  boundsCount++;
+  return bounds;
 }
 
 /**

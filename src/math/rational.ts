@@ -3,6 +3,13 @@
  * denominator. Used wherever a value must be exact: constant folding of spec
  * expressions, the binary value of a float, the bisection reference.
  */
+// A float's two 32-bit words, read without allocating (fromNumber; nextUp has its own pair).
+const SCRATCH_F64 = new Float64Array(1);
+const SCRATCH_U32 = new Uint32Array(SCRATCH_F64.buffer);
+const LITTLE = new Uint8Array(new Uint16Array([1]).buffer)[0] === 1;
+const LO = LITTLE ? 0 : 1;
+const HI = LITTLE ? 1 : 0;
+
 export class Rational {
   readonly num: bigint;
   readonly den: bigint;
@@ -51,28 +58,27 @@ export class Rational {
   static fromNumber(x: number): Rational {
     if (!Number.isFinite(x)) throw new RangeError(`not finite: ${x}`);
     if (x === 0) return Rational.ZERO;
-    const buf = new DataView(new ArrayBuffer(8));
-    buf.setFloat64(0, x);
-    const hi = buf.getUint32(0);
-    const lo = buf.getUint32(4);
-    const sign = hi >>> 31 ? -1n : 1n;
+    // The float's two 32-bit words from a shared scratch buffer (a DataView per call was a large part of the planner's garbage).
+    SCRATCH_F64[0] = x;
+    const hi = SCRATCH_U32[HI]!;
+    const lo = SCRATCH_U32[LO]!;
     const bexp = (hi >>> 20) & 0x7ff;
-    let mant = (BigInt(hi & 0xfffff) << 32n) | BigInt(lo);
+    // The significand as an integer below 2^53, exact in a double.
+    let mant = (hi & 0xfffff) * 2 ** 32 + lo;
     let e: number;
     if (bexp === 0) {
       e = -1074;
     } else {
-      mant |= 1n << 52n;
+      mant += 2 ** 52;
       e = bexp - 1075;
     }
-    if (e >= 0) return new Rational(sign * (mant << BigInt(e)), 1n);
-    // Lowest terms without a gcd: the denominator is a power of two, so drop the mantissa's trailing zeros.
-    let shift = -e;
-    while (shift > 0 && (mant & 1n) === 0n) {
-      mant >>= 1n;
-      shift--;
-    }
-    return new Rational(sign * mant, 1n << BigInt(shift));
+    const sign = hi >>> 31 ? -1n : 1n;
+    if (e >= 0) return new Rational(sign * (BigInt(mant) << BigInt(e)), 1n);
+    // Lowest terms without a gcd: the denominator is a power of two, so drop the significand's trailing zeros
+    // (counted on the low word, or on the high part when the low word is zero; dividing by a power of two is exact).
+    const tz = lo !== 0 ? 31 - Math.clz32(lo & -lo) : 32 + (31 - Math.clz32(mant / 2 ** 32 & -(mant / 2 ** 32)));
+    const drop = Math.min(tz, -e);
+    return new Rational(sign * BigInt(mant / 2 ** drop), powerOfTwo(-e - drop));
   }
 
   // Sums and products keep lowest terms with gcds of the small factors only
@@ -133,21 +139,21 @@ export class Rational {
     // Rounded to an infinity: the value lies beyond the largest finite double on that side.
     if (x === Infinity) return Number.MAX_VALUE;
     if (x === -Infinity) return x;
-    return Rational.fromNumber(x).cmp(this) <= 0 ? x : nextDown(x);
+    return rounded.direction <= 0 ? x : nextDown(x);
   }
   /** Smallest float64 >= this (toward +infinity; Infinity above MAX_VALUE, -MAX_VALUE below -MAX_VALUE). */
   toNumberUp(): number {
     const x = this.toNumber();
     if (x === -Infinity) return -Number.MAX_VALUE;
     if (x === Infinity) return x;
-    return Rational.fromNumber(x).cmp(this) >= 0 ? x : nextUp(x);
+    return rounded.direction >= 0 ? x : nextUp(x);
   }
 
-  /** [toNumberDown(), toNumberUp()] with one rounding and one comparison. */
+  /** [toNumberDown(), toNumberUp()] from one rounding: the rounding's remainder says on which side the value lies. */
   toNumberBounds(): [number, number] {
     const x = this.toNumber();
     if (!Number.isFinite(x)) return [this.toNumberDown(), this.toNumberUp()];
-    const c = Rational.fromNumber(x).cmp(this);
+    const c = rounded.direction;
     return [c <= 0 ? x : nextDown(x), c >= 0 ? x : nextUp(x)];
   }
 
@@ -305,6 +311,14 @@ function roughBits(n: bigint): number {
 
 function bitLength(n: bigint): number {
   if (n <= SMALL) return n <= 0n ? 0 : numberBits(Number(n));
+  const x = Number(n);
+  if (x < 2 ** 1023) {
+    // The double nearest n can round up to a power of two, and log2 can round: the estimate is
+    // off by at most one, and one shift settles it (n >> (b - 1) is 1 exactly when 2^(b-1) <= n < 2^b).
+    const b = Math.floor(Math.log2(x)) + 1;
+    const top = n >> BigInt(b - 1);
+    return top === 0n ? b - 1 : top === 1n ? b : b + 1;
+  }
   const hex = n.toString(16);
   // 4 bits per hex digit, less the leading zero bits of the first digit.
   return hex.length * 4 - (Math.clz32(parseInt(hex[0]!, 16)) - 28);
@@ -334,12 +348,31 @@ function roundToBinary(r: Rational, precision: number, minExp: number): number {
   let m = num / den;
   const rem = num - m * den;
   const twice = rem * 2n;
-  if (twice > den || (twice === den && (m & 1n) === 1n)) m += 1n;
+  // The side of the exact value the result lies on, in magnitude: below (-1), exact (0), above (1).
+  let side = rem === 0n ? 0 : -1;
+  if (twice > den || (twice === den && (m & 1n) === 1n)) {
+    m += 1n;
+    side = 1;
+  }
   const value = Number(m) * 2 ** q;
   // Number(m) is exact: m has at most precision+1 bits; the power of two scaling is exact
   // unless it over/underflows, which the format range excludes for our uses.
   const out = precision === 24 ? Math.fround(value) : value;
+  rounded.direction = neg ? -side : side;
   return neg ? -out : out;
+}
+
+/**
+ * Where the last roundToBinary result lies against the exact value: -1 below,
+ * 0 equal, 1 above (read at once by toNumberBounds and its kin, so they need no
+ * exact comparison of the double with the rational).
+ */
+const rounded = { direction: 0 };
+
+/** 2^k as a BigInt, kept for the exponents of float64 denominators (k <= 1074). */
+const powersOfTwo: bigint[] = [];
+function powerOfTwo(k: number): bigint {
+  return (powersOfTwo[k] ??= 1n << BigInt(k));
 }
 
 // Hot path: these run millions of times in the planner's interval loops. Globals
@@ -348,14 +381,26 @@ function roundToBinary(r: Rational, precision: number, minExp: number): number {
 // float, not through BigInt.
 const f64 = new Float64Array(1);
 const u32 = new Uint32Array(f64.buffer);
-const LITTLE = new Uint8Array(new Uint16Array([1]).buffer)[0] === 1;
-const LO = LITTLE ? 0 : 1;
-const HI = LITTLE ? 1 : 0;
 const MIN_VALUE = Number.MIN_VALUE;
 const POS_INF = Infinity;
 
+/**
+ * nextUp by arithmetic, for 2^-969 <= |x| < 2^1023: with |x| = m 2^e (1 <= m < 2),
+ * ulp = 2^(e-52) and C = 2^-53 (1 + 2^-52), the product |x| C rounds to a value in
+ * (ulp/2, (1 + 2^-53) ulp] (it is normal there), so x + |x| C rounds to nearest at
+ * the next double above x: x + ulp for x > 0; for x < 0 the spacing below |x| is
+ * ulp, or ulp/2 when m = 1, and |x| C exceeds that spacing by at most a 2^-52 part,
+ * so the sum again rounds to the neighbour toward zero. No memory traffic, which
+ * the word stepping below needs (it was the hottest function of the planner).
+ */
+const STEP = 2 ** -53 + 2 ** -105;
+const STEP_LOW = 2 ** -969;
+const STEP_HIGH = 2 ** 1023;
+
 /** The next float64 above x (x finite; NaN and +Infinity are returned as they are). */
 export function nextUp(x: number): number {
+  const a = x < 0 ? -x : x;
+  if (a >= STEP_LOW && a < STEP_HIGH) return x + a * STEP;
   if (x !== x || x === POS_INF) return x;
   if (x === 0) return MIN_VALUE;
   f64[0] = x;

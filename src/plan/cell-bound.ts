@@ -61,25 +61,34 @@ export function cellFacts(ap: AnalysisProgram, degree: number, cell: Cell, x0: n
   const Q = new Array<number>(degree + 1).fill(0);
   const tight = tightRatios(ap, an.values, cell, segment);
   const r = tight.ratio(0, an.values[ap.r]!);
-  const base = { cell, segment, T, Q, rRange: r, gradeSums: [] as number[], rootMin: 0, rootMax: Infinity, c1Range: tight.c1, ranges: ap.ranges };
+  const c1Range = tight.c1;
+  const ranges = ap.ranges;
+  // Each result is one object literal with its fields in one fixed order: spreading a shared
+  // base object and then adding fields was most of this function's time (V8's slow path for it).
+  const without = (state: CellState, R: number): CellFacts => ({
+    cell, segment, T, Q, rRange: r, gradeSums: [], rootMin: 0, rootMax: Infinity, c1Range, ranges, state, R, aUpper: Infinity,
+  });
   if (ap.c1 !== null) {
     const v = tight.c1!;
-    if (!Number.isFinite(v.lo) || !Number.isFinite(v.hi)) return { ...base, state: { kind: 'unbounded' }, R: Infinity, aUpper: Infinity };
-    if (v.lo <= 0 && v.hi >= 0) return { ...base, state: { kind: 'slope-vanishes' }, R: Infinity, aUpper: Infinity };
+    if (!Number.isFinite(v.lo) || !Number.isFinite(v.hi)) return without({ kind: 'unbounded' }, Infinity);
+    if (v.lo <= 0 && v.hi >= 0) return without({ kind: 'slope-vanishes' }, Infinity);
   }
   const R = mag(r);
+  let finite = Number.isFinite(R);
   for (const [k, ref] of ap.q) {
     Q[k] = mag(tight.ratio(k, an.values[ref]!));
     T[k] = mulUp(powUp(R, k - 1), Q[k]!);
+    if (!Number.isFinite(T[k]!)) finite = false;
   }
-  if (!Number.isFinite(R) || T.some((t) => !Number.isFinite(t))) {
-    return { ...base, state: { kind: 'unbounded' }, R: Infinity, aUpper: Infinity };
-  }
+  if (!finite) return without({ kind: 'unbounded' }, Infinity);
   const root = majorantRoot(T);
-  if (!root.converges) return { ...base, state: { kind: 'diverges', T }, R, aUpper: Infinity };
+  if (!root.converges) return without({ kind: 'diverges', T }, R);
   const { lo, hi } = rootEnclosure(x0, r, R, root.upper);
   const rootMin = lo > 0 ? lo : hi < 0 ? -hi : 0;
-  return { ...base, state: { kind: 'ok' }, R, aUpper: root.upper, rootMin, rootMax: Math.max(-lo, hi), rootRange: { lo, hi } };
+  return {
+    cell, segment, T, Q, rRange: r, gradeSums: [], rootMin, rootMax: Math.max(-lo, hi), c1Range, ranges,
+    state: { kind: 'ok' }, R, aUpper: root.upper, rootRange: { lo, hi },
+  };
 }
 
 /**

@@ -28,6 +28,13 @@ export class CellSet {
     this.cells = initial.map((c) => this.facts(c.cell, c.segment));
   }
 
+  /** A set over cells whose facts are already known (plan-segments.ts shares a layout's first cells): each is copied with empty grade sums. */
+  static ofFacts(ap: AnalysisProgram, degree: number, box: Cell, x0: readonly number[], facts: readonly CellFacts[]): CellSet {
+    const set = new CellSet(ap, degree, box, x0, []);
+    set.cells = facts.map((c) => ({ ...c, gradeSums: [] }));
+    return set;
+  }
+
   /** One cell's facts, counted as work (src/plan/work.ts): a fixed cost per cell (WORK.cellUnits) and a unit per prefix node. */
   private facts(cell: Cell, segment: number): CellFacts {
     spend(WORK.cellUnits + this.ap.program.nodes.length);

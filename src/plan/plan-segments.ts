@@ -19,8 +19,11 @@ import { locate } from './locate.js';
 import { tableBytesOf } from './plan-of.js';
 import { QuotedFixRefusal, refuseBadCells, refuseConstant, refuseSteps, refuseTable } from './refusals.js';
 import { chooseRoot, plainRoot, pointText, rootAt, type RootChoice } from './root-choice.js';
-import { segmentLayout, type SegmentLayout } from './segments.js';
+import type { SegmentLayout } from './segments.js';
+import { choiceOnce, layoutOnce, rootOnce, sharedOf, type LayoutShared, type NeedsCells } from './layout-memo.js';
 import { analysisProgram, CoefficientError, ZeroSlopeError, type AnalysisProgram, type Expansion } from './series-program.js';
+import { tableLimitBit } from './table-limit.js';
+import { planFound } from './work.js';
 import { TermPool } from './term-pool.js';
 import { initialCellsPerSegment, LIMITS, REFINE } from './tuning.js';
 import type { Plan } from './types.js';
@@ -31,7 +34,9 @@ import type { Plan } from './types.js';
  */
 export function planSegments(family: Family, box: Cell, counts: readonly number[], thorough = true, refine?: readonly (readonly number[] | null)[], plain = false): Plan {
   try {
-    return planSegmentsInner(family, box, segmentLayout(family, box, counts, refine), thorough, plain);
+    const p = planSegmentsInner(family, box, layoutOnce(family, box, counts, refine), thorough, plain);
+    planFound();
+    return p;
   } catch (e) {
     if (e instanceof ConstantOverflowError) refuseConstant(family, e.exact);
     throw e;
@@ -40,20 +45,24 @@ export function planSegments(family: Family, box: Cell, counts: readonly number[
 
 function planSegmentsInner(family: Family, box: Cell, layout: SegmentLayout, thorough: boolean, plain: boolean): Plan {
   const counts = layout.counts;
-  const { expansion, root } = plain ? plainExpansion(family, layout) : expansionFor(family, layout);
-  const ap = prefixOf(family, expansion, layout);
+  const { expansion, root } = plain ? plainExpansion(family, layout) : expansionFor(family, box, layout);
+  // The plain series (x0 = 0) is not the layout's recentred expansion: its prefix is its own.
+  const ap = prefixOf(family, expansion, layout, plain ? {} : sharedOf(family, box, layout));
   const relative = family.accuracy.kind === 'relative';
-  const perSegment = initialCellsPerSegment(family.inputs.length, layout.segmentation.segments);
-  const initial = layout.boxes.flatMap((b, segment) => grid(b, perSegment).map((cell) => ({ cell, segment })));
-  const set = new CellSet(ap, family.degree, box, expansion.x0.map((v) => v.toNumber()), initial);
+  const x0 = expansion.x0.map((v) => v.toNumber());
+  let set = firstSet(family, box, layout, ap, x0, plain ? {} : sharedOf(family, box, layout));
   if (plain) plainRootAtCentre(family, set.centreFacts());
   if (!thorough) {
     // A search trial with a cell that is bad at its very centre cannot be repaired: refuse it now.
     const hopeless = set.badAtCentre(relative);
     if (hopeless.length > 0) refuseBadCells(family, hopeless, relative);
   }
-  set.repairBadCells(LIMITS.cells, relative, thorough);
-  if (relative) set.splitTowardZero(LIMITS.cells);
+  // A search trial's repaired cells are the same whatever the target: shared with segmentNeeds and the other trials of the layout.
+  if (!thorough && !plain) set = repairedSet(family, box, layout, ap, x0, sharedOf(family, box, layout));
+  else {
+    set.repairBadCells(LIMITS.cells, relative, thorough);
+    if (relative) set.splitTowardZero(LIMITS.cells);
+  }
   refuseBadCells(family, set.cells, relative);
   certifyRootInBracket(family, expansion.x0.map((v) => v.toNumber()), set.cells);
 
@@ -100,6 +109,29 @@ function planSegmentsInner(family: Family, box: Cell, layout: SegmentLayout, tho
   return { ...best, alternatives: found.all.filter((f) => f !== best) };
 }
 
+/** Each segment's first cells: a grid of its box (initialCellsPerSegment cells). */
+function initialCells(family: Family, layout: SegmentLayout): { cell: Cell; segment: number }[] {
+  const perSegment = initialCellsPerSegment(family.inputs.length, layout.segmentation.segments);
+  return layout.boxes.flatMap((b, segment) => grid(b, perSegment).map((cell) => ({ cell, segment })));
+}
+
+/** A new set over the layout's first cells, their facts computed once per layout (layout-memo.ts). */
+function firstSet(family: Family, box: Cell, layout: SegmentLayout, ap: AnalysisProgram, x0: readonly number[], shared: LayoutShared): CellSet {
+  const facts = (shared.firstFacts ??= new CellSet(ap, family.degree, box, x0, initialCells(family, layout)).cells);
+  return CellSet.ofFacts(ap, family.degree, box, x0, facts);
+}
+
+/** A new set over the layout's first cells as a search trial repairs them (no target enters), repaired once per layout. */
+function repairedSet(family: Family, box: Cell, layout: SegmentLayout, ap: AnalysisProgram, x0: readonly number[], shared: LayoutShared): CellSet {
+  if (!shared.repairedFacts) {
+    const set = firstSet(family, box, layout, ap, x0, shared);
+    set.repairBadCells(LIMITS.cells, family.accuracy.kind === 'relative', false);
+    if (family.accuracy.kind === 'relative') set.splitTowardZero(LIMITS.cells);
+    shared.repairedFacts = set.cells;
+  }
+  return CellSet.ofFacts(ap, family.degree, box, x0, shared.repairedFacts);
+}
+
 /** The plain series' expansion: one box, x0 = 0. */
 function plainExpansion(family: Family, layout: SegmentLayout): { expansion: Expansion; root: RootChoice } {
   if (layout.segmentation.segments !== 1) throw new RangeError('the plain series has one box');
@@ -108,20 +140,25 @@ function plainExpansion(family: Family, layout: SegmentLayout): { expansion: Exp
 }
 
 /** The expansion for a segmentation: one x0 per segment (the bracketed root at its centre). */
-function expansionFor(family: Family, layout: SegmentLayout): { expansion: Expansion; root: RootChoice } {
-  const root = chooseRoot(family);
+function expansionFor(family: Family, box: Cell, layout: SegmentLayout): { expansion: Expansion; root: RootChoice } {
+  const shared = sharedOf(family, box, layout);
+  return (shared.expansion ??= newExpansion(family, layout));
+}
+
+function newExpansion(family: Family, layout: SegmentLayout): { expansion: Expansion; root: RootChoice } {
+  const root = choiceOnce(family, () => chooseRoot(family));
   if (layout.segmentation.segments === 1) return { expansion: { segmentation: layout.segmentation, x0: [root.x0] }, root };
-  const x0 = layout.centres.map((c) => rootAt(family, c));
+  const x0 = layout.centres.map((c) => rootOnce(family, c, () => rootAt(family, c)));
   const coarse = layout.refine.map((r, i) => (r ? `${layout.counts[i]} in ${r.length} coarse cells` : null));
   const twoLevel = coarse.some((c) => c !== null) ? ` (two-level index: ${coarse.map((c, i) => c ?? `${layout.counts[i]} equal`).join(' x ')})` : '';
   const note = `the root in [${family.bracket![0]}, ${family.bracket![1]}], ${layout.counts.join(' x ')} segments${twoLevel}, each recentred at its own root (at the segment centre)`;
   return { expansion: { segmentation: layout.segmentation, x0 }, root: { ...root, note } };
 }
 
-/** The prefix program (r, q_k), with its refusals in the spec's words. */
-function prefixOf(family: Family, expansion: Expansion, layout: SegmentLayout): AnalysisProgram {
+/** The prefix program (r, q_k), with its refusals in the spec's words; one per layout (layout-memo.ts). */
+function prefixOf(family: Family, expansion: Expansion, layout: SegmentLayout, shared: LayoutShared): AnalysisProgram {
   try {
-    return analysisProgram(family, expansion);
+    return (shared.prefix ??= analysisProgram(family, expansion));
   } catch (e) {
     if (e instanceof CoefficientError) {
       throw new RootcastError(`coefficient ${e.power} ${e.why}; rewrite the expression`, locate(family, `coefficients.${e.power}`));
@@ -141,7 +178,10 @@ function prefixOf(family: Family, expansion: Expansion, layout: SegmentLayout): 
 /** A program's table bytes, or the refusal when they exceed plan.max_table_bytes. */
 function checkTable(family: Family, counts: readonly number[], program: Program): number {
   const tableBytes = tableBytesOf(program);
-  if (tableBytes > family.plan.maxTableBytes) refuseTable(family, counts, tableBytes);
+  if (tableBytes > family.plan.maxTableBytes) {
+    tableLimitBit();
+    refuseTable(family, counts, tableBytes);
+  }
   return tableBytes;
 }
 
@@ -184,18 +224,22 @@ export interface SegmentNeeds {
  * bound: the chosen layout is certified by planSegments as any other).
  */
 export function segmentNeeds(family: Family, box: Cell, layout: SegmentLayout, order: number, over = Infinity, aim: RefineAim = 'series'): SegmentNeeds {
-  const { expansion } = expansionFor(family, layout);
-  const ap = prefixOf(family, expansion, layout);
+  const shared = sharedOf(family, box, layout);
+  const { expansion } = expansionFor(family, box, layout);
+  const ap = prefixOf(family, expansion, layout, shared);
   const relative = family.accuracy.kind === 'relative';
   const target = family.accuracy.value.toNumber();
-  const perSegment = initialCellsPerSegment(family.inputs.length, layout.segmentation.segments);
-  const initial = layout.boxes.flatMap((b, segment) => grid(b, perSegment).map((cell) => ({ cell, segment })));
   const x0 = expansion.x0.map((v) => v.toNumber());
-  const needOf = (cells: readonly { cell: Cell; segment: number }[], each: (c: CellFacts, need: number) => void): boolean => {
-    const set = new CellSet(ap, family.degree, box, x0, cells);
-    set.repairBadCells(LIMITS.cells, relative, false);
-    if (relative) set.splitTowardZero(LIMITS.cells);
-    const pool = new TermPool(family.degree, [...ap.q.keys()], set);
+  const cellsOf = (cells: readonly { cell: Cell; segment: number }[] | null): NeedsCells => {
+    let set: CellSet;
+    if (cells) {
+      set = new CellSet(ap, family.degree, box, x0, cells);
+      set.repairBadCells(LIMITS.cells, relative, false);
+      if (relative) set.splitTowardZero(LIMITS.cells);
+    } else set = repairedSet(family, box, layout, ap, x0, shared);
+    return { set, pool: new TermPool(family.degree, [...ap.q.keys()], set) };
+  };
+  const needOf = ({ set, pool }: NeedsCells, each: (c: CellFacts, need: number) => void): boolean => {
     if (!pool.termsUpTo(order)) return false;
     for (const c of set.cells) {
       const t = cellTail(c, order);
@@ -207,7 +251,17 @@ export function segmentNeeds(family: Family, box: Cell, layout: SegmentLayout, o
   };
   const needs = new Array<number>(layout.segmentation.segments).fill(0);
   const alone = new Map<number, number[]>();
-  if (!needOf(initial, (c, need) => (needs[c.segment] = Math.max(needs[c.segment]!, need)))) return { needs: needs.fill(Infinity), alone };
+  // The layout's own cells are the same at every order and aim: built once (layout-memo.ts).
+  // A throw (the work limit) while grades are added may leave them half built: the next caller starts afresh.
+  const own = (shared.needsCells ??= cellsOf(null));
+  let met: boolean;
+  try {
+    met = needOf(own, (c, need) => (needs[c.segment] = Math.max(needs[c.segment]!, need)));
+  } catch (e) {
+    delete shared.needsCells;
+    throw e;
+  }
+  if (!met) return { needs: needs.fill(Infinity), alone };
   const splitInputs = layout.segmentation.parts.map((p) => p.input);
   const pinned: { cell: Cell; segment: number }[] = [];
   needs.forEach((need, segment) => {
@@ -223,7 +277,7 @@ export function segmentNeeds(family: Family, box: Cell, layout: SegmentLayout, o
     }
   });
   if (pinned.length === 0) return { needs, alone };
-  const ok = needOf(pinned, (c, need) => {
+  const ok = needOf(cellsOf(pinned), (c, need) => {
     const i = c.cell.findIndex((iv, j) => splitInputs.includes(j) && iv.hi > iv.lo);
     const row = alone.get(c.segment)!;
     if (i >= 0) row[i] = Math.max(row[i]!, need);

@@ -15,7 +15,9 @@ import type { Family } from '../family/types.js';
 import type { Cell } from './box.js';
 import { candidatesOf, refusedCandidate } from './candidates.js';
 import { planSegments, segmentNeeds, type RefineAim, type SegmentNeeds } from './plan-segments.js';
-import { segmentLayout, type SegmentLayout } from './segments.js';
+import type { SegmentLayout } from './segments.js';
+import { layoutOnce } from './layout-memo.js';
+import { tableLimitBit } from './table-limit.js';
 import { REFINE, SEGMENT_SEARCH } from './tuning.js';
 import type { Candidate, Plan } from './types.js';
 
@@ -57,17 +59,23 @@ function refineFor(family: Family, box: Cell, coarse: readonly number[], levels:
   for (;;) {
     let layout: SegmentLayout;
     try {
-      layout = segmentLayout(family, box, coarse, levels);
+      layout = layoutOnce(family, box, coarse, levels);
     } catch (e) {
       if (e instanceof RootcastError) return null;
       throw e;
     }
     const segments = layout.segmentation.segments;
     const least = segments * bytes * SEGMENT_SEARCH.minValuesPerSegment + 2 * coarse.reduce((a, b) => a + b, 0);
-    if (segments > SEGMENT_SEARCH.maxTotal || least > family.plan.maxTableBytes) return null;
+    if (segments > SEGMENT_SEARCH.maxTotal) return null;
+    if (least > family.plan.maxTableBytes) {
+      tableLimitBit();
+      return null;
+    }
     let needs: SegmentNeeds;
     try {
-      needs = segmentNeeds(family, box, layout, order, REFINE.share, aim);
+      // With one searched input every split is along it (splitDirections): its needs input by input would guide nothing.
+      const guided = levels.filter((l) => l !== null).length > 1 ? REFINE.share : Infinity;
+      needs = segmentNeeds(family, box, layout, order, guided, aim);
     } catch (e) {
       if (e instanceof RootcastError) return null;
       throw e;

@@ -23,6 +23,7 @@ import type { Family } from '../family/types.js';
 import { shiftedForms } from '../series/recenter.js';
 import { CoefficientRanges } from './tight-range.js';
 import { checkWork } from './work.js';
+import { equationOf } from './layout-memo.js';
 import { gradeSums } from '../series/grade-sums.js';
 import { addForms, constantForm, formOf, isConstant, isZero, materialise, powerOf, scaleForm, uniform, type LinearForm } from './linear-form.js';
 
@@ -125,13 +126,23 @@ export function finishProgram(family: Family, e: Expansion, b: ProgramBuilder, p
   });
 }
 
-const ranges = new WeakMap<Family, WeakMap<Expansion, CoefficientRanges>>();
+/**
+ * Kept per expansion object and equation (plan/layout-memo.ts equationOf):
+ * the families that share one read nothing else here, so the copies of a
+ * family that the result stage and the quoted-fix checks plan share these too.
+ */
+function perExpansion<T>(table: WeakMap<Expansion, WeakMap<object, T>>, family: Family, e: Expansion, make: () => T): T {
+  let byEquation = table.get(e);
+  if (!byEquation) table.set(e, (byEquation = new WeakMap()));
+  const eq = equationOf(family);
+  let v = byEquation.get(eq);
+  if (v === undefined) byEquation.set(eq, (v = make()));
+  return v;
+}
+
+const ranges = new WeakMap<Expansion, WeakMap<object, CoefficientRanges>>();
 function rangesFor(family: Family, e: Expansion): CoefficientRanges {
-  let byExpansion = ranges.get(family);
-  if (!byExpansion) ranges.set(family, (byExpansion = new WeakMap()));
-  let r = byExpansion.get(e);
-  if (!r) byExpansion.set(e, (r = new CoefficientRanges(family, e.x0)));
-  return r;
+  return perExpansion(ranges, family, e, () => new CoefficientRanges(family, e.x0));
 }
 
 /** A coefficient expression that cannot be evaluated anywhere (say why, at its power). */
@@ -170,13 +181,10 @@ export interface Base {
   readonly setup: SeriesSetup;
   readonly prefix: Prefix;
 }
-const bases = new WeakMap<Family, WeakMap<Expansion, Map<string, Base>>>();
+const bases = new WeakMap<Expansion, WeakMap<object, Map<string, Base>>>();
 
 function baseOf(family: Family, e: Expansion, extraInputs: readonly string[]): Base {
-  let byExpansion = bases.get(family);
-  if (!byExpansion) bases.set(family, (byExpansion = new WeakMap()));
-  let byInputs = byExpansion.get(e);
-  if (!byInputs) byExpansion.set(e, (byInputs = new Map()));
+  const byInputs = perExpansion(bases, family, e, () => new Map<string, Base>());
   const key = extraInputs.join(',');
   let base = byInputs.get(key);
   if (!base) {

@@ -50,10 +50,43 @@ function totalDegree(p: MultiPoly): number {
 
 const finite = (x: Interval): Interval | null => (Number.isFinite(x.lo) && Number.isFinite(x.hi) ? x : null);
 
+/**
+ * What depends on the family alone: the scaled box, the exact coefficient
+ * polynomials, and the tensors of every expansion point met so far (by its
+ * exact value). Every segmentation the search tries builds its own
+ * CoefficientRanges, and many of them share expansion points.
+ */
+interface FamilyShare {
+  readonly mid: number[];
+  readonly half: number[];
+  readonly polys: readonly (MultiPoly | null)[];
+  readonly byX0: Map<string, SegmentTensors>;
+}
+const shares = new WeakMap<Family, FamilyShare>();
+
+function shareOf(family: Family): FamilyShare {
+  let s = shares.get(family);
+  if (!s) {
+    const box = boxOf(family).cell;
+    // Any float mid and half > 0 will do: they only have to be exact.
+    const mid = box.map((c) => c.lo + (c.hi - c.lo) / 2);
+    const half = box.map((c, i) => {
+      const h = Math.max(subUp(c.hi, mid[i]!), subUp(mid[i]!, c.lo));
+      return h > 0 && Number.isFinite(h) ? h : 1;
+    });
+    const scaling: InputScaling = { mid: mid.map((m) => Rational.fromNumber(m)), half: half.map((h) => Rational.fromNumber(h)) };
+    const d = family.inputs.length;
+    const polys = family.coefficients.map((e) => (e === null ? MultiPoly.zero(d) : exprPolynomial(e, scaling, family.constants)));
+    shares.set(family, (s = { mid, half, polys, byX0: new Map() }));
+  }
+  return s;
+}
+
 export class CoefficientRanges {
   private readonly mid: number[];
   private readonly half: number[];
   private readonly polys: readonly (MultiPoly | null)[];
+  private readonly share: FamilyShare;
   private readonly segments = new Map<number, SegmentTensors>();
   private readonly cache = new WeakMap<Interval, unknown>();
   private readonly noInputs = new Map<number, TightCell>();
@@ -63,25 +96,19 @@ export class CoefficientRanges {
     family: Family,
     private readonly x0: readonly Rational[],
   ) {
-    const box = boxOf(family).cell;
-    // Any float mid and half > 0 will do: they only have to be exact.
-    this.mid = box.map((c) => c.lo + (c.hi - c.lo) / 2);
-    this.half = box.map((c, i) => {
-      const h = Math.max(subUp(c.hi, this.mid[i]!), subUp(this.mid[i]!, c.lo));
-      return h > 0 && Number.isFinite(h) ? h : 1;
-    });
-    const scaling: InputScaling = {
-      mid: this.mid.map((m) => Rational.fromNumber(m)),
-      half: this.half.map((h) => Rational.fromNumber(h)),
-    };
-    const d = family.inputs.length;
-    this.polys = family.coefficients.map((e) => (e === null ? MultiPoly.zero(d) : exprPolynomial(e, scaling, family.constants)));
+    this.share = shareOf(family);
+    this.mid = this.share.mid;
+    this.half = this.share.half;
+    this.polys = this.share.polys;
   }
 
   private tensors(segment: number): SegmentTensors {
     let t = this.segments.get(segment);
     if (!t) {
-      t = this.build(this.x0[segment]!);
+      const x0 = this.x0[segment]!;
+      const key = x0.toString();
+      t = this.share.byX0.get(key);
+      if (!t) this.share.byX0.set(key, (t = this.build(x0)));
       this.segments.set(segment, t);
     }
     return t;
@@ -89,16 +116,30 @@ export class CoefficientRanges {
 
   private build(x0: Rational): SegmentTensors {
     const n = this.polys.length - 1;
-    const shifted: (MultiPoly | null)[] = [];
-    for (let j = 0; j <= n; j++) {
+    const degrees = this.polys.map((p) => (p ? totalDegree(p) : 0));
+    // c'j exactly, computed when first asked for: most are never needed (see `needed`).
+    const exact = new Map<number, MultiPoly | null>();
+    const shiftedPoly = (j: number): MultiPoly | null => {
+      if (exact.has(j)) return exact.get(j)!;
       let acc: MultiPoly | null = this.polys[j]!;
       for (let k = j + 1; k <= n && acc; k++) {
         const ck = this.polys[k]!;
         acc = ck ? acc.add(ck.scale(Rational.of(binomial(k, j)).mul(x0.pow(k - j)))) : null;
       }
-      shifted.push(acc);
-    }
+      exact.set(j, acc);
+      return acc;
+    };
+    // c'j of total degree <= 1 (j != 1) is enclosed exactly enough by interval arithmetic already.
+    // Its total degree is at most the largest of the c_k it sums (k >= j): when that is <= 1 the
+    // exact expansion is not needed to know it is skipped.
+    const needed = (j: number): IntervalTensor | null => {
+      if (this.polys.slice(j).some((p) => p === null)) return null;
+      if (j !== 1 && Math.max(...degrees.slice(j)) <= 1) return null;
+      const p = shiftedPoly(j);
+      return p && (j === 1 || totalDegree(p) > 1) ? IntervalTensor.of(p) : null;
+    };
     const derivative = (order: 1 | 2): IntervalTensor | null => {
+      const shifted = Array.from({ length: n + 1 }, (_, j) => (j >= order ? shiftedPoly(j) : null));
       if (shifted.some((p, j) => j >= order && p === null)) return null;
       const vars = this.mid.length;
       let acc = MultiPoly.zero(vars + 1);
@@ -114,8 +155,7 @@ export class CoefficientRanges {
     };
     let built: { d1: IntervalTensor | null; d2: IntervalTensor | null } | null = null;
     return {
-      // c'j of total degree <= 1 (j != 1) is enclosed exactly enough by interval arithmetic already.
-      shifted: shifted.map((p, j) => (p && (j === 1 || totalDegree(p) > 1) ? IntervalTensor.of(p) : null)),
+      shifted: Array.from({ length: n + 1 }, (_, j) => needed(j)),
       derivatives: () => (built ??= { d1: derivative(1), d2: derivative(2) }),
     };
   }

@@ -41,11 +41,21 @@ export function shiftedForms<F, W>(
   return out;
 }
 
-/** Sign of P(x) = sum c_k x^k, exactly. */
+/**
+ * Sign of P(x) = sum c_k x^k, exactly. Horner's rule on a numerator and a
+ * positive denominator kept apart and never reduced: only the sign is wanted,
+ * and the gcds of reduced sums were most of the cost of finding a root.
+ */
 export function signAt(c: readonly Rational[], x: Rational): -1 | 0 | 1 {
-  let acc = Rational.ZERO;
-  for (let k = c.length - 1; k >= 0; k--) acc = acc.mul(x).add(c[k]!);
-  return acc.sign();
+  let num = 0n;
+  let den = 1n;
+  for (let k = c.length - 1; k >= 0; k--) {
+    const ck = c[k]!;
+    // num/den * x + ck = (num x.num ck.den + ck.num den x.den) / (den x.den ck.den)
+    num = num * x.num * ck.den + ck.num * den * x.den;
+    den = den * x.den * ck.den;
+  }
+  return num < 0n ? -1 : num > 0n ? 1 : 0;
 }
 
 /**

@@ -4,13 +4,15 @@
  * to binary64 by the language specification), Math.fround (correctly rounded
  * binary64 -> binary32, ECMAScript spec), Number.EPSILON and Number.MIN_VALUE,
  * and decimal.js at 60 significant digits for the field operations; the gcd
- * (Lehmer's algorithm) against mathjs `gcd` on BigNumbers.
+ * (Lehmer's algorithm) against mathjs `gcd` on BigNumbers; bit lengths against
+ * ECMAScript's BigInt toString(2).
  */
 import { describe, expect, test } from '@jest/globals';
 import { Decimal } from 'decimal.js';
 import fc from 'fast-check';
 import { create, all } from 'mathjs';
-import { gcd, nextDown, nextUp, Rational } from '../../src/math/rational.js';
+import { bitsOf, gcd, nextDown, nextUp, Rational } from '../../src/math/rational.js';
+import { exactDecimal } from '../support/exact-decimal.js';
 
 const D = Decimal.clone({ precision: 60 });
 /** Equal as numbers: a rational has no signed zero, so -0 and 0 are the same value here. */
@@ -151,5 +153,103 @@ describe('gcd (Lehmer) against mathjs gcd', () => {
     expect(gcd(12n, 0n)).toBe(12n);
     // Both zero: 1 by this module's convention, so dividing by it is harmless.
     expect(gcd(0n, 0n)).toBe(1n);
+  });
+});
+
+describe('float conversions over the whole binary64 range (decimal.js with every digit, ECMAScript BigInt)', () => {
+  // 1100 significant digits hold any double exactly (a 53-bit integer times 2^-1074 has 767 significant digits),
+  // and any quotient of them compared here; the exponent range covers 2^-1074 and 2^1024.
+  const W = Decimal.clone({ precision: 1100, minE: -9e15, maxE: 9e15 });
+  const value = (r: Rational): Decimal => new W(r.num.toString()).div(r.den.toString());
+  const anyDouble = fc.double({ noNaN: true, noDefaultInfinity: true });
+
+  test('fromNumber is the exact value of the double (its IEEE 754 fields multiplied out) in lowest terms: a power-of-two denominator over an odd numerator', () => {
+    fc.assert(
+      fc.property(anyDouble, (x) => {
+        const r = Rational.fromNumber(x);
+        expect(value(r).eq(exactDecimal(W, x))).toBe(true);
+        expect(r.den > 0n && (r.den & (r.den - 1n)) === 0n).toBe(true);
+        if (r.den !== 1n) expect(r.num & 1n).toBe(1n);
+      }),
+      { numRuns: 2000, seed: 20261202 },
+    );
+    // Subnormals, the smallest normal, integers with trailing zeros in the high word only.
+    for (const x of [Number.MIN_VALUE, 3 * Number.MIN_VALUE, 2 ** -1022, 2 ** 52, 2 ** 40 + 2 ** 33, -(2 ** -1000), 1.5]) {
+      expect(value(Rational.fromNumber(x)).eq(exactDecimal(W, x))).toBe(true);
+    }
+  });
+
+  test('bitsOf(n) is the length of n in binary (BigInt.prototype.toString(2)), also next to powers of two and beyond 2^1023', () => {
+    const sizes = fc.integer({ min: 1, max: 1200 });
+    fc.assert(
+      fc.property(sizes, fc.integer({ min: -2, max: 2 }), fc.bigInt({ min: 0n, max: 2n ** 64n }), (k, off, low) => {
+        // Around 2^k (the double nearest n rounds to 2^k there), and a random n of k bits.
+        const n = 2n ** BigInt(k) + BigInt(off);
+        expect(bitsOf(n)).toBe(n <= 0n ? 0 : n.toString(2).length);
+        const m = 2n ** BigInt(k) - 1n - low;
+        if (m > 0n) expect(bitsOf(-m)).toBe(m.toString(2).length);
+      }),
+      { numRuns: 2000, seed: 20261202 },
+    );
+  });
+
+  test('toNumberBounds encloses the exact value by adjacent doubles, one double when it is one (decimal.js), subnormals and near-overflow included', () => {
+    const side = fc.bigInt({ min: 1n, max: 2n ** 200n });
+    const scale = fc.integer({ min: -1300, max: 1100 });
+    fc.assert(
+      fc.property(fc.boolean(), side, side, scale, (neg, a, b, e) => {
+        const r = Rational.of(neg ? -a : a, b).mul(e >= 0 ? Rational.of(2n ** BigInt(e)) : Rational.of(1n, 2n ** BigInt(-e)));
+        const [lo, hi] = r.toNumberBounds();
+        expect([lo, hi]).toEqual([r.toNumberDown(), r.toNumberUp()]);
+        const exact = value(r);
+        if (Number.isFinite(lo)) expect(exactDecimal(W, lo).lte(exact)).toBe(true);
+        if (Number.isFinite(hi)) expect(exactDecimal(W, hi).gte(exact)).toBe(true);
+        if (lo === hi) expect(exactDecimal(W, lo).eq(exact)).toBe(true);
+        else expect(hi === nextUp(lo) || (lo === Number.MAX_VALUE && hi === Infinity) || (lo === -Infinity && hi === -Number.MAX_VALUE)).toBe(true);
+      }),
+      { numRuns: 1000, seed: 20261202 },
+    );
+  });
+});
+
+describe('nextUp and nextDown against the binary64 encoding', () => {
+  // IEEE 754-2019, 3.4: finite doubles of one sign are ordered as their encodings read as integers,
+  // so the next double above a positive x has the encoding plus one (minus one for a negative x).
+  const bits = new BigInt64Array(1);
+  const f = new Float64Array(bits.buffer);
+  const reference = (x: number): number => {
+    if (x === 0) return Number.MIN_VALUE;
+    f[0] = x;
+    bits[0] += x > 0 ? 1n : -1n;
+    return f[0]!;
+  };
+  // The doubles where a step went wrong (one expect at the end: an expect per step made the test slow).
+  const wrong: number[] = [];
+  const check = (x: number): void => {
+    if (!Object.is(nextUp(x), reference(x)) || !Object.is(nextDown(x), -reference(-x))) wrong.push(x);
+  };
+
+  test('random doubles, and every power of two with its neighbours (where the spacing changes)', () => {
+    fc.assert(
+      fc.property(fc.double({ noNaN: true, noDefaultInfinity: true }), (x) => {
+        if (Math.abs(x) < Number.MAX_VALUE) check(x);
+      }),
+      { numRuns: 20000, seed: 20261202 },
+    );
+    for (let e = -1074; e <= 1023; e++) {
+      const p = 2 ** e;
+      for (const x of [p, nextUp(p), nextDown(p)]) {
+        if (x === 0 || x >= Number.MAX_VALUE) continue;
+        check(x);
+        check(-x);
+        check(x * 1.5);
+        check(-x * 1.75);
+      }
+    }
+    expect(wrong).toEqual([]);
+    // Past the end of the range: MAX_VALUE steps to Infinity (its encoding plus one).
+    expect(nextUp(Number.MAX_VALUE)).toBe(Infinity);
+    expect(nextDown(-Number.MAX_VALUE)).toBe(-Infinity);
+    expect(nextUp(-Number.MAX_VALUE)).toBe(reference(-Number.MAX_VALUE));
   });
 });

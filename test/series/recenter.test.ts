@@ -1,4 +1,5 @@
 import { describe, expect, test } from '@jest/globals';
+import { Decimal } from 'decimal.js';
 import fc from 'fast-check';
 import { Rational } from '../../src/math/rational.js';
 import { binomial, bisectExact, shiftedForms, signAt } from '../../src/series/recenter.js';
@@ -26,5 +27,30 @@ describe('recentring', () => {
     expect(Math.abs(r.toNumber() - Math.SQRT2)).toBeLessThan(1e-15);
     expect(signAt(c, Rational.ONE)).toBe(-1);
     expect(bisectExact(c, Rational.int(2), Rational.int(3), Rational.parseDecimal('1e-6'))).toBeNull();
+  });
+});
+
+describe('signAt against decimal.js', () => {
+  // Coefficients n / 10^a and points m / 2^b are finite decimals: decimal.js at 2000 digits evaluates
+  // P exactly for these sizes (degree <= 9, each power of x adds at most 19 significant digits and 60
+  // decimal places, the coefficients 31 digits and 80 places: under 1000 digits), so its sign is the reference.
+  const E = Decimal.clone({ precision: 2000 });
+  const coefficient = fc.tuple(fc.bigInt({ min: -(10n ** 30n), max: 10n ** 30n }), fc.integer({ min: 0, max: 20 }));
+  const point = fc.tuple(fc.bigInt({ min: -(2n ** 60n), max: 2n ** 60n }), fc.integer({ min: 0, max: 60 }));
+
+  test('the sign of P(x), also at exact roots (x - x0 factors built in)', () => {
+    fc.assert(
+      fc.property(fc.array(coefficient, { minLength: 1, maxLength: 8 }), point, fc.boolean(), (cs, [m, b], root) => {
+        const x = Rational.of(m, 2n ** BigInt(b));
+        let c = cs.map(([n, a]) => Rational.of(n, 10n ** BigInt(a)));
+        // Multiply by (y - x) to put an exact root at x.
+        if (root) c = [...c.map((ck) => ck.mul(x).neg()), Rational.ZERO].map((v, k) => (k > 0 ? v.add(c[k - 1]!) : v));
+        const dx = new E(m.toString()).div(new E(2).pow(b));
+        const value = c.reduceRight((acc, ck) => acc.times(dx).plus(new E(ck.num.toString()).div(ck.den.toString())), new E(0));
+        expect(signAt(c, x)).toBe(value.isZero() ? 0 : value.isNeg() ? -1 : 1);
+        if (root) expect(signAt(c, x)).toBe(0);
+      }),
+      { numRuns: 500, seed: 20261202 },
+    );
   });
 });
