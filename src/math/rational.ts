@@ -215,7 +215,22 @@ export function gcd(a: bigint, b: bigint): bigint {
   if (a < b) [a, b] = [b, a];
   if (b === 0n) return a === 0n ? 1n : a;
   exactWork.steps += 1;
+  if (b === 1n) return 1n;
   if (a <= SMALL) return BigInt(smallGcd(Number(a), Number(b)));
+  // One multi-precision remainder brings a small b's gcd to doubles.
+  if (b <= SMALL) return BigInt(smallGcd(Number(b), Number(a % b)));
+  // gcd(a, b) = 2^min(i, j) gcd(a / 2^i, b / 2^j) for the powers of two 2^i, 2^j dividing a and b exactly:
+  // the planner's denominators are mostly 2^i 5^j (a float times a decimal), whose odd part is often small.
+  const lowB = b & -b;
+  if (lowB !== 1n) {
+    const oddB = b >> BigInt(bitLength(lowB) - 1);
+    if (oddB <= SMALL) {
+      const lowA = a & -a;
+      const oddA = a >> BigInt(bitLength(lowA) - 1);
+      const g = oddB === 1n ? 1 : smallGcd(Number(oddB), Number(oddA % oddB));
+      return (lowA < lowB ? lowA : lowB) * BigInt(g);
+    }
+  }
   return lehmerGcd(a, b);
 }
 
