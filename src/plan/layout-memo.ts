@@ -36,6 +36,8 @@ export interface LayoutShared {
   prefix?: AnalysisProgram;
   /** The facts of the layout's first cells (initialCells), before any split: each user copies them (CellSet.ofFacts). */
   firstFacts?: readonly CellFacts[];
+  /** The same cells as a search trial repairs them (plan-segments.ts repairedSet), copied alike. */
+  repairedFacts?: readonly CellFacts[];
   needsCells?: NeedsCells;
 }
 

@@ -22,6 +22,8 @@ import { chooseRoot, plainRoot, pointText, rootAt, type RootChoice } from './roo
 import type { SegmentLayout } from './segments.js';
 import { choiceOnce, layoutOnce, rootOnce, sharedOf, type LayoutShared, type NeedsCells } from './layout-memo.js';
 import { analysisProgram, CoefficientError, ZeroSlopeError, type AnalysisProgram, type Expansion } from './series-program.js';
+import { tableLimitBit } from './table-limit.js';
+import { planFound } from './work.js';
 import { TermPool } from './term-pool.js';
 import { initialCellsPerSegment, LIMITS, REFINE } from './tuning.js';
 import type { Plan } from './types.js';
@@ -32,7 +34,9 @@ import type { Plan } from './types.js';
  */
 export function planSegments(family: Family, box: Cell, counts: readonly number[], thorough = true, refine?: readonly (readonly number[] | null)[], plain = false): Plan {
   try {
-    return planSegmentsInner(family, box, layoutOnce(family, box, counts, refine), thorough, plain);
+    const p = planSegmentsInner(family, box, layoutOnce(family, box, counts, refine), thorough, plain);
+    planFound();
+    return p;
   } catch (e) {
     if (e instanceof ConstantOverflowError) refuseConstant(family, e.exact);
     throw e;
@@ -45,15 +49,20 @@ function planSegmentsInner(family: Family, box: Cell, layout: SegmentLayout, tho
   // The plain series (x0 = 0) is not the layout's recentred expansion: its prefix is its own.
   const ap = prefixOf(family, expansion, layout, plain ? {} : sharedOf(family, box, layout));
   const relative = family.accuracy.kind === 'relative';
-  const set = firstSet(family, box, layout, ap, expansion.x0.map((v) => v.toNumber()), plain ? {} : sharedOf(family, box, layout));
+  const x0 = expansion.x0.map((v) => v.toNumber());
+  let set = firstSet(family, box, layout, ap, x0, plain ? {} : sharedOf(family, box, layout));
   if (plain) plainRootAtCentre(family, set.centreFacts());
   if (!thorough) {
     // A search trial with a cell that is bad at its very centre cannot be repaired: refuse it now.
     const hopeless = set.badAtCentre(relative);
     if (hopeless.length > 0) refuseBadCells(family, hopeless, relative);
   }
-  set.repairBadCells(LIMITS.cells, relative, thorough);
-  if (relative) set.splitTowardZero(LIMITS.cells);
+  // A search trial's repaired cells are the same whatever the target: shared with segmentNeeds and the other trials of the layout.
+  if (!thorough && !plain) set = repairedSet(family, box, layout, ap, x0, sharedOf(family, box, layout));
+  else {
+    set.repairBadCells(LIMITS.cells, relative, thorough);
+    if (relative) set.splitTowardZero(LIMITS.cells);
+  }
   refuseBadCells(family, set.cells, relative);
   certifyRootInBracket(family, expansion.x0.map((v) => v.toNumber()), set.cells);
 
@@ -112,6 +121,17 @@ function firstSet(family: Family, box: Cell, layout: SegmentLayout, ap: Analysis
   return CellSet.ofFacts(ap, family.degree, box, x0, facts);
 }
 
+/** A new set over the layout's first cells as a search trial repairs them (no target enters), repaired once per layout. */
+function repairedSet(family: Family, box: Cell, layout: SegmentLayout, ap: AnalysisProgram, x0: readonly number[], shared: LayoutShared): CellSet {
+  if (!shared.repairedFacts) {
+    const set = firstSet(family, box, layout, ap, x0, shared);
+    set.repairBadCells(LIMITS.cells, family.accuracy.kind === 'relative', false);
+    if (family.accuracy.kind === 'relative') set.splitTowardZero(LIMITS.cells);
+    shared.repairedFacts = set.cells;
+  }
+  return CellSet.ofFacts(ap, family.degree, box, x0, shared.repairedFacts);
+}
+
 /** The plain series' expansion: one box, x0 = 0. */
 function plainExpansion(family: Family, layout: SegmentLayout): { expansion: Expansion; root: RootChoice } {
   if (layout.segmentation.segments !== 1) throw new RangeError('the plain series has one box');
@@ -158,7 +178,10 @@ function prefixOf(family: Family, expansion: Expansion, layout: SegmentLayout, s
 /** A program's table bytes, or the refusal when they exceed plan.max_table_bytes. */
 function checkTable(family: Family, counts: readonly number[], program: Program): number {
   const tableBytes = tableBytesOf(program);
-  if (tableBytes > family.plan.maxTableBytes) refuseTable(family, counts, tableBytes);
+  if (tableBytes > family.plan.maxTableBytes) {
+    tableLimitBit();
+    refuseTable(family, counts, tableBytes);
+  }
   return tableBytes;
 }
 
@@ -208,9 +231,12 @@ export function segmentNeeds(family: Family, box: Cell, layout: SegmentLayout, o
   const target = family.accuracy.value.toNumber();
   const x0 = expansion.x0.map((v) => v.toNumber());
   const cellsOf = (cells: readonly { cell: Cell; segment: number }[] | null): NeedsCells => {
-    const set = cells ? new CellSet(ap, family.degree, box, x0, cells) : firstSet(family, box, layout, ap, x0, shared);
-    set.repairBadCells(LIMITS.cells, relative, false);
-    if (relative) set.splitTowardZero(LIMITS.cells);
+    let set: CellSet;
+    if (cells) {
+      set = new CellSet(ap, family.degree, box, x0, cells);
+      set.repairBadCells(LIMITS.cells, relative, false);
+      if (relative) set.splitTowardZero(LIMITS.cells);
+    } else set = repairedSet(family, box, layout, ap, x0, shared);
     return { set, pool: new TermPool(family.degree, [...ap.q.keys()], set) };
   };
   const needOf = ({ set, pool }: NeedsCells, each: (c: CellFacts, need: number) => void): boolean => {

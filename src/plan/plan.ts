@@ -19,9 +19,10 @@ import { plainTrial, type PlainTrial } from './plain-series.js';
 import { planWithResult } from './result-stage.js';
 import { frugalChoice, searchSegments } from './segment-search.js';
 import { QuotedFixRefusal, refuseWorkLimit } from './refusals.js';
+import { tableLimitBites } from './table-limit.js';
 import { QUOTED_FIX, TABLE_FIX, WORK } from './tuning.js';
 import type { Plan } from './types.js';
-import { restartWork, startWork, WorkLimitError, type WorkObserver } from './work.js';
+import { everyPlan, restartWork, startWork, untilFirstPlan, untilFirstPlanBy, WorkLimitError, type WorkObserver } from './work.js';
 
 export type { Bound, Candidate, Plan, PlanForm } from './types.js';
 
@@ -70,7 +71,8 @@ function confirmedFix(family: Family, refusal: QuotedFixRefusal, options: PlanOp
   for (let round = 0; round < QUOTED_FIX.rounds; round++) {
     startWork(options.onWork ?? null, WORK.limit * QUOTED_FIX.workShare);
     try {
-      applyOutsideBox(planWithinLimit(quote.apply(family)));
+      // Whether it plans is all the check asks: it stops at the first plan (a search that found one returns one).
+      untilFirstPlan(() => planWithinLimit(quote.apply(family)));
       return quote;
     } catch (e) {
       if (e instanceof QuotedFixRefusal && e.kind === 'floor' && quote.kind === 'floor' && e.best > quote.best) {
@@ -93,10 +95,15 @@ function planWithinLimit(family: Family): Plan {
   const plain = perInput.every((k) => k === 'auto' || k === 1) ? plainTrial(family, box.cell) : NO_PLAIN;
   if (perInput.some((k) => k === 'auto')) {
     const fixed = perInput.map((k) => (k === 'auto' ? null : k));
+    const bites = tableLimitBites();
     try {
-      return searchSegments(family, box.cell, fixed, plain);
+      // A search with no plan (the plain series' included) after a share of the limit ends there (src/plan/work.ts).
+      const search = (): Plan => searchSegments(family, box.cell, fixed, plain);
+      // Without a bracket the one box is the only trial: it keeps the whole limit.
+      return plain.plan || !family.bracket ? search() : untilFirstPlanBy(WORK.limit * WORK.firstPlanShare, search);
     } catch (e) {
-      if (e instanceof RootcastError) refuseWithTableFix(family, box.cell, fixed, e);
+      // A search the table limit never touched would end the same with a larger one (src/plan/table-limit.ts).
+      if (e instanceof RootcastError && tableLimitBites() > bites) refuseWithTableFix(family, box.cell, fixed, e);
       throw e;
     }
   }
@@ -122,7 +129,7 @@ const NO_PLAIN: PlainTrial = { plan: null, candidates: [] };
 
 /**
  * When the segment search found no plan and plan.max_table_bytes kept it from
- * splitting the inputs, the real fix is that knob: search again with each
+ * splitting the inputs (it turned a layout, a plan or a form away: src/plan/table-limit.ts), the real fix is that knob: search again with each
  * of TABLE_FIX.tryBytes in turn and, when a plan is found, check that its table size as
  * the limit plans too before quoting it (a quoted fix must work). Otherwise
  * the search's own refusal stands.
@@ -136,9 +143,9 @@ function refuseWithTableFix(family: Family, box: Cell, fixed: readonly (number |
     try {
       // The refused search is over: each trial gets a count of its own, as a quoted fix's check does (confirmedFix).
       restartWork(WORK.limit * QUOTED_FIX.workShare);
-      const found = searchSegments(withBytes(limit), box, fixed).tableBytes;
+      const found = everyPlan(() => searchSegments(withBytes(limit), box, fixed)).tableBytes;
       restartWork(WORK.limit * QUOTED_FIX.workShare);
-      searchSegments(withBytes(found), box, fixed);
+      untilFirstPlan(() => searchSegments(withBytes(found), box, fixed));
       bytes = found;
       break;
     } catch (e) {

@@ -17,6 +17,7 @@ import { candidatesOf, refusedCandidate } from './candidates.js';
 import { planSegments, segmentNeeds, type RefineAim, type SegmentNeeds } from './plan-segments.js';
 import type { SegmentLayout } from './segments.js';
 import { layoutOnce } from './layout-memo.js';
+import { tableLimitBit } from './table-limit.js';
 import { REFINE, SEGMENT_SEARCH } from './tuning.js';
 import type { Candidate, Plan } from './types.js';
 
@@ -65,7 +66,11 @@ function refineFor(family: Family, box: Cell, coarse: readonly number[], levels:
     }
     const segments = layout.segmentation.segments;
     const least = segments * bytes * SEGMENT_SEARCH.minValuesPerSegment + 2 * coarse.reduce((a, b) => a + b, 0);
-    if (segments > SEGMENT_SEARCH.maxTotal || least > family.plan.maxTableBytes) return null;
+    if (segments > SEGMENT_SEARCH.maxTotal) return null;
+    if (least > family.plan.maxTableBytes) {
+      tableLimitBit();
+      return null;
+    }
     let needs: SegmentNeeds;
     try {
       // With one searched input every split is along it (splitDirections): its needs input by input would guide nothing.

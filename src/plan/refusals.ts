@@ -275,13 +275,21 @@ export function refuseTable(family: Family, counts: readonly number[], tableByte
  * more actionable fix: a quoted plan.max_order or plan.newton_steps (they keep
  * the target), then the lowest rounding floor, then a table limit, then the
  * first refusal (a series that has no bound on some cells).
+ *
+ * `late`: b was met after more work than a quoted fix's check may use
+ * (QUOTED_FIX.workShare of the limit, counted from the plan's start). A lower
+ * floor met that late does not replace one met earlier: the check, a search
+ * with the quoted target and that share of the work, cannot be relied on to
+ * reach the trial that met it; a check that misses falls back to a floor
+ * its own search met (plan.ts confirmedFix), after a whole check's work for
+ * nothing.
  */
-export function moreActionable(a: RootcastError | null, b: RootcastError): RootcastError {
+export function moreActionable(a: RootcastError | null, b: RootcastError, late = false): RootcastError {
   if (!a) return b;
   const rank = (e: RootcastError): number =>
     e instanceof QuotedFixRefusal ? { order: 0, steps: 1, floor: 2 }[e.kind] : e instanceof TableRefusal ? 3 : 4;
   if (rank(b) !== rank(a)) return rank(b) < rank(a) ? b : a;
-  return a instanceof QuotedFixRefusal && b instanceof QuotedFixRefusal && a.kind === 'floor' && b.best < a.best ? b : a;
+  return a instanceof QuotedFixRefusal && b instanceof QuotedFixRefusal && a.kind === 'floor' && b.best < a.best && !late ? b : a;
 }
 
 /**

@@ -18,8 +18,9 @@ import { planSegments } from './plan-segments.js';
 import type { PlainTrial } from './plain-series.js';
 import { refinedPlans } from './refine.js';
 import { moreActionable } from './refusals.js';
-import { REFINE, SEGMENT_SEARCH } from './tuning.js';
-import { WorkLimitError } from './work.js';
+import { QUOTED_FIX, REFINE, SEGMENT_SEARCH, WORK } from './tuning.js';
+import { tableLimitBit } from './table-limit.js';
+import { WorkLimitError, workUsed } from './work.js';
 import type { Candidate, Plan } from './types.js';
 
 /** `fixed`: per input, the count the spec sets, or null where the search chooses (all null for `segments: auto`). */
@@ -54,7 +55,7 @@ export function searchSegments(family: Family, box: Cell, fixed: readonly (numbe
         return null;
       }
       if (!(e instanceof RootcastError)) throw e;
-      found.refusal = moreActionable(found.refusal, e);
+      found.refusal = moreActionable(found.refusal, e, workUsed() > WORK.limit * QUOTED_FIX.workShare);
       candidates.push(refusedCandidate(counts, e.message, !family.bracket));
       return null;
     }
@@ -127,5 +128,8 @@ export function frugalChoice(plans: readonly Plan[]): Plan {
 /** A coarse check before planning: the least table a segmented plan needs must fit. */
 function tableFits(family: Family, counts: readonly number[]): boolean {
   const segments = counts.reduce((a, b) => a * b, 1);
-  return segments <= SEGMENT_SEARCH.maxTotal && segments * ARITHMETICS[family.arithmetic].bytes * SEGMENT_SEARCH.minValuesPerSegment <= family.plan.maxTableBytes;
+  if (segments > SEGMENT_SEARCH.maxTotal) return false;
+  const fits = segments * ARITHMETICS[family.arithmetic].bytes * SEGMENT_SEARCH.minValuesPerSegment <= family.plan.maxTableBytes;
+  if (!fits) tableLimitBit();
+  return fits;
 }

@@ -102,21 +102,28 @@ export function segmentLayout(family: Family, box: Cell, counts: readonly number
     return { input: p.i, count: p.k, c0, invWidth, stride: strides[k]!, rows: p.rows, ...(fine ? { fine } : {}) };
   });
   const segments = stride;
+  // Per split input, each row's analysed range and centre, computed once: every segment of the row shares them.
+  const rowsOf = parts.map((p) => {
+    const c0 = Rational.fromNumber(p.c0);
+    const w = Rational.ONE.div(Rational.fromNumber(p.invWidth));
+    const e = Rational.fromNumber(3 * u * (p.count + 1));
+    const half = Rational.of(1n, 2n);
+    return axes[p.input]!.runs.map(([a, b]) => {
+      const lo = a === 0 ? box[p.input]!.lo : c0.add(w.mul(Rational.int(a).sub(half).sub(e))).toNumberDown();
+      const hi = b === p.count - 1 ? box[p.input]!.hi : c0.add(w.mul(Rational.int(b).add(half).add(e))).toNumberUp();
+      return { lo: Math.max(lo, box[p.input]!.lo), hi: Math.min(hi, box[p.input]!.hi), centre: c0.add(w.mul(Rational.int(a + b).mul(half))) };
+    });
+  });
   const boxes: Cell[] = [];
   const centres: Rational[][] = [];
   for (let s = 0; s < segments; s++) {
     const cell = box.map((c) => ({ ...c }));
     const point = [...centre];
-    parts.forEach((p) => {
-      const [a, b] = axes[p.input]!.runs[Math.floor(s / p.stride) % p.rows]!;
-      const c0 = Rational.fromNumber(p.c0);
-      const w = Rational.ONE.div(Rational.fromNumber(p.invWidth));
-      const e = Rational.fromNumber(3 * u * (p.count + 1));
-      const half = Rational.of(1n, 2n);
-      const lo = a === 0 ? box[p.input]!.lo : c0.add(w.mul(Rational.int(a).sub(half).sub(e))).toNumberDown();
-      const hi = b === p.count - 1 ? box[p.input]!.hi : c0.add(w.mul(Rational.int(b).add(half).add(e))).toNumberUp();
-      cell[p.input] = { lo: Math.max(lo, box[p.input]!.lo), hi: Math.min(hi, box[p.input]!.hi) };
-      point[p.input] = c0.add(w.mul(Rational.int(a + b).mul(half)));
+    parts.forEach((p, k) => {
+      const row = rowsOf[k]![Math.floor(s / p.stride) % p.rows]!;
+      // A fresh interval per segment: caches key cells by their intervals' identity.
+      cell[p.input] = { lo: row.lo, hi: row.hi };
+      point[p.input] = row.centre;
     });
     boxes.push(cell);
     centres.push(point);

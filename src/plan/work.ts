@@ -35,6 +35,8 @@ const meter = {
   words: 0,
   /** Units over every plan of this process (the benchmark's units per CPU second). */
   total: 0,
+  /** Where a search that has made no plan yet stops (`untilFirstPlanBy`); Infinity when none is set. */
+  firstPlanBy: Infinity,
 };
 
 /** Starts counting a new plan's work. */
@@ -47,6 +49,7 @@ export function startWork(observer: WorkObserver | null = null, limit: number = 
   meter.cap = limit;
   meter.observer = observer;
   meter.nextReport = limit / WORK.reports;
+  meter.firstPlanBy = Infinity;
 }
 
 /**
@@ -69,7 +72,7 @@ export function spend(units: number): void {
     meter.nextReport = meter.used + meter.limit / WORK.reports;
     meter.observer(Math.min(meter.used, meter.limit), meter.limit);
   }
-  if (meter.used > meter.cap) throw new WorkLimitError();
+  if (meter.used > meter.cap || meter.used > meter.firstPlanBy) throw new WorkLimitError();
 }
 
 /**
@@ -104,4 +107,67 @@ export function workTotal(): number {
  */
 export function checkWork(): void {
   spend(0);
+}
+
+/**
+ * Thrown at the first plan found while `untilFirstPlan` runs: a search that
+ * has found one plan returns a plan (the best so far stands, src/plan/segment-search.ts),
+ * so a check that only asks whether a spec plans can stop there.
+ */
+export class FirstPlanFound extends Error {
+  constructor() {
+    super('a plan was found');
+  }
+}
+
+let stopAtPlan = false;
+
+/** Called by src/plan/plan-segments.ts for every plan it makes; ends an `untilFirstPlan` run. */
+export function planFound(): void {
+  meter.firstPlanBy = Infinity;
+  if (stopAtPlan) throw new FirstPlanFound();
+}
+
+/**
+ * Runs `fn` (a segment search) with at most `units` more work until its
+ * first plan (`planFound` lifts the bound; the rest of the limit stays for
+ * better plans): a search that has found nothing after that much work ends
+ * as at the work limit. The bound counts work, so it stays deterministic.
+ */
+export function untilFirstPlanBy<T>(units: number, fn: () => T): T {
+  meter.firstPlanBy = meter.used + units;
+  try {
+    return fn();
+  } finally {
+    meter.firstPlanBy = Infinity;
+  }
+}
+
+/**
+ * Runs `fn` (a planning run) only until it makes its first plan, and
+ * returns then: the run would have planned. Its refusals and the work limit
+ * come out as thrown, as when it runs to the end.
+ */
+export function untilFirstPlan(fn: () => unknown): void {
+  const saved = stopAtPlan;
+  stopAtPlan = true;
+  try {
+    fn();
+  } catch (e) {
+    if (e instanceof FirstPlanFound) return;
+    throw e;
+  } finally {
+    stopAtPlan = saved;
+  }
+}
+
+/** Runs `fn` with every plan kept (a search whose plan is needed, inside an `untilFirstPlan` run). */
+export function everyPlan<T>(fn: () => T): T {
+  const saved = stopAtPlan;
+  stopAtPlan = false;
+  try {
+    return fn();
+  } finally {
+    stopAtPlan = saved;
+  }
 }

@@ -107,4 +107,16 @@ describe('the refusals', () => {
     expect(moreActionable(floorLow, order)).toBe(order);
     expect(moreActionable(order, floorLow)).toBe(order);
   });
+
+  test('a lower floor met past a check\'s share of the work does not replace an earlier floor, but still beats a table limit or another reason', () => {
+    const floorHigh = thrown(() => refuseFloor(family, 5e-5, 1e-6));
+    const floorLow = thrown(() => refuseFloor(family, 2e-6, 1e-6));
+    const table = thrown(() => refuseTable(family, [8], 9999)) as TableRefusal;
+    const order = thrown(() => refuseOrder(family, 6));
+    expect(moreActionable(floorHigh, floorLow, true)).toBe(floorHigh);
+    expect(moreActionable(floorHigh, floorLow, false)).toBe(floorLow);
+    expect(moreActionable(table, floorLow, true)).toBe(floorLow);
+    expect(moreActionable(null, floorLow, true)).toBe(floorLow);
+    expect(moreActionable(floorHigh, order, true)).toBe(order);
+  });
 });

@@ -31,6 +31,9 @@ const SLOW = [
   'test/plan/plain-series.test.ts',
   'test/plan/landing-time.test.ts',
   'test/plan/segments-property.test.ts',
+  // Plan a bracketed quadratic's whole segment search in process: seconds on a busy machine.
+  'test/plan/table-limit.test.ts',
+  'test/plan/first-plan.test.ts',
   'test/support/plan-cache.test.ts',
   // Runs scripts/gen-harness.js (ts-morph) through a dynamic import, which the import scan does not follow.
   'test/verify/harness-machinery.test.ts',

@@ -11,6 +11,7 @@ import { planOf } from '../plan-of.js';
 import { collapsedSeries } from '../series-program.js';
 import { ECONOMISE } from '../tuning.js';
 import type { Plan } from '../types.js';
+import { tableLimitBit } from '../table-limit.js';
 import type { FormContext } from './context.js';
 
 export function economisedPlan(ctx: FormContext, series: Plan): Plan | null {
@@ -40,5 +41,6 @@ export function economisedPlan(ctx: FormContext, series: Plan): Plan | null {
       break;
     }
   }
+  if (best && best.tableBytes > family.plan.maxTableBytes) tableLimitBit();
   return best && best.tableBytes <= family.plan.maxTableBytes ? best : null;
 }

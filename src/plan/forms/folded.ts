@@ -24,6 +24,7 @@ import { foldResult } from '../result-fold.js';
 import { collapsedSeries } from '../series-program.js';
 import { FOLD } from '../tuning.js';
 import type { Plan } from '../types.js';
+import { tableLimitBit } from '../table-limit.js';
 import type { FormContext } from './context.js';
 
 const NO_OPS = { add: 0, mul: 0, div: 0, tableReads: 0, intOps: 0, compares: 0 } as const;
@@ -84,6 +85,7 @@ export function foldedPlan(ctx: FormContext): Plan | null {
       break;
     }
   }
+  if (best && best.tableBytes > family.plan.maxTableBytes) tableLimitBit();
   return best && best.tableBytes <= family.plan.maxTableBytes ? best : null;
 }
 
