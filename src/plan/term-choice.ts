@@ -11,6 +11,7 @@
 import { addDown, mulUp, subUp } from '../math/directed.js';
 import type { SeriesTerm } from '../series/hyper-catalan.js';
 import { termValue, type CellFacts } from './cell-bound.js';
+import { spend } from './work.js';
 
 export interface TermChoice {
   /** The kept terms, in grade order (as the program builders expect). */
@@ -26,6 +27,8 @@ export interface TermChoice {
  */
 export function greedyTerms(cells: readonly CellFacts[], pool: readonly SeriesTerm[], allowed: (c: CellFacts) => number): TermChoice | null {
   if (cells.some((c) => c.state.kind !== 'ok')) return null;
+  // Counted like a program's analysis: a unit per term and cell here, and per cell at each prefix tried below.
+  spend(cells.length * pool.length);
   const values = cells.map((c) => pool.map((t) => termValue(c, t)));
   // Score: the largest share of a cell's allowance the term covers.
   const score = pool.map((_, i) => Math.max(...cells.map((c, j) => (mulUp(c.R, values[j]![i]!) / allowed(c)))));
@@ -34,6 +37,7 @@ export function greedyTerms(cells: readonly CellFacts[], pool: readonly SeriesTe
   const tailOf = (j: number): number => mulUp(cells[j]!.R, Math.max(0, subUp(cells[j]!.aUpper, kept[j]!)));
   for (let n = 0; n < order.length; n++) {
     const i = order[n]!;
+    spend(cells.length);
     for (let j = 0; j < cells.length; j++) kept[j] = addDown(kept[j]!, values[j]![i]!);
     let ok = true;
     for (let j = 0; j < cells.length && ok; j++) ok = tailOf(j) <= allowed(cells[j]!);
