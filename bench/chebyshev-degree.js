@@ -10,15 +10,15 @@
 // is generous to the interpolant: no rounding is counted for it.
 import { readdirSync } from 'node:fs';
 import { Rational } from '../dist/math/rational.js';
-import { loadSpec } from '../dist/spec/load.js';
+import { loadSpec } from '../dist/reader/load.js';
 import { makePlan } from '../dist/plan/plan.js';
 import { coefficientEvaluator } from '../dist/verify/coefficients.js';
 import { referenceRoot } from '../dist/verify/reference.js';
 
 function exactRoot(family, evalCoeffs, p, near) {
   const c = evalCoeffs([Rational.fromNumber(p)]);
-  const [lo, hi] = family.bracket ?? [String(near - 1), String(near + 1)];
-  const r = referenceRoot(c, Rational.parseDecimal(lo), Rational.parseDecimal(hi), Rational.of(1n, 1n << 80n));
+  const [lo, hi] = family.bracket ? [family.bracket[0].value, family.bracket[1].value] : [Rational.fromNumber(near - 1), Rational.fromNumber(near + 1)];
+  const r = referenceRoot(c, lo, hi, Rational.of(1n, 1n << 80n));
   if (r === 'no-sign-change') throw new Error(`no sign change at ${p}`);
   return r.lo.add(r.hi).mul(Rational.of(1n, 2n)).toNumber();
 }
@@ -49,8 +49,8 @@ for (const f of readdirSync('examples').filter((x) => x.endsWith('.yaml')).sort(
   if (family.inputs.length !== 1) continue;
   const plan = makePlan(family);
   const plain = plan.candidates.find((c) => c.form === 'series' && c.counts.every((k) => k === 1));
-  const a = Number(family.inputs[0].lo);
-  const b = Number(family.inputs[0].hi);
+  const a = family.inputs[0].lo.toNumber();
+  const b = family.inputs[0].hi.toNumber();
   const evalCoeffs = coefficientEvaluator(family);
   const root = (p) => exactRoot(family, evalCoeffs, p, 0);
   const grid = Array.from({ length: 2001 }, (_, i) => a + ((b - a) * i) / 2000);

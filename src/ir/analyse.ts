@@ -47,9 +47,11 @@ const INF = Infinity;
  * DESIGN.md 1.10), by node index. Any enclosure of an exact value is as
  * rigorous as the interval one, so the analysis intersects the two and
  * carries the tighter magnitude into the rounding bound. A hook that is
- * missing (a copied program) only makes the bound looser.
+ * missing (a copied program) only makes the bound looser. The hook gives a
+ * sparse array by node index (a lookup per node per cell: an array is faster
+ * than a Map there).
  */
-export type EnclosureHook = (cell: readonly Interval[], segment: number) => ReadonlyMap<number, Interval> | null;
+export type EnclosureHook = (cell: readonly Interval[], segment: number) => readonly (Interval | undefined)[] | null;
 const hooks = new WeakMap<Program, EnclosureHook>();
 export function attachEnclosures(program: Program, hook: EnclosureHook): Program {
   hooks.set(program, hook);
@@ -111,7 +113,7 @@ export function analyse(
         const a = values[n.a]!;
         const b = values[n.b]!;
         v = n.kind === 'add' ? iadd(a, b) : isub(a, b);
-        if (known) v = narrow(v, known.get(i));
+        if (known) v = narrow(v, known[i]);
         const ee = addUp(errors[n.a]!, errors[n.b]!);
         e = addUp(addUp(ee, mulUp(u, addUp(mag(v), ee))), eta);
         break;
@@ -141,7 +143,7 @@ export function analyse(
           break;
         }
         v = idiv(a, b);
-        if (known) v = narrow(v, known.get(i));
+        if (known) v = narrow(v, known[i]);
         const q = mag(v);
         const prop = divUp(addUp(ea, mulUp(q, eb)), room);
         e = addUp(addUp(prop, mulUp(u, addUp(q, prop))), eta);
@@ -163,7 +165,7 @@ export function analyse(
       default:
         throw new UnknownNodeError(n);
     }
-    if (known) v = narrow(v, known.get(i));
+    if (known) v = narrow(v, known[i]);
     if (!isFinite(v.lo) || !isFinite(v.hi)) {
       v = WHOLE;
       e = INF;

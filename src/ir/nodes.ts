@@ -100,7 +100,6 @@ export function partRows(p: IndexPart): number {
  * masks made from the comparisons (no conditional branch: see src/emit/c/body.ts),
  * GLSL with mix(x, y, bool), TypeScript with the conditional operator.
  */
-export type NodeKind = Node['kind'];
 
 export interface Program {
   readonly arithmetic: Arithmetic;

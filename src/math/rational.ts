@@ -3,7 +3,11 @@
  * denominator. Used wherever a value must be exact: constant folding of spec
  * expressions, the binary value of a float, the bisection reference.
  */
-// A float's two 32-bit words, read without allocating (fromNumber; nextUp has its own pair).
+import { nextDown, nextUp } from './next-float.js';
+
+export { nextDown, nextUp };
+
+// A float's two 32-bit words, read without allocating (fromNumber; next-float.ts has its own pair).
 const SCRATCH_F64 = new Float64Array(1);
 const SCRATCH_U32 = new Uint32Array(SCRATCH_F64.buffer);
 const LITTLE = new Uint8Array(new Uint16Array([1]).buffer)[0] === 1;
@@ -215,7 +219,22 @@ export function gcd(a: bigint, b: bigint): bigint {
   if (a < b) [a, b] = [b, a];
   if (b === 0n) return a === 0n ? 1n : a;
   exactWork.steps += 1;
+  if (b === 1n) return 1n;
   if (a <= SMALL) return BigInt(smallGcd(Number(a), Number(b)));
+  // One multi-precision remainder brings a small b's gcd to doubles.
+  if (b <= SMALL) return BigInt(smallGcd(Number(b), Number(a % b)));
+  // gcd(a, b) = 2^min(i, j) gcd(a / 2^i, b / 2^j) for the powers of two 2^i, 2^j dividing a and b exactly:
+  // the planner's denominators are mostly 2^i 5^j (a float times a decimal), whose odd part is often small.
+  const lowB = b & -b;
+  if (lowB !== 1n) {
+    const oddB = b >> BigInt(bitLength(lowB) - 1);
+    if (oddB <= SMALL) {
+      const lowA = a & -a;
+      const oddA = a >> BigInt(bitLength(lowA) - 1);
+      const g = oddB === 1n ? 1 : smallGcd(Number(oddB), Number(oddA % oddB));
+      return (lowA < lowB ? lowA : lowB) * BigInt(g);
+    }
+  }
   return lehmerGcd(a, b);
 }
 
@@ -373,52 +392,4 @@ const rounded = { direction: 0 };
 const powersOfTwo: bigint[] = [];
 function powerOfTwo(k: number): bigint {
   return (powersOfTwo[k] ??= 1n << BigInt(k));
-}
-
-// Hot path: these run millions of times in the planner's interval loops. Globals
-// are bound once here (a global lookup is slow inside some hosts, such as
-// jest's vm contexts), and the step is done on the two 32-bit words of the
-// float, not through BigInt.
-const f64 = new Float64Array(1);
-const u32 = new Uint32Array(f64.buffer);
-const MIN_VALUE = Number.MIN_VALUE;
-const POS_INF = Infinity;
-
-/**
- * nextUp by arithmetic, for 2^-969 <= |x| < 2^1023: with |x| = m 2^e (1 <= m < 2),
- * ulp = 2^(e-52) and C = 2^-53 (1 + 2^-52), the product |x| C rounds to a value in
- * (ulp/2, (1 + 2^-53) ulp] (it is normal there), so x + |x| C rounds to nearest at
- * the next double above x: x + ulp for x > 0; for x < 0 the spacing below |x| is
- * ulp, or ulp/2 when m = 1, and |x| C exceeds that spacing by at most a 2^-52 part,
- * so the sum again rounds to the neighbour toward zero. No memory traffic, which
- * the word stepping below needs (it was the hottest function of the planner).
- */
-const STEP = 2 ** -53 + 2 ** -105;
-const STEP_LOW = 2 ** -969;
-const STEP_HIGH = 2 ** 1023;
-
-/** The next float64 above x (x finite; NaN and +Infinity are returned as they are). */
-export function nextUp(x: number): number {
-  const a = x < 0 ? -x : x;
-  if (a >= STEP_LOW && a < STEP_HIGH) return x + a * STEP;
-  if (x !== x || x === POS_INF) return x;
-  if (x === 0) return MIN_VALUE;
-  f64[0] = x;
-  if (x > 0) {
-    // magnitude + 1 ulp
-    const lo = (u32[LO]! + 1) >>> 0;
-    u32[LO] = lo;
-    if (lo === 0) u32[HI] = (u32[HI]! + 1) >>> 0;
-  } else {
-    // magnitude - 1 ulp (toward zero)
-    const lo = u32[LO]!;
-    u32[LO] = (lo - 1) >>> 0;
-    if (lo === 0) u32[HI] = (u32[HI]! - 1) >>> 0;
-  }
-  return f64[0]!;
-}
-
-/** The next float64 below x (x finite). */
-export function nextDown(x: number): number {
-  return -nextUp(-x);
 }

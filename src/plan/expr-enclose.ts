@@ -69,7 +69,12 @@ export function decimalInterval(q: Rational): Interval {
   return v;
 }
 
-/** x^n, tight for even n (never negative), by repeated outward-rounded products of the ends. */
+/**
+ * x^n by repeated outward-rounded products of the ends; for even n the lower
+ * end is mig(x)^n rounded down, so it is tight, but not never negative: when x
+ * holds 0 the outward step below the exact 0 gives -2^-1074 (-5e-324), the
+ * least it can be.
+ */
 export function ipow(x: Interval, n: number): Interval {
   const chain = (v: number): Interval => {
     let acc = point(1);

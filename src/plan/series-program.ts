@@ -21,7 +21,7 @@ import type { Interval } from '../math/interval.js';
 import type { SeriesTerm } from '../series/hyper-catalan.js';
 import type { Family } from '../family/types.js';
 import { shiftedForms } from '../series/recenter.js';
-import { CoefficientRanges } from './tight-range.js';
+import { CoefficientRanges, type TightCell } from './tight-range.js';
 import { checkWork } from './work.js';
 import { equationOf } from './layout-memo.js';
 import { byGrade, sumsOnce } from './grade-sum-memo.js';
@@ -115,12 +115,18 @@ export function finishProgram(family: Family, e: Expansion, b: ProgramBuilder, p
   const marks = p.marks.map((m) => ({ ...m, at: map[m.ref] ?? -1 })).filter((m) => m.at >= 0);
   if (marks.length === 0) return program;
   const ranges = rangesFor(family, e);
+  // Kept per cell (every candidate program is analysed on the same cells).
+  const made = new WeakMap<TightCell, (Interval | undefined)[]>();
   return attachEnclosures(program, (cell, segment) => {
     const t = ranges.cell(cell, segment);
-    const out = new Map<number, Interval>();
-    for (const m of marks) {
-      const v = m.kind === 'ratio' ? t.ratio[m.j] : t.shifted[m.j];
-      if (v) out.set(m.at, v);
+    let out = made.get(t);
+    if (!out) {
+      out = [];
+      for (const m of marks) {
+        const v = m.kind === 'ratio' ? t.ratio[m.j] : t.shifted[m.j];
+        if (v) out[m.at] = v;
+      }
+      made.set(t, out);
     }
     return out;
   });

@@ -19,7 +19,7 @@ import { samplePoints } from './support/inputs.js';
 import { ALL_SAMPLES } from './support/programs.js';
 import { runC } from './support/run-c.js';
 import { runTs } from './support/run-ts.js';
-import { makeWorkDir } from './support/workdir.js';
+import { makeWorkDir } from '../support/workdir.js';
 
 const POINTS = 300;
 const dir = makeWorkDir('cross-target');

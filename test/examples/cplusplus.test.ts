@@ -22,7 +22,7 @@ import { loadSpec } from '../../src/reader/load.js';
 import { inputBox } from '../../src/verify/samples.js';
 import { cDriver } from '../emit/support/run-c.js';
 import { float32Hex as float32Bits, float64Hex as float64Bits } from '../support/bits.js';
-import { makeWorkDir } from '../emit/support/workdir.js';
+import { makeWorkDir } from '../support/workdir.js';
 import { atRepoRoot, exampleFiles, REPO_ROOT, sampleFolderOf, specPathOf } from './support/repo.js';
 
 const STRICT = ['-Wall', '-Wextra', '-pedantic', '-Werror'];

@@ -29,7 +29,7 @@ import { readSpec } from '../../src/reader/read.js';
 import { checkSamplePoints } from '../../src/verify/samples.js';
 import { emitExample, fileEndingWith, type EmittedExample } from './support/emit-example.js';
 import { compileCFunction } from './support/run-c.js';
-import { makeWorkDir } from './support/workdir.js';
+import { makeWorkDir } from '../support/workdir.js';
 
 const POINTS = 200;
 /** mathjs's own float64 error allowance (see the file comment). */

@@ -22,7 +22,7 @@ import { evaluate } from '../../src/ir/evaluate.js';
 import { emitExample, fileEndingWith, type EmittedExample } from './support/emit-example.js';
 import { compileCFunction } from './support/run-c.js';
 import { transpileTsFunction } from './support/run-ts.js';
-import { makeWorkDir } from './support/workdir.js';
+import { makeWorkDir } from '../support/workdir.js';
 
 const SPEC = 'examples/kiln-probe.yaml';
 /** The spec's accuracy: absolute, degC. */

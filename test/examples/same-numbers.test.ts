@@ -28,7 +28,7 @@ import { emitExample, fileEndingWith } from './support/emit-example.js';
 import { buildCHarness, buildTsHarness, type HarnessDump } from './support/harness-dump.js';
 import { exampleFiles, REPO_ROOT, specPathOf } from './support/repo.js';
 import { transpileTsFunction } from './support/run-ts.js';
-import { makeWorkDir, type WorkDir } from './support/workdir.js';
+import { makeWorkDir, type WorkDir } from '../support/workdir.js';
 
 const SAMPLES = 2000;
 const SEED = 1;

@@ -38,7 +38,7 @@ import { ARITHMETICS, nextDownIn, nextUpIn } from '../../src/family/arithmetic.j
 import { cortexM4fCycles, cortexM4fLine } from '../../src/ir/cost/cortex-m4f.js';
 import { compileAndCount, hasToolchain, probeName, probeSource, type BranchTarget } from '../../src/verify/branches.js';
 import { checkSamplePoints, inputBox } from '../../src/verify/samples.js';
-import { makeWorkDir } from '../emit/support/workdir.js';
+import { makeWorkDir } from '../support/workdir.js';
 import { fixedCostDriver, perCallCounts, totalCount } from './callgrind.js';
 import { m4fMix } from './m4f-mix.js';
 import { cExample, exampleSpecs } from './support.js';

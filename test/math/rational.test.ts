@@ -144,6 +144,24 @@ describe('gcd (Lehmer) against mathjs gcd', () => {
     );
   });
 
+  test('gcd with the planner\'s denominators (2^i 5^j, odd parts below and above 2^53) and small second operands agrees with mathjs', () => {
+    // Operands stay below 1800 bits, inside mathjs's 800 digits (2650 bits).
+    const twoFive = fc.tuple(fc.integer({ min: 0, max: 400 }), fc.integer({ min: 0, max: 30 })).map(([i, j]) => 2n ** BigInt(i) * 5n ** BigInt(j));
+    const small = fc.bigInt({ min: 1n, max: 2n ** 53n - 1n });
+    fc.assert(
+      fc.property(wide, twoFive, twoFive, small, (x, d, f, s) => {
+        // x times a factor of the denominator, so the gcd has powers of 2 and 5 in it.
+        const a = x * f + 1n;
+        for (const [p, q] of [[a * f, d], [a, s], [a * s, s * d]] as const) {
+          const expected = p === 0n && q === 0n ? 1n : reference(p, q);
+          expect(gcd(p, q)).toBe(expected);
+          expect(gcd(q, p)).toBe(expected);
+        }
+      }),
+      { numRuns: 100, seed: 20261202 },
+    );
+  });
+
   test('consecutive Fibonacci numbers (the longest quotient sequence, Knuth 4.5.3) are coprime; zero operands', () => {
     let [f0, f1] = [0n, 1n];
     for (let i = 0; i < 3000; i++) [f0, f1] = [f1, f0 + f1];

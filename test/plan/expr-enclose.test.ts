@@ -124,6 +124,14 @@ describe('ipow and decimalInterval', () => {
     expect(ipow({ lo: 5, hi: 7 }, 0)).toEqual({ lo: 1, hi: 1 });
   });
 
+  test('an even power of an interval holding 0 may end one subnormal below 0 (-2^-1074), never lower', () => {
+    for (const n of [2, 4, 6]) {
+      const r = ipow({ lo: -1, hi: 1 }, n);
+      expect(r.lo).toBeLessThanOrEqual(0);
+      expect(r.lo).toBeGreaterThanOrEqual(-(2 ** -1074));
+    }
+  });
+
   test('x^n of an inexact end is enclosed outward (decimal.js)', () => {
     fc.assert(
       fc.property(fc.double({ min: -10, max: 10, noNaN: true }), fc.double({ min: -10, max: 10, noNaN: true }), fc.integer({ min: 1, max: 9 }), (a, b, n) => {

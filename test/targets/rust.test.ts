@@ -23,7 +23,7 @@ import { ALL_SAMPLES } from '../emit/support/programs.js';
 import { emitExample } from '../examples/support/emit-example.js';
 import { exampleFiles, specPathOf } from '../examples/support/repo.js';
 import { compileCFunction } from '../examples/support/run-c.js';
-import { makeWorkDir } from '../examples/support/workdir.js';
+import { makeWorkDir } from '../support/workdir.js';
 import { segmentedProgram } from './support/segmented.js';
 
 const dir = makeWorkDir('rust');

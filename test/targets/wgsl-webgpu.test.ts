@@ -25,7 +25,7 @@ import { emitExample } from '../examples/support/emit-example.js';
 import { exampleFiles, specPathOf } from '../examples/support/repo.js';
 import { compileCFunction } from '../examples/support/run-c.js';
 import { transpileTsFunction } from '../examples/support/run-ts.js';
-import { makeWorkDir } from '../examples/support/workdir.js';
+import { makeWorkDir } from '../support/workdir.js';
 
 const dir = makeWorkDir('wgsl');
 afterAll(() => dir.remove());

@@ -19,7 +19,7 @@ import { hexOf } from '../support/bits.js';
 import { emitExample } from '../examples/support/emit-example.js';
 import { buildCHarness, buildTsHarness } from '../examples/support/harness-dump.js';
 import { exampleFiles, specPathOf } from '../examples/support/repo.js';
-import { makeWorkDir, type WorkDir } from '../examples/support/workdir.js';
+import { makeWorkDir, type WorkDir } from '../support/workdir.js';
 import { adjacent } from './support/adjacent.js';
 
 /** Few random points: the edge points come on top whatever the request, and they are what is tested here. */

@@ -6,7 +6,7 @@
  * src/verify that does not reach the harnesses fails here.
  */
 import { describe, expect, test } from '@jest/globals';
-import { readFileSync } from 'node:fs';
+import { readdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { REPO_ROOT } from '../examples/support/repo.js';
 
@@ -78,5 +78,22 @@ describe('the harness machinery generated from src/verify', () => {
     const template = readFileSync(join(REPO_ROOT, 'templates/ts/fixed-check.ts.hbs'), 'utf8');
     // No bisection, grid, xorshift or error rule of its own.
     expect(template).not.toMatch(/rc_bisectRoot|rc_midpoint|rc_referenceGridExponent|state << 13|rc_compareFractions/);
+  });
+
+  test('each emitted TypeScript harness declares an expression helper exactly when it calls it (generated-samples/)', () => {
+    const folders = readdirSync(join(REPO_ROOT, 'generated-samples'));
+    let checked = 0;
+    for (const folder of folders) {
+      for (const file of readdirSync(join(REPO_ROOT, 'generated-samples', folder)).filter((f) => f.endsWith('.check.ts'))) {
+        const text = readFileSync(join(REPO_ROOT, 'generated-samples', folder, file), 'utf8');
+        for (const helper of ['mulFractions', 'negFraction', 'powFraction']) {
+          const declared = text.includes(`function rc_${helper}(`);
+          const calls = text.split(`rc_${helper}(`).length - 1 - (declared ? 1 : 0);
+          expect({ file, helper, declared }).toEqual({ file, helper, declared: calls > 0 });
+        }
+        checked++;
+      }
+    }
+    expect(checked).toBeGreaterThanOrEqual(10);
   });
 });

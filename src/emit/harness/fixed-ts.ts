@@ -14,7 +14,7 @@ import { tsLiteral } from '../literals/ts.js';
 import { renderTemplate } from '../templates.js';
 import type { EmittedFile } from '../types.js';
 import { tsHarnessCompileCommand } from './ts.js';
-import { tsConstantName, tsRational, tsRationalExpr } from './ts-expr.js';
+import { MACHINERY_SLOT, tsConstantName, tsRational, tsRationalExpr, withMachinery } from './ts-expr.js';
 import { usedConstantsOf } from './used-constants.js';
 
 export function tsFixedHarness(input: FixedEmitInput): EmittedFile {
@@ -25,7 +25,7 @@ export function tsFixedHarness(input: FixedEmitInput): EmittedFile {
     commentLines: cCommentLines(fixedHeaderLines(input, 'TypeScript verification harness (exact BigInt bisection reference)')),
     compileCommand: `${tsHarnessCompileCommand(name)}   (in a folder whose package.json says "type": "module")`,
     name,
-    machinery: renderTemplate('ts/fixed-check-machinery.ts.hbs', {}),
+    machinery: MACHINERY_SLOT,
     inputName: family.inputs[0]!.name,
     inputBits: String(family.fixed!.inputs[0]),
     resultBits: String(family.fixed!.result),
@@ -44,5 +44,5 @@ export function tsFixedHarness(input: FixedEmitInput): EmittedFile {
       return e ? tsRationalExpr(e) : 'rc_fraction(0n, 1n)';
     }).join(', '),
   });
-  return { path: `${name}.check.ts`, text };
+  return { path: `${name}.check.ts`, text: withMachinery(text, MACHINERY_SLOT, 'ts/fixed-check-machinery.ts.hbs') };
 }

@@ -14,7 +14,7 @@ import { tsLiteral } from '../literals/ts.js';
 import { renderTemplate } from '../templates.js';
 import type { EmitInput, EmittedFile } from '../types.js';
 import { harnessParts } from './family-parts.js';
-import { tsConstantName, tsRational, tsRationalExpr } from './ts-expr.js';
+import { MACHINERY_SLOT, tsConstantName, tsRational, tsRationalExpr, withMachinery } from './ts-expr.js';
 import { ARITHMETICS } from '../../family/arithmetic.js';
 import type { Expr, Family } from '../../family/types.js';
 
@@ -43,14 +43,14 @@ export function tsHarness(input: EmitInput): EmittedFile {
     absoluteBound: double(claims.absoluteBound),
     relative: claims.bound.kind === 'relative' ? 'true' : 'false',
     float32: ARITHMETICS[family.arithmetic].tsRound ? 'true' : 'false',
-    machinery: renderTemplate('ts/check-machinery.ts.hbs', {}),
+    machinery: MACHINERY_SLOT,
     constantLines: parts.usedConstants.map((c) => `const ${tsConstantName(c)}: rc_Fraction = ${tsRational(family.constants[c]!.value)};`),
     ...measureRuleParts(family, tsRationalExpr),
     callArguments: parts.inputNames.map((_, j) => `x[${j}]!`).join(', '),
     arithmetic: family.arithmetic,
     kind: claims.bound.kind,
   });
-  return { path: `${name}.check.ts`, text };
+  return { path: `${name}.check.ts`, text: withMachinery(text, MACHINERY_SLOT, 'ts/check-machinery.ts.hbs') };
 }
 
 /**

@@ -5,7 +5,8 @@
  * summary"; single-cycle multiplier): a 32 x 32 -> 64 product built from four
  * MULS and its adds is about 20 cycles, the rounding shift about 8, an add 1,
  * a table read (LDR) 2, and the segment number (subtract, shift, clamp) about 6.
- * The header's figure is counted from the compiled code instead (src/verify/fixed-cost.ts).
+ * The header prints another figure, instructions counted per operation from
+ * the program (src/emit/m0-cost.ts): the two models are not one yet.
  */
 import type { FixedCounts } from '../../ir/fixed/nodes.js';
 

@@ -21,7 +21,7 @@ import type { Family } from '../../family/types.js';
 import { boxOf, grid } from '../box.js';
 import { addGrade, cellTail } from '../cell-bound.js';
 import { CellSet } from '../cell-set.js';
-import { LIMITS } from '../tuning.js';
+import { FIXED_PLAN, LIMITS } from '../tuning.js';
 import { locate } from '../locate.js';
 import { refuseBadCells } from '../refusals.js';
 import { chooseRoot, rootAt, type RootChoice } from '../root-choice.js';
@@ -70,9 +70,6 @@ export interface FixedPlan {
 /** A refusal that no other segment count can lift (the shape of the family, the result format, the rounding floor). */
 class FinalRefusal extends RootcastError {}
 
-const AUTO_SEGMENTS = [1, 2, 4, 8, 16, 32, 64];
-const EXTRA_ORDERS = 3;
-const BUDGET_SHARES = [0.6, 0.4, 0.2, 0.1, 0];
 
 export function makeFixedPlan(family: Family): FixedPlan {
   const fixed = family.fixed;
@@ -102,7 +99,7 @@ export function makeFixedPlan(family: Family): FixedPlan {
   const raw = rawBox(input.lo.value, input.hi.value, bits);
   // The planning family: the raw box's exact real ends, float64 for the float stages.
   const fam: Family = { ...family, inputs: [{ name: input.name, lo: rawNumber(raw.lo, bits), hi: rawNumber(raw.hi, bits) }] };
-  const counts = knob !== 'auto' ? [knob] : family.bracket ? AUTO_SEGMENTS : [1];
+  const counts: readonly number[] = knob !== 'auto' ? [knob] : family.bracket ? FIXED_PLAN.autoSegments : [1];
   let best: FixedPlan | null = null;
   let firstError: RootcastError | null = null;
   let stale = 0;
@@ -112,12 +109,12 @@ export function makeFixedPlan(family: Family): FixedPlan {
       if (!best || p.cost < best.cost) {
         best = p;
         stale = 0;
-      } else if (++stale >= 2) break;
+      } else if (++stale >= FIXED_PLAN.staleCounts) break;
     } catch (e) {
       if (!(e instanceof RootcastError)) throw e;
       if (e instanceof FinalRefusal) throw e;
       firstError ??= e;
-      if (best && ++stale >= 2) break;
+      if (best && ++stale >= FIXED_PLAN.staleCounts) break;
     }
   }
   if (!best) throw firstError!;
@@ -145,7 +142,7 @@ function planWith(family: Family, fam: Family, raw: { lo: bigint; hi: bigint }, 
     }
     throw e;
   }
-  const perSegment = Math.max(2, Math.floor(64 / S));
+  const perSegment = Math.max(FIXED_PLAN.minCellsPerSegment, Math.floor(FIXED_PLAN.initialCells / S));
   const initial = layout.segments.flatMap((g, segment) => grid(g.cell, perSegment).map((cell) => ({ cell, segment })));
   const set = new CellSet(ap, fam.degree, box, x0.map((v) => v.toNumber()), initial);
   set.repairBadCells(LIMITS.cells, false, true);
@@ -175,12 +172,12 @@ function planWith(family: Family, fam: Family, raw: { lo: bigint; hi: bigint }, 
   for (let order = 0; order <= family.plan.maxOrder && !found; order++) {
     if (!termsUpTo(order)) break;
     let trunc = set.truncation(order, false);
-    if (trunc > target / 4 && trunc < target * 1e3) {
+    if (trunc > target * FIXED_PLAN.refineAbove && trunc < target * FIXED_PLAN.refineBelow) {
       set.refineWorst(order, false, LIMITS.cells);
       trunc = set.truncation(order, false);
     }
-    if (trunc > target / 2) continue;
-    for (let n = order; n <= order + EXTRA_ORDERS; n++) {
+    if (trunc > target * FIXED_PLAN.truncationShare) continue;
+    for (let n = order; n <= order + FIXED_PLAN.extraOrders; n++) {
       const terms = termsUpTo(n);
       if (!terms) break;
       const collapsed = collapsedSeries(fam, expansion, terms);
@@ -194,7 +191,7 @@ function planWith(family: Family, fam: Family, raw: { lo: bigint; hi: bigint }, 
       const tails = set.cells.map((c) => cellTail(c, n));
       const room = target - Math.max(...tails);
       const tried = new Set<number>();
-      for (const share of BUDGET_SHARES) {
+      for (const share of FIXED_PLAN.budgetShares) {
         const degree = degreeFor(cheb, room * share);
         if (tried.has(degree)) continue;
         tried.add(degree);
@@ -250,7 +247,7 @@ function planWith(family: Family, fam: Family, raw: { lo: bigint; hi: bigint }, 
     }
   }
   if (!found) {
-    if (floor > target / 2 && Number.isFinite(floor)) {
+    if (floor > target * FIXED_PLAN.truncationShare && Number.isFinite(floor)) {
       throw new FinalRefusal(
         `the target ${family.accuracy.value} is below the fixed32 rounding floor of this plan (rounding alone ${floor.toExponential(2)}; the result's last bit is 2^-${resultPoint}); add fraction bits to fixed.result or loosen the accuracy`,
         locate(family, 'accuracy.absolute'),

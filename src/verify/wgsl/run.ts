@@ -8,10 +8,10 @@
  * the in-process evaluation: equal bits carry its checked error and the
  * certified bound over to the WGSL code as SwiftShader runs it.
  *
- * The browser runs in a child node process (as for GLSL, glsl/run-page.ts),
- * so `rootcast verify` stays synchronous.
+ * The page is loaded by runPagesInChromium (glsl/browser.ts, the runner the
+ * GLSL page shares): a child node process, so `rootcast verify` stays
+ * synchronous.
  */
-import { spawnSync } from 'node:child_process';
 import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -20,7 +20,7 @@ import type { EmittedFile } from '../../emit/types.js';
 import { renderTemplate } from '../../emit/templates.js';
 import type { Program } from '../../ir/nodes.js';
 import { bitsOf } from '../bits.js';
-import { CHROMIUM_ARGS, chromiumPath, playwrightModuleUrl } from '../glsl/browser.js';
+import { CHROMIUM_ARGS, chromiumPath, runPagesInChromium } from '../glsl/browser.js';
 
 /** WebGPU on SwiftShader: the WebGL2 flags plus these three (TOOLCHAIN.md). */
 export const WEBGPU_ARGS: readonly string[] = [...CHROMIUM_ARGS, '--enable-unsafe-webgpu', '--use-webgpu-adapter=swiftshader', '--enable-features=Vulkan'];
@@ -34,40 +34,6 @@ export interface WgslRun {
   /** What went wrong outside the shader (the browser, the page), empty on success. */
   readonly problem: string;
 }
-
-/**
- * The child's program: launch once, then load each page in turn in a new
- * tab and collect what it returned; print one JSON array. A page that fails
- * gets its first error line as `problem`, and the next page still runs.
- */
-const CHILD = `
-const job = JSON.parse(process.env.ROOTCAST_WGSL_JOB);
-const pw = await import(job.playwright);
-const chromium = pw.chromium ?? pw.default.chromium;
-const firstLine = (e) => String(e && e.message ? e.message : e).split('\\n')[0];
-const results = [];
-let context = null;
-try {
-  context = await chromium.launchPersistentContext(job.profile, { executablePath: job.chromium, headless: true, args: job.args });
-  for (const p of job.pages) {
-    const page = await context.newPage();
-    try {
-      await page.goto(p.url);
-      await page.waitForFunction(() => window.rootcastDone !== undefined, null, { timeout: p.timeoutMs, polling: 100 });
-      results.push({ done: await page.evaluate(() => window.rootcastDone), problem: '' });
-    } catch (e) {
-      results.push({ done: null, problem: firstLine(e) });
-    } finally {
-      await page.close();
-    }
-  }
-} catch (e) {
-  while (results.length < job.pages.length) results.push({ done: null, problem: firstLine(e) });
-} finally {
-  if (context) await context.close();
-}
-process.stdout.write(JSON.stringify(results));
-`;
 
 export interface WgslRunOptions {
   readonly chromium?: string;
@@ -91,7 +57,6 @@ export function runWgslBits(file: EmittedFile, program: Program, name: string, r
 export function runWgslMany(jobs: readonly WgslJob[], o: WgslRunOptions = {}): WgslRun[] {
   if (jobs.length === 0) return [];
   const chromium = chromiumPath(o.chromium);
-  const playwright = playwrightModuleUrl();
   const dir = mkdtempSync(join(tmpdir(), 'rootcast-wgsl-'));
   try {
     const profile = join(dir, 'profile');
@@ -116,26 +81,13 @@ export function runWgslMany(jobs: readonly WgslJob[], o: WgslRunOptions = {}): W
       writeFileSync(pagePath, page);
       return { url: pathToFileURL(pagePath).href, timeoutMs: o.timeoutMs ?? 60_000 + 5 * padded.length };
     });
-    const childJob = { playwright, chromium, profile, args: WEBGPU_ARGS, pages };
-    const env: NodeJS.ProcessEnv = { ...process.env, ROOTCAST_WGSL_JOB: JSON.stringify(childJob) };
-    delete env['NODE_OPTIONS'];
-    const run = spawnSync(process.execPath, ['--input-type=module', '-e', CHILD], { env, encoding: 'utf8', maxBuffer: 1 << 30 });
-    type PageResult = { done: { messages: string[]; bits: string[]; vectorBits: string[] } | null; problem: string };
-    let results: PageResult[] | null = null;
-    try {
-      results = JSON.parse(run.stdout ?? '') as PageResult[];
-    } catch {
-      results = null;
-    }
-    if (results === null || results.length !== jobs.length) {
-      const problem = (run.stderr ?? '').trim() || `exit ${run.status}`;
-      return jobs.map(() => ({ messages: [], bits: [], vectorBits: [], problem }));
-    }
-    return results.map((r, n) =>
-      r.done === null
-        ? { messages: [], bits: [], vectorBits: [], problem: r.problem }
-        : { messages: r.done.messages, bits: r.done.bits.slice(0, jobs[n]!.rows.length), vectorBits: r.done.vectorBits.slice(0, jobs[n]!.rows.length), problem: '' },
-    );
+    type Done = { messages: string[]; bits: string[]; vectorBits: string[] };
+    return runPagesInChromium(pages, chromium, WEBGPU_ARGS, profile).map((r, n) => {
+      if (r.done === null) return { messages: [], bits: [], vectorBits: [], problem: r.problem };
+      const done = r.done as Done;
+      const rows = jobs[n]!.rows.length;
+      return { messages: done.messages, bits: done.bits.slice(0, rows), vectorBits: done.vectorBits.slice(0, rows), problem: '' };
+    });
   } finally {
     rmSync(dir, { recursive: true, force: true });
   }

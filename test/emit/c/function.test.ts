@@ -12,7 +12,7 @@ import type { Arithmetic } from '../../../src/family/arithmetic.js';
 import { demoInput } from '../support/family.js';
 import { ALL_SAMPLES, constantResult, identity, quadraticSeries, sqrtTaylor, unusedArgument } from '../support/programs.js';
 import { gcc } from '../support/run-c.js';
-import { makeWorkDir } from '../support/workdir.js';
+import { makeWorkDir } from '../../support/workdir.js';
 
 const ARITHMETICS: Arithmetic[] = ['float32', 'float64'];
 const dir = makeWorkDir('c-function');

@@ -5,7 +5,7 @@
  */
 import { describe, expect, test } from '@jest/globals';
 import { applicableTargets, emitFiles, TARGETS } from '../../../src/cli/emit-files.js';
-import { emitInputOf, planSpec } from '../../../src/cli/pipeline.js';
+import { emitInputOf } from '../../../src/cli/pipeline.js';
 import { RootcastError } from '../../../src/errors.js';
 import { glslFunction } from '../../../src/emit/glsl/function.js';
 import { glslBodyLines, glslTableDefinitions } from '../../../src/emit/glsl/body.js';
@@ -16,6 +16,7 @@ import { demoInput } from '../support/family.js';
 import { ALL_SAMPLES, constantResult, quadraticSeries, sqrtTaylor } from '../support/programs.js';
 import { segmentedProgram } from '../../glsl/support/segmented.js';
 import { REPO_ROOT } from '../../glsl/support/examples.js';
+import { cachedPlanSpec } from '../../support/plan-cache.js';
 
 const computed = (p: Program): number => p.nodes.filter((n) => n.kind !== 'const' && n.kind !== 'input').length;
 
@@ -124,7 +125,7 @@ describe('the glsl target in emitFiles', () => {
   test('`all` is c, ts, glsl, wgsl, hlsl and rust; a float32 spec gets NAME.glsl and NAME.glsl-check.html after C and TypeScript', () => {
     process.chdir(REPO_ROOT);
     expect(TARGETS).toEqual(['c', 'ts', 'glsl', 'wgsl', 'hlsl', 'rust']);
-    const files = emitFiles(emitInputOf(planSpec('examples/kiln-probe.yaml')), TARGETS).map((f) => f.path);
+    const files = emitFiles(emitInputOf(cachedPlanSpec('examples/kiln-probe.yaml')), TARGETS).map((f) => f.path);
     expect(files).toEqual([
       'kiln_probe_celsius.h',
       'kiln_probe_celsius_check.c',
@@ -140,7 +141,7 @@ describe('the glsl target in emitFiles', () => {
 
   test('a float64 spec: `all` leaves the shading languages out, each alone is refused', () => {
     process.chdir(REPO_ROOT);
-    const input = emitInputOf(planSpec('examples/gas-molar-volume.yaml'));
+    const input = emitInputOf(cachedPlanSpec('examples/gas-molar-volume.yaml'));
     expect(applicableTargets(input, TARGETS)).toEqual(['c', 'ts', 'rust']);
     expect(emitFiles(input, TARGETS).some((f) => /\.(glsl|wgsl|hlsl)/.test(f.path))).toBe(false);
     expect(() => emitFiles(input, ['wgsl'])).toThrow(/^WGSL has no 64-bit float type \(f16 and f32 only\): set arithmetic: float32 to emit WGSL$/);

@@ -13,7 +13,7 @@ import { Rational } from '../../../src/math/rational.js';
 import type { Arithmetic } from '../../../src/family/arithmetic.js';
 import { float32Hex, float64Hex } from '../../support/bits.js';
 import { gcc } from '../support/run-c.js';
-import { makeWorkDir } from '../support/workdir.js';
+import { makeWorkDir } from '../../support/workdir.js';
 
 /** A C99 decimal floating constant (6.4.4.2) with a `.` or an exponent. */
 const C_FLOAT32 = /^-?(\d+\.\d+(e[+-]\d+)?|\d+e[+-]\d+)f$/;

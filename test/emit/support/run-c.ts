@@ -8,7 +8,7 @@ import { join } from 'node:path';
 import type { Program } from '../../../src/ir/nodes.js';
 import { ARITHMETICS } from '../../../src/family/arithmetic.js';
 import type { EmittedFile } from '../../../src/emit/types.js';
-import type { WorkDir } from './workdir.js';
+import type { WorkDir } from '../../support/workdir.js';
 import { float32Hex, float64Hex } from '../../support/bits.js';
 
 export const C_FLAGS = ['-std=c99', '-O2', '-Wall', '-Wextra', '-pedantic', '-Werror'];

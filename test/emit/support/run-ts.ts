@@ -8,7 +8,7 @@ import { execFileSync } from 'node:child_process';
 import { transpileTs, typeCheckTs } from '../../../src/emit/ts/typecheck.js';
 import type { EmittedFile } from '../../../src/emit/types.js';
 import { float64Hex } from '../../support/bits.js';
-import type { WorkDir } from './workdir.js';
+import type { WorkDir } from '../../support/workdir.js';
 
 const RUNNER = (module: string, name: string): string => `import { readFileSync } from 'node:fs';
 import { ${name} } from './${module}';

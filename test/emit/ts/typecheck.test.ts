@@ -6,7 +6,7 @@
 import { afterAll, describe, expect, test } from '@jest/globals';
 import { execFileSync } from 'node:child_process';
 import { transpileTs, typeCheckTs } from '../../../src/emit/ts/typecheck.js';
-import { makeWorkDir } from '../support/workdir.js';
+import { makeWorkDir } from '../../support/workdir.js';
 
 const dir = makeWorkDir('typecheck');
 afterAll(() => dir.remove());

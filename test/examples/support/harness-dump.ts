@@ -9,7 +9,7 @@ import type { EmittedFile } from '../../../src/emit/types.js';
 import { fileEndingWith } from './emit-example.js';
 import { gcc } from './run-c.js';
 import { writeTranspiled } from './run-ts.js';
-import type { WorkDir } from './workdir.js';
+import type { WorkDir } from '../../support/workdir.js';
 
 export interface DumpRow {
   /** Hex words of the inputs, then the result (8 digits each for float32, 16 for float64). */

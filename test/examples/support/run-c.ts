@@ -10,7 +10,7 @@ import { join } from 'node:path';
 import type { EmittedFile } from '../../../src/emit/types.js';
 import type { Arithmetic } from '../../../src/family/arithmetic.js';
 import { fromHex, hexOf } from '../../support/bits.js';
-import type { WorkDir } from './workdir.js';
+import type { WorkDir } from '../../support/workdir.js';
 
 export const C_FLAGS = ['-std=c99', '-O2', '-Wall', '-Wextra', '-pedantic', '-Werror'] as const;
 

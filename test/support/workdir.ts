@@ -1,4 +1,4 @@
-/** A temporary directory for compiled artefacts, one per test file, removed in afterAll. */
+/** A temporary directory for compiled artefacts, one per test file, removed in afterAll (shared by the emit, examples, targets, fixed-cost and verify tests). */
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -11,7 +11,7 @@ export interface WorkDir {
 }
 
 export function makeWorkDir(prefix: string): WorkDir {
-  const path = mkdtempSync(join(tmpdir(), `rootcast-examples-${prefix}-`));
+  const path = mkdtempSync(join(tmpdir(), `rootcast-${prefix}-`));
   return {
     path,
     write(name, text) {

@@ -1,0 +1,55 @@
+/**
+ * The neighbours of a float64: nextUp and nextDown, the steps of directed
+ * rounding (src/math/directed.ts) and of every outward-rounded interval.
+ */
+const LITTLE = new Uint8Array(new Uint16Array([1]).buffer)[0] === 1;
+const LO = LITTLE ? 0 : 1;
+const HI = LITTLE ? 1 : 0;
+
+// Hot path: these run millions of times in the planner's interval loops. Globals
+// are bound once here (a global lookup is slow inside some hosts, such as
+// jest's vm contexts), and the step is done on the two 32-bit words of the
+// float, not through BigInt.
+const f64 = new Float64Array(1);
+const u32 = new Uint32Array(f64.buffer);
+const MIN_VALUE = Number.MIN_VALUE;
+const POS_INF = Infinity;
+
+/**
+ * nextUp by arithmetic, for 2^-969 <= |x| < 2^1023: with |x| = m 2^e (1 <= m < 2),
+ * ulp = 2^(e-52) and C = 2^-53 (1 + 2^-52), the product |x| C rounds to a value in
+ * (ulp/2, (1 + 2^-53) ulp] (it is normal there), so x + |x| C rounds to nearest at
+ * the next double above x: x + ulp for x > 0; for x < 0 the spacing below |x| is
+ * ulp, or ulp/2 when m = 1, and |x| C exceeds that spacing by at most a 2^-52 part,
+ * so the sum again rounds to the neighbour toward zero. No memory traffic, which
+ * the word stepping below needs (it was the hottest function of the planner).
+ */
+const STEP = 2 ** -53 + 2 ** -105;
+const STEP_LOW = 2 ** -969;
+const STEP_HIGH = 2 ** 1023;
+
+/** The next float64 above x (x finite; NaN and +Infinity are returned as they are). */
+export function nextUp(x: number): number {
+  const a = x < 0 ? -x : x;
+  if (a >= STEP_LOW && a < STEP_HIGH) return x + a * STEP;
+  if (x !== x || x === POS_INF) return x;
+  if (x === 0) return MIN_VALUE;
+  f64[0] = x;
+  if (x > 0) {
+    // magnitude + 1 ulp
+    const lo = (u32[LO]! + 1) >>> 0;
+    u32[LO] = lo;
+    if (lo === 0) u32[HI] = (u32[HI]! + 1) >>> 0;
+  } else {
+    // magnitude - 1 ulp (toward zero)
+    const lo = u32[LO]!;
+    u32[LO] = (lo - 1) >>> 0;
+    if (lo === 0) u32[HI] = (u32[HI]! - 1) >>> 0;
+  }
+  return f64[0]!;
+}
+
+/** The next float64 below x (x finite). */
+export function nextDown(x: number): number {
+  return -nextUp(-x);
+}
