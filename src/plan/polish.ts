@@ -32,6 +32,7 @@ import { cellTail, type CellFacts } from './cell-bound.js';
 import { WorstParts } from './worst-parts.js';
 import { finishProgram, prefixBuilder, seriesCore, type Expansion, type Prefix } from './series-program.js';
 import { OVERFLOW_HEADROOM } from './tuning.js';
+import { spend } from './work.js';
 
 /** A signed term of a Horner sum: sign * value of ref. */
 interface Signed {
@@ -175,6 +176,8 @@ export function polishBound(
   programs: { readonly core: Program; readonly steps: readonly Program[] } | null,
 ): PolishBound {
   const worst = new WorstParts(relative);
+  // Counted as evaluate counts a program's analysis: nodes times cells (the Newton-only pass, one unit per step and cell).
+  spend(cells.length * (programs ? programs.core.nodes.length + programs.steps.reduce((s, p) => s + p.nodes.length, 0) : steps + 1));
   for (const c of cells) {
     if (c.state.kind !== 'ok') throw new PolishFailure('diverges', c);
     // float32 bounds allow for flushed subnormals, as the series bounds do (one bound for CPUs and GPUs).
