@@ -24,7 +24,7 @@ import { shiftedForms } from '../series/recenter.js';
 import { CoefficientRanges, type TightCell } from './tight-range.js';
 import { checkWork } from './work.js';
 import { equationOf } from './layout-memo.js';
-import { gradeSums } from '../series/grade-sums.js';
+import { byGrade, sumsOnce } from './grade-sum-memo.js';
 import { addForms, constantForm, formOf, isConstant, isZero, materialise, powerOf, scaleForm, uniform, type LinearForm } from './linear-form.js';
 
 export interface SeriesSetup {
@@ -229,7 +229,7 @@ export interface SeriesCore extends Base {
 export function seriesCore(family: Family, e: Expansion, terms: readonly SeriesTerm[]): SeriesCore {
   const { b, setup: s, prefix: p } = prefixBuilder(family, e);
   const qConst = [...p.q.values()].every((ref) => b.segValues(ref) !== null);
-  const a = qConst ? hornerInR(b, p, terms, s.active) : nestedHorner(b, p, terms, s.active);
+  const a = qConst ? hornerInR(b, p, terms, s.active, perExpansion(hornerSums, family, e, () => new Map())) : nestedHorner(b, p, terms, s.active);
   return { b, setup: s, prefix: p, v: b.mul(p.r, a) };
 }
 
@@ -244,13 +244,18 @@ function gcd(a: number, b: number): number {
   return b === 0 ? a : gcd(b, a % b);
 }
 
-function hornerInR(b: ProgramBuilder, p: Prefix, terms: readonly SeriesTerm[], active: readonly number[]): Ref {
+/** The grade sums already made, per expansion and equation (plan/grade-sum-memo.ts): one table for each of the two callers. */
+const hornerSums = new WeakMap<Expansion, WeakMap<object, Map<string, Rational>>>();
+const collapsedSums = new WeakMap<Expansion, WeakMap<object, Map<string, Rational>>>();
+
+function hornerInR(b: ProgramBuilder, p: Prefix, terms: readonly SeriesTerm[], active: readonly number[], table: Map<string, Rational>): Ref {
   const S = b.segments;
   const D = new Map<number, Rational[]>();
+  const grades = byGrade(terms);
   for (let seg = 0; seg < S; seg++) {
     // The exact sums are the costly part (src/plan/work.ts): checkWork stops them at the limit.
     checkWork();
-    const sums = gradeSums(terms, active, (k) => b.segValues(p.q.get(k)!)![seg]!, checkWork);
+    const sums = sumsOnce(table, seg, grades, active, (k) => b.segValues(p.q.get(k)!)![seg]!, checkWork);
     for (const [grade, v] of sums) {
       if (!D.has(grade)) D.set(grade, new Array<Rational>(S).fill(Rational.ZERO));
       D.get(grade)![seg] = v;
@@ -323,10 +328,12 @@ export function collapsedSeries(family: Family, e: Expansion, terms: readonly Se
   }
   const S = b.segments;
   const inR: Rational[][] = [];
+  const table = perExpansion(collapsedSums, family, e, () => new Map<string, Rational>());
+  const grades = byGrade(terms);
   for (let seg = 0; seg < S; seg++) {
     const m: Rational[] = [e.x0[seg]!];
     checkWork();
-    for (const [grade, v] of gradeSums(terms, s.active, (k) => q.get(k)![seg]!, checkWork)) {
+    for (const [grade, v] of sumsOnce(table, seg, grades, s.active, (k) => q.get(k)![seg]!, checkWork)) {
       while (m.length <= grade + 1) m.push(Rational.ZERO);
       m[grade + 1] = v.neg();
     }
