@@ -55,10 +55,10 @@ export function ensureBuilt(): void {
   if (!existsSync(CLI)) throw new Error(`${CLI} is missing and the build by another worker did not produce it`);
 }
 
-/** Runs `node dist/cli.js ...args` in `cwd` (the repo root unless given). */
-export function runCli(args: readonly string[], cwd: string = REPO): Promise<CliRun> {
+/** Runs `node dist/cli.js ...args` in `cwd` (the repo root unless given), with `extraEnv` added to the environment. */
+export function runCli(args: readonly string[], cwd: string = REPO, extraEnv: Record<string, string> = {}): Promise<CliRun> {
   return new Promise((done) => {
-    const env = { ...process.env };
+    const env: Record<string, string | undefined> = { ...process.env, ...extraEnv };
     delete env['ROOTCAST_DEBUG'];
     delete env['NODE_OPTIONS']; // jest's --experimental-vm-modules is not the user's environment
     execFile(process.execPath, [CLI, ...args], { cwd, env, encoding: 'utf8', maxBuffer: 1 << 26 }, (err, stdout, stderr) => {
