@@ -350,7 +350,11 @@ function bitLength(n: bigint): number {
  * +-Infinity only beyond the format's range, which callers check.
  */
 function roundToBinary(r: Rational, precision: number, minExp: number): number {
-  if (r.num === 0n) return 0;
+  if (r.num === 0n) {
+    // Exact: the direction must say so, or a stale one from the last rounding moves 0 by a subnormal.
+    rounded.direction = 0;
+    return 0;
+  }
   const neg = r.num < 0n;
   const n = neg ? -r.num : r.num;
   const d = r.den;

@@ -120,6 +120,15 @@ describe('Rational against Number, Math.fround and decimal.js', () => {
     }
   });
 
+  test('an exact zero rounds to 0 in both directions whatever was rounded before (IEEE 754-2019 4.3: an exactly representable result is unchanged by rounding)', () => {
+    // The conversions read the side of the last rounding; an exact zero must not inherit it.
+    Rational.of(1n, 3n).toNumberUp(); // 1/3 rounds to nearest below the value
+    expect(Object.is(Rational.of(0n, 7n).toNumberUp(), 0)).toBe(true);
+    expect(Rational.of(0n, 7n).toNumberBounds()).toEqual([0, 0]);
+    Rational.of(2n, 3n).toNumberDown(); // 2/3 rounds to nearest above the value
+    expect(Object.is(Rational.ZERO.toNumberDown(), 0)).toBe(true);
+  });
+
   test('parseDecimal refuses text that is not a decimal number', () => {
     for (const bad of ['', '.', 'e5', '1e', '0x10', '1.2.3']) expect(() => Rational.parseDecimal(bad)).toThrow(SyntaxError);
   });
