@@ -95,8 +95,11 @@ describe('layering: imports point down cli → reader → verify → emit → pl
     ]);
   });
 
-  test('DEVELOPERS.md states the same order', () => {
-    const text = readFileSync('DEVELOPERS.md', 'utf8');
+  test.each(['DEVELOPERS.md', 'docs/DESIGN.md'])('%s states the same order, and no other', (doc) => {
+    const text = readFileSync(doc, 'utf8');
     expect(text).toContain(STAGES.join(' → '));
+    // Every chain from the top stage down in the page (a stale copy of the order would be a second one).
+    const chains = text.match(/\bcli(?: → [a-z]+)+/g) ?? [];
+    expect(new Set(chains)).toEqual(new Set([STAGES.join(' → ')]));
   });
 });
