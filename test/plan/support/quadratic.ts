@@ -22,6 +22,8 @@ export interface QuadraticSpec {
   /** The accuracy line (default 'absolute: 1e-9'). */
   readonly accuracy?: string;
   readonly arithmetic?: 'float32' | 'float64';
+  /** A result: line, e.g. 'x ^ 2' (default none). */
+  readonly result?: string;
   /** Lines under plan:, e.g. ['segments: 4'] (default none). */
   readonly plan?: readonly string[];
 }
@@ -38,6 +40,7 @@ export function quadraticText(o: QuadraticSpec = {}): string {
     '  1: 1',
     `  2: ${o.c2 ?? '0.1'}`,
     ...(o.c3 ? [`  3: ${o.c3}`] : []),
+    ...(o.result ? [`result: ${o.result}`] : []),
     'inputs:',
     `  s: [${lo}, ${hi}]`,
     ...(o.bracket ? ['root:', `  bracket: [${o.bracket[0]}, ${o.bracket[1]}]`] : []),
