@@ -11,9 +11,10 @@
  */
 import { readFileSync } from 'node:fs';
 import Handlebars from 'handlebars';
+import { PACKAGE_ROOT } from '../package-root.js';
 
-/** templates/ beside src/ and dist/: both sit one level below the package root. */
-const TEMPLATE_ROOT = new URL('../../templates/', import.meta.url);
+/** templates/ at the package root. */
+const TEMPLATE_ROOT = new URL('templates/', PACKAGE_ROOT);
 
 interface LoadedTemplate {
   readonly render: Handlebars.TemplateDelegate;

@@ -9,7 +9,7 @@
 import { addDown, addUp, mulDown, mulUp, powUp, subDown, subUp } from '../math/directed.js';
 import { containsZero, idiv, imul, isub, mag, point, type Interval } from '../math/interval.js';
 import { Rational } from '../math/rational.js';
-import { analyse } from '../ir/analyse.js';
+import { analyseFlat, valueOf } from '../ir/analyse.js';
 import { majorantRoot } from '../series/majorant.js';
 import type { SeriesTerm } from '../series/hyper-catalan.js';
 import type { Cell } from './box.js';
@@ -56,11 +56,11 @@ export interface CellFacts {
 }
 
 export function cellFacts(ap: AnalysisProgram, degree: number, cell: Cell, x0: number, segment: number): CellFacts {
-  const an = analyse(ap.program, cell, { segment });
+  const an = analyseFlat(ap.program, cell, { segment });
   const T = new Array<number>(degree + 1).fill(0);
   const Q = new Array<number>(degree + 1).fill(0);
-  const tight = tightRatios(ap, an.values, cell, segment);
-  const r = tight.ratio(0, an.values[ap.r]!);
+  const tight = tightRatios(ap, ap.c1 !== null ? valueOf(an, ap.c1) : null, cell, segment);
+  const r = tight.ratio(0, valueOf(an, ap.r));
   const c1Range = tight.c1;
   const ranges = ap.ranges;
   // Each result is one object literal with its fields in one fixed order: spreading a shared
@@ -76,7 +76,7 @@ export function cellFacts(ap: AnalysisProgram, degree: number, cell: Cell, x0: n
   const R = mag(r);
   let finite = Number.isFinite(R);
   for (const [k, ref] of ap.q) {
-    Q[k] = mag(tight.ratio(k, an.values[ref]!));
+    Q[k] = mag(tight.ratio(k, valueOf(an, ref)));
     T[k] = mulUp(powUp(R, k - 1), Q[k]!);
     if (!Number.isFinite(T[k]!)) finite = false;
   }
@@ -115,9 +115,8 @@ export function rootEnclosure(x0: number, r: Interval, R: number, aUpper: number
  * is their intersection. `c1` is c'1's enclosure (null when c'1 is a known
  * constant and no tight enclosure exists).
  */
-function tightRatios(ap: AnalysisProgram, values: readonly Interval[], cell: Cell, segment: number) {
+function tightRatios(ap: AnalysisProgram, plainC1: Interval | null, cell: Cell, segment: number) {
   const tight = ap.ranges?.cell(cell, segment);
-  const plainC1 = ap.c1 !== null ? values[ap.c1]! : null;
   const c1 = intersectOrNull(plainC1, tight?.c1 ?? null);
   const usable = tight && c1 && !containsZero(c1) && Number.isFinite(c1.lo) && Number.isFinite(c1.hi);
   return {

@@ -6,7 +6,7 @@
  */
 import { RootcastError } from '../errors.js';
 import { addUp } from '../math/directed.js';
-import { analyse, largestComputed } from '../ir/analyse.js';
+import { analyseFlat, largestComputedFlat } from '../ir/analyse.js';
 import type { Program } from '../ir/nodes.js';
 import { ARITHMETICS } from '../family/arithmetic.js';
 import type { Family } from '../family/types.js';
@@ -38,9 +38,9 @@ export function evaluate(
   spend(program.nodes.length * cells.length);
   for (const c of cells) {
     // float32 bounds allow for flushed subnormals too, so one bound holds on CPUs and GPUs.
-    const an = analyse(program, c.cell, { segment: c.segment, flushToZero: ARITHMETICS[program.arithmetic].boundsAllowFlush });
-    const rnd = an.errors[program.result]!;
-    if (!Number.isFinite(rnd) || largestComputed(an) > ARITHMETICS[program.arithmetic].maxFinite / OVERFLOW_HEADROOM) {
+    const an = analyseFlat(program, c.cell, { segment: c.segment, flushToZero: ARITHMETICS[program.arithmetic].boundsAllowFlush });
+    const rnd = an.err[program.result]!;
+    if (!Number.isFinite(rnd) || largestComputedFlat(an) > ARITHMETICS[program.arithmetic].maxFinite / OVERFLOW_HEADROOM) {
       throw new RootcastError(
         `intermediate values can overflow ${program.arithmetic} (or a divisor can vanish) for ${describeCell(family, c.cell)}; ${widerAdvice(family, ', ')}rescale the unknown or narrow the input ranges`,
         locate(family, 'arithmetic'),

@@ -22,7 +22,7 @@
 import { addUp, divDown, divUp, mulDown, mulUp, powUp, subDown } from '../math/directed.js';
 import { containsZero, mag, mig, type Interval } from '../math/interval.js';
 import { Rational } from '../math/rational.js';
-import { analyse, largestComputed } from '../ir/analyse.js';
+import { analyseFlat, largestComputedFlat, type FlatAnalysis } from '../ir/analyse.js';
 import type { ProgramBuilder, Ref } from '../ir/builder.js';
 import type { Program } from '../ir/nodes.js';
 import { ARITHMETICS } from '../family/arithmetic.js';
@@ -183,7 +183,7 @@ export function polishBound(
     // float32 bounds allow for flushed subnormals, as the series bounds do (one bound for CPUs and GPUs).
     const ftz = { segment: c.segment, flushToZero: programs ? ARITHMETICS[programs.core.arithmetic].boundsAllowFlush : false };
     let err = cellTail(c, order);
-    if (programs) err = addUp(err, checked(analyse(programs.core, c.cell, ftz), programs.core, c));
+    if (programs) err = addUp(err, checked(analyseFlat(programs.core, c.cell, ftz), programs.core, c));
     const spread = mulUp(c.R, Math.max(0, addUp(c.aUpper, -1)));
     let quad = 0;
     let rnd = 0;
@@ -191,7 +191,7 @@ export function polishBound(
       const J = { lo: subDown(subDown(c.rRange.lo, spread), err), hi: addUp(addUp(c.rRange.hi, spread), err) };
       quad = mulUp(newtonFactorOver(c, J), mulUp(err, err));
       if (!Number.isFinite(quad)) throw new PolishFailure('diverges', c);
-      rnd = programs ? checked(analyse(programs.steps[j]!, [...c.cell, J], ftz), programs.steps[j]!, c) : 0;
+      rnd = programs ? checked(analyseFlat(programs.steps[j]!, [...c.cell, J], ftz), programs.steps[j]!, c) : 0;
       err = addUp(quad, rnd);
     }
     worst.add(c.rootMin, { truncation: quad, rounding: rnd, total: err });
@@ -200,8 +200,8 @@ export function polishBound(
 }
 
 /** The result's rounding bound, refusing values that may overflow or divisors that may vanish. */
-function checked(an: ReturnType<typeof analyse>, program: Program, c: CellFacts): number {
-  const e = an.errors[program.result]!;
-  if (!Number.isFinite(e) || largestComputed(an) > ARITHMETICS[program.arithmetic].maxFinite / OVERFLOW_HEADROOM) throw new PolishFailure('overflow', c);
+function checked(an: FlatAnalysis, program: Program, c: CellFacts): number {
+  const e = an.err[program.result]!;
+  if (!Number.isFinite(e) || largestComputedFlat(an) > ARITHMETICS[program.arithmetic].maxFinite / OVERFLOW_HEADROOM) throw new PolishFailure('overflow', c);
   return e;
 }

@@ -15,7 +15,7 @@
  */
 import { addUp, divUp, mulUp, subDown } from '../math/directed.js';
 import { iadd, imul, mag, mig, point, type Interval } from '../math/interval.js';
-import { analyse, largestComputed } from '../ir/analyse.js';
+import { analyseFlat, largestComputedFlat } from '../ir/analyse.js';
 import type { Program } from '../ir/nodes.js';
 import { ARITHMETICS } from '../family/arithmetic.js';
 import { derivativePowers } from '../family/result-powers.js';
@@ -88,9 +88,9 @@ export function resultBound(family: Family, spec: ResultSpec, cells: readonly Ce
     if (!root || !(E >= 0) || !Number.isFinite(E)) return unbounded(out);
     const J = { lo: subDown(root.lo, E), hi: addUp(root.hi, E) };
     const slope = slopeOver(family, derivative, c.cell, J);
-    const an = analyse(program, [...c.cell, J], { segment: c.segment, flushToZero });
-    const rnd = an.errors[program.result]!;
-    const overflow = largestComputed(an) > ARITHMETICS[program.arithmetic].maxFinite / OVERFLOW_HEADROOM;
+    const an = analyseFlat(program, [...c.cell, J], { segment: c.segment, flushToZero });
+    const rnd = an.err[program.result]!;
+    const overflow = largestComputedFlat(an) > ARITHMETICS[program.arithmetic].maxFinite / OVERFLOW_HEADROOM;
     const scale = relative ? resultFloor(family, spec, c.cell, root) : 1;
     if (!Number.isFinite(slope) || !Number.isFinite(rnd) || overflow || !(scale > 0)) return unbounded(out);
     out.push({ slope, rounding: rnd, scale });

@@ -5,10 +5,11 @@
 import { readFileSync } from 'node:fs';
 import Handlebars from 'handlebars';
 import { RootcastError } from '../errors.js';
+import { PACKAGE_ROOT } from '../package-root.js';
 import { identifierProblem } from './identifiers.js';
 
-/** templates/ sits beside src/ and dist/, one level below the package root. */
-const TEMPLATE = new URL('../../templates/spec/starter.yaml', import.meta.url);
+/** templates/ at the package root. */
+const TEMPLATE = new URL('templates/spec/starter.yaml', PACKAGE_ROOT);
 
 let compiled: Handlebars.TemplateDelegate<{ name: string }> | null = null;
 

@@ -8,6 +8,7 @@ import { existsSync, writeFileSync } from 'node:fs';
 import { dirname, relative, resolve, sep } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { RootcastError } from '../../errors.js';
+import { PACKAGE_ROOT } from '../../package-root.js';
 import { starterSpec } from '../../reader/starter.js';
 
 export function runNew(name: string, out: string | undefined, print: (line: string) => void): number {
@@ -24,8 +25,8 @@ export function runNew(name: string, out: string | undefined, print: (line: stri
   return 0;
 }
 
-/** schema/ at the package root: dist/cli/commands/ and src/cli/commands/ both sit three levels below it. */
-const SPEC_SCHEMA = fileURLToPath(new URL('../../../schema/rootcast-spec.schema.json', import.meta.url));
+/** schema/ at the package root. */
+const SPEC_SCHEMA = fileURLToPath(new URL('schema/rootcast-spec.schema.json', PACKAGE_ROOT));
 
 /** `# yaml-language-server: $schema=RELATIVE/PATH` from the spec's folder to the shipped spec schema. */
 export function schemaLine(specPath: string): string {
