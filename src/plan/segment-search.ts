@@ -17,7 +17,7 @@ import { candidatesOf, refusedCandidate, withCandidates } from './candidates.js'
 import { planSegments } from './plan-segments.js';
 import type { PlainTrial } from './plain-series.js';
 import { refinedPlans } from './refine.js';
-import { moreActionable } from './refusals.js';
+import { moreActionable, QuotedFixRefusal, TableRefusal } from './refusals.js';
 import { QUOTED_FIX, REFINE, SEGMENT_SEARCH, WORK } from './tuning.js';
 import { tableLimitBit } from './table-limit.js';
 import { WorkLimitError, workUsed } from './work.js';
@@ -111,8 +111,21 @@ export function searchSegments(family: Family, box: Cell, fixed: readonly (numbe
   }
   candidates.push(...plain.candidates);
   if (plain.plan) all.push(plain.plan);
-  if (all.length === 0) throw found.refusal ?? new WorkLimitError();
+  if (all.length === 0) throw stoppedRefusal(found.refusal, found.exhausted);
   return withCandidates(frugalChoice(all), candidates);
+}
+
+/**
+ * What a search without a plan throws. When the work limit ended it, a
+ * trial's refusal speaks only for that trial's segments (the series of one
+ * box may need more than order 45 where more segments would have planned):
+ * the work limit is the reason then (refusals.ts refuseWorkLimit, through
+ * makePlan), unless the refusal quotes a fix, which makePlan checks by
+ * planning it, or is the table limit's, which makePlan turns into its fix.
+ */
+function stoppedRefusal(refusal: RootcastError | null, exhausted: boolean): Error {
+  if (!refusal || (exhausted && !(refusal instanceof QuotedFixRefusal) && !(refusal instanceof TableRefusal))) return new WorkLimitError();
+  return refusal;
 }
 
 /**
