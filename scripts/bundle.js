@@ -22,7 +22,6 @@
 // - CommonJS packages inside (yaml, handlebars, cli-progress) call require()
 //   for node's built-in modules: each output file gets a require of its own
 //   (`banner`).
-import { build } from 'esbuild';
 import { readdirSync, rmSync } from 'node:fs';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -46,6 +45,16 @@ const yargsLocales = {
 };
 
 for (const f of readdirSync(DIST)) if (CHUNK.test(f)) rmSync(join(DIST, f));
+
+// A work tree whose node_modules predates esbuild (npm ci adds it) keeps
+// tsc's per-module dist/cli.js, which works the same, only slower to start.
+let build;
+try {
+  ({ build } = await import('esbuild'));
+} catch {
+  process.stderr.write('scripts/bundle.js: esbuild is not installed (run npm ci); dist/cli.js stays the per-module entry, which starts slower\n');
+  process.exit(0);
+}
 
 await build({
   entryPoints: { cli: join(ROOT, 'src', 'cli.ts') },
