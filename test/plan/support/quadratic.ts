@@ -22,6 +22,8 @@ export interface QuadraticSpec {
   /** The accuracy line (default 'absolute: 1e-9'). */
   readonly accuracy?: string;
   readonly arithmetic?: 'float32' | 'float64';
+  /** A result: line, e.g. 'x ^ 2' (default none). */
+  readonly result?: string;
   /** Lines under plan:, e.g. ['segments: 4'] (default none). */
   readonly plan?: readonly string[];
 }
@@ -38,6 +40,7 @@ export function quadraticText(o: QuadraticSpec = {}): string {
     '  1: 1',
     `  2: ${o.c2 ?? '0.1'}`,
     ...(o.c3 ? [`  3: ${o.c3}`] : []),
+    ...(o.result ? [`result: ${o.result}`] : []),
     'inputs:',
     `  s: [${lo}, ${hi}]`,
     ...(o.bracket ? ['root:', `  bracket: [${o.bracket[0]}, ${o.bracket[1]}]`] : []),
@@ -64,11 +67,22 @@ export function quadraticRoot(s: Decimal.Value, c2: Decimal.Value = '0.1'): Deci
 /** The first Catalan numbers C_0..C_12 (OEIS A000108). */
 export const CATALAN = [1, 1, 2, 5, 14, 42, 132, 429, 1430, 4862, 16796, 58786, 208012] as const;
 
+/**
+ * C_k exactly, past the table too: C_{k+1} = C_k 2 (2k + 1) / (k + 2), the
+ * ratio of consecutive terms of C_k = binom(2k, k) / (k + 1) (OEIS A000108's
+ * formula); test/plan/forms/series-order.test.ts checks the table against it.
+ */
+export function catalan(k: number): bigint {
+  let c = 1n;
+  for (let j = 0; j < k; j++) c = (c * 2n * BigInt(2 * j + 1)) / BigInt(j + 2);
+  return c;
+}
+
 /** The Catalan partial sum s sum_{k<=N} C_k (-c2 s)^k: the graded series of order N (decimal.js, 120 digits). */
 export function catalanPartialSum(s: Decimal.Value, N: number, c2: Decimal.Value = '0.1'): Decimal {
   const x = new D(s);
   const u = new D(c2).neg().times(x);
   let sum = new D(0);
-  for (let k = 0; k <= N; k++) sum = sum.plus(new D(CATALAN[k]!).times(u.pow(k)));
+  for (let k = 0; k <= N; k++) sum = sum.plus(new D((CATALAN[k] ?? catalan(k)).toString()).times(u.pow(k)));
   return x.times(sum);
 }
