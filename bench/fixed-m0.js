@@ -17,7 +17,7 @@ import { emitFiles } from '../dist/cli/emit-files.js';
 import { makePlan } from '../dist/plan/plan.js';
 import { fixedSamplePoints } from '../dist/verify/fixed-samples.js';
 import { qemuMissing, runOnCore } from '../dist/verify/qemu.js';
-import { m0Cost } from '../dist/emit/m0-cost.js';
+import { cortexM0Cost } from '../dist/ir/cost/cortex-m0.js';
 
 const SPEC = 'examples/fixed32/pt1000-celsius.yaml';
 const missing = qemuMissing();
@@ -44,6 +44,6 @@ const gcc = spawnSync('arm-none-eabi-gcc', ['--version'], { encoding: 'utf8' }).
 const qemu = spawnSync('qemu-system-arm', ['--version'], { encoding: 'utf8' }).stdout.split('\n')[0];
 console.log(`fixed32 vs soft-float float32 on an emulated Cortex-M0 (${SPEC}, ${raws.length} sample points)`);
 console.log(`  machine: ${cpus()[0]?.model ?? 'unknown'}; ${gcc}; ${qemu} -M microbit`);
-console.log(`  fixed32  (${fixedPlan.segments} segments, degree ${fixedPlan.degree}, bound ${fixedPlan.bound.total.toExponential(1)} degC): instructions per call ${range(fixedRun.perCall)} (header model ${m0Cost(fixedPlan.program).instructions})`);
+console.log(`  fixed32  (${fixedPlan.segments} segments, degree ${fixedPlan.degree}, bound ${fixedPlan.bound.total.toExponential(1)} degC): instructions per call ${range(fixedRun.perCall)} (header model ${cortexM0Cost(fixedPlan.program).instructions})`);
 console.log(`  float32  (soft-float, ${floatPlan.form}, bound ${floatPlan.bound.total.toExponential(1)} degC):          instructions per call ${range(floatRun.perCall)}`);
 console.log(`  ratio (float32 max / fixed32 max): ${(Math.max(...floatRun.perCall) / Math.max(...fixedRun.perCall)).toFixed(1)}`);

@@ -2,13 +2,14 @@
  * The header comment of fixed32 files: as header.ts for the float targets
  * (equation, box, arithmetic, certified bound, cost, spec hash; no time), plus
  * the binary points of the arguments and the result, the raw input box, and
- * the Cortex-M0 cost (m0-cost.ts). The stamp line (stamp.ts) is the float
+ * the Cortex-M0 cost (src/ir/cost/cortex-m0.ts: the figure the planner ranked
+ * by, which the claims carry and this checks). The stamp line (stamp.ts) is the float
  * files' one, so `emit --check` treats both alike.
  */
+import { cortexM0Cost, cortexM0Lines } from '../ir/cost/cortex-m0.js';
 import { countFixed } from '../ir/fixed/nodes.js';
 import { formatBoundUp } from './literals/round-up.js';
 import { assertCommentSafe, constantLines, equationText, labelled, shortHash, specPathForHeader, wrapWords } from './header.js';
-import { m0CostLines } from './m0-cost.js';
 import { stampLine } from './stamp.js';
 import type { FixedEmitInput } from './fixed-types.js';
 
@@ -18,6 +19,7 @@ export function fixedHeaderLines(input: FixedEmitInput, fileRole: string): strin
   if (ops.mul !== claims.ops.mul || ops.add !== claims.ops.add || ops.tableReads !== claims.ops.tableReads) {
     throw new Error('the plan claims other operation counts than the fixed program has');
   }
+  if (cortexM0Cost(program).cycles !== claims.cost) throw new Error('the plan was ranked by another Cortex-M0 cycle figure than the header prints');
   const fx = family.fixed!;
   const b = claims.bound;
   const lines = [
@@ -46,7 +48,7 @@ export function fixedHeaderLines(input: FixedEmitInput, fileRole: string): strin
       `order ${claims.order}, ${claims.terms} ${claims.terms === 1 ? 'term' : 'terms'}, collapsed and economised to degree ${claims.degree}${claims.segments > 1 ? ` per segment (${claims.segments} segments)` : ''}`,
     ]),
     ...labelled('operations:', [`${ops.mul} products (32 x 32 -> 64), ${ops.add} add/sub, ${ops.tableReads} table reads`]),
-    ...m0CostLines(program),
+    ...cortexM0Lines(program),
   ];
   for (const line of lines) assertCommentSafe(line);
   return lines;

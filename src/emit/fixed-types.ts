@@ -16,6 +16,8 @@ export interface FixedClaims {
   readonly bound: { readonly kind: 'absolute'; readonly truncation: number; readonly economisation: number; readonly rounding: number; readonly total: number };
   readonly target: number;
   readonly ops: FixedCounts;
+  /** The Cortex-M0 cycles the planner ranked the plan by (src/ir/cost/cortex-m0.ts); the header prints the model's figure and refuses a claim that differs. */
+  readonly cost: number;
   /** The certified raw input box (inclusive). */
   readonly rawLo: bigint;
   readonly rawHi: bigint;

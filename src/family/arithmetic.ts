@@ -179,7 +179,7 @@ export interface FixedFacts {
   readonly tsType: 'number';
   /** The float arithmetic the planner's float stages work in for this arithmetic (the family's `arithmetic`). */
   readonly planningArithmetic: Arithmetic;
-  /** The core the header's cost lines and `plan` describe: no FPU, Armv6-M timings (src/emit/m0-cost.ts). */
+  /** The core the planner ranks segment counts for and the header's cost lines and `plan` describe: no FPU, Armv6-M timings (src/ir/cost/cortex-m0.ts). */
   readonly costCore: 'cortex-m0';
 }
 

@@ -27,6 +27,10 @@
  * xorpd 1, an L1 load 5, ucomisd and SETcc about 3 + 1), from memory of Agner Fog's instruction tables, not measured
  * here. Latency, not throughput, is the right measure for Horner's rule,
  * which is one dependency chain.
+ *
+ * The Cortex-M0 model of fixed32 programs is fitted per operation to gcc's
+ * output rather than priced per instruction, and keeps its figures in
+ * cost/cortex-m0.ts.
  */
 
 /** Cortex-M4F cycles per instruction (Cortex-M4 TRM; from memory, see above). */

@@ -17,7 +17,7 @@ import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fixedEmitInputOf, fixedFiles } from '../../src/cli/fixed/pipeline.js';
-import { m0Cost } from '../../src/emit/m0-cost.js';
+import { cortexM0Cost } from '../../src/ir/cost/cortex-m0.js';
 import { evaluateFixed } from '../../src/ir/fixed/evaluate.js';
 import { fixedSamplePoints } from '../../src/verify/fixed-samples.js';
 import { countFixedCore, fixedProbeSource, hasCore } from '../../src/verify/fixed-branches.js';
@@ -38,7 +38,7 @@ describe('fixed32 on Cortex-M0 and Cortex-M3 (disassembly)', () => {
     const m0 = countFixedCore(header, 'pt1000_celsius', 1, 'cortex-m0');
     const m3 = countFixedCore(header, 'pt1000_celsius', 1, 'cortex-m3');
     for (const c of [m0, m3]) expect({ conditional: c.conditionalBranches, calls: c.calls, jumps: c.jumps, offending: c.offending }).toEqual({ conditional: 0, calls: 0, jumps: 0, offending: [] });
-    const model = m0Cost(plan.program).instructions;
+    const model = cortexM0Cost(plan.program).instructions;
     expect(Math.abs(model - m0.instructions) / m0.instructions).toBeLessThanOrEqual(0.1);
     const dis = disassemble(header, ['-mcpu=cortex-m3', '-mthumb']);
     expect(dis).toMatch(/\b(smull|smlal)\b/);
@@ -107,6 +107,6 @@ describe('fixed32 on emulated cores (QEMU)', () => {
     const run = runOnCore({ header, name: 'pt1000_celsius', argType: 'int32_t', resultType: 'int32_t', inputs: some.map(String) }, 'cortex-m0', true);
     expect(run.perCall).toHaveLength(some.length);
     expect(new Set(run.perCall).size).toBe(1);
-    expect(Math.abs(run.perCall[0]! - m0Cost(plan.program).instructions) / run.perCall[0]!).toBeLessThanOrEqual(0.1);
+    expect(Math.abs(run.perCall[0]! - cortexM0Cost(plan.program).instructions) / run.perCall[0]!).toBeLessThanOrEqual(0.1);
   }, 300_000);
 });

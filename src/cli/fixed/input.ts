@@ -35,6 +35,7 @@ export function fixedEmitInputOf(plan: FixedPlan): FixedEmitInput {
       bound: plan.bound,
       target: plan.target,
       ops: plan.ops,
+      cost: plan.cost,
       rawLo: plan.rawLo,
       rawHi: plan.rawHi,
     },

@@ -1,7 +1,7 @@
 /** `rootcast plan` for a fixed32 spec: the plan as text or JSON (the fields of plan --json where they apply). */
 import { equationText } from '../../emit/header.js';
 import { formatBoundUp } from '../../emit/literals/round-up.js';
-import { m0Cost } from '../../emit/m0-cost.js';
+import { cortexM0Cost } from '../../ir/cost/cortex-m0.js';
 import type { FixedPlan } from '../../plan/fixed/plan-fixed.js';
 import { GENERATOR } from '../refusal-json.js';
 import { arithmeticName } from '../../family/types.js';
@@ -9,7 +9,7 @@ import { arithmeticName } from '../../family/types.js';
 /** The `plan --json` object of a fixed32 spec (schema/plan.schema.json, definitions/plan: `arithmetic` fixed32, `fixed` and `rawBox` added). */
 export function fixedPlanJson(plan: FixedPlan): { readonly generator: typeof GENERATOR; readonly [field: string]: unknown } {
   const f = plan.family;
-  const m0 = m0Cost(plan.program);
+  const m0 = cortexM0Cost(plan.program);
   return {
     generator: GENERATOR,
     function: f.functionName,
@@ -30,7 +30,8 @@ export function fixedPlanJson(plan: FixedPlan): { readonly generator: typeof GEN
     target: plan.target,
     ops: { add: plan.ops.add, mul: plan.ops.mul, div: 0, tableReads: plan.ops.tableReads },
     segments: { counts: [plan.segments], rawWidthLog2: plan.segmentShift, tableBytes: plan.tableBytes },
-    cost: { model: 'cortex-m0', value: plan.cost, instructions: m0.instructions, cycles: m0.cycles, cyclesSlowMultiplier: m0.cycles + 31 * m0.muls },
+    // value: the figure the planner ranked by, the header's single-cycle-multiplier cycles (cycles repeats it).
+    cost: { model: 'cortex-m0', value: plan.cost, instructions: m0.instructions, cycles: m0.cycles, cyclesSlowMultiplier: m0.cyclesSlowMultiplier },
     candidates: [],
   };
 }
@@ -38,7 +39,7 @@ export function fixedPlanJson(plan: FixedPlan): { readonly generator: typeof GEN
 export function fixedPlanText(plan: FixedPlan): string {
   const f = plan.family;
   const b = plan.bound;
-  const m0 = m0Cost(plan.program);
+  const m0 = cortexM0Cost(plan.program);
   const rows: [string, string][] = [
     ['equation', `${equationText(f)}, solved for ${f.unknown}`],
     ['inputs', f.inputs.map((i, k) => `${i.name} in [${i.lo}, ${i.hi}] as int32 ${i.name} * 2^${f.fixed!.inputs[k]} (raw ${plan.rawLo} to ${plan.rawHi})`).join(', ')],
@@ -51,7 +52,7 @@ export function fixedPlanText(plan: FixedPlan): string {
     ['target', `${f.accuracy.value} (${f.accuracy.kind})`],
     ['ops', `${plan.ops.mul} products (32 x 32 -> 64), ${plan.ops.add} add/sub, ${plan.ops.tableReads} table reads`],
     ['segments', `${plan.segments} of 2^${plan.segmentShift} raw units (${plan.tableBytes} table bytes)`],
-    ['cost', `Cortex-M0: about ${m0.instructions} instructions, ${m0.cycles} cycles (single-cycle multiplier; ${m0.cycles + 31 * m0.muls} with the 32-cycle one); README, "Fixed point"`],
+    ['cost', `Cortex-M0: about ${m0.instructions} instructions, ${plan.cost} cycles (single-cycle multiplier, the figure auto segments rank by; ${m0.cyclesSlowMultiplier} with the 32-cycle one); README, "Fixed point"`],
   ];
   return [`${f.functionName}`, ...rows.map(([k, v]) => `  ${k.padEnd(11)} ${v}`)].join('\n');
 }

@@ -8,6 +8,10 @@
  *
  * To add a model: a file here with its price and header line, its name in
  * CostModelName (src/family/arithmetic.ts), and one row below.
+ *
+ * fixed32 programs (a FixedProgram, not this IR) have one model, the Cortex-M0
+ * (cortex-m0.ts): the fixed32 planner ranks segment counts by its cycle figure
+ * and the fixed32 header and `plan` print it.
  */
 import { ARITHMETICS, type Arithmetic, type CostModelName } from '../../family/arithmetic.js';
 import type { Program } from '../nodes.js';

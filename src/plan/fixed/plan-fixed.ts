@@ -8,13 +8,15 @@
  *
  * Segments have power-of-two raw widths (layout.ts); `plan.segments: auto`
  * tries 1, 2, 4, ... 64 and keeps the cheapest by the Cortex-M0 cost model
- * (cost.ts). Shapes that would need a division at run time (a varying slope
+ * (ir/cost/cortex-m0.ts: its cycle figure, the one the header and `plan`
+ * print). Shapes that would need a division at run time (a varying slope
  * c1, Newton steps) and several inputs are refused in one line.
  */
 import { RootcastError } from '../../errors.js';
 import { addUp } from '../../math/directed.js';
 import { Rational } from '../../math/rational.js';
 import { SINGLE } from '../../ir/builder.js';
+import { cortexM0Cost } from '../../ir/cost/cortex-m0.js';
 import { countFixed, type FixedCounts, type FixedProgram } from '../../ir/fixed/nodes.js';
 import { termsOfGrade, type SeriesTerm } from '../../series/hyper-catalan.js';
 import type { Family } from '../../family/types.js';
@@ -27,7 +29,6 @@ import { refuseBadCells } from '../refusals.js';
 import { chooseRoot, rootAt, type RootChoice } from '../root-choice.js';
 import { segmentLayout } from '../segments.js';
 import { analysisProgram, CoefficientError, collapsedSeries, ZeroSlopeError, type Expansion } from '../series-program.js';
-import { fixedCost } from './cost.js';
 import { chebyshevInW, degreeFor, economisedAt } from './economise-w.js';
 import { fixedLayout, rawBox, rawNumber, type FixedLayout } from './layout.js';
 import { fixedHorner, ResultRangeError } from './program.js';
@@ -61,7 +62,7 @@ export interface FixedPlan {
   readonly absoluteBound: number;
   readonly target: number;
   readonly ops: FixedCounts;
-  /** Estimated Cortex-M0 cycles (cost.ts). */
+  /** Estimated Cortex-M0 cycles with the single-cycle multiplier (ir/cost/cortex-m0.ts): what auto segments rank by, and the figure the header and `plan` print. */
   readonly cost: number;
   readonly tableBytes: number;
   readonly cells: number;
@@ -237,7 +238,7 @@ function planWith(family: Family, fam: Family, raw: { lo: bigint; hi: bigint }, 
           absoluteBound: parts.total,
           target,
           ops,
-          cost: fixedCost(ops, S),
+          cost: cortexM0Cost(built.program).cycles,
           tableBytes,
           cells: set.cells.length,
         };
