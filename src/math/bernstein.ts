@@ -90,11 +90,6 @@ function binom(n: number, k: number): bigint {
   return r;
 }
 
-// Scratch space for one fibre (grown on demand).
-let cl = new Float64Array(16);
-let ch = new Float64Array(16);
-let bl = new Float64Array(16);
-let bh = new Float64Array(16);
 // Scratch space for the whole tensor (grown on demand; one call at a time).
 let workLo = new Float64Array(64);
 let workHi = new Float64Array(64);
@@ -117,30 +112,13 @@ export function bernsteinRange(t: IntervalTensor, origin: readonly number[], wid
   for (let i = 0; i < t.degrees.length; i++) {
     const n = t.degrees[i]!;
     if (n === 0) continue;
-    if (cl.length <= n) {
-      cl = new Float64Array(2 * n + 2);
-      ch = new Float64Array(2 * n + 2);
-      bl = new Float64Array(2 * n + 2);
-      bh = new Float64Array(2 * n + 2);
-    }
     const a = origin[i]!;
     const w = width[i]!;
     const stride = t.strides[i]!;
     const block = stride * (n + 1);
     const beta = betas(n);
     for (let outer = 0; outer < size; outer += block) {
-      for (let inner = 0; inner < stride; inner++) {
-        const base = outer + inner;
-        for (let k = 0; k <= n; k++) {
-          cl[k] = lo[base + k * stride]!;
-          ch[k] = hi[base + k * stride]!;
-        }
-        fibre(n, a, w, beta);
-        for (let k = 0; k <= n; k++) {
-          lo[base + k * stride] = bl[k]!;
-          hi[base + k * stride] = bh[k]!;
-        }
-      }
+      for (let inner = 0; inner < stride; inner++) fibre(lo, hi, outer + inner, stride, n, a, w, beta);
     }
   }
   let rl = Infinity;
@@ -153,16 +131,36 @@ export function bernsteinRange(t: IntervalTensor, origin: readonly number[], wid
   return { lo: rl, hi: rh };
 }
 
-/** One variable's coefficients cl/ch (power form on [a, a + w]) -> bl/bh (Bernstein form on [0, 1]). */
-function fibre(n: number, a: number, w: number, beta: { lo: Float64Array; hi: Float64Array }): void {
+/**
+ * One variable's coefficients, in place in cl/ch at base, base + stride, ...,
+ * base + n stride: power form on [a, a + w] -> Bernstein form on [0, 1]
+ * (no copy to and from scratch arrays, which cost as much as the fibre itself
+ * at the planner's low degrees). Each coefficient's operations and roundings
+ * are those of the textbook form: the Bernstein coefficients are computed
+ * from the top down, so b_m overwrites c_m only after every b_k, k > m,
+ * that reads it.
+ */
+function fibre(cl: Float64Array, ch: Float64Array, base: number, stride: number, n: number, a: number, w: number, beta: { lo: Float64Array; hi: Float64Array }): void {
   // Taylor shift: p(a + y), by repeated synthetic division (Horner's scheme).
-  if (a !== 0) {
+  if (a > 0) {
     for (let k = 0; k < n; k++) {
       for (let j = n - 1; j >= k; j--) {
-        const pl = a >= 0 ? a * cl[j + 1]! : a * ch[j + 1]!;
-        const ph = a >= 0 ? a * ch[j + 1]! : a * cl[j + 1]!;
-        cl[j] = nextDown(cl[j]! + nextDown(pl));
-        ch[j] = nextUp(ch[j]! + nextUp(ph));
+        const at = base + j * stride;
+        const next = at + stride;
+        cl[at] = nextDown(cl[at]! + nextDown(a * cl[next]!));
+        ch[at] = nextUp(ch[at]! + nextUp(a * ch[next]!));
+      }
+    }
+  } else if (a !== 0) {
+    // a < 0 (or NaN, taken as the old two-sided form took it): the ends swap.
+    for (let k = 0; k < n; k++) {
+      for (let j = n - 1; j >= k; j--) {
+        const at = base + j * stride;
+        const next = at + stride;
+        const pl = a * ch[next]!;
+        const ph = a * cl[next]!;
+        cl[at] = nextDown(cl[at]! + nextDown(pl));
+        ch[at] = nextUp(ch[at]! + nextUp(ph));
       }
     }
   }
@@ -173,26 +171,30 @@ function fibre(n: number, a: number, w: number, beta: { lo: Float64Array; hi: Fl
     for (let k = 1; k <= n; k++) {
       wl = nextDown(wl * w);
       wh = nextUp(wh * w);
-      const l = cl[k]!;
-      const h = ch[k]!;
-      cl[k] = nextDown(l >= 0 ? l * wl : l * wh);
-      ch[k] = nextUp(h >= 0 ? h * wh : h * wl);
+      const at = base + k * stride;
+      const l = cl[at]!;
+      const h = ch[at]!;
+      cl[at] = nextDown(l >= 0 ? l * wl : l * wh);
+      ch[at] = nextUp(h >= 0 ? h * wh : h * wl);
     }
   }
   // Power form on [0, 1] -> Bernstein coefficients: b_m = sum_{j <= m} C(m, j) / C(n, j) c_j.
-  const stride = n + 1;
-  for (let m = 0; m <= n; m++) {
-    let sl = cl[0]!;
-    let sh = ch[0]!;
+  const row = n + 1;
+  const l0 = cl[base]!;
+  const h0 = ch[base]!;
+  for (let m = n; m >= 1; m--) {
+    let sl = l0;
+    let sh = h0;
     for (let j = 1; j <= m; j++) {
-      const gl = beta.lo[m * stride + j]!;
-      const gh = beta.hi[m * stride + j]!;
-      const l = cl[j]!;
-      const h = ch[j]!;
+      const gl = beta.lo[m * row + j]!;
+      const gh = beta.hi[m * row + j]!;
+      const at = base + j * stride;
+      const l = cl[at]!;
+      const h = ch[at]!;
       sl = nextDown(sl + nextDown(l >= 0 ? l * gl : l * gh));
       sh = nextUp(sh + nextUp(h >= 0 ? h * gh : h * gl));
     }
-    bl[m] = sl;
-    bh[m] = sh;
+    cl[base + m * stride] = sl;
+    ch[base + m * stride] = sh;
   }
 }

@@ -12,7 +12,9 @@
  * Sharing the expansion object also lets the caches keyed by it
  * (series-program.ts baseOf and rangesFor) serve every trial of the layout.
  * What is not recomputed is not counted as work (src/plan/work.ts): the
- * count stays deterministic, it only drops.
+ * count stays deterministic, it only drops. The memo is emptied when a new
+ * count starts (work.ts planMemo), so what one plan spends never depends on
+ * another: a quoted fix's check counts what the user's run of the fix will.
  */
 import type { Rational } from '../math/rational.js';
 import type { Family } from '../family/types.js';
@@ -23,6 +25,7 @@ import type { RootChoice } from './root-choice.js';
 import { segmentLayout, type SegmentLayout } from './segments.js';
 import type { AnalysisProgram, Expansion } from './series-program.js';
 import type { TermPool } from './term-pool.js';
+import { planMemo } from './work.js';
 
 /** The cells a layout's needs are weighed on (segmentNeeds), their terms built grade by grade as orders ask. */
 export interface NeedsCells {
@@ -56,12 +59,14 @@ export interface Equation {
   choice?: RootChoice;
 }
 
-const equations = new WeakMap<object, WeakMap<object, Map<string, Equation>>>();
+/** One memo per work count (work.ts planMemo): a plan's units never depend on what an earlier plan left here. */
+const equations = planMemo<object, WeakMap<object, Map<string, Equation>>>();
 
 /** The record of the family's equation, one object per distinct one (a WeakMap key for the caches of series-program.ts). */
 export function equationOf(family: Family): Equation {
-  let byConstants = equations.get(family.coefficients);
-  if (!byConstants) equations.set(family.coefficients, (byConstants = new WeakMap()));
+  const memo = equations();
+  let byConstants = memo.get(family.coefficients);
+  if (!byConstants) memo.set(family.coefficients, (byConstants = new WeakMap()));
   let byRest = byConstants.get(family.constants);
   if (!byRest) byConstants.set(family.constants, (byRest = new Map()));
   const key = JSON.stringify([

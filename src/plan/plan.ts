@@ -22,13 +22,26 @@ import { QuotedFixRefusal, refuseWorkLimit } from './refusals.js';
 import { tableLimitBites } from './table-limit.js';
 import { QUOTED_FIX, TABLE_FIX, WORK } from './tuning.js';
 import type { Plan } from './types.js';
-import { everyPlan, restartWork, startWork, untilFirstPlan, untilFirstPlanBy, WorkLimitError, type WorkObserver } from './work.js';
+import { everyPlan, restartWork, startWork, untilFirstPlan, untilFirstPlanBy, workAtFirstPlan, workUsed, WorkLimitError, type WorkObserver } from './work.js';
 
 export type { Bound, Candidate, Plan, PlanForm } from './types.js';
 
 export interface PlanOptions {
   /** Watches the planner's work units (a progress display); never changes the plan. */
   readonly onWork?: WorkObserver;
+  /**
+   * Told of each check of a fix a refusal quotes (confirmedFix): whether the
+   * edited family planned, and the units counted at its first plan, which a
+   * fresh run of the edited spec counts too (tests hold the two together).
+   */
+  readonly onQuoteCheck?: (check: QuoteCheck) => void;
+}
+
+/** One check of a quoted fix: the outcome and, when it planned, the units at its first plan. */
+export interface QuoteCheck {
+  readonly planned: boolean;
+  readonly firstPlanAt: number | null;
+  readonly units: number;
 }
 
 export function makePlan(family: Family, options: PlanOptions = {}): Plan {
@@ -60,7 +73,8 @@ export function makeFoldedPlan(family: Family, options: PlanOptions = {}): Plan 
 /**
  * A refusal that quotes a fix stands only if the fix works: the family with
  * it applied is planned as the user's next run would plan it (a fresh work
- * meter, so the same computation). A rounding floor can move with the target
+ * meter and an empty memo, work.ts planMemo, so the same computation and
+ * the same count). A rounding floor can move with the target
  * (the segment search takes another path): when the check meets a looser
  * floor, that one is checked in turn, for QUOTED_FIX.rounds checks in all. When no
  * quote plans, the refusal is shown without one. The confirming plan is
@@ -69,12 +83,16 @@ export function makeFoldedPlan(family: Family, options: PlanOptions = {}): Plan 
 function confirmedFix(family: Family, refusal: QuotedFixRefusal, options: PlanOptions): RootcastError {
   let quote = refusal;
   for (let round = 0; round < QUOTED_FIX.rounds; round++) {
+    // Edited before the count starts, as the reader parses the user's edited spec before planning.
+    const edited = quote.apply(family);
     startWork(options.onWork ?? null, WORK.limit * QUOTED_FIX.workShare);
     try {
       // Whether it plans is all the check asks: it stops at the first plan (a search that found one returns one).
-      untilFirstPlan(() => planWithinLimit(quote.apply(family)));
+      untilFirstPlan(() => planWithinLimit(edited));
+      options.onQuoteCheck?.({ planned: true, firstPlanAt: workAtFirstPlan(), units: workUsed() });
       return quote;
     } catch (e) {
+      options.onQuoteCheck?.({ planned: false, firstPlanAt: null, units: workUsed() });
       if (e instanceof QuotedFixRefusal && e.kind === 'floor' && quote.kind === 'floor' && e.best > quote.best) {
         quote = e.reword(family);
         continue;

@@ -26,6 +26,7 @@ import { binomial } from '../series/recenter.js';
 import { exprPolynomial, type InputScaling } from '../series/expr-poly.js';
 import type { Family } from '../family/types.js';
 import { boxOf, type Cell } from './box.js';
+import { planMemo } from './work.js';
 
 interface SegmentTensors {
   /** c'j per power j, null where a coefficient it sums is not a polynomial. */
@@ -62,10 +63,11 @@ interface FamilyShare {
   readonly polys: readonly (MultiPoly | null)[];
   readonly byX0: Map<string, SegmentTensors>;
 }
-const shares = new WeakMap<Family, FamilyShare>();
+/** One memo per work count (work.ts planMemo), as layout-memo.ts's. */
+const shares = planMemo<Family, FamilyShare>();
 
 function shareOf(family: Family): FamilyShare {
-  let s = shares.get(family);
+  let s = shares().get(family);
   if (!s) {
     const box = boxOf(family).cell;
     // Any float mid and half > 0 will do: they only have to be exact.
@@ -77,7 +79,7 @@ function shareOf(family: Family): FamilyShare {
     const scaling: InputScaling = { mid: mid.map((m) => Rational.fromNumber(m)), half: half.map((h) => Rational.fromNumber(h)) };
     const d = family.inputs.length;
     const polys = family.coefficients.map((e) => (e === null ? MultiPoly.zero(d) : exprPolynomial(e, scaling, family.constants)));
-    shares.set(family, (s = { mid, half, polys, byX0: new Map() }));
+    shares().set(family, (s = { mid, half, polys, byX0: new Map() }));
   }
   return s;
 }

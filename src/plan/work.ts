@@ -37,6 +37,10 @@ const meter = {
   total: 0,
   /** Where a search that has made no plan yet stops (`untilFirstPlanBy`); Infinity when none is set. */
   firstPlanBy: Infinity,
+  /** Units counted when this count's first plan was made (`planFound`); null before it. */
+  firstPlanAt: null as number | null,
+  /** Counts started so far in this process: the memos of `planMemo` belong to one count. */
+  generation: 0,
 };
 
 /** Starts counting a new plan's work. */
@@ -50,6 +54,8 @@ export function startWork(observer: WorkObserver | null = null, limit: number = 
   meter.observer = observer;
   meter.nextReport = limit / WORK.reports;
   meter.firstPlanBy = Infinity;
+  meter.firstPlanAt = null;
+  meter.generation++;
 }
 
 /**
@@ -95,6 +101,32 @@ export function workUsed(): number {
   return meter.used;
 }
 
+/** Units counted when the current count made its first plan (null before it): what a quoted fix's check spends, and a fresh run of the fixed spec as well. */
+export function workAtFirstPlan(): number | null {
+  return meter.firstPlanAt;
+}
+
+/**
+ * A memo of work already done (src/plan/layout-memo.ts, tight-range.ts)
+ * that lives for one count only: `startWork` and `restartWork` empty it.
+ * What a memo hands out again is not counted, so a memo that outlived its
+ * count would let a plan spend fewer units than the same plan in a fresh
+ * process: a quoted fix's check (same equation as the refused search) could
+ * pass where the user's run of the edited spec stops at the limit. With one
+ * memo per count, a plan's units depend only on its family.
+ */
+export function planMemo<K extends object, V>(): () => WeakMap<K, V> {
+  let map = new WeakMap<K, V>();
+  let generation = meter.generation;
+  return () => {
+    if (generation !== meter.generation) {
+      map = new WeakMap();
+      generation = meter.generation;
+    }
+    return map;
+  };
+}
+
 /** Units counted over every plan of this process so far. */
 export function workTotal(): number {
   return meter.total + meter.used;
@@ -125,6 +157,7 @@ let stopAtPlan = false;
 /** Called by src/plan/plan-segments.ts for every plan it makes; ends an `untilFirstPlan` run. */
 export function planFound(): void {
   meter.firstPlanBy = Infinity;
+  meter.firstPlanAt ??= meter.used;
   if (stopAtPlan) throw new FirstPlanFound();
 }
 
