@@ -12,14 +12,15 @@
 //   the previous build's chunks are removed first, so none lingers.
 // - ts-morph, typescript and playwright-core stay outside (`external`): they
 //   are loaded at run time from node_modules by the commands that need them,
-//   as before. Everything else (yargs, yaml, cli-progress, handlebars,
-//   decimal.js) is inside.
+//   as before; so does cli-progress, which src/cli/progress.ts requires only
+//   when it draws a bar (on a terminal). Everything else (yargs, yaml,
+//   handlebars, decimal.js) is inside.
 // - Paths to shipped files come from src/package-root.ts, which sits one
 //   level below the package root in src/, dist/ and as a chunk in dist/.
 // - yargs finds its message translations (node_modules/yargs/locales) from
 //   its own file's place; in the bundle that place is dist/, so the build
 //   points it at the installed yargs package instead (`yargsLocales`).
-// - CommonJS packages inside (yaml, handlebars, cli-progress) call require()
+// - CommonJS packages inside (yaml, handlebars) call require()
 //   for node's built-in modules: each output file gets a require of its own
 //   (`banner`).
 import { readdirSync, rmSync } from 'node:fs';
@@ -67,7 +68,7 @@ await build({
   platform: 'node',
   target: 'node20',
   tsconfig: join(ROOT, 'tsconfig.json'),
-  external: ['ts-morph', 'typescript', 'playwright-core'],
+  external: ['ts-morph', 'typescript', 'playwright-core', 'cli-progress'],
   banner: { js: "import { createRequire as __rootcastRequire } from 'node:module'; const require = __rootcastRequire(import.meta.url);" },
   plugins: [yargsLocales],
   allowOverwrite: true,

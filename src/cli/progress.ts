@@ -3,7 +3,17 @@
  * when stderr is a terminal: a build log or a pipe gets no bar and no escape
  * codes, so `verify` output stays one summary line per check.
  */
-import { SingleBar } from 'cli-progress';
+import { createRequire } from 'node:module';
+import type { SingleBar } from 'cli-progress';
+
+/**
+ * cli-progress, loaded the first time a bar is drawn: a build log or a pipe
+ * never draws one, so `plan` and `emit` there do not load it (start-up time,
+ * DEVELOPERS.md "The bundled command"; it stays outside the bundle).
+ */
+function progressBars(): typeof import('cli-progress') {
+  return createRequire(import.meta.url)('cli-progress') as typeof import('cli-progress');
+}
 
 /** What a progress display needs of a stream (process.stderr, or a fake in tests). */
 export interface ProgressStream {
@@ -26,7 +36,7 @@ export const PROGRESS_MIN_POINTS = 1000;
 
 export function startProgress(stream: ProgressStream, label: string, total: number): Progress {
   if (stream.isTTY !== true || total < PROGRESS_MIN_POINTS) return QUIET;
-  const bar = new SingleBar({
+  const bar = new (progressBars().SingleBar)({
     // cli-progress types the stream as a NodeJS.WritableStream; it only calls write and reads isTTY and columns.
     stream: stream as unknown as NodeJS.WritableStream,
     format: `${label} [{bar}] {value}/{total} points`,
@@ -58,7 +68,7 @@ export function planProgress(stream: ProgressStream, label: string, now: () => n
       if (stream.isTTY !== true) return;
       if (!bar) {
         if (now() - started < PLAN_PROGRESS_AFTER_MS) return;
-        bar = new SingleBar({
+        bar = new (progressBars().SingleBar)({
           stream: stream as unknown as NodeJS.WritableStream,
           format: `${label} [{bar}] {percentage}% of the work limit`,
           barsize: 30,

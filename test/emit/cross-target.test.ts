@@ -17,8 +17,8 @@ import { exactIeeeEvaluate } from './support/exact-ieee.js';
 import { demoInput } from './support/family.js';
 import { samplePoints } from './support/inputs.js';
 import { ALL_SAMPLES } from './support/programs.js';
-import { runC } from './support/run-c.js';
-import { runTs } from './support/run-ts.js';
+import { runC } from '../support/run-c.js';
+import { runTs } from '../support/run-ts.js';
 import { makeWorkDir } from '../support/workdir.js';
 
 const POINTS = 300;

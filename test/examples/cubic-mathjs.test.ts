@@ -28,7 +28,7 @@ import { makePlan, type Plan } from '../../src/plan/plan.js';
 import { readSpec } from '../../src/reader/read.js';
 import { checkSamplePoints } from '../../src/verify/samples.js';
 import { emitExample, fileEndingWith, type EmittedExample } from './support/emit-example.js';
-import { compileCFunction } from './support/run-c.js';
+import { compileCFunction } from '../support/run-c.js';
 import { makeWorkDir } from '../support/workdir.js';
 
 const POINTS = 200;

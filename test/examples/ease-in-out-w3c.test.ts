@@ -32,7 +32,7 @@ import { makeFoldedPlan } from '../../src/plan/plan.js';
 import { loadSpec } from '../../src/reader/load.js';
 import { checkSamplePoints } from '../../src/verify/samples.js';
 import { emitExample, fileEndingWith, type EmittedExample } from './support/emit-example.js';
-import { transpileTsFunction } from './support/run-ts.js';
+import { transpileTsFunction } from '../support/run-ts.js';
 import { makeWorkDir } from '../support/workdir.js';
 
 const SPEC = 'examples/ease-in-out-y.yaml';

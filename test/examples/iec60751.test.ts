@@ -20,8 +20,8 @@ import { afterAll, beforeAll, describe, expect, test } from '@jest/globals';
 import { Decimal } from 'decimal.js';
 import { evaluate } from '../../src/ir/evaluate.js';
 import { emitExample, fileEndingWith, type EmittedExample } from './support/emit-example.js';
-import { compileCFunction } from './support/run-c.js';
-import { transpileTsFunction } from './support/run-ts.js';
+import { compileCFunction } from '../support/run-c.js';
+import { transpileTsFunction } from '../support/run-ts.js';
 import { makeWorkDir } from '../support/workdir.js';
 
 const SPEC = 'examples/kiln-probe.yaml';

@@ -27,7 +27,7 @@ import { float32Hex, float64Hex } from '../support/bits.js';
 import { emitExample, fileEndingWith } from './support/emit-example.js';
 import { buildCHarness, buildTsHarness, type HarnessDump } from './support/harness-dump.js';
 import { exampleFiles, REPO_ROOT, specPathOf } from './support/repo.js';
-import { transpileTsFunction } from './support/run-ts.js';
+import { transpileTsFunction } from '../support/run-ts.js';
 import { makeWorkDir, type WorkDir } from '../support/workdir.js';
 
 const SAMPLES = 2000;

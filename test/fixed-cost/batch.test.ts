@@ -17,7 +17,7 @@ import { float64Hex } from '../support/bits.js';
 import { demoInput } from '../emit/support/family.js';
 import { samplePoints } from '../emit/support/inputs.js';
 import { ALL_SAMPLES, literalZoo, quadraticSeries, sqrtTaylor, unusedArgument } from '../emit/support/programs.js';
-import { gcc } from '../emit/support/run-c.js';
+import { gcc } from '../support/run-c.js';
 import { makeWorkDir } from '../support/workdir.js';
 
 const dir = makeWorkDir('batch');

@@ -3,10 +3,10 @@
  * absolute budget, the result appended and its bound carried (or the folded
  * trial, when cheaper). Family: 0.1 x^2 + x - s = 0, s in [0.5, 1],
  * root.bracket [0, 1.2], float64, one segment (plan.segments: 1, so no
- * segment search: a unit test's time) (test/plan/support/quadratic.ts), and
- * the same with c2 = k over [0.05, 0.15] as a second input; result
- * y = (1 + s) x^2 - 3 x + 0.5 (our own). With one input the folded form
- * wins here, with two it is not weighed (it needs one input). The reference is the result written
+ * segment search: a unit test's time) (test/plan/support/quadratic.ts),
+ * result y = (1 + s) x^2 - 3 x + 0.5 (our own). The folded form wins here
+ * when weighed; a root planner whose folded trial refuses gives the unfolded
+ * plan. The reference is the result written
  * out in decimal.js (120 digits) at the quadratic formula's root. The stage
  * is called with a root planner that records what it is asked for.
  */
@@ -19,38 +19,39 @@ import { makeFoldedPlan, makePlan } from '../../src/plan/plan.js';
 import { planWithResult } from '../../src/plan/result-stage.js';
 import type { Plan } from '../../src/plan/types.js';
 import { exactDecimal } from '../support/exact-decimal.js';
-import { readSpec } from '../../src/reader/read.js';
-import { quadraticFamily, quadraticRoot, quadraticText } from './support/quadratic.js';
+import { quadraticFamily, quadraticRoot } from './support/quadratic.js';
 
 const D = Decimal.clone({ precision: 120 });
 const exact = (x: number): Decimal => exactDecimal(D, x);
 const result = (s: Decimal, x: Decimal): Decimal => s.plus(1).times(x.pow(2)).minus(x.times(3)).plus('0.5');
 const points = Array.from({ length: 33 }, (_, i) => 0.5 + i / 64);
 
-/** The planner's own root planner, recording every family it is asked for (the folded trial's by makeFoldedPlan). */
-function recorder(): { asked: Family[]; planRoot: (f: Family) => Plan } {
+/**
+ * The planner's own root planner, recording every family it is asked for (the
+ * folded trial's by makeFoldedPlan). With `noFold` the folded trial finds no
+ * plan (a refusal, as when no folded plan meets the target), so the unfolded
+ * plan is returned.
+ */
+function recorder(noFold = false): { asked: Family[]; planRoot: (f: Family) => Plan } {
   const asked: Family[] = [];
-  return { asked, planRoot: (f) => (asked.push(f), f.foldResult ? makeFoldedPlan(f) : makePlan(f)) };
-}
-
-/** The family with one input (c2 = 0.1), or two (c2 = k over [0.05, 0.15]: no folded trial, which needs one input). */
-function familyOf(inputs: 1 | 2, accuracy: string): Family {
-  const text = quadraticText({ bracket: ['0', '1.2'], result: '(1 + s) * x ^ 2 - 3 * x + 0.5', accuracy, plan: ['segments: 1'], ...(inputs === 2 ? { c2: 'k' } : {}) });
-  return readSpec('result.yaml', inputs === 2 ? text.replace('  s: [0.5, 1]', '  s: [0.5, 1]\n  k: [0.05, 0.15]') : text);
+  const planRoot = (f: Family): Plan => {
+    asked.push(f);
+    if (f.foldResult && noFold) throw new RootcastError('no folded plan (this test\'s root planner)');
+    return f.foldResult ? makeFoldedPlan(f) : makePlan(f);
+  };
+  return { asked, planRoot };
 }
 
 describe.each([
-  [1, 'absolute: 1e-9'],
-  [1, 'relative: 1e-9'],
-  [2, 'absolute: 1e-6'],
-] as const)('planWithResult, %d input(s), %s', (inputs, accuracy) => {
-  const family = familyOf(inputs, accuracy);
-  const { asked, planRoot } = recorder();
+  ['absolute: 1e-9', false],
+  ['absolute: 1e-9', true],
+  ['relative: 1e-9', true],
+] as const)('planWithResult at %s, folded trial refused: %s', (accuracy, noFold) => {
+  const family = quadraticFamily({ bracket: ['0', '1.2'], result: '(1 + s) * x ^ 2 - 3 * x + 0.5', accuracy, plan: ['segments: 1'] });
+  const { asked, planRoot } = recorder(noFold);
   const plan = planWithResult(family, planRoot);
   const relative = accuracy.startsWith('relative');
   const target = Number(accuracy.split(': ')[1]);
-  const ks = inputs === 2 ? [0.05, 0.1, 0.15] : [0.1];
-  const args = (s: number, k: number): number[] => (inputs === 2 ? [s, k] : [s]);
 
   test('the root plans asked for: absolute budgets without the result (and the folded trial with it)', () => {
     const roots = asked.filter((f) => !f.foldResult);
@@ -68,19 +69,17 @@ describe.each([
     expect(plan.bound.total).toBeLessThanOrEqual(target);
     let worst = new D(0);
     for (const s of points) {
-      for (const k of ks) {
-        const yStar = result(exact(s), quadraticRoot(exact(s), exact(k)));
-        let err = exact(run(plan.program, args(s, k))).minus(yStar).abs();
-        if (relative) err = err.div(yStar.abs());
-        if (err.gt(worst)) worst = err;
-      }
+      const yStar = result(exact(s), quadraticRoot(exact(s)));
+      let err = exact(run(plan.program, [s])).minus(yStar).abs();
+      if (relative) err = err.div(yStar.abs());
+      if (err.gt(worst)) worst = err;
     }
     if (worst.gt(plan.bound.total)) throw new Error(`measured ${worst.toExponential(3)} > bound ${plan.bound.total}`);
   });
 
-  test('unfolded (always with two inputs), the root met its budget, and the carried part is the slope times the root\'s bound', () => {
+  test('folded when the trial finds a plan (cheaper here); else unfolded: the root met its budget, and the carried part is the slope times the root\'s bound', () => {
     const r = plan.result!;
-    if (inputs === 2) expect(r.folded).toBe(false);
+    expect(r.folded).toBe(!noFold);
     if (r.folded) return expect(plan.form).toBe('folded');
     expect(r.rootBound.total).toBeLessThanOrEqual(r.rootBudget);
     expect(asked.some((f) => Number(f.accuracy.value) === r.rootBudget)).toBe(true);
@@ -88,8 +87,8 @@ describe.each([
       expect(plan.bound.truncation).toBeGreaterThanOrEqual(r.slope * r.rootBound.total * (1 - 1e-12));
       expect(plan.bound.truncation).toBeLessThanOrEqual(r.slope * r.rootBound.total * (1 + 1e-9));
     }
-    // |d result / dx| = |2 (1 + s) x - 3| reaches 3 - 3 x* at s = 0.5 (x* largest where k is smallest): the slope bound covers it.
-    expect(exact(r.slope).gte(new D(3).minus(quadraticRoot('0.5', Math.min(...ks)).times(3)))).toBe(true);
+    // |d result / dx| = |2 (1 + s) x - 3| reaches 3 - 3 x* at s = 0.5: the slope bound covers it.
+    expect(exact(r.slope).gte(new D(3).minus(quadraticRoot('0.5').times(3)))).toBe(true);
   });
 
   test('the chosen plan is the cheapest row of the candidate table', () => {

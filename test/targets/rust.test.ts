@@ -22,7 +22,7 @@ import { samplePoints } from '../emit/support/inputs.js';
 import { ALL_SAMPLES } from '../emit/support/programs.js';
 import { emitExample } from '../examples/support/emit-example.js';
 import { exampleFiles, specPathOf } from '../examples/support/repo.js';
-import { compileCFunction } from '../examples/support/run-c.js';
+import { compileCFunction } from '../support/run-c.js';
 import { makeWorkDir } from '../support/workdir.js';
 import { segmentedProgram } from './support/segmented.js';
 

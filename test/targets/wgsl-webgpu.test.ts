@@ -23,8 +23,8 @@ import { checkSamplePoints } from '../../src/verify/samples.js';
 import { runWgslBits, runWgslMany, type WgslRun } from '../../src/verify/wgsl/run.js';
 import { emitExample } from '../examples/support/emit-example.js';
 import { exampleFiles, specPathOf } from '../examples/support/repo.js';
-import { compileCFunction } from '../examples/support/run-c.js';
-import { transpileTsFunction } from '../examples/support/run-ts.js';
+import { compileCFunction } from '../support/run-c.js';
+import { transpileTsFunction } from '../support/run-ts.js';
 import { makeWorkDir } from '../support/workdir.js';
 
 const dir = makeWorkDir('wgsl');

@@ -11,7 +11,7 @@ import { UnknownNodeError } from '../../../src/ir/nodes.js';
 import type { Arithmetic } from '../../../src/family/arithmetic.js';
 import { demoInput } from '../support/family.js';
 import { ALL_SAMPLES, constantResult, identity, quadraticSeries, sqrtTaylor, unusedArgument } from '../support/programs.js';
-import { gcc } from '../support/run-c.js';
+import { gcc } from '../../support/run-c.js';
 import { makeWorkDir } from '../../support/workdir.js';
 
 const ARITHMETICS: Arithmetic[] = ['float32', 'float64'];

@@ -14,7 +14,7 @@ import { cFunction } from '../../../src/emit/c/function.js';
 import { cTableName } from '../../../src/emit/c/body.js';
 import { segmentedProgram } from '../../glsl/support/segmented.js';
 import { demoInput } from '../support/family.js';
-import { gcc } from '../support/run-c.js';
+import { gcc } from '../../support/run-c.js';
 import { makeWorkDir } from '../../support/workdir.js';
 
 const dir = makeWorkDir('c-tables-once');

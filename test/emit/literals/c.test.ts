@@ -12,7 +12,7 @@ import { cLiteral, cOperand } from '../../../src/emit/literals/c.js';
 import { Rational } from '../../../src/math/rational.js';
 import type { Arithmetic } from '../../../src/family/arithmetic.js';
 import { float32Hex, float64Hex } from '../../support/bits.js';
-import { gcc } from '../support/run-c.js';
+import { gcc } from '../../support/run-c.js';
 import { makeWorkDir } from '../../support/workdir.js';
 
 /** A C99 decimal floating constant (6.4.4.2) with a `.` or an exponent. */

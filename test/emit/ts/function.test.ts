@@ -14,7 +14,7 @@ import type { Arithmetic } from '../../../src/family/arithmetic.js';
 import { float64Hex } from '../../support/bits.js';
 import { demoInput } from '../support/family.js';
 import { ALL_SAMPLES, constantResult, identity, quadraticSeries, sqrtTaylor, unusedArgument } from '../support/programs.js';
-import { runTs } from '../support/run-ts.js';
+import { runTs } from '../../support/run-ts.js';
 import { makeWorkDir } from '../../support/workdir.js';
 
 const ARITHMETICS: Arithmetic[] = ['float32', 'float64'];

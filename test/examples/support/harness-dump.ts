@@ -7,8 +7,8 @@ import { spawnSync } from 'node:child_process';
 import { join } from 'node:path';
 import type { EmittedFile } from '../../../src/emit/types.js';
 import { fileEndingWith } from './emit-example.js';
-import { gcc } from './run-c.js';
-import { writeTranspiled } from './run-ts.js';
+import { gcc } from '../../support/run-c.js';
+import { writeTranspiled } from '../../support/run-ts.js';
 import type { WorkDir } from '../../support/workdir.js';
 
 export interface DumpRow {
@@ -34,13 +34,14 @@ function parseDump(stdout: string, inputs: number, exitCode: number): HarnessDum
   return { rows, summary, exitCode };
 }
 
-/** Builds NAME_check.c beside NAME.h in dir (flags of run-c.ts) and returns a runner taking harness arguments. */
+/** Builds NAME_check.c beside NAME.h in dir (flags of test/support/run-c.ts) and returns a runner taking harness arguments. */
 export function buildCHarness(dir: WorkDir, files: readonly EmittedFile[], name: string, inputs: number): (args: readonly string[]) => HarnessDump {
   const header = fileEndingWith(files, '.h');
   const check = fileEndingWith(files, '_check.c');
   dir.write(header.path, header.text);
   dir.write(check.path, check.text);
-  const exe = gcc(dir, [check.path], `${name}_check`);
+  gcc(dir, [check.path, '-o', `${name}_check`]);
+  const exe = join(dir.path, `${name}_check`);
   return (args) => {
     const run = spawnSync(exe, args, { encoding: 'utf8', maxBuffer: 1 << 28 });
     return parseDump(run.stdout, inputs, run.status ?? 1);
