@@ -24,24 +24,37 @@ export class WorkLimitError extends Error {
 
 export type WorkObserver = (used: number, limit: number) => void;
 
-const meter = {
-  used: 0,
-  limit: WORK.limit as number,
-  cap: WORK.limit as number,
-  observer: null as WorkObserver | null,
-  nextReport: 0,
-  /** exactWork as last converted into units. */
-  steps: 0,
-  words: 0,
-  /** Units over every plan of this process (the benchmark's units per CPU second). */
-  total: 0,
-  /** Where a search that has made no plan yet stops (`untilFirstPlanBy`); Infinity when none is set. */
-  firstPlanBy: Infinity,
-  /** Units counted when this count's first plan was made (`planFound`); null before it. */
-  firstPlanAt: null as number | null,
-  /** Counts started so far in this process: the memos of `planMemo` belong to one count. */
-  generation: 0,
-};
+function newMeter() {
+  return {
+    used: 0,
+    limit: WORK.limit as number,
+    cap: WORK.limit as number,
+    observer: null as WorkObserver | null,
+    nextReport: 0,
+    /** exactWork as last converted into units. */
+    steps: 0,
+    words: 0,
+    /** Units over every plan of this process (the benchmark's units per CPU second). */
+    total: 0,
+    /** Where a search that has made no plan yet stops (`untilFirstPlanBy`); Infinity when none is set. */
+    firstPlanBy: Infinity,
+    /** Units counted when this count's first plan was made (`planFound`); null before it. */
+    firstPlanAt: null as number | null,
+    /** Counts started so far in this process: the memos of `planMemo` belong to one count. */
+    generation: 0,
+  };
+}
+
+/**
+ * One meter per process, kept under a global symbol: the command line runs
+ * as one bundle (scripts/bundle.js), while the benchmark's and the tests'
+ * preloads (bench/cpu-note.js, test/support/first-plan-note.mjs) read the
+ * count through dist/plan/work.js, a second copy of this module. Both copies
+ * then read and write the same count.
+ */
+const METER = Symbol.for('rootcast.work-meter');
+type Meter = ReturnType<typeof newMeter>;
+const meter = ((globalThis as Record<symbol, unknown>)[METER] ??= newMeter()) as Meter;
 
 /** Starts counting a new plan's work. */
 export function startWork(observer: WorkObserver | null = null, limit: number = WORK.limit): void {
