@@ -162,6 +162,15 @@ export class CoefficientRanges {
     };
   }
 
+  /**
+   * What `cell` reads of segment `segment` besides the cell: one object per
+   * family and exact expansion point, shared by every segmentation that has
+   * the point (plan/facts-memo.ts keys the cells' facts by it).
+   */
+  pointOf(segment: number): object {
+    return this.tensors(segment);
+  }
+
   /** The cell in scaled inputs: origins and widths (exact floats) of a box enclosing it. */
   private scaled(cell: readonly Interval[]): { origin: number[]; width: number[] } {
     const origin: number[] = [];
