@@ -18,7 +18,7 @@
  * memo is emptied with every new count (planMemo), so what a plan spends never
  * depends on an earlier plan.
  */
-import { analysisKey } from '../ir/analysis-key.js';
+import { analysisKey, floatChars } from '../ir/analysis-key.js';
 import type { Cell } from './box.js';
 import type { CellFacts } from './cell-bound.js';
 import type { AnalysisProgram } from './series-program.js';
@@ -27,22 +27,27 @@ import { planMemo } from './work.js';
 /** Per work count: each distinct program part of an analysis key, and each segment's whole key, by a short number, so the cells' keys stay short. */
 const interned = planMemo<object, Map<string, number>>();
 const INTERNED = {};
-/** Per work count and program: each segment's key, or null where none is kept. */
-const segmentKeys = planMemo<AnalysisProgram, Map<number, string | null>>();
+/** Per work count and program: the program's part of its segments' keys (null: none kept), and each segment's key with its x0. */
+interface ProgramKeys {
+  readonly degree: number;
+  readonly prefix: string | null;
+  readonly segments: Map<number, { readonly x0: number; readonly key: string | null }>;
+}
+const programKeys = planMemo<AnalysisProgram, ProgramKeys>();
 /** What is kept of a cell's facts: not its cell, segment, ranges or grade sums, so the memo holds no layout's cells or caches. */
 type Kept = Pick<CellFacts, 'T' | 'Q' | 'rRange' | 'rootMin' | 'rootMax' | 'c1Range' | 'state' | 'R' | 'aUpper' | 'rootRange'>;
-/** Facts by the expansion point as a float64 and the cell's bounds, one Map level per number (number keys hash fast). */
+/** Facts by the cell's bounds, one Map level per number (number keys hash fast). */
 type Level = Map<number | string, Level | Kept>;
-/** Per work count and expansion point (tight-range.ts pointOf): by segment key, then Levels. */
+/** Per work count and expansion point (tight-range.ts pointOf): by segment key (x0 as a float64 in it), then Levels. */
 const byPoint = planMemo<object, Map<string, Level>>();
 
 /** A float64 as a Map key: a Map takes -0 for 0 (SameValueZero), which the analysis does not always. */
 const numberKey = (x: number): number | string => (x === 0 && 1 / x < 0 ? '-0' : x);
 
-/** The level holding the facts of `cell` at `x0`, and their key there (levels made as needed). */
-function slotOf(root: Level, x0: number, cell: Cell): [Level, number | string] {
+/** The level holding the facts of `cell` and their key there (levels made as needed). */
+function slotOf(root: Level, cell: Cell): [Level, number | string] {
   let level = root;
-  let key = numberKey(x0);
+  let key: number | string = '';
   const down = (bound: number): void => {
     let next = level.get(key) as Level | undefined;
     if (!next) level.set(key, (next = new Map()));
@@ -56,26 +61,34 @@ function slotOf(root: Level, x0: number, cell: Cell): [Level, number | string] {
   return [level, key];
 }
 
-function segmentKey(ap: AnalysisProgram, degree: number, segment: number): string | null {
-  let keys = segmentKeys().get(ap);
-  if (!keys) segmentKeys().set(ap, (keys = new Map()));
-  let key = keys.get(segment);
-  if (key === undefined) {
-    const q = [...ap.q];
-    const analysis = analysisKey(ap.program, segment, [ap.r, ap.c1 ?? ap.r, ...q.map(([, ref]) => ref)]);
-    key = null;
-    if (analysis !== null) {
-      let ids = interned().get(INTERNED);
-      if (!ids) interned().set(INTERNED, (ids = new Map()));
-      let id = ids.get(analysis.structure);
-      if (id === undefined) ids.set(analysis.structure, (id = ids.size));
-      const full = JSON.stringify([id, degree, ap.c1 === null, q.map(([k]) => k)]) + analysis.segment;
-      let short = ids.get(full);
-      if (short === undefined) ids.set(full, (short = ids.size));
-      key = `${short}`;
-    }
-    keys.set(segment, key);
+function idOf(text: string): number {
+  let ids = interned().get(INTERNED);
+  if (!ids) interned().set(INTERNED, (ids = new Map()));
+  let id = ids.get(text);
+  if (id === undefined) ids.set(text, (id = ids.size));
+  return id;
+}
+
+/** The roots the facts read: r, c'1 (r again when it is a known constant), q_k in the map's order. */
+function rootsOf(ap: AnalysisProgram): number[] {
+  return [ap.r, ap.c1 ?? ap.r, ...[...ap.q].map(([, ref]) => ref)];
+}
+
+/** A short key for segment `segment` of `ap` expanded at `x0` (its cells' Map levels hang under it), or null. */
+function segmentKey(ap: AnalysisProgram, degree: number, segment: number, x0: number): string | null {
+  let keys = programKeys().get(ap);
+  if (!keys) {
+    // The program's part once per program: comparing its long string is the costly part of a lookup.
+    const analysis = analysisKey(ap.program, segment, rootsOf(ap));
+    const prefix = analysis && JSON.stringify([idOf(analysis.structure), degree, ap.c1 === null, [...ap.q.keys()]]);
+    programKeys().set(ap, (keys = { degree, prefix, segments: new Map() }));
   }
+  if (keys.prefix === null || keys.degree !== degree) return null;
+  const known = keys.segments.get(segment);
+  if (known && Object.is(known.x0, x0)) return known.key;
+  const analysis = analysisKey(ap.program, segment, rootsOf(ap))!;
+  const key = `${idOf(keys.prefix + floatChars(x0) + analysis.segment)}`;
+  keys.segments.set(segment, { x0, key });
   return key;
 }
 
@@ -86,14 +99,14 @@ function segmentKey(ap: AnalysisProgram, degree: number, segment: number): strin
  */
 export function factsOnce(ap: AnalysisProgram, degree: number, cell: Cell, x0: number, segment: number, compute: () => CellFacts): CellFacts {
   const ranges = ap.ranges;
-  const key = ranges ? segmentKey(ap, degree, segment) : null;
+  const key = ranges ? segmentKey(ap, degree, segment, x0) : null;
   if (!ranges || key === null) return compute();
   const point = ranges.pointOf(segment);
   let segments = byPoint().get(point);
   if (!segments) byPoint().set(point, (segments = new Map()));
   let root = segments.get(key);
   if (!root) segments.set(key, (root = new Map()));
-  const [level, last] = slotOf(root, x0, cell);
+  const [level, last] = slotOf(root, cell);
   const known = level.get(last) as Kept | undefined;
   if (known) return retarget(known, cell, segment, ap);
   const fresh = compute();
