@@ -101,7 +101,7 @@ export class CoefficientRanges {
   private readonly cache = new WeakMap<Interval, unknown>();
   private readonly noInputs = new Map<number, TightCell>();
   /** Per cell (by identity) and segment: P', P'' with the inputs' variables in Bernstein form (bernsteinFirst). */
-  private readonly partials = new WeakMap<Cell, Map<number, DerivativeParts>>();
+  private readonly partials = new WeakMap<Cell, Map<number, DerivativeParts | null>>();
 
   /** `x0[s]` is segment s's expansion point. */
   constructor(
@@ -172,15 +172,6 @@ export class CoefficientRanges {
     };
   }
 
-  /**
-   * What `cell` reads of segment `segment` besides the cell: one object per
-   * family and exact expansion point, shared by every segmentation that has
-   * the point (plan/facts-memo.ts keys the cells' facts by it).
-   */
-  pointOf(segment: number): object {
-    return this.tensors(segment);
-  }
-
   /** The cell in scaled inputs: origins and widths (exact floats) of a box enclosing it. */
   private scaled(cell: readonly Interval[]): { origin: number[]; width: number[] } {
     const origin: number[] = [];
@@ -237,11 +228,19 @@ export class CoefficientRanges {
   derivatives(cell: Cell, segment: number, J: Interval): { d1: Interval; d2: Interval } | null {
     const t = this.tensors(segment).derivatives();
     if (!t.d1 || !t.d2) return null;
-    // The inputs' variables come first (v is the last): their transform is the same for every J, kept per cell.
+    // The inputs' variables come first (v is the last): their transform is the same for every J, kept per cell
+    // from the second call on (a cell asked once, as most are in some searches, pays no copy).
     let bySegment = this.partials.get(cell);
     if (!bySegment) this.partials.set(cell, (bySegment = new Map()));
     let p = bySegment.get(segment);
-    if (!p) {
+    if (p === undefined) {
+      bySegment.set(segment, null);
+      const { origin, width } = this.scaled(cell);
+      origin.push(J.lo);
+      width.push(Math.max(0, subUp(J.hi, J.lo)));
+      return { d1: bernsteinRange(t.d1, origin, width), d2: bernsteinRange(t.d2, origin, width) };
+    }
+    if (p === null) {
       const { origin, width } = this.scaled(cell);
       const d = origin.length;
       p = { origin, width, d1: bernsteinFirst(t.d1, origin, width, d), d2: bernsteinFirst(t.d2, origin, width, d) };
