@@ -21,7 +21,8 @@ import { QuotedFixRefusal, refuseBadCells, refuseConstant, refuseSteps, refuseTa
 import { chooseRoot, plainRoot, pointText, rootAt, type RootChoice } from './root-choice.js';
 import type { SegmentLayout } from './segments.js';
 import { choiceOnce, layoutOnce, rootOnce, sharedOf, type LayoutShared, type NeedsCells } from './layout-memo.js';
-import { analysisProgram, CoefficientError, ZeroSlopeError, type AnalysisProgram, type Expansion } from './series-program.js';
+import { termsOfGrade } from '../series/hyper-catalan.js';
+import { analysisProgram, seriesProgram, CoefficientError, ZeroSlopeError, type AnalysisProgram, type Expansion } from './series-program.js';
 import { tableLimitBit } from './table-limit.js';
 import { planFound } from './work.js';
 import { TermPool } from './term-pool.js';
@@ -153,6 +154,19 @@ function newExpansion(family: Family, layout: SegmentLayout): { expansion: Expan
   const twoLevel = coarse.some((c) => c !== null) ? ` (two-level index: ${coarse.map((c, i) => c ?? `${layout.counts[i]} equal`).join(' x ')})` : '';
   const note = `the root in [${family.bracket![0]}, ${family.bracket![1]}], ${layout.counts.join(' x ')} segments${twoLevel}, each recentred at its own root (at the segment centre)`;
   return { expansion: { segmentation: layout.segmentation, x0 }, root: { ...root, note } };
+}
+
+/**
+ * The graded series at order 0 on a layout (x = x0 - r), its expansion and
+ * prefix shared with the layout's planning (layout-memo.ts): the least
+ * program of the recentred forms (cost-floor.ts). Throws as planSegments
+ * would for a layout it refuses.
+ */
+export function orderZeroProgram(family: Family, box: Cell, layout: SegmentLayout): Program {
+  const shared = sharedOf(family, box, layout);
+  const { expansion } = expansionFor(family, box, layout);
+  const ap = prefixOf(family, expansion, layout, shared);
+  return seriesProgram(family, expansion, termsOfGrade(family.degree, [...ap.q.keys()], 0));
 }
 
 /** The prefix program (r, q_k), with its refusals in the spec's words; one per layout (layout-memo.ts). */
