@@ -43,6 +43,8 @@ export interface CostFloor {
   readonly cost: number;
   /** The least table bytes any such plan needs (one value per segment, the two-level index's coarse-cell table included). */
   readonly bytes: number;
+  /** The order-0 series' table bytes where only recentred forms apply (the least any plan there needs), else null. */
+  readonly seriesBytes: number | null;
 }
 
 /** The floor of a layout of more than one segment; null when the layout has no order-0 series (planSegments then refuses it). */
@@ -54,9 +56,10 @@ export function costFloor(family: Family, box: Cell, layout: SegmentLayout): Cos
   // Distinct values, so the builder keeps a table (equal values would become one constant).
   const read = b.finish(b.const(Array.from({ length: segmentation.segments }, (_, s) => Rational.of(BigInt(s)))));
   const bytes = tableBytesOf(read);
-  if (family.foldResult || segmentation.segments <= ECONOMISE.maxSegments) return { cost: programCost(read, model), bytes };
+  if (family.foldResult || segmentation.segments <= ECONOMISE.maxSegments) return { cost: programCost(read, model), bytes, seriesBytes: null };
   try {
-    return { cost: programCost(orderZeroProgram(family, box, layout), model), bytes };
+    const zero = orderZeroProgram(family, box, layout);
+    return { cost: programCost(zero, model), bytes, seriesBytes: tableBytesOf(zero) };
   } catch (e) {
     if (e instanceof RootcastError || e instanceof ConstantOverflowError) return null;
     throw e;

@@ -26,7 +26,7 @@ import { analysisProgram, seriesProgram, CoefficientError, ZeroSlopeError, type 
 import { tableLimitBit } from './table-limit.js';
 import { planFound } from './work.js';
 import { TermPool } from './term-pool.js';
-import { initialCellsPerSegment, LIMITS, REFINE } from './tuning.js';
+import { ECONOMISE, initialCellsPerSegment, LIMITS, REFINE } from './tuning.js';
 import type { Plan } from './types.js';
 
 /**
@@ -50,6 +50,15 @@ function planSegmentsInner(family: Family, box: Cell, layout: SegmentLayout, tho
   // The plain series (x0 = 0) is not the layout's recentred expansion: its prefix is its own.
   const ap = prefixOf(family, expansion, layout, plain ? {} : sharedOf(family, box, layout));
   const relative = family.accuracy.kind === 'relative';
+  // Where only the recentred forms apply, every plan holds the order-0 series' tables (cost-floor.ts):
+  // when those alone outgrow plan.max_table_bytes no plan fits, so neither cells nor forms are weighed.
+  if (!plain && !family.foldResult && layout.segmentation.segments > ECONOMISE.maxSegments) {
+    const least = tableBytesOf(orderZeroProgram(family, box, layout));
+    if (least > family.plan.maxTableBytes) {
+      tableLimitBit();
+      refuseTable(family, counts, least, true);
+    }
+  }
   const x0 = expansion.x0.map((v) => v.toNumber());
   let set = firstSet(family, box, layout, ap, x0, plain ? {} : sharedOf(family, box, layout));
   if (plain) plainRootAtCentre(family, set.centreFacts());

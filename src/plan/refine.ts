@@ -18,6 +18,7 @@ import { planSegments, segmentNeeds, type RefineAim, type SegmentNeeds } from '.
 import type { SegmentLayout } from './segments.js';
 import { layoutOnce } from './layout-memo.js';
 import { cannotWin, costFloor } from './cost-floor.js';
+import { tableText } from './refusals.js';
 import { tableLimitBit } from './table-limit.js';
 import { REFINE, SEGMENT_SEARCH } from './tuning.js';
 import type { Candidate, Plan } from './types.js';
@@ -84,7 +85,13 @@ function refineFor(family: Family, box: Cell, coarse: readonly number[], levels:
       tableLimitBit();
       return null;
     }
-    const skip = cannotWin(costFloor(family, box, layout), weighed);
+    const floor = costFloor(family, box, layout);
+    // The order-0 series' tables are in every plan here (cost-floor.ts): past the limit, more segments only add to them.
+    if (floor?.seriesBytes && floor.seriesBytes > family.plan.maxTableBytes) {
+      tableLimitBit();
+      return { ...layout, skip: tableText(family, layout.counts, floor.seriesBytes, true) };
+    }
+    const skip = cannotWin(floor, weighed);
     if (skip !== null) return { ...layout, skip };
     let needs: SegmentNeeds;
     try {
