@@ -13,8 +13,8 @@
  *   than the economised form takes, ECONOMISE.maxSegments, and not the result
  *   stage's folded trial), every plan computes x0 - r a with a the series in
  *   the t_k (the graded series, the greedy term sets, the series before
- *   Newton steps), so the order-0 series x0 - r (plan-segments.ts
- *   orderZeroProgram) is the floor, with the table bytes of the first kind.
+ *   Newton steps), so the order-0 series x0 - r (series-program.ts
+ *   orderZeroSketch) is the floor, with the table bytes of the first kind.
  *
  * The segment search (segment-search.ts) and the two-level refinement
  * (refine.ts) skip a layout that cannot be chosen: when its floor costs more
@@ -32,7 +32,8 @@ import { COST_MODELS, costModelFor, programCost } from '../ir/cost/index.js';
 import type { Family } from '../family/types.js';
 import type { Cell } from './box.js';
 import { coarseCellsOf } from './candidates.js';
-import { orderZeroProgram } from './plan-segments.js';
+import { layoutExpansion } from './plan-segments.js';
+import { CoefficientError, orderZeroSketch, ZeroSlopeError } from './series-program.js';
 import { tableBytesOf } from './plan-of.js';
 import type { SegmentLayout } from './segments.js';
 import { ECONOMISE, REFINE } from './tuning.js';
@@ -58,10 +59,10 @@ export function costFloor(family: Family, box: Cell, layout: SegmentLayout): Cos
   const bytes = tableBytesOf(read);
   if (family.foldResult || segmentation.segments <= ECONOMISE.maxSegments) return { cost: programCost(read, model), bytes, seriesBytes: null };
   try {
-    const zero = orderZeroProgram(family, box, layout);
+    const zero = orderZeroSketch(family, layoutExpansion(family, box, layout));
     return { cost: programCost(zero, model), bytes, seriesBytes: tableBytesOf(zero) };
   } catch (e) {
-    if (e instanceof RootcastError || e instanceof ConstantOverflowError) return null;
+    if (e instanceof RootcastError || e instanceof ConstantOverflowError || e instanceof ZeroSlopeError || e instanceof CoefficientError) return null;
     throw e;
   }
 }

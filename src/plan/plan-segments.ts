@@ -21,8 +21,7 @@ import { QuotedFixRefusal, refuseBadCells, refuseConstant, refuseSteps, refuseTa
 import { chooseRoot, plainRoot, pointText, rootAt, type RootChoice } from './root-choice.js';
 import type { SegmentLayout } from './segments.js';
 import { choiceOnce, layoutOnce, rootOnce, sharedOf, type LayoutShared, type NeedsCells } from './layout-memo.js';
-import { termsOfGrade } from '../series/hyper-catalan.js';
-import { analysisProgram, seriesProgram, CoefficientError, ZeroSlopeError, type AnalysisProgram, type Expansion } from './series-program.js';
+import { analysisProgram, orderZeroSketch, CoefficientError, ZeroSlopeError, type AnalysisProgram, type Expansion } from './series-program.js';
 import { tableLimitBit } from './table-limit.js';
 import { planFound } from './work.js';
 import { TermPool } from './term-pool.js';
@@ -53,7 +52,7 @@ function planSegmentsInner(family: Family, box: Cell, layout: SegmentLayout, tho
   // Where only the recentred forms apply, every plan holds the order-0 series' tables (cost-floor.ts):
   // when those alone outgrow plan.max_table_bytes no plan fits, so neither cells nor forms are weighed.
   if (!plain && !family.foldResult && layout.segmentation.segments > ECONOMISE.maxSegments) {
-    const least = tableBytesOf(orderZeroProgram(family, box, layout));
+    const least = tableBytesOf(orderZeroSketch(family, expansion));
     if (least > family.plan.maxTableBytes) {
       tableLimitBit();
       refuseTable(family, counts, least, true);
@@ -165,17 +164,9 @@ function newExpansion(family: Family, layout: SegmentLayout): { expansion: Expan
   return { expansion: { segmentation: layout.segmentation, x0 }, root: { ...root, note } };
 }
 
-/**
- * The graded series at order 0 on a layout (x = x0 - r), its expansion and
- * prefix shared with the layout's planning (layout-memo.ts): the least
- * program of the recentred forms (cost-floor.ts). Throws as planSegments
- * would for a layout it refuses.
- */
-export function orderZeroProgram(family: Family, box: Cell, layout: SegmentLayout): Program {
-  const shared = sharedOf(family, box, layout);
-  const { expansion } = expansionFor(family, box, layout);
-  const ap = prefixOf(family, expansion, layout, shared);
-  return seriesProgram(family, expansion, termsOfGrade(family.degree, [...ap.q.keys()], 0));
+/** A layout's expansion (one x0 per segment), shared with its planning (layout-memo.ts). */
+export function layoutExpansion(family: Family, box: Cell, layout: SegmentLayout): Expansion {
+  return expansionFor(family, box, layout).expansion;
 }
 
 /** The prefix program (r, q_k), with its refusals in the spec's words; one per layout (layout-memo.ts). */
