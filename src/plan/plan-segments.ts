@@ -49,15 +49,6 @@ function planSegmentsInner(family: Family, box: Cell, layout: SegmentLayout, tho
   // The plain series (x0 = 0) is not the layout's recentred expansion: its prefix is its own.
   const ap = prefixOf(family, expansion, layout, plain ? {} : sharedOf(family, box, layout));
   const relative = family.accuracy.kind === 'relative';
-  // Where only the recentred forms apply, every plan holds the order-0 series' tables (cost-floor.ts):
-  // when those alone outgrow plan.max_table_bytes no plan fits, so neither cells nor forms are weighed.
-  if (!plain && !family.foldResult && layout.segmentation.segments > ECONOMISE.maxSegments) {
-    const least = tableBytesOf(orderZeroSketch(family, expansion));
-    if (least > family.plan.maxTableBytes) {
-      tableLimitBit();
-      refuseTable(family, counts, least, true);
-    }
-  }
   const x0 = expansion.x0.map((v) => v.toNumber());
   let set = firstSet(family, box, layout, ap, x0, plain ? {} : sharedOf(family, box, layout));
   if (plain) plainRootAtCentre(family, set.centreFacts());
@@ -74,6 +65,16 @@ function planSegmentsInner(family: Family, box: Cell, layout: SegmentLayout, tho
   }
   refuseBadCells(family, set.cells, relative);
   certifyRootInBracket(family, expansion.x0.map((v) => v.toNumber()), set.cells);
+  // Where only the recentred forms apply, every plan holds the order-0 series' tables (cost-floor.ts):
+  // when those alone outgrow plan.max_table_bytes no plan fits, so no form is weighed. After the
+  // cells: a coefficient's pole or a diverging series is the refusal to show first (test/hardening/broken-corpus.test.ts).
+  if (!plain && !family.foldResult && layout.segmentation.segments > ECONOMISE.maxSegments) {
+    const least = tableBytesOf(orderZeroSketch(family, expansion));
+    if (least > family.plan.maxTableBytes) {
+      tableLimitBit();
+      refuseTable(family, counts, least, true);
+    }
+  }
 
   const ctx: FormContext = {
     family,
