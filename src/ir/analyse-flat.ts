@@ -173,6 +173,23 @@ function tableFacts(program: Program, c: Compiled, segment: number): { lo: Float
   return t;
 }
 
+/** A program as analyseFlat compiles it, and one segment's table facts (for src/ir/analysis-key.ts). */
+export interface FlatParts {
+  readonly compiled: Pick<Compiled, 'op' | 'a' | 'b' | 'lo' | 'hi' | 'err' | 'errFtz'>;
+  readonly table: { readonly lo: Float64Array; readonly hi: Float64Array; readonly err: Float64Array } | null;
+}
+
+/** The node kinds of FlatParts' `op`. */
+export const FLAT_KINDS = { CONST, INPUT, NEG, CLAMP, ADD, SUB, MUL, DIV, INDEX, TABLE } as const;
+
+/** What `analyseFlat` reads of `program` in `segment`, but the cell; null when an enclosure hook is attached. */
+export function flatParts(program: Program, segment: number): FlatParts | null {
+  if (hooks.has(program)) return null;
+  let c = compiledPrograms.get(program);
+  if (!c) compiledPrograms.set(program, (c = compile(program)));
+  return { compiled: c, table: c.tableNodes.length > 0 ? tableFacts(program, c, segment) : null };
+}
+
 export function analyseFlat(program: Program, cell: readonly Interval[], opts: AnalyseOptions = {}): FlatAnalysis {
   const segment = opts.segment ?? 0;
   const ftz = opts.flushToZero === true;
@@ -360,13 +377,3 @@ export function analyseFlat(program: Program, cell: readonly Interval[], opts: A
 function clampTo(x: number, lo: number, hi: number): number {
   return x < lo ? lo : x > hi ? hi : x;
 }
-
-
-/** `largestComputed` of a flat analysis. */
-export function largestComputedFlat(a: FlatAnalysis): number {
-  const { lo, hi, err } = a;
-  let m = 0;
-  for (let i = 0; i < lo.length; i++) m = max(m, addUp(max(abs(lo[i]!), abs(hi[i]!)), err[i]!));
-  return m;
-}
-

@@ -25,9 +25,9 @@
 import { addUp } from '../math/directed.js';
 import { mag, type Interval } from '../math/interval.js';
 import type { Program } from './nodes.js';
-import { analyseFlat, type AnalyseOptions } from './analyse-flat.js';
+import { analyseFlat, type AnalyseOptions, type FlatAnalysis } from './analyse-flat.js';
 
-export { analyseFlat, attachEnclosures, largestComputedFlat, valueOf } from './analyse-flat.js';
+export { analyseFlat, attachEnclosures, valueOf } from './analyse-flat.js';
 export type { AnalyseOptions, EnclosureHook, FlatAnalysis } from './analyse-flat.js';
 
 export interface Analysis {
@@ -37,7 +37,7 @@ export interface Analysis {
   readonly unbounded: number;
 }
 
-const { max } = Math;
+const { abs, max } = Math;
 
 /**
  * The analysis as objects (an interval per node): for tests and callers
@@ -62,3 +62,10 @@ export function largestComputed(a: Analysis): number {
   return m;
 }
 
+/** `largestComputed` of a flat analysis. */
+export function largestComputedFlat(a: FlatAnalysis): number {
+  const { lo, hi, err } = a;
+  let m = 0;
+  for (let i = 0; i < lo.length; i++) m = max(m, addUp(max(abs(lo[i]!), abs(hi[i]!)), err[i]!));
+  return m;
+}

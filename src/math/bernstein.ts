@@ -105,6 +105,26 @@ let workHi = new Float64Array(64);
  * line when a value overflows.
  */
 export function bernsteinRange(t: IntervalTensor, origin: readonly number[], width: readonly number[]): Interval {
+  return bernsteinRest(t, t, origin, width, 0);
+}
+
+/**
+ * The coefficients after the first `dims` variables are taken to the
+ * Bernstein form over their sides of the box (a copy): what bernsteinRest
+ * finishes. A caller whose boxes share those sides (the Newton step's
+ * derivatives over one cell and many intervals of v, src/plan/tight-range.ts)
+ * keeps it, and the result is bit for bit that of bernsteinRange, which does
+ * the variables in the same order.
+ */
+export function bernsteinFirst(t: IntervalTensor, origin: readonly number[], width: readonly number[], dims: number): { lo: Float64Array; hi: Float64Array } {
+  const lo = Float64Array.from(t.lo);
+  const hi = Float64Array.from(t.hi);
+  for (let i = 0; i < dims; i++) transform(t, lo, hi, i, origin[i]!, width[i]!);
+  return { lo, hi };
+}
+
+/** bernsteinRange from `partial` (bernsteinFirst's, for the first `dims` variables): the other variables, then the extremes. */
+export function bernsteinRest(t: IntervalTensor, partial: { readonly lo: Float64Array; readonly hi: Float64Array }, origin: readonly number[], width: readonly number[], dims: number): Interval {
   const size = t.lo.length;
   if (workLo.length < size) {
     workLo = new Float64Array(2 * size);
@@ -112,37 +132,9 @@ export function bernsteinRange(t: IntervalTensor, origin: readonly number[], wid
   }
   const lo = workLo;
   const hi = workHi;
-  lo.set(t.lo);
-  hi.set(t.hi);
-  for (let i = 0; i < t.degrees.length; i++) {
-    const n = t.degrees[i]!;
-    if (n === 0) continue;
-    if (cl.length <= n) {
-      cl = new Float64Array(2 * n + 2);
-      ch = new Float64Array(2 * n + 2);
-      bl = new Float64Array(2 * n + 2);
-      bh = new Float64Array(2 * n + 2);
-    }
-    const a = origin[i]!;
-    const w = width[i]!;
-    const stride = t.strides[i]!;
-    const block = stride * (n + 1);
-    const beta = betas(n);
-    for (let outer = 0; outer < size; outer += block) {
-      for (let inner = 0; inner < stride; inner++) {
-        const base = outer + inner;
-        for (let k = 0; k <= n; k++) {
-          cl[k] = lo[base + k * stride]!;
-          ch[k] = hi[base + k * stride]!;
-        }
-        fibre(n, a, w, beta);
-        for (let k = 0; k <= n; k++) {
-          lo[base + k * stride] = bl[k]!;
-          hi[base + k * stride] = bh[k]!;
-        }
-      }
-    }
-  }
+  lo.set(partial.lo);
+  hi.set(partial.hi);
+  for (let i = dims; i < t.degrees.length; i++) transform(t, lo, hi, i, origin[i]!, width[i]!);
   let rl = Infinity;
   let rh = -Infinity;
   for (let k = 0; k < size; k++) {
@@ -151,6 +143,36 @@ export function bernsteinRange(t: IntervalTensor, origin: readonly number[], wid
   }
   if (!(rl > -Infinity && rh < Infinity)) return WHOLE;
   return { lo: rl, hi: rh };
+}
+
+/** Variable i of the coefficients in lo/hi (in place) to the Bernstein form over [a, a + w]. */
+function transform(t: IntervalTensor, lo: Float64Array, hi: Float64Array, i: number, a: number, w: number): void {
+  const n = t.degrees[i]!;
+  if (n === 0) return;
+  if (cl.length <= n) {
+    cl = new Float64Array(2 * n + 2);
+    ch = new Float64Array(2 * n + 2);
+    bl = new Float64Array(2 * n + 2);
+    bh = new Float64Array(2 * n + 2);
+  }
+  const size = t.lo.length;
+  const stride = t.strides[i]!;
+  const block = stride * (n + 1);
+  const beta = betas(n);
+  for (let outer = 0; outer < size; outer += block) {
+    for (let inner = 0; inner < stride; inner++) {
+      const base = outer + inner;
+      for (let k = 0; k <= n; k++) {
+        cl[k] = lo[base + k * stride]!;
+        ch[k] = hi[base + k * stride]!;
+      }
+      fibre(n, a, w, beta);
+      for (let k = 0; k <= n; k++) {
+        lo[base + k * stride] = bl[k]!;
+        hi[base + k * stride] = bh[k]!;
+      }
+    }
+  }
 }
 
 /** One variable's coefficients cl/ch (power form on [a, a + w]) -> bl/bh (Bernstein form on [0, 1]). */

@@ -3,9 +3,11 @@
  * denominator. Used wherever a value must be exact: constant folding of spec
  * expressions, the binary value of a float, the bisection reference.
  */
+import { bitLength, gcd } from './gcd.js';
 import { nextDown, nextUp } from './next-float.js';
 
 export { nextDown, nextUp };
+export { bitsOf, countPasses, countProduct, exactWork, gcd, wordsOf } from './gcd.js';
 
 // A float's two 32-bit words, read without allocating (fromNumber; next-float.ts has its own pair).
 const SCRATCH_F64 = new Float64Array(1);
@@ -147,10 +149,7 @@ export class Rational {
   }
   /** Smallest float64 >= this (toward +infinity; Infinity above MAX_VALUE, -MAX_VALUE below -MAX_VALUE). */
   toNumberUp(): number {
-    const x = this.toNumber();
-    if (x === -Infinity) return -Number.MAX_VALUE;
-    if (x === Infinity) return x;
-    return rounded.direction >= 0 ? x : nextUp(x);
+    return quotientUp(this.num, this.den);
   }
 
   /** [toNumberDown(), toNumberUp()] from one rounding: the rounding's remainder says on which side the value lies. */
@@ -188,168 +187,12 @@ function sumOf(a: Rational, n: bigint, d: bigint): Rational {
 }
 
 /**
- * Exact work done so far, for the planner's deterministic work meter
- * (src/plan/work.ts): `steps` counts multi-precision operations (a fixed
- * cost each, about 200 ns under node 20 on the 2-core AMD EPYC machine), `words`
- * the 64-bit word products they did (about 1 ns each there). This module counts
- * its own gcds, the costly part of every reduced sum and product; code that
- * does bare BigInt products (series/chebyshev.ts, series/grade-sums.ts)
- * reports them with `countProduct`. Counting never changes a result.
- */
-export const exactWork = { steps: 0, words: 0 };
-
-/** 64-bit words of a bit count (at least one). */
-export function wordsOf(bits: number): number {
-  return (bits >> 6) + 1;
-}
-
-/** Bits of |n|. */
-export function bitsOf(n: bigint): number {
-  return bitLength(n < 0n ? -n : n);
-}
-
-/** Counts `count` BigInt products of operands of `bitsA` and `bitsB` bits. */
-export function countProduct(bitsA: number, bitsB: number, count = 1): void {
-  exactWork.steps += count;
-  exactWork.words += count * wordsOf(bitsA) * wordsOf(bitsB);
-}
-
-/** gcd(a, b) for a, b >= 0 (1 when both are 0, so a division by it is harmless). */
-export function gcd(a: bigint, b: bigint): bigint {
-  if (a < b) [a, b] = [b, a];
-  if (b === 0n) return a === 0n ? 1n : a;
-  exactWork.steps += 1;
-  if (b === 1n) return 1n;
-  if (a <= SMALL) return BigInt(smallGcd(Number(a), Number(b)));
-  // One multi-precision remainder brings a small b's gcd to doubles.
-  if (b <= SMALL) return BigInt(smallGcd(Number(b), Number(a % b)));
-  // gcd(a, b) = 2^min(i, j) gcd(a / 2^i, b / 2^j) for the powers of two 2^i, 2^j dividing a and b exactly:
-  // the planner's denominators are mostly 2^i 5^j (a float times a decimal), whose odd part is often small.
-  const lowB = b & -b;
-  if (lowB !== 1n) {
-    const oddB = b >> BigInt(bitLength(lowB) - 1);
-    if (oddB <= SMALL) {
-      const lowA = a & -a;
-      const oddA = a >> BigInt(bitLength(lowA) - 1);
-      const g = oddB === 1n ? 1 : smallGcd(Number(oddB), Number(oddA % oddB));
-      return (lowA < lowB ? lowA : lowB) * BigInt(g);
-    }
-  }
-  return lehmerGcd(a, b);
-}
-
-/** Operands at most 2^53 - 1 are exact as doubles: Euclid's algorithm on numbers. */
-const SMALL = 2n ** 53n - 1n;
-/** Leading bits Lehmer's step reads: the quotients' test stays exact in doubles (see lehmerGcd). */
-const LEAD = 50;
-const LEAD_LOW = 2 ** (LEAD - 1);
-
-function smallGcd(a: number, b: number): number {
-  while (b !== 0) {
-    const t = a % b;
-    a = b;
-    b = t;
-  }
-  return a;
-}
-
-/** Bits of an integer 0 <= x < 2^53 held in a double. */
-function numberBits(x: number): number {
-  return x >= 2 ** 32 ? 64 - Math.clz32(Math.floor(x / 2 ** 32)) : 32 - Math.clz32(x);
-}
-
-/**
- * Lehmer's gcd (Knuth, TAOCP vol. 2, 4.5.2, Algorithm L) for a >= b > 0: the
- * quotients of Euclid's algorithm are found from the leading LEAD bits of a
- * and b in doubles, as long as both ends of the cofactor test agree on them,
- * and applied to the full numbers as one 2x2 cofactor matrix (four products by
- * numbers below 2^LEAD); a multi-precision division is done only when the
- * leading bits decide no quotient. The doubles stay exact: the leading parts
- * are below 2^(LEAD+2) (the first window is placed from a bit length that may
- * be one off), the cofactors below them, so every sum is below 2^53 and
- * floor(p / q) of two such integers is the exact quotient (its rounding error
- * is below 1/q). Each matrix step removes about LEAD/2 bits where
- * Euclid's step removes about one, and the BigInt work per step is linear in
- * the size either way.
- */
-function lehmerGcd(a: bigint, b: bigint): bigint {
-  // The leading part may be a bit or two longer than LEAD (roughBits): still exact, see above.
-  let shift = Math.max(0, roughBits(a) - LEAD);
-  while (b !== 0n) {
-    if (a <= SMALL) return BigInt(smallGcd(Number(a), Number(b)));
-    // One step (measured as above: 650 ns plus 5 ns per word of a): three
-    // operations' fixed cost and five linear passes over a (shifts, four small products, sums).
-    exactWork.steps += 3;
-    exactWork.words += 5 * wordsOf(shift + LEAD);
-    let x = Number(a >> BigInt(shift));
-    // a shrinks as the steps go: move the window down so x keeps about LEAD bits.
-    if (x < LEAD_LOW && shift > 0) {
-      shift = Math.max(0, shift - (LEAD - numberBits(x)));
-      x = Number(a >> BigInt(shift));
-    }
-    let y = Number(b >> BigInt(shift));
-    let A = 1;
-    let B = 0;
-    let C = 0;
-    let D = 1;
-    for (;;) {
-      if (y + C <= 0 || y + D <= 0) break;
-      const q = Math.floor((x + A) / (y + C));
-      if (q !== Math.floor((x + B) / (y + D))) break;
-      let t = A - q * C;
-      A = C;
-      C = t;
-      t = B - q * D;
-      B = D;
-      D = t;
-      t = x - q * y;
-      x = y;
-      y = t;
-    }
-    if (B === 0) {
-      const r = a % b;
-      a = b;
-      b = r;
-    } else {
-      const na = BigInt(A) * a + BigInt(B) * b;
-      b = BigInt(C) * a + BigInt(D) * b;
-      a = na;
-    }
-  }
-  return a;
-}
-
-/**
- * The bit length of n >= 0 give or take one, cheaply: from the double nearest
- * n (which can round up to the next power of two) below 2^1023, exactly above.
- */
-function roughBits(n: bigint): number {
-  const x = Number(n);
-  return x < 2 ** 1023 ? Math.floor(Math.log2(x)) + 1 : bitLength(n);
-}
-
-function bitLength(n: bigint): number {
-  if (n <= SMALL) return n <= 0n ? 0 : numberBits(Number(n));
-  const x = Number(n);
-  if (x < 2 ** 1023) {
-    // The double nearest n can round up to a power of two, and log2 can round: the estimate is
-    // off by at most one, and one shift settles it (n >> (b - 1) is 1 exactly when 2^(b-1) <= n < 2^b).
-    const b = Math.floor(Math.log2(x)) + 1;
-    const top = n >> BigInt(b - 1);
-    return top === 0n ? b - 1 : top === 1n ? b : b + 1;
-  }
-  const hex = n.toString(16);
-  // 4 bits per hex digit, less the leading zero bits of the first digit.
-  return hex.length * 4 - (Math.clz32(parseInt(hex[0]!, 16)) - 28);
-}
-
-/**
  * Correct rounding (to nearest, ties to even) of a rational to a binary format
  * with `precision` significand bits and smallest exponent `minExp` (the exponent
  * of the least significant bit of the smallest subnormal). Overflow gives
  * +-Infinity only beyond the format's range, which callers check.
  */
-function roundToBinary(r: Rational, precision: number, minExp: number): number {
+function roundToBinary(r: { readonly num: bigint; readonly den: bigint }, precision: number, minExp: number): number {
   if (r.num === 0n) {
     // Exact: the direction must say so, or a stale one from the last rounding moves 0 by a subnormal.
     rounded.direction = 0;
@@ -383,6 +226,18 @@ function roundToBinary(r: Rational, precision: number, minExp: number): number {
   const out = precision === 24 ? Math.fround(value) : value;
   rounded.direction = neg ? -side : side;
   return neg ? -out : out;
+}
+
+/**
+ * Smallest float64 >= num / den for den > 0 (Infinity above MAX_VALUE,
+ * -MAX_VALUE below -MAX_VALUE), from the fraction as it is: rounding needs no
+ * lowest terms, so a bound of an unreduced quotient costs no gcd.
+ */
+export function quotientUp(num: bigint, den: bigint): number {
+  const x = roundToBinary({ num, den }, 53, -1074);
+  if (x === -Infinity) return -Number.MAX_VALUE;
+  if (x === Infinity) return x;
+  return rounded.direction >= 0 ? x : nextUp(x);
 }
 
 /**

@@ -8,6 +8,7 @@
 import { divUp } from '../math/directed.js';
 import { splitGeometric, widestDim, widestRatioDim, split, type Cell } from './box.js';
 import { cellFacts, cellTail, type CellFacts } from './cell-bound.js';
+import { factsOnce } from './facts-memo.js';
 import type { AnalysisProgram } from './series-program.js';
 import { SUBDIVISION, WORK } from './tuning.js';
 import { spend } from './work.js';
@@ -35,10 +36,16 @@ export class CellSet {
     return set;
   }
 
-  /** One cell's facts, counted as work (src/plan/work.ts): a fixed cost per cell (WORK.cellUnits) and a unit per prefix node. */
+  /**
+   * One cell's facts, counted as work (src/plan/work.ts): a fixed cost per cell (WORK.cellUnits) and a unit per prefix node,
+   * unless the work count has computed them already (facts-memo.ts: another layout with the segment's expansion point).
+   */
   private facts(cell: Cell, segment: number): CellFacts {
-    spend(WORK.cellUnits + this.ap.program.nodes.length);
-    return cellFacts(this.ap, this.degree, cell, this.x0[segment]!, segment);
+    const x0 = this.x0[segment]!;
+    return factsOnce(this.ap, this.degree, cell, x0, segment, () => {
+      spend(WORK.cellUnits + this.ap.program.nodes.length);
+      return cellFacts(this.ap, this.degree, cell, x0, segment);
+    });
   }
 
   /** The facts at the centre point of the box (one segment's expansion), counted as work. */

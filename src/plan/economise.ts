@@ -9,7 +9,7 @@
  * change: it is added to the certified bound of every cell of that segment.
  * One degree is used for every segment, so the cost is the same for every input.
  */
-import { Rational } from '../math/rational.js';
+import { quotientUp, Rational } from '../math/rational.js';
 import { roundTo } from '../family/arithmetic.js';
 import type { Program } from '../ir/nodes.js';
 import { rationalsOf, scaledArgument, scaledComposeAffine, scaledFromChebyshev, scaledOf, scaledToChebyshev, type Scaled } from '../series/chebyshev.js';
@@ -87,7 +87,8 @@ export function economise(family: Family, e: Expansion, form: ChebyshevForm, bud
   if (degree === full) return null;
   const error = cheb.map((ch, s) => {
     const t = tail[s]![degree] ?? 0n;
-    return t === 0n ? 0 : Rational.of(t, ch.den).toNumberUp();
+    // Rounded up from the unreduced quotient: the same float as in lowest terms, without a gcd of the whole denominator.
+    return t === 0n ? 0 : quotientUp(t, ch.den);
   });
   // Kept Chebyshev terms back to monomials in v, then in u = rho v.
   const perSegment = cheb.map((ch, s) => {

@@ -167,6 +167,9 @@ export class PolishFailure extends Error {
  * Propagates the error through the steps for every cell. With `programs`
  * null only the Newton terms are carried (no rounding): a cheap lower bound
  * of the total used to skip hopeless orders before any program is built.
+ * With `stopAbove`, the cells stop at the first whose total exceeds it: the
+ * parts returned are then those of the cells seen, their total above
+ * `stopAbove` (a caller that only compares the total with it decides alike).
  */
 export function polishBound(
   cells: readonly CellFacts[],
@@ -174,6 +177,7 @@ export function polishBound(
   steps: number,
   relative: boolean,
   programs: { readonly core: Program; readonly steps: readonly Program[] } | null,
+  stopAbove = Infinity,
 ): PolishBound {
   const worst = new WorstParts(relative);
   // Counted as evaluate counts a program's analysis: nodes times cells (the Newton-only pass, one unit per step and cell).
@@ -195,6 +199,8 @@ export function polishBound(
       err = addUp(quad, rnd);
     }
     worst.add(c.rootMin, { truncation: quad, rounding: rnd, total: err });
+    // The caller asks only whether the total exceeds `stopAbove`: the largest total can only grow. The work is counted in full above.
+    if (worst.total > stopAbove) break;
   }
   return { truncation: worst.truncation, rounding: worst.rounding, total: worst.total, absolute: worst.absolute };
 }

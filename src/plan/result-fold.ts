@@ -11,7 +11,7 @@
  * the form that weighs it is src/plan/forms/folded.ts.
  */
 import { addUp } from '../math/directed.js';
-import { Rational } from '../math/rational.js';
+import { bitsOf, Rational } from '../math/rational.js';
 import { composeAffine } from '../series/chebyshev.js';
 import { exprPolynomial } from '../series/expr-poly.js';
 import type { Family, ResultSpec } from '../family/types.js';
@@ -87,8 +87,9 @@ function dyadic(r: Rational): Rational {
   return Rational.of((r.num / (r.den << BigInt(e))) << BigInt(e));
 }
 
+/** Bits of |n| rounded up to whole hex digits (4 ceil(bits / 4), 0 for 0): the rounding's exponent is defined by them. */
 function bitLength(n: bigint): number {
-  return n === 0n ? 0 : n.toString(16).length * 4;
+  return Math.ceil(bitsOf(n) / 4) * 4;
 }
 
 /**

@@ -17,7 +17,7 @@
  * interval value there. Callers intersect both enclosures: each is rigorous,
  * so their intersection is.
  */
-import { bernsteinRange, IntervalTensor } from '../math/bernstein.js';
+import { bernsteinFirst, bernsteinRange, bernsteinRest, IntervalTensor } from '../math/bernstein.js';
 import { divDown, divUp, subDown, subUp } from '../math/directed.js';
 import { containsZero, idiv, type Interval } from '../math/interval.js';
 import { MultiPoly } from '../math/multipoly.js';
@@ -33,6 +33,14 @@ interface SegmentTensors {
   readonly shifted: readonly (IntervalTensor | null)[];
   /** P'(x0 - v) and P''(x0 - v) in (u, v), null when some c'j is unknown (built when first asked for). */
   readonly derivatives: () => { readonly d1: IntervalTensor | null; readonly d2: IntervalTensor | null };
+}
+
+/** The Newton step's derivatives over one cell, every variable but v in Bernstein form, and the cell's scaled sides. */
+interface DerivativeParts {
+  readonly origin: readonly number[];
+  readonly width: readonly number[];
+  readonly d1: { readonly lo: Float64Array; readonly hi: Float64Array };
+  readonly d2: { readonly lo: Float64Array; readonly hi: Float64Array };
 }
 
 /** A cell's tight enclosures, index = power j (null where unknown). */
@@ -92,6 +100,8 @@ export class CoefficientRanges {
   private readonly segments = new Map<number, SegmentTensors>();
   private readonly cache = new WeakMap<Interval, unknown>();
   private readonly noInputs = new Map<number, TightCell>();
+  /** Per cell (by identity) and segment: P', P'' with the inputs' variables in Bernstein form (bernsteinFirst). */
+  private readonly partials = new WeakMap<Cell, Map<number, DerivativeParts>>();
 
   /** `x0[s]` is segment s's expansion point. */
   constructor(
@@ -162,6 +172,15 @@ export class CoefficientRanges {
     };
   }
 
+  /**
+   * What `cell` reads of segment `segment` besides the cell: one object per
+   * family and exact expansion point, shared by every segmentation that has
+   * the point (plan/facts-memo.ts keys the cells' facts by it).
+   */
+  pointOf(segment: number): object {
+    return this.tensors(segment);
+  }
+
   /** The cell in scaled inputs: origins and widths (exact floats) of a box enclosing it. */
   private scaled(cell: readonly Interval[]): { origin: number[]; width: number[] } {
     const origin: number[] = [];
@@ -218,10 +237,20 @@ export class CoefficientRanges {
   derivatives(cell: Cell, segment: number, J: Interval): { d1: Interval; d2: Interval } | null {
     const t = this.tensors(segment).derivatives();
     if (!t.d1 || !t.d2) return null;
-    const { origin, width } = this.scaled(cell);
-    origin.push(J.lo);
-    width.push(Math.max(0, subUp(J.hi, J.lo)));
-    return { d1: bernsteinRange(t.d1, origin, width), d2: bernsteinRange(t.d2, origin, width) };
+    // The inputs' variables come first (v is the last): their transform is the same for every J, kept per cell.
+    let bySegment = this.partials.get(cell);
+    if (!bySegment) this.partials.set(cell, (bySegment = new Map()));
+    let p = bySegment.get(segment);
+    if (!p) {
+      const { origin, width } = this.scaled(cell);
+      const d = origin.length;
+      p = { origin, width, d1: bernsteinFirst(t.d1, origin, width, d), d2: bernsteinFirst(t.d2, origin, width, d) };
+      bySegment.set(segment, p);
+    }
+    const d = p.origin.length;
+    const origin = [...p.origin, J.lo];
+    const width = [...p.width, Math.max(0, subUp(J.hi, J.lo))];
+    return { d1: bernsteinRest(t.d1, p.d1, origin, width, d), d2: bernsteinRest(t.d2, p.d2, origin, width, d) };
   }
 }
 

@@ -142,6 +142,37 @@ export const ORDER_SEARCH = {
   negligibleTruncation: 0.05,
   /** Rounding above this share of the target leaves too little room for any truncation: refuse at the floor. */
   roundingFloorShare: 1 / 2,
+  /**
+   * Where the order search would first refine cells, it bounds the program of
+   * that order on the cells as they are. When its rounding alone exceeds this
+   * share of the target, no cell is refined for truncation: refinement lowers
+   * the truncation bound by a fraction of what one more order does (random/260:
+   * 576 cells refined to 4059 for a 20 % smaller bound, each order then seven
+   * times dearer), and rounding takes the room it would make. Such a search
+   * climbs orders on the cells it has, and when rounding alone exceeds the
+   * target it quotes the best total it proved there. The refusal's quote, set
+   * as the target, leaves rounding more than this share of it (the search
+   * stops once truncation is under `negligibleTruncation` of rounding), so the
+   * quote's check takes the same path over the same cells and plans.
+   */
+  floorShare: 0.9,
+  /**
+   * Looking for the floor, the search weighs a program each time the truncation
+   * bound has fallen by this factor since the last one weighed (and at the first
+   * order where it is negligible): about one program in three orders, since the
+   * bound falls by 0.7 an order on random/260. Every weighed program is bounded
+   * in full; the ones skipped only might have quoted a slightly lower floor.
+   */
+  floorStep: 4,
+  /**
+   * The probe above is made only where this many units of roundoff times |x|
+   * (relative: times the ratio of |x|'s bounds on a cell) reach floorShare of
+   * the target (series-order.ts floorInReach). The floors met on the corpus
+   * were 6 to 20 such units (random/136 6, random/260 18); 4096 leaves room for
+   * intermediates some hundred times the root. A probe skipped wrongly only
+   * leaves the search as it was before the probe.
+   */
+  roundingReach: 4096,
 } as const;
 
 /** The Chebyshev-economised form (src/plan/forms/economised.ts). */

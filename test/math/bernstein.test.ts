@@ -11,7 +11,7 @@
 import { describe, expect, test } from '@jest/globals';
 import fc from 'fast-check';
 import { Decimal } from 'decimal.js';
-import { bernsteinRange, IntervalTensor } from '../../src/math/bernstein.js';
+import { bernsteinFirst, bernsteinRange, bernsteinRest, IntervalTensor } from '../../src/math/bernstein.js';
 import { MultiPoly } from '../../src/math/multipoly.js';
 import { Rational } from '../../src/math/rational.js';
 
@@ -108,5 +108,25 @@ describe('Bernstein enclosure, property (fast-check)', () => {
       }),
       { numRuns: 400, seed: 20261202 },
     );
+  });
+});
+
+describe('Bernstein enclosure in two steps (bernsteinFirst, bernsteinRest)', () => {
+  test('the first variables kept, the last over many intervals: bit for bit bernsteinRange, and the vertex values of x^2 y - 3 y^3 are inside', () => {
+    // p = x^2 y - 3 y^3 (integer coefficients, dyadic box ends: exact in decimal.js at 60 digits).
+    const p = MultiPoly.fromTerms(2, [
+      [[2, 1], Rational.ONE],
+      [[0, 3], Rational.int(-3)],
+    ]);
+    const t = tensor(p);
+    const first = bernsteinFirst(t, [0.5], [0.25], 1);
+    for (const [y0, w] of [[-1, 0.5], [0, 2], [0.125, 0.0625], [-3, 6]] as const) {
+      const whole = bernsteinRange(t, [0.5, y0], [0.25, w]);
+      expect(bernsteinRest(t, first, [0.5, y0], [0.25, w], 1)).toEqual(whole);
+      for (const x of [0.5, 0.75]) for (const y of [y0, y0 + w]) {
+        const v = new D(x).pow(2).times(y).minus(new D(y).pow(3).times(3));
+        expect(v.gte(whole.lo) && v.lte(whole.hi)).toBe(true);
+      }
+    }
   });
 });

@@ -125,6 +125,27 @@ describe('polishedProgram and polishBound on the quadratic', () => {
     expect(b1).toBeLessThanOrEqual(full.total);
   });
 
+  test('with stopAbove, the Newton-only bound stops at the first cell above it and decides alike: above when the full pass is above, the full pass itself when it is not', () => {
+    const order = 1;
+    ctx.pool.termsUpTo(order);
+    const whole = polishBound(cells, order, 1, false, null).total;
+    // A bar below the largest total: the early pass reports a total above the bar, and no larger than the full pass's.
+    for (const bar of [whole / 2, whole / 1e6, 0]) {
+      const early = polishBound(cells, order, 1, false, null, bar).total;
+      expect(early).toBeGreaterThan(bar);
+      expect(early).toBeLessThanOrEqual(whole);
+    }
+    // It does stop: with the cell of the least total first and a bar of 0, only that cell is seen.
+    const each = cells.map((c) => polishBound([c], order, 1, false, null).total);
+    const least = each.indexOf(Math.min(...each));
+    const reordered = [cells[least]!, ...cells.filter((_, i) => i !== least)];
+    expect(each[least]!).toBeLessThan(whole);
+    expect(polishBound(reordered, order, 1, false, null, 0).total).toBe(each[least]);
+    // A bar at or above it: every cell is seen, the same total.
+    expect(polishBound(cells, order, 1, false, null, whole).total).toBe(whole);
+    expect(polishBound(cells, order, 1, false, null, whole * 2).total).toBe(whole);
+  });
+
   test('stepProgram takes v as an exact input: one step from the series\' v gives the polished program\'s value, bit for bit', () => {
     const terms = ctx.pool.termsUpTo(2)!;
     const core = coreProgram(family, expansion, terms);

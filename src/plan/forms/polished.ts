@@ -42,7 +42,7 @@ export function polishedPlans(ctx: FormContext, found: FoundPlans): Plan[] {
     for (let n = 0; n <= maxOrder; n++) {
       let cheap;
       try {
-        cheap = polishBound(cells, n, k, relative, null);
+        cheap = polishBound(cells, n, k, relative, null, target);
       } catch (e) {
         if (e instanceof PolishFailure) continue;
         throw e;

@@ -5,7 +5,10 @@
  * truncation bound, so its refusal can say which order would be needed.
  */
 import { cellTail } from '../cell-bound.js';
-import { evaluate } from '../evaluate.js';
+import { addUp } from '../../math/directed.js';
+import { ARITHMETICS } from '../../family/arithmetic.js';
+import { evaluate, type Evaluated } from '../evaluate.js';
+import { RootcastError } from '../../errors.js';
 import { planOf, tableBytesOf } from '../plan-of.js';
 import { ConstantOverflowError } from '../../ir/builder.js';
 import type { Program } from '../../ir/nodes.js';
@@ -37,22 +40,12 @@ export function seriesOrderPlan(ctx: FormContext): Plan {
   // emitted would not plan when the user sets the target to it), and among those that do not
   // (quoted with their table bytes when none fits).
   type Miss = { total: number; rounding: number; bytes: number };
-  let best: Miss | null = null;
-  let oversize: Miss | null = null;
+  const misses: { best: Miss | null; oversize: Miss | null } = { best: null, oversize: null };
   const atFloor = (): never => {
-    const miss = (best ?? oversize)!;
+    const miss = (misses.best ?? misses.oversize)!;
     refuseFloor(family, miss.total, miss.rounding, null, miss.bytes);
   };
-  for (let order = 0; order <= family.plan.maxOrder; order++) {
-    if (!pool.nextGrade(order)) break;
-    let trunc = set.truncation(order, relative);
-    if (trunc > target * ORDER_SEARCH.refineAbove && trunc < target * ORDER_SEARCH.refineBelow) {
-      set.refineWorst(order, relative, LIMITS.cells);
-      trunc = set.truncation(order, relative);
-    }
-    if (trunc > target) continue;
-    const program = programOf(ctx);
-    const evaluated = evaluate(family, program, set.cells, (c) => cellTail(c, order), relative);
+  const note = (order: number, program: Program, evaluated: Evaluated): Plan | null => {
     if (evaluated.bound.total <= target) {
       ctx.checkTable(program);
       // A copy: the pool keeps growing as later forms ask for more grades.
@@ -60,11 +53,58 @@ export function seriesOrderPlan(ctx: FormContext): Plan {
     }
     const miss = { total: evaluated.bound.total, rounding: evaluated.bound.rounding, bytes: tableBytesOf(program) };
     if (miss.bytes > family.plan.maxTableBytes) {
-      if (!oversize || miss.total < oversize.total) oversize = miss;
-    } else if (!best || miss.total < best.total) best = miss;
+      if (!misses.oversize || miss.total < misses.oversize.total) misses.oversize = miss;
+    } else if (!misses.best || miss.total < misses.best.total) misses.best = miss;
+    return null;
+  };
+  // Where the search would first refine cells, the program of that order is bounded on the cells as
+  // they are (floorProbe). Refining lowers only the truncation bound, by less than one more order does:
+  // when rounding takes most of the target (ORDER_SEARCH.floorShare), the search climbs orders on the
+  // cells it has, and weighs a program only where its truncation beside the last rounding seen can
+  // meet the target (a guide: the bound of the program weighed is what decides). When rounding alone
+  // exceeds the target, it looks for the best total it can prove, the floor it quotes: it weighs the
+  // order whose truncation first falls below the last rounding seen, then each order whose truncation
+  // is a step (ORDER_SEARCH.floorStep) below the last one weighed, until truncation is negligible.
+  let probed = false;
+  let refine = true;
+  let floor = false;
+  let lastRounding = 0;
+  let nextBar = Infinity;
+  for (let order = 0; order <= family.plan.maxOrder; order++) {
+    if (!pool.nextGrade(order)) break;
+    let trunc = set.truncation(order, relative);
+    if (refine && trunc > target * ORDER_SEARCH.refineAbove && trunc < target * ORDER_SEARCH.refineBelow) {
+      if (!probed) {
+        probed = true;
+        const probe = floorInReach(ctx) ? floorProbe(ctx, order) : null;
+        const rounding = probe?.evaluated.bound.rounding ?? 0;
+        if (probe && rounding > target * ORDER_SEARCH.floorShare) {
+          refine = false;
+          floor = rounding > target;
+          lastRounding = rounding;
+          nextBar = rounding;
+          const plan = note(order, probe.program, probe.evaluated);
+          if (plan) return plan;
+        }
+      }
+      if (refine) {
+        set.refineWorst(order, relative, LIMITS.cells);
+        trunc = set.truncation(order, relative);
+      }
+    }
+    if (floor) {
+      if (!(trunc < Math.min(nextBar, lastRounding, misses.best?.total ?? Infinity, misses.oversize?.total ?? Infinity))) continue;
+    } else if (trunc > target || (!refine && addUp(trunc, lastRounding) > target)) continue;
+    const program = programOf(ctx);
+    const evaluated = evaluate(family, program, set.cells, (c) => cellTail(c, order), relative);
+    const plan = note(order, program, evaluated);
+    if (plan) return plan;
     // Truncation is already negligible next to rounding: more terms cannot help.
     if (evaluated.bound.truncation < ORDER_SEARCH.negligibleTruncation * evaluated.bound.rounding) atFloor();
+    lastRounding = evaluated.bound.rounding;
+    nextBar = Math.max(trunc / ORDER_SEARCH.floorStep, ORDER_SEARCH.negligibleTruncation * lastRounding);
   }
+  const { best, oversize } = misses;
   if ((best ?? oversize) && (best ?? oversize)!.rounding > target * ORDER_SEARCH.roundingFloorShare) atFloor();
   // Past max_order: find the order the truncation bound alone needs (no refinement), within a
   // share of the work limit; quote it only when its program meets the target with rounding too,
@@ -86,4 +126,37 @@ export function seriesOrderPlan(ctx: FormContext): Plan {
     if (!(e instanceof WorkLimitError)) throw e;
   }
   refuseOrder(family, null, order - 1);
+}
+
+/**
+ * Whether rounding can come near the target at all: the rounding bounds met
+ * at the corpus's floors were 6 to 20 units of roundoff times |x| (absolute)
+ * or times the spread of |x| over a cell (relative), and
+ * ORDER_SEARCH.roundingReach leaves room for intermediates far larger than
+ * the root. Where it cannot, the probe is not made (its program bounded over
+ * every cell was 7 % of random/255's time) and the search refines as it
+ * always did. A guide, never a bound: a probe skipped wrongly only leaves
+ * the search as slow as it was.
+ */
+function floorInReach(ctx: FormContext): boolean {
+  const u = ARITHMETICS[ctx.family.arithmetic].u;
+  let scale = 0;
+  for (const c of ctx.set.cells) scale = Math.max(scale, ctx.relative ? c.rootMax / c.rootMin : c.rootMax);
+  return !(ORDER_SEARCH.roundingReach * u * scale < ctx.target * ORDER_SEARCH.floorShare);
+}
+
+/**
+ * The bound of the program of every grade up to `order` on the cells as they
+ * are, before any is refined for truncation; null when that program cannot be
+ * built or bounded there (its refusal, if it stands, comes later in the
+ * search as before).
+ */
+function floorProbe(ctx: FormContext, order: number): { program: Program; evaluated: Evaluated } | null {
+  try {
+    const program = seriesProgram(ctx.family, ctx.expansion, ctx.pool.kept);
+    return { program, evaluated: evaluate(ctx.family, program, ctx.set.cells, (c) => cellTail(c, order), ctx.relative) };
+  } catch (e) {
+    if (e instanceof ConstantOverflowError || e instanceof RootcastError) return null;
+    throw e;
+  }
 }

@@ -15,6 +15,8 @@ import { evaluate as run } from '../../../src/ir/evaluate.js';
 import { cellTail } from '../../../src/plan/cell-bound.js';
 import { evaluate } from '../../../src/plan/evaluate.js';
 import { seriesOrderPlan } from '../../../src/plan/forms/series-order.js';
+import { QuotedFixRefusal } from '../../../src/plan/refusals.js';
+import { ORDER_SEARCH } from '../../../src/plan/tuning.js';
 import { seriesProgram } from '../../../src/plan/series-program.js';
 import { exactDecimal } from '../../support/exact-decimal.js';
 import { oneBoxContext } from '../support/form-context.js';
@@ -86,5 +88,43 @@ describe('seriesOrderPlan', () => {
     const quoted = Number(/needs order (\d+)/.exec(message)?.[1]);
     expect(quoted).toBeGreaterThan(plan.order - 2);
     expect(quoted).toBeLessThanOrEqual(plan.order);
+  });
+});
+
+describe('below the rounding floor (float32, absolute 1e-9: half an ulp of x near 0.9 is 3e-8 by IEEE 754 binary32)', () => {
+  const family = quadraticFamily({ accuracy: 'absolute: 1e-9', arithmetic: 'float32' });
+  const ctx = oneBoxContext(family);
+  const cellsBefore = ctx.set.cells.length;
+  let refusal: QuotedFixRefusal | null = null;
+  try {
+    seriesOrderPlan(ctx);
+  } catch (e) {
+    if (!(e instanceof QuotedFixRefusal)) throw e;
+    refusal = e;
+  }
+
+  test('it is refused at the floor, quoting a target, and no cell was refined for a truncation that rounding alone outweighs', () => {
+    expect(refusal?.kind).toBe('floor');
+    expect(refusal!.message).toMatch(/^the target 1e-9 is below the float32 rounding floor of this plan: the best certified absolute error is ([0-9.e-]+) \(rounding alone ([0-9.e-]+)\); set accuracy\.absolute: \1 or looser, or use arithmetic: float64$/);
+    expect(ctx.set.cells.length).toBe(cellsBefore);
+  });
+
+  test('the floor quoted is the best total: truncation is under a twentieth of rounding there (ORDER_SEARCH.negligibleTruncation), so the quote is within that share of rounding alone', () => {
+    const [, quoted, rounding] = /error is ([0-9.e-]+) \(rounding alone ([0-9.e-]+)\)/.exec(refusal!.message)!.map(Number);
+    // Both are printed to three digits, rounded up (the quote) and to nearest (rounding): a 1 % allowance.
+    expect(quoted!).toBeLessThanOrEqual(rounding! * (1 + ORDER_SEARCH.negligibleTruncation) * 1.01);
+    expect(quoted!).toBeGreaterThanOrEqual(rounding!);
+  });
+
+  test('the quote, applied, plans (its bound at most the quote), and the plan meets it against the quadratic formula (decimal.js)', () => {
+    const fixed = refusal!.apply(family);
+    const quote = fixed.accuracy.value.toNumber();
+    const plan = seriesOrderPlan(oneBoxContext(fixed));
+    expect(plan.bound.total).toBeLessThanOrEqual(quote);
+    for (const s of points) {
+      const fs = Math.fround(s);
+      const err = exact(run(plan.program, [fs])).minus(quadraticRoot(exact(fs))).abs();
+      if (err.gt(plan.bound.total)) throw new Error(`measured ${err.toExponential(3)} > bound ${plan.bound.total} at s = ${fs}`);
+    }
   });
 });
