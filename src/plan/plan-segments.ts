@@ -21,11 +21,11 @@ import { QuotedFixRefusal, refuseBadCells, refuseConstant, refuseSteps, refuseTa
 import { chooseRoot, plainRoot, pointText, rootAt, type RootChoice } from './root-choice.js';
 import type { SegmentLayout } from './segments.js';
 import { choiceOnce, layoutOnce, rootOnce, sharedOf, type LayoutShared, type NeedsCells } from './layout-memo.js';
-import { analysisProgram, CoefficientError, ZeroSlopeError, type AnalysisProgram, type Expansion } from './series-program.js';
+import { analysisProgram, orderZeroSketch, CoefficientError, ZeroSlopeError, type AnalysisProgram, type Expansion } from './series-program.js';
 import { tableLimitBit } from './table-limit.js';
 import { planFound } from './work.js';
 import { TermPool } from './term-pool.js';
-import { initialCellsPerSegment, LIMITS, REFINE } from './tuning.js';
+import { ECONOMISE, initialCellsPerSegment, LIMITS, REFINE } from './tuning.js';
 import type { Plan } from './types.js';
 
 /**
@@ -65,6 +65,16 @@ function planSegmentsInner(family: Family, box: Cell, layout: SegmentLayout, tho
   }
   refuseBadCells(family, set.cells, relative);
   certifyRootInBracket(family, expansion.x0.map((v) => v.toNumber()), set.cells);
+  // Where only the recentred forms apply, every plan holds the order-0 series' tables (cost-floor.ts):
+  // when those alone outgrow plan.max_table_bytes no plan fits, so no form is weighed. After the
+  // cells: a coefficient's pole or a diverging series is the refusal to show first (test/hardening/broken-corpus.test.ts).
+  if (!plain && !family.foldResult && layout.segmentation.segments > ECONOMISE.maxSegments) {
+    const least = tableBytesOf(orderZeroSketch(family, expansion));
+    if (least > family.plan.maxTableBytes) {
+      tableLimitBit();
+      refuseTable(family, counts, least, true);
+    }
+  }
 
   const ctx: FormContext = {
     family,
@@ -153,6 +163,11 @@ function newExpansion(family: Family, layout: SegmentLayout): { expansion: Expan
   const twoLevel = coarse.some((c) => c !== null) ? ` (two-level index: ${coarse.map((c, i) => c ?? `${layout.counts[i]} equal`).join(' x ')})` : '';
   const note = `the root in [${family.bracket![0]}, ${family.bracket![1]}], ${layout.counts.join(' x ')} segments${twoLevel}, each recentred at its own root (at the segment centre)`;
   return { expansion: { segmentation: layout.segmentation, x0 }, root: { ...root, note } };
+}
+
+/** A layout's expansion (one x0 per segment), shared with its planning (layout-memo.ts). */
+export function layoutExpansion(family: Family, box: Cell, layout: SegmentLayout): Expansion {
+  return expansionFor(family, box, layout).expansion;
 }
 
 /** The prefix program (r, q_k), with its refusals in the spec's words; one per layout (layout-memo.ts). */

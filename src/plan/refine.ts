@@ -17,6 +17,8 @@ import { candidatesOf, refusedCandidate } from './candidates.js';
 import { planSegments, segmentNeeds, type RefineAim, type SegmentNeeds } from './plan-segments.js';
 import type { SegmentLayout } from './segments.js';
 import { layoutOnce } from './layout-memo.js';
+import { cannotWin, costFloor } from './cost-floor.js';
+import { tableText } from './refusals.js';
 import { tableLimitBit } from './table-limit.js';
 import { REFINE, SEGMENT_SEARCH } from './tuning.js';
 import type { Candidate, Plan } from './types.js';
@@ -27,7 +29,8 @@ export interface RefinedResult {
 }
 
 /** Two-level plans for the inputs free in `fixed` (null = searched); the fixed inputs keep equal segments. */
-export function refinedPlans(family: Family, box: Cell, fixed: readonly (number | null)[]): RefinedResult {
+/** `weighed`: the plans already found; a layout that cannot win among them is given up (cost-floor.ts). */
+export function refinedPlans(family: Family, box: Cell, fixed: readonly (number | null)[], weighed: readonly Plan[] = []): RefinedResult {
   const d = family.inputs.length;
   const coarseCount = REFINE.coarse[Math.min(d, REFINE.coarse.length) - 1]!;
   const coarse = fixed.map((k) => k ?? coarseCount);
@@ -36,7 +39,14 @@ export function refinedPlans(family: Family, box: Cell, fixed: readonly (number 
   const seen = new Set<string>();
   for (const aim of REFINE.aims) for (const order of REFINE.orders) {
     const levels = fixed.map((k) => (k === null ? new Array<number>(coarseCount).fill(0) : null));
-    const layout = refineFor(family, box, coarse, levels, order, aim);
+    const layout = refineFor(family, box, coarse, levels, order, aim, weighed);
+    if (layout && 'skip' in layout) {
+      const row = refusedCandidate(layout.counts, layout.skip, false, layout.refine.map((r) => (r ? r.length : null)));
+      const key = `skip ${JSON.stringify(layout.refine)}`;
+      if (!seen.has(key)) candidates.push(row);
+      seen.add(key);
+      continue;
+    }
     if (!layout) continue;
     const key = JSON.stringify(layout.refine);
     if (seen.has(key)) continue;
@@ -54,7 +64,11 @@ export function refinedPlans(family: Family, box: Cell, fixed: readonly (number 
 }
 
 /** Splits coarse cells until every segment meets REFINE.share of the target at `order`; null when the tables outgrow the limit first. */
-function refineFor(family: Family, box: Cell, coarse: readonly number[], levels: (number[] | null)[], order: number, aim: RefineAim): SegmentLayout | null {
+/**
+ * `skip` (with the layout reached) when the layout cannot win among `weighed`:
+ * refining further only adds segments, so it cannot win later either.
+ */
+function refineFor(family: Family, box: Cell, coarse: readonly number[], levels: (number[] | null)[], order: number, aim: RefineAim, weighed: readonly Plan[]): SegmentLayout | (SegmentLayout & { readonly skip: string }) | null {
   const bytes = ARITHMETICS[family.arithmetic].bytes;
   for (;;) {
     let layout: SegmentLayout;
@@ -71,6 +85,14 @@ function refineFor(family: Family, box: Cell, coarse: readonly number[], levels:
       tableLimitBit();
       return null;
     }
+    const floor = costFloor(family, box, layout);
+    // The order-0 series' tables are in every plan here (cost-floor.ts): past the limit, more segments only add to them.
+    if (floor?.seriesBytes && floor.seriesBytes > family.plan.maxTableBytes) {
+      tableLimitBit();
+      return { ...layout, skip: tableText(family, layout.counts, floor.seriesBytes, true) };
+    }
+    const skip = cannotWin(floor, weighed);
+    if (skip !== null) return { ...layout, skip };
     let needs: SegmentNeeds;
     try {
       // With one searched input every split is along it (splitDirections): its needs input by input would guide nothing.

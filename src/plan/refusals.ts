@@ -263,9 +263,15 @@ export function refuseConstant(family: Family, exact: Rational): never {
 /** A program's segment tables exceed plan.max_table_bytes. */
 export class TableRefusal extends RootcastError {}
 
-export function refuseTable(family: Family, counts: readonly number[], tableBytes: number): never {
+/** The table refusal's words (a skipped two-level layout's row says the same, refine.ts). */
+export function tableText(family: Family, counts: readonly number[], tableBytes: number, least = false): string {
+  return `the ${counts.join(' x ')} segment tables need ${least ? 'at least ' : ''}${tableBytes} bytes, more than plan.max_table_bytes ${family.plan.maxTableBytes}; raise it or use fewer segments`;
+}
+
+/** `least`: the bytes are the least any plan on these segments needs (plan-segments.ts, from the order-0 series). */
+export function refuseTable(family: Family, counts: readonly number[], tableBytes: number, least = false): never {
   throw new TableRefusal(
-    `the ${counts.join(' x ')} segment tables need ${tableBytes} bytes, more than plan.max_table_bytes ${family.plan.maxTableBytes}; raise it or use fewer segments`,
+    tableText(family, counts, tableBytes, least),
     locate(family, family.positions['plan.max_table_bytes'] ? 'plan.max_table_bytes' : 'plan.segments'),
   );
 }

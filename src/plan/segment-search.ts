@@ -15,6 +15,8 @@ import type { Cell } from './box.js';
 import { locate } from './locate.js';
 import { candidatesOf, refusedCandidate, withCandidates } from './candidates.js';
 import { planSegments } from './plan-segments.js';
+import { cannotWin, costFloor } from './cost-floor.js';
+import { layoutOnce } from './layout-memo.js';
 import type { PlainTrial } from './plain-series.js';
 import { refinedPlans } from './refine.js';
 import { moreActionable, QuotedFixRefusal, TableRefusal } from './refusals.js';
@@ -41,6 +43,11 @@ export function searchSegments(family: Family, box: Cell, fixed: readonly (numbe
     return p;
   };
   const attemptNew = (counts: number[]): Plan | null => {
+    const skip = oneFree ? skipped(family, box, counts, [...tried.values()]) : null;
+    if (skip !== null) {
+      candidates.push(refusedCandidate(counts, skip, !family.bracket));
+      return null;
+    }
     try {
       // Without a bracket there is no search: the one-box plan is the answer, so certify it thoroughly.
       const p = planSegments(family, box, counts, !family.bracket);
@@ -62,6 +69,10 @@ export function searchSegments(family: Family, box: Cell, fixed: readonly (numbe
   };
   let current = fixed.map((k) => k ?? 1);
   const free = fixed.map((k) => k === null);
+  // With one searched input a layout that cannot win is skipped (cost-floor.ts): the search
+  // then takes the same steps it would have taken, since a skipped layout's plan would not have
+  // been cheaper than the best. With more, which input to double next depends on every trial's cost.
+  const oneFree = free.filter((f) => f).length === 1;
   if (!family.bracket && current.some((k) => k > 1)) {
     throw new RootcastError(
       'segments need root.bracket: each segment recentres the series at its own root; add root.bracket or set plan.segments: 1',
@@ -100,7 +111,7 @@ export function searchSegments(family: Family, box: Cell, fixed: readonly (numbe
   const all: Plan[] = [...tried.values()].filter((p): p is Plan => p !== null);
   if (free.some((f) => f) && !found.exhausted) {
     try {
-      const refined = refinedPlans(family, box, fixed);
+      const refined = refinedPlans(family, box, fixed, all);
       candidates.push(...refined.candidates);
       all.push(...refined.plans);
     } catch (e) {
@@ -136,6 +147,22 @@ export function frugalChoice(plans: readonly Plan[]): Plan {
   const cheapest = Math.min(...plans.map((p) => p.cost));
   const near = plans.filter((p) => p.cost <= cheapest * (1 + REFINE.costSlack));
   return near.reduce((a, b) => (b.tableBytes < a.tableBytes || (b.tableBytes === a.tableBytes && b.cost < a.cost) ? b : a));
+}
+
+/** Why a layout of more than one segment cannot be chosen among the plans weighed (cost-floor.ts), or null. */
+function skipped(family: Family, box: Cell, counts: readonly number[], weighed: readonly (Plan | null)[]): string | null {
+  if (counts.every((k) => k === 1)) return null;
+  const plans = weighed.filter((p): p is Plan => p !== null);
+  if (plans.length === 0) return null;
+  let layout;
+  try {
+    layout = layoutOnce(family, box, counts, undefined);
+  } catch (e) {
+    // planSegments gives the layout's own refusal.
+    if (e instanceof RootcastError) return null;
+    throw e;
+  }
+  return cannotWin(costFloor(family, box, layout), plans);
 }
 
 /** A coarse check before planning: the least table a segmented plan needs must fit. */

@@ -59,7 +59,8 @@ interface Mark {
 }
 
 /** Affine forms of the spec's coefficients, recentred at x0 (per segment). */
-export function setupSeries(family: Family, x0: SegValues, b: ProgramBuilder): SeriesSetup {
+/** `upTo`: only the shifted coefficients c'0 .. c'upTo (orderZeroSketch); every active power is then left out. */
+export function setupSeries(family: Family, x0: SegValues, b: ProgramBuilder, upTo = family.coefficients.length - 1): SeriesSetup {
   const S = b.segments;
   const forms = family.coefficients.map((e, k) => {
     if (e === null) return constantForm(uniform(Rational.ZERO, S));
@@ -70,7 +71,7 @@ export function setupSeries(family: Family, x0: SegValues, b: ProgramBuilder): S
       throw err;
     }
   });
-  const shifted = shiftedForms(forms, x0, addForms, scaleForm, (w) => w);
+  const shifted = shiftedForms(forms, x0, addForms, scaleForm, (w) => w, upTo);
   const active: number[] = [];
   for (let k = 2; k < shifted.length; k++) if (!isZero(shifted[k]!)) active.push(k);
   return { shifted, active, x0 };
@@ -213,6 +214,19 @@ export function analysisProgram(family: Family, e: Expansion): AnalysisProgram {
   const base = baseOf(family, e, []);
   const p = base.prefix;
   return { program: base.b.snapshot(), r: p.r, q: p.q, c1: p.c1, ranges: rangesFor(family, e) };
+}
+
+/**
+ * The order-0 series x = x0 - r of an expansion, built from c'0 and c'1
+ * alone (the full prefix recentres every coefficient): the same nodes as
+ * seriesProgram's at order 0, for the cost floor (plan/cost-floor.ts), never
+ * emitted or analysed. Throws ZeroSlopeError or CoefficientError as the
+ * prefix would.
+ */
+export function orderZeroSketch(family: Family, e: Expansion): Program {
+  const b = new ProgramBuilder(family.arithmetic, family.inputs.map((i) => i.name), e.segmentation);
+  const p = buildPrefix(b, setupSeries(family, e.x0, b, 1));
+  return b.finish(b.subFrom(b.const(e.x0), b.mul(p.r, b.const(Rational.ONE))));
 }
 
 /** The emitted program for the kept terms (ordered by grade, as termsUpToGrade gives them). */

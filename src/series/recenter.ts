@@ -27,10 +27,11 @@ export function shiftedForms<F, W>(
   add: (a: F, b: F) => F,
   scale: (a: F, w: W) => F,
   weight: (w: readonly Rational[]) => W,
+  upTo: number = c.length - 1,
 ): F[] {
   const n = c.length - 1;
   const out: F[] = [];
-  for (let j = 0; j <= n; j++) {
+  for (let j = 0; j <= Math.min(n, upTo); j++) {
     let acc = scale(c[j]!, weight(x0.map(() => Rational.ONE)));
     for (let k = j + 1; k <= n; k++) {
       const w = x0.map((x) => Rational.of(binomial(k, j)).mul(x.pow(k - j)));

@@ -33,6 +33,8 @@ const SLOW = [
   'test/plan/segments-property.test.ts',
   // Plan a bracketed quadratic's whole segment search in process: seconds on a busy machine.
   'test/plan/table-limit.test.ts',
+  // Plans eleven layouts of a quadratic in process to check the cost floor against them.
+  'test/plan/cost-floor.test.ts',
   'test/plan/first-plan.test.ts',
   'test/support/plan-cache.test.ts',
   // Runs scripts/gen-harness.js (ts-morph) through a dynamic import, which the import scan does not follow.

@@ -6,6 +6,7 @@
  */
 import { cellTail } from '../cell-bound.js';
 import { addUp } from '../../math/directed.js';
+import { ARITHMETICS } from '../../family/arithmetic.js';
 import { evaluate, type Evaluated } from '../evaluate.js';
 import { RootcastError } from '../../errors.js';
 import { planOf, tableBytesOf } from '../plan-of.js';
@@ -75,7 +76,7 @@ export function seriesOrderPlan(ctx: FormContext): Plan {
     if (refine && trunc > target * ORDER_SEARCH.refineAbove && trunc < target * ORDER_SEARCH.refineBelow) {
       if (!probed) {
         probed = true;
-        const probe = floorProbe(ctx, order);
+        const probe = floorInReach(ctx) ? floorProbe(ctx, order) : null;
         const rounding = probe?.evaluated.bound.rounding ?? 0;
         if (probe && rounding > target * ORDER_SEARCH.floorShare) {
           refine = false;
@@ -125,6 +126,23 @@ export function seriesOrderPlan(ctx: FormContext): Plan {
     if (!(e instanceof WorkLimitError)) throw e;
   }
   refuseOrder(family, null, order - 1);
+}
+
+/**
+ * Whether rounding can come near the target at all: the rounding bounds met
+ * at the corpus's floors were 6 to 20 units of roundoff times |x| (absolute)
+ * or times the spread of |x| over a cell (relative), and
+ * ORDER_SEARCH.roundingReach leaves room for intermediates far larger than
+ * the root. Where it cannot, the probe is not made (its program bounded over
+ * every cell was 7 % of random/255's time) and the search refines as it
+ * always did. A guide, never a bound: a probe skipped wrongly only leaves
+ * the search as slow as it was.
+ */
+function floorInReach(ctx: FormContext): boolean {
+  const u = ARITHMETICS[ctx.family.arithmetic].u;
+  let scale = 0;
+  for (const c of ctx.set.cells) scale = Math.max(scale, ctx.relative ? c.rootMax / c.rootMin : c.rootMax);
+  return !(ORDER_SEARCH.roundingReach * u * scale < ctx.target * ORDER_SEARCH.floorShare);
 }
 
 /**
