@@ -32,8 +32,8 @@ import { COST_MODELS, costModelFor, programCost } from '../ir/cost/index.js';
 import type { Family } from '../family/types.js';
 import type { Cell } from './box.js';
 import { coarseCellsOf } from './candidates.js';
-import { layoutExpansion } from './plan-segments.js';
-import { CoefficientError, orderZeroSketch, ZeroSlopeError } from './series-program.js';
+import { layoutOrderZero } from './plan-segments.js';
+import { CoefficientError, ZeroSlopeError } from './series-program.js';
 import { tableBytesOf } from './plan-of.js';
 import type { SegmentLayout } from './segments.js';
 import { ECONOMISE, REFINE } from './tuning.js';
@@ -59,7 +59,7 @@ export function costFloor(family: Family, box: Cell, layout: SegmentLayout): Cos
   const bytes = tableBytesOf(read);
   if (family.foldResult || segmentation.segments <= ECONOMISE.maxSegments) return { cost: programCost(read, model), bytes, seriesBytes: null };
   try {
-    const zero = orderZeroSketch(family, layoutExpansion(family, box, layout));
+    const zero = layoutOrderZero(family, box, layout);
     return { cost: programCost(zero, model), bytes, seriesBytes: tableBytesOf(zero) };
   } catch (e) {
     if (e instanceof RootcastError || e instanceof ConstantOverflowError || e instanceof ZeroSlopeError || e instanceof CoefficientError) return null;

@@ -17,6 +17,7 @@
  * another: a quoted fix's check counts what the user's run of the fix will.
  */
 import type { Rational } from '../math/rational.js';
+import type { Program } from '../ir/nodes.js';
 import type { Family } from '../family/types.js';
 import type { Cell } from './box.js';
 import type { CellFacts } from './cell-bound.js';
@@ -42,6 +43,8 @@ export interface LayoutShared {
   /** The same cells as a search trial repairs them (plan-segments.ts repairedSet), copied alike. */
   repairedFacts?: readonly CellFacts[];
   needsCells?: NeedsCells;
+  /** The order-0 series sketch (series-program.ts orderZeroSketch) the cost floor and the table check read. */
+  orderZero?: Program;
 }
 
 /**

@@ -25,7 +25,8 @@ import { analysisProgram, orderZeroSketch, CoefficientError, ZeroSlopeError, typ
 import { tableLimitBit } from './table-limit.js';
 import { planFound } from './work.js';
 import { TermPool } from './term-pool.js';
-import { ECONOMISE, initialCellsPerSegment, LIMITS, REFINE } from './tuning.js';
+import { ECONOMISE, initialCellsPerSegment, LIMITS, REFINE, SEGMENT_SEARCH } from './tuning.js';
+import { ARITHMETICS } from '../family/arithmetic.js';
 import type { Plan } from './types.js';
 
 /**
@@ -68,8 +69,10 @@ function planSegmentsInner(family: Family, box: Cell, layout: SegmentLayout, tho
   // Where only the recentred forms apply, every plan holds the order-0 series' tables (cost-floor.ts):
   // when those alone outgrow plan.max_table_bytes no plan fits, so no form is weighed. After the
   // cells: a coefficient's pole or a diverging series is the refusal to show first (test/hardening/broken-corpus.test.ts).
-  if (!plain && !family.foldResult && layout.segmentation.segments > ECONOMISE.maxSegments) {
-    const least = tableBytesOf(orderZeroSketch(family, expansion));
+  const segments = layout.segmentation.segments;
+  const nearLimit = segments * ARITHMETICS[family.arithmetic].bytes * SEGMENT_SEARCH.minValuesPerSegment * SEGMENT_SEARCH.tableCheckReach > family.plan.maxTableBytes;
+  if (!plain && !family.foldResult && segments > ECONOMISE.maxSegments && nearLimit) {
+    const least = tableBytesOf(layoutOrderZero(family, box, layout));
     if (least > family.plan.maxTableBytes) {
       tableLimitBit();
       refuseTable(family, counts, least, true);
@@ -165,9 +168,10 @@ function newExpansion(family: Family, layout: SegmentLayout): { expansion: Expan
   return { expansion: { segmentation: layout.segmentation, x0 }, root: { ...root, note } };
 }
 
-/** A layout's expansion (one x0 per segment), shared with its planning (layout-memo.ts). */
-export function layoutExpansion(family: Family, box: Cell, layout: SegmentLayout): Expansion {
-  return expansionFor(family, box, layout).expansion;
+/** A layout's order-0 series sketch (series-program.ts orderZeroSketch), made once per layout (layout-memo.ts). */
+export function layoutOrderZero(family: Family, box: Cell, layout: SegmentLayout): Program {
+  const shared = sharedOf(family, box, layout);
+  return (shared.orderZero ??= orderZeroSketch(family, expansionFor(family, box, layout).expansion));
 }
 
 /** The prefix program (r, q_k), with its refusals in the spec's words; one per layout (layout-memo.ts). */

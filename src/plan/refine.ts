@@ -85,9 +85,11 @@ function refineFor(family: Family, box: Cell, coarse: readonly number[], levels:
       tableLimitBit();
       return null;
     }
-    const floor = costFloor(family, box, layout);
+    // The floor is built only where it can skip something (tableCheckReach, tuning.ts).
+    const nearLimit = least * SEGMENT_SEARCH.tableCheckReach > family.plan.maxTableBytes;
+    const floor = weighed.length > 0 || nearLimit ? costFloor(family, box, layout) : null;
     // The order-0 series' tables are in every plan here (cost-floor.ts): past the limit, more segments only add to them.
-    if (floor?.seriesBytes && floor.seriesBytes > family.plan.maxTableBytes) {
+    if (nearLimit && floor?.seriesBytes && floor.seriesBytes > family.plan.maxTableBytes) {
       tableLimitBit();
       return { ...layout, skip: tableText(family, layout.counts, floor.seriesBytes, true) };
     }

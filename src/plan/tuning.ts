@@ -32,6 +32,17 @@ export const SEGMENT_SEARCH = {
    * point x0 and one recentred coefficient per segment.
    */
   minValuesPerSegment: 2,
+  /**
+   * The early table check (plan-segments.ts, refine.ts) builds a layout's
+   * order-0 series sketch, exact arithmetic per segment, only when the least
+   * table above (minValuesPerSegment values a segment) is within this factor
+   * of plan.max_table_bytes: the sketch's tables (x0 and the affine parts of
+   * c'0 and c'1) seldom hold more than four values a segment, so further from
+   * the limit the check would only cost time (0.2 s of battery-soc's
+   * two-level search, which never nears it). Skipping the check changes no
+   * plan: the forms refuse the layout's tables themselves.
+   */
+  tableCheckReach: 4,
 } as const;
 
 /** The two-level (non-uniform) segment search (src/plan/refine.ts, DESIGN.md 1.11). */
