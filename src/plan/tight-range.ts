@@ -131,12 +131,20 @@ export class CoefficientRanges {
     const degrees = this.polys.map((p) => (p ? totalDegree(p) : 0));
     // c'j exactly, computed when first asked for: most are never needed (see `needed`).
     const exact = new Map<number, MultiPoly | null>();
+    // x0^i, kept: every c'j asks for them.
+    const x0Powers: Rational[] = [Rational.ONE];
+    const x0Power = (i: number): Rational => {
+      for (let k = x0Powers.length; k <= i; k++) x0Powers.push(x0.pow(k));
+      return x0Powers[i]!;
+    };
     const shiftedPoly = (j: number): MultiPoly | null => {
       if (exact.has(j)) return exact.get(j)!;
-      let acc: MultiPoly | null = this.polys[j]!;
-      for (let k = j + 1; k <= n && acc; k++) {
-        const ck = this.polys[k]!;
-        acc = ck ? acc.add(ck.scale(Rational.of(binomial(k, j)).mul(x0.pow(k - j)))) : null;
+      // One pass over every term (MultiPoly.combination): the exact sum, as adding them one by one.
+      const parts: (readonly [MultiPoly, Rational])[] = [];
+      let acc: MultiPoly | null = null;
+      if (this.polys.slice(j).every((p) => p !== null)) {
+        for (let k = j; k <= n; k++) parts.push([this.polys[k]!, k === j ? Rational.ONE : Rational.of(binomial(k, j)).mul(x0Power(k - j))]);
+        acc = MultiPoly.combination(this.mid.length, parts);
       }
       exact.set(j, acc);
       return acc;
@@ -153,17 +161,13 @@ export class CoefficientRanges {
     const derivative = (order: 1 | 2): IntervalTensor | null => {
       const shifted = Array.from({ length: n + 1 }, (_, j) => (j >= order ? shiftedPoly(j) : null));
       if (shifted.some((p, j) => j >= order && p === null)) return null;
-      const vars = this.mid.length;
-      let acc = MultiPoly.zero(vars + 1);
-      for (let j = order; j <= n; j++) {
-        const e = new Array<number>(vars + 1).fill(0);
-        e[vars] = j - order;
+      // sum_j (-1)^(j - order) j!/(j - order)! c'j v^(j - order), each power of v from one j.
+      const parts = shifted.slice(order).map((p, m) => {
+        const j = m + order;
         const falling = order === 1 ? j : j * (j - 1);
-        const sign = (j - order) % 2 === 0 ? 1 : -1;
-        const vPower = MultiPoly.fromTerms(vars + 1, [[e, Rational.int(sign * falling)]]);
-        acc = acc.add(shifted[j]!.extend().mul(vPower));
-      }
-      return IntervalTensor.of(acc);
+        return [p!, Rational.int(m % 2 === 0 ? falling : -falling)] as const;
+      });
+      return IntervalTensor.of(MultiPoly.powerSeriesIn(this.mid.length, parts));
     };
     let built: { d1: IntervalTensor | null; d2: IntervalTensor | null } | null = null;
     return {
