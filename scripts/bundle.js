@@ -20,8 +20,8 @@
 // - yargs finds its message translations (node_modules/yargs/locales) from
 //   its own file's place; in the bundle that place is dist/, so the build
 //   points it at the installed yargs package instead (`yargsShim`).
-// - Start-up (`yargsShim`, `yargsCommand`): two pieces of yargs' work that
-//   only its help text uses are taken off every run. (1) cliui and
+// - Start-up (`yargsShim`, `yargsCommand`): three pieces of yargs' work
+//   that a run without help needs not do are taken off every run. (1) cliui and
 //   string-width, which lay the help out, build Intl.Segmenters and Unicode
 //   property regexes (\p{RGI_Emoji}) at their top level, about 20 ms; yargs
 //   reaches them only through its platform shim, so the shim gets them from
@@ -31,9 +31,17 @@
 //   handler, in case the handler fails; our commands run after the parse
 //   (src/cli/main.ts), yargs gives each a no-op handler, and nothing reads
 //   that cache: with our .fail() yargs never prints help on a failure, and
-//   --help renders afresh. Each patch checks the text it replaces, so a
+//   --help renders afresh. (3) node:assert, for yargs' internal assertions,
+//   loads only when one fails. Each patch checks the text it replaces, so a
 //   yargs that changes it fails the build rather than going slow or wrong.
-// - CommonJS packages inside (yaml, handlebars) call require()
+// - yaml comes from its ES module build (`alias`; the build its package
+//   exports outside node, the same source), not the CommonJS one node would
+//   pick: esbuild drops the parts the reader never reaches and the module
+//   wrappers, about 9 ms of every run that reads a spec. What differs: a
+//   warning goes to console.warn instead of process.emitWarning (the reader's
+//   parseDocument gives its warnings back rather than printing them), and
+//   yaml's own debugging switches LOG_TOKENS and LOG_STREAM are absent.
+// - CommonJS packages inside (handlebars) call require()
 //   for node's built-in modules: each output file gets a require of its own
 //   (`banner`).
 import { readdirSync, rmSync } from 'node:fs';
@@ -57,7 +65,18 @@ const LAZY_LAYOUT = [
   "export const lazyStringWidth = (...args) => (stringWidth ??= require('string-width').default)(...args);",
 ].join('\n');
 
-/** yargs' ESM shim: the translations directory from the installed package, not from the bundle's place; cliui and string-width on demand. */
+/**
+ * yargs' two assertions (one runs on every command), with node:assert (its
+ * load is about 4 ms) loaded only to throw when one fails. `require` is the
+ * shim's own createRequire, declared below (hoisted: called only later).
+ */
+const LAZY_ASSERT = [
+  "const notStrictEqual = (actual, expected, message) => { if (Object.is(actual, expected)) require('node:assert').notStrictEqual(actual, expected, message); };",
+  "const strictEqual = (actual, expected, message) => { if (!Object.is(actual, expected)) require('node:assert').strictEqual(actual, expected, message); };",
+  '',
+].join('\n');
+
+/** yargs' ESM shim: the translations directory from the installed package, not from the bundle's place; node:assert, cliui and string-width on demand. */
 const yargsShim = {
   name: 'yargs-shim',
   setup(b) {
@@ -67,6 +86,7 @@ const yargsShim = {
       const { readFile } = await import('node:fs/promises');
       let text = await readFile(args.path, 'utf8');
       text = patch(text, "directory: resolve(__dirname, '../../../locales')", "directory: fileURLToPath(new URL('./locales/', import.meta.resolve('yargs')))", args.path);
+      text = patch(text, "import { notStrictEqual, strictEqual } from 'assert'\n", LAZY_ASSERT, args.path);
       text = patch(text, "import cliui from 'cliui'\n", '', args.path);
       text = patch(text, "import stringWidth from 'string-width';\n", "import { lazyCliui, lazyStringWidth } from 'rootcast-lazy-layout';\n", args.path);
       text = patch(text, '  cliui,\n', '  cliui: lazyCliui,\n', args.path);
@@ -114,6 +134,7 @@ await build({
   tsconfig: join(ROOT, 'tsconfig.json'),
   external: ['ts-morph', 'typescript', 'playwright-core', 'cli-progress'],
   banner: { js: "import { createRequire as __rootcastRequire } from 'node:module'; const require = __rootcastRequire(import.meta.url);" },
+  alias: { yaml: join(ROOT, 'node_modules', 'yaml', 'browser', 'index.js') },
   plugins: [yargsShim, yargsCommand],
   allowOverwrite: true,
   logLevel: 'warning',
