@@ -27,6 +27,7 @@ const POS_INF = Infinity;
 const STEP = 2 ** -53 + 2 ** -105;
 const STEP_LOW = 2 ** -969;
 const STEP_HIGH = 2 ** 1023;
+const EVEN_SPACING = 2 ** -1021;
 
 // nextUp and nextDown are kept this small so that V8 inlines them into the hot loops
 // (src/math/bernstein.ts, src/ir/analyse-flat.ts): a call that is not inlined returns its
@@ -35,7 +36,10 @@ const STEP_HIGH = 2 ** 1023;
 /** The next float64 above x (x finite; NaN and +Infinity are returned as they are). */
 export function nextUp(x: number): number {
   const a = x < 0 ? -x : x;
-  return a >= STEP_LOW && a < STEP_HIGH ? x + a * STEP : nextUpByWords(x);
+  if (a >= STEP_LOW && a < STEP_HIGH) return x + a * STEP;
+  // Zero and the non-negative floats below 2^-1021 are spaced 2^-1074 apart: the sum is exact
+  // (the zeros of sparse Bernstein tensors pass here often). Negative ones keep the word step (-0 from -2^-1074).
+  return x >= 0 && x < EVEN_SPACING ? x + MIN_VALUE : nextUpByWords(x);
 }
 
 /**
@@ -44,7 +48,8 @@ export function nextUp(x: number): number {
  */
 export function nextDown(x: number): number {
   const a = x < 0 ? -x : x;
-  return a >= STEP_LOW && a < STEP_HIGH ? x - a * STEP : -nextUpByWords(-x);
+  if (a >= STEP_LOW && a < STEP_HIGH) return x - a * STEP;
+  return x <= 0 && x > -EVEN_SPACING ? x - MIN_VALUE : -nextUpByWords(-x);
 }
 
 /** nextUp outside the arithmetic range: zero, subnormal and tiny numbers, the largest binade, NaN and infinities. */

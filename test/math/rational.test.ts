@@ -279,4 +279,25 @@ describe('nextUp and nextDown against the binary64 encoding', () => {
     expect(nextDown(-Number.MAX_VALUE)).toBe(-Infinity);
     expect(nextUp(-Number.MAX_VALUE)).toBe(reference(-Number.MAX_VALUE));
   });
+
+  test('zeros, subnormals and the smallest normal binades step by the encoding, signs of zero included', () => {
+    // IEEE 754-2019, 3.4 as above; nextUp(-2^-1074) is -0 and nextDown(2^-1074) is +0 (the encoding's neighbour).
+    const tiny = [0, -0, Number.MIN_VALUE, 2 * Number.MIN_VALUE, 2 ** -1022, 2 ** -1022 - Number.MIN_VALUE, 2 ** -1021, 2 ** -1021 - Number.MIN_VALUE, 2 ** -1021 + 2 * Number.MIN_VALUE, 2 ** -1000, 2 ** -970];
+    for (const x of tiny) {
+      check(x);
+      check(-x);
+    }
+    fc.assert(
+      fc.property(fc.integer({ min: 0, max: 2 ** 53 }), (k) => {
+        check(k * Number.MIN_VALUE);
+        check(-k * Number.MIN_VALUE);
+      }),
+      { numRuns: 5000, seed: 20261203 },
+    );
+    expect(wrong).toEqual([]);
+    expect(Object.is(nextUp(-Number.MIN_VALUE), -0)).toBe(true);
+    expect(Object.is(nextDown(Number.MIN_VALUE), 0)).toBe(true);
+    expect(Object.is(nextUp(-0), Number.MIN_VALUE)).toBe(true);
+    expect(Object.is(nextDown(-0), -Number.MIN_VALUE)).toBe(true);
+  });
 });
