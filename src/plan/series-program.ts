@@ -20,12 +20,11 @@ import { attachEnclosures } from '../ir/analyse.js';
 import type { Interval } from '../math/interval.js';
 import type { SeriesTerm } from '../series/hyper-catalan.js';
 import type { Family } from '../family/types.js';
-import { shiftedForms } from '../series/recenter.js';
 import { CoefficientRanges, type TightCell } from './tight-range.js';
 import { checkWork } from './work.js';
 import { equationOf } from './layout-memo.js';
 import { byGrade, sumsOnce } from './grade-sum-memo.js';
-import { addForms, constantForm, formOf, isConstant, isZero, materialise, powerOf, scaleForm, uniform, type LinearForm } from './linear-form.js';
+import { constantForm, formOf, isConstant, isZero, materialise, powerOf, scaleForm, shiftedLinearForms, uniform, type LinearForm } from './linear-form.js';
 
 export interface SeriesSetup {
   /** Coefficients of P(x0 + y) as affine forms, index = power of y. */
@@ -71,7 +70,7 @@ export function setupSeries(family: Family, x0: SegValues, b: ProgramBuilder, up
       throw err;
     }
   });
-  const shifted = shiftedForms(forms, x0, addForms, scaleForm, (w) => w, upTo);
+  const shifted = shiftedLinearForms(forms, x0, upTo);
   const active: number[] = [];
   for (let k = 2; k < shifted.length; k++) if (!isZero(shifted[k]!)) active.push(k);
   return { shifted, active, x0 };
