@@ -32,9 +32,15 @@ export function byGrade(terms: readonly SeriesTerm[]): GradeTerms[] {
   return [...lists].map(([grade, list]) => ({ grade, terms: list, key: `${grade}:${list.map((t) => t.m.join('.')).join(',')}` }));
 }
 
+/**
+ * The sums kept: per grade's key, one value per segment (a key per segment and grade, the grade's
+ * long key joined to the segment's number, cost a new string to build and hash at every look-up).
+ */
+export type GradeSumTable = Map<string, Rational[]>;
+
 /** gradeSums for segment `seg`, each grade read from `table` or summed and kept there. */
 export function sumsOnce(
-  table: Map<string, Rational>,
+  table: GradeSumTable,
   seg: number,
   grades: readonly GradeTerms[],
   active: readonly number[],
@@ -44,7 +50,7 @@ export function sumsOnce(
   const out = new Map<number, Rational>();
   const missing: GradeTerms[] = [];
   for (const g of grades) {
-    const v = table.get(`${seg}|${g.key}`);
+    const v = table.get(g.key)?.[seg];
     if (v) out.set(g.grade, v);
     else missing.push(g);
   }
@@ -52,7 +58,9 @@ export function sumsOnce(
   const sums = gradeSums(missing.flatMap((g) => g.terms), active, q, check);
   for (const g of missing) {
     const v = sums.get(g.grade)!;
-    table.set(`${seg}|${g.key}`, v);
+    let row = table.get(g.key);
+    if (!row) table.set(g.key, (row = []));
+    row[seg] = v;
     out.set(g.grade, v);
   }
   return out;

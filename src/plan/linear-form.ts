@@ -144,7 +144,7 @@ export function formOf(b: ProgramBuilder, e: Expr, constants: Constants): Linear
       const r = formOf(b, e.right, constants);
       if (isConstant(r)) {
         if (r.constant.some((v) => v.isZero())) throw new RangeError('division by zero');
-        return scaleForm(l, r.constant.map((v) => Rational.ONE.div(v)));
+        return scaleForm(l, r.constant.map((v) => v.inverse()));
       }
       return atomForm(b.div(materialise(b, l), materialise(b, r)), S);
     }

@@ -23,7 +23,7 @@ import type { Family } from '../family/types.js';
 import { CoefficientRanges, type TightCell } from './tight-range.js';
 import { checkWork } from './work.js';
 import { equationOf } from './layout-memo.js';
-import { byGrade, sumsOnce } from './grade-sum-memo.js';
+import { byGrade, sumsOnce, type GradeSumTable } from './grade-sum-memo.js';
 import { constantForm, formOf, isConstant, isZero, materialise, powerOf, scaleForm, shiftedLinearForms, uniform, type LinearForm } from './linear-form.js';
 
 export interface SeriesSetup {
@@ -83,7 +83,7 @@ function buildPrefix(b: ProgramBuilder, s: SeriesSetup): Prefix {
   if (isConstant(c1)) {
     const zero = c1.constant.findIndex((v) => v.isZero());
     if (zero >= 0) throw new ZeroSlopeError(zero);
-    const inv = c1.constant.map((v) => Rational.ONE.div(v));
+    const inv = c1.constant.map((v) => v.inverse());
     const r = materialise(b, scaleForm(s.shifted[0]!, inv));
     marks.push({ ref: r, kind: 'ratio', j: 0 });
     for (const k of s.active) {
@@ -258,17 +258,19 @@ function gcd(a: number, b: number): number {
 }
 
 /** The grade sums already made, per expansion and equation (plan/grade-sum-memo.ts): one table for each of the two callers. */
-const hornerSums = new WeakMap<Expansion, WeakMap<object, Map<string, Rational>>>();
-const collapsedSums = new WeakMap<Expansion, WeakMap<object, Map<string, Rational>>>();
+const hornerSums = new WeakMap<Expansion, WeakMap<object, GradeSumTable>>();
+const collapsedSums = new WeakMap<Expansion, WeakMap<object, GradeSumTable>>();
 
-function hornerInR(b: ProgramBuilder, p: Prefix, terms: readonly SeriesTerm[], active: readonly number[], table: Map<string, Rational>): Ref {
+function hornerInR(b: ProgramBuilder, p: Prefix, terms: readonly SeriesTerm[], active: readonly number[], table: GradeSumTable): Ref {
   const S = b.segments;
   const D = new Map<number, Rational[]>();
   const grades = byGrade(terms);
+  // Read once: segValues makes an array of every segment's value at each call.
+  const qValues = new Map(active.map((k) => [k, b.segValues(p.q.get(k)!)!]));
   for (let seg = 0; seg < S; seg++) {
     // The exact sums are the costly part (src/plan/work.ts): checkWork stops them at the limit.
     checkWork();
-    const sums = sumsOnce(table, seg, grades, active, (k) => b.segValues(p.q.get(k)!)![seg]!, checkWork);
+    const sums = sumsOnce(table, seg, grades, active, (k) => qValues.get(k)![seg]!, checkWork);
     for (const [grade, v] of sums) {
       if (!D.has(grade)) D.set(grade, new Array<Rational>(S).fill(Rational.ZERO));
       D.get(grade)![seg] = v;
@@ -327,7 +329,7 @@ export function collapsedSeries(family: Family, e: Expansion, terms: readonly Se
   const { b, setup: s } = prefixBuilder(family, e);
   const c1 = s.shifted[1]!;
   if (!isConstant(c1)) return null;
-  const inv = c1.constant.map((v) => Rational.ONE.div(v));
+  const inv = c1.constant.map((v) => v.inverse());
   const rForm = scaleForm(s.shifted[0]!, inv);
   if (rForm.terms.size !== 1) return null;
   const [atom, beta] = [...rForm.terms][0]!;
@@ -341,7 +343,7 @@ export function collapsedSeries(family: Family, e: Expansion, terms: readonly Se
   }
   const S = b.segments;
   const inR: Rational[][] = [];
-  const table = perExpansion(collapsedSums, family, e, () => new Map<string, Rational>());
+  const table = perExpansion(collapsedSums, family, e, (): GradeSumTable => new Map());
   const grades = byGrade(terms);
   for (let seg = 0; seg < S; seg++) {
     const m: Rational[] = [e.x0[seg]!];
