@@ -6,9 +6,10 @@
  * one of them summed the same grades of the same segments again, the costly
  * part of building a program (exact products thousands of bits long). A
  * grade's sum depends only on the segment's q_k and the grade's kept terms,
- * so it is summed once (the caller keeps one table per expansion and
- * equation, series-program.ts) and read back; the values are the same exact
- * rationals, so the programs are too.
+ * and the q_k only on the equation and the segment's expansion point, so it
+ * is summed once (the caller keeps one table per equation, series-program.ts)
+ * and read back; the values are the same exact rationals, so the programs
+ * are too.
  */
 import type { Rational } from '../math/rational.js';
 import { gradeSums } from '../series/grade-sums.js';
@@ -33,15 +34,19 @@ export function byGrade(terms: readonly SeriesTerm[]): GradeTerms[] {
 }
 
 /**
- * The sums kept: per grade's key, one value per segment (a key per segment and grade, the grade's
- * long key joined to the segment's number, cost a new string to build and hash at every look-up).
+ * The sums kept: per grade's key, per segment's expansion point (its exact
+ * value as text). A segment's q_k depend only on the equation and its x0, so
+ * the layouts of one search, which share many centres (a two-level layout
+ * splits some coarse cells and keeps the rest), share their sums too. Keyed
+ * by the grade's key, then x0, not by one joined string: the grade's key is
+ * long (every kept term's exponents) and a new string is hashed anew.
  */
-export type GradeSumTable = Map<string, Rational[]>;
+export type GradeSumTable = Map<string, Map<string, Rational>>;
 
-/** gradeSums for segment `seg`, each grade read from `table` or summed and kept there. */
+/** gradeSums for the segment whose expansion point is `at` (Rational toString), each grade read from `table` or summed and kept there. */
 export function sumsOnce(
   table: GradeSumTable,
-  seg: number,
+  at: string,
   grades: readonly GradeTerms[],
   active: readonly number[],
   q: (k: number) => Rational,
@@ -50,7 +55,7 @@ export function sumsOnce(
   const out = new Map<number, Rational>();
   const missing: GradeTerms[] = [];
   for (const g of grades) {
-    const v = table.get(g.key)?.[seg];
+    const v = table.get(g.key)?.get(at);
     if (v) out.set(g.grade, v);
     else missing.push(g);
   }
@@ -59,8 +64,8 @@ export function sumsOnce(
   for (const g of missing) {
     const v = sums.get(g.grade)!;
     let row = table.get(g.key);
-    if (!row) table.set(g.key, (row = []));
-    row[seg] = v;
+    if (!row) table.set(g.key, (row = new Map()));
+    row.set(at, v);
     out.set(g.grade, v);
   }
   return out;

@@ -242,7 +242,7 @@ export interface SeriesCore extends Base {
 export function seriesCore(family: Family, e: Expansion, terms: readonly SeriesTerm[]): SeriesCore {
   const { b, setup: s, prefix: p } = prefixBuilder(family, e);
   const qConst = [...p.q.values()].every((ref) => b.segValues(ref) !== null);
-  const a = qConst ? hornerInR(b, p, terms, s.active, perExpansion(hornerSums, family, e, () => new Map())) : nestedHorner(b, p, terms, s.active);
+  const a = qConst ? hornerInR(b, p, terms, s.active, sumTable(hornerSums, family), e.x0) : nestedHorner(b, p, terms, s.active);
   return { b, setup: s, prefix: p, v: b.mul(p.r, a) };
 }
 
@@ -257,11 +257,20 @@ function gcd(a: number, b: number): number {
   return b === 0 ? a : gcd(b, a % b);
 }
 
-/** The grade sums already made, per expansion and equation (plan/grade-sum-memo.ts): one table for each of the two callers. */
-const hornerSums = new WeakMap<Expansion, WeakMap<object, GradeSumTable>>();
-const collapsedSums = new WeakMap<Expansion, WeakMap<object, GradeSumTable>>();
+/**
+ * The grade sums already made, per equation (plan/layout-memo.ts equationOf, one per work count) and
+ * expansion point (plan/grade-sum-memo.ts): one table for each of the two callers.
+ */
+const hornerSums = new WeakMap<object, GradeSumTable>();
+const collapsedSums = new WeakMap<object, GradeSumTable>();
+function sumTable(tables: WeakMap<object, GradeSumTable>, family: Family): GradeSumTable {
+  const eq = equationOf(family);
+  let t = tables.get(eq);
+  if (!t) tables.set(eq, (t = new Map()));
+  return t;
+}
 
-function hornerInR(b: ProgramBuilder, p: Prefix, terms: readonly SeriesTerm[], active: readonly number[], table: GradeSumTable): Ref {
+function hornerInR(b: ProgramBuilder, p: Prefix, terms: readonly SeriesTerm[], active: readonly number[], table: GradeSumTable, x0: SegValues): Ref {
   const S = b.segments;
   const D = new Map<number, Rational[]>();
   const grades = byGrade(terms);
@@ -270,7 +279,7 @@ function hornerInR(b: ProgramBuilder, p: Prefix, terms: readonly SeriesTerm[], a
   for (let seg = 0; seg < S; seg++) {
     // The exact sums are the costly part (src/plan/work.ts): checkWork stops them at the limit.
     checkWork();
-    const sums = sumsOnce(table, seg, grades, active, (k) => qValues.get(k)![seg]!, checkWork);
+    const sums = sumsOnce(table, x0[seg]!.toString(), grades, active, (k) => qValues.get(k)![seg]!, checkWork);
     for (const [grade, v] of sums) {
       if (!D.has(grade)) D.set(grade, new Array<Rational>(S).fill(Rational.ZERO));
       D.get(grade)![seg] = v;
@@ -343,12 +352,12 @@ export function collapsedSeries(family: Family, e: Expansion, terms: readonly Se
   }
   const S = b.segments;
   const inR: Rational[][] = [];
-  const table = perExpansion(collapsedSums, family, e, (): GradeSumTable => new Map());
+  const table = sumTable(collapsedSums, family);
   const grades = byGrade(terms);
   for (let seg = 0; seg < S; seg++) {
     const m: Rational[] = [e.x0[seg]!];
     checkWork();
-    for (const [grade, v] of sumsOnce(table, seg, grades, s.active, (k) => q.get(k)![seg]!, checkWork)) {
+    for (const [grade, v] of sumsOnce(table, e.x0[seg]!.toString(), grades, s.active, (k) => q.get(k)![seg]!, checkWork)) {
       while (m.length <= grade + 1) m.push(Rational.ZERO);
       m[grade + 1] = v.neg();
     }
