@@ -19,8 +19,29 @@
 //   level below the package root in src/, dist/ and as a chunk in dist/.
 // - yargs finds its message translations (node_modules/yargs/locales) from
 //   its own file's place; in the bundle that place is dist/, so the build
-//   points it at the installed yargs package instead (`yargsLocales`).
-// - CommonJS packages inside (yaml, handlebars) call require()
+//   points it at the installed yargs package instead (`yargsShim`).
+// - Start-up (`yargsShim`, `yargsCommand`): three pieces of yargs' work
+//   that a run without help needs not do are taken off every run. (1) cliui and
+//   string-width, which lay the help out, build Intl.Segmenters and Unicode
+//   property regexes (\p{RGI_Emoji}) at their top level, about 20 ms; yargs
+//   reaches them only through its platform shim, so the shim gets them from
+//   a small module that loads them (esbuild's lazy init) on the first call,
+//   that is when help is printed. (2) yargs renders the command's whole help
+//   text (cacheHelpMessage, about 30 ms) before it calls the command's
+//   handler, in case the handler fails; our commands run after the parse
+//   (src/cli/main.ts), yargs gives each a no-op handler, and nothing reads
+//   that cache: with our .fail() yargs never prints help on a failure, and
+//   --help renders afresh. (3) node:assert, for yargs' internal assertions,
+//   loads only when one fails. Each patch checks the text it replaces, so a
+//   yargs that changes it fails the build rather than going slow or wrong.
+// - yaml comes from its ES module build (`alias`; the build its package
+//   exports outside node, the same source), not the CommonJS one node would
+//   pick: esbuild drops the parts the reader never reaches and the module
+//   wrappers, about 9 ms of every run that reads a spec. What differs: a
+//   warning goes to console.warn instead of process.emitWarning (the reader's
+//   parseDocument gives its warnings back rather than printing them), and
+//   yaml's own debugging switches LOG_TOKENS and LOG_STREAM are absent.
+// - CommonJS packages inside (handlebars) call require()
 //   for node's built-in modules: each output file gets a require of its own
 //   (`banner`).
 import { readdirSync, rmSync } from 'node:fs';
@@ -31,16 +52,59 @@ const ROOT = fileURLToPath(new URL('..', import.meta.url));
 const DIST = join(ROOT, 'dist');
 const CHUNK = /^cli-.+-[A-Z0-9]{8}\.js$/;
 
-/** yargs' ESM shim: the translations directory from the installed package, not from the bundle's place. */
-const yargsLocales = {
-  name: 'yargs-locales',
+/** Replaces `from` by `to` in `text`, which must hold `from` exactly once. */
+function patch(text, from, to, file) {
+  if (text.split(from).length !== 2) throw new Error(`scripts/bundle.js: ${file} no longer has ${JSON.stringify(from)} once; check what this yargs does there`);
+  return text.replace(from, () => to);
+}
+
+/** The text-layout packages behind yargs' help, loaded on their first call (esbuild wraps a require()d ES module in a lazy init). */
+const LAZY_LAYOUT = [
+  "let cliui, stringWidth;",
+  "export const lazyCliui = (...args) => (cliui ??= require('cliui').default)(...args);",
+  "export const lazyStringWidth = (...args) => (stringWidth ??= require('string-width').default)(...args);",
+].join('\n');
+
+/**
+ * yargs' two assertions (one runs on every command), with node:assert (its
+ * load is about 4 ms) loaded only to throw when one fails. `require` is the
+ * shim's own createRequire, declared below (hoisted: called only later).
+ */
+const LAZY_ASSERT = [
+  "const notStrictEqual = (actual, expected, message) => { if (Object.is(actual, expected)) require('node:assert').notStrictEqual(actual, expected, message); };",
+  "const strictEqual = (actual, expected, message) => { if (!Object.is(actual, expected)) require('node:assert').strictEqual(actual, expected, message); };",
+  '',
+].join('\n');
+
+/** yargs' ESM shim: the translations directory from the installed package, not from the bundle's place; node:assert, cliui and string-width on demand. */
+const yargsShim = {
+  name: 'yargs-shim',
   setup(b) {
+    b.onResolve({ filter: /^rootcast-lazy-layout$/ }, (args) => ({ path: args.path, namespace: 'rootcast-lazy-layout', pluginData: args.resolveDir }));
+    b.onLoad({ filter: /.*/, namespace: 'rootcast-lazy-layout' }, (args) => ({ contents: LAZY_LAYOUT, loader: 'js', resolveDir: args.pluginData }));
     b.onLoad({ filter: /[\\/]yargs[\\/]lib[\\/]platform-shims[\\/]esm\.mjs$/ }, async (args) => {
       const { readFile } = await import('node:fs/promises');
+      let text = await readFile(args.path, 'utf8');
+      text = patch(text, "directory: resolve(__dirname, '../../../locales')", "directory: fileURLToPath(new URL('./locales/', import.meta.resolve('yargs')))", args.path);
+      text = patch(text, "import { notStrictEqual, strictEqual } from 'assert'\n", LAZY_ASSERT, args.path);
+      text = patch(text, "import cliui from 'cliui'\n", '', args.path);
+      text = patch(text, "import stringWidth from 'string-width';\n", "import { lazyCliui, lazyStringWidth } from 'rootcast-lazy-layout';\n", args.path);
+      text = patch(text, '  cliui,\n', '  cliui: lazyCliui,\n', args.path);
+      text = patch(text, '  stringWidth,\n', '  stringWidth: lazyStringWidth,\n', args.path);
+      return { contents: text, loader: 'js' };
+    });
+  },
+};
+
+/** yargs' command runner: no help text rendered into a cache before each command's (no-op) handler. */
+const yargsCommand = {
+  name: 'yargs-command',
+  setup(b) {
+    b.onLoad({ filter: /[\\/]yargs[\\/]build[\\/]lib[\\/]command\.js$/ }, async (args) => {
+      const { readFile } = await import('node:fs/promises');
       const text = await readFile(args.path, 'utf8');
-      const from = "directory: resolve(__dirname, '../../../locales')";
-      if (!text.includes(from)) throw new Error(`scripts/bundle.js: ${args.path} no longer has ${from}; check how this yargs finds its locales`);
-      return { contents: text.replace(from, "directory: fileURLToPath(new URL('./locales/', import.meta.resolve('yargs')))"), loader: 'js' };
+      const call = 'yargs.getInternalMethods().getUsageInstance().cacheHelpMessage();';
+      return { contents: patch(text, call, '/* rootcast: no help cache (scripts/bundle.js) */', args.path), loader: 'js' };
     });
   },
 };
@@ -70,7 +134,8 @@ await build({
   tsconfig: join(ROOT, 'tsconfig.json'),
   external: ['ts-morph', 'typescript', 'playwright-core', 'cli-progress'],
   banner: { js: "import { createRequire as __rootcastRequire } from 'node:module'; const require = __rootcastRequire(import.meta.url);" },
-  plugins: [yargsLocales],
+  alias: { yaml: join(ROOT, 'node_modules', 'yaml', 'browser', 'index.js') },
+  plugins: [yargsShim, yargsCommand],
   allowOverwrite: true,
   logLevel: 'warning',
 });

@@ -55,10 +55,11 @@ type ArgsOf<B extends (y: Argv) => Argv<unknown>> = Awaited<ReturnType<B>['argv'
 
 /**
  * The commands run after yargs has parsed and validated the whole line, not as
- * yargs command handlers: yargs renders a command's full help text (about
- * 20 ms, string widths cell by cell) every time it calls a handler, in case
- * the handler fails, and our failures never show that help. Each command's
- * module is imported only when it runs.
+ * yargs command handlers, and each command's module is imported only when it
+ * runs. yargs still gives each command a no-op handler and renders the
+ * command's full help text before calling it, in case it fails; our failures
+ * never show that help, and the bundle drops the rendering
+ * (scripts/bundle.js, `yargsCommand`).
  */
 const COMMANDS = {
   new: async (a: ArgsOf<typeof newOptions>): Promise<number> => {

@@ -28,10 +28,27 @@ const STEP = 2 ** -53 + 2 ** -105;
 const STEP_LOW = 2 ** -969;
 const STEP_HIGH = 2 ** 1023;
 
+// nextUp and nextDown are kept this small so that V8 inlines them into the hot loops
+// (src/math/bernstein.ts, src/ir/analyse-flat.ts): a call that is not inlined returns its
+// double boxed on the heap, which was a large part of the planner's garbage.
+
 /** The next float64 above x (x finite; NaN and +Infinity are returned as they are). */
 export function nextUp(x: number): number {
   const a = x < 0 ? -x : x;
-  if (a >= STEP_LOW && a < STEP_HIGH) return x + a * STEP;
+  return a >= STEP_LOW && a < STEP_HIGH ? x + a * STEP : nextUpByWords(x);
+}
+
+/**
+ * The next float64 below x (x finite): -nextUp(-x), bit for bit (rounding to
+ * nearest is symmetric, so x - |x| C is the negated x' + |x'| C for x' = -x).
+ */
+export function nextDown(x: number): number {
+  const a = x < 0 ? -x : x;
+  return a >= STEP_LOW && a < STEP_HIGH ? x - a * STEP : -nextUpByWords(-x);
+}
+
+/** nextUp outside the arithmetic range: zero, subnormal and tiny numbers, the largest binade, NaN and infinities. */
+function nextUpByWords(x: number): number {
   if (x !== x || x === POS_INF) return x;
   if (x === 0) return MIN_VALUE;
   f64[0] = x;
@@ -49,7 +66,3 @@ export function nextUp(x: number): number {
   return f64[0]!;
 }
 
-/** The next float64 below x (x finite). */
-export function nextDown(x: number): number {
-  return -nextUp(-x);
-}

@@ -51,6 +51,9 @@ function planSegmentsInner(family: Family, box: Cell, layout: SegmentLayout, tho
   const ap = prefixOf(family, expansion, layout, plain ? {} : sharedOf(family, box, layout));
   const relative = family.accuracy.kind === 'relative';
   const x0 = expansion.x0.map((v) => v.toNumber());
+  // A search trial checks it before the cells, which are most of a large layout's work: its refusal
+  // then ranks below every refusal the cells give (refusals.ts moreActionable), as it proves less.
+  if (!thorough) refuseOverTable(family, box, layout, plain, true);
   let set = firstSet(family, box, layout, ap, x0, plain ? {} : sharedOf(family, box, layout));
   if (plain) plainRootAtCentre(family, set.centreFacts());
   if (!thorough) {
@@ -66,19 +69,9 @@ function planSegmentsInner(family: Family, box: Cell, layout: SegmentLayout, tho
   }
   refuseBadCells(family, set.cells, relative);
   certifyRootInBracket(family, expansion.x0.map((v) => v.toNumber()), set.cells);
-  // Where only the recentred forms apply, every plan holds the order-0 series' tables (cost-floor.ts):
-  // when those alone outgrow plan.max_table_bytes no plan fits, so no form is weighed. After the
-  // cells: a coefficient's pole or a diverging series is the refusal to show first (test/hardening/broken-corpus.test.ts).
-  const segments = layout.segmentation.segments;
-  const nearLimit = segments * ARITHMETICS[family.arithmetic].bytes * SEGMENT_SEARCH.minValuesPerSegment * SEGMENT_SEARCH.tableCheckReach > family.plan.maxTableBytes;
-  if (!plain && !family.foldResult && segments > ECONOMISE.maxSegments && nearLimit) {
-    const least = tableBytesOf(layoutOrderZero(family, box, layout));
-    if (least > family.plan.maxTableBytes) {
-      tableLimitBit();
-      refuseTable(family, counts, least, true);
-    }
-  }
-
+  // The order-0 table check after the cells when the segments are the spec's own: a coefficient's
+  // pole or a diverging series is the refusal to show first (test/hardening/broken-corpus.test.ts).
+  if (thorough) refuseOverTable(family, box, layout, plain);
   const ctx: FormContext = {
     family,
     root,
@@ -92,14 +85,19 @@ function planSegmentsInner(family: Family, box: Cell, layout: SegmentLayout, tho
     pool: new TermPool(family.degree, [...ap.q.keys()], set),
     costModel: family.plan.costModel ? COST_MODELS[family.plan.costModel] : costModelFor(family.arithmetic),
     checkTable: (program) => checkTable(family, counts, program),
+    trial: !thorough,
   };
   const found = new FoundPlans();
+  if (process.env.RC_T) console.error('   cells done', set.cells.length, 'cells');
   let refusal: RootcastError | null = null;
   for (const row of FORMS) {
     if (!row.requires.every((p) => p.holds(ctx, found))) continue;
+    const tf = performance.now();
     try {
       found.add(row.name, row.build(ctx, found));
+      if (process.env.RC_T) console.error('   form', row.name, (performance.now() - tf).toFixed(0), 'ms');
     } catch (e) {
+      if (process.env.RC_T) console.error('   form', row.name, (performance.now() - tf).toFixed(0), 'ms', String(e).slice(0,100));
       if (!(e instanceof RootcastError) || !row.keepsRefusal) throw e;
       refusal ??= e;
     }
@@ -120,6 +118,24 @@ function planSegmentsInner(family: Family, box: Cell, layout: SegmentLayout, tho
   }
   const best = eligible.reduce((a, b) => (b.cost < a.cost ? b : a));
   return { ...best, alternatives: found.all.filter((f) => f !== best) };
+}
+
+/**
+ * Where only the recentred forms apply, every plan holds the order-0 series'
+ * tables (cost-floor.ts): when those alone outgrow plan.max_table_bytes no
+ * plan fits, so no form is weighed. The sketch is built only near the limit
+ * (SEGMENT_SEARCH.tableCheckReach).
+ */
+function refuseOverTable(family: Family, box: Cell, layout: SegmentLayout, plain: boolean, beforeCells = false): void {
+  const segments = layout.segmentation.segments;
+  if (plain || family.foldResult || segments <= ECONOMISE.maxSegments) return;
+  const nearLimit = segments * ARITHMETICS[family.arithmetic].bytes * SEGMENT_SEARCH.minValuesPerSegment * SEGMENT_SEARCH.tableCheckReach > family.plan.maxTableBytes;
+  if (!nearLimit) return;
+  const least = tableBytesOf(layoutOrderZero(family, box, layout));
+  if (least > family.plan.maxTableBytes) {
+    tableLimitBit();
+    refuseTable(family, layout.counts, least, true, beforeCells);
+  }
 }
 
 /** Each segment's first cells: a grid of its box (initialCellsPerSegment cells). */

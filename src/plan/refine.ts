@@ -30,7 +30,14 @@ export interface RefinedResult {
 
 /** Two-level plans for the inputs free in `fixed` (null = searched); the fixed inputs keep equal segments. */
 /** `weighed`: the plans already found; a layout that cannot win among them is given up (cost-floor.ts). */
-export function refinedPlans(family: Family, box: Cell, fixed: readonly (number | null)[], weighed: readonly Plan[] = []): RefinedResult {
+/**
+ * `equal(counts)`: the plan the segment search made on those equal segments,
+ * if any. A refinement that splits no coarse cell ends on that very layout
+ * (segments.ts gives it no two-level index), and planSegments is a function
+ * of the family and the layout alone, so that plan is taken again rather
+ * than made twice.
+ */
+export function refinedPlans(family: Family, box: Cell, fixed: readonly (number | null)[], weighed: readonly Plan[] = [], equal: (counts: readonly number[]) => Plan | null = () => null): RefinedResult {
   const d = family.inputs.length;
   const coarseCount = REFINE.coarse[Math.min(d, REFINE.coarse.length) - 1]!;
   const coarse = fixed.map((k) => k ?? coarseCount);
@@ -52,7 +59,7 @@ export function refinedPlans(family: Family, box: Cell, fixed: readonly (number 
     if (seen.has(key)) continue;
     seen.add(key);
     try {
-      const p = planSegments(family, box, coarse, false, layout.refine);
+      const p = (layout.refine.every((r) => r === null) ? equal(layout.counts) : null) ?? planSegments(family, box, coarse, false, layout.refine);
       plans.push(p);
       candidates.push(...candidatesOf(p));
     } catch (e) {

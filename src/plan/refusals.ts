@@ -263,14 +263,24 @@ export function refuseConstant(family: Family, exact: Rational): never {
 /** A program's segment tables exceed plan.max_table_bytes. */
 export class TableRefusal extends RootcastError {}
 
+/**
+ * A search trial's table refusal met before its cells were certified
+ * (plan-segments.ts): the cells might have refused the layout for a pole or a
+ * diverging series, so it ranks below every other refusal (moreActionable).
+ */
+export class UncertifiedTableRefusal extends TableRefusal {}
+
 /** The table refusal's words (a skipped two-level layout's row says the same, refine.ts). */
 export function tableText(family: Family, counts: readonly number[], tableBytes: number, least = false): string {
   return `the ${counts.join(' x ')} segment tables need ${least ? 'at least ' : ''}${tableBytes} bytes, more than plan.max_table_bytes ${family.plan.maxTableBytes}; raise it or use fewer segments`;
 }
 
-/** `least`: the bytes are the least any plan on these segments needs (plan-segments.ts, from the order-0 series). */
-export function refuseTable(family: Family, counts: readonly number[], tableBytes: number, least = false): never {
-  throw new TableRefusal(
+/**
+ * `least`: the bytes are the least any plan on these segments needs (plan-segments.ts, from the order-0 series);
+ * `uncertified`: met before the layout's cells were certified (UncertifiedTableRefusal).
+ */
+export function refuseTable(family: Family, counts: readonly number[], tableBytes: number, least = false, uncertified = false): never {
+  throw new (uncertified ? UncertifiedTableRefusal : TableRefusal)(
     tableText(family, counts, tableBytes, least),
     locate(family, family.positions['plan.max_table_bytes'] ? 'plan.max_table_bytes' : 'plan.segments'),
   );
@@ -280,7 +290,8 @@ export function refuseTable(family: Family, counts: readonly number[], tableByte
  * Of two refusals of the segment search's trials, the one that names the
  * more actionable fix: a quoted plan.max_order or plan.newton_steps (they keep
  * the target), then the lowest rounding floor, then a table limit, then the
- * first refusal (a series that has no bound on some cells).
+ * first refusal (a series that has no bound on some cells), then a table
+ * limit met before the cells (UncertifiedTableRefusal).
  *
  * `late`: b was met after more work than a quoted fix's check may use
  * (QUOTED_FIX.workShare of the limit, counted from the plan's start). A lower
@@ -293,7 +304,7 @@ export function refuseTable(family: Family, counts: readonly number[], tableByte
 export function moreActionable(a: RootcastError | null, b: RootcastError, late = false): RootcastError {
   if (!a) return b;
   const rank = (e: RootcastError): number =>
-    e instanceof QuotedFixRefusal ? { order: 0, steps: 1, floor: 2 }[e.kind] : e instanceof TableRefusal ? 3 : 4;
+    e instanceof QuotedFixRefusal ? { order: 0, steps: 1, floor: 2 }[e.kind] : e instanceof UncertifiedTableRefusal ? 5 : e instanceof TableRefusal ? 3 : 4;
   if (rank(b) !== rank(a)) return rank(b) < rank(a) ? b : a;
   return a instanceof QuotedFixRefusal && b instanceof QuotedFixRefusal && a.kind === 'floor' && b.best < a.best && !late ? b : a;
 }

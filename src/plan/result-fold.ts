@@ -11,8 +11,8 @@
  * the form that weighs it is src/plan/forms/folded.ts.
  */
 import { addUp } from '../math/directed.js';
-import { bitsOf, Rational } from '../math/rational.js';
-import { composeAffine } from '../series/chebyshev.js';
+import { bitsOf, countProduct, quotientUp, Rational } from '../math/rational.js';
+import { composeAffine, scaledOf } from '../series/chebyshev.js';
 import { exprPolynomial } from '../series/expr-poly.js';
 import type { Family, ResultSpec } from '../family/types.js';
 import type { Cell } from './box.js';
@@ -20,40 +20,34 @@ import type { Collapsed } from './series-program.js';
 import { FOLD } from './tuning.js';
 import { spend } from './work.js';
 
-type Poly = readonly Rational[];
-
 /**
- * Exact product of two polynomials: each brought to integers over one common
- * denominator first, so the convolution is plain BigInt arithmetic and only
- * the n + m - 1 results are reduced (a gcd per product term made the fold
- * trial's exact work several times longer).
+ * Integer numerators over one denominator (series/chebyshev.ts Scaled): the
+ * Horner steps below multiply and add these as plain BigInts and reduce only
+ * the n + 1 coefficients of the composite (a gcd per product term and per
+ * sum made the fold trial's exact work several times longer).
  */
-function polyMul(a: Poly, b: Poly): Rational[] {
-  const [na, da] = overCommon(a);
-  const [nb, db] = overCommon(b);
-  const out = new Array<bigint>(a.length + b.length - 1).fill(0n);
-  na.forEach((x, i) => {
-    if (x === 0n) return;
-    nb.forEach((y, j) => (out[i + j] = out[i + j]! + x * y));
+interface Over {
+  readonly num: readonly bigint[];
+  readonly den: bigint;
+}
+
+/** a x + r over a.den x.den, for r over a denominator that `rScale` times makes a.den x.den (lengths as the product and sum of reduced lists). */
+function mulAdd(a: Over, x: Over, r: Over, rScale: bigint): Over {
+  const out = new Array<bigint>(Math.max(a.num.length + x.num.length - 1, r.num.length)).fill(0n);
+  a.num.forEach((u, i) => {
+    if (u === 0n) return;
+    x.num.forEach((v, j) => (out[i + j] = out[i + j]! + u * v));
   });
-  const den = da * db;
-  return out.map((n) => Rational.of(n, den));
+  r.num.forEach((v, i) => (out[i] = out[i]! + v * rScale));
+  countProduct(bitsOf(a.den), bitsOf(x.den), a.num.length * x.num.length + r.num.length);
+  return { num: out, den: a.den * x.den };
 }
 
-/** Integer numerators over the least common denominator. */
-function overCommon(p: Poly): [bigint[], bigint] {
-  let den = 1n;
-  for (const c of p) den = (den / gcd(den, c.den)) * c.den;
-  return [p.map((c) => c.num * (den / c.den)), den];
-}
-
-function gcd(a: bigint, b: bigint): bigint {
-  while (b !== 0n) [a, b] = [b, a % b];
-  return a < 0n ? -a : a;
-}
-
-function polyAdd(a: Poly, b: Poly): Rational[] {
-  return Array.from({ length: Math.max(a.length, b.length) }, (_, i) => (a[i] ?? Rational.ZERO).add(b[i] ?? Rational.ZERO));
+/** |alpha + beta p| rounded up, from the unreduced sum: the same float as from lowest terms. */
+function rUp(alpha: Rational, beta: Rational, p: number): number {
+  const q = Rational.fromNumber(p);
+  const num = alpha.num * beta.den * q.den + beta.num * q.num * alpha.den;
+  return quotientUp(num < 0n ? -num : num, alpha.den * beta.den * q.den);
 }
 
 /** The result coefficient r_k as a polynomial in the input p (index = power), or null when it is not one. */
@@ -78,13 +72,32 @@ function inInput(family: Family, spec: ResultSpec, k: number, input: number): Ra
  * composites carry numerators and denominators of thousands of bits (powers
  * of the recentred slope), and every later exact step (the Chebyshev basis
  * change, src/plan/economise.ts) is quadratic in their size. The difference
- * is kept exactly and bounded by the caller.
+ * r - d is returned as an unreduced quotient (the division's remainder over
+ * its divisor), which the caller bounds without a gcd.
  */
-function dyadic(r: Rational): Rational {
-  if (r.isZero()) return r;
+function dyadic(r: Rational): { d: Rational; rem: bigint; remDen: bigint } {
+  if (r.isZero()) return { d: r, rem: 0n, remDen: 1n };
   const e = bitLength(r.num < 0n ? -r.num : r.num) - bitLength(r.den) - FOLD.bits;
-  if (e <= 0) return r.den === 1n && e >= -FOLD.bits ? r : Rational.of((r.num << BigInt(-e)) / r.den, 1n << BigInt(-e));
-  return Rational.of((r.num / (r.den << BigInt(e))) << BigInt(e));
+  if (e <= 0) {
+    if (r.den === 1n && e >= -FOLD.bits) return { d: r, rem: 0n, remDen: 1n };
+    // r - q / 2^k = (num 2^k - q den) / (den 2^k), q = trunc(num 2^k / den).
+    const k = BigInt(-e);
+    const scaled = r.num << k;
+    const q = scaled / r.den;
+    return { d: overPowerOfTwo(q, -e), rem: scaled - q * r.den, remDen: r.den << k };
+  }
+  // r - q 2^e = (num - q den 2^e) / den, q = trunc(num / (den 2^e)).
+  const divisor = r.den << BigInt(e);
+  const q = r.num / divisor;
+  return { d: Rational.of(q << BigInt(e)), rem: r.num - q * divisor, remDen: r.den };
+}
+
+/** q / 2^k in lowest terms: only a power of two can divide both (|q| < 2^1024 here: FOLD.bits and a few more). */
+function overPowerOfTwo(q: bigint, k: number): Rational {
+  if (q === 0n) return Rational.ZERO;
+  const low = q & -q;
+  const tz = Math.min(k, low === 1n ? 0 : Math.round(Math.log2(Number(low))));
+  return Rational.of(q >> BigInt(tz), 1n << BigInt(k - tz), true);
 }
 
 /** Bits of |n| rounded up to whole hex digits (4 ceil(bits / 4), 0 for 0): the rounding's exponent is defined by them. */
@@ -96,14 +109,15 @@ function bitLength(n: bigint): number {
  * Coefficients rounded by `dyadic`, and an upper bound of the change over
  * |p| <= pMax: sum |delta_j| 2^(k j) with 2^k >= pMax, summed in float64
  * rounded upward (src/math/directed.ts), so the bound costs no long sums.
+ * Each |delta_j| is rounded up from its unreduced quotient: the same float
+ * as from lowest terms (rounding depends on the value only).
  */
 function rounded(poly: readonly Rational[], pMax: number): { poly: Rational[]; error: number } {
   const k = pMax > 0 ? Math.ceil(Math.log2(pMax)) + 1 : 0;
   let err = 0;
   const out = poly.map((c, j) => {
-    const d = dyadic(c);
-    const delta = c.sub(d);
-    if (!delta.isZero()) err = addUp(err, delta.abs().toNumberUp() * 2 ** (k * j));
+    const { d, rem, remDen } = dyadic(c);
+    if (rem !== 0n) err = addUp(err, quotientUp(rem < 0n ? -rem : rem, remDen) * 2 ** (k * j));
     return d;
   });
   return { poly: out, error: err };
@@ -138,6 +152,10 @@ export function foldResult(family: Family, spec: ResultSpec, c: Collapsed, boxes
   if (degree > FOLD.maxDegree) return null;
   // Exact products of short rationals: counted as work like the series' own exact sums.
   spend(c.inR.length * (degree + 1) * (degree + 1) * n);
+  // The result coefficients over one common denominator C: after k Horner steps the sum is over C X^k.
+  const common = scaledOf(inP.flat());
+  let at = 0;
+  const R: Over[] = inP.map((p) => ({ num: common.num.slice(at, (at += p.length)), den: common.den }));
   const inR: Rational[][] = [];
   const rootError: number[] = [];
   const foldError: number[] = [];
@@ -145,16 +163,24 @@ export function foldResult(family: Family, spec: ResultSpec, c: Collapsed, boxes
     const { lo, hi } = boxes[s]![c.input]!;
     const pMax = Math.max(Math.abs(lo), Math.abs(hi));
     // x_S(p) = X(alpha + beta p): X rounded in r (|r| <= rMax over the segment), composed exactly, rounded in p.
-    const r = (p: number): number => c.alpha[s]!.add(c.beta[s]!.mul(Rational.fromNumber(p))).abs().toNumberUp();
-    const rMax = Math.max(r(lo), r(hi));
+    const rMax = Math.max(rUp(c.alpha[s]!, c.beta[s]!, lo), rUp(c.alpha[s]!, c.beta[s]!, hi));
     const xr = rounded(c.inR[s]!, rMax);
     const xp = rounded(composeAffine(xr.poly, c.alpha[s]!, c.beta[s]!), pMax);
     const x = { poly: xp.poly, error: addUp(xr.error, xp.error) };
     // Horner's rule on polynomials in p: y = (...(R_n X + R_{n-1}) X + ...) X + R_0.
-    let acc: Rational[] = [...inP[n]!];
-    for (let k = n - 1; k >= 0; k--) acc = polyAdd(polyMul(acc, x.poly), inP[k]!);
-    while (acc.length > 1 && acc[acc.length - 1]!.isZero()) acc.pop();
-    const y = rounded(acc, pMax);
+    const X = scaledOf(x.poly);
+    let acc: Over = R[n]!;
+    let scale = 1n;
+    for (let k = n - 1; k >= 0; k--) {
+      scale *= X.den;
+      acc = mulAdd(acc, X, R[k]!, scale);
+    }
+    const nums = [...acc.num];
+    while (nums.length > 1 && nums[nums.length - 1] === 0n) nums.pop();
+    const y = rounded(
+      nums.map((v) => Rational.of(v, acc.den)),
+      pMax,
+    );
     inR.push(y.poly);
     rootError.push(x.error);
     foldError.push(y.error);

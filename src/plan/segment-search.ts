@@ -111,7 +111,7 @@ export function searchSegments(family: Family, box: Cell, fixed: readonly (numbe
   const all: Plan[] = [...tried.values()].filter((p): p is Plan => p !== null);
   if (free.some((f) => f) && !found.exhausted) {
     try {
-      const refined = refinedPlans(family, box, fixed, all);
+      const refined = refinedPlans(family, box, fixed, all, (counts) => tried.get(counts.join('x')) ?? null);
       candidates.push(...refined.candidates);
       all.push(...refined.plans);
     } catch (e) {

@@ -30,8 +30,21 @@ export function greedyTerms(cells: readonly CellFacts[], pool: readonly SeriesTe
   // Counted like a program's analysis: a unit per term and cell here, and per cell at each prefix tried below.
   spend(cells.length * pool.length);
   const values = cells.map((c) => pool.map((t) => termValue(c, t)));
-  // Score: the largest share of a cell's allowance the term covers.
-  const score = pool.map((_, i) => Math.max(...cells.map((c, j) => (mulUp(c.R, values[j]![i]!) / allowed(c)))));
+  const allow = cells.map((c) => allowed(c));
+  // Score: the largest share of a cell's allowance the term covers (as Math.max over the cells: NaN if any is).
+  const score = new Array<number>(pool.length);
+  for (let i = 0; i < pool.length; i++) {
+    let s = -Infinity;
+    for (let j = 0; j < cells.length; j++) {
+      const v = mulUp(cells[j]!.R, values[j]![i]!) / allow[j]!;
+      if (v > s) s = v;
+      else if (Number.isNaN(v)) {
+        s = NaN;
+        break;
+      }
+    }
+    score[i] = s;
+  }
   const order = pool.map((_, i) => i).sort((a, b) => score[b]! - score[a]! || pool[a]!.grade - pool[b]!.grade || a - b);
   const kept = new Array<number>(cells.length).fill(0);
   const tailOf = (j: number): number => mulUp(cells[j]!.R, Math.max(0, subUp(cells[j]!.aUpper, kept[j]!)));
@@ -40,7 +53,7 @@ export function greedyTerms(cells: readonly CellFacts[], pool: readonly SeriesTe
     spend(cells.length);
     for (let j = 0; j < cells.length; j++) kept[j] = addDown(kept[j]!, values[j]![i]!);
     let ok = true;
-    for (let j = 0; j < cells.length && ok; j++) ok = tailOf(j) <= allowed(cells[j]!);
+    for (let j = 0; j < cells.length && ok; j++) ok = tailOf(j) <= allow[j]!;
     if (ok) {
       const chosen = new Set(order.slice(0, n + 1));
       const terms = pool.filter((_, k) => chosen.has(k));

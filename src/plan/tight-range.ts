@@ -143,17 +143,13 @@ export class CoefficientRanges {
     const derivative = (order: 1 | 2): IntervalTensor | null => {
       const shifted = Array.from({ length: n + 1 }, (_, j) => (j >= order ? shiftedPoly(j) : null));
       if (shifted.some((p, j) => j >= order && p === null)) return null;
-      const vars = this.mid.length;
-      let acc = MultiPoly.zero(vars + 1);
-      for (let j = order; j <= n; j++) {
-        const e = new Array<number>(vars + 1).fill(0);
-        e[vars] = j - order;
+      // sum_j (-1)^(j - order) j!/(j - order)! c'j v^(j - order), each power of v from one j.
+      const parts = shifted.slice(order).map((p, m) => {
+        const j = m + order;
         const falling = order === 1 ? j : j * (j - 1);
-        const sign = (j - order) % 2 === 0 ? 1 : -1;
-        const vPower = MultiPoly.fromTerms(vars + 1, [[e, Rational.int(sign * falling)]]);
-        acc = acc.add(shifted[j]!.extend().mul(vPower));
-      }
-      return IntervalTensor.of(acc);
+        return [p!, Rational.int(m % 2 === 0 ? falling : -falling)] as const;
+      });
+      return IntervalTensor.of(MultiPoly.powerSeriesIn(this.mid.length, parts));
     };
     let built: { d1: IntervalTensor | null; d2: IntervalTensor | null } | null = null;
     return {

@@ -14,7 +14,7 @@
 import { addUp, mulUp, nextDown, nextUp } from '../math/directed.js';
 
 /** f(a) evaluated with rounding up: an upper bound of the exact f(a), a >= 0. */
-function fUpper(T: readonly number[], a: number): number {
+export function fUpper(T: readonly number[], a: number): number {
   // 1 - a + sum T_k a^k, Horner from the top power with every step rounded up.
   let acc = 0;
   for (let k = T.length - 1; k >= 2; k--) acc = mulUp(addUp(acc, T[k]!), a);
@@ -73,13 +73,49 @@ export function majorantRoot(T: readonly number[]): MajorantRoot {
  * Bisection for the smallest root in [left, right], given f(left) >= 0 and a
  * certified f(right) <= 0; `right` only moves to points where the upper bound
  * of f is <= 0, so the returned value is a certified upper bound of the root.
+ * Each step asks `upperIsNonPositive`, which answers as fUpper(T, mid) <= 0 does.
  */
 function bisectRoot(T: readonly number[], left: number, right: number): number {
   for (let i = 0; i < 80; i++) {
     const mid = 0.5 * (left + right);
     if (mid <= left || mid >= right) break;
-    if (fUpper(T, mid) <= 0) right = mid;
+    if (upperIsNonPositive(T, mid)) right = mid;
     else left = mid;
   }
   return right;
+}
+
+const U = 2 ** -53;
+const TINY = 2 ** -490;
+
+/**
+ * Whether fUpper(T, a) <= 0, the same answer bit for bit, mostly without
+ * evaluating fUpper: f to nearest (g, below) decides wherever its distance
+ * from 0 exceeds a bound M on |fUpper(a) - g|; only the last steps of a
+ * bisection, near the root, pay for fUpper. With u = 2^-53, S = sum T_k a^k
+ * (exact), n the top power and m = 2n - 1 rounded steps of the Horner sum,
+ * for 1 <= a <= 4 and n <= 128:
+ * - fUpper's every step y = nextUp(fl(x)) has x <= y <= x + 4u|x| + 2 eta
+ *   (eta = 2^-1074); its sum is non-negative, so it lies in
+ *   [S, S (1 + 4u)^m + 2^-500] (the subnormal parts, grown by at most a^m <= 2^510, stay
+ *   below 2^-500), a - 1 is exact (Sterbenz; a multiple of 2^-51 below 4 above 2),
+ *   and fUpper lies in [f, f + D], D <= 1.1 (4m + 8) u (S + a + 1) + 2^-499;
+ * - g = fl(fl(fl(s a) + 1) - a), s the nearest-rounded Horner sum, has
+ *   |g - f| <= D' = 1.1 (m + 3) u (S + a + 1) + 2^-499, and S <= 1.01 s + 2^-499.
+ * So g > D' gives f > 0, fUpper > 0; g < -(D + D') gives fUpper < 0; and
+ * M = 8 (m + 2) u (s + a + 1) + 2^-490 exceeds D + D' <= (5.7m + 12.5) u (s + a + 1) + 2^-497
+ * with room for its own rounding.
+ */
+export function upperIsNonPositive(T: readonly number[], a: number): boolean {
+  const n = T.length - 1;
+  if (a >= 1 && a <= 4 && n <= 128) {
+    let s = 0;
+    for (let k = n; k >= 2; k--) s = (s + T[k]!) * a;
+    s *= a;
+    const g = s + 1 - a;
+    const M = 8 * (2 * n + 1) * U * (s + a + 1) + TINY;
+    if (g > M) return false;
+    if (g < -M) return true;
+  }
+  return fUpper(T, a) <= 0;
 }

@@ -10,7 +10,7 @@
 import { describe, expect, test } from '@jest/globals';
 import { Decimal } from 'decimal.js';
 import fc from 'fast-check';
-import { moreActionable, QuotedFixRefusal, refuseFloor, refuseOrder, refuseSteps, refuseTable, refuseWorkLimit, TableRefusal, upText } from '../../src/plan/refusals.js';
+import { moreActionable, QuotedFixRefusal, refuseFloor, refuseOrder, refuseSteps, refuseTable, refuseWorkLimit, TableRefusal, UncertifiedTableRefusal, upText } from '../../src/plan/refusals.js';
 import { readSpec } from '../../src/reader/read.js';
 import { RootcastError } from '../../src/errors.js';
 import { exactDecimal } from '../support/exact-decimal.js';
@@ -106,6 +106,19 @@ describe('the refusals', () => {
     expect(moreActionable(floorLow, floorHigh)).toBe(floorLow);
     expect(moreActionable(floorLow, order)).toBe(order);
     expect(moreActionable(order, floorLow)).toBe(order);
+  });
+
+  test('a table limit met before the cells ranks below every refusal the cells give', () => {
+    const early = thrown(() => refuseTable(family, [512], 9999, true, true));
+    const table = thrown(() => refuseTable(family, [8], 9999)) as TableRefusal;
+    const plain = new RootcastError('coefficient 3 can be unbounded', { file: 'spring.yaml', line: 1, column: 1, field: 'coefficients.3' });
+    expect(early).toBeInstanceOf(UncertifiedTableRefusal);
+    expect(early).toBeInstanceOf(TableRefusal);
+    expect(early.message).toContain('need at least 9999 bytes');
+    expect(moreActionable(plain, early)).toBe(plain);
+    expect(moreActionable(early, plain)).toBe(plain);
+    expect(moreActionable(early, table)).toBe(table);
+    expect(moreActionable(null, early)).toBe(early);
   });
 
   test('a lower floor met past a check\'s share of the work does not replace an earlier floor, but still beats a table limit or another reason', () => {

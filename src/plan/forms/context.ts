@@ -32,6 +32,8 @@ export interface FormContext {
   readonly costModel: CostModel;
   /** A program's table bytes; refuses the segments when they exceed plan.max_table_bytes. */
   readonly checkTable: (program: Program) => number;
+  /** True for a trial of the segment search (planSegments' `thorough` false): its refusals rank the layouts, the user sees the search's. */
+  readonly trial: boolean;
 }
 
 /** The plans of the forms already run, in table order. */

@@ -4,13 +4,21 @@
  * Orders whose Newton terms alone (no rounding) miss it are skipped before
  * any program is built; a step count whose cheapest program (order 0) costs
  * no less than a plan in hand is not weighed.
+ *
+ * A polished program whose tables outgrow plan.max_table_bytes is passed
+ * over (the limit is marked as having decided something, table-limit.ts):
+ * it does not refuse the segments, whose graded series may fit. More steps
+ * and higher orders only add tables, so when the cheapest program (order 0,
+ * fewest steps) does not fit, no polished plan is weighed at all.
  */
 import { ConstantOverflowError } from '../../ir/builder.js';
 import { programCost } from '../../ir/cost/index.js';
-import { planOf } from '../plan-of.js';
+import { planOf, tableBytesOf } from '../plan-of.js';
+import { tableLimitBit } from '../table-limit.js';
 import { coreProgram, polishBound, polishedProgram, PolishFailure, stepProgram } from '../polish.js';
 import { refuseFloor } from '../refusals.js';
 import { POLISH } from '../tuning.js';
+import type { Program } from '../../ir/nodes.js';
 import type { Plan } from '../types.js';
 import type { FormContext, FoundPlans } from './context.js';
 
@@ -37,6 +45,7 @@ export function polishedPlans(ctx: FormContext, found: FoundPlans): Plan[] {
   if (!empty) return out;
   const floorCost = (k: number): number => programCost(polishedProgram(family, expansion, empty, k), ctx.costModel);
   if (floorCost(Math.min(...stepCounts)) >= toBeat) return out;
+  if (!fits(ctx, polishedProgram(family, expansion, empty, Math.min(...stepCounts)))) return out;
   for (const k of stepCounts) {
     if (k !== Math.min(...stepCounts) && floorCost(k) >= toBeat) continue;
     for (let n = 0; n <= maxOrder; n++) {
@@ -66,7 +75,7 @@ export function polishedPlans(ctx: FormContext, found: FoundPlans): Plan[] {
         continue;
       }
       const program = polishedProgram(family, expansion, terms, k);
-      ctx.checkTable(program);
+      if (!fits(ctx, program)) break;
       const bound = { kind: relative ? ('relative' as const) : ('absolute' as const), truncation: full.truncation, rounding: full.rounding, total: full.total };
       const note = `then ${k} Newton step${k === 1 ? '' : 's'} (the truncation bound below is the Newton error term left after the last step, carried from the series bound)`;
       const plan = planOf(ctx, { form: 'series', order: n, degree: null, terms, steps: k, program, evaluated: { bound, absolute: full.absolute }, note });
@@ -78,4 +87,11 @@ export function polishedPlans(ctx: FormContext, found: FoundPlans): Plan[] {
   // A fixed step count whose best plan misses on rounding: that is the floor to quote.
   if (knob !== 'auto' && out.length === 0 && best && best.rounding > target * POLISH.roundingStopShare) refuseFloor(family, best.total, best.rounding, knob);
   return out;
+}
+
+/** Whether a program's tables fit plan.max_table_bytes; when not, the limit has decided something (table-limit.ts). */
+function fits(ctx: FormContext, program: Program): boolean {
+  if (tableBytesOf(program) <= ctx.family.plan.maxTableBytes) return true;
+  tableLimitBit();
+  return false;
 }

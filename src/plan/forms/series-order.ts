@@ -3,6 +3,12 @@
  * truncation bound plus the a priori rounding bound meets the target, every
  * term up to that order kept. Past plan.max_order it only computes the
  * truncation bound, so its refusal can say which order would be needed.
+ *
+ * In a trial of the segment search, a program whose tables outgrow
+ * plan.max_table_bytes refuses the segments before it is bounded (higher
+ * orders only add tables), unless rounding can come near the target
+ * (floorInReach): there the bound is still computed, as the rounding floor
+ * it finds, with the table bytes, is the more actionable refusal.
  */
 import { cellTail } from '../cell-bound.js';
 import { addUp } from '../../math/directed.js';
@@ -12,7 +18,8 @@ import { RootcastError } from '../../errors.js';
 import { planOf, tableBytesOf } from '../plan-of.js';
 import { ConstantOverflowError } from '../../ir/builder.js';
 import type { Program } from '../../ir/nodes.js';
-import { refuseConstant, refuseFloor, refuseOrder } from '../refusals.js';
+import { refuseConstant, refuseFloor, refuseOrder, refuseTable } from '../refusals.js';
+import { tableLimitBit } from '../table-limit.js';
 import { seriesProgram } from '../series-program.js';
 import { LIMITS, ORDER_SEARCH, WORK } from '../tuning.js';
 import { WorkLimitError, workUsed } from '../work.js';
@@ -65,6 +72,15 @@ export function seriesOrderPlan(ctx: FormContext): Plan {
   // exceeds the target, it looks for the best total it can prove, the floor it quotes: it weighs the
   // order whose truncation first falls below the last rounding seen, then each order whose truncation
   // is a step (ORDER_SEARCH.floorStep) below the last one weighed, until truncation is negligible.
+  // A search trial refuses at the table before bounding a program that outgrows it (tableFirst).
+  let inReach: boolean | null = null;
+  const tableFirst = (program: Program): void => {
+    if (!ctx.trial) return;
+    const bytes = tableBytesOf(program);
+    if (bytes <= family.plan.maxTableBytes || (inReach ??= floorInReach(ctx))) return;
+    tableLimitBit();
+    refuseTable(family, ctx.counts, bytes, true);
+  };
   let probed = false;
   let refine = true;
   let floor = false;
@@ -96,6 +112,7 @@ export function seriesOrderPlan(ctx: FormContext): Plan {
       if (!(trunc < Math.min(nextBar, lastRounding, misses.best?.total ?? Infinity, misses.oversize?.total ?? Infinity))) continue;
     } else if (trunc > target || (!refine && addUp(trunc, lastRounding) > target)) continue;
     const program = programOf(ctx);
+    tableFirst(program);
     const evaluated = evaluate(family, program, set.cells, (c) => cellTail(c, order), relative);
     const plan = note(order, program, evaluated);
     if (plan) return plan;

@@ -40,5 +40,6 @@ export function oneBoxContext(family: Family): FormContext {
     pool: new TermPool(family.degree, [...ap.q.keys()], set),
     costModel: costModelFor(family.arithmetic),
     checkTable: tableBytesOf,
+    trial: false,
   };
 }
