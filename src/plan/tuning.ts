@@ -294,14 +294,17 @@ export const BRACKET_CHECK = {
 export const WORK = {
   /**
    * Units of work one plan may use. With every cell and the exact arithmetic
-   * counted (cellUnits, exactStepUnits, exactWordUnits), planning the
-   * examples ran 10 to 37 ns of CPU per unit (bench/plan-time.js with its
-   * work-units marker, 2-core AMD EPYC, node 20, loaded), so the limit is
-   * about 6 to 22 s of planning. The largest example, gas-wide, needs 4.8e8:
-   * a lower limit changes its plan. The goal is no plan over 10 s on such a
-   * machine; the cells are the cost to cut next (issue 10).
+   * counted (cellUnits, exactStepUnits, exactWordUnits), the heaviest specs
+   * of the corpus ran 20 to 50 ns of CPU per unit (bench/plan-time.js with
+   * its work-units marker, 2-core Intel Xeon, node 20), so this limit is
+   * about 6 to 15 s of planning; the goal is no plan over 10 s on such a
+   * machine (issue 10). It was 6e8 while gas-wide needed 4.8e8; since the
+   * cost floor (cost-floor.ts) the examples need at most 1.9e8 in all
+   * (gas-wide; ease-in-out-y 1.2e8, battery-soc 1.0e8) and find their first
+   * plan by 1.25e8 (gas-wide; battery-soc 7.8e7), within firstPlanShare of
+   * this limit with a fifth to spare. A lower limit changes gas-wide's plan.
    */
-  limit: 6e8,
+  limit: 3e8,
   /** Share of the limit the search for the order needed past plan.max_order may use (it only words a refusal). */
   orderHuntShare: 1 / 8,
   /**
@@ -338,8 +341,8 @@ export const WORK = {
    * rest of the limit stays for better ones. A search with no plan by then
    * is refused there, not at the limit: most such specs then had no plan at
    * the limit either, and spent 6 to 22 s finding that out. The examples
-   * find their first plan after at most 1.44e8 units (battery-soc, its
-   * two-level search; gas-wide 1.2e8), within this share with room.
+   * find their first plan after at most 1.25e8 units (gas-wide; battery-soc,
+   * its two-level search, 7.8e7), within this share of the limit.
    */
   firstPlanShare: 1 / 2,
 } as const;
