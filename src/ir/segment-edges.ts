@@ -65,7 +65,7 @@ export function segmentEdges(program: Program, box: readonly EdgeBox[]): InputEd
     };
     // With a two-level index only the fine-grid edges where the row changes are edges.
     const rowOf = (g: number): number => (part.fine ? fineRow(part.fine, g) : g);
-    const width = Rational.ONE.div(invWidth);
+    const width = invWidth.inverse();
     const edges: number[] = [];
     const points = new Set<number>();
     for (let j = 0; j + 1 < part.count; j++) {

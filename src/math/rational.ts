@@ -38,6 +38,33 @@ export class Rational {
     return g === 1n ? new Rational(num, den) : new Rational(num / g, den / g);
   }
 
+  /**
+   * num / den in lowest terms, for den > 0 a product of powers of `factors`
+   * (every prime of den divides one of them): the gcds are taken with the
+   * factors, far shorter than den, in place of one with den. A common prime p
+   * of num and den divides some factor f, and the loop over f ends only when
+   * num has no prime in common with gcd(den, f); num and den only shrink after.
+   */
+  static ofFactored(num: bigint, den: bigint, factors: readonly bigint[]): Rational {
+    if (num === 0n) return Rational.ZERO;
+    const negative = num < 0n;
+    let n = negative ? -num : num;
+    for (let i = 0; i < factors.length; i++) {
+      const f = factors[i]!;
+      // A factor met before has nothing left in common with num (the q_k of a series share theirs, often).
+      if (f === 1n || factors.indexOf(f) < i) continue;
+      for (;;) {
+        const h = gcd(den, f);
+        if (h === 1n) break;
+        const g = gcd(n, h);
+        if (g === 1n) break;
+        n /= g;
+        den /= g;
+      }
+    }
+    return new Rational(negative ? -n : n, den);
+  }
+
   static readonly ZERO = new Rational(0n, 1n);
   static readonly ONE = new Rational(1n, 1n);
 
@@ -106,6 +133,11 @@ export class Rational {
     if (o.num === 0n) throw new RangeError('Rational: division by zero');
     return Rational.of(this.num * o.den, this.den * o.num);
   }
+  /** 1 / this, for this non-zero: in lowest terms already, only the sign moves (Rational.ONE.div(x) spent a gcd on it). */
+  inverse(): Rational {
+    if (this.num === 0n) throw new RangeError('Rational: division by zero');
+    return this.num < 0n ? new Rational(-this.den, -this.num) : new Rational(this.den, this.num);
+  }
   neg(): Rational {
     return new Rational(-this.num, this.den);
   }
@@ -114,7 +146,7 @@ export class Rational {
   }
   pow(k: number): Rational {
     if (!Number.isInteger(k)) throw new RangeError('Rational.pow: integer exponent only');
-    if (k < 0) return Rational.ONE.div(this.pow(-k));
+    if (k < 0) return this.pow(-k).inverse();
     return new Rational(this.num ** BigInt(k), this.den ** BigInt(k));
   }
   sign(): -1 | 0 | 1 {

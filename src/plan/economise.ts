@@ -47,7 +47,7 @@ export function chebyshevForm(family: Family, c: Collapsed, boxes: readonly Cell
   // One scale for every segment: half the width of a segment's analysed box (the widest).
   const half = Math.max(...boxes.map((b) => (b[c.input]!.hi - b[c.input]!.lo) / 2));
   if (!(half > 0)) return null;
-  const scale = roundTo(Rational.ONE.div(Rational.fromNumber(half)), family.arithmetic);
+  const scale = roundTo(Rational.fromNumber(half).inverse(), family.arithmetic);
   if (!Number.isFinite(scale)) return null;
   const invHalf = Rational.fromNumber(scale);
   for (let s = 0; s < S; s++) {
@@ -93,7 +93,7 @@ export function economise(family: Family, e: Expansion, form: ChebyshevForm, bud
   // Kept Chebyshev terms back to monomials in v, then in u = rho v.
   const perSegment = cheb.map((ch, s) => {
     const kept = { num: ch.num.slice(0, degree + 1), den: ch.den };
-    return rationalsOf(scaledArgument(scaledFromChebyshev(kept), Rational.ONE.div(rho[s]!)));
+    return rationalsOf(scaledArgument(scaledFromChebyshev(kept), rho[s]!.inverse()));
   });
   const coeffs = Array.from({ length: degree + 1 }, (_, k) => perSegment.map((m) => m[k] ?? Rational.ZERO));
   return { program: polynomialProgram(family, e, form.input, mid, invHalf, coeffs), degree, error };

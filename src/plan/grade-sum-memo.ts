@@ -6,9 +6,10 @@
  * one of them summed the same grades of the same segments again, the costly
  * part of building a program (exact products thousands of bits long). A
  * grade's sum depends only on the segment's q_k and the grade's kept terms,
- * so it is summed once (the caller keeps one table per expansion and
- * equation, series-program.ts) and read back; the values are the same exact
- * rationals, so the programs are too.
+ * and the q_k only on the equation and the segment's expansion point, so it
+ * is summed once (the caller keeps one table per equation, series-program.ts)
+ * and read back; the values are the same exact rationals, so the programs
+ * are too.
  */
 import type { Rational } from '../math/rational.js';
 import { gradeSums } from '../series/grade-sums.js';
@@ -32,10 +33,20 @@ export function byGrade(terms: readonly SeriesTerm[]): GradeTerms[] {
   return [...lists].map(([grade, list]) => ({ grade, terms: list, key: `${grade}:${list.map((t) => t.m.join('.')).join(',')}` }));
 }
 
-/** gradeSums for segment `seg`, each grade read from `table` or summed and kept there. */
+/**
+ * The sums kept: per grade's key, per segment's expansion point (its exact
+ * value as text). A segment's q_k depend only on the equation and its x0, so
+ * the layouts of one search, which share many centres (a two-level layout
+ * splits some coarse cells and keeps the rest), share their sums too. Keyed
+ * by the grade's key, then x0, not by one joined string: the grade's key is
+ * long (every kept term's exponents) and a new string is hashed anew.
+ */
+export type GradeSumTable = Map<string, Map<string, Rational>>;
+
+/** gradeSums for the segment whose expansion point is `at` (Rational toString), each grade read from `table` or summed and kept there. */
 export function sumsOnce(
-  table: Map<string, Rational>,
-  seg: number,
+  table: GradeSumTable,
+  at: string,
   grades: readonly GradeTerms[],
   active: readonly number[],
   q: (k: number) => Rational,
@@ -44,7 +55,7 @@ export function sumsOnce(
   const out = new Map<number, Rational>();
   const missing: GradeTerms[] = [];
   for (const g of grades) {
-    const v = table.get(`${seg}|${g.key}`);
+    const v = table.get(g.key)?.get(at);
     if (v) out.set(g.grade, v);
     else missing.push(g);
   }
@@ -52,7 +63,9 @@ export function sumsOnce(
   const sums = gradeSums(missing.flatMap((g) => g.terms), active, q, check);
   for (const g of missing) {
     const v = sums.get(g.grade)!;
-    table.set(`${seg}|${g.key}`, v);
+    let row = table.get(g.key);
+    if (!row) table.set(g.key, (row = new Map()));
+    row.set(at, v);
     out.set(g.grade, v);
   }
   return out;

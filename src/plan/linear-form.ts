@@ -9,6 +9,7 @@
  * that differs between segments becomes a table read).
  */
 import { Rational } from '../math/rational.js';
+import { taylorShift } from '../series/recenter.js';
 import type { ProgramBuilder, Ref, SegValues } from '../ir/builder.js';
 import { constantValue } from '../family/expr-eval.js';
 import type { Constants, Expr } from '../family/types.js';
@@ -49,6 +50,46 @@ export function scaleForm(a: LinearForm, s: SegValues): LinearForm {
   const terms = new Map<Ref, SegValues>();
   if (!allZero(s)) for (const [ref, w] of a.terms) terms.set(ref, zip(w, s, (x, y) => x.mul(y)));
   return { constant: zip(a.constant, s, (x, y) => x.mul(y)), terms };
+}
+
+/**
+ * The forms c'_0 .. c'_upTo of P(x0 + y) for P = sum c_k x^k, x0 one value per
+ * segment: the values of series/recenter.ts `shiftedForms` with `addForms` and
+ * `scaleForm`, each weight and constant shifted on its own by `taylorShift`
+ * (integers over one denominator, reduced once), where the sums and products
+ * of reduced rationals cost a gcd apiece. The atoms kept are those that
+ * `addForms` keeps: a weight zero in every segment is dropped, unless it
+ * comes from c_j alone untouched by any later sum (which never happens for
+ * the forms `formOf` makes, none of whose weights is all zero).
+ */
+export function shiftedLinearForms(c: readonly LinearForm[], x0: SegValues, upTo: number = c.length - 1): LinearForm[] {
+  const n = c.length - 1;
+  const top = Math.min(n, upTo);
+  const S = x0.length;
+  const moved = x0.some((x) => !x.isZero());
+  const shiftPart = (part: (f: LinearForm) => SegValues | undefined): Rational[][] => {
+    const out = Array.from({ length: top + 1 }, () => new Array<Rational>(S));
+    const vector = new Array<Rational>(n + 1);
+    for (let seg = 0; seg < S; seg++) {
+      for (let k = 0; k <= n; k++) vector[k] = part(c[k]!)?.[seg] ?? Rational.ZERO;
+      const shifted = taylorShift(vector, x0[seg]!, top);
+      for (let j = 0; j <= top; j++) out[j]![seg] = shifted[j]!;
+    }
+    return out;
+  };
+  const constants = shiftPart((f) => f.constant);
+  const refs = new Set<Ref>();
+  for (const f of c) for (const ref of f.terms.keys()) refs.add(ref);
+  const terms = Array.from({ length: top + 1 }, () => new Map<Ref, SegValues>());
+  for (const ref of refs) {
+    const weights = shiftPart((f) => f.terms.get(ref));
+    for (let j = 0; j <= top; j++) {
+      const w = weights[j]!;
+      const untouched = !moved || !c.some((f, k) => k > j && f.terms.has(ref));
+      if (!allZero(w) || (untouched && c[j]!.terms.has(ref))) terms[j]!.set(ref, w);
+    }
+  }
+  return terms.map((t, j) => ({ constant: constants[j]!, terms: t }));
 }
 
 /**
@@ -103,7 +144,7 @@ export function formOf(b: ProgramBuilder, e: Expr, constants: Constants): Linear
       const r = formOf(b, e.right, constants);
       if (isConstant(r)) {
         if (r.constant.some((v) => v.isZero())) throw new RangeError('division by zero');
-        return scaleForm(l, r.constant.map((v) => Rational.ONE.div(v)));
+        return scaleForm(l, r.constant.map((v) => v.inverse()));
       }
       return atomForm(b.div(materialise(b, l), materialise(b, r)), S);
     }

@@ -169,7 +169,12 @@ export class PolishFailure extends Error {
  * of the total used to skip hopeless orders before any program is built.
  * With `stopAbove`, the cells stop at the first whose total exceeds it: the
  * parts returned are then those of the cells seen, their total above
- * `stopAbove` (a caller that only compares the total with it decides alike).
+ * `stopAbove` (a caller that only compares the total with it decides alike),
+ * and `stoppedAt` names that cell. `first`, a cell of `cells` (the one a
+ * previous pass stopped at), is taken first: where one cell fails order
+ * after order, the pass ends there at once. A caller that only asks whether
+ * the total exceeds `stopAbove`, or whether the pass fails, is told the same
+ * in any order (the total is a maximum, and any cell's failure is a failure).
  */
 export function polishBound(
   cells: readonly CellFacts[],
@@ -178,11 +183,13 @@ export function polishBound(
   relative: boolean,
   programs: { readonly core: Program; readonly steps: readonly Program[] } | null,
   stopAbove = Infinity,
-): PolishBound {
+  first: CellFacts | null = null,
+): PolishBound & { readonly stoppedAt: CellFacts | null } {
   const worst = new WorstParts(relative);
   // Counted as evaluate counts a program's analysis: nodes times cells (the Newton-only pass, one unit per step and cell).
   spend(cells.length * (programs ? programs.core.nodes.length + programs.steps.reduce((s, p) => s + p.nodes.length, 0) : steps + 1));
-  for (const c of cells) {
+  let stoppedAt: CellFacts | null = null;
+  for (const c of first && cells.includes(first) ? [first, ...cells.filter((x) => x !== first)] : cells) {
     if (c.state.kind !== 'ok') throw new PolishFailure('diverges', c);
     // float32 bounds allow for flushed subnormals, as the series bounds do (one bound for CPUs and GPUs).
     const ftz = { segment: c.segment, flushToZero: programs ? ARITHMETICS[programs.core.arithmetic].boundsAllowFlush : false };
@@ -200,9 +207,12 @@ export function polishBound(
     }
     worst.add(c.rootMin, { truncation: quad, rounding: rnd, total: err });
     // The caller asks only whether the total exceeds `stopAbove`: the largest total can only grow. The work is counted in full above.
-    if (worst.total > stopAbove) break;
+    if (worst.total > stopAbove) {
+      stoppedAt = c;
+      break;
+    }
   }
-  return { truncation: worst.truncation, rounding: worst.rounding, total: worst.total, absolute: worst.absolute };
+  return { truncation: worst.truncation, rounding: worst.rounding, total: worst.total, absolute: worst.absolute, stoppedAt };
 }
 
 /** The result's rounding bound, refusing values that may overflow or divisors that may vanish. */

@@ -105,7 +105,7 @@ export function segmentLayout(family: Family, box: Cell, counts: readonly number
   // Per split input, each row's analysed range and centre, computed once: every segment of the row shares them.
   const rowsOf = parts.map((p) => {
     const c0 = Rational.fromNumber(p.c0);
-    const w = Rational.ONE.div(Rational.fromNumber(p.invWidth));
+    const w = Rational.fromNumber(p.invWidth).inverse();
     const e = Rational.fromNumber(3 * u * (p.count + 1));
     const half = Rational.of(1n, 2n);
     return axes[p.input]!.runs.map(([a, b]) => {

@@ -20,12 +20,11 @@ import { attachEnclosures } from '../ir/analyse.js';
 import type { Interval } from '../math/interval.js';
 import type { SeriesTerm } from '../series/hyper-catalan.js';
 import type { Family } from '../family/types.js';
-import { shiftedForms } from '../series/recenter.js';
 import { CoefficientRanges, type TightCell } from './tight-range.js';
 import { checkWork } from './work.js';
 import { equationOf } from './layout-memo.js';
-import { byGrade, sumsOnce } from './grade-sum-memo.js';
-import { addForms, constantForm, formOf, isConstant, isZero, materialise, powerOf, scaleForm, uniform, type LinearForm } from './linear-form.js';
+import { byGrade, sumsOnce, type GradeSumTable } from './grade-sum-memo.js';
+import { constantForm, formOf, isConstant, isZero, materialise, powerOf, scaleForm, shiftedLinearForms, uniform, type LinearForm } from './linear-form.js';
 
 export interface SeriesSetup {
   /** Coefficients of P(x0 + y) as affine forms, index = power of y. */
@@ -71,7 +70,7 @@ export function setupSeries(family: Family, x0: SegValues, b: ProgramBuilder, up
       throw err;
     }
   });
-  const shifted = shiftedForms(forms, x0, addForms, scaleForm, (w) => w, upTo);
+  const shifted = shiftedLinearForms(forms, x0, upTo);
   const active: number[] = [];
   for (let k = 2; k < shifted.length; k++) if (!isZero(shifted[k]!)) active.push(k);
   return { shifted, active, x0 };
@@ -84,7 +83,7 @@ function buildPrefix(b: ProgramBuilder, s: SeriesSetup): Prefix {
   if (isConstant(c1)) {
     const zero = c1.constant.findIndex((v) => v.isZero());
     if (zero >= 0) throw new ZeroSlopeError(zero);
-    const inv = c1.constant.map((v) => Rational.ONE.div(v));
+    const inv = c1.constant.map((v) => v.inverse());
     const r = materialise(b, scaleForm(s.shifted[0]!, inv));
     marks.push({ ref: r, kind: 'ratio', j: 0 });
     for (const k of s.active) {
@@ -243,7 +242,7 @@ export interface SeriesCore extends Base {
 export function seriesCore(family: Family, e: Expansion, terms: readonly SeriesTerm[]): SeriesCore {
   const { b, setup: s, prefix: p } = prefixBuilder(family, e);
   const qConst = [...p.q.values()].every((ref) => b.segValues(ref) !== null);
-  const a = qConst ? hornerInR(b, p, terms, s.active, perExpansion(hornerSums, family, e, () => new Map())) : nestedHorner(b, p, terms, s.active);
+  const a = qConst ? hornerInR(b, p, terms, s.active, sumTable(hornerSums, family), e.x0) : nestedHorner(b, p, terms, s.active);
   return { b, setup: s, prefix: p, v: b.mul(p.r, a) };
 }
 
@@ -258,18 +257,29 @@ function gcd(a: number, b: number): number {
   return b === 0 ? a : gcd(b, a % b);
 }
 
-/** The grade sums already made, per expansion and equation (plan/grade-sum-memo.ts): one table for each of the two callers. */
-const hornerSums = new WeakMap<Expansion, WeakMap<object, Map<string, Rational>>>();
-const collapsedSums = new WeakMap<Expansion, WeakMap<object, Map<string, Rational>>>();
+/**
+ * The grade sums already made, per equation (plan/layout-memo.ts equationOf, one per work count) and
+ * expansion point (plan/grade-sum-memo.ts): one table for each of the two callers.
+ */
+const hornerSums = new WeakMap<object, GradeSumTable>();
+const collapsedSums = new WeakMap<object, GradeSumTable>();
+function sumTable(tables: WeakMap<object, GradeSumTable>, family: Family): GradeSumTable {
+  const eq = equationOf(family);
+  let t = tables.get(eq);
+  if (!t) tables.set(eq, (t = new Map()));
+  return t;
+}
 
-function hornerInR(b: ProgramBuilder, p: Prefix, terms: readonly SeriesTerm[], active: readonly number[], table: Map<string, Rational>): Ref {
+function hornerInR(b: ProgramBuilder, p: Prefix, terms: readonly SeriesTerm[], active: readonly number[], table: GradeSumTable, x0: SegValues): Ref {
   const S = b.segments;
   const D = new Map<number, Rational[]>();
   const grades = byGrade(terms);
+  // Read once: segValues makes an array of every segment's value at each call.
+  const qValues = new Map(active.map((k) => [k, b.segValues(p.q.get(k)!)!]));
   for (let seg = 0; seg < S; seg++) {
     // The exact sums are the costly part (src/plan/work.ts): checkWork stops them at the limit.
     checkWork();
-    const sums = sumsOnce(table, seg, grades, active, (k) => b.segValues(p.q.get(k)!)![seg]!, checkWork);
+    const sums = sumsOnce(table, x0[seg]!.toString(), grades, active, (k) => qValues.get(k)![seg]!, checkWork);
     for (const [grade, v] of sums) {
       if (!D.has(grade)) D.set(grade, new Array<Rational>(S).fill(Rational.ZERO));
       D.get(grade)![seg] = v;
@@ -328,7 +338,7 @@ export function collapsedSeries(family: Family, e: Expansion, terms: readonly Se
   const { b, setup: s } = prefixBuilder(family, e);
   const c1 = s.shifted[1]!;
   if (!isConstant(c1)) return null;
-  const inv = c1.constant.map((v) => Rational.ONE.div(v));
+  const inv = c1.constant.map((v) => v.inverse());
   const rForm = scaleForm(s.shifted[0]!, inv);
   if (rForm.terms.size !== 1) return null;
   const [atom, beta] = [...rForm.terms][0]!;
@@ -342,12 +352,12 @@ export function collapsedSeries(family: Family, e: Expansion, terms: readonly Se
   }
   const S = b.segments;
   const inR: Rational[][] = [];
-  const table = perExpansion(collapsedSums, family, e, () => new Map<string, Rational>());
+  const table = sumTable(collapsedSums, family);
   const grades = byGrade(terms);
   for (let seg = 0; seg < S; seg++) {
     const m: Rational[] = [e.x0[seg]!];
     checkWork();
-    for (const [grade, v] of sumsOnce(table, seg, grades, s.active, (k) => q.get(k)![seg]!, checkWork)) {
+    for (const [grade, v] of sumsOnce(table, e.x0[seg]!.toString(), grades, s.active, (k) => q.get(k)![seg]!, checkWork)) {
       while (m.length <= grade + 1) m.push(Rational.ZERO);
       m[grade + 1] = v.neg();
     }

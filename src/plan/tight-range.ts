@@ -22,7 +22,7 @@ import { divDown, divUp, subDown, subUp } from '../math/directed.js';
 import { containsZero, idiv, type Interval } from '../math/interval.js';
 import { MultiPoly } from '../math/multipoly.js';
 import { Rational } from '../math/rational.js';
-import { binomial } from '../series/recenter.js';
+import { shiftedPolys } from '../series/recenter.js';
 import { exprPolynomial, type InputScaling } from '../series/expr-poly.js';
 import type { Family } from '../family/types.js';
 import { boxOf, type Cell } from './box.js';
@@ -129,26 +129,8 @@ export class CoefficientRanges {
   private build(x0: Rational): SegmentTensors {
     const n = this.polys.length - 1;
     const degrees = this.polys.map((p) => (p ? totalDegree(p) : 0));
-    // c'j exactly, computed when first asked for: most are never needed (see `needed`).
-    const exact = new Map<number, MultiPoly | null>();
-    // x0^i, kept: every c'j asks for them.
-    const x0Powers: Rational[] = [Rational.ONE];
-    const x0Power = (i: number): Rational => {
-      for (let k = x0Powers.length; k <= i; k++) x0Powers.push(x0.pow(k));
-      return x0Powers[i]!;
-    };
-    const shiftedPoly = (j: number): MultiPoly | null => {
-      if (exact.has(j)) return exact.get(j)!;
-      // One pass over every term (MultiPoly.combination): the exact sum, as adding them one by one.
-      const parts: (readonly [MultiPoly, Rational])[] = [];
-      let acc: MultiPoly | null = null;
-      if (this.polys.slice(j).every((p) => p !== null)) {
-        for (let k = j; k <= n; k++) parts.push([this.polys[k]!, k === j ? Rational.ONE : Rational.of(binomial(k, j)).mul(x0Power(k - j))]);
-        acc = MultiPoly.combination(this.mid.length, parts);
-      }
-      exact.set(j, acc);
-      return acc;
-    };
+    // c'j exactly, reduced when first asked for: most are never needed (see `needed`).
+    const shiftedPoly = shiftedPolys(this.polys, x0);
     // c'j of total degree <= 1 (j != 1) is enclosed exactly enough by interval arithmetic already.
     // Its total degree is at most the largest of the c_k it sums (k >= j): when that is <= 1 the
     // exact expansion is not needed to know it is skipped.

@@ -46,7 +46,7 @@ export function exprPolynomial(e: Expr, scaling: InputScaling, constants: Consta
         const b = a && walk(x.right);
         const c = b && b.constantValue();
         if (!a || !c || c.isZero()) return null;
-        return a.scale(Rational.ONE.div(c));
+        return a.scale(c.inverse());
       }
       case 'pow': {
         const a = walk(x.base);

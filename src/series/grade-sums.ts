@@ -37,7 +37,8 @@ export function gradeSums(terms: readonly SeriesTerm[], active: readonly number[
     }
     let den = 1n;
     active.forEach((_, i) => (den = times(den, dens[i]!, top[i]!)));
-    out.set(grade, Rational.of(sum, den));
+    // den is a product of powers of the q_k's denominators: reduced by gcds with those, not with den itself.
+    out.set(grade, Rational.ofFactored(sum, den, dens.filter((_, i) => top[i]! > 0).map((t) => t.base)));
   }
   return out;
 }

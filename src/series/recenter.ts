@@ -6,7 +6,8 @@
  * x0 is a number of the target arithmetic, so the constant in the emitted code
  * and the one the bound is computed for are the same number.
  */
-import { Rational } from '../math/rational.js';
+import { MultiPoly } from '../math/multipoly.js';
+import { bitsOf, countProduct, gcd, Rational } from '../math/rational.js';
 
 export function binomial(n: number, k: number): bigint {
   if (k < 0 || k > n) return 0n;
@@ -40,6 +41,121 @@ export function shiftedForms<F, W>(
     out.push(acc);
   }
   return out;
+}
+
+/**
+ * c'_0 .. c'_upTo of P(x0 + y) for exact coefficients c, the same values as
+ * `shiftedForms` gives on rationals, from integers (`shiftNumerators`),
+ * brought to lowest terms once each. A sum or product of reduced rationals
+ * costs a gcd or two (math/gcd.ts), and the planner's recentring did n^2 of
+ * them per coefficient and segment.
+ */
+export function taylorShift(c: readonly Rational[], x0: Rational, upTo: number = c.length - 1): Rational[] {
+  const top = Math.min(c.length - 1, upTo);
+  if (x0.num === 0n) return c.slice(0, top + 1);
+  const s = shiftNumerators(c, x0, top);
+  const out: Rational[] = [];
+  for (let j = 0; j <= top; j++) out.push(s ? shiftedValue(s, j) : Rational.ZERO);
+  return out;
+}
+
+/** c'_j = a[j] / (d q^(n-j)) for j <= the `top` asked for (n = a.length - 1, qPowers[i] = q^i). */
+export interface ShiftNumerators {
+  readonly a: readonly bigint[];
+  readonly d: bigint;
+  readonly qPowers: readonly bigint[];
+}
+
+/** c'_j in lowest terms. */
+export function shiftedValue(s: ShiftNumerators, j: number): Rational {
+  return Rational.of(s.a[j]!, s.d * s.qPowers[s.a.length - 1 - j]!);
+}
+
+/**
+ * The Taylor shift on integers, exactly: with D the least common denominator
+ * of the c_k and x0 = p/q in lowest terms, A_k = (D c_k) q^(n-k) are the
+ * coefficients of Q(z) = D q^n P(z/q), and Q(p + w) = sum B_j w^j by repeated
+ * synthetic division (Horner's scheme; pass i makes B_i with n - i products
+ * by p), so c'_j = B_j / (D q^(n-j)). No gcd but the denominator's. Null when
+ * every c_k is zero. The products are counted for the work meter
+ * (src/plan/work.ts) as series/grade-sums.ts counts its own.
+ */
+export function shiftNumerators(c: readonly Rational[], x0: Rational, top: number = c.length - 1): ShiftNumerators | null {
+  const n = c.length - 1;
+  const p = x0.num;
+  const q = x0.den;
+  // The least common denominator: the planner's are mostly equal, or powers 2^i 5^j dividing one another.
+  let d = 1n;
+  let nonzero = false;
+  for (const ck of c) {
+    if (ck.num === 0n) continue;
+    nonzero = true;
+    const e = ck.den;
+    if (e === d || d % e === 0n) continue;
+    d = e % d === 0n ? e : (d / gcd(d, e)) * e;
+  }
+  if (!nonzero) return null;
+  const qPowers = [1n];
+  for (let k = 1; k <= n; k++) qPowers.push(q === 1n ? 1n : qPowers[k - 1]! * q);
+  const a = new Array<bigint>(n + 1);
+  for (let k = 0; k <= n; k++) {
+    const ck = c[k]!;
+    const scaled = ck.num === 0n || ck.den === d ? ck.num : ck.num * (d / ck.den);
+    a[k] = scaled === 0n || q === 1n || k === n ? scaled : scaled * qPowers[n - k]!;
+  }
+  // The scalings above and the denominators of the results: about 2(n + 1) products by D and powers of q.
+  countProduct(bitsOf(d) + bitsOf(qPowers[n]!), 64, 2 * (n + 1));
+  if (p !== 0n) {
+    const pBits = bitsOf(p);
+    for (let i = 0; i <= Math.min(top, n - 1); i++) {
+      for (let k = n - 1; k >= i; k--) {
+        const next = a[k + 1]!;
+        if (next !== 0n) a[k] = a[k]! + p * next;
+      }
+      countProduct(pBits, bitsOf(a[i]!), n - i);
+    }
+  }
+  return { a, d, qPowers };
+}
+
+/**
+ * The shifted coefficients of polynomial coefficients (tight-range.ts): c'_j
+ * as a polynomial in the inputs, null where some c_k (k >= j) is not a
+ * polynomial (null). Every monomial's coefficients are shifted on integers
+ * at the first call (`shiftNumerators`); each c'_j is reduced when first
+ * asked for, since most are never needed.
+ */
+export function shiftedPolys(polys: readonly (MultiPoly | null)[], x0: Rational): (j: number) => MultiPoly | null {
+  const n = polys.length - 1;
+  const last = polys.reduce((m, p, k) => (p === null ? k : m), -1);
+  const vars = polys.find((p) => p !== null)?.vars ?? 0;
+  let shifts: { e: readonly number[]; s: ShiftNumerators | null; c: Rational[] }[] | null = null;
+  const made = new Map<number, MultiPoly | null>();
+  return (j) => {
+    if (j <= last) return null;
+    let out = made.get(j);
+    if (out !== undefined) return out;
+    if (x0.num === 0n) out = polys[j]!;
+    else {
+      if (!shifts) {
+        const byKey = new Map<string, { e: readonly number[]; c: Rational[] }>();
+        for (let k = last + 1; k <= n; k++) {
+          for (const [e, ck] of polys[k]!.entries()) {
+            const key = e.join(',');
+            let v = byKey.get(key);
+            if (!v) byKey.set(key, (v = { e, c: new Array<Rational>(n + 1).fill(Rational.ZERO) }));
+            v.c[k] = ck;
+          }
+        }
+        shifts = [...byKey.values()].map((v) => ({ ...v, s: shiftNumerators(v.c, x0) }));
+      }
+      const list: [readonly number[], Rational][] = [];
+      for (const v of shifts) if (v.s) list.push([v.e, shiftedValue(v.s, j)]);
+      out = MultiPoly.fromTerms(vars, list);
+    }
+    made.set(j, out);
+    return out;
+  };
 }
 
 /**

@@ -183,6 +183,45 @@ describe('gcd (Lehmer) against mathjs gcd', () => {
   });
 });
 
+describe('Rational inverse', () => {
+  test('1 / (n/d) is d/n in lowest terms with a positive denominator, and d/n as a Number is correctly rounded (ECMAScript division)', () => {
+    fc.assert(
+      fc.property(smallRational, ([n, d]) => {
+        if (n === 0n) {
+          expect(() => Rational.of(n, d).inverse()).toThrow(RangeError);
+          return;
+        }
+        const r = Rational.of(n, d).inverse();
+        // d/n with |n|, d <= 10^12 < 2^53: Number(d) / Number(n) is the correctly rounded quotient (IEEE 754 division).
+        expect(r.toNumber()).toBe(Number(d) / Number(n));
+        expect(r.den > 0n).toBe(true);
+        expect(r.eq(Rational.of(d, n))).toBe(true);
+      }),
+      RUNS,
+    );
+  });
+});
+
+describe('Rational.ofFactored (lowest terms by gcds with the factors of the denominator) against mathjs', () => {
+  // mathjs fraction arithmetic is on Numbers; its gcd on BigNumbers (800 digits, more than any operand here) is exact.
+  const big = create(all, { number: 'BigNumber', precision: 800 });
+  const reference = (a: bigint, b: bigint): bigint => BigInt(big.gcd(big.bignumber(a.toString()), big.bignumber(b.toString())).toFixed());
+  const factor = fc.bigInt({ min: 1n, max: 2n ** 90n });
+  test('num / prod f_i^e_i reduces to num / g over den / g, g the mathjs gcd, for shared and coprime factors', () => {
+    fc.assert(
+      fc.property(fc.array(fc.tuple(factor, fc.integer({ min: 0, max: 6 })), { minLength: 1, maxLength: 4 }), fc.bigInt({ min: -(2n ** 200n), max: 2n ** 200n }), fc.integer({ min: 0, max: 3 }), (fs, x, share) => {
+        const den = fs.reduce((d, [f, e]) => d * f ** BigInt(e), 1n);
+        // Give num a common part with den now and then: a power of the first factor, and of a second's divisor.
+        const num = x * fs[0]![0] ** BigInt(share) * (fs[1] ? reference(fs[1][0], 6n) : 1n);
+        const r = Rational.ofFactored(num, den, fs.map(([f]) => f));
+        const g = num === 0n ? den : reference(num < 0n ? -num : num, den);
+        expect([r.num, r.den]).toEqual([num / g, den / g]);
+      }),
+      { numRuns: 100, seed: 20261203 },
+    );
+  });
+});
+
 describe('float conversions over the whole binary64 range (decimal.js with every digit, ECMAScript BigInt)', () => {
   // 1100 significant digits hold any double exactly (a 53-bit integer times 2^-1074 has 767 significant digits),
   // and any quotient of them compared here; the exponent range covers 2^-1074 and 2^1024.

@@ -9,7 +9,9 @@
  */
 import { describe, expect, test } from '@jest/globals';
 import { Decimal } from 'decimal.js';
-import { addForms, formOf, materialise, powerOf, scaleForm, uniform } from '../../src/plan/linear-form.js';
+import fc from 'fast-check';
+import { addForms, formOf, materialise, powerOf, scaleForm, shiftedLinearForms, uniform, type LinearForm } from '../../src/plan/linear-form.js';
+import { shiftedForms } from '../../src/series/recenter.js';
 import { ProgramBuilder } from '../../src/ir/builder.js';
 import { evaluate } from '../../src/ir/evaluate.js';
 import { readSpec } from '../../src/reader/read.js';
@@ -92,5 +94,45 @@ describe('linear forms', () => {
     const program = b.finish(p);
     expect(program.nodes.filter((n) => n.kind === 'mul').length).toBe(5);
     expect(evaluate(program, [1.5, 0])).toBe(1.5 ** 13); // 1.5^13 = 3^13 / 2^13 is exact in binary64 (3^13 < 2^53)
+  });
+
+  test('recentred forms: (s + 2) + (3 - s) x + x^2 at x0 = 1/2 is (s + 15/4) + (4 - s) y + y^2 (worked by hand)', () => {
+    const c: LinearForm[] = [
+      { constant: [q(2n)], terms: new Map([[0, [q(1n)]]]) },
+      { constant: [q(3n)], terms: new Map([[0, [q(-1n)]]]) },
+      { constant: [q(1n)], terms: new Map() },
+    ];
+    // P(1/2 + y) = s + 2 + (3 - s)(1/2 + y) + (1/4 + y + y^2) = s/2 + 15/4 + (4 - s) y + y^2.
+    const got = shiftedLinearForms(c, [q(1n, 2n)]);
+    expect(got.map((f) => [f.constant[0]!.toString(), [...f.terms].map(([r, w]) => `${r}:${w[0]}`)])).toEqual([
+      ['15/4', ['0:1/2']],
+      ['4', ['0:-1']],
+      ['1', []],
+    ]);
+  });
+
+  test('recentred forms equal the sums of addForms and scaleForm, atoms kept and dropped alike (fast-check)', () => {
+    // Reference: series/recenter.ts shiftedForms over addForms and scaleForm, the sums c'_j = sum_k binom(k, j) x0^(k-j) c_k
+    // one reduced rational at a time (checked itself against P(x0 + y) in test/series/recenter.test.ts).
+    const S = 3;
+    const value = fc.oneof(
+      fc.constant(q(0n)),
+      fc.tuple(fc.integer({ min: -30, max: 30 }), fc.constantFrom(1n, 8n, 10n, 3n)).map(([n, d]) => q(BigInt(n), d)),
+    );
+    const seg = fc.array(value, { minLength: S, maxLength: S });
+    // Weights mostly as formOf makes them, not zero in every segment, and now and then zero in all (kept by
+    // addForms only where no later sum touches them). Weights of opposite signs cancel in c'_j.
+    const weights = fc.oneof({ arbitrary: seg.filter((w) => w.some((v) => !v.isZero())), weight: 5 }, { arbitrary: seg, weight: 1 });
+    const form = fc.record({ constant: seg, terms: fc.dictionary(fc.constantFrom('0', '1', '2'), weights) }).map((r) => ({ constant: r.constant, terms: new Map(Object.entries(r.terms).map(([k, w]) => [Number(k), w])) }));
+    const x0 = fc.oneof(fc.constant([q(0n), q(0n), q(0n)]), fc.array(fc.oneof(fc.constant(q(0n)), value, fc.integer({ min: -9, max: 9 }).map((n) => q(BigInt(n), 1024n))), { minLength: S, maxLength: S }));
+    const show = (f: LinearForm): string[] => [f.constant.join(' '), ...[...f.terms].sort(([a], [b]) => a - b).map(([r, w]) => `${r}: ${w.join(' ')}`)];
+    fc.assert(
+      fc.property(fc.array(form, { minLength: 1, maxLength: 6 }), x0, fc.integer({ min: 0, max: 5 }), (c, x, upTo) => {
+        const want = shiftedForms(c, x, addForms, scaleForm, (w) => w, upTo);
+        const got = shiftedLinearForms(c, x, upTo);
+        expect(got.map(show)).toEqual(want.map(show));
+      }),
+      { numRuns: 400, seed: 20261203 },
+    );
   });
 });

@@ -106,6 +106,29 @@ describe('polishedProgram and polishBound on the quadratic', () => {
     expect(bound.total).toBeGreaterThanOrEqual(bound.rounding);
   });
 
+  test('the Newton-only pass asked whether the total exceeds a bar decides alike whichever cell it takes first, and names the cell it stopped at', () => {
+    // Internal consistency of the early stop (polishBound stopAbove, first): the full pass is the reference.
+    for (const order of [0, 1, 2]) {
+      const full = polishBound(cells, order, 1, false, null).total;
+      for (const bar of [full / 4, full / 2, full * 0.99, full, full * 2]) {
+        const plain = polishBound(cells, order, 1, false, null, bar);
+        expect(plain.total > bar).toBe(full > bar);
+        if (full > bar) {
+          expect(plain.stoppedAt).not.toBeNull();
+          for (const first of [plain.stoppedAt!, cells[cells.length - 1]!, cells[0]!]) {
+            const hinted = polishBound(cells, order, 1, false, null, bar, first);
+            expect(hinted.total > bar).toBe(true);
+          }
+          // The cell stopped at, taken first, ends the pass there.
+          expect(polishBound(cells, order, 1, false, null, bar, plain.stoppedAt).stoppedAt).toBe(plain.stoppedAt);
+        } else {
+          expect(plain.stoppedAt).toBeNull();
+          expect(polishBound(cells, order, 1, false, null, bar, cells[cells.length - 1]!).total).toBe(full);
+        }
+      }
+    }
+  });
+
   test('the carried bound shrinks quadratically: each step\'s Newton term is at most the factor times the previous error squared', () => {
     const order = 1;
     ctx.pool.termsUpTo(order);

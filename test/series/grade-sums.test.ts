@@ -45,4 +45,29 @@ describe('gradeSums', () => {
       { numRuns: 30, seed: 20261202 },
     );
   });
+
+  test('each D_w is exact and in lowest terms: the same rational as the sum of reduced products, num and den coprime (BigInt Euclid)', () => {
+    // Denominators sharing primes (6, 10, 15) and equal ones, as the q_k of one series share theirs.
+    const euclid = (a: bigint, b: bigint): bigint => (b === 0n ? a : euclid(b, a % b));
+    const q = fc.tuple(fc.integer({ min: -5000, max: 5000 }), fc.constantFrom(1n, 6n, 10n, 15n, 7n ** 30n, 2n ** 70n * 3n)).map(([n, d]) => Rational.of(BigInt(n), d));
+    fc.assert(
+      fc.property(q, q, q, (q2, q3, q4) => {
+        const qs = new Map([[2, q2], [3, q3], [4, q4]]);
+        const terms = termsUpToGrade(4, [2, 3, 4], 6)!;
+        const sums = gradeSums(terms, [2, 3, 4], (k) => qs.get(k)!, () => {});
+        for (let w = 0; w <= 6; w++) {
+          let want = Rational.ZERO;
+          for (const t of terms.filter((x) => x.grade === w)) {
+            let v = Rational.of(t.coefficient);
+            for (const k of [2, 3, 4]) v = v.mul((k % 2 === 0 ? qs.get(k)! : qs.get(k)!.neg()).pow(t.m[k]!));
+            want = want.add(v);
+          }
+          const got = sums.get(w)!;
+          expect(got.toString()).toBe(want.toString());
+          expect(euclid(got.num < 0n ? -got.num : got.num, got.den)).toBe(got.num === 0n ? got.den : 1n);
+        }
+      }),
+      { numRuns: 60, seed: 20261203 },
+    );
+  });
 });

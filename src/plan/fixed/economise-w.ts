@@ -47,7 +47,7 @@ export function economisedAt(cheb: readonly (readonly Rational[])[], layout: Fix
     const t = tailAbove(ch, degree);
     return t.isZero() ? 0 : t.toNumberUp();
   });
-  const perSegment = cheb.map((ch, s) => scaleArgument(fromChebyshev(ch.slice(0, degree + 1)), Rational.ONE.div(layout.segments[s]!.rho)));
+  const perSegment = cheb.map((ch, s) => scaleArgument(fromChebyshev(ch.slice(0, degree + 1)), layout.segments[s]!.rho.inverse()));
   const coeffs = Array.from({ length: degree + 1 }, (_, k) => perSegment.map((m) => m[k] ?? Rational.ZERO));
   return { degree, coeffs, error };
 }

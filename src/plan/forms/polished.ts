@@ -19,6 +19,7 @@ import { coreProgram, polishBound, polishedProgram, PolishFailure, stepProgram }
 import { refuseFloor } from '../refusals.js';
 import { POLISH } from '../tuning.js';
 import type { Program } from '../../ir/nodes.js';
+import type { CellFacts } from '../cell-bound.js';
 import type { Plan } from '../types.js';
 import type { FormContext, FoundPlans } from './context.js';
 
@@ -46,17 +47,22 @@ export function polishedPlans(ctx: FormContext, found: FoundPlans): Plan[] {
   const floorCost = (k: number): number => programCost(polishedProgram(family, expansion, empty, k), ctx.costModel);
   if (floorCost(Math.min(...stepCounts)) >= toBeat) return out;
   if (!fits(ctx, polishedProgram(family, expansion, empty, Math.min(...stepCounts)))) return out;
+  // The cell the last Newton-only pass stopped at: the next pass takes it first (polishBound `first`).
+  let hint: CellFacts | null = null;
   for (const k of stepCounts) {
     if (k !== Math.min(...stepCounts) && floorCost(k) >= toBeat) continue;
     for (let n = 0; n <= maxOrder; n++) {
       let cheap;
       try {
-        cheap = polishBound(cells, n, k, relative, null, target);
+        cheap = polishBound(cells, n, k, relative, null, target, hint);
       } catch (e) {
         if (e instanceof PolishFailure) continue;
         throw e;
       }
-      if (cheap.total > target) continue;
+      if (cheap.total > target) {
+        hint = cheap.stoppedAt;
+        continue;
+      }
       const terms = pool.termsUpTo(n);
       if (!terms) break;
       let full;
