@@ -302,7 +302,7 @@ export const WORK = {
    * cost floor (cost-floor.ts) the examples need at most 1.9e8 in all
    * (gas-wide; ease-in-out-y 1.2e8, battery-soc 1.0e8) and find their first
    * plan by 1.25e8 (gas-wide; battery-soc 7.8e7), within firstPlanShare of
-   * this limit with a fifth to spare. A lower limit changes gas-wide's plan.
+   * this limit with room (see there). A lower limit changes gas-wide's plan.
    */
   limit: 3e8,
   /** Share of the limit the search for the order needed past plan.max_order may use (it only words a refusal). */
@@ -342,9 +342,11 @@ export const WORK = {
    * is refused there, not at the limit: most such specs then had no plan at
    * the limit either, and spent 6 to 22 s finding that out. The examples
    * find their first plan after at most 1.25e8 units (gas-wide; battery-soc,
-   * its two-level search, 7.8e7), within this share of the limit.
+   * its two-level search, 7.8e7), the two-input landing-time spec of the
+   * tests (test/fixtures/segments/landing-time.yaml) after 1.5e8 to 1.6e8:
+   * two thirds of the limit leaves it a fifth to spare.
    */
-  firstPlanShare: 1 / 2,
+  firstPlanShare: 2 / 3,
 } as const;
 
 /** Checking a fix a refusal quotes (src/plan/plan.ts confirmedFix). */
