@@ -396,6 +396,14 @@ export const FIXED_PLAN = {
   autoSegments: [1, 2, 4, 8, 16, 32, 64] as const,
   /** Segment counts in a row without a cheaper plan that end the auto search: one may be a plateau, two rarely are (as SEGMENT_SEARCH.staleSteps). */
   staleCounts: 2,
+  /**
+   * Units of work one fixed32 plan may use (src/plan/work.ts), the float
+   * planner's limit before it was halved (WORK.limit): the fixed32 example
+   * with a target below its rounding floor (pt1000-celsius at 1e-6) climbs
+   * every order of every segment count before it can say so, 3.03e8 units
+   * (about 11 s); at 3e8 it would end at the limit instead of naming the floor.
+   */
+  workLimit: 6e8,
   /** Initial cells over the box, shared among the segments (at least minCellsPerSegment each): one input, so 64 cells already resolve the box finely, and repair and refinement add more where needed. */
   initialCells: 64,
   minCellsPerSegment: 2,

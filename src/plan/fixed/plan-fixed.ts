@@ -25,13 +25,14 @@ import { addGrade, cellTail } from '../cell-bound.js';
 import { CellSet } from '../cell-set.js';
 import { FIXED_PLAN, LIMITS } from '../tuning.js';
 import { locate } from '../locate.js';
-import { refuseBadCells } from '../refusals.js';
+import { refuseBadCells, refuseWorkLimit } from '../refusals.js';
 import { chooseRoot, rootAt, type RootChoice } from '../root-choice.js';
 import { segmentLayout } from '../segments.js';
 import { analysisProgram, CoefficientError, collapsedSeries, ZeroSlopeError, type Expansion } from '../series-program.js';
 import { chebyshevInW, degreeFor, economisedAt } from './economise-w.js';
 import { fixedLayout, rawBox, rawNumber, type FixedLayout } from './layout.js';
 import { fixedHorner, ResultRangeError } from './program.js';
+import { startWork, WorkLimitError } from '../work.js';
 
 export interface FixedBound {
   readonly kind: 'absolute';
@@ -75,6 +76,8 @@ class FinalRefusal extends RootcastError {}
 export function makeFixedPlan(family: Family): FixedPlan {
   const fixed = family.fixed;
   if (!fixed) throw new Error('makeFixedPlan needs a fixed32 family');
+  // One work count per plan, as makePlan starts one (src/plan/work.ts): what an earlier plan of the process spent is not this plan's.
+  startWork(null, FIXED_PLAN.workLimit);
   if (family.inputs.length !== 1) {
     throw new RootcastError(
       `fixed32 plans take one input (the series collapsed to a polynomial in it); this spec has ${family.inputs.length}: use float32 or float64, or make the others constants`,
@@ -106,7 +109,16 @@ export function makeFixedPlan(family: Family): FixedPlan {
   let stale = 0;
   for (const count of counts) {
     try {
-      const p = planWith(family, fam, raw, fixedLayout(raw.lo, raw.hi, bits, count));
+      let p: FixedPlan;
+      try {
+        p = planWith(family, fam, raw, fixedLayout(raw.lo, raw.hi, bits, count));
+      } catch (e) {
+        // The work limit ends the search: the best plan so far stands, or the first refusal, or the limit's own.
+        if (!(e instanceof WorkLimitError)) throw e;
+        if (best) return best;
+        if (firstError) throw firstError;
+        refuseWorkLimit(family);
+      }
       if (!best || p.cost < best.cost) {
         best = p;
         stale = 0;
