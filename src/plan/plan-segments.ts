@@ -88,16 +88,12 @@ function planSegmentsInner(family: Family, box: Cell, layout: SegmentLayout, tho
     trial: !thorough,
   };
   const found = new FoundPlans();
-  if (process.env.RC_T) console.error('   cells done', set.cells.length, 'cells');
   let refusal: RootcastError | null = null;
   for (const row of FORMS) {
     if (!row.requires.every((p) => p.holds(ctx, found))) continue;
-    const tf = performance.now();
     try {
       found.add(row.name, row.build(ctx, found));
-      if (process.env.RC_T) console.error('   form', row.name, (performance.now() - tf).toFixed(0), 'ms');
     } catch (e) {
-      if (process.env.RC_T) console.error('   form', row.name, (performance.now() - tf).toFixed(0), 'ms', String(e).slice(0,100));
       if (!(e instanceof RootcastError) || !row.keepsRefusal) throw e;
       refusal ??= e;
     }
