@@ -5,6 +5,7 @@ import { ARITHMETICS } from '../family/arithmetic.js';
 import { programCost } from '../ir/cost/index.js';
 import type { Evaluated } from './evaluate.js';
 import type { FormContext } from './forms/context.js';
+import { tableLimitBit } from './table-limit.js';
 import type { Plan } from './types.js';
 
 /** What a form decides; the rest of a Plan follows from the program and the segmentation. */
@@ -49,4 +50,11 @@ export function tableBytesOf(program: Program): number {
     if (node.kind === 'index') for (const p of node.parts) cells += p.fine ? p.fine.meta.length : 0;
   }
   return n * ARITHMETICS[program.arithmetic].bytes + 2 * cells;
+}
+
+/** Whether a program's tables fit plan.max_table_bytes; when not, the limit has decided something (table-limit.ts). */
+export function fitsTable(maxTableBytes: number, program: Program): boolean {
+  if (tableBytesOf(program) <= maxTableBytes) return true;
+  tableLimitBit();
+  return false;
 }

@@ -16,7 +16,7 @@ import { CellSet } from './cell-set.js';
 import { FoundPlans, type FormContext } from './forms/context.js';
 import { FORMS } from './forms/index.js';
 import { locate } from './locate.js';
-import { tableBytesOf } from './plan-of.js';
+import { fitsTable, tableBytesOf } from './plan-of.js';
 import { QuotedFixRefusal, refuseBadCells, refuseConstant, refuseSteps, refuseTable } from './refusals.js';
 import { chooseRoot, plainRoot, pointText, rootAt, type RootChoice } from './root-choice.js';
 import type { SegmentLayout } from './segments.js';
@@ -84,7 +84,7 @@ function planSegmentsInner(family: Family, box: Cell, layout: SegmentLayout, tho
     ap,
     pool: new TermPool(family.degree, [...ap.q.keys()], set),
     costModel: family.plan.costModel ? COST_MODELS[family.plan.costModel] : costModelFor(family.arithmetic),
-    checkTable: (program) => checkTable(family, counts, program),
+    checkTable: (program, least) => checkTable(family, counts, program, least),
     trial: !thorough,
   };
   const found = new FoundPlans();
@@ -206,14 +206,10 @@ function prefixOf(family: Family, expansion: Expansion, layout: SegmentLayout, s
   }
 }
 
-/** A program's table bytes, or the refusal when they exceed plan.max_table_bytes. */
-function checkTable(family: Family, counts: readonly number[], program: Program): number {
-  const tableBytes = tableBytesOf(program);
-  if (tableBytes > family.plan.maxTableBytes) {
-    tableLimitBit();
-    refuseTable(family, counts, tableBytes);
-  }
-  return tableBytes;
+/** A program's table bytes, or the refusal when they exceed plan.max_table_bytes (`least`: it says "at least"). */
+function checkTable(family: Family, counts: readonly number[], program: Program, least = false): number {
+  if (!fitsTable(family.plan.maxTableBytes, program)) refuseTable(family, counts, tableBytesOf(program), least);
+  return tableBytesOf(program);
 }
 
 /**

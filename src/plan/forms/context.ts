@@ -30,8 +30,8 @@ export interface FormContext {
   readonly pool: TermPool;
   /** The cost model plans are ranked by (src/ir/cost/index.ts). */
   readonly costModel: CostModel;
-  /** A program's table bytes; refuses the segments when they exceed plan.max_table_bytes. */
-  readonly checkTable: (program: Program) => number;
+  /** A program's table bytes; refuses the segments when they exceed plan.max_table_bytes (`least`: the refusal says "at least"). */
+  readonly checkTable: (program: Program, least?: boolean) => number;
   /** True for a trial of the segment search (planSegments' `thorough` false): its refusals rank the layouts, the user sees the search's. */
   readonly trial: boolean;
 }

@@ -13,12 +13,10 @@
  */
 import { ConstantOverflowError } from '../../ir/builder.js';
 import { programCost } from '../../ir/cost/index.js';
-import { planOf, tableBytesOf } from '../plan-of.js';
-import { tableLimitBit } from '../table-limit.js';
+import { fitsTable, planOf } from '../plan-of.js';
 import { coreProgram, polishBound, polishedProgram, PolishFailure, stepProgram } from '../polish.js';
 import { refuseFloor } from '../refusals.js';
 import { POLISH } from '../tuning.js';
-import type { Program } from '../../ir/nodes.js';
 import type { CellFacts } from '../cell-bound.js';
 import type { Plan } from '../types.js';
 import type { FormContext, FoundPlans } from './context.js';
@@ -46,7 +44,7 @@ export function polishedPlans(ctx: FormContext, found: FoundPlans): Plan[] {
   if (!empty) return out;
   const floorCost = (k: number): number => programCost(polishedProgram(family, expansion, empty, k), ctx.costModel);
   if (floorCost(Math.min(...stepCounts)) >= toBeat) return out;
-  if (!fits(ctx, polishedProgram(family, expansion, empty, Math.min(...stepCounts)))) return out;
+  if (!fitsTable(family.plan.maxTableBytes, polishedProgram(family, expansion, empty, Math.min(...stepCounts)))) return out;
   // The cell the last Newton-only pass stopped at: the next pass takes it first (polishBound `first`).
   let hint: CellFacts | null = null;
   for (const k of stepCounts) {
@@ -81,7 +79,7 @@ export function polishedPlans(ctx: FormContext, found: FoundPlans): Plan[] {
         continue;
       }
       const program = polishedProgram(family, expansion, terms, k);
-      if (!fits(ctx, program)) break;
+      if (!fitsTable(family.plan.maxTableBytes, program)) break;
       const bound = { kind: relative ? ('relative' as const) : ('absolute' as const), truncation: full.truncation, rounding: full.rounding, total: full.total };
       const note = `then ${k} Newton step${k === 1 ? '' : 's'} (the truncation bound below is the Newton error term left after the last step, carried from the series bound)`;
       const plan = planOf(ctx, { form: 'series', order: n, degree: null, terms, steps: k, program, evaluated: { bound, absolute: full.absolute }, note });
@@ -93,11 +91,4 @@ export function polishedPlans(ctx: FormContext, found: FoundPlans): Plan[] {
   // A fixed step count whose best plan misses on rounding: that is the floor to quote.
   if (knob !== 'auto' && out.length === 0 && best && best.rounding > target * POLISH.roundingStopShare) refuseFloor(family, best.total, best.rounding, knob);
   return out;
-}
-
-/** Whether a program's tables fit plan.max_table_bytes; when not, the limit has decided something (table-limit.ts). */
-function fits(ctx: FormContext, program: Program): boolean {
-  if (tableBytesOf(program) <= ctx.family.plan.maxTableBytes) return true;
-  tableLimitBit();
-  return false;
 }

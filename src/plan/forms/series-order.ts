@@ -18,8 +18,7 @@ import { RootcastError } from '../../errors.js';
 import { planOf, tableBytesOf } from '../plan-of.js';
 import { ConstantOverflowError } from '../../ir/builder.js';
 import type { Program } from '../../ir/nodes.js';
-import { refuseConstant, refuseFloor, refuseOrder, refuseTable } from '../refusals.js';
-import { tableLimitBit } from '../table-limit.js';
+import { refuseConstant, refuseFloor, refuseOrder } from '../refusals.js';
 import { seriesProgram } from '../series-program.js';
 import { LIMITS, ORDER_SEARCH, WORK } from '../tuning.js';
 import { WorkLimitError, workUsed } from '../work.js';
@@ -75,11 +74,7 @@ export function seriesOrderPlan(ctx: FormContext): Plan {
   // A search trial refuses at the table before bounding a program that outgrows it (tableFirst).
   let inReach: boolean | null = null;
   const tableFirst = (program: Program): void => {
-    if (!ctx.trial) return;
-    const bytes = tableBytesOf(program);
-    if (bytes <= family.plan.maxTableBytes || (inReach ??= floorInReach(ctx))) return;
-    tableLimitBit();
-    refuseTable(family, ctx.counts, bytes, true);
+    if (ctx.trial && tableBytesOf(program) > family.plan.maxTableBytes && !(inReach ??= floorInReach(ctx))) ctx.checkTable(program, true);
   };
   let probed = false;
   let refine = true;
