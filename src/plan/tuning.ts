@@ -389,38 +389,3 @@ export const RESULT_BUDGET = {
    */
   shares: [0.9, 0.5] as const,
 } as const;
-
-/** The fixed32 planner (src/plan/fixed/plan-fixed.ts). */
-export const FIXED_PLAN = {
-  /** Segment counts `plan.segments: auto` tries, in order: power-of-two raw widths (fixed/layout.ts), up to 64, past which the int32 tables outgrow the small flash of the cores fixed32 is for. */
-  autoSegments: [1, 2, 4, 8, 16, 32, 64] as const,
-  /** Segment counts in a row without a cheaper plan that end the auto search: one may be a plateau, two rarely are (as SEGMENT_SEARCH.staleSteps). */
-  staleCounts: 2,
-  /**
-   * Units of work one fixed32 plan may use (src/plan/work.ts), the float
-   * planner's limit before it was halved (WORK.limit): the fixed32 example
-   * with a target below its rounding floor (pt1000-celsius at 1e-6) climbs
-   * every order of every segment count before it can say so, 3.03e8 units
-   * (about 11 s); at 3e8 it would end at the limit instead of naming the floor.
-   */
-  workLimit: 6e8,
-  /** Initial cells over the box, shared among the segments (at least minCellsPerSegment each): one input, so 64 cells already resolve the box finely, and repair and refinement add more where needed. */
-  initialCells: 64,
-  minCellsPerSegment: 2,
-  /**
-   * Refine the worst cells when the truncation bound lies between these
-   * multiples of the target: above a quarter it may leave too little room for
-   * economisation and rounding; beyond a thousand times the target no
-   * refinement will bring it under, and the next order is cheaper to try
-   * (the window of ORDER_SEARCH, with a lower start because fixed32 rounding
-   * is coarser).
-   */
-  refineAbove: 1 / 4,
-  refineBelow: 1e3,
-  /** The truncation may take at most this share of the target; the rest is left to economisation and rounding. The same share decides the rounding floor refusal: rounding alone above it leaves no room. */
-  truncationShare: 1 / 2,
-  /** Orders past the first one whose truncation fits that are also collapsed and economised: a higher order changes the polynomial, and sometimes the economised degree drops. */
-  extraOrders: 3,
-  /** Shares of the room left after truncation given to the economisation, largest first (the rest to rounding); the first that meets the target wins, and 0 keeps every Chebyshev term. */
-  budgetShares: [0.6, 0.4, 0.2, 0.1, 0] as const,
-} as const;

@@ -22,7 +22,7 @@ import { fixedPlanJson, fixedPlanText } from '../../src/cli/fixed/plan.js';
 import { fixedEmitInputOf } from '../../src/cli/fixed/input.js';
 import { fixedFiles } from '../../src/cli/fixed/pipeline.js';
 import type { FixedPlan } from '../../src/plan/fixed/plan-fixed.js';
-import { FIXED_PLAN } from '../../src/plan/tuning.js';
+import { FIXED_PLAN } from '../../src/plan/fixed/tuning.js';
 import { edited, planOf, REPO } from './support.js';
 
 const SPECS = ['examples/fixed32/pt1000-celsius.yaml', 'test/fixtures/fixed32/pt100-cold.yaml'] as const;

@@ -23,7 +23,8 @@ import type { Family } from '../../family/types.js';
 import { boxOf, grid } from '../box.js';
 import { addGrade, cellTail } from '../cell-bound.js';
 import { CellSet } from '../cell-set.js';
-import { FIXED_PLAN, LIMITS } from '../tuning.js';
+import { LIMITS } from '../tuning.js';
+import { FIXED_PLAN } from './tuning.js';
 import { locate } from '../locate.js';
 import { refuseBadCells, refuseWorkLimit } from '../refusals.js';
 import { chooseRoot, rootAt, type RootChoice } from '../root-choice.js';
@@ -109,21 +110,18 @@ export function makeFixedPlan(family: Family): FixedPlan {
   let stale = 0;
   for (const count of counts) {
     try {
-      let p: FixedPlan;
-      try {
-        p = planWith(family, fam, raw, fixedLayout(raw.lo, raw.hi, bits, count));
-      } catch (e) {
-        // The work limit ends the search: the best plan so far stands, or the first refusal, or the limit's own.
-        if (!(e instanceof WorkLimitError)) throw e;
-        if (best) return best;
-        if (firstError) throw firstError;
-        refuseWorkLimit(family);
-      }
+      const p = planWith(family, fam, raw, fixedLayout(raw.lo, raw.hi, bits, count));
       if (!best || p.cost < best.cost) {
         best = p;
         stale = 0;
       } else if (++stale >= FIXED_PLAN.staleCounts) break;
     } catch (e) {
+      if (e instanceof WorkLimitError) {
+        // The work limit ends the search: the best plan so far stands, or the first refusal, or the limit's own.
+        if (best) return best;
+        if (firstError) throw firstError;
+        refuseWorkLimit(family);
+      }
       if (!(e instanceof RootcastError)) throw e;
       if (e instanceof FinalRefusal) throw e;
       firstError ??= e;
