@@ -1,6 +1,12 @@
 #!/usr/bin/env node
 /** Entry point of the `rootcast` command. */
+import { setFlagsFromString } from 'node:v8';
 import { main } from './cli/main.js';
+import { JIT } from './plan/tuning.js';
+
+// Before any planning: V8 optimises a function later, so fewer of the planner's
+// functions are compiled and recompiled on the worker threads (src/plan/tuning.ts JIT).
+setFlagsFromString(`--interrupt-budget=${JIT.interruptBudget}`);
 
 main(process.argv.slice(2)).then(
   (code) => {

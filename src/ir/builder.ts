@@ -48,6 +48,15 @@ export const SINGLE: Segmentation = { parts: [], segments: 1 };
 export class ProgramBuilder {
   private readonly nodes: Node[] = [];
   private readonly memo = new Map<string, Ref>();
+  /**
+   * Constants and tables, shared by exact value: buckets by the rounded value
+   * (a table: a hash of its rounded entries), each node confirmed by exact
+   * equality. A key of the values' hex text was most of `const`'s time (a
+   * table of a hundred recentred coefficients is kilobytes of text). Buckets
+   * are never changed in place (a clone shares them).
+   */
+  private readonly consts = new Map<number, readonly Ref[]>();
+  private readonly tables = new Map<number, readonly Ref[]>();
   private indexRef: Ref | null = null;
 
   constructor(
@@ -61,6 +70,8 @@ export class ProgramBuilder {
     const c = new ProgramBuilder(this.arithmetic, this.inputNames, this.segmentation);
     c.nodes.push(...this.nodes);
     for (const [k, v] of this.memo) c.memo.set(k, v);
+    for (const [k, v] of this.consts) c.consts.set(k, v);
+    for (const [k, v] of this.tables) c.tables.set(k, v);
     c.indexRef = this.indexRef;
     return c;
   }
@@ -77,6 +88,8 @@ export class ProgramBuilder {
     const b = new ProgramBuilder(program.arithmetic, program.inputs, { parts: [], segments });
     program.nodes.forEach((n, i) => {
       b.nodes.push(n);
+      if (n.kind === 'const') b.share(b.consts, n.value, i, (m) => m.kind === 'const' && m.exact.eq(n.exact));
+      else if (n.kind === 'table') b.share(b.tables, tableHash(n.values), i, (m) => m.kind === 'table' && sameValues(m.exact, n.exact));
       const key = nodeKey(n);
       if (key !== null && !b.memo.has(key)) b.memo.set(key, i);
       if (n.kind === 'index') b.indexRef = i;
@@ -86,6 +99,25 @@ export class ProgramBuilder {
 
   get segments(): number {
     return this.segmentation.segments;
+  }
+
+  /**
+   * The first node of `bucket` at `hash` that `same` accepts; else `id`
+   * (a node just made, or about to be), added to the bucket.
+   */
+  private share(buckets: Map<number, readonly Ref[]>, hash: number, id: Ref, same: (n: Node) => boolean): Ref {
+    const bucket = buckets.get(hash);
+    if (bucket) {
+      for (let k = 0; k < bucket.length; k++) if (same(this.nodes[bucket[k]!]!)) return bucket[k]!;
+    }
+    buckets.set(hash, bucket ? [...bucket, id] : [id]);
+    return id;
+  }
+
+  private pushShared(node: Node, buckets: Map<number, readonly Ref[]>, hash: number, same: (n: Node) => boolean): Ref {
+    const id = this.share(buckets, hash, this.nodes.length, same);
+    if (id === this.nodes.length) this.nodes.push(node);
+    return id;
   }
 
   private push(node: Node, key: string): Ref {
@@ -109,6 +141,12 @@ export class ProgramBuilder {
     return n.kind === 'const' ? n.exact : null;
   }
 
+  /** Whether a node is a constant or a table (segValues would give its values), without making the array. */
+  isConstant(ref: Ref): boolean {
+    const k = this.node(ref).kind;
+    return k === 'const' || k === 'table';
+  }
+
   /** The per-segment exact values of a constant or table node, else null. */
   segValues(ref: Ref): SegValues | null {
     const n = this.node(ref);
@@ -121,17 +159,20 @@ export class ProgramBuilder {
   const(exact: Rational | SegValues): Ref {
     const values = exact instanceof Rational ? null : exact;
     if (values && values.length !== this.segments) throw new RangeError(`expected ${this.segments} segment values`);
-    const uniform = values === null ? (exact as Rational) : values.every((v) => v.eq(values[0]!)) ? values[0]! : null;
+    const uniform = values === null ? (exact as Rational) : allEqual(values) ? values[0]! : null;
     if (uniform) {
       const value = roundTo(uniform, this.arithmetic);
       if (!Number.isFinite(value)) throw new ConstantOverflowError(uniform);
-      return this.push({ kind: 'const', value, exact: uniform }, `c:${exactKey(uniform)}`);
+      return this.pushShared({ kind: 'const', value, exact: uniform }, this.consts, value, (n) => n.kind === 'const' && n.exact.eq(uniform));
     }
     const index = this.segmentIndex();
-    const vs = values!.map((v) => roundTo(v, this.arithmetic));
-    const big = vs.findIndex((v) => !Number.isFinite(v));
-    if (big >= 0) throw new ConstantOverflowError(values![big]!);
-    return this.push({ kind: 'table', index, values: vs, exact: values! }, `t:${values!.map(exactKey).join(',')}`);
+    const vs = new Array<number>(values!.length);
+    for (let k = 0; k < vs.length; k++) {
+      const v = roundTo(values![k]!, this.arithmetic);
+      if (!Number.isFinite(v)) throw new ConstantOverflowError(values![k]!);
+      vs[k] = v;
+    }
+    return this.pushShared({ kind: 'table', index, values: vs, exact: values! }, this.tables, tableHash(vs), (n) => n.kind === 'table' && sameValues(n.exact, values!));
   }
 
   private segmentIndex(): Ref {
@@ -153,8 +194,7 @@ export class ProgramBuilder {
   }
 
   neg(a: Ref): Ref {
-    const sa = this.segValues(a);
-    if (sa) return this.const(sa.map((v) => v.neg()));
+    if (this.isConstant(a)) return this.const(this.segValues(a)!.map((v) => v.neg()));
     const na = this.node(a);
     if (na.kind === 'neg') return na.a;
     return this.push({ kind: 'neg', a }, `n:${a}`);
@@ -183,11 +223,10 @@ export class ProgramBuilder {
    * covers the reassociated operations.
    */
   subFrom(k: Ref, v: Ref): Ref {
-    const sk = this.segValues(k);
     const nv = this.node(v);
-    if (sk && (nv.kind === 'add' || nv.kind === 'sub')) {
-      const da = this.segValues(nv.a);
-      const db = this.segValues(nv.b);
+    if (this.isConstant(k) && (nv.kind === 'add' || nv.kind === 'sub')) {
+      const da = this.isConstant(nv.a);
+      const db = this.isConstant(nv.b);
       if (db && !da) return this.sub(nv.kind === 'add' ? this.sub(k, nv.b) : this.add(k, nv.b), nv.a);
       if (da && !db && nv.kind === 'sub') return this.add(this.sub(k, nv.a), nv.b);
       if (da && !db) return this.sub(this.sub(k, nv.a), nv.b);
@@ -196,11 +235,14 @@ export class ProgramBuilder {
   }
 
   private binary(kind: BinaryKind, a: Ref, b: Ref): Ref {
-    const sa = this.segValues(a);
-    const sb = this.segValues(b);
+    // Per-segment values are made only when both operands have them (segValues makes an array of S values).
+    const sa = this.isConstant(a);
+    const sb = this.isConstant(b);
     if (sa && sb) {
       const f = FOLD[kind];
-      return this.const(sa.map((x, i) => f(x, sb[i]!)));
+      const va = this.segValues(a)!;
+      const vb = this.segValues(b)!;
+      return this.const(va.map((x, i) => f(x, vb[i]!)));
     }
     const ca = this.constValue(a);
     const cb = this.constValue(b);
@@ -268,13 +310,12 @@ function pruneTo(nodes: readonly Node[], result: Ref): { nodes: Node[]; result: 
   return { nodes: out, result: map[result]!, map };
 }
 
-/** The sharing key a builder gives a node (null: never shared). */
+/** The sharing key a builder gives an operation node (null: never shared, or shared by value: constants and tables). */
 function nodeKey(n: Node): string | null {
   switch (n.kind) {
     case 'const':
-      return `c:${exactKey(n.exact)}`;
     case 'table':
-      return `t:${n.exact.map(exactKey).join(',')}`;
+      return null;
     case 'input':
       return `i:${n.index}`;
     case 'neg':
@@ -293,7 +334,27 @@ function nodeKey(n: Node): string | null {
   }
 }
 
-/** A constant's memo key: its exact value in hex (linear in its size; decimal text is quadratic on the huge values of subnormal expansion points). */
-function exactKey(v: Rational): string {
-  return v.den === 1n ? v.num.toString(16) : `${v.num.toString(16)}/${v.den.toString(16)}`;
+function allEqual(values: SegValues): boolean {
+  const first = values[0]!;
+  for (let k = 1; k < values.length; k++) if (!values[k]!.eq(first)) return false;
+  return true;
+}
+
+function sameValues(a: SegValues, b: SegValues): boolean {
+  if (a === b) return true;
+  if (a.length !== b.length) return false;
+  for (let k = 0; k < a.length; k++) if (!a[k]!.eq(b[k]!)) return false;
+  return true;
+}
+
+// A table's bucket: a hash of its rounded entries' bits (equal exact entries round alike).
+const HASH_F64 = new Float64Array(1);
+const HASH_U32 = new Uint32Array(HASH_F64.buffer);
+function tableHash(values: readonly number[]): number {
+  let h = values.length;
+  for (let k = 0; k < values.length; k++) {
+    HASH_F64[0] = values[k]!;
+    h = Math.imul(h ^ HASH_U32[0]!, 0x9e3779b1) ^ Math.imul(HASH_U32[1]!, 0x85ebca6b);
+  }
+  return h;
 }

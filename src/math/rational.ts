@@ -169,7 +169,8 @@ export class Rational {
   }
   /** Nearest binary32 value, correctly rounded, returned as a JS number. */
   toFloat32(): number {
-    return roundToBinary(this, 24, -149);
+    const quick = float32FromDoubles(this.num, this.den);
+    return quick === quick ? quick : roundToBinary(this, 24, -149);
   }
   /** Largest float64 <= this (toward -infinity; -Infinity below -MAX_VALUE, MAX_VALUE above it). */
   toNumberDown(): number {
@@ -258,6 +259,40 @@ function roundToBinary(r: { readonly num: bigint; readonly den: bigint }, precis
   const out = precision === 24 ? Math.fround(value) : value;
   rounded.direction = neg ? -side : side;
   return neg ? -out : out;
+}
+
+/**
+ * The binary32 nearest num / den (den > 0) from doubles, or NaN when the
+ * doubles cannot decide: Number(bigint) and the division are each correctly
+ * rounded, so q = Number(num) / Number(den) is within a relative 3.01 2^-53
+ * of the exact value, which lies in [q - w, q + w] for w = |q| 2^-40; when
+ * both ends round to the same binary32 (Math.fround, ECMAScript: correctly
+ * rounded), so does the exact value, rounding being monotone. Off the
+ * doubles' normal range (a part past 2^1024, a quotient below 2^-1000) or
+ * near a binary32 tie it is NaN, and the exact rounding decides. A table of
+ * float32 constants costs a BigInt division and four BigInt products less
+ * per entry this way (src/ir/builder.ts rounds every entry of every table).
+ */
+function float32FromDoubles(num: bigint, den: bigint): number {
+  let q = Number(num) / Number(den);
+  // A part past 2^1000 (the values recentred at far expansion points): both cut to their top 64 bits,
+  // which adds a relative 2^-63 each, and the power of two put back.
+  if (!(q === q && q !== 0 && q !== Infinity && q !== -Infinity)) q = topBitsQuotient(num < 0n ? -num : num, den) * (num < 0n ? -1 : 1);
+  const a = q < 0 ? -q : q;
+  if (!(a >= 2 ** -1000 && a < 2 ** 1000)) return NaN;
+  const w = a * 2 ** -40;
+  const f = Math.fround(a - w);
+  if (f !== Math.fround(a + w)) return NaN;
+  return q < 0 ? -f : f;
+}
+
+/** n / d (n, d > 0) from their top 64 bits, within a relative 3.01 2^-53; NaN past 2^±1000. */
+function topBitsQuotient(n: bigint, d: bigint): number {
+  const sn = Math.max(0, bitLength(n) - 64);
+  const sd = Math.max(0, bitLength(d) - 64);
+  const k = sn - sd;
+  if (k > 1000 || k < -1000) return NaN;
+  return (Number(sn > 0 ? n >> BigInt(sn) : n) / Number(sd > 0 ? d >> BigInt(sd) : d)) * 2 ** k;
 }
 
 /**

@@ -48,8 +48,7 @@ interface Signed {
  */
 function signedHorner(b: ProgramBuilder, v: Ref, coeffs: readonly (Signed | null)[]): Signed {
   const fold = (c: Signed): Signed => {
-    const values = b.segValues(c.ref);
-    return values && c.sign === -1 ? { ref: b.const(values.map((x) => x.neg())), sign: 1 } : c;
+    return c.sign === -1 && b.isConstant(c.ref) ? { ref: b.const(b.segValues(c.ref)!.map((x) => x.neg())), sign: 1 } : c;
   };
   let acc = fold(coeffs[coeffs.length - 1]!);
   for (let k = coeffs.length - 2; k >= 0; k--) {
@@ -189,7 +188,11 @@ export function polishBound(
   // Counted as evaluate counts a program's analysis: nodes times cells (the Newton-only pass, one unit per step and cell).
   spend(cells.length * (programs ? programs.core.nodes.length + programs.steps.reduce((s, p) => s + p.nodes.length, 0) : steps + 1));
   let stoppedAt: CellFacts | null = null;
-  for (const c of first && cells.includes(first) ? [first, ...cells.filter((x) => x !== first)] : cells) {
+  // `first` (when it is one of the cells) is taken first, then the others in order: no copy of the cell list per pass.
+  const lead = first && cells.includes(first) ? first : null;
+  for (let i = lead ? -1 : 0; i < cells.length; i++) {
+    const c = i < 0 ? lead! : cells[i]!;
+    if (i >= 0 && c === lead) continue;
     if (c.state.kind !== 'ok') throw new PolishFailure('diverges', c);
     // float32 bounds allow for flushed subnormals, as the series bounds do (one bound for CPUs and GPUs).
     const ftz = { segment: c.segment, flushToZero: programs ? ARITHMETICS[programs.core.arithmetic].boundsAllowFlush : false };

@@ -241,7 +241,7 @@ export interface SeriesCore extends Base {
 
 export function seriesCore(family: Family, e: Expansion, terms: readonly SeriesTerm[]): SeriesCore {
   const { b, setup: s, prefix: p } = prefixBuilder(family, e);
-  const qConst = [...p.q.values()].every((ref) => b.segValues(ref) !== null);
+  const qConst = [...p.q.values()].every((ref) => b.isConstant(ref));
   const a = qConst ? hornerInR(b, p, terms, s.active, sumTable(hornerSums, family), e.x0) : nestedHorner(b, p, terms, s.active);
   return { b, setup: s, prefix: p, v: b.mul(p.r, a) };
 }

@@ -25,6 +25,35 @@ describe('program builder', () => {
     expect(b.sub(x, y)).not.toBe(b.sub(y, x));
   });
 
+  test('constants and tables are shared by exact value, not by their rounding; clones and resumed builders share them too', () => {
+    // float32: 1/3 and 1/3 + 2^-60 round to the same binary32 (Math.fround(1/3), ECMAScript), yet are different constants.
+    const S = { parts: [{ input: 0, count: 2, c0: 0.25, invWidth: 2, stride: 1 }], segments: 2 };
+    const b = new ProgramBuilder('float32', ['x'], S);
+    const third = Rational.of(1n, 3n);
+    const near = third.add(Rational.of(1n, 2n ** 60n));
+    expect(Math.fround(1 / 3)).toBe(Math.fround(near.toNumber()));
+    const c = b.const(third);
+    expect(b.const(Rational.of(2n, 6n))).toBe(c);
+    expect(b.const([third, Rational.of(1n, 3n)])).toBe(c);
+    expect(b.const(near)).not.toBe(c);
+    const t = b.const([third, Rational.ONE]);
+    expect(b.node(t).kind).toBe('table');
+    expect(b.const([Rational.of(1n, 3n), Rational.int(1)])).toBe(t);
+    expect(b.const([near, Rational.ONE])).not.toBe(t);
+    expect(b.const([Rational.ONE, third])).not.toBe(t);
+    const k = b.clone();
+    expect(k.const([third, Rational.ONE])).toBe(t);
+    expect(k.const(third)).toBe(c);
+    // A resumed builder finds the constants and tables of the finished program.
+    const x = b.input(0);
+    const p = b.finish(b.add(b.mul(x, t), c));
+    const r = ProgramBuilder.resume(p);
+    const tAt = p.nodes.findIndex((n) => n.kind === 'table');
+    const cAt = p.nodes.findIndex((n) => n.kind === 'const' && n.exact.eq(third));
+    expect(r.const([third, Rational.ONE])).toBe(tAt);
+    expect(r.const(third)).toBe(cAt);
+  });
+
   test('identities cost nothing: x * 1, x + 0, 0 - x is a negation, x * -1 too', () => {
     const b = new ProgramBuilder('float64', ['x']);
     const x = b.input(0);

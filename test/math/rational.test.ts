@@ -134,6 +134,63 @@ describe('Rational against Number, Math.fround and decimal.js', () => {
   });
 });
 
+describe('toFloat32: round to nearest binary32, ties to even (IEEE 754-2019 4.3.1), checked with decimal.js', () => {
+  // Exact binary32 neighbours by the encoding (a Float32Array word plus or minus one).
+  const f32 = new Float32Array(1);
+  const u32 = new Uint32Array(f32.buffer);
+  const stepUp32 = (x: number): number => {
+    f32[0] = x;
+    if (x === 0) return 2 ** -149;
+    u32[0] = x > 0 ? u32[0]! + 1 : u32[0]! - 1;
+    return f32[0]!;
+  };
+  // Enough digits for every binary32 exactly (2^-149 times a 24-bit integer: about 160 significant digits) and the quotients near them.
+  const E = Decimal.clone({ precision: 400, minE: -9e15, maxE: 9e15 });
+  /** Rounding to nearest by its definition: no binary32 neighbour of f is nearer, and a tie goes to the even significand. */
+  const isNearest32 = (num: bigint, den: bigint, f: number): boolean => {
+    const v = new E(num.toString()).div(den.toString()).abs();
+    const a = Math.abs(f);
+    if (a === Infinity) return v.gte(new E(2).pow(128).sub(new E(2).pow(103)));
+    const d = v.sub(exactDecimal(E, a)).abs();
+    const up = stepUp32(a);
+    const dUp = up === Infinity ? new E(Infinity) : v.sub(exactDecimal(E, up)).abs();
+    const down = a === 0 ? null : -stepUp32(-a);
+    const dDown = down === null ? new E(Infinity) : v.sub(exactDecimal(E, down)).abs();
+    f32[0] = a;
+    const even = (u32[0]! & 1) === 0;
+    return d.lt(dUp) && d.lt(dDown) ? true : (d.eq(dUp) || d.eq(dDown)) && d.lte(dUp) && d.lte(dDown) && even;
+  };
+  // Numerators and denominators from one to 1200 bits: the quotients span binary32's normal,
+  // subnormal and overflow ranges, and parts past 2^1024 (where doubles cannot hold them).
+  const part = fc.tuple(fc.bigInt({ min: 1n, max: 2n ** 64n }), fc.integer({ min: 0, max: 1140 })).map(([m, s]) => m << BigInt(s));
+
+  test('random quotients of parts up to 1200 bits, of either sign', () => {
+    fc.assert(
+      fc.property(part, part, fc.boolean(), (n, d, neg) => {
+        const f = Rational.of(neg ? -n : n, d).toFloat32();
+        expect(f < 0 || Object.is(f, -0)).toBe(neg);
+        expect(isNearest32(n, d, f)).toBe(true);
+      }),
+      { numRuns: 500, seed: 20261203 },
+    );
+  });
+
+  test('just above, at and just below the midpoint of two binary32 neighbours, normal and subnormal', () => {
+    fc.assert(
+      fc.property(fc.float({ noNaN: true, noDefaultInfinity: true, min: Math.fround(2 ** -149), max: Math.fround(2 ** 127) }), fc.integer({ min: 30, max: 200 }), (x, k) => {
+        const lo = Rational.fromNumber(x);
+        const hi = Rational.fromNumber(stepUp32(x));
+        const mid = lo.add(hi).div(Rational.int(2));
+        const tiny = mid.mul(Rational.of(1n, 2n ** BigInt(k)));
+        for (const v of [mid.sub(tiny), mid, mid.add(tiny)]) expect(isNearest32(v.num, v.den, v.toFloat32())).toBe(true);
+        expect(mid.sub(tiny).toFloat32()).toBe(x);
+        expect(mid.add(tiny).toFloat32()).toBe(stepUp32(x));
+      }),
+      { numRuns: 300, seed: 20261203 },
+    );
+  });
+});
+
 describe('gcd (Lehmer) against mathjs gcd', () => {
   // mathjs on decimal.js BigNumbers with more digits than any operand here (2300 bits < 700 digits), so its gcd is exact.
   const big = create(all, { number: 'BigNumber', precision: 800 });
