@@ -19,7 +19,7 @@ import { RootcastError } from '../errors.js';
 import { iadd, imul, point, type Interval } from '../math/interval.js';
 import { Rational } from '../math/rational.js';
 import { evalExprExact } from '../family/expr-eval.js';
-import type { Family } from '../family/types.js';
+import type { Expr, Family } from '../family/types.js';
 import { signAt } from '../series/recenter.js';
 import { describeCell, grid, short, split, widestDim, type Cell } from './box.js';
 import { rootEnclosure, type CellFacts } from './cell-bound.js';
@@ -30,14 +30,49 @@ import { CoefficientRanges, intersect } from './tight-range.js';
 import { boxCentre } from './root-choice.js';
 import { BRACKET_CHECK, initialCellsPerSegment } from './tuning.js';
 
-/** P at an exact point `end` over a cell, by Horner's rule on the coefficient enclosures. */
-function pOver(family: Family, cell: Cell, end: Interval, isZero: boolean, tight?: CoefficientRanges): Interval {
-  const c = family.coefficients.map((e) => (e === null ? point(0) : encloseExpr(e, cell, family.constants)));
-  if (isZero) return c[0]!;
-  let acc = c[c.length - 1]!;
-  for (let k = c.length - 2; k >= 0; k--) acc = iadd(imul(acc, end), c[k]!);
-  // P(end) is c'0 recentred at the end: its Bernstein enclosure (src/plan/tight-range.ts) avoids the dependency problem.
-  return intersect(acc, tight ? tight.shifted(0, cell, 0) : null);
+/** One bracket end as the sign check reads it. */
+export interface BracketEnd {
+  /** The end as the spec writes it. */
+  readonly text: string;
+  /** Its float64 enclosure. */
+  readonly at: Interval;
+  /** P(0) is c0: no Horner's rule, and nothing to recentre. */
+  readonly zero: boolean;
+  /** c'0 recentred at the end, that is P(end), as a polynomial in the inputs (its Bernstein enclosure). */
+  readonly tight: CoefficientRanges;
+  /** The sign of P(end) at the box centre, which every cell must prove. */
+  readonly sign: number;
+}
+
+/**
+ * What the enclosures prove of P(end) over a cell: the sign it has at the box
+ * centre (`holds`), the opposite sign, never zero, at every input of the cell
+ * (`wrong`: so no enclosure of any part of the cell can prove the sign, since
+ * each holds the true values), or neither (`unknown`).
+ */
+export type EndVerdict = 'holds' | 'wrong' | 'unknown';
+
+/**
+ * P(end) over `cell` from the coefficient enclosures `c` over it: Horner's
+ * rule first, and where that cannot prove the sign, its intersection with the
+ * Bernstein enclosure of P(end) recentred (src/plan/tight-range.ts), which
+ * avoids the dependency problem. Each enclosure is rigorous, so the
+ * intersection is, and it proves the sign wherever Horner's rule alone does:
+ * the verdict is that of the intersection taken for every cell.
+ */
+export function endVerdict(c: readonly Interval[], cell: Cell, end: BracketEnd): EndVerdict {
+  let v = c[0]!;
+  if (!end.zero) {
+    let acc = c[c.length - 1]!;
+    for (let k = c.length - 2; k >= 0; k--) acc = iadd(imul(acc, end.at), c[k]!);
+    v = holds(acc, end.sign) ? acc : intersect(acc, end.tight.shiftedOnce(0, cell, 0));
+  }
+  if (holds(v, end.sign)) return 'holds';
+  return (end.sign < 0 ? v.lo > 0 : v.hi < 0) ? 'wrong' : 'unknown';
+}
+
+function holds(v: Interval, sign: number): boolean {
+  return sign < 0 ? v.hi <= 0 : v.lo >= 0;
 }
 
 /** The exact signs of P at the bracket ends at the box centre, or null where a division is by zero there. */
@@ -52,31 +87,87 @@ function centreSigns(family: Family): [number, number] | null {
   }
 }
 
-/** Refuses a bracket whose sign change cannot be certified over the whole box (check 1 above). */
+/** True when the expression divides somewhere (only then can a cell hold a pole of it). */
+function divides(e: Expr): boolean {
+  switch (e.kind) {
+    case 'num':
+    case 'input':
+    case 'constant':
+      return false;
+    case 'neg':
+      return divides(e.arg);
+    case 'pow':
+      return divides(e.base);
+    default:
+      return e.kind === 'div' || divides(e.left) || divides(e.right);
+  }
+}
+
+/** True when every side of the cell is at most its `minWidth`. */
+function isSmall(cell: Cell, minWidth: readonly number[]): boolean {
+  for (let i = 0; i < cell.length; i++) if (cell[i]!.hi - cell[i]!.lo > minWidth[i]!) return false;
+  return true;
+}
+
+/** A cell waiting for the sign check, with bit j set where end j is `wrong` over a cell that holds it. */
+interface Pending {
+  readonly cell: Cell;
+  readonly wrong: number;
+}
+
+/**
+ * Refuses a bracket whose sign change cannot be certified over the whole box
+ * (check 1 above). Cells where an end cannot be proved are split, breadth
+ * first, until they are small or BRACKET_CHECK.maxCells is near; what fails
+ * then is named (the hull of the cells that fail at the low end, or where
+ * none does, at the high end). Two facts spare most of the enclosures and
+ * change no cell's fate, so the refusal is the same as when both ends are
+ * enclosed in every cell:
+ * - a cell inside one where an end is `wrong` fails at that end too
+ *   (endVerdict), so it is split or named without enclosing P there;
+ * - the high end is looked at only where the low end holds. Elsewhere the
+ *   cell is split, named or (with a pole) passed over whatever the high end
+ *   does; its parts are looked at afresh; and when it is named, it is named
+ *   for the low end, so the refusal does not name the high end.
+ */
 export function certifyBracket(family: Family, box: Cell): void {
   if (!family.bracket) return;
   const signs = centreSigns(family);
   // No sign change at the centre (or a pole there): the root choice refuses that in its own words.
   if (!signs || signs[0] * signs[1] >= 0) return;
-  const ends = family.bracket.map((end) => ({ text: end.text, at: decimalInterval(end.value), zero: end.value.isZero(), tight: new CoefficientRanges(family, [end.value]) }));
-  const holds = (v: Interval, s: number): boolean => (s < 0 ? v.hi <= 0 : v.lo >= 0);
+  const ends = family.bracket.map((end, j): BracketEnd => ({ text: end.text, at: decimalInterval(end.value), zero: end.value.isZero(), tight: new CoefficientRanges(family, [end.value]), sign: signs[j]! }));
+  // The exact expansions at the ends, as the first cell's enclosures once built them, whether or not a cell needs them.
+  for (const end of ends) if (!end.zero) end.tight.prepare(0);
+  const mayPole = family.coefficients.some((e) => e !== null && divides(e));
   const failed: [Cell[], Cell[]] = [[], []];
   const minWidth = box.map((c) => (c.hi - c.lo) * BRACKET_CHECK.minFraction);
-  let queue: Cell[] = grid(box, initialCellsPerSegment(family.inputs.length, 1));
+  let queue: Pending[] = grid(box, initialCellsPerSegment(family.inputs.length, 1)).map((cell) => ({ cell, wrong: 0 }));
   let work = 0;
   while (queue.length > 0) {
-    const next: Cell[] = [];
-    for (const cell of queue) {
+    const next: Pending[] = [];
+    for (const { cell, wrong: inherited } of queue) {
       work++;
-      const bad = [0, 1].filter((j) => !holds(pOver(family, cell, ends[j]!.at, ends[j]!.zero, ends[j]!.tight), signs[j]!));
+      let wrong = inherited;
+      let bad = inherited;
+      // The coefficients over the cell, once for both ends.
+      let c: Interval[] | null = null;
+      for (let j = 0; j < 2; j++) {
+        if (j === 0 ? bad & 1 : bad !== 0) continue;
+        c ??= family.coefficients.map((e) => (e === null ? point(0) : encloseExpr(e, cell, family.constants)));
+        const verdict = endVerdict(c, cell, ends[j]!);
+        if (verdict === 'holds') continue;
+        bad |= 1 << j;
+        if (verdict === 'wrong') wrong |= 1 << j;
+      }
       // A coefficient with a pole in the cell is refused at its division by the planner's cell checks.
-      if (bad.length === 0 || family.coefficients.some((e) => e !== null && poleOver(e, cell, family.constants) !== null)) continue;
-      const small = cell.every((c, i) => c.hi - c.lo <= minWidth[i]!);
-      if (small || work + next.length + 2 > BRACKET_CHECK.maxCells) {
-        for (const j of bad) failed[j as 0 | 1].push(cell);
+      if (bad === 0 || (mayPole && family.coefficients.some((e) => e !== null && poleOver(e, cell, family.constants) !== null))) continue;
+      if (isSmall(cell, minWidth) || work + next.length + 2 > BRACKET_CHECK.maxCells) {
+        if (bad & 1) failed[0].push(cell);
+        if (bad & 2) failed[1].push(cell);
         continue;
       }
-      next.push(...split(cell, widestDim(cell, box)));
+      const [a, b] = split(cell, widestDim(cell, box));
+      next.push({ cell: a, wrong }, { cell: b, wrong });
     }
     queue = next;
   }
@@ -181,6 +272,14 @@ function noZero(family: Family, cell: Cell, lo: number, hi: number, budget: { le
 
 /** The hull of some cells, as input ranges. */
 function region(family: Family, cells: readonly Cell[]): string {
-  const hull = cells[0]!.map((_, i) => ({ lo: Math.min(...cells.map((c) => c[i]!.lo)), hi: Math.max(...cells.map((c) => c[i]!.hi)) }));
-  return describeCell(family, hull);
+  // Math.min and Math.max pairwise, as over the whole list at once (a spread of many thousand cells is slow).
+  const lo = cells[0]!.map((c) => c.lo);
+  const hi = cells[0]!.map((c) => c.hi);
+  for (const cell of cells) {
+    for (let i = 0; i < cell.length; i++) {
+      lo[i] = Math.min(lo[i]!, cell[i]!.lo);
+      hi[i] = Math.max(hi[i]!, cell[i]!.hi);
+    }
+  }
+  return describeCell(family, lo.map((l, i) => ({ lo: l, hi: hi[i]! })));
 }

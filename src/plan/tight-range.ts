@@ -177,6 +177,28 @@ export class CoefficientRanges {
   }
 
   /**
+   * `shifted(j, cell, segment)` bit for bit, computed alone and not kept: for a
+   * caller that asks each cell once for one power (src/plan/bracket-check.ts),
+   * whom the other powers' enclosures and the cache would only cost time and
+   * garbage.
+   */
+  shiftedOnce(j: number, cell: Cell, segment: number): Interval | null {
+    const x = this.tensors(segment).shifted[j];
+    if (!x) return null;
+    const { origin, width } = this.scaled(cell.slice(0, this.mid.length));
+    return finite(bernsteinRange(x, origin, width));
+  }
+
+  /**
+   * Builds the segment's exact expansion now, as its first enclosure would: a
+   * caller that may never ask for one still does (and counts, src/plan/work.ts)
+   * the same exact work, and leaves the same tensors for the planner to share.
+   */
+  prepare(segment: number): void {
+    this.tensors(segment);
+  }
+
+  /**
    * Every c'j over the cell (the first `d` entries of `cell`), and r, q_k as
    * c'0 / c'1, c'k / c'1 where c'1 is enclosed away from zero. Kept for the
    * last few thousand cells: the cell's facts and every program analysed on

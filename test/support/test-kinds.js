@@ -36,6 +36,8 @@ const SLOW = [
   // Plans eleven layouts of a quadratic in process to check the cost floor against them.
   'test/plan/cost-floor.test.ts',
   'test/plan/first-plan.test.ts',
+  // Sweeps two corpus specs' bracket check to its cell limit the plain way, for comparison: seconds on a busy machine.
+  'test/plan/bracket-check-corpus.test.ts',
   'test/support/plan-cache.test.ts',
   // Runs scripts/gen-harness.js (ts-morph) through a dynamic import, which the import scan does not follow.
   'test/verify/harness-machinery.test.ts',
