@@ -14,10 +14,13 @@ export const FIXED_PLAN = {
    * planner's limit before it was halved (WORK.limit): the fixed32 example
    * with a target below its rounding floor (pt1000-celsius at 1e-6) climbed
    * every order of every segment count before it could say so, 3.03e8 units
-   * (about 11 s); at 3e8 it would have ended at the limit instead of naming
-   * the floor. Such a target, below what any int32 result can meet, is now
-   * refused before planning (result-floor.ts); one between that and this
-   * planner's own floor still climbs.
+   * when this limit was set and 4.94e8 at a514942 (18 to 21 s of CPU); at 3e8
+   * it would have ended at the limit instead of naming the floor. Such a
+   * target, below what any int32 result can meet, is now refused before
+   * planning (result-floor.ts); one between that and this planner's own
+   * floor still climbs (pt1000-celsius at 7.6e-6: 5.3e8 units, refused at
+   * the floor; at 1e-5 it meets this limit, 6.0e8, and keeps the plan found
+   * before it, one box).
    */
   workLimit: 6e8,
   /**

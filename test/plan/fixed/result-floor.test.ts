@@ -83,7 +83,7 @@ describe('the result grid floor of any fixed32 plan', () => {
     const f = steps.minus(steps.floor());
     expect(new D(m![2]!).lte(Decimal.min(f, new D(1).minus(f)).times(STEP))).toBe(true);
     // No order was climbed: the witnesses' exact arithmetic (about 2.3e5 units) is under 1 % of the
-    // 3.03e8 units the climb to the planner's own floor took (FIXED_PLAN.workLimit's note).
-    expect(workUsed()).toBeLessThan(3.03e6);
+    // 4.94e8 units the climb to the planner's own floor took at a514942 (FIXED_PLAN.workLimit's note).
+    expect(workUsed()).toBeLessThan(4.94e6);
   });
 });
