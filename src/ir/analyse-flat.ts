@@ -173,9 +173,13 @@ function tableFacts(program: Program, c: Compiled, segment: number): { lo: Float
   return t;
 }
 
-export function analyseFlat(program: Program, cell: readonly Interval[], opts: AnalyseOptions = {}): FlatAnalysis {
-  const segment = opts.segment ?? 0;
-  const ftz = opts.flushToZero === true;
+/**
+ * The segment and flush-to-zero come as plain arguments (as AnalyseOptions'
+ * fields): an options object per cell was garbage, and its two shapes
+ * ({ segment } and { segment, flushToZero }) made the optimised code of this
+ * function deoptimise and be compiled again.
+ */
+export function analyseFlat(program: Program, cell: readonly Interval[], segment = 0, ftz = false): FlatAnalysis {
   const f = ARITHMETICS[program.arithmetic];
   const u = f.u;
   const eta = ftz ? f.minNormal : f.minSubnormal / 2;

@@ -44,7 +44,7 @@ const { max } = Math;
  * off the hot path. The planner's loops use `analyseFlat`, the same numbers.
  */
 export function analyse(program: Program, cell: readonly Interval[], opts: AnalyseOptions = {}): Analysis {
-  const f = analyseFlat(program, cell, opts);
+  const f = analyseFlat(program, cell, opts.segment ?? 0, opts.flushToZero === true);
   const n = program.nodes.length;
   const values: Interval[] = new Array(n);
   const errors: number[] = new Array(n);

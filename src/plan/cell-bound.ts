@@ -56,7 +56,7 @@ export interface CellFacts {
 }
 
 export function cellFacts(ap: AnalysisProgram, degree: number, cell: Cell, x0: number, segment: number): CellFacts {
-  const an = analyseFlat(ap.program, cell, { segment });
+  const an = analyseFlat(ap.program, cell, segment);
   const T = new Array<number>(degree + 1).fill(0);
   const Q = new Array<number>(degree + 1).fill(0);
   const tight = tightRatios(ap, ap.c1 !== null ? valueOf(an, ap.c1) : null, cell, segment);

@@ -38,7 +38,7 @@ export function evaluate(
   spend(program.nodes.length * cells.length);
   for (const c of cells) {
     // float32 bounds allow for flushed subnormals too, so one bound holds on CPUs and GPUs.
-    const an = analyseFlat(program, c.cell, { segment: c.segment, flushToZero: ARITHMETICS[program.arithmetic].boundsAllowFlush });
+    const an = analyseFlat(program, c.cell, c.segment, ARITHMETICS[program.arithmetic].boundsAllowFlush);
     const rnd = an.err[program.result]!;
     if (!Number.isFinite(rnd) || largestComputedFlat(an) > ARITHMETICS[program.arithmetic].maxFinite / OVERFLOW_HEADROOM) {
       throw new RootcastError(

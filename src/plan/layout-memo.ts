@@ -67,6 +67,18 @@ const equations = planMemo<object, WeakMap<object, Map<string, Equation>>>();
 
 /** The record of the family's equation, one object per distinct one (a WeakMap key for the caches of series-program.ts). */
 export function equationOf(family: Family): Equation {
+  // The same family object again (the common case: every cache lookup of a search) skips the key's JSON text.
+  const known = byFamily().get(family);
+  if (known) return known;
+  const eq = equationByKey(family);
+  byFamily().set(family, eq);
+  return eq;
+}
+
+/** equationOf per family object, for the same count (a family is never changed once read). */
+const byFamily = planMemo<Family, Equation>();
+
+function equationByKey(family: Family): Equation {
   const memo = equations();
   let byConstants = memo.get(family.coefficients);
   if (!byConstants) memo.set(family.coefficients, (byConstants = new WeakMap()));

@@ -17,7 +17,7 @@ import { applyOutsideBox } from './outside-box.js';
 import { planSegments } from './plan-segments.js';
 import { plainTrial, type PlainTrial } from './plain-series.js';
 import { planWithResult } from './result-stage.js';
-import { frugalChoice, searchSegments } from './segment-search.js';
+import { frugalChoice, searchSegments, type TableFreeRefusals } from './segment-search.js';
 import { QuotedFixRefusal, refuseWorkLimit } from './refusals.js';
 import { tableLimitBites } from './table-limit.js';
 import { QUOTED_FIX, TABLE_FIX, WORK } from './tuning.js';
@@ -114,14 +114,15 @@ function planWithinLimit(family: Family): Plan {
   if (perInput.some((k) => k === 'auto')) {
     const fixed = perInput.map((k) => (k === 'auto' ? null : k));
     const bites = tableLimitBites();
+    const tableFree: TableFreeRefusals = new Map();
     try {
       // A search with no plan (the plain series' included) after a share of the limit ends there (src/plan/work.ts).
-      const search = (): Plan => searchSegments(family, box.cell, fixed, plain);
+      const search = (): Plan => searchSegments(family, box.cell, fixed, plain, { record: tableFree });
       // Without a bracket the one box is the only trial: it keeps the whole limit.
       return plain.plan || !family.bracket ? search() : untilFirstPlanBy(WORK.limit * WORK.firstPlanShare, search);
     } catch (e) {
       // A search the table limit never touched would end the same with a larger one (src/plan/table-limit.ts).
-      if (e instanceof RootcastError && tableLimitBites() > bites) refuseWithTableFix(family, box.cell, fixed, e);
+      if (e instanceof RootcastError && tableLimitBites() > bites) refuseWithTableFix(family, box.cell, fixed, e, tableFree);
       throw e;
     }
   }
@@ -151,8 +152,18 @@ const NO_PLAIN: PlainTrial = { plan: null, candidates: [] };
  * of TABLE_FIX.tryBytes in turn and, when a plan is found, check that its table size as
  * the limit plans too before quoting it (a quoted fix must work). Otherwise
  * the search's own refusal stands.
+ *
+ * The first search, for a byte count, takes the refused search's trials that
+ * the table limit never touched as refused (`tableFree`, segment-search.ts
+ * TableFreeRefusals) instead of planning them again, and counts the units
+ * they counted there: it ends about where planning them again would have, with
+ * the CPU time of that replay saved (it was most of the search's share in
+ * the corpus's floor refusals: random/078, 113, 136, 170, 184, 241). Its
+ * own table-free trials join them for the next, larger limit. It only
+ * proposes a count: the check that quotes it is a search of its own, in a
+ * fresh count, as the user's run of the edited spec is.
  */
-function refuseWithTableFix(family: Family, box: Cell, fixed: readonly (number | null)[], refusal: RootcastError): void {
+function refuseWithTableFix(family: Family, box: Cell, fixed: readonly (number | null)[], refusal: RootcastError, tableFree: TableFreeRefusals): void {
   if (!family.bracket) return;
   const withBytes = (bytes: number): Family => ({ ...family, plan: { ...family.plan, maxTableBytes: bytes } });
   let bytes = 0;
@@ -161,7 +172,7 @@ function refuseWithTableFix(family: Family, box: Cell, fixed: readonly (number |
     try {
       // The refused search is over: each trial gets a count of its own, as a quoted fix's check does (confirmedFix).
       restartWork(WORK.limit * QUOTED_FIX.workShare);
-      const found = everyPlan(() => searchSegments(withBytes(limit), box, fixed)).tableBytes;
+      const found = everyPlan(() => searchSegments(withBytes(limit), box, fixed, undefined, { known: tableFree, record: tableFree })).tableBytes;
       restartWork(WORK.limit * QUOTED_FIX.workShare);
       untilFirstPlan(() => searchSegments(withBytes(found), box, fixed));
       bytes = found;

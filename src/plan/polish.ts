@@ -195,9 +195,9 @@ export function polishBound(
     if (i >= 0 && c === lead) continue;
     if (c.state.kind !== 'ok') throw new PolishFailure('diverges', c);
     // float32 bounds allow for flushed subnormals, as the series bounds do (one bound for CPUs and GPUs).
-    const ftz = { segment: c.segment, flushToZero: programs ? ARITHMETICS[programs.core.arithmetic].boundsAllowFlush : false };
+    const ftz = programs ? ARITHMETICS[programs.core.arithmetic].boundsAllowFlush : false;
     let err = cellTail(c, order);
-    if (programs) err = addUp(err, checked(analyseFlat(programs.core, c.cell, ftz), programs.core, c));
+    if (programs) err = addUp(err, checked(analyseFlat(programs.core, c.cell, c.segment, ftz), programs.core, c));
     const spread = mulUp(c.R, Math.max(0, addUp(c.aUpper, -1)));
     let quad = 0;
     let rnd = 0;
@@ -205,7 +205,7 @@ export function polishBound(
       const J = { lo: subDown(subDown(c.rRange.lo, spread), err), hi: addUp(addUp(c.rRange.hi, spread), err) };
       quad = mulUp(newtonFactorOver(c, J), mulUp(err, err));
       if (!Number.isFinite(quad)) throw new PolishFailure('diverges', c);
-      rnd = programs ? checked(analyseFlat(programs.steps[j]!, [...c.cell, J], ftz), programs.steps[j]!, c) : 0;
+      rnd = programs ? checked(analyseFlat(programs.steps[j]!, [...c.cell, J], c.segment, ftz), programs.steps[j]!, c) : 0;
       err = addUp(quad, rnd);
     }
     worst.add(c.rootMin, { truncation: quad, rounding: rnd, total: err });

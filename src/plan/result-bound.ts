@@ -88,7 +88,7 @@ export function resultBound(family: Family, spec: ResultSpec, cells: readonly Ce
     if (!root || !(E >= 0) || !Number.isFinite(E)) return unbounded(out);
     const J = { lo: subDown(root.lo, E), hi: addUp(root.hi, E) };
     const slope = slopeOver(family, derivative, c.cell, J);
-    const an = analyseFlat(program, [...c.cell, J], { segment: c.segment, flushToZero });
+    const an = analyseFlat(program, [...c.cell, J], c.segment, flushToZero);
     const rnd = an.err[program.result]!;
     const overflow = largestComputedFlat(an) > ARITHMETICS[program.arithmetic].maxFinite / OVERFLOW_HEADROOM;
     const scale = relative ? resultFloor(family, spec, c.cell, root) : 1;

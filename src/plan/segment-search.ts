@@ -21,16 +21,41 @@ import type { PlainTrial } from './plain-series.js';
 import { refinedPlans } from './refine.js';
 import { moreActionable, QuotedFixRefusal, TableRefusal } from './refusals.js';
 import { QUOTED_FIX, REFINE, SEGMENT_SEARCH, WORK } from './tuning.js';
-import { tableLimitBit } from './table-limit.js';
-import { WorkLimitError, workUsed } from './work.js';
+import { tableLimitBit, tableLimitBites } from './table-limit.js';
+import { creditUnits, WorkLimitError, workStops, workUsed } from './work.js';
 import type { Candidate, Plan } from './types.js';
+
+/**
+ * Trials of a refused search that a search of the same family with a larger
+ * plan.max_table_bytes refuses too (plan.ts refuseWithTableFix): layout key
+ * (`counts.join('x')`) -> the trial's refusal and the units it counted.
+ * Only trials the table limit turned nothing away in (table-limit.ts) and
+ * no work limit or share cut short (work.ts workStops) are kept: a trial is
+ * a pure function of the family and its layout, so such a trial refuses
+ * with any larger limit too, with a refusal of the same kind (the words can
+ * differ: a floor met only on programs over the limit quotes their bytes).
+ * A search that takes them uses only whether they planned, never the words.
+ */
+export type TableFreeRefusals = Map<string, { readonly refusal: RootcastError; readonly units: number }>;
 
 /** `fixed`: per input, the count the spec sets, or null where the search chooses (all null for `segments: auto`). */
 /**
  * `plain`: the plain series' trial of a bracketed family (src/plan/plain-series.ts),
  * whose plan joins the equal and two-level ones in the final choice.
+ * `replay.record`: filled with this search's TableFreeRefusals; `replay.known`:
+ * an earlier search's, whose trials this one takes as refused without
+ * planning them again, counting the units they counted there (so the search
+ * meets its work limit about where planning them again would have: the CPU
+ * time is what it saves). For the table fix's search for a byte count, never
+ * for a search whose plan or units a user's run must match.
  */
-export function searchSegments(family: Family, box: Cell, fixed: readonly (number | null)[] = family.inputs.map(() => null), plain: PlainTrial = { plan: null, candidates: [] }): Plan {
+export function searchSegments(
+  family: Family,
+  box: Cell,
+  fixed: readonly (number | null)[] = family.inputs.map(() => null),
+  plain: PlainTrial = { plan: null, candidates: [] },
+  replay: { readonly record?: TableFreeRefusals; readonly known?: TableFreeRefusals } = {},
+): Plan {
   const d = family.inputs.length;
   const candidates: Candidate[] = [];
   const found: { best: Plan | null; refusal: RootcastError | null; exhausted: boolean } = { best: null, refusal: null, exhausted: false };
@@ -42,13 +67,26 @@ export function searchSegments(family: Family, box: Cell, fixed: readonly (numbe
     tried.set(key, p);
     return p;
   };
+  const refused = (counts: number[], e: RootcastError): null => {
+    found.refusal = moreActionable(found.refusal, e, workUsed() > WORK.limit * QUOTED_FIX.workShare);
+    candidates.push(refusedCandidate(counts, e.message, !family.bracket));
+    return null;
+  };
   const attemptNew = (counts: number[]): Plan | null => {
     const skip = oneFree ? skipped(family, box, counts, [...tried.values()]) : null;
     if (skip !== null) {
       candidates.push(refusedCandidate(counts, skip, !family.bracket));
       return null;
     }
+    const known = replay.known?.get(counts.join('x'));
+    const bites = tableLimitBites();
+    const stops = workStops();
+    const start = workUsed();
     try {
+      if (known) {
+        creditUnits(known.units);
+        return refused(counts, known.refusal);
+      }
       // Without a bracket there is no search: the one-box plan is the answer, so certify it thoroughly.
       const p = planSegments(family, box, counts, !family.bracket);
       candidates.push(...candidatesOf(p));
@@ -62,9 +100,8 @@ export function searchSegments(family: Family, box: Cell, fixed: readonly (numbe
         return null;
       }
       if (!(e instanceof RootcastError)) throw e;
-      found.refusal = moreActionable(found.refusal, e, workUsed() > WORK.limit * QUOTED_FIX.workShare);
-      candidates.push(refusedCandidate(counts, e.message, !family.bracket));
-      return null;
+      if (tableLimitBites() === bites && workStops() === stops) replay.record?.set(counts.join('x'), { refusal: e, units: workUsed() - start });
+      return refused(counts, e);
     }
   };
   let current = fixed.map((k) => k ?? 1);

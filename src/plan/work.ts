@@ -42,6 +42,10 @@ function newMeter() {
     firstPlanAt: null as number | null,
     /** Counts started so far in this process: the memos of `planMemo` belong to one count. */
     generation: 0,
+    /** WorkLimitErrors `spend` has thrown in this process (a limit, a share or a first-plan bound): `workStops`. */
+    stops: 0,
+    /** Units counted for work not done again (`creditUnits`), over every plan of this process: left out of `workTotal`. */
+    credited: 0,
   };
 }
 
@@ -91,7 +95,19 @@ export function spend(units: number): void {
     meter.nextReport = meter.used + meter.limit / WORK.reports;
     meter.observer(Math.min(meter.used, meter.limit), meter.limit);
   }
-  if (meter.used > meter.cap || meter.used > meter.firstPlanBy) throw new WorkLimitError();
+  if (meter.used > meter.cap || meter.used > meter.firstPlanBy) {
+    meter.stops++;
+    throw new WorkLimitError();
+  }
+}
+
+/**
+ * A running count of the WorkLimitErrors `spend` has thrown: a computation
+ * in which it did not change ran to its end with no limit cutting it short
+ * (a caller that catches the error inside, as the order hunt does, is seen).
+ */
+export function workStops(): number {
+  return meter.stops;
 }
 
 /**
@@ -140,9 +156,20 @@ export function planMemo<K extends object, V>(): () => WeakMap<K, V> {
   };
 }
 
-/** Units counted over every plan of this process so far. */
+/** Units counted over every plan of this process so far, but those counted for work not done (`creditUnits`). */
 export function workTotal(): number {
-  return meter.total + meter.used;
+  return meter.total + meter.used - meter.credited;
+}
+
+/**
+ * Counts `units` for work an earlier count did and this one takes as done
+ * (the table fix's search, segment-search.ts TableFreeRefusals): the limit
+ * is met where doing it again would have met it. Left out of `workTotal`,
+ * which measures work done (CPU per unit, bench/plan-time.js).
+ */
+export function creditUnits(units: number): void {
+  meter.credited += units;
+  spend(units);
 }
 
 /**

@@ -33,6 +33,7 @@ const SLOW = [
   'test/plan/segments-property.test.ts',
   // Plan a bracketed quadratic's whole segment search in process: seconds on a busy machine.
   'test/plan/table-limit.test.ts',
+  'test/plan/table-free-trials.test.ts',
   // Plans eleven layouts of a quadratic in process to check the cost floor against them.
   'test/plan/cost-floor.test.ts',
   'test/plan/first-plan.test.ts',

@@ -33,7 +33,8 @@ import { analysisProgram, CoefficientError, collapsedSeries, ZeroSlopeError, typ
 import { chebyshevInW, degreeFor, economisedAt } from './economise-w.js';
 import { fixedLayout, rawBox, rawNumber, type FixedLayout } from './layout.js';
 import { fixedHorner, ResultRangeError } from './program.js';
-import { startWork, WorkLimitError } from '../work.js';
+import { resultFloor } from './result-floor.js';
+import { checkWork, startWork, WorkLimitError } from '../work.js';
 
 export interface FixedBound {
   readonly kind: 'absolute';
@@ -104,6 +105,7 @@ export function makeFixedPlan(family: Family): FixedPlan {
   const raw = rawBox(input.lo.value, input.hi.value, bits);
   // The planning family: the raw box's exact real ends, float64 for the float stages.
   const fam: Family = { ...family, inputs: [{ name: input.name, lo: rawNumber(raw.lo, bits), hi: rawNumber(raw.hi, bits) }] };
+  refuseBelowResultGrid(family, fam, raw, bits);
   const counts: readonly number[] = knob !== 'auto' ? [knob] : family.bracket ? FIXED_PLAN.autoSegments : [1];
   let best: FixedPlan | null = null;
   let firstError: RootcastError | null = null;
@@ -130,6 +132,35 @@ export function makeFixedPlan(family: Family): FixedPlan {
   }
   if (!best) throw firstError!;
   return best;
+}
+
+/**
+ * A target below half the result's last bit may be below what any int32
+ * result can meet: where a witness input proves it (result-floor.ts), the
+ * refusal comes before planning, which would climb every order of every
+ * segment count to find its own, higher floor (pt1000-celsius at 1e-6:
+ * 4.94e8 units, 18 to 21 s of CPU at a514942). The fix it names is the floor refusal's.
+ */
+function refuseBelowResultGrid(family: Family, fam: Family, raw: { lo: bigint; hi: bigint }, bits: number): void {
+  const resultPoint = family.fixed!.result;
+  const target = family.accuracy.value.toNumber();
+  if (!(target < 2 ** -(resultPoint + 1))) return;
+  const floor = resultFloor(fam, raw, bits, resultPoint);
+  // Its exact arithmetic counted now, as any plan's is (src/plan/work.ts).
+  checkWork();
+  if (!floor || !(floor.distance > target)) return;
+  const input = family.inputs[0]!.name;
+  throw new FinalRefusal(
+    `the target ${family.accuracy.value} is below the fixed32 rounding floor of any plan: the result's last bit is 2^-${resultPoint}, and at ${input} = ${floor.input.toNumber()} the root is at least ${downText(floor.distance)} from every value the result can hold; add fraction bits to fixed.result or loosen the accuracy`,
+    locate(family, 'accuracy.absolute'),
+  );
+}
+
+/** `x` to three significant digits, rounded down (a lower bound stays one). */
+function downText(x: number): string {
+  const [mantissa, exponent] = x.toExponential(2).split('e') as [string, string];
+  const shown = Number(`${mantissa}e${exponent}`);
+  return (shown <= x ? shown : (Math.round(Number(mantissa) * 100) - 1) / 100 * 10 ** Number(exponent)).toExponential(2);
 }
 
 function planWith(family: Family, fam: Family, raw: { lo: bigint; hi: bigint }, layout: FixedLayout): FixedPlan {

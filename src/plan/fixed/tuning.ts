@@ -12,11 +12,30 @@ export const FIXED_PLAN = {
   /**
    * Units of work one fixed32 plan may use (src/plan/work.ts), the float
    * planner's limit before it was halved (WORK.limit): the fixed32 example
-   * with a target below its rounding floor (pt1000-celsius at 1e-6) climbs
-   * every order of every segment count before it can say so, 3.03e8 units
-   * (about 11 s); at 3e8 it would end at the limit instead of naming the floor.
+   * with a target below its rounding floor (pt1000-celsius at 1e-6) climbed
+   * every order of every segment count before it could say so, 3.03e8 units
+   * when this limit was set and 4.94e8 at a514942 (18 to 21 s of CPU); at 3e8
+   * it would have ended at the limit instead of naming the floor. Such a
+   * target, below what any int32 result can meet, is now refused before
+   * planning (result-floor.ts); one between that and this planner's own
+   * floor still climbs (pt1000-celsius at 7.6e-6: 5.3e8 units, refused at
+   * the floor; at 1e-5 it meets this limit, 6.0e8, and keeps the plan found
+   * before it, one box).
    */
   workLimit: 6e8,
+  /**
+   * Evenly spaced raw inputs tried as witnesses of the result grid's floor
+   * (result-floor.ts) when the target is below half the result's last bit:
+   * the root moves across the grid as the input does, so among 65 inputs one
+   * usually lies near the middle between two result values (pt1000-celsius:
+   * a witness 7.6e-6 from the grid, of at most 2^-17 = 7.63e-6). Each costs
+   * one exact bisection, about a millisecond.
+   */
+  floorWitnesses: 65,
+  /** The root is enclosed to 2^-witnessWidthBits of a result step: the bound loses that little of the distance. */
+  witnessWidthBits: 12,
+  /** Pieces of the bracket on which P' is enclosed to show P monotone there (one root in the bracket): 256 separates a slope from zero unless it nearly vanishes. */
+  slopePieces: 256,
   /** Initial cells over the box, shared among the segments (at least minCellsPerSegment each): one input, so 64 cells already resolve the box finely, and repair and refinement add more where needed. */
   initialCells: 64,
   minCellsPerSegment: 2,
