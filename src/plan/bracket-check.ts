@@ -29,6 +29,7 @@ import { locate } from './locate.js';
 import { CoefficientRanges, intersect } from './tight-range.js';
 import { boxCentre } from './root-choice.js';
 import { BRACKET_CHECK, initialCellsPerSegment } from './tuning.js';
+import { spend } from './work.js';
 
 /** One bracket end as the sign check reads it. */
 export interface BracketEnd {
@@ -38,8 +39,8 @@ export interface BracketEnd {
   readonly at: Interval;
   /** P(0) is c0: no Horner's rule, and nothing to recentre. */
   readonly zero: boolean;
-  /** c'0 recentred at the end, that is P(end), as a polynomial in the inputs (its Bernstein enclosure). */
-  readonly tight: CoefficientRanges;
+  /** The Bernstein enclosure of P(end) over a cell (c'0 recentred at the end, a polynomial in the inputs), or null where there is none. */
+  readonly bernstein: (cell: Cell) => Interval | null;
   /** The sign of P(end) at the box centre, which every cell must prove. */
   readonly sign: number;
 }
@@ -65,7 +66,7 @@ export function endVerdict(c: readonly Interval[], cell: Cell, end: BracketEnd):
   if (!end.zero) {
     let acc = c[c.length - 1]!;
     for (let k = c.length - 2; k >= 0; k--) acc = iadd(imul(acc, end.at), c[k]!);
-    v = holds(acc, end.sign) ? acc : intersect(acc, end.tight.shiftedOnce(0, cell, 0));
+    v = holds(acc, end.sign) ? acc : intersect(acc, end.bernstein(cell));
   }
   if (holds(v, end.sign)) return 'holds';
   return (end.sign < 0 ? v.lo > 0 : v.hi < 0) ? 'wrong' : 'unknown';
@@ -129,15 +130,26 @@ interface Pending {
  *   cell is split, named or (with a pole) passed over whatever the high end
  *   does; its parts are looked at afresh; and when it is named, it is named
  *   for the low end, so the refusal does not name the high end.
+ * The check counts its work (src/plan/work.ts: BRACKET_CHECK.cellUnits per
+ * cell, each Bernstein enclosure by its tensor), so the work limit bounds it.
  */
 export function certifyBracket(family: Family, box: Cell): void {
   if (!family.bracket) return;
   const signs = centreSigns(family);
   // No sign change at the centre (or a pole there): the root choice refuses that in its own words.
   if (!signs || signs[0] * signs[1] >= 0) return;
-  const ends = family.bracket.map((end, j): BracketEnd => ({ text: end.text, at: decimalInterval(end.value), zero: end.value.isZero(), tight: new CoefficientRanges(family, [end.value]), sign: signs[j]! }));
-  // The exact expansions at the ends, as the first cell's enclosures once built them, whether or not a cell needs them.
-  for (const end of ends) if (!end.zero) end.tight.prepare(0);
+  const ends = family.bracket.map((end, j): BracketEnd => {
+    const tight = new CoefficientRanges(family, [end.value]);
+    const zero = end.value.isZero();
+    // The exact expansion at the end, as the first cell's enclosure once built it, whether or not a cell needs it.
+    if (!zero) tight.prepare(0);
+    const units = zero ? 0 : tight.shiftedUnits(0, 0);
+    const bernstein = (cell: Cell): Interval | null => {
+      spend(units);
+      return tight.shiftedOnce(0, cell, 0);
+    };
+    return { text: end.text, at: decimalInterval(end.value), zero, bernstein, sign: signs[j]! };
+  });
   const mayPole = family.coefficients.some((e) => e !== null && divides(e));
   const failed: [Cell[], Cell[]] = [[], []];
   const minWidth = box.map((c) => (c.hi - c.lo) * BRACKET_CHECK.minFraction);
@@ -147,6 +159,7 @@ export function certifyBracket(family: Family, box: Cell): void {
     const next: Pending[] = [];
     for (const { cell, wrong: inherited } of queue) {
       work++;
+      spend(BRACKET_CHECK.cellUnits);
       let wrong = inherited;
       let bad = inherited;
       // The coefficients over the cell, once for both ends.

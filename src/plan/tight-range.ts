@@ -189,6 +189,12 @@ export class CoefficientRanges {
     return finite(bernsteinRange(x, origin, width));
   }
 
+  /** Work units of one `shiftedOnce(j, ...)`: the tensor's size times its degrees summed (0 where c'j is not enclosed here). */
+  shiftedUnits(j: number, segment: number): number {
+    const x = this.tensors(segment).shifted[j];
+    return x ? x.size * x.degrees.reduce((a, n) => a + n, 0) : 0;
+  }
+
   /**
    * Builds the segment's exact expansion now, as its first enclosure would: a
    * caller that may never ask for one still does (and counts, src/plan/work.ts)

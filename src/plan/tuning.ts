@@ -282,6 +282,8 @@ export const OVERFLOW_HEADROOM = 4;
 export const BRACKET_CHECK = {
   /** Cells the sign check may evaluate in all: each costs one interval Horner pass per bracket end, so this is milliseconds, and it bounds the work where a sign change fails along a surface. */
   maxCells: 20000,
+  /** Work units (work.ts) per cell the sign check visits: 0.5 to 1 us of CPU each on random/083 and 066 (2-core Xeon, node 20), 20 units at 15 to 50 ns a unit. Its Bernstein enclosures count their tensors' size times degrees (CoefficientRanges.shiftedUnits), so the work limit bounds a check of high degree in several inputs. */
+  cellUnits: 20,
   /** A cell narrower than this fraction of the box in every input is not split again: what fails there is reported. */
   minFraction: 1 / 4096,
   /** Rounds of halving (the unknown and the widest input in turn) when excluding a zero of P from the part of a root enclosure outside the bracket: 16 rounds resolve each to 1/256 of its width, past the dependency overestimation of coefficients sharing an input. */

@@ -25,10 +25,11 @@ import { describe, expect, test } from '@jest/globals';
 import { Decimal } from 'decimal.js';
 import type { Family } from '../../src/family/types.js';
 import { boxOf, type Cell } from '../../src/plan/box.js';
-import { endVerdict, type BracketEnd } from '../../src/plan/bracket-check.js';
+import { certifyBracket, endVerdict, type BracketEnd } from '../../src/plan/bracket-check.js';
 import { decimalInterval, encloseExpr } from '../../src/plan/expr-enclose.js';
 import { CoefficientRanges } from '../../src/plan/tight-range.js';
-import { startWork } from '../../src/plan/work.js';
+import { BRACKET_CHECK } from '../../src/plan/tuning.js';
+import { startWork, workUsed, WorkLimitError } from '../../src/plan/work.js';
 import { readSpec } from '../../src/reader/read.js';
 import { exactDecimal } from '../support/exact-decimal.js';
 import { checkRefusal, sweepRefusal } from './support/bracket-sweep.js';
@@ -62,7 +63,8 @@ describe('endVerdict: what the enclosures prove of P(end) over a cell, against d
   const box = boxOf(family).cell;
   const endOf = (j: number, sign: number): BracketEnd => {
     const end = family.bracket![j]!;
-    return { text: end.text, at: decimalInterval(end.value), zero: end.value.isZero(), tight: new CoefficientRanges(family, [end.value]), sign };
+    const ranges = new CoefficientRanges(family, [end.value]);
+    return { text: end.text, at: decimalInterval(end.value), zero: end.value.isZero(), bernstein: (cell) => ranges.shiftedOnce(0, cell, 0), sign };
   };
   /** P(end) = (end - s)^2 - t exactly, at doubles s and t. */
   const exactP = (end: string, s: number, t: number): Decimal => new D(end).minus(exactDecimal(D, s)).pow(2).minus(exactDecimal(D, t));
@@ -163,5 +165,20 @@ describe('certifyBracket names the region and end of the plain sweep, byte for b
     expect(tHi).toBeLessThan(0.01 + 0.002);
     // At the named corner (sHi, 0), P(1.5) = 2.25 - sHi is zero or below (decimal.js, at the double's exact value).
     expect(new D('2.25').minus(exactDecimal(D, sHi)).lte(0)).toBe(true);
+  });
+});
+
+describe('the sign check counts its work (src/plan/work.ts), so the work limit bounds it', () => {
+  // (x - s)^2 - t, bracket [0.2, 0.9]: P(0.2) > 0 wherever (0.2 - s)^2 > t, a region of the box, so the check splits up to its cell limit.
+  const family = spec(['s^2 - t', '-2 * s', '1'], ['s: [0, 1]', 't: [0.01, 0.25]'], '[0.2, 0.9]');
+
+  test('a check that reaches its cell limit counts at least cellUnits for each of maxCells cells', () => {
+    expect(checkRefusal(family)).toContain('P(0.2) at the low end');
+    expect(workUsed()).toBeGreaterThan(BRACKET_CHECK.maxCells * BRACKET_CHECK.cellUnits);
+  });
+
+  test('with a lower limit it stops there (WorkLimitError, which makePlan words as the work limit)', () => {
+    startWork(null, BRACKET_CHECK.maxCells * BRACKET_CHECK.cellUnits / 2);
+    expect(() => certifyBracket(family, boxOf(family).cell)).toThrow(WorkLimitError);
   });
 });
