@@ -182,8 +182,12 @@ function tableFacts(program: Program, c: Compiled, segment: number): { lo: Float
 export function analyseFlat(program: Program, cell: readonly Interval[], segment = 0, ftz = false): FlatAnalysis {
   const f = ARITHMETICS[program.arithmetic];
   const u = f.u;
-  const eta = ftz ? f.minNormal : f.minSubnormal / 2;
-  const inputError = ftz ? f.minNormal : 0;
+  // Both fields are read on every call: a field read only when flushing to zero had no
+  // type feedback until the first such call, and that call deoptimised this function.
+  const minNormal = f.minNormal;
+  const halfSubnormal = f.minSubnormal / 2;
+  const eta = ftz ? minNormal : halfSubnormal;
+  const inputError = ftz ? minNormal : 0;
   let c = compiledPrograms.get(program);
   if (!c) compiledPrograms.set(program, (c = compile(program)));
   const known = hooks.get(program)?.(cell, segment) ?? null;
@@ -262,18 +266,20 @@ export function analyseFlat(program: Program, cell: readonly Interval[], segment
         const ah = H[x]!;
         const bl = L[y]!;
         const bh = H[y]!;
-        if (al === ah && bl === bh) {
-          const p = al * bl;
-          lo = nextDown(p);
-          hi = nextUp(p);
-        } else {
-          const p1 = al * bl;
+        // One product and one rounding per bound on both paths: an operation or call seen only
+        // on the rarer path has no type feedback, and its first use deoptimised this function.
+        const p1 = al * bl;
+        let pl = p1;
+        let ph = p1;
+        if (al !== ah || bl !== bh) {
           const p2 = al * bh;
           const p3 = ah * bl;
           const p4 = ah * bh;
-          lo = nextDown(min(min(p1, p2), min(p3, p4)));
-          hi = nextUp(max(max(p1, p2), max(p3, p4)));
+          pl = min(min(p1, p2), min(p3, p4));
+          ph = max(max(p1, p2), max(p3, p4));
         }
+        lo = nextDown(pl);
+        hi = nextUp(ph);
         const ea = E[x]!;
         const eb = E[y]!;
         const magB = max(abs(bl), abs(bh));

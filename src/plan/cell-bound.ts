@@ -55,10 +55,19 @@ export interface CellFacts {
   readonly ranges?: CoefficientRanges | undefined;
 }
 
+/**
+ * n zeros in an array of doubles: an array filled with 0 holds small integers until a
+ * double is stored, and readers optimised for one of the two kinds deoptimised on the
+ * other ("wrong map", termValue). Storing a double first fixes the kind; the values are +0.
+ */
+function doubleZeros(n: number): number[] {
+  return new Array<number>(n).fill(0.5).fill(0);
+}
+
 export function cellFacts(ap: AnalysisProgram, degree: number, cell: Cell, x0: number, segment: number): CellFacts {
   const an = analyseFlat(ap.program, cell, segment);
-  const T = new Array<number>(degree + 1).fill(0);
-  const Q = new Array<number>(degree + 1).fill(0);
+  const T = doubleZeros(degree + 1);
+  const Q = doubleZeros(degree + 1);
   const tight = tightRatios(ap, ap.c1 !== null ? valueOf(an, ap.c1) : null, cell, segment);
   const r = tight.ratio(0, valueOf(an, ap.r));
   const c1Range = tight.c1;
@@ -67,6 +76,7 @@ export function cellFacts(ap: AnalysisProgram, degree: number, cell: Cell, x0: n
   // base object and then adding fields was most of this function's time (V8's slow path for it).
   const without = (state: CellState, R: number): CellFacts => ({
     cell, segment, T, Q, rRange: r, gradeSums: [], rootMin: 0, rootMax: Infinity, c1Range, ranges, state, R, aUpper: Infinity,
+    rootRange: undefined,
   });
   if (ap.c1 !== null) {
     const v = tight.c1!;
@@ -88,6 +98,18 @@ export function cellFacts(ap: AnalysisProgram, degree: number, cell: Cell, x0: n
   return {
     cell, segment, T, Q, rRange: r, gradeSums: [], rootMin, rootMax: Math.max(-lo, hi), c1Range, ranges,
     state: { kind: 'ok' }, R, aUpper: root.upper, rootRange: { lo, hi },
+  };
+}
+
+/**
+ * A copy of a cell's facts with empty grade sums, as one object literal in the
+ * order of cellFacts' own: a spread copy had another hidden class, and the
+ * optimised readers of facts (termValue, cellTail) deoptimised on it.
+ */
+export function withEmptyGradeSums(f: CellFacts): CellFacts {
+  return {
+    cell: f.cell, segment: f.segment, T: f.T, Q: f.Q, rRange: f.rRange, gradeSums: [], rootMin: f.rootMin, rootMax: f.rootMax,
+    c1Range: f.c1Range, ranges: f.ranges, state: f.state, R: f.R, aUpper: f.aUpper, rootRange: f.rootRange,
   };
 }
 

@@ -7,7 +7,7 @@
  */
 import { divUp } from '../math/directed.js';
 import { splitGeometric, widestDim, widestRatioDim, split, type Cell } from './box.js';
-import { cellFacts, cellTail, type CellFacts } from './cell-bound.js';
+import { cellFacts, cellTail, withEmptyGradeSums, type CellFacts } from './cell-bound.js';
 import type { AnalysisProgram } from './series-program.js';
 import { SUBDIVISION, WORK } from './tuning.js';
 import { spend } from './work.js';
@@ -31,7 +31,7 @@ export class CellSet {
   /** A set over cells whose facts are already known (plan-segments.ts shares a layout's first cells): each is copied with empty grade sums. */
   static ofFacts(ap: AnalysisProgram, degree: number, box: Cell, x0: readonly number[], facts: readonly CellFacts[]): CellSet {
     const set = new CellSet(ap, degree, box, x0, []);
-    set.cells = facts.map((c) => ({ ...c, gradeSums: [] }));
+    set.cells = facts.map(withEmptyGradeSums);
     return set;
   }
 

@@ -6,6 +6,8 @@ import { programCost } from '../ir/cost/index.js';
 import type { Evaluated } from './evaluate.js';
 import type { FormContext } from './forms/context.js';
 import { tableLimitBit } from './table-limit.js';
+import { SEGMENT_SEARCH } from './tuning.js';
+import type { Family } from '../family/types.js';
 import type { Plan } from './types.js';
 
 /** What a form decides; the rest of a Plan follows from the program and the segmentation. */
@@ -50,6 +52,17 @@ export function tableBytesOf(program: Program): number {
     if (node.kind === 'index') for (const p of node.parts) cells += p.fine ? p.fine.meta.length : 0;
   }
   return n * ARITHMETICS[program.arithmetic].bytes + 2 * cells;
+}
+
+/**
+ * The least table bytes any plan on `segments` segments can have, known before
+ * one is planned: SEGMENT_SEARCH.minValuesPerSegment values a segment, plus the
+ * two-level index's coarse-cell table (2 bytes an entry, as tableBytesOf counts
+ * it). The segment search, the two-level refinement and the trial's table check
+ * compare it with plan.max_table_bytes.
+ */
+export function leastTableBytes(family: Family, segments: number, coarseCells = 0): number {
+  return segments * ARITHMETICS[family.arithmetic].bytes * SEGMENT_SEARCH.minValuesPerSegment + 2 * coarseCells;
 }
 
 /** Whether a program's tables fit plan.max_table_bytes; when not, the limit has decided something (table-limit.ts). */

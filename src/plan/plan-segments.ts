@@ -16,7 +16,7 @@ import { CellSet } from './cell-set.js';
 import { FoundPlans, type FormContext } from './forms/context.js';
 import { FORMS } from './forms/index.js';
 import { locate } from './locate.js';
-import { fitsTable, tableBytesOf } from './plan-of.js';
+import { fitsTable, leastTableBytes, tableBytesOf } from './plan-of.js';
 import { QuotedFixRefusal, refuseBadCells, refuseConstant, refuseSteps, refuseTable } from './refusals.js';
 import { chooseRoot, plainRoot, pointText, rootAt, type RootChoice } from './root-choice.js';
 import type { SegmentLayout } from './segments.js';
@@ -26,7 +26,6 @@ import { tableLimitBit } from './table-limit.js';
 import { planFound } from './work.js';
 import { TermPool } from './term-pool.js';
 import { ECONOMISE, initialCellsPerSegment, LIMITS, REFINE, SEGMENT_SEARCH } from './tuning.js';
-import { ARITHMETICS } from '../family/arithmetic.js';
 import type { Plan } from './types.js';
 
 /**
@@ -125,7 +124,7 @@ function planSegmentsInner(family: Family, box: Cell, layout: SegmentLayout, tho
 function refuseOverTable(family: Family, box: Cell, layout: SegmentLayout, plain: boolean, beforeCells = false): void {
   const segments = layout.segmentation.segments;
   if (plain || family.foldResult || segments <= ECONOMISE.maxSegments) return;
-  const nearLimit = segments * ARITHMETICS[family.arithmetic].bytes * SEGMENT_SEARCH.minValuesPerSegment * SEGMENT_SEARCH.tableCheckReach > family.plan.maxTableBytes;
+  const nearLimit = leastTableBytes(family, segments) * SEGMENT_SEARCH.tableCheckReach > family.plan.maxTableBytes;
   if (!nearLimit) return;
   const least = tableBytesOf(layoutOrderZero(family, box, layout));
   if (least > family.plan.maxTableBytes) {

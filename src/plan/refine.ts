@@ -10,7 +10,6 @@
  * cannot fit plan.max_table_bytes are given up.
  */
 import { RootcastError } from '../errors.js';
-import { ARITHMETICS } from '../family/arithmetic.js';
 import type { Family } from '../family/types.js';
 import type { Cell } from './box.js';
 import { candidatesOf, refusedCandidate } from './candidates.js';
@@ -21,6 +20,7 @@ import { cannotWin, costFloor } from './cost-floor.js';
 import { tableText } from './refusals.js';
 import { tableLimitBit } from './table-limit.js';
 import { REFINE, SEGMENT_SEARCH } from './tuning.js';
+import { leastTableBytes } from './plan-of.js';
 import type { Candidate, Plan } from './types.js';
 
 export interface RefinedResult {
@@ -76,7 +76,6 @@ export function refinedPlans(family: Family, box: Cell, fixed: readonly (number 
  * refining further only adds segments, so it cannot win later either.
  */
 function refineFor(family: Family, box: Cell, coarse: readonly number[], levels: (number[] | null)[], order: number, aim: RefineAim, weighed: readonly Plan[]): SegmentLayout | (SegmentLayout & { readonly skip: string }) | null {
-  const bytes = ARITHMETICS[family.arithmetic].bytes;
   for (;;) {
     let layout: SegmentLayout;
     try {
@@ -86,7 +85,7 @@ function refineFor(family: Family, box: Cell, coarse: readonly number[], levels:
       throw e;
     }
     const segments = layout.segmentation.segments;
-    const least = segments * bytes * SEGMENT_SEARCH.minValuesPerSegment + 2 * coarse.reduce((a, b) => a + b, 0);
+    const least = leastTableBytes(family, segments, coarse.reduce((a, b) => a + b, 0));
     if (segments > SEGMENT_SEARCH.maxTotal) return null;
     if (least > family.plan.maxTableBytes) {
       tableLimitBit();

@@ -77,8 +77,15 @@ function coefficientAt(family: Family, k: number, e: Expr, point: readonly Ratio
 
 /** Bisection with float64 signs between ends whose exact signs differ; returns the final midpoint. */
 function bisectNear(c: readonly Rational[], lo: Rational, hi: Rational): Rational {
-  const cf = c.map((v) => v.toNumber());
-  const p = (x: number): number => cf.reduceRight((acc, ck) => acc * x + ck, 0);
+  // Horner's rule from the top coefficient, as reduceRight from 0 did. A Float64Array: the
+  // plain arrays were of two element kinds (small integers or doubles), and the second one
+  // seen deoptimised the optimised code.
+  const cf = Float64Array.from(c, (v) => v.toNumber());
+  const p = (x: number): number => {
+    let acc = 0;
+    for (let k = cf.length - 1; k >= 0; k--) acc = acc * x + cf[k]!;
+    return acc;
+  };
   let a = lo.toNumber();
   let b = hi.toNumber();
   const sa = signAt(c, lo);

@@ -8,7 +8,6 @@
  * flash-frugal rule (frugalChoice) picks among them all.
  */
 import { RootcastError } from '../errors.js';
-import { ARITHMETICS } from '../family/arithmetic.js';
 import { ConstantOverflowError } from '../ir/builder.js';
 import type { Family } from '../family/types.js';
 import type { Cell } from './box.js';
@@ -21,6 +20,7 @@ import type { PlainTrial } from './plain-series.js';
 import { refinedPlans } from './refine.js';
 import { moreActionable, QuotedFixRefusal, TableRefusal } from './refusals.js';
 import { QUOTED_FIX, REFINE, SEGMENT_SEARCH, WORK } from './tuning.js';
+import { leastTableBytes } from './plan-of.js';
 import { tableLimitBit, tableLimitBites } from './table-limit.js';
 import { creditUnits, WorkLimitError, workStops, workUsed } from './work.js';
 import type { Candidate, Plan } from './types.js';
@@ -206,7 +206,7 @@ function skipped(family: Family, box: Cell, counts: readonly number[], weighed: 
 function tableFits(family: Family, counts: readonly number[]): boolean {
   const segments = counts.reduce((a, b) => a * b, 1);
   if (segments > SEGMENT_SEARCH.maxTotal) return false;
-  const fits = segments * ARITHMETICS[family.arithmetic].bytes * SEGMENT_SEARCH.minValuesPerSegment <= family.plan.maxTableBytes;
+  const fits = leastTableBytes(family, segments) <= family.plan.maxTableBytes;
   if (!fits) tableLimitBit();
   return fits;
 }

@@ -228,10 +228,22 @@ export class CoefficientRanges {
     if (!t) {
       const tensors = this.tensors(segment);
       const { origin, width } = this.scaled(cell.slice(0, d));
-      const shifted = tensors.shifted.map((x) => (x ? finite(bernsteinRange(x, origin, width)) : null));
+      // Built by push, so both arrays are always of one element kind (packed objects): the arrays
+      // `map` made were of two (V8's builtin and its inlined copy differ), and the optimised
+      // readers here and in src/plan/cell-bound.ts deoptimised on the second ("wrong map").
+      const n = tensors.shifted.length;
+      const shifted: (Interval | null)[] = [];
+      for (let j = 0; j < n; j++) {
+        const x = tensors.shifted[j];
+        shifted.push(x ? finite(bernsteinRange(x, origin, width)) : null);
+      }
       const c1 = shifted[1] ?? null;
       const divisible = c1 !== null && !containsZero(c1);
-      const ratio = shifted.map((x) => (x && divisible ? idiv(x, c1) : null));
+      const ratio: (Interval | null)[] = [];
+      for (let j = 0; j < n; j++) {
+        const x = shifted[j];
+        ratio.push(x && divisible ? idiv(x, c1) : null);
+      }
       t = { c1, shifted, ratio };
       bySegment.set(segment, t);
     }
