@@ -47,32 +47,6 @@ export class MultiPoly {
   }
 
   /**
-   * sum_i s_i p_i in one pass (one map, no intermediate polynomial): the same
-   * polynomial as the chain p_0.scale(s_0).add(p_1.scale(s_1))..., since the
-   * rational sums are exact whatever their order.
-   */
-  static combination(vars: number, parts: readonly (readonly [MultiPoly, Rational])[]): MultiPoly {
-    const terms = new Map<string, readonly [readonly number[], Rational]>();
-    for (const [p, s] of parts) {
-      if (p.vars !== vars) throw new RangeError('MultiPoly: polynomial of the wrong number of variables');
-      if (s.isZero()) continue;
-      const one = s.eq(Rational.ONE);
-      for (const [key, [e, c]] of p.terms) {
-        const term = one ? c : c.mul(s);
-        const had = terms.get(key);
-        if (!had) {
-          terms.set(key, [e, term]);
-          continue;
-        }
-        const sum = had[1].add(term);
-        if (sum.isZero()) terms.delete(key);
-        else terms.set(key, [e, sum]);
-      }
-    }
-    return new MultiPoly(vars, terms);
-  }
-
-  /**
    * sum_m s_m p_m y^m in one more variable y (index `vars`, the last), with
    * parts[m] = [p_m, s_m] or null for a zero term: the same polynomial as
    * adding p_m.extend().mul(s_m y^m) one by one (no two parts share a power of y).

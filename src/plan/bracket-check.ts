@@ -104,16 +104,78 @@ function divides(e: Expr): boolean {
   }
 }
 
-/** True when every side of the cell is at most its `minWidth`. */
-function isSmall(cell: Cell, minWidth: readonly number[]): boolean {
-  for (let i = 0; i < cell.length; i++) if (cell[i]!.hi - cell[i]!.lo > minWidth[i]!) return false;
+/**
+ * The cells of one round of the sign check, breadth first, in flat arrays (a
+ * round can hold thousands of cells, most never enclosed: no objects for
+ * them): side i of cell k is [lo[k d + i], hi[k d + i]]; bit j of wrong[k] is
+ * set where end j is `wrong` over a cell that holds cell k.
+ */
+interface Round {
+  readonly lo: Float64Array;
+  readonly hi: Float64Array;
+  readonly wrong: Uint8Array;
+  count: number;
+}
+
+function emptyRound(capacity: number, d: number): Round {
+  return { lo: new Float64Array(capacity * d), hi: new Float64Array(capacity * d), wrong: new Uint8Array(capacity), count: 0 };
+}
+
+function roundOf(cells: readonly Cell[], d: number): Round {
+  const r = emptyRound(cells.length, d);
+  for (const cell of cells) {
+    for (let i = 0; i < d; i++) {
+      r.lo[r.count * d + i] = cell[i]!.lo;
+      r.hi[r.count * d + i] = cell[i]!.hi;
+    }
+    r.count++;
+  }
+  return r;
+}
+
+function cellAt(r: Round, k: number, d: number): Cell {
+  const cell: Cell = [];
+  for (let i = 0; i < d; i++) cell.push({ lo: r.lo[k * d + i]!, hi: r.hi[k * d + i]! });
+  return cell;
+}
+
+/** True when every side of cell k is at most its `minWidth`. */
+function isSmall(r: Round, k: number, minWidth: readonly number[]): boolean {
+  const d = minWidth.length;
+  for (let i = 0; i < d; i++) if (r.hi[k * d + i]! - r.lo[k * d + i]! > minWidth[i]!) return false;
   return true;
 }
 
-/** A cell waiting for the sign check, with bit j set where end j is `wrong` over a cell that holds it. */
-interface Pending {
-  readonly cell: Cell;
-  readonly wrong: number;
+/** box.ts widestDim on cell k: the side widest relative to the box, the first of equals. */
+function widestSide(r: Round, k: number, box: Cell): number {
+  const d = box.length;
+  let best = 0;
+  let bestW = -1;
+  for (let i = 0; i < d; i++) {
+    const w = (r.hi[k * d + i]! - r.lo[k * d + i]!) / (box[i]!.hi - box[i]!.lo);
+    if (w > bestW) {
+      bestW = w;
+      best = i;
+    }
+  }
+  return best;
+}
+
+/** box.ts split of cell k along side `dim` (at lo + (hi - lo) / 2), both halves appended to `next` with `wrong`. */
+function splitInto(next: Round, r: Round, k: number, d: number, dim: number, wrong: number): void {
+  const lo = r.lo[k * d + dim]!;
+  const hi = r.hi[k * d + dim]!;
+  const mid = lo + (hi - lo) / 2;
+  for (let half = 0; half < 2; half++) {
+    const at = next.count * d;
+    for (let i = 0; i < d; i++) {
+      next.lo[at + i] = r.lo[k * d + i]!;
+      next.hi[at + i] = r.hi[k * d + i]!;
+    }
+    if (half === 0) next.hi[at + dim] = mid;
+    else next.lo[at + dim] = mid;
+    next.wrong[next.count++] = wrong;
+  }
 }
 
 /**
@@ -151,46 +213,58 @@ export function certifyBracket(family: Family, box: Cell): void {
     return { text: end.text, at: decimalInterval(end.value), zero, bernstein, sign: signs[j]! };
   });
   const mayPole = family.coefficients.some((e) => e !== null && divides(e));
-  const failed: [Cell[], Cell[]] = [[], []];
+  const d = box.length;
   const minWidth = box.map((c) => (c.hi - c.lo) * BRACKET_CHECK.minFraction);
-  let queue: Pending[] = grid(box, initialCellsPerSegment(family.inputs.length, 1)).map((cell) => ({ cell, wrong: 0 }));
+  // The hull of the cells that fail at each end (Math.min and Math.max pairwise: the same as over the list).
+  const failed: [Cell | null, Cell | null] = [null, null];
+  const fail = (j: 0 | 1, round: Round, k: number): void => {
+    const f = (failed[j] ??= cellAt(round, k, d));
+    for (let i = 0; i < d; i++) f[i] = { lo: Math.min(f[i]!.lo, round.lo[k * d + i]!), hi: Math.max(f[i]!.hi, round.hi[k * d + i]!) };
+  };
+  let round = roundOf(grid(box, initialCellsPerSegment(family.inputs.length, 1)), d);
   let work = 0;
-  while (queue.length > 0) {
-    const next: Pending[] = [];
-    for (const { cell, wrong: inherited } of queue) {
+  while (round.count > 0) {
+    const next = emptyRound(2 * round.count, d);
+    for (let k = 0; k < round.count; k++) {
       work++;
       spend(BRACKET_CHECK.cellUnits);
+      const inherited = round.wrong[k]!;
       let wrong = inherited;
       let bad = inherited;
-      // The coefficients over the cell, once for both ends.
+      // The cell as intervals, made only where something encloses over it; the coefficients over it, once for both ends.
+      let cell: Cell | null = null;
       let c: Interval[] | null = null;
       for (let j = 0; j < 2; j++) {
         if (j === 0 ? bad & 1 : bad !== 0) continue;
-        c ??= family.coefficients.map((e) => (e === null ? point(0) : encloseExpr(e, cell, family.constants)));
+        cell ??= cellAt(round, k, d);
+        c ??= family.coefficients.map((e) => (e === null ? point(0) : encloseExpr(e, cell!, family.constants)));
         const verdict = endVerdict(c, cell, ends[j]!);
         if (verdict === 'holds') continue;
         bad |= 1 << j;
         if (verdict === 'wrong') wrong |= 1 << j;
       }
+      if (bad === 0) continue;
       // A coefficient with a pole in the cell is refused at its division by the planner's cell checks.
-      if (bad === 0 || (mayPole && family.coefficients.some((e) => e !== null && poleOver(e, cell, family.constants) !== null))) continue;
-      if (isSmall(cell, minWidth) || work + next.length + 2 > BRACKET_CHECK.maxCells) {
-        if (bad & 1) failed[0].push(cell);
-        if (bad & 2) failed[1].push(cell);
+      if (mayPole) {
+        const at = (cell ??= cellAt(round, k, d));
+        if (family.coefficients.some((e) => e !== null && poleOver(e, at, family.constants) !== null)) continue;
+      }
+      if (isSmall(round, k, minWidth) || work + next.count + 2 > BRACKET_CHECK.maxCells) {
+        if (bad & 1) fail(0, round, k);
+        if (bad & 2) fail(1, round, k);
         continue;
       }
-      const [a, b] = split(cell, widestDim(cell, box));
-      next.push({ cell: a, wrong }, { cell: b, wrong });
+      splitInto(next, round, k, d, widestSide(round, k, box), wrong);
     }
-    queue = next;
+    round = next;
   }
-  if (failed[0].length === 0 && failed[1].length === 0) return;
-  const j = failed[0].length > 0 ? 0 : 1;
+  if (!failed[0] && !failed[1]) return;
+  const j = failed[0] ? 0 : 1;
   const end = ends[j]!.text;
   const which = j === 0 ? 'low' : 'high';
   const sign = signs[j]! < 0 ? 'negative' : 'positive';
   throw new RootcastError(
-    `P need not change sign between the bracket ends for ${region(family, failed[j])}: P(${end}) at the ${which} end is ${sign} at the box centre but can be zero or ${sign === 'negative' ? 'positive' : 'negative'} there, so the root can lie outside the bracket; move the ${which} end ${j === 0 ? 'down' : 'up'} past the root for those inputs`,
+    `P need not change sign between the bracket ends for ${describeCell(family, failed[j]!)}: P(${end}) at the ${which} end is ${sign} at the box centre but can be zero or ${sign === 'negative' ? 'positive' : 'negative'} there, so the root can lie outside the bracket; move the ${which} end ${j === 0 ? 'down' : 'up'} past the root for those inputs`,
     locate(family, 'root.bracket'),
   );
 }

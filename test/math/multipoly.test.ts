@@ -1,8 +1,8 @@
 /**
- * The one-pass builders of src/math/multipoly.ts (combination, powerSeriesIn)
+ * The one-pass builder of src/math/multipoly.ts (powerSeriesIn)
  * against values computed independently with decimal.js (80 digits: small
  * integer coefficients and dyadic points make every product and sum exact
- * there), and against the step-by-step chain they replace.
+ * there), and against the step-by-step chain it replaces.
  */
 import { describe, expect, test } from '@jest/globals';
 import fc from 'fast-check';
@@ -22,27 +22,6 @@ const valueOf = (t: Terms, x: readonly number[]): Decimal =>
 const terms = (vars: number) =>
   fc.array(fc.tuple(fc.array(fc.integer({ min: 0, max: 3 }), { minLength: vars, maxLength: vars }), fc.integer({ min: -9, max: 9 })), { maxLength: 6 });
 const dyadic = fc.integer({ min: -64, max: 64 }).map((k) => k / 16);
-
-describe('MultiPoly.combination', () => {
-  test('sum s_i p_i has the value decimal.js gives at dyadic points, and equals the add/scale chain (fast-check)', () => {
-    fc.assert(
-      fc.property(fc.array(fc.tuple(terms(2), fc.integer({ min: -5, max: 5 }), fc.integer({ min: 1, max: 7 })), { minLength: 1, maxLength: 4 }), fc.tuple(dyadic, dyadic), (parts, x) => {
-        const ps = parts.map(([t, n, d]) => [poly(2, t), Rational.of(BigInt(n), BigInt(d))] as const);
-        const got = MultiPoly.combination(2, ps);
-        const want = parts.reduce((s, [t, n, d]) => s.plus(valueOf(t, x).times(n).div(d)), new D(0));
-        expect(dec(got.evaluate(x.map((v) => Rational.fromNumber(v)))).minus(want).abs().lt(new D('1e-60'))).toBe(true);
-        const chain = ps.reduce((s, [p, c]) => s.add(p.scale(c)), MultiPoly.zero(2));
-        expect(got.entries().map(([e, c]) => `${e}:${c}`)).toEqual(chain.entries().map(([e, c]) => `${e}:${c}`));
-      }),
-      { numRuns: 200 },
-    );
-  });
-
-  test('terms that cancel leave no entry (x + y) - (x + y) = 0', () => {
-    const p = poly(2, [[[1, 0], 1], [[0, 1], 1]]);
-    expect(MultiPoly.combination(2, [[p, Rational.ONE], [p, Rational.int(-1)]]).isZero()).toBe(true);
-  });
-});
 
 describe('MultiPoly.powerSeriesIn', () => {
   test('sum_m s_m p_m y^m has the value decimal.js gives, and equals extend/mul/add (fast-check)', () => {
