@@ -33,6 +33,7 @@ import { startWork, workUsed, WorkLimitError } from '../../src/plan/work.js';
 import { readSpec } from '../../src/reader/read.js';
 import { exactDecimal } from '../support/exact-decimal.js';
 import { checkRefusal, sweepRefusal } from './support/bracket-sweep.js';
+import { xorshift32 } from '../../src/verify/samples.js';
 
 // Doubles of [0.01, 1] are exact in about 60 digits, their squares in about 120.
 const D = Decimal.clone({ precision: 130 });
@@ -44,17 +45,10 @@ function spec(coefficients: readonly string[], inputs: readonly string[], bracke
   return readSpec('f.yaml', lines.join('\n'));
 }
 
-/** xorshift32 (Marsaglia 2003), as a number in [0, 1). */
+/** xorshift32 (Marsaglia 2003, the sampler's step in src/verify/samples.ts), as a number in [0, 1). */
 function random(seed: number): () => number {
   let s = seed >>> 0;
-  return () => {
-    s ^= s << 13;
-    s >>>= 0;
-    s ^= s >>> 17;
-    s ^= s << 5;
-    s >>>= 0;
-    return s / 2 ** 32;
-  };
+  return () => (s = xorshift32(s)) / 2 ** 32;
 }
 
 describe('endVerdict: what the enclosures prove of P(end) over a cell, against decimal.js', () => {

@@ -31,6 +31,7 @@ import { Rational } from '../../src/math/rational.js';
 import { binomial } from '../../src/series/recenter.js';
 import { readSpec } from '../../src/reader/read.js';
 import { checkInProcess } from '../../src/verify/inprocess.js';
+import { xorshift32 } from '../../src/verify/samples.js';
 import type { Family } from '../../src/family/types.js';
 
 const PLAN_TIMEOUT_MS = 600_000;
@@ -47,14 +48,7 @@ function points(family: Family, count: number): number[][] {
   const out: number[][] = [];
   for (let mask = 0; mask < 1 << ranges.length; mask++) out.push(ranges.map(([lo, hi], i) => ((mask >> i) & 1 ? hi : lo)));
   let s = 2463534242;
-  const next = (): number => {
-    s ^= s << 13;
-    s >>>= 0;
-    s ^= s >>> 17;
-    s ^= s << 5;
-    s >>>= 0;
-    return s / 2 ** 32;
-  };
+  const next = (): number => (s = xorshift32(s)) / 2 ** 32;
   while (out.length < count) out.push(ranges.map(([lo, hi]) => lo + (hi - lo) * next()));
   return out;
 }
