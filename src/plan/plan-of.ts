@@ -65,9 +65,9 @@ export function leastTableBytes(family: Family, segments: number, coarseCells = 
   return segments * ARITHMETICS[family.arithmetic].bytes * SEGMENT_SEARCH.minValuesPerSegment + 2 * coarseCells;
 }
 
-/** Whether a program's tables fit plan.max_table_bytes; when not, the limit has decided something (table-limit.ts). */
-export function fitsTable(maxTableBytes: number, program: Program): boolean {
-  if (tableBytesOf(program) <= maxTableBytes) return true;
+/** Whether tables of `bytes` (tableBytesOf) fit plan.max_table_bytes; when not, the limit has decided something (table-limit.ts). */
+export function fitsTable(maxTableBytes: number, bytes: number): boolean {
+  if (bytes <= maxTableBytes) return true;
   tableLimitBit();
   return false;
 }

@@ -207,8 +207,9 @@ function prefixOf(family: Family, expansion: Expansion, layout: SegmentLayout, s
 
 /** A program's table bytes, or the refusal when they exceed plan.max_table_bytes (`least`: it says "at least"). */
 function checkTable(family: Family, counts: readonly number[], program: Program, least = false): number {
-  if (!fitsTable(family.plan.maxTableBytes, program)) refuseTable(family, counts, tableBytesOf(program), least);
-  return tableBytesOf(program);
+  const bytes = tableBytesOf(program);
+  if (!fitsTable(family.plan.maxTableBytes, bytes)) refuseTable(family, counts, bytes, least);
+  return bytes;
 }
 
 /**

@@ -13,7 +13,7 @@
  */
 import { ConstantOverflowError } from '../../ir/builder.js';
 import { programCost } from '../../ir/cost/index.js';
-import { fitsTable, planOf } from '../plan-of.js';
+import { fitsTable, planOf, tableBytesOf } from '../plan-of.js';
 import { coreProgram, polishBound, polishedProgram, PolishFailure, stepProgram } from '../polish.js';
 import { refuseFloor } from '../refusals.js';
 import { POLISH } from '../tuning.js';
@@ -44,7 +44,7 @@ export function polishedPlans(ctx: FormContext, found: FoundPlans): Plan[] {
   if (!empty) return out;
   const floorCost = (k: number): number => programCost(polishedProgram(family, expansion, empty, k), ctx.costModel);
   if (floorCost(Math.min(...stepCounts)) >= toBeat) return out;
-  if (!fitsTable(family.plan.maxTableBytes, polishedProgram(family, expansion, empty, Math.min(...stepCounts)))) return out;
+  if (!fitsTable(family.plan.maxTableBytes, tableBytesOf(polishedProgram(family, expansion, empty, Math.min(...stepCounts))))) return out;
   // The cell the last Newton-only pass stopped at: the next pass takes it first (polishBound `first`).
   let hint: CellFacts | null = null;
   for (const k of stepCounts) {
@@ -79,7 +79,7 @@ export function polishedPlans(ctx: FormContext, found: FoundPlans): Plan[] {
         continue;
       }
       const program = polishedProgram(family, expansion, terms, k);
-      if (!fitsTable(family.plan.maxTableBytes, program)) break;
+      if (!fitsTable(family.plan.maxTableBytes, tableBytesOf(program))) break;
       const bound = { kind: relative ? ('relative' as const) : ('absolute' as const), truncation: full.truncation, rounding: full.rounding, total: full.total };
       const note = `then ${k} Newton step${k === 1 ? '' : 's'} (the truncation bound below is the Newton error term left after the last step, carried from the series bound)`;
       const plan = planOf(ctx, { form: 'series', order: n, degree: null, terms, steps: k, program, evaluated: { bound, absolute: full.absolute }, note });
