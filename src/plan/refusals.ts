@@ -179,6 +179,13 @@ export function upText(x: number): string {
   return short(Number(`${up}e${exponent}`));
 }
 
+/** `x` to three significant digits in exponent form, rounded down (upText's twin: a lower bound stays one). */
+export function downText(x: number): string {
+  const [mantissa, exponent] = x.toExponential(2).split('e') as [string, string];
+  const shown = Number(`${mantissa}e${exponent}`);
+  return (shown <= x ? shown : (Math.round(Number(mantissa) * 100) - 1) / 100 * 10 ** Number(exponent)).toExponential(2);
+}
+
 /**
  * The target is below what any plan for these segments certifies: `total` is
  * the best certified error, `rounding` its rounding part. `steps`: the fixed

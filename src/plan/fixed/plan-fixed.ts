@@ -26,7 +26,7 @@ import { CellSet } from '../cell-set.js';
 import { LIMITS } from '../tuning.js';
 import { FIXED_PLAN } from './tuning.js';
 import { locate } from '../locate.js';
-import { refuseBadCells, refuseWorkLimit } from '../refusals.js';
+import { downText, refuseBadCells, refuseWorkLimit } from '../refusals.js';
 import { chooseRoot, rootAt, type RootChoice } from '../root-choice.js';
 import { segmentLayout } from '../segments.js';
 import { analysisProgram, CoefficientError, collapsedSeries, ZeroSlopeError, type Expansion } from '../series-program.js';
@@ -154,13 +154,6 @@ function refuseBelowResultGrid(family: Family, fam: Family, raw: { lo: bigint; h
     `the target ${family.accuracy.value} is below the fixed32 rounding floor of any plan: the result's last bit is 2^-${resultPoint}, and at ${input} = ${floor.input.toNumber()} the root is at least ${downText(floor.distance)} from every value the result can hold; add fraction bits to fixed.result or loosen the accuracy`,
     locate(family, 'accuracy.absolute'),
   );
-}
-
-/** `x` to three significant digits, rounded down (a lower bound stays one). */
-function downText(x: number): string {
-  const [mantissa, exponent] = x.toExponential(2).split('e') as [string, string];
-  const shown = Number(`${mantissa}e${exponent}`);
-  return (shown <= x ? shown : (Math.round(Number(mantissa) * 100) - 1) / 100 * 10 ** Number(exponent)).toExponential(2);
 }
 
 function planWith(family: Family, fam: Family, raw: { lo: bigint; hi: bigint }, layout: FixedLayout): FixedPlan {

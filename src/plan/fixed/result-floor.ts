@@ -22,6 +22,7 @@ import { evalExprExact } from '../../family/expr-eval.js';
 import type { Family } from '../../family/types.js';
 import { bisectExact } from '../../series/recenter.js';
 import { FIXED_PLAN } from './tuning.js';
+import { floorDiv } from '../../ir/fixed/format.js';
 
 export interface ResultFloor {
   /** The witness input, exact. */
@@ -67,19 +68,13 @@ function witnessDistance(fam: Family, input: Rational, resultPoint: number, piec
   if (m === null) return null;
   // m = k q + f with 0 <= f < q, all exact: the root is at least min(f, q - f) - width/2 from every multiple of q.
   const steps = m.div(q);
-  const k = floorOf(steps);
+  const k = floorDiv(steps.num, steps.den);
   const f = steps.sub(Rational.of(k)).mul(q);
   const near = f.cmp(q.sub(f)) <= 0 ? f : q.sub(f);
   const d = near.sub(width.mul(Rational.of(1n, 2n)));
   if (d.sign() <= 0) return null;
   // Rounded down: the bound reported is never more than the one proved.
   return d.toNumberBounds()[0];
-}
-
-/** floor(x) for an exact rational. */
-function floorOf(x: Rational): bigint {
-  const q = x.num / x.den;
-  return x.num < 0n && q * x.den !== x.num ? q - 1n : q;
 }
 
 /** FIXED_PLAN.slopePieces float64 intervals that together cover [lo, hi] (each end rounded outward). */
