@@ -175,10 +175,61 @@ export function termValue(f: CellFacts, term: SeriesTerm): number {
   return v;
 }
 
-/** Adds the lower-bounded sum of the grade-`grade` terms to the cell's grade sums. */
+/**
+ * A grade's terms as addGrade reads them: per term its hDown value and the
+ * powers k of its T_k factors in termValue's order (k ascending, each
+ * repeated m_k times), flattened. Made once per grade (the pool's array of
+ * the grade's terms), at the first addGrade of the grade, which in the plain
+ * loop computes every term's hDown too (the same calls, the same exact work).
+ */
+interface GradeFactors {
+  readonly h: Float64Array;
+  /** Term i's factor powers are powers[start[i]] .. powers[start[i + 1] - 1]. */
+  readonly start: Uint32Array;
+  readonly powers: Uint8Array | Uint16Array;
+}
+
+const gradeFactors = new WeakMap<readonly SeriesTerm[], GradeFactors>();
+
+function factorsOf(terms: readonly SeriesTerm[]): GradeFactors {
+  let g = gradeFactors.get(terms);
+  if (g) return g;
+  const h = new Float64Array(terms.length);
+  const start = new Uint32Array(terms.length + 1);
+  let total = 0;
+  let top = 0;
+  terms.forEach((term, i) => {
+    h[i] = hDown(term);
+    for (let k = 2; k < term.m.length; k++) total += term.m[k]!;
+    top = Math.max(top, term.m.length - 1);
+    start[i + 1] = total;
+  });
+  const powers = top < 256 ? new Uint8Array(total) : new Uint16Array(total);
+  let at = 0;
+  for (const term of terms) {
+    for (let k = 2; k < term.m.length; k++) for (let j = 0; j < term.m[k]!; j++) powers[at++] = k;
+  }
+  g = { h, start, powers };
+  gradeFactors.set(terms, g);
+  return g;
+}
+
+/**
+ * Adds the lower-bounded sum of the grade-`grade` terms to the cell's grade
+ * sums: the sum over the terms, in order, of termValue(f, term), each
+ * addition rounded down. The same operations in the same order as calling
+ * termValue for each term (so the same bits), read from the grade's
+ * flattened factors (factorsOf) instead of each term's exponent vector.
+ */
 export function addGrade(f: CellFacts, termsOfGrade: readonly SeriesTerm[], grade: number): void {
+  const { h, start, powers } = factorsOf(termsOfGrade);
+  const T = f.T;
   let s = 0;
-  for (const term of termsOfGrade) s = addDown(s, termValue(f, term));
+  for (let i = 0; i < h.length; i++) {
+    let v = h[i]!;
+    for (let p = start[i]!, end = start[i + 1]!; p < end; p++) v = mulDown(v, T[powers[p]!]!);
+    s = addDown(s, v);
+  }
   f.gradeSums[grade] = s;
 }
 

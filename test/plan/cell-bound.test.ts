@@ -14,6 +14,7 @@ import { Decimal } from 'decimal.js';
 import fc from 'fast-check';
 import { addGrade, cellTail, hDown, rootEnclosure, termValue, type CellFacts } from '../../src/plan/cell-bound.js';
 import { termsOfGrade } from '../../src/series/hyper-catalan.js';
+import { nextDown } from '../../src/math/directed.js';
 import { exactDecimal } from '../support/exact-decimal.js';
 
 const D = Decimal.clone({ precision: 400 });
@@ -74,6 +75,36 @@ describe('hyper-Catalan term values', () => {
     expect(tail).toBeLessThan(aExact.minus(kept).times(0.5).toNumber() * 1.001 + 0.5 * aExact.toNumber() * 2 ** -48);
     // A cell that is not ok has no finite tail.
     expect(cellTail({ ...f, state: { kind: 'slope-vanishes' } }, 3)).toBe(Infinity);
+  });
+});
+
+describe('addGrade', () => {
+  test('is the sum of termValue over the grade, in order, each addition rounded down: the same bits (quintic, powers 2, 3 and 5, grades up to 12)', () => {
+    const grades = Array.from({ length: 13 }, (_, w) => termsOfGrade(5, [2, 3, 5], w));
+    fc.assert(
+      fc.property(fc.double({ min: 0, max: 0.25, noNaN: true }), fc.double({ min: 0, max: 0.15, noNaN: true }), fc.double({ min: 0, max: 0.08, noNaN: true }), (t2, t3, t5) => {
+        const f = facts([0, 0, t2, t3, 0, t5], 1, 2);
+        grades.forEach((terms, w) => {
+          addGrade(f, terms, w);
+          let s = 0;
+          for (const term of terms) s = nextDown(s + termValue(f, term));
+          expect(Object.is(f.gradeSums[w], s)).toBe(true);
+        });
+      }),
+      { numRuns: 200 },
+    );
+  });
+
+  test('a pure power-3 grade of the cubic is the Fuss-Catalan number (A001764) times T3^k, rounded down', () => {
+    const T3 = 0.1;
+    const f = facts([0, 0, 0, T3], 1, 2);
+    A001764.forEach((c, k) => {
+      addGrade(f, termsOfGrade(3, [3], 2 * k), 2 * k);
+      const want = new D(c).times(exact(T3).pow(k));
+      const got = exact(f.gradeSums[2 * k]!);
+      expect(got.lte(want)).toBe(true);
+      expect(got.gte(want.times(1 - 2 * (k + 2) * 2 ** -52))).toBe(true);
+    });
   });
 });
 
