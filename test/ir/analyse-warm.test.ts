@@ -5,13 +5,14 @@
  * (an outside reference: 40 significant digits, far past float64's).
  */
 import { describe, expect, test } from '@jest/globals';
-import Decimal from 'decimal.js';
+import { Decimal } from 'decimal.js';
 import { Rational } from '../../src/math/rational.js';
 import { ProgramBuilder } from '../../src/ir/builder.js';
 import { analyseFlat } from '../../src/ir/analyse-flat.js';
 import { warmAnalysis } from '../../src/ir/analyse-warm.js';
 
 const D = Decimal.clone({ precision: 40 });
+type D = Decimal;
 
 /** (p + 1/3) * p / (p + 2), built as the planner builds programs. */
 function program(arithmetic: 'float32' | 'float64') {
@@ -23,7 +24,7 @@ function program(arithmetic: 'float32' | 'float64') {
 }
 
 /** The exact value of the program at p, in decimal.js. */
-function exact(p: number): Decimal {
+function exact(p: number): D {
   const x = new D(p);
   return x.plus(new D(1).div(3)).times(x).div(x.plus(2));
 }
