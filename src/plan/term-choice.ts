@@ -10,7 +10,7 @@
  */
 import { addDown, mulUp, subUp } from '../math/directed.js';
 import type { SeriesTerm } from '../series/hyper-catalan.js';
-import { termValue, type CellFacts } from './cell-bound.js';
+import { termLayout, termValuesInto, type CellFacts } from './cell-bound.js';
 import { spend } from './work.js';
 
 export interface TermChoice {
@@ -29,7 +29,8 @@ export function greedyTerms(cells: readonly CellFacts[], pool: readonly SeriesTe
   if (cells.some((c) => c.state.kind !== 'ok')) return null;
   // Counted like a program's analysis: a unit per term and cell here, and per cell at each prefix tried below.
   spend(cells.length * pool.length);
-  const values = cells.map((c) => pool.map((t) => termValue(c, t)));
+  const layout = termLayout(pool);
+  const values = cells.map((c) => termValuesInto(c, layout, new Float64Array(pool.length)));
   const allow = cells.map((c) => allowed(c));
   // Score: the largest share of a cell's allowance the term covers (as Math.max over the cells: NaN if any is).
   const score = new Array<number>(pool.length);
