@@ -196,10 +196,74 @@ export function termValue(f: CellFacts, term: SeriesTerm): number {
   return v;
 }
 
+/**
+ * A list of terms laid out for termValue's loop over many cells: each term's
+ * H(m) rounded down (`h`), and the powers k it multiplies by, k repeated m_k
+ * times in increasing k (`powers`, term t's from `start[t]` to `start[t + 1]`).
+ * Each cell's value of term t is then the same chain of products, in the same
+ * order, as termValue's (bit for bit), without a WeakMap lookup of H(m) per
+ * term and cell or the walk over zero exponents: the grade sums of every new
+ * cell (TermPool) and the greedy choice's table (term-choice.ts) were most of
+ * the time of the corpus's high-order plans (random/106: addGrade 2.7 of 4.3 s).
+ */
+export interface TermLayout {
+  readonly h: Float64Array;
+  readonly start: Int32Array;
+  readonly powers: Uint8Array;
+}
+
+const layouts = new WeakMap<readonly SeriesTerm[], TermLayout>();
+
+/** The layout of `terms`, kept per array (a grade's term list is one array for the life of its pool). */
+export function termLayout(terms: readonly SeriesTerm[]): TermLayout {
+  let l = layouts.get(terms);
+  if (!l) {
+    l = layOut(terms);
+    layouts.set(terms, l);
+  }
+  return l;
+}
+
+function layOut(terms: readonly SeriesTerm[]): TermLayout {
+  const start = new Int32Array(terms.length + 1);
+  let n = 0;
+  for (let t = 0; t < terms.length; t++) {
+    const m = terms[t]!.m;
+    for (let k = 2; k < m.length; k++) n += m[k]!;
+    start[t + 1] = n;
+  }
+  const h = new Float64Array(terms.length);
+  const powers = new Uint8Array(n);
+  let p = 0;
+  for (let t = 0; t < terms.length; t++) {
+    const term = terms[t]!;
+    h[t] = hDown(term);
+    for (let k = 2; k < term.m.length; k++) for (let j = 0; j < term.m[k]!; j++) powers[p++] = k;
+  }
+  return { h, start, powers };
+}
+
+/** Term t's majorant value on the cell (termValue's, bit for bit). */
+function laidOutValue(T: readonly number[], l: TermLayout, t: number): number {
+  let v = l.h[t]!;
+  const end = l.start[t + 1]!;
+  for (let p = l.start[t]!; p < end; p++) v = mulDown(v, T[l.powers[p]!]!);
+  return v;
+}
+
+/** termValue of every term of a layout on the cell, in order, into `out`. */
+export function termValuesInto(f: CellFacts, l: TermLayout, out: Float64Array): Float64Array {
+  const T = f.T;
+  for (let t = 0; t < l.h.length; t++) out[t] = laidOutValue(T, l, t);
+  return out;
+}
+
 /** Adds the lower-bounded sum of the grade-`grade` terms to the cell's grade sums. */
 export function addGrade(f: CellFacts, termsOfGrade: readonly SeriesTerm[], grade: number): void {
+  const l = termLayout(termsOfGrade);
+  const T = f.T;
   let s = 0;
-  for (const term of termsOfGrade) s = addDown(s, termValue(f, term));
+  for (let t = 0; t < l.h.length; t++) s = addDown(s, laidOutValue(T, l, t));
   f.gradeSums[grade] = s;
 }
 
