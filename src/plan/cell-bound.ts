@@ -6,8 +6,8 @@
  *     R * (a(T) - a_S(T)),
  * a(T) bounded above and a_S(T) below, both with directed rounding.
  */
-import { addDown, addUp, mulDown, mulUp, powUp, subDown, subUp } from '../math/directed.js';
-import { containsZero, idiv, imul, isub, mag, point, type Interval } from '../math/interval.js';
+import { addDown, addUp, mulDown, mulUp, powDown, powUp, subDown, subUp } from '../math/directed.js';
+import { containsZero, idiv, imul, isub, mag, mig, point, type Interval } from '../math/interval.js';
 import { Rational } from '../math/rational.js';
 import { analyseFlat, valueOf } from '../ir/analyse.js';
 import { majorantRoot } from '../series/majorant.js';
@@ -99,6 +99,27 @@ export function cellFacts(ap: AnalysisProgram, degree: number, cell: Cell, x0: n
     cell, segment, T, Q, rRange: r, gradeSums: [], rootMin, rootMax: Math.max(-lo, hi), c1Range, ranges,
     state: { kind: 'ok' }, R, aUpper: root.upper, rootRange: { lo, hi },
   };
+}
+
+/**
+ * Lower bounds of |t_k| = |r|^(k-1) |q_k| at one input point (a cell of zero
+ * width), indexed by power: the least magnitudes of the same enclosures of r
+ * and q_k that cellFacts bounds from above, rounded down. Every cell holding
+ * the point has T_k >= these. Null where the enclosure of c'1 there reaches
+ * zero or is unbounded.
+ */
+export function pointLowerT(ap: AnalysisProgram, degree: number, pointCell: Cell, segment: number): number[] | null {
+  const an = analyseFlat(ap.program, pointCell, segment);
+  const tight = tightRatios(ap, ap.c1 !== null ? valueOf(an, ap.c1) : null, pointCell, segment);
+  if (ap.c1 !== null) {
+    const v = tight.c1!;
+    if (!Number.isFinite(v.lo) || !Number.isFinite(v.hi) || containsZero(v)) return null;
+  }
+  const rLeast = mig(tight.ratio(0, valueOf(an, ap.r)));
+  const T = doubleZeros(degree + 1);
+  // Rounding 0 down gives -2^-1074: a magnitude's lower bound is at least 0.
+  for (const [k, ref] of ap.q) T[k] = Math.max(0, mulDown(powDown(rLeast, k - 1), mig(tight.ratio(k, valueOf(an, ref)))));
+  return T;
 }
 
 /**
