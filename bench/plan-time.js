@@ -14,9 +14,14 @@
 // printed as a distribution: the deterministic work limit bounds CPU only as
 // far as that ratio stays in a narrow band.
 //
-//   node bench/plan-time.js [--timeout S] [--only REGEX] [--slowest N] [--json FILE]
+// Each row also keeps a digest of the plan's output (stdout, sha-256), so two
+// runs (two builds) can be compared spec by spec with --compare: a speed change
+// that must not change any plan or refusal is checked over the whole corpus.
+//
+//   node bench/plan-time.js [--timeout S] [--only REGEX] [--slowest N] [--json FILE] [--compare FILE]
 import { spawnSync } from 'node:child_process';
-import { readdirSync, writeFileSync } from 'node:fs';
+import { createHash } from 'node:crypto';
+import { readFileSync, readdirSync, writeFileSync } from 'node:fs';
 import { cpus, loadavg } from 'node:os';
 import { join } from 'node:path';
 
@@ -25,7 +30,7 @@ const arg = (name, dflt) => {
   return i > 0 ? process.argv[i + 1] : dflt;
 };
 if (process.argv.includes('--help')) {
-  console.log(`node bench/plan-time.js [--timeout S] [--cpu-limit S] [--only REGEX] [--slowest N] [--json FILE]
+  console.log(`node bench/plan-time.js [--timeout S] [--cpu-limit S] [--only REGEX] [--slowest N] [--json FILE] [--compare FILE]
 
 Plans every spec of examples/, bench/corpus/cases/ and bench/corpus/random/ in a
 fresh process and prints the wall and CPU time distribution, the CPU ns per
@@ -36,7 +41,11 @@ work unit, the outcomes and the slowest specs.
                  on a shared machine a wall-time limit kills early
   --only REGEX   only the spec paths matching REGEX
   --slowest N    list the N slowest specs (default 8)
-  --json FILE    write every row (spec, outcome, wall, cpu, units) to FILE`);
+  --json FILE    write every row (spec, outcome, wall, cpu, units, message,
+                 digest of the plan's output) to FILE
+  --compare FILE compare each spec's outcome, message, plan digest and work
+                 units with the rows of an earlier --json FILE and list the
+                 specs that differ (rows without a digest compare the rest)`);
   process.exit(0);
 }
 const timeoutS = Number(arg('--timeout', '30'));
@@ -44,6 +53,7 @@ const only = new RegExp(arg('--only', '.'));
 const slowestN = Number(arg('--slowest', '8'));
 const jsonOut = arg('--json', null);
 const cpuLimit = arg('--cpu-limit', null);
+const compareWith = arg('--compare', null);
 
 const list = (dir) => readdirSync(dir).filter((f) => /\.ya?ml$/.test(f)).sort().map((f) => join(dir, f));
 const specs = [...list('examples'), ...list('bench/corpus/cases'), ...list('bench/corpus/random')].filter((s) => only.test(s));
@@ -77,7 +87,8 @@ for (const spec of specs) {
   else if (r.status === 2 && message.split('\n').length === 1 && !/internal error/.test(message)) outcome = 'refused';
   else if (r.status === null) outcome = 'timeout';
   else outcome = 'error';
-  rows.push({ spec, outcome, wall, cpu, units, message: outcome === 'planned' ? '' : message.split('\n')[0] });
+  const digest = createHash('sha256').update(r.stdout ?? '').digest('hex').slice(0, 16);
+  rows.push({ spec, outcome, wall, cpu, units, message: outcome === 'planned' ? '' : message.split('\n')[0], digest });
   if (process.stdout.isTTY) process.stdout.write(`\r${rows.length}/${specs.length} ${spec}      `);
 }
 if (process.stdout.isTTY) process.stdout.write('\n');
@@ -99,3 +110,18 @@ for (const r of [...rows].sort((a, b) => b.wall - a.wall).slice(0, slowestN)) {
 }
 for (const r of rows.filter((x) => x.outcome === 'error' || x.outcome === 'timeout')) console.log(`  ${r.outcome}: ${r.spec}: ${r.message.slice(0, 160)}`);
 if (jsonOut) writeFileSync(jsonOut, JSON.stringify(rows, null, 1));
+if (compareWith) {
+  const before = new Map(JSON.parse(readFileSync(compareWith, 'utf8')).map((r) => [r.spec, r]));
+  const fields = ['outcome', 'message', 'digest', 'units'];
+  const differ = [];
+  let compared = 0;
+  for (const r of rows) {
+    const b = before.get(r.spec);
+    if (!b) continue;
+    compared++;
+    const what = fields.filter((f) => b[f] !== undefined && b[f] !== r[f]);
+    if (what.length) differ.push(`  ${r.spec}: ${what.map((f) => `${f} ${JSON.stringify(b[f])} -> ${JSON.stringify(r[f])}`).join('; ')}`);
+  }
+  console.log(`compared with ${compareWith}: ${compared} specs, ${differ.length} differ (outcome, message, plan digest or work units)`);
+  for (const d of differ) console.log(d.slice(0, 400));
+}

@@ -1,22 +1,36 @@
 // The second half of `npm run build`: bundles the command line (src/cli.ts)
-// into dist/cli.js with esbuild, after tsc has written the per-module dist/
-// (which the tests, `npm run samples` and the benchmarks import).
+// into dist/cli-bundle.cjs with esbuild, after tsc has written the per-module
+// dist/ (which the tests, `npm run samples` and the benchmarks import); then
+// dist/cli.js, the command as installed (src/launch.ts), which runs the bundle
+// from V8's code cache; then that cache, dist/cli-bundle.v8cache
+// (scripts/make-code-cache.js).
 //
 // Why: a cold `rootcast plan` loaded about 170 ES modules from dist/ and
 // node_modules, one file read, resolution and compilation each, before the
-// planner ran (about 270 ms of a 0.95 s plan). The bundle is a few files.
+// planner ran (about 270 ms of a 0.95 s plan). Bundled, it reads two files.
 //
-// - Split at the commands' dynamic imports (`splitting`), so `plan` still
-//   loads neither the emitters nor handlebars, and `--version` only yargs.
-//   The chunks sit directly in dist/ beside cli.js, named cli-<name>-<hash>.js;
-//   the previous build's chunks are removed first, so none lingers.
+// - One CommonJS bundle, not ES chunks: node 20 keeps no compiled code between
+//   runs for ES modules, but `vm.Script` takes V8's code cache (`cachedData`),
+//   which only a script (CommonJS) can use. The cache holds the bytecode of
+//   every function one planned example compiled (the build plans
+//   examples/kiln-probe.yaml --json in a child process), so a cold plan parses
+//   and compiles almost nothing; the rest compiles lazily as before. How it
+//   is checked and when it is not used: src/cli/code-cache.ts. The commands'
+//   modules (emitters, handlebars, the checkers) are in the one file, each
+//   behind esbuild's lazy init, so `plan` still runs none of their top level;
+//   only a run whose cache is rejected parses their text (about 1.3 MB).
+//   `import()`s become `require()`s (`supported`); `import.meta.url` becomes
+//   the bundle's own file URL, which the launcher passes in (`define`).
+// - The bundle ends with its build id (sha256 of its text), and the cache file
+//   starts with the id it was made for; the previous build's files are
+//   removed first, so a failed build leaves no cache of another bundle.
 // - ts-morph, typescript and playwright-core stay outside (`external`): they
 //   are loaded at run time from node_modules by the commands that need them,
 //   as before; so does cli-progress, which src/cli/progress.ts requires only
 //   when it draws a bar (on a terminal). Everything else (yargs, yaml,
-//   handlebars, decimal.js) is inside.
+//   handlebars) is inside.
 // - Paths to shipped files come from src/package-root.ts, which sits one
-//   level below the package root in src/, dist/ and as a chunk in dist/.
+//   level below the package root in src/, dist/ and in the bundle in dist/.
 // - yargs finds its message translations (node_modules/yargs/locales) from
 //   its own file's place; in the bundle that place is dist/, so the build
 //   points it at the installed yargs package instead (`yargsShim`).
@@ -41,15 +55,16 @@
 //   warning goes to console.warn instead of process.emitWarning (the reader's
 //   parseDocument gives its warnings back rather than printing them), and
 //   yaml's own debugging switches LOG_TOKENS and LOG_STREAM are absent.
-// - CommonJS packages inside (handlebars) call require()
-//   for node's built-in modules: each output file gets a require of its own
-//   (`banner`).
-import { readdirSync, rmSync } from 'node:fs';
+import { spawnSync } from 'node:child_process';
+import { createHash } from 'node:crypto';
+import { readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { BUILD_ID_MARK, BUNDLE_FILE, CACHE_FILE } from '../dist/cli/code-cache.js';
 
 const ROOT = fileURLToPath(new URL('..', import.meta.url));
 const DIST = join(ROOT, 'dist');
+/** The ES chunks of earlier builds (cli-<name>-<hash>.js), removed so none lingers. */
 const CHUNK = /^cli-.+-[A-Z0-9]{8}\.js$/;
 
 /** Replaces `from` by `to` in `text`, which must hold `from` exactly once. */
@@ -76,6 +91,22 @@ const LAZY_ASSERT = [
   '',
 ].join('\n');
 
+/**
+ * Where the installed yargs keeps its translations. Node's resolution of
+ * 'yargs' from the bundle (dist/) looks first in the package's own
+ * node_modules; that one directory is checked with one stat, and only when it
+ * is absent (yargs hoisted above the package) is the resolution asked, which
+ * costs about 5 ms of every start. `__dirname` is the shim's name for the
+ * bundle file's own path.
+ */
+const YARGS_LOCALES = [
+  'const yargsLocales = () => {',
+  "  const own = resolve(__dirname, '../../node_modules/yargs/locales');",
+  "  return require('node:fs').existsSync(own) ? own : resolve(require.resolve('yargs'), '../locales');",
+  '};',
+  '',
+].join('\n');
+
 /** yargs' ESM shim: the translations directory from the installed package, not from the bundle's place; node:assert, cliui and string-width on demand. */
 const yargsShim = {
   name: 'yargs-shim',
@@ -85,7 +116,8 @@ const yargsShim = {
     b.onLoad({ filter: /[\\/]yargs[\\/]lib[\\/]platform-shims[\\/]esm\.mjs$/ }, async (args) => {
       const { readFile } = await import('node:fs/promises');
       let text = await readFile(args.path, 'utf8');
-      text = patch(text, "directory: resolve(__dirname, '../../../locales')", "directory: fileURLToPath(new URL('./locales/', import.meta.resolve('yargs')))", args.path);
+      text = patch(text, "directory: resolve(__dirname, '../../../locales')", 'directory: yargsLocales()', args.path);
+      text = patch(text, "const require = createRequire(import.meta.url);\n", `const require = createRequire(import.meta.url);\n${YARGS_LOCALES}`, args.path);
       text = patch(text, "import { notStrictEqual, strictEqual } from 'assert'\n", LAZY_ASSERT, args.path);
       text = patch(text, "import cliui from 'cliui'\n", '', args.path);
       text = patch(text, "import stringWidth from 'string-width';\n", "import { lazyCliui, lazyStringWidth } from 'rootcast-lazy-layout';\n", args.path);
@@ -110,6 +142,8 @@ const yargsCommand = {
 };
 
 for (const f of readdirSync(DIST)) if (CHUNK.test(f)) rmSync(join(DIST, f));
+rmSync(join(DIST, BUNDLE_FILE), { force: true });
+rmSync(join(DIST, CACHE_FILE), { force: true });
 
 // A work tree whose node_modules predates esbuild (npm ci adds it) keeps
 // tsc's per-module dist/cli.js, which works the same, only slower to start.
@@ -121,21 +155,43 @@ try {
   process.exit(0);
 }
 
+const common = { bundle: true, platform: 'node', target: 'node20', tsconfig: join(ROOT, 'tsconfig.json'), logLevel: 'warning' };
+
 await build({
-  entryPoints: { cli: join(ROOT, 'src', 'cli.ts') },
-  outdir: DIST,
-  chunkNames: 'cli-[name]-[hash]',
-  entryNames: '[name]',
-  bundle: true,
-  splitting: true,
-  format: 'esm',
-  platform: 'node',
-  target: 'node20',
-  tsconfig: join(ROOT, 'tsconfig.json'),
+  ...common,
+  entryPoints: [join(ROOT, 'src', 'cli.ts')],
+  outfile: join(DIST, BUNDLE_FILE),
+  format: 'cjs',
   external: ['ts-morph', 'typescript', 'playwright-core', 'cli-progress'],
-  banner: { js: "import { createRequire as __rootcastRequire } from 'node:module'; const require = __rootcastRequire(import.meta.url);" },
   alias: { yaml: join(ROOT, 'node_modules', 'yaml', 'browser', 'index.js') },
+  define: { 'import.meta.url': '__rootcastUrl' },
+  supported: { 'dynamic-import': false },
   plugins: [yargsShim, yargsCommand],
-  allowOverwrite: true,
-  logLevel: 'warning',
 });
+
+// The bundle runs as a function body (src/cli/code-cache.ts): no #! line. Its last line is its build id.
+const bundlePath = join(DIST, BUNDLE_FILE);
+const text = readFileSync(bundlePath, 'utf8').replace(/^#!.*\n/, '');
+if (/\bimport\.meta\b/.test(text)) throw new Error('scripts/bundle.js: the bundle still says import.meta, which a CommonJS script cannot');
+// The launcher reads the bundle as latin1 (src/cli/code-cache.ts runBundle), which is the same text only for ASCII.
+if (/[^\x00-\x7f]/.test(text)) throw new Error('scripts/bundle.js: the bundle has a character outside ASCII (esbuild charset?): the launcher reads it as latin1');
+writeFileSync(bundlePath, `${text}${BUILD_ID_MARK}${createHash('sha256').update(text).digest('hex')}\n`);
+
+await build({
+  ...common,
+  entryPoints: [join(ROOT, 'src', 'launch.ts')],
+  outfile: join(DIST, 'cli.js'),
+  format: 'esm',
+  allowOverwrite: true,
+});
+
+// The cache: the bundle plans one example in a child process (without the
+// caller's NODE_OPTIONS, whose V8 flags would not match a plain run's).
+const env = { ...process.env };
+delete env.NODE_OPTIONS;
+const made = spawnSync(process.execPath, [join(ROOT, 'scripts', 'make-code-cache.js'), 'plan', 'examples/kiln-probe.yaml', '--json'], {
+  cwd: ROOT,
+  env,
+  stdio: ['ignore', 'ignore', 'inherit'],
+});
+if (made.status !== 0) throw new Error(`scripts/make-code-cache.js failed (exit ${made.status ?? made.signal}): the bundle did not plan examples/kiln-probe.yaml`);

@@ -372,11 +372,18 @@ function clampTo(x: number, lo: number, hi: number): number {
 }
 
 
-/** `largestComputed` of a flat analysis. */
+/**
+ * `largestComputed` of a flat analysis: the largest addUp(|value|, error)
+ * over the nodes. nextUp is monotone, so the largest of the rounded-up sums is
+ * nextUp of the largest sum rounded to nearest: one nextUp instead of one per
+ * node (this ran once per cell for every program the planner weighs), the
+ * same value bit for bit (a NaN sum makes both NaN).
+ */
 export function largestComputedFlat(a: FlatAnalysis): number {
   const { lo, hi, err } = a;
+  if (lo.length === 0) return 0;
   let m = 0;
-  for (let i = 0; i < lo.length; i++) m = max(m, addUp(max(abs(lo[i]!), abs(hi[i]!)), err[i]!));
-  return m;
+  for (let i = 0; i < lo.length; i++) m = max(m, max(abs(lo[i]!), abs(hi[i]!)) + err[i]!);
+  return nextUp(m);
 }
 

@@ -23,4 +23,11 @@ export function powUp(x: number, k: number): number {
   return r;
 }
 
+/** Lower bound of x^k for x >= 0. */
+export function powDown(x: number, k: number): number {
+  let r = 1;
+  for (let i = 0; i < k; i++) r = mulDown(r, x);
+  return r;
+}
+
 export { nextDown, nextUp };

@@ -6,8 +6,8 @@
  *     R * (a(T) - a_S(T)),
  * a(T) bounded above and a_S(T) below, both with directed rounding.
  */
-import { addDown, addUp, mulDown, mulUp, powUp, subDown, subUp } from '../math/directed.js';
-import { containsZero, idiv, imul, isub, mag, point, type Interval } from '../math/interval.js';
+import { addDown, addUp, mulDown, mulUp, powDown, powUp, subDown, subUp } from '../math/directed.js';
+import { containsZero, idiv, imul, isub, mag, mig, point, type Interval } from '../math/interval.js';
 import { Rational } from '../math/rational.js';
 import { analyseFlat, valueOf } from '../ir/analyse.js';
 import { majorantRoot } from '../series/majorant.js';
@@ -102,6 +102,27 @@ export function cellFacts(ap: AnalysisProgram, degree: number, cell: Cell, x0: n
 }
 
 /**
+ * Lower bounds of |t_k| = |r|^(k-1) |q_k| at one input point (a cell of zero
+ * width), indexed by power: the least magnitudes of the same enclosures of r
+ * and q_k that cellFacts bounds from above, rounded down. Every cell holding
+ * the point has T_k >= these. Null where the enclosure of c'1 there reaches
+ * zero or is unbounded.
+ */
+export function pointLowerT(ap: AnalysisProgram, degree: number, pointCell: Cell, segment: number): number[] | null {
+  const an = analyseFlat(ap.program, pointCell, segment);
+  const tight = tightRatios(ap, ap.c1 !== null ? valueOf(an, ap.c1) : null, pointCell, segment);
+  if (ap.c1 !== null) {
+    const v = tight.c1!;
+    if (!Number.isFinite(v.lo) || !Number.isFinite(v.hi) || containsZero(v)) return null;
+  }
+  const rLeast = mig(tight.ratio(0, valueOf(an, ap.r)));
+  const T = doubleZeros(degree + 1);
+  // Rounding 0 down gives -2^-1074: a magnitude's lower bound is at least 0.
+  for (const [k, ref] of ap.q) T[k] = Math.max(0, mulDown(powDown(rLeast, k - 1), mig(tight.ratio(k, valueOf(an, ref)))));
+  return T;
+}
+
+/**
  * A copy of a cell's facts with empty grade sums, as one object literal in the
  * order of cellFacts' own: a spread copy had another hidden class, and the
  * optimised readers of facts (termValue, cellTail) deoptimised on it.
@@ -176,60 +197,73 @@ export function termValue(f: CellFacts, term: SeriesTerm): number {
 }
 
 /**
- * A grade's terms as addGrade reads them: per term its hDown value and the
- * powers k of its T_k factors in termValue's order (k ascending, each
- * repeated m_k times), flattened. Made once per grade (the pool's array of
- * the grade's terms), at the first addGrade of the grade, which in the plain
- * loop computes every term's hDown too (the same calls, the same exact work).
+ * A list of terms laid out for termValue's loop over many cells: each term's
+ * H(m) rounded down (`h`), and the powers k it multiplies by, k repeated m_k
+ * times in increasing k (`powers`, term t's from `start[t]` to `start[t + 1]`).
+ * Each cell's value of term t is then the same chain of products, in the same
+ * order, as termValue's (bit for bit), without a WeakMap lookup of H(m) per
+ * term and cell or the walk over zero exponents: the grade sums of every new
+ * cell (TermPool) and the greedy choice's table (term-choice.ts) were most of
+ * the time of the corpus's high-order plans (random/106: addGrade 2.7 of 4.3 s).
  */
-interface GradeFactors {
+export interface TermLayout {
   readonly h: Float64Array;
-  /** Term i's factor powers are powers[start[i]] .. powers[start[i + 1] - 1]. */
-  readonly start: Uint32Array;
-  readonly powers: Uint8Array | Uint16Array;
+  readonly start: Int32Array;
+  readonly powers: Uint8Array;
 }
 
-const gradeFactors = new WeakMap<readonly SeriesTerm[], GradeFactors>();
+const layouts = new WeakMap<readonly SeriesTerm[], TermLayout>();
 
-function factorsOf(terms: readonly SeriesTerm[]): GradeFactors {
-  let g = gradeFactors.get(terms);
-  if (g) return g;
-  const h = new Float64Array(terms.length);
-  const start = new Uint32Array(terms.length + 1);
-  let total = 0;
-  let top = 0;
-  terms.forEach((term, i) => {
-    h[i] = hDown(term);
-    for (let k = 2; k < term.m.length; k++) total += term.m[k]!;
-    top = Math.max(top, term.m.length - 1);
-    start[i + 1] = total;
-  });
-  const powers = top < 256 ? new Uint8Array(total) : new Uint16Array(total);
-  let at = 0;
-  for (const term of terms) {
-    for (let k = 2; k < term.m.length; k++) for (let j = 0; j < term.m[k]!; j++) powers[at++] = k;
+/** The layout of `terms`, kept per array (a grade's term list is one array for the life of its pool). */
+export function termLayout(terms: readonly SeriesTerm[]): TermLayout {
+  let l = layouts.get(terms);
+  if (!l) {
+    l = layOut(terms);
+    layouts.set(terms, l);
   }
-  g = { h, start, powers };
-  gradeFactors.set(terms, g);
-  return g;
+  return l;
 }
 
-/**
- * Adds the lower-bounded sum of the grade-`grade` terms to the cell's grade
- * sums: the sum over the terms, in order, of termValue(f, term), each
- * addition rounded down. The same operations in the same order as calling
- * termValue for each term (so the same bits), read from the grade's
- * flattened factors (factorsOf) instead of each term's exponent vector.
- */
+function layOut(terms: readonly SeriesTerm[]): TermLayout {
+  const start = new Int32Array(terms.length + 1);
+  let n = 0;
+  for (let t = 0; t < terms.length; t++) {
+    const m = terms[t]!.m;
+    for (let k = 2; k < m.length; k++) n += m[k]!;
+    start[t + 1] = n;
+  }
+  const h = new Float64Array(terms.length);
+  const powers = new Uint8Array(n);
+  let p = 0;
+  for (let t = 0; t < terms.length; t++) {
+    const term = terms[t]!;
+    h[t] = hDown(term);
+    for (let k = 2; k < term.m.length; k++) for (let j = 0; j < term.m[k]!; j++) powers[p++] = k;
+  }
+  return { h, start, powers };
+}
+
+/** Term t's majorant value on the cell (termValue's, bit for bit). */
+function laidOutValue(T: readonly number[], l: TermLayout, t: number): number {
+  let v = l.h[t]!;
+  const end = l.start[t + 1]!;
+  for (let p = l.start[t]!; p < end; p++) v = mulDown(v, T[l.powers[p]!]!);
+  return v;
+}
+
+/** termValue of every term of a layout on the cell, in order, into `out`. */
+export function termValuesInto(f: CellFacts, l: TermLayout, out: Float64Array): Float64Array {
+  const T = f.T;
+  for (let t = 0; t < l.h.length; t++) out[t] = laidOutValue(T, l, t);
+  return out;
+}
+
+/** Adds the lower-bounded sum of the grade-`grade` terms to the cell's grade sums. */
 export function addGrade(f: CellFacts, termsOfGrade: readonly SeriesTerm[], grade: number): void {
-  const { h, start, powers } = factorsOf(termsOfGrade);
+  const l = termLayout(termsOfGrade);
   const T = f.T;
   let s = 0;
-  for (let i = 0; i < h.length; i++) {
-    let v = h[i]!;
-    for (let p = start[i]!, end = start[i + 1]!; p < end; p++) v = mulDown(v, T[powers[p]!]!);
-    s = addDown(s, v);
-  }
+  for (let t = 0; t < l.h.length; t++) s = addDown(s, laidOutValue(T, l, t));
   f.gradeSums[grade] = s;
 }
 

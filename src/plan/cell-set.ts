@@ -7,7 +7,9 @@
  */
 import { divUp } from '../math/directed.js';
 import { splitGeometric, widestDim, widestRatioDim, split, type Cell } from './box.js';
-import { cellFacts, cellTail, withEmptyGradeSums, type CellFacts } from './cell-bound.js';
+import { certainlyDiverges } from '../series/majorant-diverges.js';
+import { cellFacts, cellTail, pointLowerT, withEmptyGradeSums, type CellFacts } from './cell-bound.js';
+import { lazyRefusalCells } from './lazy-repair.js';
 import type { AnalysisProgram } from './series-program.js';
 import { SUBDIVISION, WORK } from './tuning.js';
 import { spend } from './work.js';
@@ -95,6 +97,27 @@ export class CellSet {
       // Split from the end so earlier indices stay valid.
       for (let k = bad.length - 1; k >= 0; k--) this.splitAt(bad[k]!);
     }
+  }
+
+  /**
+   * When a thorough repair (repairBadCells) would end in a refusal over its
+   * bad cells, the cells that refusal names, found without computing most of
+   * the cells the repair would split (src/plan/lazy-repair.ts): refuseBadCells
+   * over them throws the same refusal. Null when that is not certain; the set
+   * is left as it was either way.
+   */
+  thoroughRefusalCells(budget: number, relative: boolean): CellFacts[] | null {
+    return lazyRefusalCells(this.cells, budget, {
+      box: this.box,
+      facts: (cell, segment) => this.facts(cell, segment),
+      certainlyBadAt: (point, segment) => {
+        spend(WORK.cellUnits + this.ap.program.nodes.length);
+        const T = pointLowerT(this.ap, this.degree, point, segment);
+        return T !== null && certainlyDiverges(T);
+      },
+      tooSmall: (cell) => this.tooSmall(cell),
+      bad: (c) => this.bad(c, relative),
+    });
   }
 
   /**

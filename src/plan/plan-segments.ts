@@ -63,6 +63,9 @@ function planSegmentsInner(family: Family, box: Cell, layout: SegmentLayout, tho
   // A search trial's repaired cells are the same whatever the target: shared with segmentNeeds and the other trials of the layout.
   if (!thorough && !plain) set = repairedSet(family, box, layout, ap, x0, sharedOf(family, box, layout));
   else {
+    // A repair certain to be refused: the refusal from the few cells it names (CellSet.thoroughRefusalCells).
+    const named = thorough ? set.thoroughRefusalCells(LIMITS.cells, relative) : null;
+    if (named) refuseBadCells(family, named, relative);
     set.repairBadCells(LIMITS.cells, relative, thorough);
     if (relative) set.splitTowardZero(LIMITS.cells);
   }

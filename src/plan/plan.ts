@@ -8,6 +8,7 @@
  * reason in one line.
  */
 import { RootcastError } from '../errors.js';
+import { warmAnalysis } from '../ir/analyse-warm.js';
 import type { Family } from '../family/types.js';
 import { boxOf, type Cell } from './box.js';
 import { certifyBracket } from './bracket-check.js';
@@ -47,6 +48,9 @@ export interface QuoteCheck {
 export function makePlan(family: Family, options: PlanOptions = {}): Plan {
   // fixed32 has its own planner (src/plan/fixed/plan-fixed.ts); the commands route it there.
   if (family.fixed) throw new Error('a fixed32 family is planned by makeFixedPlan');
+  // Every path of the flat analysis run once before the planner's first (src/ir/analyse-warm.ts): no result
+  // changes, and before the work count starts, so the exact arithmetic of its constants counts no units.
+  warmAnalysis(family.arithmetic);
   startWork(options.onWork ?? null);
   try {
     return applyOutsideBox(planWithResult(family, planWithinLimit));

@@ -112,7 +112,8 @@ function firstPole(family: Family, cells: readonly CellFacts[]): { power: number
   return null;
 }
 
-function maxRatio(c: CellFacts): number {
+/** A cell's largest |t_k| bound over its critical value: the refusal quotes the cell where it is largest. */
+export function maxRatio(c: CellFacts): number {
   const T = c.state.kind === 'diverges' ? c.state.T : c.T;
   let m = 0;
   for (let k = 2; k < T.length; k++) m = Math.max(m, T[k]! / criticalT(k));

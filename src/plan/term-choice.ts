@@ -10,7 +10,7 @@
  */
 import { addDown, mulUp, subUp } from '../math/directed.js';
 import type { SeriesTerm } from '../series/hyper-catalan.js';
-import { termValue, type CellFacts } from './cell-bound.js';
+import { termLayout, termValuesInto, type CellFacts } from './cell-bound.js';
 import { spend } from './work.js';
 
 export interface TermChoice {
@@ -21,15 +21,33 @@ export interface TermChoice {
 }
 
 /**
+ * Each cell's termValue of every term of the pool (a row per cell, in the
+ * cells' order): the part of greedyTerms that does not depend on the
+ * allowance, so greedy.ts computes it once for the truncation shares it tries
+ * on one set of cells and one pool.
+ */
+export function termValueTable(cells: readonly CellFacts[], pool: readonly SeriesTerm[]): Float64Array[] {
+  const layout = termLayout(pool);
+  return cells.map((c) => termValuesInto(c, layout, new Float64Array(pool.length)));
+}
+
+/**
  * The shortest prefix of the pool, ranked by each term's largest weighted
  * contribution over the cells, whose truncation meets `allowed(c)` on every
  * cell; null when even the whole pool misses it. Every cell must converge.
  */
-export function greedyTerms(cells: readonly CellFacts[], pool: readonly SeriesTerm[], allowed: (c: CellFacts) => number): TermChoice | null {
+export function greedyTerms(
+  cells: readonly CellFacts[],
+  pool: readonly SeriesTerm[],
+  allowed: (c: CellFacts) => number,
+  table?: readonly Float64Array[],
+): TermChoice | null {
   if (cells.some((c) => c.state.kind !== 'ok')) return null;
   // Counted like a program's analysis: a unit per term and cell here, and per cell at each prefix tried below.
+  // A table given by the caller is counted again on each call, as when every call computed it, so the
+  // units (where a search stops) are what they were before the table was shared.
   spend(cells.length * pool.length);
-  const values = cells.map((c) => pool.map((t) => termValue(c, t)));
+  const values = table ?? termValueTable(cells, pool);
   const allow = cells.map((c) => allowed(c));
   // Score: the largest share of a cell's allowance the term covers (as Math.max over the cells: NaN if any is).
   const score = new Array<number>(pool.length);

@@ -13,7 +13,7 @@ import ts from 'typescript';
 /** Top to bottom: a file may import its own stage and the stages below it. */
 const STAGES = ['cli', 'reader', 'verify', 'emit', 'plan', 'ir', 'series', 'family', 'math'] as const;
 /** Files directly in src/ and the stage they belong to; errors.ts and package-root.ts are shared by every stage. */
-const ROOT_FILES: Readonly<Record<string, string>> = { 'cli.ts': 'cli', 'version.ts': 'cli', 'errors.ts': 'shared', 'package-root.ts': 'shared' };
+const ROOT_FILES: Readonly<Record<string, string>> = { 'cli.ts': 'cli', 'launch.ts': 'cli', 'version.ts': 'cli', 'errors.ts': 'shared', 'package-root.ts': 'shared' };
 
 const SRC = resolve('src');
 

@@ -11,10 +11,11 @@
  */
 import { describe, expect, test } from '@jest/globals';
 import { Decimal } from 'decimal.js';
+import { addDown } from '../../src/math/directed.js';
 import fc from 'fast-check';
-import { addGrade, cellTail, hDown, rootEnclosure, termValue, type CellFacts } from '../../src/plan/cell-bound.js';
+import { addGrade, cellTail, hDown, rootEnclosure, termLayout, termValue, termValuesInto, type CellFacts } from '../../src/plan/cell-bound.js';
 import { termsOfGrade } from '../../src/series/hyper-catalan.js';
-import { nextDown } from '../../src/math/directed.js';
+import { xorshift32 } from '../../src/verify/samples.js';
 import { exactDecimal } from '../support/exact-decimal.js';
 
 const D = Decimal.clone({ precision: 400 });
@@ -78,36 +79,6 @@ describe('hyper-Catalan term values', () => {
   });
 });
 
-describe('addGrade', () => {
-  test('is the sum of termValue over the grade, in order, each addition rounded down: the same bits (quintic, powers 2, 3 and 5, grades up to 12)', () => {
-    const grades = Array.from({ length: 13 }, (_, w) => termsOfGrade(5, [2, 3, 5], w));
-    fc.assert(
-      fc.property(fc.double({ min: 0, max: 0.25, noNaN: true }), fc.double({ min: 0, max: 0.15, noNaN: true }), fc.double({ min: 0, max: 0.08, noNaN: true }), (t2, t3, t5) => {
-        const f = facts([0, 0, t2, t3, 0, t5], 1, 2);
-        grades.forEach((terms, w) => {
-          addGrade(f, terms, w);
-          let s = 0;
-          for (const term of terms) s = nextDown(s + termValue(f, term));
-          expect(Object.is(f.gradeSums[w], s)).toBe(true);
-        });
-      }),
-      { numRuns: 200 },
-    );
-  });
-
-  test('a pure power-3 grade of the cubic is the Fuss-Catalan number (A001764) times T3^k, rounded down', () => {
-    const T3 = 0.1;
-    const f = facts([0, 0, 0, T3], 1, 2);
-    A001764.forEach((c, k) => {
-      addGrade(f, termsOfGrade(3, [3], 2 * k), 2 * k);
-      const want = new D(c).times(exact(T3).pow(k));
-      const got = exact(f.gradeSums[2 * k]!);
-      expect(got.lte(want)).toBe(true);
-      expect(got.gte(want.times(1 - 2 * (k + 2) * 2 ** -52))).toBe(true);
-    });
-  });
-});
-
 describe('rootEnclosure', () => {
   test('holds x0 - r a for every r in its enclosure and every a with |a - 1| <= a(T) - 1 (decimal.js)', () => {
     fc.assert(
@@ -137,5 +108,71 @@ describe('rootEnclosure', () => {
     expect(e.lo).toBeCloseTo(-2.02e-6, 15);
     expect(e.hi).toBeCloseTo(-0.99e-6, 15);
     expect(e.hi).toBeLessThan(0); // the root's sign is known, as the sum form x0 - r -+ R (a(T) - 1) alone would also show here
+  });
+});
+
+describe('term layouts (the grade sums and the greedy choice over many cells)', () => {
+  /** H(m) = (sum k m_k)! / ((1 + sum (k - 1) m_k)! prod m_k!), the hyper-Catalan number (a fact of the trade), in decimal.js. */
+  const factorial = (n: number): Decimal => {
+    let f = new D(1);
+    for (let i = 2; i <= n; i++) f = f.times(i);
+    return f;
+  };
+  const hyperCatalan = (m: readonly number[]): Decimal => {
+    let top = 0;
+    let grade = 0;
+    let below = new D(1);
+    m.forEach((e, k) => {
+      if (k < 2) return;
+      top += k * e;
+      grade += (k - 1) * e;
+      below = below.times(factorial(e));
+    });
+    return factorial(top).div(factorial(1 + grade).times(below));
+  };
+
+  test('each laid-out value is termValue bit for bit, and a lower bound of H(m) T^m within the roundings of its products (decimal.js)', () => {
+    let s = 2463534242;
+    const next = (): number => (s = xorshift32(s)) / 2 ** 32;
+    for (const degree of [3, 4, 6]) {
+      const active = degree === 4 ? [2, 4] : Array.from({ length: degree - 1 }, (_, i) => i + 2);
+      for (let cell = 0; cell < 4; cell++) {
+        // T_k spread over several binades, as a cell's majorant arguments are.
+        const T = Array.from({ length: degree + 1 }, (_, k) => (k < 2 ? 0 : next() * 2 ** -(1 + Math.floor(6 * next()))));
+        const f = facts(T, 1, 2);
+        for (let grade = 0; grade <= 9; grade++) {
+          const terms = termsOfGrade(degree, active, grade);
+          const values = termValuesInto(f, termLayout(terms), new Float64Array(terms.length));
+          let sum = 0;
+          terms.forEach((term, t) => {
+            expect(Object.is(values[t], termValue(f, term))).toBe(true);
+            let x = hyperCatalan(term.m);
+            let products = 0;
+            term.m.forEach((e, k) => {
+              if (k >= 2 && e > 0) {
+                x = x.times(exact(T[k]!).pow(e));
+                products += e;
+              }
+            });
+            const v = exact(values[t]!);
+            expect(v.lte(x)).toBe(true);
+            // Each product rounds down by under 2 ulp (nextDown of the nearest), so (1 - 2^-51)^(n + 1) at worst.
+            expect(v.gte(x.times(new D(1).minus(new D(2).pow(-51)).pow(products + 1)))).toBe(true);
+            sum = addDown(sum, termValue(f, term));
+          });
+          addGrade(f, terms, grade);
+          expect(Object.is(f.gradeSums[grade], sum)).toBe(true);
+        }
+      }
+    }
+  });
+
+  test('a layout is kept per term list, and an empty grade sums to 0', () => {
+    const terms = termsOfGrade(5, [2, 3, 4, 5], 4);
+    expect(termLayout(terms)).toBe(termLayout(terms));
+    expect(termLayout([...terms])).not.toBe(termLayout(terms));
+    const f = facts([0, 0, 0.1, 0.1, 0.1, 0.1], 1, 2);
+    addGrade(f, [], 3);
+    expect(f.gradeSums[3]).toBe(0);
   });
 });

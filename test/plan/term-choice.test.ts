@@ -11,7 +11,7 @@
  */
 import { describe, expect, test } from '@jest/globals';
 import { Decimal } from 'decimal.js';
-import { greedyTerms } from '../../src/plan/term-choice.js';
+import { greedyTerms, termValueTable } from '../../src/plan/term-choice.js';
 import type { CellFacts } from '../../src/plan/cell-bound.js';
 import { termsUpToGrade } from '../../src/series/hyper-catalan.js';
 
@@ -85,5 +85,26 @@ describe('greedyTerms', () => {
   test('null when even the whole pool misses the allowance, or a cell does not converge', () => {
     expect(greedyTerms([cell(0.2, 1)], termsUpToGrade(2, [2], 3)!, () => 1e-12)).toBeNull();
     expect(greedyTerms([{ ...cell(0.1, 1), state: { kind: 'diverges', T: [0, 0, 0.3] } }], pool, () => 1)).toBeNull();
+  });
+
+  test('a term-value table shared across allowances (forms/greedy.ts) gives the choice each allowance gets alone', () => {
+    // Three cells of the quartic t2, t3 mix (two active powers), pool up to grade 8.
+    const quartic = termsUpToGrade(3, [2, 3], 8)!;
+    // aUpper: the pool's own sum and a little more, so that tails reach every allowance below (a(T) itself is not needed here).
+    const mixed = (T2: number, T3: number): CellFacts => {
+      const c: CellFacts = { ...cell(T2, 1), T: [0, 0, T2, T3], Q: [0, 0, T2, T3] };
+      const sum = termValueTable([c], quartic)[0]!.reduce((a, b) => a + b, 0);
+      return { ...c, aUpper: sum * (1 + 1e-9) };
+    };
+    const cells = [mixed(0.05, 0.01), mixed(0.02, 0.04), mixed(0.08, 0.002)];
+    const table = termValueTable(cells, quartic);
+    expect(table.map((row) => row.length)).toEqual([quartic.length, quartic.length, quartic.length]);
+    for (const allowed of [1e-1, 1e-2, 1e-3, 3e-4]) {
+      const alone = greedyTerms(cells, quartic, () => allowed);
+      const shared = greedyTerms(cells, quartic, () => allowed, table);
+      expect(shared).toEqual(alone);
+    }
+    // The allowance matters: a looser one keeps fewer terms (else the check above compares nothing).
+    expect(greedyTerms(cells, quartic, () => 1e-1, table)!.terms.length).toBeLessThan(greedyTerms(cells, quartic, () => 1e-3, table)!.terms.length);
   });
 });

@@ -9,7 +9,7 @@
 import { evaluate } from '../evaluate.js';
 import { planOf } from '../plan-of.js';
 import { seriesProgram, type AnalysisProgram } from '../series-program.js';
-import { greedyTerms } from '../term-choice.js';
+import { greedyTerms, termValueTable } from '../term-choice.js';
 import { GREEDY } from '../tuning.js';
 import type { SeriesTerm } from '../../series/hyper-catalan.js';
 import type { Plan } from '../types.js';
@@ -24,9 +24,11 @@ export function greedyPlan(ctx: FormContext, series: Plan): Plan | null {
   if (!drawn) return null;
   // The note says what the terms were drawn from: every term up to `grade`, not up to the highest kept one.
   const note = `the kept terms are chosen greedily, largest majorant contribution first, from every term up to grade ${grade} (the truncation bound below is for exactly these terms)`;
+  // The cells' term values do not depend on the share: computed once (greedyTerms refuses cells that do not converge).
+  const table = cells.every((c) => c.state.kind === 'ok') ? termValueTable(cells, drawn) : undefined;
   for (const share of GREEDY.truncationShares) {
     const room = Math.max(0, 1 - series.bound.rounding / target) * share;
-    const choice = greedyTerms(cells, drawn, (c) => (relative ? target * c.rootMin : target) * room);
+    const choice = greedyTerms(cells, drawn, (c) => (relative ? target * c.rootMin : target) * room, table);
     if (!choice || choice.terms.length >= series.terms.length) return null;
     const tails = new Map(cells.map((c, i) => [c, choice.tails[i]!]));
     const program = seriesProgram(family, expansion, choice.terms);
