@@ -39,7 +39,10 @@ export function rootAt(family: Family, point: readonly Rational[]): Rational {
   // The sign change is checked exactly at the bracket ends; inside, float64
   // bisection is enough: the expansion point need not be the exact root
   // (DESIGN.md 1.4), only a number of the target format near it.
-  const root = signAt(c, lo) * signAt(c, hi) > 0 ? null : bisectNear(c, lo, hi);
+  // Each end's exact sign once: bisectNear starts from the same two (exact Horner sums of the whole polynomial).
+  const sLo = signAt(c, lo);
+  const sHi = signAt(c, hi);
+  const root = sLo * sHi > 0 ? null : bisectNear(c, lo, hi, sLo, sHi);
   if (root === null) {
     throw new RootcastError(
       `the polynomial has no sign change on the bracket at ${pointText(family, point)}; widen or move the bracket so it holds exactly one simple root for every input`,
@@ -75,8 +78,8 @@ function coefficientAt(family: Family, k: number, e: Expr, point: readonly Ratio
   }
 }
 
-/** Bisection with float64 signs between ends whose exact signs differ; returns the final midpoint. */
-function bisectNear(c: readonly Rational[], lo: Rational, hi: Rational): Rational {
+/** Bisection with float64 signs between ends whose exact signs (sa at lo, sb at hi) differ; returns the final midpoint. */
+function bisectNear(c: readonly Rational[], lo: Rational, hi: Rational, sa: -1 | 0 | 1, sb: -1 | 0 | 1): Rational {
   // Horner's rule from the top coefficient, as reduceRight from 0 did. A Float64Array: the
   // plain arrays were of two element kinds (small integers or doubles), and the second one
   // seen deoptimised the optimised code.
@@ -88,9 +91,8 @@ function bisectNear(c: readonly Rational[], lo: Rational, hi: Rational): Rationa
   };
   let a = lo.toNumber();
   let b = hi.toNumber();
-  const sa = signAt(c, lo);
   if (sa === 0) return lo;
-  if (signAt(c, hi) === 0) return hi;
+  if (sb === 0) return hi;
   for (let i = 0; i < 200; i++) {
     const m = a + (b - a) / 2;
     if (m <= a || m >= b) break;
