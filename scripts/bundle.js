@@ -91,6 +91,22 @@ const LAZY_ASSERT = [
   '',
 ].join('\n');
 
+/**
+ * Where the installed yargs keeps its translations. Node's resolution of
+ * 'yargs' from the bundle (dist/) looks first in the package's own
+ * node_modules; that one directory is checked with one stat, and only when it
+ * is absent (yargs hoisted above the package) is the resolution asked, which
+ * costs about 5 ms of every start. `__dirname` is the shim's name for the
+ * bundle file's own path.
+ */
+const YARGS_LOCALES = [
+  'const yargsLocales = () => {',
+  "  const own = resolve(__dirname, '../../node_modules/yargs/locales');",
+  "  return require('node:fs').existsSync(own) ? own : resolve(require.resolve('yargs'), '../locales');",
+  '};',
+  '',
+].join('\n');
+
 /** yargs' ESM shim: the translations directory from the installed package, not from the bundle's place; node:assert, cliui and string-width on demand. */
 const yargsShim = {
   name: 'yargs-shim',
@@ -100,7 +116,8 @@ const yargsShim = {
     b.onLoad({ filter: /[\\/]yargs[\\/]lib[\\/]platform-shims[\\/]esm\.mjs$/ }, async (args) => {
       const { readFile } = await import('node:fs/promises');
       let text = await readFile(args.path, 'utf8');
-      text = patch(text, "directory: resolve(__dirname, '../../../locales')", "directory: resolve(require.resolve('yargs'), '../locales')", args.path);
+      text = patch(text, "directory: resolve(__dirname, '../../../locales')", 'directory: yargsLocales()', args.path);
+      text = patch(text, "const require = createRequire(import.meta.url);\n", `const require = createRequire(import.meta.url);\n${YARGS_LOCALES}`, args.path);
       text = patch(text, "import { notStrictEqual, strictEqual } from 'assert'\n", LAZY_ASSERT, args.path);
       text = patch(text, "import cliui from 'cliui'\n", '', args.path);
       text = patch(text, "import stringWidth from 'string-width';\n", "import { lazyCliui, lazyStringWidth } from 'rootcast-lazy-layout';\n", args.path);

@@ -14,7 +14,7 @@
  * emitted beside it. Output stays deterministic: every field is a function of
  * the spec, the generator version and the file.
  */
-import { createHash } from 'node:crypto';
+import { sha256Hex } from '../math/sha256.js';
 
 export const STAMP_KEY = 'rootcast-stamp:';
 const PENDING = '0'.repeat(64);
@@ -68,5 +68,5 @@ export function readStamp(text: string): { stamp: Stamp; intact: boolean } | nul
 /** SHA-256 of the text without the line at [start, start + length) and its newline. */
 function contentHash(text: string, start: number, length: number): string {
   const end = text[start + length] === '\n' ? start + length + 1 : start + length;
-  return createHash('sha256').update(text.slice(0, start)).update(text.slice(end)).digest('hex');
+  return sha256Hex(text.slice(0, start), text.slice(end));
 }

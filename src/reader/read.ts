@@ -6,9 +6,9 @@
  * Fields are checked in a fixed order (names first, since expressions refer
  * to them), so the same spec always gets the same first refusal.
  */
-import { createHash } from 'node:crypto';
 import type { SpecContext } from './context.js';
 import { printExpr } from '../family/expr-print.js';
+import { sha256Hex } from '../math/sha256.js';
 import { inputsUsed } from '../family/expr-uses.js';
 import { NameTable } from './name-table.js';
 import { readChoice, readName, readWholeNumber } from './scalars.js';
@@ -96,11 +96,14 @@ export function readSpec(file: string, text: string, bytes?: Uint8Array): Family
     ? readChoice(ctx, valueOf(ctx, outside, 'extrapolate or saturate (or remove the field for extrapolate)'), 'inputs_outside_box', OUTSIDE_BOX).value
     : 'extrapolate';
 
+  const hashed = bytes ?? new TextEncoder().encode(text);
+  let specHash: string | undefined;
   return {
     file,
-    specHash: createHash('sha256')
-      .update(bytes ?? new TextEncoder().encode(text))
-      .digest('hex'),
+    // Hashed when first read (plan --json, emit): a plan printed as text never reads it, and then never loads node:crypto.
+    get specHash(): string {
+      return (specHash ??= sha256Hex(hashed));
+    },
     functionName,
     unknown,
     degree,
