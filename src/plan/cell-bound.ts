@@ -103,22 +103,22 @@ export function cellFacts(ap: AnalysisProgram, degree: number, cell: Cell, x0: n
 
 /**
  * Lower bounds of |t_k| = |r|^(k-1) |q_k| at one input point (a cell of zero
- * width), indexed by power: the least magnitudes of the same enclosures of r
- * and q_k that cellFacts bounds from above, rounded down. Every cell holding
+ * width), indexed by power: the least magnitudes of the interval enclosures
+ * of r and q_k that cellFacts bounds from above, rounded down. Every cell holding
  * the point has T_k >= these. Null where the enclosure of c'1 there reaches
  * zero or is unbounded.
  */
 export function pointLowerT(ap: AnalysisProgram, degree: number, pointCell: Cell, segment: number): number[] | null {
+  // At a point interval arithmetic meets no dependency, only rounding: the Bernstein enclosures add nothing there.
   const an = analyseFlat(ap.program, pointCell, segment);
-  const tight = tightRatios(ap, ap.c1 !== null ? valueOf(an, ap.c1) : null, pointCell, segment);
   if (ap.c1 !== null) {
-    const v = tight.c1!;
+    const v = valueOf(an, ap.c1);
     if (!Number.isFinite(v.lo) || !Number.isFinite(v.hi) || containsZero(v)) return null;
   }
-  const rLeast = mig(tight.ratio(0, valueOf(an, ap.r)));
+  const rLeast = mig(valueOf(an, ap.r));
   const T = doubleZeros(degree + 1);
   // Rounding 0 down gives -2^-1074: a magnitude's lower bound is at least 0.
-  for (const [k, ref] of ap.q) T[k] = Math.max(0, mulDown(powDown(rLeast, k - 1), mig(tight.ratio(k, valueOf(an, ref)))));
+  for (const [k, ref] of ap.q) T[k] = Math.max(0, mulDown(powDown(rLeast, k - 1), mig(valueOf(an, ref))));
   return T;
 }
 

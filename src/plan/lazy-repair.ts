@@ -223,10 +223,17 @@ class LazyTree {
   /**
    * Whether a cell split `splits` times may be too small (CellSet.tooSmall: narrower than
    * SUBDIVISION.minFraction of the box in every input). A split halves one input's width,
-   * within rounding: the factor 2 is far beyond it.
+   * within rounding: each input needs about log2(width / least) halvings, counted here with a
+   * factor 2 to spare (far beyond rounding), and the splits must cover them all.
    */
   private mayGetTooSmall(c: Cell, splits: number): boolean {
-    return c.every((iv, i) => iv.hi - iv.lo <= 2 * 2 ** splits * SUBDIVISION.minFraction * (this.rc.box[i]!.hi - this.rc.box[i]!.lo));
+    let needed = 0;
+    c.forEach((iv, i) => {
+      const least = SUBDIVISION.minFraction * (this.rc.box[i]!.hi - this.rc.box[i]!.lo);
+      const ratio = (iv.hi - iv.lo) / (2 * least);
+      if (ratio > 1) needed += Math.ceil(Math.log2(ratio)) - 1;
+    });
+    return needed <= splits;
   }
 
   /** The diverging leaf of the largest ratio, the first in order among equals: best first, each cell's ratio bounding its leaves'. */
