@@ -183,6 +183,8 @@ export function polishBound(
   programs: { readonly core: Program; readonly steps: readonly Program[] } | null,
   stopAbove = Infinity,
   first: CellFacts | null = null,
+  /** The cell's truncation bound at an order (cellTail; the polished form's fills the sums a cell still lacks first). */
+  tail: (c: CellFacts, order: number) => number = cellTail,
 ): PolishBound & { readonly stoppedAt: CellFacts | null } {
   const worst = new WorstParts(relative);
   // Counted as evaluate counts a program's analysis: nodes times cells (the Newton-only pass, one unit per step and cell).
@@ -196,7 +198,7 @@ export function polishBound(
     if (c.state.kind !== 'ok') throw new PolishFailure('diverges', c);
     // float32 bounds allow for flushed subnormals, as the series bounds do (one bound for CPUs and GPUs).
     const ftz = programs ? ARITHMETICS[programs.core.arithmetic].boundsAllowFlush : false;
-    let err = cellTail(c, order);
+    let err = tail(c, order);
     if (programs) err = addUp(err, checked(analyseFlat(programs.core, c.cell, c.segment, ftz), programs.core, c));
     const spread = mulUp(c.R, Math.max(0, addUp(c.aUpper, -1)));
     let quad = 0;

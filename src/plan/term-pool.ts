@@ -13,7 +13,7 @@
  * the work is counted when the grade is built, as the eager build counts it.
  */
 import { termsOfGrade, type SeriesTerm } from '../series/hyper-catalan.js';
-import { addGrade, type CellFacts } from './cell-bound.js';
+import { addGrade, cellTail, type CellFacts } from './cell-bound.js';
 import type { CellSet } from './cell-set.js';
 import { LIMITS } from './tuning.js';
 import { spend } from './work.js';
@@ -75,6 +75,12 @@ export class TermPool {
     if (last < this.settled) return;
     for (const c of this.set.cells) this.fill(c, last);
     this.settled = last + 1;
+  }
+
+  /** One of the set's cells' truncation bound at `order` (cellTail), after adding to its sums the grades up to `order` it still lacks. */
+  tailOf(c: CellFacts, order: number): number {
+    this.fill(c, Math.min(order, this.counted - 1));
+    return cellTail(c, order);
   }
 
   /** Every term up to grade `w`, building grades as needed; null past LIMITS.terms. */

@@ -33,6 +33,8 @@ export function polishedPlans(ctx: FormContext, found: FoundPlans): Plan[] {
   const upTo = Math.min(family.plan.maxOrder, pool.grades - 1);
   const maxOrder = knob !== 'auto' ? upTo : series ? series.order - 1 : upTo;
   const cells = ctx.set.cells;
+  // The order search may have left grades out of some cells' sums (term-pool.ts): each cell bounded gets them here.
+  const tail = (c: CellFacts, n: number): number => pool.tailOf(c, n);
   const out: Plan[] = [];
   // With plan.newton_steps fixed, the best miss: the floor quoted when no plan with those steps meets the target.
   let best: { total: number; rounding: number } | null = null;
@@ -50,11 +52,9 @@ export function polishedPlans(ctx: FormContext, found: FoundPlans): Plan[] {
   for (const k of stepCounts) {
     if (k !== Math.min(...stepCounts) && floorCost(k) >= toBeat) continue;
     for (let n = 0; n <= maxOrder; n++) {
-      // The order search may have left grades out of some cells' sums (term-pool.ts): add those up to n.
-      pool.settle(n);
       let cheap;
       try {
-        cheap = polishBound(cells, n, k, relative, null, target, hint);
+        cheap = polishBound(cells, n, k, relative, null, target, hint, tail);
       } catch (e) {
         if (e instanceof PolishFailure) continue;
         throw e;
@@ -68,7 +68,7 @@ export function polishedPlans(ctx: FormContext, found: FoundPlans): Plan[] {
       let full;
       try {
         const programs = { core: coreProgram(family, expansion, terms), steps: Array.from({ length: k }, (_, j) => stepProgram(family, expansion, j === k - 1)) };
-        full = polishBound(cells, n, k, relative, programs);
+        full = polishBound(cells, n, k, relative, programs, Infinity, null, tail);
       } catch (e) {
         // No bound, or a series constant beyond the arithmetic's range: higher orders cannot help.
         if (e instanceof PolishFailure || e instanceof ConstantOverflowError) break;

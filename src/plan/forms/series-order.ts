@@ -81,23 +81,32 @@ export function seriesOrderPlan(ctx: FormContext): Plan {
   let floor = false;
   let lastRounding = 0;
   let nextBar = Infinity;
-  // At the floor, the cell whose bound was the largest at the last order looked at in full (witness):
-  // see the climb below.
+  // The cell whose bound was the largest at the last order looked at in full (witness), while the
+  // cells stay as they are (no refinement since): see the climb below.
   let witness: CellFacts | null = null;
   const floorBar = (): number => Math.min(nextBar, lastRounding, misses.best?.total ?? Infinity, misses.oversize?.total ?? Infinity);
   for (let order = 0; order <= family.plan.maxOrder; order++) {
-    if (floor && witness) {
-      // At the floor an order is looked at only where the truncation bound falls below the bar.
-      // That bound is the largest of the cells' bounds (CellSet.truncation), so while the witness's
-      // own bound stays at or above the bar, no order is: the grade is built and counted as always
-      // (TermPool.nextGradeFor), but added to the witness's sums alone; the other cells get it when
-      // their sums are read (TermPool.settle). The same orders are weighed, with the same units.
+    if (witness && (floor || refine)) {
+      // An order is passed over, neither refined for nor weighed, where the truncation bound is at or
+      // above a bar: at the floor the floor's bar, else refineBelow times the target (above the window
+      // of refinement and above the target). That bound is the largest of the cells' bounds
+      // (CellSet.truncation; none is NaN: a cell without a bound has Infinity), so while the witness's
+      // own bound is at or above the bar, the order is passed over: its grade is built and counted as
+      // always (TermPool.nextGradeFor) but added to the witness's sums alone; the other cells get it
+      // when their sums are read (TermPool.settle, tailOf). The same orders, the same units.
       if (!pool.nextGradeFor(order, witness)) break;
-      if (!(set.cellBound(witness, order, relative) < floorBar())) continue;
+      const bound = set.cellBound(witness, order, relative);
+      if (floor ? !(bound < floorBar()) : bound > target && bound >= target * ORDER_SEARCH.refineBelow) continue;
       pool.settle();
     } else if (!pool.nextGrade(order)) break;
     let trunc = set.truncation(order, relative);
+    if (!floor && refine && trunc > target && trunc >= target * ORDER_SEARCH.refineBelow) {
+      witness = set.worstCell(order, relative);
+      continue;
+    }
     if (refine && trunc > target * ORDER_SEARCH.refineAbove && trunc < target * ORDER_SEARCH.refineBelow) {
+      // Refinement below replaces cells: a witness must be one of the cells.
+      witness = null;
       if (!probed) {
         probed = true;
         const probe = floorInReach(ctx) ? floorProbe(ctx, order) : null;
@@ -141,8 +150,16 @@ export function seriesOrderPlan(ctx: FormContext): Plan {
   let order = pool.grades;
   try {
     for (; order <= LIMITS.grade && workUsed() < huntEnd; order++) {
-      if (!pool.nextGrade(order)) break;
-      if (set.truncation(order, relative) > target) continue;
+      // As in the climb: the truncation bound is at least the witness's, so the order is passed over.
+      if (witness) {
+        if (!pool.nextGradeFor(order, witness)) break;
+        if (set.cellBound(witness, order, relative) > target) continue;
+        pool.settle();
+      } else if (!pool.nextGrade(order)) break;
+      if (set.truncation(order, relative) > target) {
+        witness = set.worstCell(order, relative);
+        continue;
+      }
       const program = programOf(ctx);
       const evaluated = evaluate(family, program, set.cells, (c) => cellTail(c, order), relative);
       // Either quote would fail if this program's tables did not fit: refuse at the table then.

@@ -130,11 +130,8 @@ describe('below the rounding floor (float32, absolute 1e-9: half an ulp of x nea
   });
 });
 
-describe('the climb at the floor builds a grade for the worst cell alone while its bound stays at the bar (TermPool.nextGradeFor)', () => {
-  const family = quadraticFamily({ accuracy: 'absolute: 1e-9', arithmetic: 'float32' });
-
-  /** The form's refusal and units, with the climb as it is, or with every grade built for every cell (the eager reference). */
-  function refuse(eager: boolean): { message: string; units: number; ctx: ReturnType<typeof oneBoxContext>; waiting: number[] } {
+/** The form's outcome (plan or refusal) and units, with the climb as it is, or with every grade built for every cell (the eager reference). */
+function climb(family: ReturnType<typeof quadraticFamily>, eager: boolean): { message: string; units: number; ctx: ReturnType<typeof oneBoxContext>; waiting: number[] } {
     startWork();
     const ctx = oneBoxContext(family);
     const { pool, set } = ctx;
@@ -143,19 +140,25 @@ describe('the climb at the floor builds a grade for the worst cell alone while i
     const forOne = pool.nextGradeFor.bind(pool);
     pool.nextGradeFor = (grade, cell) => {
       const built = eager ? pool.nextGrade(grade) : forOne(grade, cell);
-      waiting.push(set.cells.filter((c) => c.gradeSums.length < pool.grades).length);
+      // Recorded as the cells that lack it less the cells there are then: -1 when only the named cell has it.
+      waiting.push(set.cells.filter((c) => c.gradeSums.length < pool.grades).length - set.cells.length);
       return built;
     };
     let message = '';
     try {
-      seriesOrderPlan(ctx);
+      const p = seriesOrderPlan(ctx);
+      message = `order ${p.order}, bound ${p.bound.total}`;
     } catch (e) {
-      if (!(e instanceof QuotedFixRefusal)) throw e;
+      if (!(e instanceof RootcastError)) throw e;
       message = e.message;
     }
     checkWork();
     return { message, units: workUsed(), ctx, waiting };
-  }
+}
+
+describe('the climb at the floor builds a grade for the worst cell alone while its bound stays at the bar (TermPool.nextGradeFor)', () => {
+  const family = quadraticFamily({ accuracy: 'absolute: 1e-9', arithmetic: 'float32' });
+  const refuse = (eager: boolean) => climb(family, eager);
 
   test('the same refusal, with the same units, as building every grade for every cell', () => {
     const lazy = refuse(false);
@@ -170,10 +173,27 @@ describe('the climb at the floor builds a grade for the worst cell alone while i
     const eager = refuse(true);
     const { pool, set } = lazy.ctx;
     expect(lazy.waiting.length).toBeGreaterThan(2);
-    expect(lazy.waiting.every((n) => n === set.cells.length - 1)).toBe(true);
-    expect(eager.waiting.every((n) => n === 0)).toBe(true);
+    expect(lazy.waiting.every((n) => n === -1)).toBe(true);
+    expect(eager.waiting.every((n) => n === -set.cells.length)).toBe(true);
     pool.settle();
     set.cells.forEach((c, i) => expect(c.gradeSums).toEqual(eager.ctx.set.cells[i]!.gradeSums));
     for (let order = 0; order < pool.grades; order++) expect(set.truncation(order, false)).toBe(eager.ctx.set.truncation(order, false));
+  });
+});
+
+describe.each([
+  ['far above the target (float64, absolute 1e-12): the orders whose bound is over 1000 times the target', { accuracy: 'absolute: 1e-12' }, /^order \d+, bound /],
+  ['past plan.max_order 4 (float64, absolute 1e-12): the hunt for the order needed', { accuracy: 'absolute: 1e-12', plan: ['max_order: 4'] }, /needs order \d+|order/],
+])('the climb %s: the worst cell alone while its bound passes the order over', (_, spec, outcome) => {
+  const family = quadraticFamily(spec);
+
+  test('the same outcome, with the same units, as building every grade for every cell; grades waited', () => {
+    const lazy = climb(family, false);
+    const eager = climb(family, true);
+    expect(lazy.message).toMatch(outcome);
+    expect(lazy.message).toBe(eager.message);
+    expect(lazy.units).toBe(eager.units);
+    expect(lazy.waiting.length).toBeGreaterThan(0);
+    expect(lazy.waiting.every((n) => n === -1)).toBe(true);
   });
 });
