@@ -174,7 +174,25 @@ export class CellSet {
     return worst;
   }
 
-  private cellBound(c: CellFacts, order: number, relative: boolean): number {
+  /**
+   * A cell whose bound is the largest at `order` (the first such), or null
+   * for no cells: one cell's bound is a lower bound of `truncation`, which is
+   * their maximum (the order search at a rounding floor reads it first).
+   */
+  worstCell(order: number, relative: boolean): CellFacts | null {
+    let worst: CellFacts | null = null;
+    let most = -Infinity;
+    for (const c of this.cells) {
+      const b = this.cellBound(c, order, relative);
+      if (b > most) {
+        most = b;
+        worst = c;
+      }
+    }
+    return worst;
+  }
+
+  cellBound(c: CellFacts, order: number, relative: boolean): number {
     const t = cellTail(c, order);
     return relative ? divUp(t, c.rootMin) : t;
   }

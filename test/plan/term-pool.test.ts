@@ -6,7 +6,9 @@
  * terms of grade w are t2^m2 t3^m3 with m2 + 2 m3 = w, so floor(w / 2) + 1 of
  * them (counted by hand); for the quadratic alone the grade-k sum is
  * C_k T^k, C_k the Catalan numbers (OEIS A000108: 1, 1, 2, 5, 14, 42; from
- * memory), here with T = |r q2| <= 0.1 * 1 on s in [0.5, 1].
+ * memory), here with T = |r q2| <= 0.1 * 1 on s in [0.5, 1]. The sums of the
+ * cubic are checked against the hyper-Catalan numbers' factorial formula
+ * H(m2, m3) = (2 m2 + 3 m3)! / ((1 + m2 + 2 m3)! m2! m3!) summed in decimal.js.
  */
 import { describe, expect, test } from '@jest/globals';
 import { TermPool } from '../../src/plan/term-pool.js';
@@ -14,6 +16,8 @@ import { CellSet } from '../../src/plan/cell-set.js';
 import { analysisProgram } from '../../src/plan/series-program.js';
 import { Rational } from '../../src/math/rational.js';
 import { quadraticFamily } from './support/quadratic.js';
+import { checkWork, startWork, workUsed } from '../../src/plan/work.js';
+import { Decimal } from 'decimal.js';
 
 const spec = (c3: string | null) => quadraticFamily(c3 ? { c3 } : {});
 const oneBox = { segmentation: { parts: [], segments: 1 }, x0: [Rational.ZERO] };
@@ -62,6 +66,60 @@ describe('TermPool', () => {
     for (const c of set.cells) {
       expect(c.gradeSums).toHaveLength(5);
       C.forEach((ck, k) => expect(c.gradeSums[k]!).toBeLessThanOrEqual(ck * c.T[2]! ** k * (1 + 2 ** -50)));
+    }
+  });
+});
+
+describe('TermPool: a grade built for one cell (nextGradeFor), the others settled later', () => {
+  /** Builds grades 0..5 of the cubic (active powers 2 and 3), 2..5 for `cell` alone when lazy; returns the units counted. */
+  function build(lazy: boolean): { pool: TermPool; set: CellSet; units: number } {
+    startWork();
+    const { pool, set } = poolOf('0.01', [2, 3]);
+    pool.nextGrade(0);
+    pool.nextGrade(1);
+    for (let w = 2; w <= 5; w++) {
+      if (lazy) pool.nextGradeFor(w, set.cells[1]!);
+      else pool.nextGrade(w);
+    }
+    // The exact work done since the last spend is counted by the next one (work.ts).
+    checkWork();
+    return { pool, set, units: workUsed() };
+  }
+
+  test('counts the same units as building the grade for every cell', () => {
+    // H(m)'s lower bound is computed once per term (cell-bound.ts hDown) and counted as exact work: the
+    // lazy build computes it for its one cell, as the eager build does for its first.
+    expect(build(true).units).toBe(build(false).units);
+  });
+
+  test('only the named cell has the new grades; settle(n) adds grades up to n to the others, settle() the rest', () => {
+    const { pool, set } = build(true);
+    expect(set.cells[1]!.gradeSums).toHaveLength(6);
+    expect(set.cells[0]!.gradeSums).toHaveLength(2);
+    pool.settle(3);
+    expect(set.cells[0]!.gradeSums).toHaveLength(4);
+    pool.settle(1);
+    expect(set.cells[0]!.gradeSums).toHaveLength(4);
+    pool.settle();
+    expect(set.cells[0]!.gradeSums).toHaveLength(6);
+  });
+
+  test('the settled sums are the eager ones, bit for bit, and each is about sum H(m) T2^m2 T3^m3 (hyper-Catalan numbers by their factorial formula, decimal.js)', () => {
+    const lazy = build(true);
+    lazy.pool.settle();
+    const eager = build(false);
+    lazy.set.cells.forEach((c, i) => expect(c.gradeSums).toEqual(eager.set.cells[i]!.gradeSums));
+    // H(m2, m3) = (2 m2 + 3 m3)! / ((1 + m2 + 2 m3)! m2! m3!) (the hyper-Catalan numbers' closed form, a fact of the trade).
+    const fact = (n: number): Decimal => (n <= 1 ? new Decimal(1) : fact(n - 1).times(n));
+    const H = (m2: number, m3: number): Decimal => fact(2 * m2 + 3 * m3).div(fact(1 + m2 + 2 * m3).times(fact(m2)).times(fact(m3)));
+    for (const c of lazy.set.cells) {
+      for (let w = 0; w <= 5; w++) {
+        let sum = new Decimal(0);
+        for (let m3 = 0; 2 * m3 <= w; m3++) sum = sum.plus(H(w - 2 * m3, m3).times(new Decimal(c.T[2]!).pow(w - 2 * m3)).times(new Decimal(c.T[3]!).pow(m3)));
+        // A lower bound, each product and sum rounded down (at most a few dozen roundings of 2^-52 each).
+        expect(c.gradeSums[w]!).toBeLessThanOrEqual(sum.toNumber() * (1 + 2 ** -50));
+        expect(c.gradeSums[w]!).toBeGreaterThanOrEqual(sum.toNumber() * (1 - 2 ** -45));
+      }
     }
   });
 });

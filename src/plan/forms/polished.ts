@@ -50,6 +50,8 @@ export function polishedPlans(ctx: FormContext, found: FoundPlans): Plan[] {
   for (const k of stepCounts) {
     if (k !== Math.min(...stepCounts) && floorCost(k) >= toBeat) continue;
     for (let n = 0; n <= maxOrder; n++) {
+      // The order search may have left grades out of some cells' sums (term-pool.ts): add those up to n.
+      pool.settle(n);
       let cheap;
       try {
         cheap = polishBound(cells, n, k, relative, null, target, hint);

@@ -10,7 +10,7 @@
  * (floorInReach): there the bound is still computed, as the rounding floor
  * it finds, with the table bytes, is the more actionable refusal.
  */
-import { cellTail } from '../cell-bound.js';
+import { cellTail, type CellFacts } from '../cell-bound.js';
 import { addUp } from '../../math/directed.js';
 import { ARITHMETICS } from '../../family/arithmetic.js';
 import { evaluate, type Evaluated } from '../evaluate.js';
@@ -81,8 +81,21 @@ export function seriesOrderPlan(ctx: FormContext): Plan {
   let floor = false;
   let lastRounding = 0;
   let nextBar = Infinity;
+  // At the floor, the cell whose bound was the largest at the last order looked at in full (witness):
+  // see the climb below.
+  let witness: CellFacts | null = null;
+  const floorBar = (): number => Math.min(nextBar, lastRounding, misses.best?.total ?? Infinity, misses.oversize?.total ?? Infinity);
   for (let order = 0; order <= family.plan.maxOrder; order++) {
-    if (!pool.nextGrade(order)) break;
+    if (floor && witness) {
+      // At the floor an order is looked at only where the truncation bound falls below the bar.
+      // That bound is the largest of the cells' bounds (CellSet.truncation), so while the witness's
+      // own bound stays at or above the bar, no order is: the grade is built and counted as always
+      // (TermPool.nextGradeFor), but added to the witness's sums alone; the other cells get it when
+      // their sums are read (TermPool.settle). The same orders are weighed, with the same units.
+      if (!pool.nextGradeFor(order, witness)) break;
+      if (!(set.cellBound(witness, order, relative) < floorBar())) continue;
+      pool.settle();
+    } else if (!pool.nextGrade(order)) break;
     let trunc = set.truncation(order, relative);
     if (refine && trunc > target * ORDER_SEARCH.refineAbove && trunc < target * ORDER_SEARCH.refineBelow) {
       if (!probed) {
@@ -104,7 +117,10 @@ export function seriesOrderPlan(ctx: FormContext): Plan {
       }
     }
     if (floor) {
-      if (!(trunc < Math.min(nextBar, lastRounding, misses.best?.total ?? Infinity, misses.oversize?.total ?? Infinity))) continue;
+      if (!(trunc < floorBar())) {
+        witness = set.worstCell(order, relative);
+        continue;
+      }
     } else if (trunc > target || (!refine && addUp(trunc, lastRounding) > target)) continue;
     const program = programOf(ctx);
     tableFirst(program);

@@ -19,6 +19,7 @@ import { QuotedFixRefusal } from '../../../src/plan/refusals.js';
 import { ORDER_SEARCH } from '../../../src/plan/tuning.js';
 import { seriesProgram } from '../../../src/plan/series-program.js';
 import { exactDecimal } from '../../support/exact-decimal.js';
+import { checkWork, startWork, workUsed } from '../../../src/plan/work.js';
 import { oneBoxContext } from '../support/form-context.js';
 import { CATALAN, catalan, catalanPartialSum, quadraticFamily, quadraticRoot } from '../support/quadratic.js';
 
@@ -126,5 +127,53 @@ describe('below the rounding floor (float32, absolute 1e-9: half an ulp of x nea
       const err = exact(run(plan.program, [fs])).minus(quadraticRoot(exact(fs))).abs();
       if (err.gt(plan.bound.total)) throw new Error(`measured ${err.toExponential(3)} > bound ${plan.bound.total} at s = ${fs}`);
     }
+  });
+});
+
+describe('the climb at the floor builds a grade for the worst cell alone while its bound stays at the bar (TermPool.nextGradeFor)', () => {
+  const family = quadraticFamily({ accuracy: 'absolute: 1e-9', arithmetic: 'float32' });
+
+  /** The form's refusal and units, with the climb as it is, or with every grade built for every cell (the eager reference). */
+  function refuse(eager: boolean): { message: string; units: number; ctx: ReturnType<typeof oneBoxContext>; waiting: number[] } {
+    startWork();
+    const ctx = oneBoxContext(family);
+    const { pool, set } = ctx;
+    // After each grade built for one cell: how many cells lack it.
+    const waiting: number[] = [];
+    const forOne = pool.nextGradeFor.bind(pool);
+    pool.nextGradeFor = (grade, cell) => {
+      const built = eager ? pool.nextGrade(grade) : forOne(grade, cell);
+      waiting.push(set.cells.filter((c) => c.gradeSums.length < pool.grades).length);
+      return built;
+    };
+    let message = '';
+    try {
+      seriesOrderPlan(ctx);
+    } catch (e) {
+      if (!(e instanceof QuotedFixRefusal)) throw e;
+      message = e.message;
+    }
+    checkWork();
+    return { message, units: workUsed(), ctx, waiting };
+  }
+
+  test('the same refusal, with the same units, as building every grade for every cell', () => {
+    const lazy = refuse(false);
+    const eager = refuse(true);
+    expect(lazy.message).toMatch(/below the float32 rounding floor/);
+    expect(lazy.message).toBe(eager.message);
+    expect(lazy.units).toBe(eager.units);
+  });
+
+  test('some grades were left out of the other cells, and settling them gives the eager sums and truncation bounds', () => {
+    const lazy = refuse(false);
+    const eager = refuse(true);
+    const { pool, set } = lazy.ctx;
+    expect(lazy.waiting.length).toBeGreaterThan(2);
+    expect(lazy.waiting.every((n) => n === set.cells.length - 1)).toBe(true);
+    expect(eager.waiting.every((n) => n === 0)).toBe(true);
+    pool.settle();
+    set.cells.forEach((c, i) => expect(c.gradeSums).toEqual(eager.ctx.set.cells[i]!.gradeSums));
+    for (let order = 0; order < pool.grades; order++) expect(set.truncation(order, false)).toBe(eager.ctx.set.truncation(order, false));
   });
 });
