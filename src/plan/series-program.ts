@@ -112,7 +112,8 @@ function buildPrefix(b: ProgramBuilder, s: SeriesSetup): Prefix {
  */
 export function finishProgram(family: Family, e: Expansion, b: ProgramBuilder, p: Prefix, result: Ref): Program {
   const { program, map } = b.finishMapped(result);
-  const marks = p.marks.map((m) => ({ ...m, at: map[m.ref] ?? -1 })).filter((m) => m.at >= 0);
+  // Fields written out, not spread: a spread copy got a map of its own each time (src/series/recenter.ts shiftedPolys).
+  const marks = p.marks.map((m) => ({ ref: m.ref, kind: m.kind, j: m.j, at: map[m.ref] ?? -1 })).filter((m) => m.at >= 0);
   if (marks.length === 0) return program;
   const ranges = rangesFor(family, e);
   // Kept per cell (every candidate program is analysed on the same cells).

@@ -147,7 +147,9 @@ export function shiftedPolys(polys: readonly (MultiPoly | null)[], x0: Rational)
             v.c[k] = ck;
           }
         }
-        shifts = [...byKey.values()].map((v) => ({ ...v, s: shiftNumerators(v.c, x0) }));
+        // Written out, not spread ({ ...v, s }): V8 gave every spread copy a map of its own (thousands per plan,
+        // ease-in-out-y 2481), each made on the slow path, and the loops reading them went megamorphic.
+        shifts = [...byKey.values()].map((v) => ({ e: v.e, c: v.c, s: shiftNumerators(v.c, x0) }));
       }
       const list: [readonly number[], Rational][] = [];
       for (const v of shifts) if (v.s) list.push([v.e, shiftedValue(v.s, j)]);
