@@ -58,7 +58,7 @@ export interface CellFacts {
 /**
  * n zeros in an array of doubles: an array filled with 0 holds small integers until a
  * double is stored, and readers optimised for one of the two kinds deoptimised on the
- * other ("wrong map", termValue). Storing a double first fixes the kind; the values are +0.
+ * other ("wrong map", the term values). Storing a double first fixes the kind; the values are +0.
  */
 function doubleZeros(n: number): number[] {
   return new Array<number>(n).fill(0.5).fill(0);
@@ -125,7 +125,7 @@ export function pointLowerT(ap: AnalysisProgram, degree: number, pointCell: Cell
 /**
  * A copy of a cell's facts with empty grade sums, as one object literal in the
  * order of cellFacts' own: a spread copy had another hidden class, and the
- * optimised readers of facts (termValue, cellTail) deoptimised on it.
+ * optimised readers of facts (the grade sums, cellTail) deoptimised on it.
  */
 export function withEmptyGradeSums(f: CellFacts): CellFacts {
   return {
@@ -186,23 +186,15 @@ export function hDown(t: SeriesTerm): number {
   return v;
 }
 
-/** Lower bound of one term's majorant value H(m) T^m on a cell. */
-export function termValue(f: CellFacts, term: SeriesTerm): number {
-  let v = hDown(term);
-  for (let k = 2; k < term.m.length; k++) {
-    const e = term.m[k]!;
-    for (let j = 0; j < e; j++) v = mulDown(v, f.T[k]!);
-  }
-  return v;
-}
-
 /**
- * A list of terms laid out for termValue's loop over many cells: each term's
- * H(m) rounded down (`h`), and the powers k it multiplies by, k repeated m_k
- * times in increasing k (`powers`, term t's from `start[t]` to `start[t + 1]`).
- * Each cell's value of term t is then the same chain of products, in the same
- * order, as termValue's (bit for bit), without a WeakMap lookup of H(m) per
- * term and cell or the walk over zero exponents: the grade sums of every new
+ * A list of terms laid out for the majorant values H(m) T^m of many cells,
+ * each rounded down: each term's H(m) rounded down (`h`), and the powers k it
+ * multiplies by, k repeated m_k times in increasing k (`powers`, term t's from
+ * `start[t]` to `start[t + 1]`). A cell's value of term t is the chain
+ * h, then mulDown by T_k for each power in turn: the chain a walk of the
+ * exponent vector made per term and cell until session 11, bit for bit,
+ * without a WeakMap lookup of H(m) per term and cell or the walk over zero
+ * exponents: the grade sums of every new
  * cell (TermPool) and the greedy choice's table (term-choice.ts) were most of
  * the time of the corpus's high-order plans (random/106: addGrade 2.7 of 4.3 s).
  */
@@ -243,7 +235,7 @@ function layOut(terms: readonly SeriesTerm[]): TermLayout {
   return { h, start, powers };
 }
 
-/** Term t's majorant value on the cell (termValue's, bit for bit). */
+/** Lower bound of term t's majorant value H(m) T^m on a cell with majorant arguments T. */
 function laidOutValue(T: readonly number[], l: TermLayout, t: number): number {
   let v = l.h[t]!;
   const end = l.start[t + 1]!;
@@ -251,7 +243,7 @@ function laidOutValue(T: readonly number[], l: TermLayout, t: number): number {
   return v;
 }
 
-/** termValue of every term of a layout on the cell, in order, into `out`. */
+/** The lower bound of every term's majorant value on the cell, in the layout's order, into `out`. */
 export function termValuesInto(f: CellFacts, l: TermLayout, out: Float64Array): Float64Array {
   const T = f.T;
   for (let t = 0; t < l.h.length; t++) out[t] = laidOutValue(T, l, t);

@@ -21,7 +21,7 @@ export interface TermChoice {
 }
 
 /**
- * Each cell's termValue of every term of the pool (a row per cell, in the
+ * Each cell's lower bound of every pool term's majorant value H(m) T^m (a row per cell, in the
  * cells' order): the part of greedyTerms that does not depend on the
  * allowance, so greedy.ts computes it once for the truncation shares it tries
  * on one set of cells and one pool.
