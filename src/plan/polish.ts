@@ -174,6 +174,10 @@ export class PolishFailure extends Error {
  * after order, the pass ends there at once. A caller that only asks whether
  * the total exceeds `stopAbove`, or whether the pass fails, is told the same
  * in any order (the total is a maximum, and any cell's failure is a failure).
+ * With `roundingAbove` too, the pass stops only where the rounding part
+ * exceeds it as well: a caller that decides on both (the total above
+ * `stopAbove`, and then the rounding above `roundingAbove`, polished.ts) is
+ * told the same, since both are maxima and only grow cell by cell.
  */
 export function polishBound(
   cells: readonly CellFacts[],
@@ -185,6 +189,7 @@ export function polishBound(
   first: CellFacts | null = null,
   /** The cell's truncation bound at an order (cellTail; the polished form's fills the sums a cell still lacks first). */
   tail: (c: CellFacts, order: number) => number = cellTail,
+  roundingAbove = -Infinity,
 ): PolishBound & { readonly stoppedAt: CellFacts | null } {
   const worst = new WorstParts(relative);
   // Counted as evaluate counts a program's analysis: nodes times cells (the Newton-only pass, one unit per step and cell).
@@ -211,8 +216,9 @@ export function polishBound(
       err = addUp(quad, rnd);
     }
     worst.add(c.rootMin, { truncation: quad, rounding: rnd, total: err });
-    // The caller asks only whether the total exceeds `stopAbove`: the largest total can only grow. The work is counted in full above.
-    if (worst.total > stopAbove) {
+    // The caller asks only whether the total exceeds `stopAbove` (and the rounding `roundingAbove`): the largest
+    // total and rounding can only grow. The work is counted in full above.
+    if (worst.total > stopAbove && worst.rounding > roundingAbove) {
       stoppedAt = c;
       break;
     }

@@ -169,6 +169,40 @@ describe('polishedProgram and polishBound on the quadratic', () => {
     expect(polishBound(cells, order, 1, false, null, whole * 2).total).toBe(whole);
   });
 
+  test('with stopAbove and roundingAbove, the full pass stops only where both are exceeded and decides alike (the pass over every cell is the reference)', () => {
+    // Internal consistency of the early stop the polished form asks for with plan.newton_steps: auto
+    // (forms/polished.ts: the total above the target, then the rounding above a share of it).
+    const order = 2;
+    const terms = ctx.pool.termsUpTo(order)!;
+    const programs = { core: coreProgram(family, expansion, terms), steps: [stepProgram(family, expansion, true)] };
+    const whole = polishBound(cells, order, 1, false, programs);
+    expect(whole.rounding).toBeGreaterThan(0);
+    const bars = [0, whole.total / 2, whole.total, whole.total * 2];
+    const roundingBars = [0, whole.rounding / 2, whole.rounding, whole.rounding * 2];
+    for (const bar of bars) {
+      for (const roundingBar of roundingBars) {
+        const early = polishBound(cells, order, 1, false, programs, bar, null, cellTail, roundingBar);
+        const decides = whole.total > bar && whole.rounding > roundingBar;
+        expect(early.total > bar && early.rounding > roundingBar).toBe(decides);
+        if (decides) {
+          expect(early.stoppedAt).not.toBeNull();
+          expect(early.total).toBeLessThanOrEqual(whole.total);
+          expect(early.rounding).toBeLessThanOrEqual(whole.rounding);
+        } else {
+          // Not both exceeded: every cell is seen, the very parts of the whole pass.
+          expect(early.stoppedAt).toBeNull();
+          expect([early.truncation, early.rounding, early.total]).toEqual([whole.truncation, whole.rounding, whole.total]);
+        }
+      }
+    }
+    // It does stop: with both bars at 0, the first cell ends the pass, its own parts returned.
+    const first = polishBound([cells[0]!], order, 1, false, programs);
+    const stopped = polishBound(cells, order, 1, false, programs, 0, null, cellTail, 0);
+    expect(stopped.stoppedAt).toBe(cells[0]);
+    expect(stopped.total).toBe(first.total);
+    expect(cells.length).toBeGreaterThan(1);
+  });
+
   test('stepProgram takes v as an exact input: one step from the series\' v gives the polished program\'s value, bit for bit', () => {
     const terms = ctx.pool.termsUpTo(2)!;
     const core = coreProgram(family, expansion, terms);

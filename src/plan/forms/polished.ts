@@ -68,7 +68,12 @@ export function polishedPlans(ctx: FormContext, found: FoundPlans): Plan[] {
       let full;
       try {
         const programs = { core: coreProgram(family, expansion, terms), steps: Array.from({ length: k }, (_, j) => stepProgram(family, expansion, j === k - 1)) };
-        full = polishBound(cells, n, k, relative, programs, Infinity, null, tail);
+        // With the steps chosen (auto), only whether the total misses the target and whether rounding then
+        // passes roundingStopShare of it decide (the best miss is quoted for a fixed count alone): the pass
+        // may stop at the first cell where both hold. Its work is counted in full either way (polishBound).
+        full = knob === 'auto'
+          ? polishBound(cells, n, k, relative, programs, target, null, tail, target * POLISH.roundingStopShare)
+          : polishBound(cells, n, k, relative, programs, Infinity, null, tail);
       } catch (e) {
         // No bound, or a series constant beyond the arithmetic's range: higher orders cannot help.
         if (e instanceof PolishFailure || e instanceof ConstantOverflowError) break;
@@ -76,7 +81,7 @@ export function polishedPlans(ctx: FormContext, found: FoundPlans): Plan[] {
       }
       // Rounding does not shrink with the order: past a share of the target, stop.
       if (full.total > target) {
-        if (!best || full.total < best.total) best = { total: full.total, rounding: full.rounding };
+        if (knob !== 'auto' && (!best || full.total < best.total)) best = { total: full.total, rounding: full.rounding };
         if (full.rounding > target * POLISH.roundingStopShare) break;
         continue;
       }
