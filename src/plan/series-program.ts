@@ -24,7 +24,7 @@ import { CoefficientRanges } from './tight-range.js';
 import { checkWork } from './work.js';
 import { equationOf } from './layout-memo.js';
 import { byGrade, sumsOnce, type GradeSumTable } from './grade-sum-memo.js';
-import { constantForm, formOf, isConstant, isZero, materialise, powerOf, scaleForm, shiftedLinearForms, uniform, type LinearForm } from './linear-form.js';
+import { constantForm, formOf, isConstant, isZero, materialise, powerOf, scaleFormOnce, shiftedLinearForms, uniform, type LinearForm } from './linear-form.js';
 
 export interface SeriesSetup {
   /** Coefficients of P(x0 + y) as affine forms, index = power of y. */
@@ -84,10 +84,10 @@ function buildPrefix(b: ProgramBuilder, s: SeriesSetup): Prefix {
     const zero = c1.constant.findIndex((v) => v.isZero());
     if (zero >= 0) throw new ZeroSlopeError(zero);
     const inv = c1.constant.map((v) => v.inverse());
-    const r = materialise(b, scaleForm(s.shifted[0]!, inv));
+    const r = materialise(b, scaleFormOnce(s.shifted[0]!, inv));
     marks.push({ ref: r, kind: 'ratio', j: 0 });
     for (const k of s.active) {
-      q.set(k, materialise(b, scaleForm(s.shifted[k]!, inv)));
+      q.set(k, materialise(b, scaleFormOnce(s.shifted[k]!, inv)));
       marks.push({ ref: q.get(k)!, kind: 'ratio', j: k });
     }
     return { r, q, c1: null, marks };
@@ -340,14 +340,14 @@ export function collapsedSeries(family: Family, e: Expansion, terms: readonly Se
   const c1 = s.shifted[1]!;
   if (!isConstant(c1)) return null;
   const inv = c1.constant.map((v) => v.inverse());
-  const rForm = scaleForm(s.shifted[0]!, inv);
+  const rForm = scaleFormOnce(s.shifted[0]!, inv);
   if (rForm.terms.size !== 1) return null;
   const [atom, beta] = [...rForm.terms][0]!;
   const atomNode = b.node(atom);
   if (atomNode.kind !== 'input') return null;
   const q = new Map<number, SegValues>();
   for (const k of s.active) {
-    const f = scaleForm(s.shifted[k]!, inv);
+    const f = scaleFormOnce(s.shifted[k]!, inv);
     if (!isConstant(f)) return null;
     q.set(k, f.constant);
   }
