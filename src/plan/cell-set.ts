@@ -19,13 +19,19 @@ export class CellSet {
   /** Called for every cell made by a split (to fill its grade sums). */
   onNewCell: (c: CellFacts) => void = () => {};
 
-  /** `x0[s]` is segment s's expansion point; `initial` lists each cell with its segment. */
+  /**
+   * `x0[s]` is segment s's expansion point; `initial` lists each cell with its segment.
+   * `known`: facts already computed with the same `ap`, `degree` and `x0`, by segment and cell
+   * bounds (factsKey); a cell found there is copied instead of computed, still counted as work,
+   * and a cell computed is added to it.
+   */
   constructor(
     private readonly ap: AnalysisProgram,
     private readonly degree: number,
     private readonly box: Cell,
     private readonly x0: readonly number[],
     initial: readonly { cell: Cell; segment: number }[],
+    private readonly known: Map<string, CellFacts> | null = null,
   ) {
     this.cells = initial.map((c) => this.facts(c.cell, c.segment));
   }
@@ -40,7 +46,14 @@ export class CellSet {
   /** One cell's facts, counted as work (src/plan/work.ts): a fixed cost per cell (WORK.cellUnits) and a unit per prefix node. */
   private facts(cell: Cell, segment: number): CellFacts {
     spend(WORK.cellUnits + this.ap.program.nodes.length);
-    return cellFacts(this.ap, this.degree, cell, this.x0[segment]!, segment);
+    if (!this.known) return cellFacts(this.ap, this.degree, cell, this.x0[segment]!, segment);
+    // The same units whether found or computed: the count (and where a search stops) does not depend on the memo.
+    const key = factsKey(cell, segment);
+    const found = this.known.get(key);
+    if (found) return withEmptyGradeSums(found);
+    const f = cellFacts(this.ap, this.degree, cell, this.x0[segment]!, segment);
+    this.known.set(key, f);
+    return f;
   }
 
   /** The facts at the centre point of the box (one segment's expansion), counted as work. */
@@ -219,4 +232,16 @@ export class CellSet {
       } else stale++;
     }
   }
+}
+
+/** A cell's key in a CellSet's `known` facts: its segment and its bounds (cellFacts is a function of them for one program and x0). */
+export function factsKey(cell: Cell, segment: number): string {
+  let key = `${segment}`;
+  for (const iv of cell) key += `:${bound(iv.lo)}:${bound(iv.hi)}`;
+  return key;
+}
+
+/** A bound's text: the shortest that reads back as the same double, with -0 apart from 0. */
+function bound(x: number): string {
+  return x === 0 && 1 / x < 0 ? '-0' : `${x}`;
 }

@@ -43,6 +43,11 @@ export interface LayoutShared {
   /** The same cells as a search trial repairs them (plan-segments.ts repairedSet), copied alike. */
   repairedFacts?: readonly CellFacts[];
   needsCells?: NeedsCells;
+  /**
+   * The facts of the cells segmentNeeds pins every input but one on (and of their repairs), by
+   * cell-set.ts factsKey: each aim and order of the refinement asks for them again.
+   */
+  pinnedFacts?: Map<string, CellFacts>;
   /** The order-0 series sketch (series-program.ts orderZeroSketch) the cost floor and the table check read. */
   orderZero?: Program;
 }

@@ -28,6 +28,7 @@
 import { split, widestDim, type Cell } from './box.js';
 import type { CellFacts } from './cell-bound.js';
 import { maxRatio } from './refusals.js';
+import { Heap } from 'heap-js';
 import { SUBDIVISION } from './tuning.js';
 
 /** What the lazy repair asks of the cell set (src/plan/cell-set.ts). */
@@ -107,6 +108,20 @@ function before(x: Node, y: Node): boolean {
   const b = pathOf(y);
   for (let i = 0; i < Math.min(a.length, b.length); i++) if (a[i] !== b[i]) return a[i]! < b[i]!;
   return a.length < b.length;
+}
+
+function compare(x: number, y: number): number {
+  return x < y ? -1 : x > y ? 1 : 0;
+}
+
+/**
+ * A heap order that is total: `primary` first (negative puts `a` nearer the top), then the
+ * cells' order in the tree. Among equal keys the pop order then does not depend on how the
+ * heap happens to arrange its items, so the searches below name the same cells with any
+ * correct heap.
+ */
+function totalOrder(primary: (a: Node, b: Node) => number): (a: Node, b: Node) => number {
+  return (a, b) => primary(a, b) || (a === b ? 0 : before(a, b) ? -1 : 1);
 }
 
 class LazyTree {
@@ -239,7 +254,7 @@ class LazyTree {
   /** The diverging leaf of the largest ratio, the first in order among equals: best first, each cell's ratio bounding its leaves'. */
   private worst(): Node | null {
     const ratio = (n: Node): number => maxRatio(n.facts!);
-    const heap = new Heap<Node>((a, b) => ratio(a) > ratio(b) || (ratio(a) === ratio(b) && before(a, b)));
+    const heap = new Heap<Node>(totalOrder((a, b) => compare(ratio(b), ratio(a))));
     for (const n of this.roots) if (n.bad) heap.push(n);
     for (let n = heap.pop(); n; n = heap.pop()) {
       if (!this.isSplit(n)) {
@@ -257,7 +272,7 @@ class LazyTree {
   /** The diverging leaf reaching furthest along input `i` (`low`: toward its lower end). */
   private extreme(i: number, low: boolean): Node | null {
     const key = (n: Node): number => (low ? n.cell[i]!.lo : -n.cell[i]!.hi);
-    const heap = new Heap<Node>((a, b) => key(a) < key(b));
+    const heap = new Heap<Node>(totalOrder((a, b) => compare(key(a), key(b))));
     for (const n of this.roots) if (n.bad) heap.push(n);
     for (let n = heap.pop(); n; n = heap.pop()) {
       if (!this.status(n)) continue;
@@ -276,43 +291,5 @@ class LazyTree {
       for (const low of [true, false]) named.add(this.extreme(i, low)!);
     }
     return [...named].sort((a, b) => (before(a, b) ? -1 : 1)).map((n) => n.facts!);
-  }
-}
-
-/** A binary heap: `before(a, b)` puts a nearer the top. */
-class Heap<T> {
-  private readonly items: T[] = [];
-  constructor(private readonly before: (a: T, b: T) => boolean) {}
-
-  push(x: T): void {
-    const a = this.items;
-    a.push(x);
-    for (let i = a.length - 1; i > 0; ) {
-      const p = (i - 1) >> 1;
-      if (!this.before(a[i]!, a[p]!)) break;
-      [a[i], a[p]] = [a[p]!, a[i]!];
-      i = p;
-    }
-  }
-
-  pop(): T | undefined {
-    const a = this.items;
-    if (a.length === 0) return undefined;
-    const top = a[0]!;
-    const last = a.pop()!;
-    if (a.length > 0) {
-      a[0] = last;
-      for (let i = 0; ; ) {
-        const l = 2 * i + 1;
-        const r = l + 1;
-        let m = i;
-        if (l < a.length && this.before(a[l]!, a[m]!)) m = l;
-        if (r < a.length && this.before(a[r]!, a[m]!)) m = r;
-        if (m === i) break;
-        [a[i], a[m]] = [a[m]!, a[i]!];
-        i = m;
-      }
-    }
-    return top;
   }
 }

@@ -263,7 +263,8 @@ export function segmentNeeds(family: Family, box: Cell, layout: SegmentLayout, o
   const cellsOf = (cells: readonly { cell: Cell; segment: number }[] | null): NeedsCells => {
     let set: CellSet;
     if (cells) {
-      set = new CellSet(ap, family.degree, box, x0, cells);
+      // Pinned cells: the refinement's aims and orders ask for the same ones again (found, still counted).
+      set = new CellSet(ap, family.degree, box, x0, cells, (shared.pinnedFacts ??= new Map()));
       set.repairBadCells(LIMITS.cells, relative, false);
       if (relative) set.splitTowardZero(LIMITS.cells);
     } else set = repairedSet(family, box, layout, ap, x0, shared);

@@ -68,29 +68,80 @@ function inInput(family: Family, spec: ResultSpec, k: number, input: number): Ra
 }
 
 /**
- * r rounded toward zero to a dyadic m 2^e with |m| < 2^FOLD.bits: exact
- * composites carry numerators and denominators of thousands of bits (powers
- * of the recentred slope), and every later exact step (the Chebyshev basis
- * change, src/plan/economise.ts) is quadratic in their size. The difference
- * r - d is returned as an unreduced quotient (the division's remainder over
- * its divisor), which the caller bounds without a gcd.
+ * r rounded toward zero to a dyadic d = m 2^e with |m| < 2^FOLD.bits, and
+ * `up`, |r - d| rounded up to a double (0 when d = r): exact composites
+ * carry numerators and denominators of thousands of bits (powers of the
+ * recentred slope), and every later exact step (the Chebyshev basis change,
+ * src/plan/economise.ts) is quadratic in their size. The exponent e comes
+ * from the bit lengths of r in lowest terms, rounded up to whole hex digits.
+ *
+ * One division gives both: Q = floor(|r| 2^(GUARD - e)) holds |m| above its
+ * GUARD low bits F, and |r - d| = (F + R / D) 2^(e - GUARD) for the division's
+ * remainder R over its divisor D. When F has at least 54 bits, the smallest
+ * double >= |r - d| is F's top 53 bits, plus one step unless F's lower bits
+ * and R are all zero (any value in [F, F + 1) rounds up alike then, the step
+ * of doubles there being at least 2); otherwise (about one in 2^10) the
+ * quotient is rounded up exactly (math/rational.ts quotientUp). Two
+ * divisions (the truncation's and the rounding's) and their products were
+ * about half of folding a segment; `test/plan/result-fold-rounding.test.ts`
+ * holds this to the two-step definition bit for bit.
  */
-function dyadic(r: Rational): { d: Rational; rem: bigint; remDen: bigint } {
-  if (r.isZero()) return { d: r, rem: 0n, remDen: 1n };
-  const e = bitLength(r.num < 0n ? -r.num : r.num) - bitLength(r.den) - FOLD.bits;
-  if (e <= 0) {
-    if (r.den === 1n && e >= -FOLD.bits) return { d: r, rem: 0n, remDen: 1n };
-    // r - q / 2^k = (num 2^k - q den) / (den 2^k), q = trunc(num 2^k / den).
-    const k = BigInt(-e);
-    const scaled = r.num << k;
-    const q = scaled / r.den;
-    return { d: overPowerOfTwo(q, -e), rem: scaled - q * r.den, remDen: r.den << k };
+export function dyadicUp(r: Rational): { d: Rational; up: number } {
+  if (r.num === 0n) return { d: r, up: 0 };
+  const negative = r.num < 0n;
+  const n = negative ? -r.num : r.num;
+  const den = r.den;
+  const denBits = bitsOf(den);
+  const e = bitLength(n) - hexBits(denBits) - FOLD.bits;
+  if (e <= 0 && den === 1n && e >= -FOLD.bits) return { d: r, up: 0 };
+  const shift = GUARD - e;
+  let Q: bigint;
+  let R: bigint;
+  let D: bigint;
+  if ((den & (den - 1n)) === 0n) {
+    // A power of two (a dyadic composite's denominator): shifts, no division.
+    const right = denBits - 1 - shift;
+    D = den;
+    if (right <= 0) {
+      Q = n << BigInt(-right);
+      R = 0n;
+    } else {
+      Q = n >> BigInt(right);
+      R = (n - (Q << BigInt(right))) << BigInt(shift > 0 ? shift : 0);
+      if (shift < 0) D = den << BigInt(-shift);
+    }
+  } else if (shift >= 0) {
+    const t = n << BigInt(shift);
+    D = den;
+    Q = t / D;
+    R = t - Q * D;
+  } else {
+    D = den << BigInt(-shift);
+    Q = n / D;
+    R = n - Q * D;
   }
-  // r - q 2^e = (num - q den 2^e) / den, q = trunc(num / (den 2^e)).
-  const divisor = r.den << BigInt(e);
-  const q = r.num / divisor;
-  return { d: Rational.of(q << BigInt(e)), rem: r.num - q * divisor, remDen: r.den };
+  const m = Q >> GUARD_BITS;
+  const q = negative ? -m : m;
+  const d = e <= 0 ? overPowerOfTwo(q, -e) : Rational.of(q << BigInt(e));
+  const F = Q & GUARD_MASK;
+  if (F === 0n && R === 0n) return { d, up: 0 };
+  const L = bitsOf(F);
+  const x = L - 53 - GUARD + e;
+  if (L >= 54 && x >= -1000 && x <= 960) {
+    const u = BigInt(L - 53);
+    const top = F >> u;
+    const exact = R === 0n && top << u === F;
+    return { d, up: Number(exact ? top : top + 1n) * 2 ** x };
+  }
+  // |r - d| = (F D + R) / (D 2^GUARD) 2^e, rounded up exactly.
+  const num = F * D + R;
+  return { d, up: e <= 0 ? quotientUp(num, D << BigInt(GUARD - e)) : quotientUp(num << BigInt(e), D << GUARD_BITS) };
 }
+
+/** Guard bits below the rounded significand: a difference's leading 53 bits and a step to spare, in one 64-bit word. */
+const GUARD = 64;
+const GUARD_BITS = BigInt(GUARD);
+const GUARD_MASK = (1n << GUARD_BITS) - 1n;
 
 /** q / 2^k in lowest terms: only a power of two can divide both (|q| < 2^1024 here: FOLD.bits and a few more). */
 function overPowerOfTwo(q: bigint, k: number): Rational {
@@ -102,24 +153,27 @@ function overPowerOfTwo(q: bigint, k: number): Rational {
 
 /** Bits of |n| rounded up to whole hex digits (4 ceil(bits / 4), 0 for 0): the rounding's exponent is defined by them. */
 function bitLength(n: bigint): number {
-  return Math.ceil(bitsOf(n) / 4) * 4;
+  return hexBits(bitsOf(n));
+}
+
+function hexBits(bits: number): number {
+  return Math.ceil(bits / 4) * 4;
 }
 
 /**
- * Coefficients rounded by `dyadic`, and an upper bound of the change over
+ * Coefficients rounded by `dyadicUp`, and an upper bound of the change over
  * |p| <= pMax: sum |delta_j| 2^(k j) with 2^k >= pMax, summed in float64
  * rounded upward (src/math/directed.ts), so the bound costs no long sums.
- * Each |delta_j| is rounded up from its unreduced quotient: the same float
- * as from lowest terms (rounding depends on the value only).
  */
-function rounded(poly: readonly Rational[], pMax: number): { poly: Rational[]; error: number } {
+export function rounded(poly: readonly Rational[], pMax: number): { poly: Rational[]; error: number } {
   const k = pMax > 0 ? Math.ceil(Math.log2(pMax)) + 1 : 0;
   let err = 0;
-  const out = poly.map((c, j) => {
-    const { d, rem, remDen } = dyadic(c);
-    if (rem !== 0n) err = addUp(err, quotientUp(rem < 0n ? -rem : rem, remDen) * 2 ** (k * j));
-    return d;
-  });
+  const out = new Array<Rational>(poly.length);
+  for (let j = 0; j < poly.length; j++) {
+    const { d, up } = dyadicUp(poly[j]!);
+    if (up !== 0) err = addUp(err, up * 2 ** (k * j));
+    out[j] = d;
+  }
   return { poly: out, error: err };
 }
 

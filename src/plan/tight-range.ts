@@ -103,7 +103,7 @@ export class CoefficientRanges {
   private readonly cache = new WeakMap<Interval, unknown>();
   private readonly noInputs = new Map<number, TightCell>();
   /** Per cell (by identity) and segment: P', P'' with the inputs' variables in Bernstein form (bernsteinFirst). */
-  private readonly partials = new WeakMap<Cell, Map<number, DerivativeParts | null>>();
+  private readonly partials = new WeakMap<Cell, Map<number, DerivativeParts>>();
 
   /** `x0[s]` is segment s's expansion point. */
   constructor(
@@ -267,18 +267,13 @@ export class CoefficientRanges {
     const t = this.tensors(segment).derivatives();
     if (!t.d1 || !t.d2) return null;
     // The inputs' variables come first (v is the last): their transform is the same for every J, kept per cell
-    // from the second call on (a cell asked once, as most are in some searches, pays no copy).
+    // from the first call on. The polished form asks each cell at least twice (the Newton-only pass, then the
+    // pass with the programs' rounding; 2 to 5 times per cell in lens-undistort, gas-molar-volume and
+    // gas-wide): keeping it only from the second call transformed every cell's inputs twice.
     let bySegment = this.partials.get(cell);
     if (!bySegment) this.partials.set(cell, (bySegment = new Map()));
     let p = bySegment.get(segment);
-    if (p === undefined) {
-      bySegment.set(segment, null);
-      const { origin, width } = this.scaled(cell);
-      origin.push(J.lo);
-      width.push(Math.max(0, subUp(J.hi, J.lo)));
-      return { d1: bernsteinRange(t.d1, origin, width), d2: bernsteinRange(t.d2, origin, width) };
-    }
-    if (p === null) {
+    if (!p) {
       const { origin, width } = this.scaled(cell);
       const d = origin.length;
       p = { origin, width, d1: bernsteinFirst(t.d1, origin, width, d), d2: bernsteinFirst(t.d2, origin, width, d) };

@@ -13,7 +13,9 @@
  */
 import { describe, expect, test } from '@jest/globals';
 import { Decimal } from 'decimal.js';
-import { CellSet } from '../../src/plan/cell-set.js';
+import { CellSet, factsKey } from '../../src/plan/cell-set.js';
+import type { CellFacts } from '../../src/plan/cell-bound.js';
+import { startWork, workUsed } from '../../src/plan/work.js';
 import { TermPool } from '../../src/plan/term-pool.js';
 import { analysisProgram } from '../../src/plan/series-program.js';
 import { Rational } from '../../src/math/rational.js';
@@ -64,5 +66,37 @@ describe('CellSet', () => {
     for (const c of ok) expect(c.cell[0]!.hi).toBeLessThanOrEqual(2.5);
     // And a cell well beyond it stays bad at its centre: no split can help there.
     expect(set.badAtCentre(false).some((c) => c.cell[0]!.lo >= 3)).toBe(true);
+  });
+
+  test('facts found in `known` are those computed, counted alike: a repair over them splits the same cells, bad beyond s = 2.5', () => {
+    const family = quadraticFamily({ s: ['0', '4'] });
+    const box = [{ lo: 0, hi: 4 }];
+    const ap = analysisProgram(family, oneBox);
+    const initial = [0, 1, 2, 3].map((k) => ({ cell: [{ lo: k, hi: k + 1 }], segment: 0 }));
+    const repaired = (known: Map<string, CellFacts> | null): { cells: CellFacts[]; units: number } => {
+      startWork();
+      const set = new CellSet(ap, 2, box, [0], initial, known);
+      set.repairBadCells(256, false, false);
+      return { cells: set.cells, units: workUsed() };
+    };
+    const plain = repaired(null);
+    const known = new Map<string, CellFacts>();
+    const first = repaired(known);
+    const size = known.size;
+    const again = repaired(known);
+    expect(size).toBe(plain.cells.length + plain.cells.length - initial.length);
+    // The second repair found every cell: nothing was added, and its facts are the first one's arrays.
+    expect(known.size).toBe(size);
+    expect(again.cells.every((c, i) => c.T === first.cells[i]!.T)).toBe(true);
+    for (const run of [first, again]) {
+      expect(run.units).toBe(plain.units);
+      expect(run.cells).toEqual(plain.cells);
+    }
+    // |t2| = 0.1 s < 1/4 (the Catalan series' radius) wherever a cell has a bound.
+    for (const c of again.cells) if (c.state.kind === 'ok') expect(c.cell[0]!.hi).toBeLessThanOrEqual(2.5);
+    expect(again.cells.some((c) => c.state.kind !== 'ok')).toBe(true);
+    // A cell's key tells its segment and every bound apart, -0 from 0 too.
+    expect(factsKey([{ lo: -0, hi: 1 }], 0)).not.toBe(factsKey([{ lo: 0, hi: 1 }], 0));
+    expect(factsKey([{ lo: 0, hi: 1 }], 1)).not.toBe(factsKey([{ lo: 0, hi: 1 }], 0));
   });
 });

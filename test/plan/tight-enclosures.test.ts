@@ -176,3 +176,44 @@ describe('coefficient enclosures are sound', () => {
     );
   });
 });
+
+describe("the Newton step's derivative enclosures (CoefficientRanges.derivatives)", () => {
+  test('kept partial forms: every call bit for bit a fresh instance\'s, and exact P\'(x0 - v), P\'\'(x0 - v) at the corners inside', () => {
+    // P'(x) = sum_k k c_k x^(k-1) and P''(x) = sum_k k (k-1) c_k x^(k-2) at x = x0 - v, in exact rationals
+    // (the definition of the derivative of a polynomial), at every corner of the cell and both ends of J:
+    // the Bernstein enclosure holds every vertex value (its end coefficients are the vertex values).
+    const family = fixture('torus-hit.yaml');
+    const x0 = Rational.parseDecimal('1.75');
+    const kept = new CoefficientRanges(family, [x0]);
+    const box = family.inputs.map((i) => [i.lo.toNumber(), i.hi.toNumber()] as const);
+    const cellAt = (a: number, b: number) => box.map(([lo, hi]) => ({ lo: lo + (hi - lo) * a, hi: lo + (hi - lo) * b }));
+    const cells = [cellAt(0, 0.5), cellAt(0.5, 1), cellAt(0.25, 0.375)];
+    const intervals = [{ lo: -0.01, hi: 0.02 }, { lo: 0.001, hi: 0.0015 }, { lo: -0.3, hi: -0.1 }];
+    let checked = 0;
+    // Cells asked in turn, then again (a copy of the first cell's array too): a partial form kept for one cell must never serve another.
+    for (const cell of [...cells, ...cells, cells[0]!.map((iv) => ({ ...iv }))]) {
+      for (const J of intervals) {
+        const got = kept.derivatives(cell, 0, J);
+        const fresh = new CoefficientRanges(family, [x0]).derivatives(cell, 0, J);
+        expect(got).not.toBeNull();
+        expect(got).toEqual(fresh);
+        for (let mask = 0; mask < 1 << (cell.length + 1); mask++) {
+          const p = cell.map((iv, i) => Rational.fromNumber((mask >> i) & 1 ? iv.hi : iv.lo));
+          const v = Rational.fromNumber((mask >> cell.length) & 1 ? J.hi : J.lo);
+          const c = family.coefficients.map((e) => (e ? evalExprExact(e, p, family.constants) : Rational.ZERO));
+          const x = x0.sub(v);
+          let d1 = Rational.ZERO;
+          let d2 = Rational.ZERO;
+          for (let k = 1; k < c.length; k++) d1 = d1.add(Rational.int(k).mul(c[k]!).mul(x.pow(k - 1)));
+          for (let k = 2; k < c.length; k++) d2 = d2.add(Rational.int(k * (k - 1)).mul(c[k]!).mul(x.pow(k - 2)));
+          for (const [exact, enc] of [[d1, got!.d1], [d2, got!.d2]] as const) {
+            expect(exact.cmp(Rational.fromNumber(enc.lo))).toBeGreaterThanOrEqual(0);
+            expect(exact.cmp(Rational.fromNumber(enc.hi))).toBeLessThanOrEqual(0);
+            checked++;
+          }
+        }
+      }
+    }
+    expect(checked).toBe(7 * 3 * 16 * 2);
+  });
+});
