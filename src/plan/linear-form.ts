@@ -13,6 +13,7 @@ import { taylorShift } from '../series/recenter.js';
 import type { ProgramBuilder, Ref, SegValues } from '../ir/builder.js';
 import { constantValue } from '../family/expr-eval.js';
 import type { Constants, Expr } from '../family/types.js';
+import { keyOf, replayMemo } from './replay-memo.js';
 
 export interface LinearForm {
   readonly constant: SegValues;
@@ -46,10 +47,39 @@ export function addForms(a: LinearForm, b: LinearForm, sign: 1 | -1 = 1): Linear
   return { constant: zip(a.constant, b.constant, op), terms };
 }
 
-export function scaleForm(a: LinearForm, s: SegValues): LinearForm {
+export function scaleForm(a: LinearForm, s: SegValues, mul: (x: Rational, y: Rational) => Rational = (x, y) => x.mul(y)): LinearForm {
   const terms = new Map<Ref, SegValues>();
-  if (!allZero(s)) for (const [ref, w] of a.terms) terms.set(ref, zip(w, s, (x, y) => x.mul(y)));
-  return { constant: zip(a.constant, s, (x, y) => x.mul(y)), terms };
+  if (!allZero(s)) for (const [ref, w] of a.terms) terms.set(ref, zip(w, s, mul));
+  return { constant: zip(a.constant, s, mul), terms };
+}
+
+/**
+ * Exact products and Taylor shifts of the recentred forms, kept per work
+ * count with the work they counted (replay-memo.ts): the layouts of a search
+ * share many segment centres (battery-soc: 1032 distinct among 2776
+ * recentrings), and each layout recentres and scales every segment's
+ * coefficients by 1 / c'1 again. A repeat counts the same work, so the units
+ * are those of the computation done again.
+ */
+const products = replayMemo<Rational>();
+const shifts = replayMemo<Rational[]>();
+
+/** x * y, computed once per count for each pair of values (a zero costs nothing). */
+export function productOnce(x: Rational, y: Rational): Rational {
+  if (x.isZero() || y.isZero()) return Rational.ZERO;
+  return products(`${keyOf(x)}*${keyOf(y)}`, () => x.mul(y));
+}
+
+/** scaleForm with every product kept (productOnce): the prefix's r = c'0 / c'1 and q_k = c'k / c'1. */
+export function scaleFormOnce(a: LinearForm, s: SegValues): LinearForm {
+  return scaleForm(a, s, productOnce);
+}
+
+/** series/recenter.ts taylorShift, computed once per count for each coefficient vector, point and order (read only). */
+function shiftOnce(c: readonly Rational[], x0: Rational, top: number): readonly Rational[] {
+  let key = `${top}@${keyOf(x0)}:`;
+  for (const v of c) key += `${keyOf(v)},`;
+  return shifts(key, () => taylorShift(c, x0, top));
 }
 
 /**
@@ -72,7 +102,7 @@ export function shiftedLinearForms(c: readonly LinearForm[], x0: SegValues, upTo
     const vector = new Array<Rational>(n + 1);
     for (let seg = 0; seg < S; seg++) {
       for (let k = 0; k <= n; k++) vector[k] = part(c[k]!)?.[seg] ?? Rational.ZERO;
-      const shifted = taylorShift(vector, x0[seg]!, top);
+      const shifted = shiftOnce(vector, x0[seg]!, top);
       for (let j = 0; j <= top; j++) out[j]![seg] = shifted[j]!;
     }
     return out;

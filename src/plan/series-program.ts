@@ -20,11 +20,11 @@ import { attachEnclosures } from '../ir/analyse.js';
 import type { Interval } from '../math/interval.js';
 import type { SeriesTerm } from '../series/hyper-catalan.js';
 import type { Family } from '../family/types.js';
-import { CoefficientRanges, type TightCell } from './tight-range.js';
+import { CoefficientRanges } from './tight-range.js';
 import { checkWork } from './work.js';
 import { equationOf } from './layout-memo.js';
 import { byGrade, sumsOnce, type GradeSumTable } from './grade-sum-memo.js';
-import { constantForm, formOf, isConstant, isZero, materialise, powerOf, scaleForm, shiftedLinearForms, uniform, type LinearForm } from './linear-form.js';
+import { constantForm, formOf, isConstant, isZero, materialise, powerOf, scaleFormOnce, shiftedLinearForms, uniform, type LinearForm } from './linear-form.js';
 
 export interface SeriesSetup {
   /** Coefficients of P(x0 + y) as affine forms, index = power of y. */
@@ -84,10 +84,10 @@ function buildPrefix(b: ProgramBuilder, s: SeriesSetup): Prefix {
     const zero = c1.constant.findIndex((v) => v.isZero());
     if (zero >= 0) throw new ZeroSlopeError(zero);
     const inv = c1.constant.map((v) => v.inverse());
-    const r = materialise(b, scaleForm(s.shifted[0]!, inv));
+    const r = materialise(b, scaleFormOnce(s.shifted[0]!, inv));
     marks.push({ ref: r, kind: 'ratio', j: 0 });
     for (const k of s.active) {
-      q.set(k, materialise(b, scaleForm(s.shifted[k]!, inv)));
+      q.set(k, materialise(b, scaleFormOnce(s.shifted[k]!, inv)));
       marks.push({ ref: q.get(k)!, kind: 'ratio', j: k });
     }
     return { r, q, c1: null, marks };
@@ -116,20 +116,20 @@ export function finishProgram(family: Family, e: Expansion, b: ProgramBuilder, p
   const marks = p.marks.map((m) => ({ ref: m.ref, kind: m.kind, j: m.j, at: map[m.ref] ?? -1 })).filter((m) => m.at >= 0);
   if (marks.length === 0) return program;
   const ranges = rangesFor(family, e);
-  // Kept per cell (every candidate program is analysed on the same cells).
-  const made = new WeakMap<TightCell, (Interval | undefined)[]>();
+  // One array per program, filled afresh on every call: analyseFlat reads it before it returns and keeps
+  // none. A per-cell array kept per program (a WeakMap by the cell's enclosures) was found again only by
+  // the Newton step's programs, and every other program's arrays (one per cell analysed) were garbage the
+  // scavenger copied while the program lived. Cleared first, then set where an enclosure is known, in mark
+  // order (a later mark of the same node wins), as the kept arrays were filled.
+  const known: (Interval | undefined)[] = new Array<Interval | undefined>(program.nodes.length).fill(undefined);
   return attachEnclosures(program, (cell, segment) => {
     const t = ranges.cell(cell, segment);
-    let out = made.get(t);
-    if (!out) {
-      out = [];
-      for (const m of marks) {
-        const v = m.kind === 'ratio' ? t.ratio[m.j] : t.shifted[m.j];
-        if (v) out[m.at] = v;
-      }
-      made.set(t, out);
+    for (const m of marks) known[m.at] = undefined;
+    for (const m of marks) {
+      const v = m.kind === 'ratio' ? t.ratio[m.j] : t.shifted[m.j];
+      if (v) known[m.at] = v;
     }
-    return out;
+    return known;
   });
 }
 
@@ -340,14 +340,14 @@ export function collapsedSeries(family: Family, e: Expansion, terms: readonly Se
   const c1 = s.shifted[1]!;
   if (!isConstant(c1)) return null;
   const inv = c1.constant.map((v) => v.inverse());
-  const rForm = scaleForm(s.shifted[0]!, inv);
+  const rForm = scaleFormOnce(s.shifted[0]!, inv);
   if (rForm.terms.size !== 1) return null;
   const [atom, beta] = [...rForm.terms][0]!;
   const atomNode = b.node(atom);
   if (atomNode.kind !== 'input') return null;
   const q = new Map<number, SegValues>();
   for (const k of s.active) {
-    const f = scaleForm(s.shifted[k]!, inv);
+    const f = scaleFormOnce(s.shifted[k]!, inv);
     if (!isConstant(f)) return null;
     q.set(k, f.constant);
   }
