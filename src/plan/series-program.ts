@@ -20,7 +20,7 @@ import { attachEnclosures } from '../ir/analyse.js';
 import type { Interval } from '../math/interval.js';
 import type { SeriesTerm } from '../series/hyper-catalan.js';
 import type { Family } from '../family/types.js';
-import { CoefficientRanges, type TightCell } from './tight-range.js';
+import { CoefficientRanges } from './tight-range.js';
 import { checkWork } from './work.js';
 import { equationOf } from './layout-memo.js';
 import { byGrade, sumsOnce, type GradeSumTable } from './grade-sum-memo.js';
@@ -116,20 +116,20 @@ export function finishProgram(family: Family, e: Expansion, b: ProgramBuilder, p
   const marks = p.marks.map((m) => ({ ref: m.ref, kind: m.kind, j: m.j, at: map[m.ref] ?? -1 })).filter((m) => m.at >= 0);
   if (marks.length === 0) return program;
   const ranges = rangesFor(family, e);
-  // Kept per cell (every candidate program is analysed on the same cells).
-  const made = new WeakMap<TightCell, (Interval | undefined)[]>();
+  // One array per program, filled afresh on every call: analyseFlat reads it before it returns and keeps
+  // none. A per-cell array kept per program (a WeakMap by the cell's enclosures) was found again only by
+  // the Newton step's programs, and every other program's arrays (one per cell analysed) were garbage the
+  // scavenger copied while the program lived. Cleared first, then set where an enclosure is known, in mark
+  // order (a later mark of the same node wins), as the kept arrays were filled.
+  const known: (Interval | undefined)[] = new Array<Interval | undefined>(program.nodes.length).fill(undefined);
   return attachEnclosures(program, (cell, segment) => {
     const t = ranges.cell(cell, segment);
-    let out = made.get(t);
-    if (!out) {
-      out = [];
-      for (const m of marks) {
-        const v = m.kind === 'ratio' ? t.ratio[m.j] : t.shifted[m.j];
-        if (v) out[m.at] = v;
-      }
-      made.set(t, out);
+    for (const m of marks) known[m.at] = undefined;
+    for (const m of marks) {
+      const v = m.kind === 'ratio' ? t.ratio[m.j] : t.shifted[m.j];
+      if (v) known[m.at] = v;
     }
-    return out;
+    return known;
   });
 }
 

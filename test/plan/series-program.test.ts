@@ -16,6 +16,7 @@ import { describe, expect, test } from '@jest/globals';
 import { Decimal } from 'decimal.js';
 import { seriesProgram } from '../../src/plan/series-program.js';
 import { evaluate } from '../../src/ir/evaluate.js';
+import { analyseFlat } from '../../src/ir/analyse.js';
 import { termsUpToGrade } from '../../src/series/hyper-catalan.js';
 import { Rational } from '../../src/math/rational.js';
 import { CATALAN, quadraticFamily } from './support/quadratic.js';
@@ -64,6 +65,31 @@ describe('seriesProgram', () => {
       const err = exact(evaluate(program, [s])).minus(root).abs();
       expect(err.lte(firstDropped.times(2))).toBe(true);
       expect(err.gte(firstDropped.div(2))).toBe(true);
+    }
+  });
+});
+
+describe('the enclosures a program hands the analysis (finishProgram)', () => {
+  test('one array refilled per call: cell after cell, every analysis bit for bit a fresh program\'s, and the float64 result inside each enclosure widened by its error', () => {
+    // x0 = 1/2 and c2 = -1 - 2 s^2: c'1 = 1 + 2 c2 x0 = -2 s^2 reaches zero at s = 0, so on [0, 1/4]
+    // r and q2 have no tight enclosure, while on [1/2, 1] every mark has one (DESIGN.md 1.10).
+    const f = quadraticFamily({ c2: '-1 - 2 * s^2', s: ['0', '1'] });
+    const at = { segmentation: { parts: [], segments: 1 }, x0: [Rational.parseDecimal('0.5')] };
+    const terms = termsUpToGrade(2, [2], 3)!;
+    const shared = seriesProgram(f, at, terms);
+    const copy = (a: { lo: ArrayLike<number>; hi: ArrayLike<number>; err: ArrayLike<number> }) => ({ lo: Array.from(a.lo), hi: Array.from(a.hi), err: Array.from(a.err) });
+    const cells = [[{ lo: 0.5, hi: 1 }], [{ lo: 0, hi: 0.25 }], [{ lo: 0.5, hi: 1 }], [{ lo: 0.75, hi: 0.875 }], [{ lo: 0, hi: 0.25 }]];
+    for (const cell of cells) {
+      const got = copy(analyseFlat(shared, cell));
+      expect(got).toEqual(copy(analyseFlat(seriesProgram(f, at, terms), cell)));
+      // The analysis' definition per node: the exact value lies in [lo, hi] and the float64 one within err of it.
+      for (const s of [cell[0]!.lo, (cell[0]!.lo + cell[0]!.hi) / 2, cell[0]!.hi]) {
+        const x = evaluate(shared, [s]);
+        const r = shared.result;
+        if (!Number.isFinite(got.err[r]!)) continue;
+        expect(x).toBeGreaterThanOrEqual(got.lo[r]! - got.err[r]!);
+        expect(x).toBeLessThanOrEqual(got.hi[r]! + got.err[r]!);
+      }
     }
   });
 });
