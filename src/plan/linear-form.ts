@@ -67,7 +67,7 @@ const shifts = replayMemo<Rational[]>();
 /** x * y, computed once per count for each pair of values (a zero costs nothing). */
 export function productOnce(x: Rational, y: Rational): Rational {
   if (x.isZero() || y.isZero()) return Rational.ZERO;
-  return products(`${keyOf(x)}*${keyOf(y)}`, () => x.mul(y));
+  return products('*', [x, y], () => x.mul(y));
 }
 
 /** scaleForm with every product kept (productOnce): the prefix's r = c'0 / c'1 and q_k = c'k / c'1. */
@@ -75,11 +75,16 @@ export function scaleFormOnce(a: LinearForm, s: SegValues): LinearForm {
   return scaleForm(a, s, productOnce);
 }
 
-/** series/recenter.ts taylorShift, computed once per count for each coefficient vector, point and order (read only). */
-function shiftOnce(c: readonly Rational[], x0: Rational, top: number): readonly Rational[] {
-  let key = `${top}@${keyOf(x0)}:`;
+/** series/recenter.ts taylorShift, computed once per count for each coefficient vector (named by `group`), point and order (read only). */
+function shiftOnce(group: string, c: readonly Rational[], x0: Rational, top: number): readonly Rational[] {
+  return shifts(group, [x0], () => taylorShift(c, x0, top));
+}
+
+/** The group of a shift: the order and the coefficients' values (short: the spec's coefficients as exact forms). */
+function shiftGroup(c: readonly Rational[], top: number): string {
+  let key = `${top}:`;
   for (const v of c) key += `${keyOf(v)},`;
-  return shifts(key, () => taylorShift(c, x0, top));
+  return key;
 }
 
 /**
@@ -100,9 +105,17 @@ export function shiftedLinearForms(c: readonly LinearForm[], x0: SegValues, upTo
   const shiftPart = (part: (f: LinearForm) => SegValues | undefined): Rational[][] => {
     const out = Array.from({ length: top + 1 }, () => new Array<Rational>(S));
     const vector = new Array<Rational>(n + 1);
+    let group = '';
     for (let seg = 0; seg < S; seg++) {
-      for (let k = 0; k <= n; k++) vector[k] = part(c[k]!)?.[seg] ?? Rational.ZERO;
-      const shifted = shiftOnce(vector, x0[seg]!, top);
+      // The group's text is made again only where the vector changes (a form's values are mostly the same in every segment).
+      let changed = seg === 0;
+      for (let k = 0; k <= n; k++) {
+        const v = part(c[k]!)?.[seg] ?? Rational.ZERO;
+        if (v !== vector[k]) changed = true;
+        vector[k] = v;
+      }
+      if (changed) group = shiftGroup(vector, top);
+      const shifted = shiftOnce(group, vector, x0[seg]!, top);
       for (let j = 0; j <= top; j++) out[j]![seg] = shifted[j]!;
     }
     return out;

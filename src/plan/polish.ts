@@ -174,6 +174,12 @@ export class PolishFailure extends Error {
  * after order, the pass ends there at once. A caller that only asks whether
  * the total exceeds `stopAbove`, or whether the pass fails, is told the same
  * in any order (the total is a maximum, and any cell's failure is a failure).
+ * With `roundingAbove` too, the pass stops only where the rounding part
+ * exceeds it as well: a caller that decides on both (the total above
+ * `stopAbove`, and then the rounding above `roundingAbove`, polished.ts) is
+ * told the same, since both are maxima and only grow cell by cell.
+ * `from`: after `first`, the cells are taken from index `from` on, then from
+ * 0 (the order alone changes, so such a caller is told the same again).
  */
 export function polishBound(
   cells: readonly CellFacts[],
@@ -185,15 +191,19 @@ export function polishBound(
   first: CellFacts | null = null,
   /** The cell's truncation bound at an order (cellTail; the polished form's fills the sums a cell still lacks first). */
   tail: (c: CellFacts, order: number) => number = cellTail,
+  roundingAbove = -Infinity,
+  from = 0,
 ): PolishBound & { readonly stoppedAt: CellFacts | null } {
   const worst = new WorstParts(relative);
   // Counted as evaluate counts a program's analysis: nodes times cells (the Newton-only pass, one unit per step and cell).
   spend(cells.length * (programs ? programs.core.nodes.length + programs.steps.reduce((s, p) => s + p.nodes.length, 0) : steps + 1));
   let stoppedAt: CellFacts | null = null;
-  // `first` (when it is one of the cells) is taken first, then the others in order: no copy of the cell list per pass.
+  // `first` (when it is one of the cells) is taken first, then the others in order from `from`: no copy of the cell list per pass.
   const lead = first && cells.includes(first) ? first : null;
-  for (let i = lead ? -1 : 0; i < cells.length; i++) {
-    const c = i < 0 ? lead! : cells[i]!;
+  const n = cells.length;
+  const start = from > 0 && from < n ? from : 0;
+  for (let i = lead ? -1 : 0; i < n; i++) {
+    const c = i < 0 ? lead! : cells[start + i < n ? start + i : start + i - n]!;
     if (i >= 0 && c === lead) continue;
     if (c.state.kind !== 'ok') throw new PolishFailure('diverges', c);
     // float32 bounds allow for flushed subnormals, as the series bounds do (one bound for CPUs and GPUs).
@@ -211,8 +221,9 @@ export function polishBound(
       err = addUp(quad, rnd);
     }
     worst.add(c.rootMin, { truncation: quad, rounding: rnd, total: err });
-    // The caller asks only whether the total exceeds `stopAbove`: the largest total can only grow. The work is counted in full above.
-    if (worst.total > stopAbove) {
+    // The caller asks only whether the total exceeds `stopAbove` (and the rounding `roundingAbove`): the largest
+    // total and rounding can only grow. The work is counted in full above.
+    if (worst.total > stopAbove && worst.rounding > roundingAbove) {
       stoppedAt = c;
       break;
     }

@@ -29,28 +29,62 @@ interface Record<T> {
 /** The one key of a count's table (planMemo keys by object). */
 const TABLE = {};
 
-/** A memo of `compute` by `key`, per work count: a hit adds the exact work its first run counted. */
-export function replayMemo<T>(): (key: string, compute: () => T) => T {
-  const tables = planMemo<object, Map<string, Record<T>>>();
-  return (key, compute) => {
+interface Entry<T> extends Record<T> {
+  readonly nums: readonly bigint[];
+  readonly dens: readonly bigint[];
+}
+
+/**
+ * A memo of `compute` by a group (a short text naming what is computed) and
+ * exact rationals, per work count: a hit adds the exact work its first run
+ * counted. Looked up by a number made of the values' low bits and confirmed
+ * by exact equality: a text key of values hundreds of bits long (hexadecimal
+ * digits, then hashed by the Map) cost more than a third of what it saved.
+ */
+export function replayMemo<T>(): (group: string, values: readonly Rational[], compute: () => T) => T {
+  const tables = planMemo<object, Map<string, Map<number, Entry<T>[]>>>();
+  return (group, values, compute) => {
     const byCount = tables();
-    let table = byCount.get(TABLE);
-    if (!table) byCount.set(TABLE, (table = new Map()));
-    const hit = table.get(key);
-    if (hit) {
-      exactWork.steps += hit.steps;
-      exactWork.words += hit.words;
-      return hit.value;
-    }
+    let groups = byCount.get(TABLE);
+    if (!groups) byCount.set(TABLE, (groups = new Map()));
+    let table = groups.get(group);
+    if (!table) groups.set(group, (table = new Map()));
+    const h = hashOf(values);
+    let list = table.get(h);
+    if (list) {
+      for (const e of list) {
+        if (same(e, values)) {
+          exactWork.steps += e.steps;
+          exactWork.words += e.words;
+          return e.value;
+        }
+      }
+    } else table.set(h, (list = []));
     const steps = exactWork.steps;
     const words = exactWork.words;
     const value = compute();
-    table.set(key, { value, steps: exactWork.steps - steps, words: exactWork.words - words });
+    list.push({ value, steps: exactWork.steps - steps, words: exactWork.words - words, nums: values.map((v) => v.num), dens: values.map((v) => v.den) });
     return value;
   };
 }
 
-/** A rational's exact value as a key (hexadecimal: BigInt's toString is linear in that radix). */
+/** The low 26 bits of every numerator and denominator, mixed into an integer below 2^32 (exact in a double). */
+function hashOf(values: readonly Rational[]): number {
+  let h = 0;
+  for (const v of values) {
+    h = Math.imul(h ^ Number(BigInt.asUintN(26, v.num)), 0x9e3779b1) >>> 0;
+    h = Math.imul(h ^ Number(BigInt.asUintN(26, v.den)), 0x85ebca6b) >>> 0;
+  }
+  return h;
+}
+
+function same<T>(e: Entry<T>, values: readonly Rational[]): boolean {
+  if (e.nums.length !== values.length) return false;
+  for (let i = 0; i < values.length; i++) if (e.nums[i] !== values[i]!.num || e.dens[i] !== values[i]!.den) return false;
+  return true;
+}
+
+/** A rational's exact value as text (hexadecimal: BigInt's toString is linear in that radix), for group names. */
 export function keyOf(v: Rational): string {
   return `${v.num.toString(16)}/${v.den.toString(16)}`;
 }

@@ -33,6 +33,8 @@ interface SegmentTensors {
   readonly shifted: readonly (IntervalTensor | null)[];
   /** P'(x0 - v) and P''(x0 - v) in (u, v), null when some c'j is unknown (built when first asked for). */
   readonly derivatives: () => { readonly d1: IntervalTensor | null; readonly d2: IntervalTensor | null };
+  /** Whether `derivatives` has been built (its exact work done and counted). */
+  readonly derivativesBuilt: () => boolean;
 }
 
 /** The Newton step's derivatives over one cell, every variable but v in Bernstein form, and the cell's scaled sides. */
@@ -155,6 +157,7 @@ export class CoefficientRanges {
     return {
       shifted: Array.from({ length: n + 1 }, (_, j) => needed(j)),
       derivatives: () => (built ??= { d1: derivative(1), d2: derivative(2) }),
+      derivativesBuilt: () => built !== null,
     };
   }
 
@@ -248,6 +251,15 @@ export class CoefficientRanges {
       bySegment.set(segment, t);
     }
     return t;
+  }
+
+  /**
+   * Whether `derivatives` for the segment would do no exact work: the
+   * segment's expansion is here and its derivatives are built. False when
+   * unsure (a caller that orders its cells by this changes no count).
+   */
+  derivativesBuilt(segment: number): boolean {
+    return this.segments.get(segment)?.derivativesBuilt() ?? false;
   }
 
   /** Enclosures of P'(x0 - v) and P''(x0 - v) over the cell and v in J, or null. */

@@ -13,7 +13,7 @@ import { describe, expect, test } from '@jest/globals';
 import { Decimal } from 'decimal.js';
 import { evaluate as run } from '../../src/ir/evaluate.js';
 import { cellTail, type CellFacts } from '../../src/plan/cell-bound.js';
-import { coreProgram, newtonFactor, polishBound, polishedProgram, stepProgram } from '../../src/plan/polish.js';
+import { coreProgram, newtonFactor, newtonFactorOver, polishBound, polishedProgram, stepProgram } from '../../src/plan/polish.js';
 import { exactDecimal } from '../support/exact-decimal.js';
 import { oneBoxContext } from './support/form-context.js';
 import { quadraticFamily, quadraticRoot } from './support/quadratic.js';
@@ -53,6 +53,21 @@ describe('newtonFactor: M2 / (2 m1) with m1 = 1 - sum k Q_k V^(k-1), M2 = sum k 
     expect(newtonFactor(facts([0, 0, 0.1]), 5)).toBe(Infinity);
     expect(newtonFactor(facts([0, 0, 0.1]), 6)).toBe(Infinity);
     expect(Number.isFinite(newtonFactor(facts([0, 0, 0.1]), 4.9))).toBe(true);
+  });
+});
+
+describe('CoefficientRanges.derivativesBuilt, which the polished form orders its cells by', () => {
+  test('false for a segment until the Newton step\'s derivatives are asked for there, true after (x solves 0.1 s x^2 + x - s = 0, recentred, so c\'1 varies with s)', () => {
+    const varying = oneBoxContext(quadraticFamily({ c2: '0.1 * s', bracket: ['0', '2'], accuracy: 'absolute: 1e-12' }));
+    const cell = varying.set.cells[0]!;
+    expect(cell.ranges).toBeDefined();
+    expect(cell.c1Range).toBeTruthy();
+    expect(cell.ranges!.derivativesBuilt(cell.segment)).toBe(false);
+    // A segment the ranges have never seen is not built either.
+    expect(cell.ranges!.derivativesBuilt(cell.segment + 1)).toBe(false);
+    const J = { lo: cell.rRange.lo - 1e-3, hi: cell.rRange.hi + 1e-3 };
+    expect(Number.isFinite(newtonFactorOver(cell, J))).toBe(true);
+    expect(cell.ranges!.derivativesBuilt(cell.segment)).toBe(true);
   });
 });
 
@@ -167,6 +182,60 @@ describe('polishedProgram and polishBound on the quadratic', () => {
     // A bar at or above it: every cell is seen, the same total.
     expect(polishBound(cells, order, 1, false, null, whole).total).toBe(whole);
     expect(polishBound(cells, order, 1, false, null, whole * 2).total).toBe(whole);
+  });
+
+  test('with stopAbove and roundingAbove, the full pass stops only where both are exceeded and decides alike (the pass over every cell is the reference)', () => {
+    // Internal consistency of the early stop the polished form asks for with plan.newton_steps: auto
+    // (forms/polished.ts: the total above the target, then the rounding above a share of it).
+    const order = 2;
+    const terms = ctx.pool.termsUpTo(order)!;
+    const programs = { core: coreProgram(family, expansion, terms), steps: [stepProgram(family, expansion, true)] };
+    const whole = polishBound(cells, order, 1, false, programs);
+    expect(whole.rounding).toBeGreaterThan(0);
+    const bars = [0, whole.total / 2, whole.total, whole.total * 2];
+    const roundingBars = [0, whole.rounding / 2, whole.rounding, whole.rounding * 2];
+    for (const bar of bars) {
+      for (const roundingBar of roundingBars) {
+        const early = polishBound(cells, order, 1, false, programs, bar, null, cellTail, roundingBar);
+        const decides = whole.total > bar && whole.rounding > roundingBar;
+        expect(early.total > bar && early.rounding > roundingBar).toBe(decides);
+        if (decides) {
+          expect(early.stoppedAt).not.toBeNull();
+          expect(early.total).toBeLessThanOrEqual(whole.total);
+          expect(early.rounding).toBeLessThanOrEqual(whole.rounding);
+        } else {
+          // Not both exceeded: every cell is seen, the very parts of the whole pass.
+          expect(early.stoppedAt).toBeNull();
+          expect([early.truncation, early.rounding, early.total]).toEqual([whole.truncation, whole.rounding, whole.total]);
+        }
+      }
+    }
+    // It does stop: with both bars at 0, the first cell ends the pass, its own parts returned.
+    const first = polishBound([cells[0]!], order, 1, false, programs);
+    const stopped = polishBound(cells, order, 1, false, programs, 0, null, cellTail, 0);
+    expect(stopped.stoppedAt).toBe(cells[0]);
+    expect(stopped.total).toBe(first.total);
+    expect(cells.length).toBeGreaterThan(1);
+  });
+
+  test('with `from`, the Newton-only pass takes the cells from that index on, then from 0, and decides alike (the pass from 0 is the reference)', () => {
+    // Internal consistency of the order the polished form asks for (forms/polished.ts: the cells after the one
+    // the last pass stopped at first).
+    const order = 1;
+    ctx.pool.termsUpTo(order);
+    const whole = polishBound(cells, order, 1, false, null).total;
+    for (const from of [0, 1, Math.floor(cells.length / 2), cells.length - 1]) {
+      // A bar of 0 stops at the first cell seen: the one at `from`.
+      expect(polishBound(cells, order, 1, false, null, 0, null, cellTail, -Infinity, from).stoppedAt).toBe(cells[from]);
+      // The first cell still comes first.
+      expect(polishBound(cells, order, 1, false, null, 0, cells[0]!, cellTail, -Infinity, from).stoppedAt).toBe(cells[0]);
+      for (const bar of [whole / 2, whole * 0.99, whole, whole * 2]) {
+        const early = polishBound(cells, order, 1, false, null, bar, null, cellTail, -Infinity, from);
+        expect(early.total > bar).toBe(whole > bar);
+        // No stop: every cell seen once, the very total of the pass from 0.
+        if (!(whole > bar)) expect(early.total).toBe(whole);
+      }
+    }
   });
 
   test('stepProgram takes v as an exact input: one step from the series\' v gives the polished program\'s value, bit for bit', () => {

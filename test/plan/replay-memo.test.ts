@@ -102,6 +102,11 @@ describe('the prefix products c_k / c_1 kept per count, counted at every repeat'
         expect(dec(first.value[seg]!).minus(quotient).abs().lte(quotient.abs().times(1e-150))).toBe(true);
       });
     }
+    // Values whose low bits agree (the memo's numeric key) are told apart by exact equality: n and n + 2^40 over one odd denominator.
+    const n = 123456789012345678901234567n;
+    const [u, w] = [Rational.of(n, 7n ** 30n), Rational.of(n + (1n << 40n), 7n ** 30n)];
+    expect(productOnce(u, inv[0]!).eq(u.mul(inv[0]!))).toBe(true);
+    expect(productOnce(w, inv[0]!).eq(w.mul(inv[0]!))).toBe(true);
     // A zero factor: zero, no work (as Rational.mul).
     expect(counted(() => productOnce(Rational.ZERO, inv[0]!))).toEqual({ value: Rational.ZERO, steps: 0, words: 0 });
   });

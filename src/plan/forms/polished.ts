@@ -17,6 +17,7 @@ import { fitsTable, planOf, tableBytesOf } from '../plan-of.js';
 import { coreProgram, polishBound, polishedProgram, PolishFailure, stepProgram } from '../polish.js';
 import { refuseFloor } from '../refusals.js';
 import { POLISH } from '../tuning.js';
+import { containsZero } from '../../math/interval.js';
 import type { CellFacts } from '../cell-bound.js';
 import type { Plan } from '../types.js';
 import type { FormContext, FoundPlans } from './context.js';
@@ -47,20 +48,29 @@ export function polishedPlans(ctx: FormContext, found: FoundPlans): Plan[] {
   const floorCost = (k: number): number => programCost(polishedProgram(family, expansion, empty, k), ctx.costModel);
   if (floorCost(Math.min(...stepCounts)) >= toBeat) return out;
   if (!fitsTable(family.plan.maxTableBytes, tableBytesOf(polishedProgram(family, expansion, empty, Math.min(...stepCounts))))) return out;
-  // The cell the last Newton-only pass stopped at: the next pass takes it first (polishBound `first`).
+  // The cell the last Newton-only pass stopped at: the next pass takes it first (polishBound `first`), then
+  // the cells after it (`from`), which the last pass has not seen at its order, and those before it last.
+  // Only the order changes, so the decisions do not; but the first pass to meet a segment's cell builds
+  // its derivatives' exact expansion (tight-range.ts), work counted at the next spend, so the cells are
+  // taken in their own order until every segment's is built (`settledOrder`): the same work is then
+  // counted at the same place.
   let hint: CellFacts | null = null;
+  let from = 0;
+  let anyOrder = false;
+  const settledOrder = (): boolean => (anyOrder ||= cells.every((c) => !c.ranges || !c.c1Range || containsZero(c.c1Range) || c.ranges.derivativesBuilt(c.segment)));
   for (const k of stepCounts) {
     if (k !== Math.min(...stepCounts) && floorCost(k) >= toBeat) continue;
     for (let n = 0; n <= maxOrder; n++) {
       let cheap;
       try {
-        cheap = polishBound(cells, n, k, relative, null, target, hint, tail);
+        cheap = polishBound(cells, n, k, relative, null, target, hint, tail, -Infinity, settledOrder() ? from : 0);
       } catch (e) {
         if (e instanceof PolishFailure) continue;
         throw e;
       }
       if (cheap.total > target) {
         hint = cheap.stoppedAt;
+        from = hint ? cells.indexOf(hint) + 1 : 0;
         continue;
       }
       const terms = pool.termsUpTo(n);
@@ -68,7 +78,12 @@ export function polishedPlans(ctx: FormContext, found: FoundPlans): Plan[] {
       let full;
       try {
         const programs = { core: coreProgram(family, expansion, terms), steps: Array.from({ length: k }, (_, j) => stepProgram(family, expansion, j === k - 1)) };
-        full = polishBound(cells, n, k, relative, programs, Infinity, null, tail);
+        // With the steps chosen (auto), only whether the total misses the target and whether rounding then
+        // passes roundingStopShare of it decide (the best miss is quoted for a fixed count alone): the pass
+        // may stop at the first cell where both hold. Its work is counted in full either way (polishBound).
+        full = knob === 'auto'
+          ? polishBound(cells, n, k, relative, programs, target, null, tail, target * POLISH.roundingStopShare)
+          : polishBound(cells, n, k, relative, programs, Infinity, null, tail);
       } catch (e) {
         // No bound, or a series constant beyond the arithmetic's range: higher orders cannot help.
         if (e instanceof PolishFailure || e instanceof ConstantOverflowError) break;
@@ -76,7 +91,7 @@ export function polishedPlans(ctx: FormContext, found: FoundPlans): Plan[] {
       }
       // Rounding does not shrink with the order: past a share of the target, stop.
       if (full.total > target) {
-        if (!best || full.total < best.total) best = { total: full.total, rounding: full.rounding };
+        if (knob !== 'auto' && (!best || full.total < best.total)) best = { total: full.total, rounding: full.rounding };
         if (full.rounding > target * POLISH.roundingStopShare) break;
         continue;
       }
