@@ -65,9 +65,14 @@ export class ProgramBuilder {
     readonly segmentation: Segmentation = SINGLE,
   ) {}
 
-  /** An independent builder holding the same nodes (so refs stay valid), to build on without touching this one. */
-  clone(): ProgramBuilder {
-    const c = new ProgramBuilder(this.arithmetic, this.inputNames, this.segmentation);
+  /**
+   * An independent builder holding the same nodes (so refs stay valid), to build on without touching this one.
+   * `inputNames`: the inputs of the clone, this builder's followed by more (an input node is made only
+   * when first asked for, so the clone is the builder these nodes would have made with those inputs).
+   */
+  clone(inputNames: readonly string[] = this.inputNames): ProgramBuilder {
+    if (inputNames.length < this.inputNames.length || this.inputNames.some((n, i) => inputNames[i] !== n)) throw new RangeError('a clone may only add inputs');
+    const c = new ProgramBuilder(this.arithmetic, inputNames, this.segmentation);
     c.nodes.push(...this.nodes);
     for (const [k, v] of this.memo) c.memo.set(k, v);
     for (const [k, v] of this.consts) c.consts.set(k, v);

@@ -60,7 +60,21 @@ function enclosures(powers: readonly (Expr | null)[], cell: Cell, family: Family
 
 /** Upper bound of |d result / dx| over the cell times the interval J of the unknown (`derivative` from derivativePowers). */
 export function slopeOver(family: Family, derivative: readonly (Expr | null)[], cell: Cell, J: Interval): number {
-  return mag(hornerInterval(enclosures(derivative, cell, family), J));
+  return slopeFrom(derivativeOver(family, derivative, cell), J);
+}
+
+/**
+ * slopeOver in two steps, for a caller that asks about one cell with several
+ * J (src/plan/forms/folded.ts, once per series order): the derivative's
+ * coefficients enclosed over the cell, which do not depend on J...
+ */
+export function derivativeOver(family: Family, derivative: readonly (Expr | null)[], cell: Cell): readonly Interval[] {
+  return enclosures(derivative, cell, family);
+}
+
+/** ...then Horner's rule over J: the same operations as slopeOver's, so the same bound bit for bit. */
+export function slopeFrom(coefficients: readonly Interval[], J: Interval): number {
+  return mag(hornerInterval(coefficients, J));
 }
 
 /** Lower bound of |result| over the cell times the root's enclosure (what a relative part is divided by; 0 when it may vanish). */

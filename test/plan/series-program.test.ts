@@ -14,7 +14,10 @@
  */
 import { describe, expect, test } from '@jest/globals';
 import { Decimal } from 'decimal.js';
-import { seriesProgram } from '../../src/plan/series-program.js';
+import { analysisProgram, prefixBuilder, seriesProgram } from '../../src/plan/series-program.js';
+import { stepProgram } from '../../src/plan/polish.js';
+import { startWork } from '../../src/plan/work.js';
+import { exactWork } from '../../src/math/rational.js';
 import { evaluate } from '../../src/ir/evaluate.js';
 import { analyseFlat } from '../../src/ir/analyse.js';
 import { termsUpToGrade } from '../../src/series/hyper-catalan.js';
@@ -91,5 +94,37 @@ describe('the enclosures a program hands the analysis (finishProgram)', () => {
         expect(x).toBeLessThanOrEqual(got.hi[r]! + got.err[r]!);
       }
     }
+  });
+});
+
+describe('prefixBuilder with an extra input (the Newton step\'s v)', () => {
+  // Internal consistency: the builder made from the plain one (series-program.ts baseOf) against a fresh build in
+  // a count where no plain one exists. Family 0.1 x^2 + x - s = 0 recentred at x0 = 1/2 and at 3/4 (two
+  // segments), so the recentring does exact work.
+  const fam = quadraticFamily({ c2: '0.1 + 0.05 * s', s: ['0', '1'], bracket: ['0', '2'] });
+  const twoSegments = {
+    segmentation: { parts: [{ input: 0, count: 2, c0: 0.25, invWidth: 2, stride: 1 }], segments: 2 },
+    x0: [Rational.of(1n, 2n), Rational.of(3n, 4n)],
+  };
+  const counted = (fn: () => unknown): { steps: number; words: number } => {
+    const [steps, words] = [exactWork.steps, exactWork.words];
+    fn();
+    return { steps: exactWork.steps - steps, words: exactWork.words - words };
+  };
+
+  test('is the builder a fresh build makes, node for node, and counts the same exact work', () => {
+    startWork();
+    let fresh: ReturnType<typeof prefixBuilder> | null = null;
+    const freshWork = counted(() => (fresh = prefixBuilder(fam, twoSegments, ['v'])));
+    startWork();
+    analysisProgram(fam, twoSegments);
+    let made: ReturnType<typeof prefixBuilder> | null = null;
+    const madeWork = counted(() => (made = prefixBuilder(fam, twoSegments, ['v'])));
+    expect(freshWork.steps).toBeGreaterThan(0);
+    expect(madeWork).toEqual(freshWork);
+    expect(made!.b.snapshot()).toEqual(fresh!.b.snapshot());
+    expect(made!.b.inputNames).toEqual(['s', 'v']);
+    // The step built on it reads v, an input the plain builder does not have.
+    expect(stepProgram(fam, twoSegments, true).inputs).toEqual(['s', 'v']);
   });
 });

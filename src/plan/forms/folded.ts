@@ -15,11 +15,13 @@
  */
 import { addUp, mulUp, subDown } from '../../math/directed.js';
 import { derivativePowers } from '../../family/result-powers.js';
+import type { Interval } from '../../math/interval.js';
+import type { Cell } from '../box.js';
 import { cellTail, type CellFacts } from '../cell-bound.js';
 import { chebyshevForm, economise } from '../economise.js';
 import { evaluate } from '../evaluate.js';
 import { planOf } from '../plan-of.js';
-import { resultFloor, slopeOver } from '../result-bound.js';
+import { derivativeOver, resultFloor, slopeFrom } from '../result-bound.js';
 import { foldResult } from '../result-fold.js';
 import { collapsedSeries } from '../series-program.js';
 import { FOLD } from '../tuning.js';
@@ -41,6 +43,8 @@ export function foldedPlan(ctx: FormContext): Plan | null {
   const { family, expansion, layout, relative, target, pool } = ctx;
   const spec = family.result!;
   const derivative = derivativePowers(spec.powers, spec.expr.pos);
+  // Per cell: d result / dx's coefficients enclosed over it, the same at every order.
+  const slopes: Slopes = { derivative, over: new Map() };
   const roomOf = (folds: readonly FoldCell[]): number => Math.min(...folds.map((f) => target * f.cell.rootMin - f.carried));
   let best: Plan | null = null;
   let firstFit: number | null = null;
@@ -48,7 +52,7 @@ export function foldedPlan(ctx: FormContext): Plan | null {
   for (let n = 0; n <= last && (firstFit === null || n <= firstFit + FOLD.extraOrders); n++) {
     const terms = pool.termsUpTo(n);
     if (!terms) break;
-    const first = foldCells(ctx, derivative, n, null);
+    const first = foldCells(ctx, slopes, n, null);
     if (!first) return best;
     if (!(roomOf(first) > 0)) continue;
     firstFit ??= n;
@@ -56,7 +60,7 @@ export function foldedPlan(ctx: FormContext): Plan | null {
     if (!collapsed) return null;
     const folded = foldResult(family, spec, collapsed, layout.boxes);
     if (!folded) break;
-    const folds = foldCells(ctx, derivative, n, folded.rootError);
+    const folds = foldCells(ctx, slopes, n, folded.rootError);
     if (!folds) return best;
     const room = roomOf(folds);
     if (!(room > 0)) continue;
@@ -89,6 +93,12 @@ export function foldedPlan(ctx: FormContext): Plan | null {
   return best && best.tableBytes <= family.plan.maxTableBytes ? best : null;
 }
 
+/** d result / dx (derivativePowers) and its coefficients' enclosures over each cell, computed when first asked for. */
+interface Slopes {
+  readonly derivative: ReturnType<typeof derivativePowers>;
+  readonly over: Map<Cell, readonly Interval[]>;
+}
+
 /**
  * The cells at order n, each with its carried part; `widen[s]` (the folded
  * root's rounding, src/plan/result-fold.ts) is added to segment s's tail.
@@ -96,7 +106,7 @@ export function foldedPlan(ctx: FormContext): Plan | null {
  * evaluate divides by), for absolute by 1. Null when some cell has no finite
  * bound (no folded plan at any order).
  */
-function foldCells(ctx: FormContext, derivative: ReturnType<typeof derivativePowers>, n: number, widen: readonly number[] | null): FoldCell[] | null {
+function foldCells(ctx: FormContext, slopes: Slopes, n: number, widen: readonly number[] | null): FoldCell[] | null {
   const { family, relative } = ctx;
   const spec = family.result!;
   const out: FoldCell[] = [];
@@ -105,7 +115,9 @@ function foldCells(ctx: FormContext, derivative: ReturnType<typeof derivativePow
     const root = c.rootRange;
     if (!root || !Number.isFinite(tail)) return null;
     const J = { lo: subDown(root.lo, tail), hi: addUp(root.hi, tail) };
-    const slope = slopeOver(family, derivative, c.cell, J);
+    let over = slopes.over.get(c.cell);
+    if (!over) slopes.over.set(c.cell, (over = derivativeOver(family, slopes.derivative, c.cell)));
+    const slope = slopeFrom(over, J);
     const scale = relative ? resultFloor(family, spec, c.cell, root) : 1;
     if (!Number.isFinite(slope) || !(scale > 0)) return null;
     out.push({ cell: relative ? { ...c, rootMin: scale } : { ...c, rootMin: 1 }, carried: mulUp(slope, tail), tail, slope });
