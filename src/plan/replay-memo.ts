@@ -29,9 +29,10 @@ interface Record<T> {
 /** The one key of a count's table (planMemo keys by object). */
 const TABLE = {};
 
+/** A record and the exact values it was computed for; records whose values share a numeric key are chained. */
 interface Entry<T> extends Record<T> {
-  readonly nums: readonly bigint[];
-  readonly dens: readonly bigint[];
+  readonly values: readonly Rational[];
+  readonly next: Entry<T> | undefined;
 }
 
 /**
@@ -40,9 +41,12 @@ interface Entry<T> extends Record<T> {
  * counted. Looked up by a number made of the values' low bits and confirmed
  * by exact equality: a text key of values hundreds of bits long (hexadecimal
  * digits, then hashed by the Map) cost more than a third of what it saved.
+ * `values` is kept as given (the callers pass a fresh array), and a record is
+ * one object: what the memo holds lives as long as the count and is promoted
+ * out of the young generation, which the garbage collector pays for.
  */
 export function replayMemo<T>(): (group: string, values: readonly Rational[], compute: () => T) => T {
-  const tables = planMemo<object, Map<string, Map<number, Entry<T>[]>>>();
+  const tables = planMemo<object, Map<string, Map<number, Entry<T>>>>();
   return (group, values, compute) => {
     const byCount = tables();
     let groups = byCount.get(TABLE);
@@ -50,20 +54,18 @@ export function replayMemo<T>(): (group: string, values: readonly Rational[], co
     let table = groups.get(group);
     if (!table) groups.set(group, (table = new Map()));
     const h = hashOf(values);
-    let list = table.get(h);
-    if (list) {
-      for (const e of list) {
-        if (same(e, values)) {
-          exactWork.steps += e.steps;
-          exactWork.words += e.words;
-          return e.value;
-        }
+    const first = table.get(h);
+    for (let e = first; e !== undefined; e = e.next) {
+      if (same(e.values, values)) {
+        exactWork.steps += e.steps;
+        exactWork.words += e.words;
+        return e.value;
       }
-    } else table.set(h, (list = []));
+    }
     const steps = exactWork.steps;
     const words = exactWork.words;
     const value = compute();
-    list.push({ value, steps: exactWork.steps - steps, words: exactWork.words - words, nums: values.map((v) => v.num), dens: values.map((v) => v.den) });
+    table.set(h, { value, steps: exactWork.steps - steps, words: exactWork.words - words, values, next: first });
     return value;
   };
 }
@@ -78,9 +80,9 @@ function hashOf(values: readonly Rational[]): number {
   return h;
 }
 
-function same<T>(e: Entry<T>, values: readonly Rational[]): boolean {
-  if (e.nums.length !== values.length) return false;
-  for (let i = 0; i < values.length; i++) if (e.nums[i] !== values[i]!.num || e.dens[i] !== values[i]!.den) return false;
+function same(kept: readonly Rational[], values: readonly Rational[]): boolean {
+  if (kept.length !== values.length) return false;
+  for (let i = 0; i < values.length; i++) if (kept[i]!.num !== values[i]!.num || kept[i]!.den !== values[i]!.den) return false;
   return true;
 }
 

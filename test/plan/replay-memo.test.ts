@@ -68,6 +68,18 @@ describe('recentring kept per count, counted at every repeat', () => {
     }
   });
 
+  test("the order-0 sketch's c'0, c'1 (upTo 1, not kept) equal the full recentring's and count what taylorShift counts to order 1", () => {
+    startWork();
+    const want = counted(() => X0.flatMap((x) => [taylorShift(E, x, 1), taylorShift([Rational.ONE.neg(), ...E.slice(1).map(() => Rational.ZERO)], x, 1)]));
+    const full = shiftedLinearForms(forms(3), X0);
+    for (let round = 0; round < 2; round++) {
+      const got = counted(() => shiftedLinearForms(forms(3), X0, 1));
+      expect([got.steps, got.words]).toEqual([want.steps, want.words]);
+      expect(got.value.length).toBe(2);
+      for (let j = 0; j < 2; j++) X0.forEach((_, seg) => expect(got.value[j]!.constant[seg]!.eq(full[j]!.constant[seg]!)).toBe(true));
+    }
+  });
+
   test('a repeat hands out the kept values (the time saved), and a new count starts an empty memo that counts the same', () => {
     startWork();
     const a = shiftedLinearForms(forms(3), X0);
