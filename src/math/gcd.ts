@@ -19,6 +19,26 @@
  */
 export const exactWork = { steps: 0, words: 0 };
 
+/** An amount of exact work (the two counters of `exactWork`). */
+export interface ExactWork {
+  readonly steps: number;
+  readonly words: number;
+}
+
+/** `compute`'s value and the exact work it counted. */
+export function measureExact<T>(compute: () => T): ExactWork & { readonly value: T } {
+  const steps = exactWork.steps;
+  const words = exactWork.words;
+  const value = compute();
+  return { value, steps: exactWork.steps - steps, words: exactWork.words - words };
+}
+
+/** Counts `w` again: a kept result handed out as if its computation had run again. */
+export function countExactAgain(w: ExactWork): void {
+  exactWork.steps += w.steps;
+  exactWork.words += w.words;
+}
+
 /** 64-bit words of a bit count (at least one). */
 export function wordsOf(bits: number): number {
   return (bits >> 6) + 1;

@@ -7,7 +7,7 @@ import { bitLength, gcd } from './gcd.js';
 import { nextDown, nextUp } from './next-float.js';
 
 export { nextDown, nextUp };
-export { bitsOf, countPasses, countProduct, exactWork, gcd, wordsOf } from './gcd.js';
+export { bitsOf, countExactAgain, countPasses, countProduct, exactWork, gcd, measureExact, wordsOf, type ExactWork } from './gcd.js';
 
 // A float's two 32-bit words, read without allocating (fromNumber; next-float.ts has its own pair).
 const SCRATCH_F64 = new Float64Array(1);

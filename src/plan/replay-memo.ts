@@ -17,20 +17,16 @@
  * A memo lives for one work count (work.ts planMemo), which bounds what it
  * holds to what one plan made.
  */
-import { exactWork, type Rational } from '../math/rational.js';
+import { countExactAgain, measureExact, type ExactWork, type Rational } from '../math/rational.js';
 import { planMemo } from './work.js';
 
-interface Record<T> {
-  readonly value: T;
-  readonly steps: number;
-  readonly words: number;
-}
 
 /** The one key of a count's table (planMemo keys by object). */
 const TABLE = {};
 
 /** A record and the exact values it was computed for; records whose values share a numeric key are chained. */
-interface Entry<T> extends Record<T> {
+interface Entry<T> extends ExactWork {
+  readonly value: T;
   readonly values: readonly Rational[];
   readonly next: Entry<T> | undefined;
 }
@@ -57,16 +53,13 @@ export function replayMemo<T>(): (group: string, values: readonly Rational[], co
     const first = table.get(h);
     for (let e = first; e !== undefined; e = e.next) {
       if (same(e.values, values)) {
-        exactWork.steps += e.steps;
-        exactWork.words += e.words;
+        countExactAgain(e);
         return e.value;
       }
     }
-    const steps = exactWork.steps;
-    const words = exactWork.words;
-    const value = compute();
-    table.set(h, { value, steps: exactWork.steps - steps, words: exactWork.words - words, values, next: first });
-    return value;
+    const made = measureExact(compute);
+    table.set(h, { value: made.value, steps: made.steps, words: made.words, values, next: first });
+    return made.value;
   };
 }
 

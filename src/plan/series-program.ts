@@ -22,7 +22,7 @@ import type { SeriesTerm } from '../series/hyper-catalan.js';
 import type { Family } from '../family/types.js';
 import { CoefficientRanges } from './tight-range.js';
 import { checkWork } from './work.js';
-import { exactWork } from '../math/rational.js';
+import { countExactAgain, measureExact, type ExactWork } from '../math/rational.js';
 import { equationOf } from './layout-memo.js';
 import { byGrade, sumsOnce, type GradeSumTable } from './grade-sum-memo.js';
 import { constantForm, formOf, isConstant, isZero, materialise, powerOf, scaleFormOnce, shiftedLinearForms, uniform, type LinearForm } from './linear-form.js';
@@ -189,7 +189,7 @@ export interface Base {
   readonly setup: SeriesSetup;
   readonly prefix: Prefix;
   /** The exact work its recentring counted (math/gcd.ts exactWork): a base with extra inputs made from it counts it again. */
-  readonly exact?: { readonly steps: number; readonly words: number };
+  readonly exact?: ExactWork;
 }
 const bases = new WeakMap<Expansion, WeakMap<object, Map<string, Base>>>();
 
@@ -202,14 +202,16 @@ function baseOf(family: Family, e: Expansion, extraInputs: readonly string[]): B
     // Extra inputs (the Newton step's v) change no node of the recentring: the plain base's builder with them
     // is the one a fresh build makes, and that build's exact work (no spend inside) is counted as done again.
     base = { b: plain.b.clone([...plain.b.inputNames, ...extraInputs]), setup: plain.setup, prefix: plain.prefix };
-    exactWork.steps += plain.exact.steps;
-    exactWork.words += plain.exact.words;
+    countExactAgain(plain.exact);
     byInputs.set(key, base);
   } else if (!base) {
-    const [steps, words] = [exactWork.steps, exactWork.words];
-    const b = new ProgramBuilder(family.arithmetic, [...family.inputs.map((i) => i.name), ...extraInputs], e.segmentation);
-    const setup = setupSeries(family, e.x0, b);
-    base = { b, setup, prefix: buildPrefix(b, setup), exact: { steps: exactWork.steps - steps, words: exactWork.words - words } };
+    const made = measureExact(() => {
+      const b = new ProgramBuilder(family.arithmetic, [...family.inputs.map((i) => i.name), ...extraInputs], e.segmentation);
+      const setup = setupSeries(family, e.x0, b);
+      return { b, setup, prefix: buildPrefix(b, setup) };
+    });
+    const { b, setup, prefix } = made.value;
+    base = { b, setup, prefix, exact: { steps: made.steps, words: made.words } };
     byInputs.set(key, base);
   }
   return base;
