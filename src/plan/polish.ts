@@ -162,6 +162,16 @@ export class PolishFailure extends Error {
   }
 }
 
+/** How a pass of polishBound may stop early and in which order it takes the cells (see polishBound). */
+export interface PassOptions {
+  readonly stopAbove?: number;
+  readonly first?: CellFacts | null;
+  /** The cell's truncation bound at an order (cellTail; the polished form's fills the sums a cell still lacks first). */
+  readonly tail?: (c: CellFacts, order: number) => number;
+  readonly roundingAbove?: number;
+  readonly from?: number;
+}
+
 /**
  * Propagates the error through the steps for every cell. With `programs`
  * null only the Newton terms are carried (no rounding): a cheap lower bound
@@ -187,12 +197,7 @@ export function polishBound(
   steps: number,
   relative: boolean,
   programs: { readonly core: Program; readonly steps: readonly Program[] } | null,
-  stopAbove = Infinity,
-  first: CellFacts | null = null,
-  /** The cell's truncation bound at an order (cellTail; the polished form's fills the sums a cell still lacks first). */
-  tail: (c: CellFacts, order: number) => number = cellTail,
-  roundingAbove = -Infinity,
-  from = 0,
+  { stopAbove = Infinity, first = null, tail = cellTail, roundingAbove = -Infinity, from = 0 }: PassOptions = {},
 ): PolishBound & { readonly stoppedAt: CellFacts | null } {
   const worst = new WorstParts(relative);
   // Counted as evaluate counts a program's analysis: nodes times cells (the Newton-only pass, one unit per step and cell).

@@ -126,19 +126,19 @@ describe('polishedProgram and polishBound on the quadratic', () => {
     for (const order of [0, 1, 2]) {
       const full = polishBound(cells, order, 1, false, null).total;
       for (const bar of [full / 4, full / 2, full * 0.99, full, full * 2]) {
-        const plain = polishBound(cells, order, 1, false, null, bar);
+        const plain = polishBound(cells, order, 1, false, null, { stopAbove: bar });
         expect(plain.total > bar).toBe(full > bar);
         if (full > bar) {
           expect(plain.stoppedAt).not.toBeNull();
           for (const first of [plain.stoppedAt!, cells[cells.length - 1]!, cells[0]!]) {
-            const hinted = polishBound(cells, order, 1, false, null, bar, first);
+            const hinted = polishBound(cells, order, 1, false, null, { stopAbove: bar, first });
             expect(hinted.total > bar).toBe(true);
           }
           // The cell stopped at, taken first, ends the pass there.
-          expect(polishBound(cells, order, 1, false, null, bar, plain.stoppedAt).stoppedAt).toBe(plain.stoppedAt);
+          expect(polishBound(cells, order, 1, false, null, { stopAbove: bar, first: plain.stoppedAt }).stoppedAt).toBe(plain.stoppedAt);
         } else {
           expect(plain.stoppedAt).toBeNull();
-          expect(polishBound(cells, order, 1, false, null, bar, cells[cells.length - 1]!).total).toBe(full);
+          expect(polishBound(cells, order, 1, false, null, { stopAbove: bar, first: cells[cells.length - 1]! }).total).toBe(full);
         }
       }
     }
@@ -169,7 +169,7 @@ describe('polishedProgram and polishBound on the quadratic', () => {
     const whole = polishBound(cells, order, 1, false, null).total;
     // A bar below the largest total: the early pass reports a total above the bar, and no larger than the full pass's.
     for (const bar of [whole / 2, whole / 1e6, 0]) {
-      const early = polishBound(cells, order, 1, false, null, bar).total;
+      const early = polishBound(cells, order, 1, false, null, { stopAbove: bar }).total;
       expect(early).toBeGreaterThan(bar);
       expect(early).toBeLessThanOrEqual(whole);
     }
@@ -178,10 +178,10 @@ describe('polishedProgram and polishBound on the quadratic', () => {
     const least = each.indexOf(Math.min(...each));
     const reordered = [cells[least]!, ...cells.filter((_, i) => i !== least)];
     expect(each[least]!).toBeLessThan(whole);
-    expect(polishBound(reordered, order, 1, false, null, 0).total).toBe(each[least]);
+    expect(polishBound(reordered, order, 1, false, null, { stopAbove: 0 }).total).toBe(each[least]);
     // A bar at or above it: every cell is seen, the same total.
-    expect(polishBound(cells, order, 1, false, null, whole).total).toBe(whole);
-    expect(polishBound(cells, order, 1, false, null, whole * 2).total).toBe(whole);
+    expect(polishBound(cells, order, 1, false, null, { stopAbove: whole }).total).toBe(whole);
+    expect(polishBound(cells, order, 1, false, null, { stopAbove: whole * 2 }).total).toBe(whole);
   });
 
   test('with stopAbove and roundingAbove, the full pass stops only where both are exceeded and decides alike (the pass over every cell is the reference)', () => {
@@ -196,7 +196,7 @@ describe('polishedProgram and polishBound on the quadratic', () => {
     const roundingBars = [0, whole.rounding / 2, whole.rounding, whole.rounding * 2];
     for (const bar of bars) {
       for (const roundingBar of roundingBars) {
-        const early = polishBound(cells, order, 1, false, programs, bar, null, cellTail, roundingBar);
+        const early = polishBound(cells, order, 1, false, programs, { stopAbove: bar, roundingAbove: roundingBar });
         const decides = whole.total > bar && whole.rounding > roundingBar;
         expect(early.total > bar && early.rounding > roundingBar).toBe(decides);
         if (decides) {
@@ -212,7 +212,7 @@ describe('polishedProgram and polishBound on the quadratic', () => {
     }
     // It does stop: with both bars at 0, the first cell ends the pass, its own parts returned.
     const first = polishBound([cells[0]!], order, 1, false, programs);
-    const stopped = polishBound(cells, order, 1, false, programs, 0, null, cellTail, 0);
+    const stopped = polishBound(cells, order, 1, false, programs, { stopAbove: 0, roundingAbove: 0 });
     expect(stopped.stoppedAt).toBe(cells[0]);
     expect(stopped.total).toBe(first.total);
     expect(cells.length).toBeGreaterThan(1);
@@ -226,11 +226,11 @@ describe('polishedProgram and polishBound on the quadratic', () => {
     const whole = polishBound(cells, order, 1, false, null).total;
     for (const from of [0, 1, Math.floor(cells.length / 2), cells.length - 1]) {
       // A bar of 0 stops at the first cell seen: the one at `from`.
-      expect(polishBound(cells, order, 1, false, null, 0, null, cellTail, -Infinity, from).stoppedAt).toBe(cells[from]);
+      expect(polishBound(cells, order, 1, false, null, { stopAbove: 0, from }).stoppedAt).toBe(cells[from]);
       // The first cell still comes first.
-      expect(polishBound(cells, order, 1, false, null, 0, cells[0]!, cellTail, -Infinity, from).stoppedAt).toBe(cells[0]);
+      expect(polishBound(cells, order, 1, false, null, { stopAbove: 0, first: cells[0]!, from }).stoppedAt).toBe(cells[0]);
       for (const bar of [whole / 2, whole * 0.99, whole, whole * 2]) {
-        const early = polishBound(cells, order, 1, false, null, bar, null, cellTail, -Infinity, from);
+        const early = polishBound(cells, order, 1, false, null, { stopAbove: bar, from });
         expect(early.total > bar).toBe(whole > bar);
         // No stop: every cell seen once, the very total of the pass from 0.
         if (!(whole > bar)) expect(early.total).toBe(whole);

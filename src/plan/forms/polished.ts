@@ -63,7 +63,7 @@ export function polishedPlans(ctx: FormContext, found: FoundPlans): Plan[] {
     for (let n = 0; n <= maxOrder; n++) {
       let cheap;
       try {
-        cheap = polishBound(cells, n, k, relative, null, target, hint, tail, -Infinity, settledOrder() ? from : 0);
+        cheap = polishBound(cells, n, k, relative, null, { stopAbove: target, first: hint, tail, from: settledOrder() ? from : 0 });
       } catch (e) {
         if (e instanceof PolishFailure) continue;
         throw e;
@@ -82,8 +82,8 @@ export function polishedPlans(ctx: FormContext, found: FoundPlans): Plan[] {
         // passes roundingStopShare of it decide (the best miss is quoted for a fixed count alone): the pass
         // may stop at the first cell where both hold. Its work is counted in full either way (polishBound).
         full = knob === 'auto'
-          ? polishBound(cells, n, k, relative, programs, target, null, tail, target * POLISH.roundingStopShare)
-          : polishBound(cells, n, k, relative, programs, Infinity, null, tail);
+          ? polishBound(cells, n, k, relative, programs, { stopAbove: target, tail, roundingAbove: target * POLISH.roundingStopShare })
+          : polishBound(cells, n, k, relative, programs, { tail });
       } catch (e) {
         // No bound, or a series constant beyond the arithmetic's range: higher orders cannot help.
         if (e instanceof PolishFailure || e instanceof ConstantOverflowError) break;
