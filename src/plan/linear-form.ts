@@ -9,8 +9,8 @@
  * that differs between segments becomes a table read).
  */
 import { Rational } from '../math/rational.js';
-import { taylorShift, taylorShiftHeads } from '../series/recenter.js';
-import { countExactAgain, type ExactWork } from '../math/rational.js';
+import { headWork, taylorShift, taylorShiftHeads, type ShiftHeads } from '../series/recenter.js';
+import { countExactAgain } from '../math/rational.js';
 import type { ProgramBuilder, Ref, SegValues } from '../ir/builder.js';
 import { constantValue } from '../family/expr-eval.js';
 import type { Constants, Expr } from '../family/types.js';
@@ -63,7 +63,7 @@ export function scaleForm(a: LinearForm, s: SegValues, mul: (x: Rational, y: Rat
  * are those of the computation done again.
  */
 const products = replayMemo<Rational>();
-const shifts = replayMemo<{ readonly values: readonly Rational[]; readonly heads: readonly ExactWork[] }>();
+const shifts = replayMemo<{ readonly values: readonly Rational[]; readonly heads: ShiftHeads }>();
 
 /** x * y, computed once per count for each pair of values (a zero costs nothing). */
 export function productOnce(x: Rational, y: Rational): Rational {
@@ -88,7 +88,7 @@ function shiftOnce(group: string, c: readonly Rational[], x0: Rational, top: num
   if (top < c.length - 1) {
     const full = shifts.peek(group, [x0]);
     if (!full) return taylorShift(c, x0, top);
-    countExactAgain(full.heads[top]!);
+    countExactAgain(headWork(full.heads, top));
     return full.values;
   }
   return shifts(group, [x0], () => taylorShiftHeads(c, x0)).values;

@@ -7,7 +7,7 @@
  * and the one the bound is computed for are the same number.
  */
 import { MultiPoly } from '../math/multipoly.js';
-import { bitsOf, countProduct, gcd, measureExact, Rational, type ExactWork } from '../math/rational.js';
+import { bitsOf, countProduct, exactWork, gcd, Rational, type ExactWork } from '../math/rational.js';
 
 export function binomial(n: number, k: number): bigint {
   if (k < 0 || k > n) return 0n;
@@ -69,30 +69,35 @@ export function taylorShift(c: readonly Rational[], x0: Rational, upTo: number =
  * recentring at the same point) and count exactly what the shortened one
  * would.
  */
-export function taylorShiftHeads(c: readonly Rational[], x0: Rational): { readonly values: Rational[]; readonly heads: ExactWork[] } {
+export function taylorShiftHeads(c: readonly Rational[], x0: Rational): { readonly values: Rational[]; readonly heads: ShiftHeads } {
   const n = c.length - 1;
-  const none = { steps: 0, words: 0 };
-  if (x0.num === 0n) return { values: c.slice(), heads: new Array<ExactWork>(Math.max(n, 0)).fill(none) };
-  const scaled = measureExact(() => scaledNumerators(c, x0));
-  const s = scaled.value;
+  // One array of numbers, not an object per order: a kept shift lives as long as its work count.
+  const heads = new Float64Array(2 * Math.max(n, 0));
+  if (x0.num === 0n) return { values: c.slice(), heads };
+  // Read off the running counters (no closure per pass): what the shortened shifts count is the sum so far.
+  const steps0 = exactWork.steps;
+  const words0 = exactWork.words;
+  const s = scaledNumerators(c, x0);
   const pBits = bitsOf(x0.num);
   const values: Rational[] = [];
-  const heads: ExactWork[] = [];
-  let steps = scaled.steps;
-  let words = scaled.words;
   for (let j = 0; j < n; j++) {
     // Pass j (the last pass is n - 1) and the reduction of c'_j: what the shortened shift to j adds to the one to j - 1.
-    const more = measureExact(() => {
-      if (s) shiftPass(s.a, x0.num, pBits, j);
-      return s ? shiftedValue(s, j) : Rational.ZERO;
-    });
-    values.push(more.value);
-    steps += more.steps;
-    words += more.words;
-    heads.push({ steps, words });
+    if (s) shiftPass(s.a, x0.num, pBits, j);
+    values.push(s ? shiftedValue(s, j) : Rational.ZERO);
+    heads[2 * j] = exactWork.steps - steps0;
+    heads[2 * j + 1] = exactWork.words - words0;
   }
   if (n >= 0) values.push(s ? shiftedValue(s, n) : Rational.ZERO);
   return { values, heads };
+}
+
+/** taylorShiftHeads' counts: the exact work of the shift to order j is steps heads[2j], words heads[2j + 1]. */
+export type ShiftHeads = Float64Array;
+
+/** The exact work taylorShift(c, x0, j) counts, from taylorShiftHeads(c, x0).heads (j below the last coefficient). */
+export function headWork(heads: ShiftHeads, j: number): ExactWork {
+  if (!(2 * j + 1 < heads.length)) throw new RangeError(`no shortened shift to order ${j}`);
+  return { steps: heads[2 * j]!, words: heads[2 * j + 1]! };
 }
 
 /** c'_j = a[j] / (d q^(n-j)) for j <= the `top` asked for (n = a.length - 1, qPowers[i] = q^i). */
