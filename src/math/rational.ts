@@ -209,6 +209,10 @@ export class Rational {
 
   /** Nearest float64 (round half to even), correctly rounded. */
   toNumber(): number {
+    const n = this.num;
+    const d = this.den;
+    // Most of the planner's values (a point's coefficients, a spec's decimals) fit in doubles exactly.
+    if (n < SAFE && n > -SAFE && d < SAFE) return smallQuotient(Number(n), Number(d));
     return roundToBinary(this, 53, -1074);
   }
   /** Nearest binary32 value, correctly rounded, returned as a JS number. */
@@ -261,6 +265,41 @@ function sumOf(a: Rational, n: bigint, d: bigint): Rational {
   if (t === 0n) return Rational.ZERO;
   const d2 = gcd(abs(t), d1);
   return Rational.of(t / d2, (a.den / d1) * (d / d2), true);
+}
+
+/** 2^53: integers of smaller magnitude are exact doubles. */
+const SAFE = 2n ** 53n;
+/** Veltkamp's splitting constant for float64, 2^27 + 1. */
+const SPLIT = 2 ** 27 + 1;
+
+/**
+ * roundToBinary(n / d, 53, -1074) for integers |n|, d below 2^53 (d > 0)
+ * held exactly in doubles, with the same side in `rounded`: IEEE 754
+ * division rounds the exact quotient to nearest, ties to even (and no such
+ * quotient is a tie: with d a power of two it has at most 53 bits, otherwise
+ * it is not dyadic), and it is normal (|n / d| > 2^-53). The side is the sign
+ * of q d - n, found exactly: Dekker's product (Dekker 1971, with Veltkamp's
+ * split) gives q d = p + e exactly; p lies within a factor 1 +- 2^-51 of n,
+ * so p - n is exact (Sterbenz's lemma); and the rounded sum (p - n) + e has
+ * the sign of the exact one.
+ */
+function smallQuotient(n: number, d: number): number {
+  if (n === 0) {
+    rounded.direction = 0;
+    return 0;
+  }
+  const q = n / d;
+  const p = q * d;
+  const cq = SPLIT * q;
+  const qh = cq - (cq - q);
+  const ql = q - qh;
+  const cd = SPLIT * d;
+  const dh = cd - (cd - d);
+  const dl = d - dh;
+  const e = qh * dh - p + qh * dl + ql * dh + ql * dl;
+  const r = p - n + e;
+  rounded.direction = r > 0 ? 1 : r < 0 ? -1 : 0;
+  return q;
 }
 
 /**

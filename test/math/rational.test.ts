@@ -345,6 +345,36 @@ describe('float conversions over the whole binary64 range (decimal.js with every
     );
   });
 
+  test('toNumber and toNumberBounds of quotients of integers below 2^53 (the doubles path): the nearest double and the side of it the value lies on (decimal.js)', () => {
+    const limit = 2n ** 53n - 1n;
+    const check = (r: Rational): void => {
+      const x = r.toNumber();
+      const [lo, hi] = r.toNumberBounds();
+      const v = value(r);
+      const distance = (y: number): Decimal => exactDecimal(W, y).minus(v).abs();
+      // The nearest double (a tie only past 2^53, where the exact path rounds it to even).
+      expect(distance(x).lte(distance(nextUp(x)))).toBe(true);
+      expect(distance(x).lte(distance(nextDown(x)))).toBe(true);
+      // The side: one double when exact, else the adjacent pair around the value.
+      expect(exactDecimal(W, lo).lte(v) && exactDecimal(W, hi).gte(v)).toBe(true);
+      if (lo === hi) expect(exactDecimal(W, lo).eq(v)).toBe(true);
+      else expect(hi === nextUp(lo) && (x === lo || x === hi)).toBe(true);
+      expect([r.toNumberDown(), r.toNumberUp()]).toEqual([lo, hi]);
+    };
+    const edge = [1n, 2n, 3n, 5n, 7n, 10n, 2n ** 52n, 2n ** 52n + 1n, limit - 1n, limit];
+    // Just past 2^53 (the exact path): on either side of the bound the same answers.
+    edge.push(2n ** 53n, 2n ** 53n + 1n, 2n ** 54n - 1n, 2n ** 59n + 3n);
+    for (const n of edge) for (const d of edge) for (const sign of [1n, -1n]) check(Rational.of(sign * n, d));
+    const sizes = fc.integer({ min: 0, max: 53 });
+    fc.assert(
+      fc.property(sizes, sizes, fc.bigInt({ min: -limit, max: limit }), fc.bigInt({ min: 1n, max: limit }), (bn, bd, n, d) => {
+        // Numerators and denominators of every size up to 53 bits.
+        check(Rational.of(n % 2n ** BigInt(bn), (d % 2n ** BigInt(bd)) || 1n));
+      }),
+      { numRuns: 3000, seed: 20261203 },
+    );
+  });
+
   test('toNumberBounds encloses the exact value by adjacent doubles, one double when it is one (decimal.js), subnormals and near-overflow included', () => {
     const side = fc.bigInt({ min: 1n, max: 2n ** 200n });
     const scale = fc.integer({ min: -1300, max: 1100 });
