@@ -3,7 +3,7 @@
  * denominator. Used wherever a value must be exact: constant folding of spec
  * expressions, the binary value of a float, the bisection reference.
  */
-import { bitLength, gcd } from './gcd.js';
+import { bitLength, bitsOf, countPasses, exactWork, gcd } from './gcd.js';
 import { nextDown, nextUp } from './next-float.js';
 
 export { nextDown, nextUp };
@@ -58,6 +58,50 @@ export class Rational {
         if (h === 1n) break;
         const g = gcd(n, h);
         if (g === 1n) break;
+        n /= g;
+        den /= g;
+      }
+    }
+    return new Rational(negative ? -n : n, den);
+  }
+
+  /**
+   * num / den in lowest terms, for den > 0 whose odd primes each divide one
+   * of `factors`, odd numbers below 2^64 (the composition's denominators, a
+   * power of two times powers of one-word odd numbers): the common power of
+   * two goes by a shift, then, as in `ofFactored`, for each factor f the
+   * common part of num and f is divided out while den shares it, each step
+   * a remainder by f and by that part (one word each), where a gcd of num and
+   * den runs Lehmer's algorithm over the whole denominator. The loop's
+   * argument is ofFactored's: a prime left in both divides some f, and that
+   * f's loop ended only when num or den lacked it.
+   */
+  static ofWordFactors(num: bigint, den: bigint, factors: readonly bigint[]): Rational {
+    if (num === 0n) return Rational.ZERO;
+    const negative = num < 0n;
+    let n = negative ? -num : num;
+    // Counted as linear passes over both operands at their starting size (they only shrink).
+    const bits = bitsOf(n) + bitsOf(den);
+    const lowN = n & -n;
+    const lowD = den & -den;
+    const low = lowN < lowD ? lowN : lowD;
+    countPasses(bits, 3);
+    if (low !== 1n) {
+      const k = BigInt(bitsOf(low) - 1);
+      n >>= k;
+      den >>= k;
+    }
+    for (const f of factors) {
+      if (f === 1n) continue;
+      for (;;) {
+        exactWork.steps += 2;
+        countPasses(bits);
+        const h = wordGcd(f, n % f);
+        if (h === 1n) break;
+        const g = wordGcd(h, den % h);
+        if (g === 1n) break;
+        exactWork.steps += 2;
+        countPasses(bits);
         n /= g;
         den /= g;
       }
@@ -165,6 +209,10 @@ export class Rational {
 
   /** Nearest float64 (round half to even), correctly rounded. */
   toNumber(): number {
+    const n = this.num;
+    const d = this.den;
+    // Most of the planner's values (a point's coefficients, a spec's decimals) fit in doubles exactly.
+    if (n < SAFE && n > -SAFE && d < SAFE) return smallQuotient(Number(n), Number(d));
     return roundToBinary(this, 53, -1074);
   }
   /** Nearest binary32 value, correctly rounded, returned as a JS number. */
@@ -217,6 +265,41 @@ function sumOf(a: Rational, n: bigint, d: bigint): Rational {
   if (t === 0n) return Rational.ZERO;
   const d2 = gcd(abs(t), d1);
   return Rational.of(t / d2, (a.den / d1) * (d / d2), true);
+}
+
+/** 2^53: integers of smaller magnitude are exact doubles. */
+const SAFE = 2n ** 53n;
+/** Veltkamp's splitting constant for float64, 2^27 + 1. */
+const SPLIT = 2 ** 27 + 1;
+
+/**
+ * roundToBinary(n / d, 53, -1074) for integers |n|, d below 2^53 (d > 0)
+ * held exactly in doubles, with the same side in `rounded`: IEEE 754
+ * division rounds the exact quotient to nearest, ties to even (and no such
+ * quotient is a tie: with d a power of two it has at most 53 bits, otherwise
+ * it is not dyadic), and it is normal (|n / d| > 2^-53). The side is the sign
+ * of q d - n, found exactly: Dekker's product (Dekker 1971, with Veltkamp's
+ * split) gives q d = p + e exactly; p lies within a factor 1 +- 2^-51 of n,
+ * so p - n is exact (Sterbenz's lemma); and the rounded sum (p - n) + e has
+ * the sign of the exact one.
+ */
+function smallQuotient(n: number, d: number): number {
+  if (n === 0) {
+    rounded.direction = 0;
+    return 0;
+  }
+  const q = n / d;
+  const p = q * d;
+  const cq = SPLIT * q;
+  const qh = cq - (cq - q);
+  const ql = q - qh;
+  const cd = SPLIT * d;
+  const dh = cd - (cd - d);
+  const dl = d - dh;
+  const e = qh * dh - p + qh * dl + ql * dh + ql * dl;
+  const r = p - n + e;
+  rounded.direction = r > 0 ? 1 : r < 0 ? -1 : 0;
+  return q;
 }
 
 /**
@@ -318,4 +401,14 @@ const rounded = { direction: 0 };
 const powersOfTwo: bigint[] = [];
 function powerOfTwo(k: number): bigint {
   return (powersOfTwo[k] ??= 1n << BigInt(k));
+}
+
+/** gcd(a, b) for 0 <= b < a < 2^64 (Euclid's algorithm on one-word BigInts). */
+function wordGcd(a: bigint, b: bigint): bigint {
+  while (b !== 0n) {
+    const t = a % b;
+    a = b;
+    b = t;
+  }
+  return a;
 }

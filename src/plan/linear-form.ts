@@ -9,7 +9,8 @@
  * that differs between segments becomes a table read).
  */
 import { Rational } from '../math/rational.js';
-import { taylorShift } from '../series/recenter.js';
+import { headWork, taylorShift, taylorShiftHeads, type ShiftHeads } from '../series/recenter.js';
+import { countExactAgain } from '../math/rational.js';
 import type { ProgramBuilder, Ref, SegValues } from '../ir/builder.js';
 import { constantValue } from '../family/expr-eval.js';
 import type { Constants, Expr } from '../family/types.js';
@@ -62,7 +63,7 @@ export function scaleForm(a: LinearForm, s: SegValues, mul: (x: Rational, y: Rat
  * are those of the computation done again.
  */
 const products = replayMemo<Rational>();
-const shifts = replayMemo<Rational[]>();
+const shifts = replayMemo<{ readonly values: readonly Rational[]; readonly heads: ShiftHeads }>();
 
 /** x * y, computed once per count for each pair of values (a zero costs nothing). */
 export function productOnce(x: Rational, y: Rational): Rational {
@@ -75,17 +76,27 @@ export function scaleFormOnce(a: LinearForm, s: SegValues): LinearForm {
   return scaleForm(a, s, productOnce);
 }
 
-/** series/recenter.ts taylorShift, computed once per count for each coefficient vector (named by `group`), point and order (read only). */
+/**
+ * series/recenter.ts taylorShift to order `top`, the full shift computed once per count for each coefficient
+ * vector (named by `group`) and point (read only). A shortened shift (the order-0 sketch's c'0, c'1, top 1) is
+ * not kept: rarely asked again at the same point (battery-soc never, thermocouple-t 86 times in 2116), its values
+ * would otherwise die young (kept, they cost thermocouple-t 1.7 MB promoted). Where the full shift at that point
+ * is kept (the layout's prefix came first: gas-wide's sketches 7143 times in 7152) its first values stand in,
+ * counting the work the shortened shift counts (taylorShiftHeads).
+ */
 function shiftOnce(group: string, c: readonly Rational[], x0: Rational, top: number): readonly Rational[] {
-  // The order-0 sketch's c'0, c'1 (top 1): rarely asked again at the same point (battery-soc never, thermocouple-t
-  // 86 times in 2116), and its values would otherwise die young; kept, they cost thermocouple-t 1.7 MB promoted.
-  if (top < c.length - 1) return taylorShift(c, x0, top);
-  return shifts(group, [x0], () => taylorShift(c, x0, top));
+  if (top < c.length - 1) {
+    const full = shifts.peek(group, [x0]);
+    if (!full) return taylorShift(c, x0, top);
+    countExactAgain(headWork(full.heads, top));
+    return full.values;
+  }
+  return shifts(group, [x0], () => taylorShiftHeads(c, x0)).values;
 }
 
-/** The group of a shift: the order and the coefficients' values (short: the spec's coefficients as exact forms). */
-function shiftGroup(c: readonly Rational[], top: number): string {
-  let key = `${top}:`;
+/** The group of a shift: the coefficients' values (short: the spec's coefficients as exact forms), whatever order is asked. */
+function shiftGroup(c: readonly Rational[]): string {
+  let key = '';
   for (const v of c) key += `${keyOf(v)},`;
   return key;
 }
@@ -117,7 +128,7 @@ export function shiftedLinearForms(c: readonly LinearForm[], x0: SegValues, upTo
         if (v !== vector[k]) changed = true;
         vector[k] = v;
       }
-      if (changed) group = shiftGroup(vector, top);
+      if (changed) group = shiftGroup(vector);
       const shifted = shiftOnce(group, vector, x0[seg]!, top);
       for (let j = 0; j <= top; j++) out[j]![seg] = shifted[j]!;
     }

@@ -41,14 +41,24 @@ interface Entry<T> extends ExactWork {
  * one object: what the memo holds lives as long as the count and is promoted
  * out of the young generation, which the garbage collector pays for.
  */
-export function replayMemo<T>(): (group: string, values: readonly Rational[], compute: () => T) => T {
+export interface ReplayMemo<T> {
+  (group: string, values: readonly Rational[], compute: () => T): T;
+  /** The value kept for `group` and `values` in this count, or undefined: nothing is computed or counted. */
+  peek(group: string, values: readonly Rational[]): T | undefined;
+}
+
+export function replayMemo<T>(): ReplayMemo<T> {
   const tables = planMemo<object, Map<string, Map<number, Entry<T>>>>();
-  return (group, values, compute) => {
+  const tableOf = (group: string): Map<number, Entry<T>> => {
     const byCount = tables();
     let groups = byCount.get(TABLE);
     if (!groups) byCount.set(TABLE, (groups = new Map()));
     let table = groups.get(group);
     if (!table) groups.set(group, (table = new Map()));
+    return table;
+  };
+  const memo = (group: string, values: readonly Rational[], compute: () => T): T => {
+    const table = tableOf(group);
     const h = hashOf(values);
     const first = table.get(h);
     for (let e = first; e !== undefined; e = e.next) {
@@ -61,6 +71,11 @@ export function replayMemo<T>(): (group: string, values: readonly Rational[], co
     table.set(h, { value: made.value, steps: made.steps, words: made.words, values, next: first });
     return made.value;
   };
+  const peek = (group: string, values: readonly Rational[]): T | undefined => {
+    for (let e = tableOf(group).get(hashOf(values)); e !== undefined; e = e.next) if (same(e.values, values)) return e.value;
+    return undefined;
+  };
+  return Object.assign(memo, { peek });
 }
 
 /** The low 26 bits of every numerator and denominator, mixed into an integer below 2^32 (exact in a double). */

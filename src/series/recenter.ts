@@ -7,7 +7,7 @@
  * and the one the bound is computed for are the same number.
  */
 import { MultiPoly } from '../math/multipoly.js';
-import { bitsOf, countProduct, gcd, Rational } from '../math/rational.js';
+import { bitsOf, countProduct, exactWork, gcd, Rational, type ExactWork } from '../math/rational.js';
 
 export function binomial(n: number, k: number): bigint {
   if (k < 0 || k > n) return 0n;
@@ -59,6 +59,47 @@ export function taylorShift(c: readonly Rational[], x0: Rational, upTo: number =
   return out;
 }
 
+/**
+ * taylorShift to the last coefficient, with the exact work that
+ * taylorShift(c, x0, j) counts for each j below it (`heads[j]`): the
+ * shortened shift makes the same scaling, the same first j + 1 passes of
+ * synthetic division and the same first j + 1 reductions, each counting the
+ * same operands. A kept full shift can then stand in for a shortened one
+ * (plan/linear-form.ts: the order-0 sketch's c'0, c'1 after a layout's full
+ * recentring at the same point) and count exactly what the shortened one
+ * would.
+ */
+export function taylorShiftHeads(c: readonly Rational[], x0: Rational): { readonly values: Rational[]; readonly heads: ShiftHeads } {
+  const n = c.length - 1;
+  // One array of numbers, not an object per order: a kept shift lives as long as its work count.
+  const heads = new Float64Array(2 * Math.max(n, 0));
+  if (x0.num === 0n) return { values: c.slice(), heads };
+  // Read off the running counters (no closure per pass): what the shortened shifts count is the sum so far.
+  const steps0 = exactWork.steps;
+  const words0 = exactWork.words;
+  const s = scaledNumerators(c, x0);
+  const pBits = bitsOf(x0.num);
+  const values: Rational[] = [];
+  for (let j = 0; j < n; j++) {
+    // Pass j (the last pass is n - 1) and the reduction of c'_j: what the shortened shift to j adds to the one to j - 1.
+    if (s) shiftPass(s.a, x0.num, pBits, j);
+    values.push(s ? shiftedValue(s, j) : Rational.ZERO);
+    heads[2 * j] = exactWork.steps - steps0;
+    heads[2 * j + 1] = exactWork.words - words0;
+  }
+  if (n >= 0) values.push(s ? shiftedValue(s, n) : Rational.ZERO);
+  return { values, heads };
+}
+
+/** taylorShiftHeads' counts: the exact work of the shift to order j is steps heads[2j], words heads[2j + 1]. */
+export type ShiftHeads = Float64Array;
+
+/** The exact work taylorShift(c, x0, j) counts, from taylorShiftHeads(c, x0).heads (j below the last coefficient). */
+export function headWork(heads: ShiftHeads, j: number): ExactWork {
+  if (!(2 * j + 1 < heads.length)) throw new RangeError(`no shortened shift to order ${j}`);
+  return { steps: heads[2 * j]!, words: heads[2 * j + 1]! };
+}
+
 /** c'_j = a[j] / (d q^(n-j)) for j <= the `top` asked for (n = a.length - 1, qPowers[i] = q^i). */
 export interface ShiftNumerators {
   readonly a: readonly bigint[];
@@ -81,8 +122,18 @@ export function shiftedValue(s: ShiftNumerators, j: number): Rational {
  * (src/plan/work.ts) as series/grade-sums.ts counts its own.
  */
 export function shiftNumerators(c: readonly Rational[], x0: Rational, top: number = c.length - 1): ShiftNumerators | null {
+  const s = scaledNumerators(c, x0);
+  if (!s) return null;
+  if (x0.num !== 0n) {
+    const pBits = bitsOf(x0.num);
+    for (let i = 0; i <= Math.min(top, c.length - 2); i++) shiftPass(s.a, x0.num, pBits, i);
+  }
+  return s;
+}
+
+/** The integers A_k = (D c_k) q^(n-k) (`a`, shifted in place by shiftPass), D and the powers of q; null when every c_k is zero. */
+function scaledNumerators(c: readonly Rational[], x0: Rational): (ShiftNumerators & { readonly a: bigint[] }) | null {
   const n = c.length - 1;
-  const p = x0.num;
   const q = x0.den;
   // The least common denominator: the planner's are mostly equal, or powers 2^i 5^j dividing one another.
   let d = 1n;
@@ -105,17 +156,17 @@ export function shiftNumerators(c: readonly Rational[], x0: Rational, top: numbe
   }
   // The scalings above and the denominators of the results: about 2(n + 1) products by D and powers of q.
   countProduct(bitsOf(d) + bitsOf(qPowers[n]!), 64, 2 * (n + 1));
-  if (p !== 0n) {
-    const pBits = bitsOf(p);
-    for (let i = 0; i <= Math.min(top, n - 1); i++) {
-      for (let k = n - 1; k >= i; k--) {
-        const next = a[k + 1]!;
-        if (next !== 0n) a[k] = a[k]! + p * next;
-      }
-      countProduct(pBits, bitsOf(a[i]!), n - i);
-    }
-  }
   return { a, d, qPowers };
+}
+
+/** Pass i of the synthetic division by w - p (i < a.length - 1): makes B_i in a[i] with n - i products by p, counted. */
+function shiftPass(a: bigint[], p: bigint, pBits: number, i: number): void {
+  const n = a.length - 1;
+  for (let k = n - 1; k >= i; k--) {
+    const next = a[k + 1]!;
+    if (next !== 0n) a[k] = a[k]! + p * next;
+  }
+  countProduct(pBits, bitsOf(a[i]!), n - i);
 }
 
 /**

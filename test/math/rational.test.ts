@@ -279,6 +279,35 @@ describe('Rational.ofFactored (lowest terms by gcds with the factors of the deno
   });
 });
 
+describe('Rational.ofWordFactors (lowest terms by one-word odd factors of the denominator) against mathjs', () => {
+  // mathjs gcd on BigNumbers (800 digits, more than any operand here) is exact.
+  const big = create(all, { number: 'BigNumber', precision: 800 });
+  const reference = (a: bigint, b: bigint): bigint => BigInt(big.gcd(big.bignumber(a.toString()), big.bignumber(b.toString())).toFixed());
+  // Odd factors below 2^64 with small primes in them (3, 5, 7 and 9 divide them often, as in the composition's denominators).
+  const oddFactor = fc.tuple(fc.bigInt({ min: 0n, max: 2n ** 62n }), fc.constantFrom(1n, 3n, 5n, 7n, 9n, 15n, 63n)).map(([x, s]) => { const f = (2n * x + 1n) * s; return f < 2n ** 64n ? f : s; });
+  test('num / (2^i prod f_j^e_j) reduces to num / g over den / g, g the mathjs gcd, for shared and coprime parts', () => {
+    fc.assert(
+      fc.property(
+        fc.array(fc.tuple(oddFactor, fc.integer({ min: 0, max: 8 })), { minLength: 1, maxLength: 3 }),
+        fc.integer({ min: 0, max: 300 }),
+        fc.bigInt({ min: -(2n ** 400n), max: 2n ** 400n }),
+        fc.integer({ min: 0, max: 9 }),
+        fc.integer({ min: 0, max: 200 }),
+        (fs, twos, x, share, numTwos) => {
+          const den = fs.reduce((d, [f, e]) => d * f ** BigInt(e), 1n) << BigInt(twos);
+          // A common part with den now and then: powers of the first factor and of a divisor of the last, and of two.
+          const last = fs[fs.length - 1]![0];
+          const num = ((x * fs[0]![0] ** BigInt(share) * reference(last, 45n)) << BigInt(numTwos));
+          const r = Rational.ofWordFactors(num, den, fs.map(([f]) => f));
+          const g = num === 0n ? den : reference(num < 0n ? -num : num, den);
+          expect([r.num, r.den]).toEqual([num / g, den / g]);
+        },
+      ),
+      { numRuns: 400, seed: 20261203 },
+    );
+  });
+});
+
 describe('float conversions over the whole binary64 range (decimal.js with every digit, ECMAScript BigInt)', () => {
   // 1100 significant digits hold any double exactly (a 53-bit integer times 2^-1074 has 767 significant digits),
   // and any quotient of them compared here; the exponent range covers 2^-1074 and 2^1024.
@@ -313,6 +342,36 @@ describe('float conversions over the whole binary64 range (decimal.js with every
         if (m > 0n) expect(bitsOf(-m)).toBe(m.toString(2).length);
       }),
       { numRuns: 2000, seed: 20261202 },
+    );
+  });
+
+  test('toNumber and toNumberBounds of quotients of integers below 2^53 (the doubles path): the nearest double and the side of it the value lies on (decimal.js)', () => {
+    const limit = 2n ** 53n - 1n;
+    const check = (r: Rational): void => {
+      const x = r.toNumber();
+      const [lo, hi] = r.toNumberBounds();
+      const v = value(r);
+      const distance = (y: number): Decimal => exactDecimal(W, y).minus(v).abs();
+      // The nearest double (a tie only past 2^53, where the exact path rounds it to even).
+      expect(distance(x).lte(distance(nextUp(x)))).toBe(true);
+      expect(distance(x).lte(distance(nextDown(x)))).toBe(true);
+      // The side: one double when exact, else the adjacent pair around the value.
+      expect(exactDecimal(W, lo).lte(v) && exactDecimal(W, hi).gte(v)).toBe(true);
+      if (lo === hi) expect(exactDecimal(W, lo).eq(v)).toBe(true);
+      else expect(hi === nextUp(lo) && (x === lo || x === hi)).toBe(true);
+      expect([r.toNumberDown(), r.toNumberUp()]).toEqual([lo, hi]);
+    };
+    const edge = [1n, 2n, 3n, 5n, 7n, 10n, 2n ** 52n, 2n ** 52n + 1n, limit - 1n, limit];
+    // Just past 2^53 (the exact path): on either side of the bound the same answers.
+    edge.push(2n ** 53n, 2n ** 53n + 1n, 2n ** 54n - 1n, 2n ** 59n + 3n);
+    for (const n of edge) for (const d of edge) for (const sign of [1n, -1n]) check(Rational.of(sign * n, d));
+    const sizes = fc.integer({ min: 0, max: 53 });
+    fc.assert(
+      fc.property(sizes, sizes, fc.bigInt({ min: -limit, max: limit }), fc.bigInt({ min: 1n, max: limit }), (bn, bd, n, d) => {
+        // Numerators and denominators of every size up to 53 bits.
+        check(Rational.of(n % 2n ** BigInt(bn), (d % 2n ** BigInt(bd)) || 1n));
+      }),
+      { numRuns: 3000, seed: 20261203 },
     );
   });
 

@@ -16,7 +16,7 @@
 import { describe, expect, test } from '@jest/globals';
 import { Decimal } from 'decimal.js';
 import { exactWork, Rational } from '../../src/math/rational.js';
-import { taylorShift } from '../../src/series/recenter.js';
+import { headWork, taylorShift, taylorShiftHeads } from '../../src/series/recenter.js';
 import { productOnce, scaleFormOnce, shiftedLinearForms, type LinearForm } from '../../src/plan/linear-form.js';
 import { startWork } from '../../src/plan/work.js';
 
@@ -78,6 +78,49 @@ describe('recentring kept per count, counted at every repeat', () => {
       expect(got.value.length).toBe(2);
       for (let j = 0; j < 2; j++) X0.forEach((_, seg) => expect(got.value[j]!.constant[seg]!.eq(full[j]!.constant[seg]!)).toBe(true));
     }
+  });
+
+  test('taylorShiftHeads: the decimal.js sums, and for every j below the last the work taylorShift counts to order j', () => {
+    // The battery coefficients, a cubic with a zero and a non-dyadic point, every coefficient zero, and x0 = 0.
+    const cubic = ['-0.053019', '1.37', '0', '62.5'].map((t) => Rational.parseDecimal(t));
+    const cases: [Rational[], Rational][] = [
+      ...X0.map((x): [Rational[], Rational] => [E, x]),
+      [cubic, Rational.of(-7n, 3n)],
+      [cubic, Rational.fromNumber(Math.fround(0.4123))],
+      [[Rational.ZERO, Rational.ZERO, Rational.ZERO], Rational.of(5n, 4n)],
+      [E, Rational.ZERO],
+    ];
+    for (const [c, x] of cases) {
+      const got = counted(() => taylorShiftHeads(c, x));
+      const whole = counted(() => taylorShift(c, x));
+      expect([got.steps, got.words]).toEqual([whole.steps, whole.words]);
+      expect(() => headWork(got.value.heads, c.length - 1)).toThrow(RangeError);
+      for (let j = 0; j < c.length; j++) {
+        let sum = new D(0);
+        for (let k = j; k < c.length; k++) sum = sum.plus(dec(c[k]!).times(binomial(k, j)).times(dec(x).pow(k - j)));
+        expect(dec(got.value.values[j]!).minus(sum).abs().lte(sum.abs().times(1e-150))).toBe(true);
+        if (j === c.length - 1) continue;
+        const shortened = counted(() => taylorShift(c, x, j));
+        expect(headWork(got.value.heads, j)).toEqual({ steps: shortened.steps, words: shortened.words });
+        shortened.value.forEach((v, i) => expect(v.eq(got.value.values[i]!)).toBe(true));
+      }
+    }
+  });
+
+  test("the sketch after the full recentring at the same points is handed the kept values, counting the shortened shift's work", () => {
+    startWork();
+    const want = counted(() => X0.flatMap((x) => [taylorShift(E, x, 1), taylorShift([Rational.ONE.neg(), ...E.slice(1).map(() => Rational.ZERO)], x, 1)]));
+    const full = shiftedLinearForms(forms(3), X0);
+    const sketch = counted(() => shiftedLinearForms(forms(3), X0, 1));
+    expect([sketch.steps, sketch.words]).toEqual([want.steps, want.words]);
+    // The same objects: nothing was computed again.
+    for (let j = 0; j < 2; j++) X0.forEach((_, seg) => expect(sketch.value[j]!.constant[seg]).toBe(full[j]!.constant[seg]));
+    // In a new count nothing is kept: computed afresh, the same count and values.
+    startWork();
+    const fresh = counted(() => shiftedLinearForms(forms(3), X0, 1));
+    expect([fresh.steps, fresh.words]).toEqual([want.steps, want.words]);
+    expect(fresh.value[1]!.constant[0]).not.toBe(full[1]!.constant[0]);
+    expect(fresh.value[1]!.constant[0]!.eq(full[1]!.constant[0]!)).toBe(true);
   });
 
   test('a repeat hands out the kept values (the time saved), and a new count starts an empty memo that counts the same', () => {
