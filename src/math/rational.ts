@@ -3,7 +3,7 @@
  * denominator. Used wherever a value must be exact: constant folding of spec
  * expressions, the binary value of a float, the bisection reference.
  */
-import { bitLength, gcd } from './gcd.js';
+import { bitLength, bitsOf, countPasses, exactWork, gcd } from './gcd.js';
 import { nextDown, nextUp } from './next-float.js';
 
 export { nextDown, nextUp };
@@ -58,6 +58,50 @@ export class Rational {
         if (h === 1n) break;
         const g = gcd(n, h);
         if (g === 1n) break;
+        n /= g;
+        den /= g;
+      }
+    }
+    return new Rational(negative ? -n : n, den);
+  }
+
+  /**
+   * num / den in lowest terms, for den > 0 whose odd primes each divide one
+   * of `factors`, odd numbers below 2^64 (the composition's denominators, a
+   * power of two times powers of one-word odd numbers): the common power of
+   * two goes by a shift, then, as in `ofFactored`, for each factor f the
+   * common part of num and f is divided out while den shares it, each step
+   * a remainder by f and by that part (one word each), where a gcd of num and
+   * den runs Lehmer's algorithm over the whole denominator. The loop's
+   * argument is ofFactored's: a prime left in both divides some f, and that
+   * f's loop ended only when num or den lacked it.
+   */
+  static ofWordFactors(num: bigint, den: bigint, factors: readonly bigint[]): Rational {
+    if (num === 0n) return Rational.ZERO;
+    const negative = num < 0n;
+    let n = negative ? -num : num;
+    // Counted as linear passes over both operands at their starting size (they only shrink).
+    const bits = bitsOf(n) + bitsOf(den);
+    const lowN = n & -n;
+    const lowD = den & -den;
+    const low = lowN < lowD ? lowN : lowD;
+    countPasses(bits, 3);
+    if (low !== 1n) {
+      const k = BigInt(bitsOf(low) - 1);
+      n >>= k;
+      den >>= k;
+    }
+    for (const f of factors) {
+      if (f === 1n) continue;
+      for (;;) {
+        exactWork.steps += 2;
+        countPasses(bits);
+        const h = wordGcd(f, n % f);
+        if (h === 1n) break;
+        const g = wordGcd(h, den % h);
+        if (g === 1n) break;
+        exactWork.steps += 2;
+        countPasses(bits);
         n /= g;
         den /= g;
       }
@@ -357,4 +401,14 @@ const rounded = { direction: 0 };
 const powersOfTwo: bigint[] = [];
 function powerOfTwo(k: number): bigint {
   return (powersOfTwo[k] ??= 1n << BigInt(k));
+}
+
+/** gcd(a, b) for 0 <= b < a < 2^64 (Euclid's algorithm on one-word BigInts). */
+function wordGcd(a: bigint, b: bigint): bigint {
+  while (b !== 0n) {
+    const t = a % b;
+    a = b;
+    b = t;
+  }
+  return a;
 }

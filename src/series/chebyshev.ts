@@ -130,9 +130,26 @@ export function fromChebyshev(c: readonly Rational[]): Rational[] {
   return rationalsOf(scaledFromChebyshev(scaledOf(c)));
 }
 
-/** p(a + b u) as a polynomial in u, exactly (index = power). */
+/**
+ * p(a + b u) as a polynomial in u, exactly (index = power). The common
+ * denominator is p's times lcm(a.den, b.den)^N, so every odd prime of it
+ * divides the odd part of one of the three: when those fit one word each the
+ * coefficients are reduced by them (Rational.ofWordFactors), not by a gcd
+ * with the whole denominator (a third of folding a result, src/plan/result-fold.ts).
+ */
 export function composeAffine(p: readonly Rational[], a: Rational, b: Rational): Rational[] {
-  return rationalsOf(scaledComposeAffine(scaledOf(p), a, b));
+  const scaled = scaledOf(p);
+  const s = scaledComposeAffine(scaled, a, b);
+  const factors = [oddPart(scaled.den), oddPart(a.den), oddPart(b.den)];
+  if (factors.some((f) => f >= WORD)) return rationalsOf(s);
+  return s.num.map((n) => Rational.ofWordFactors(n, s.den, factors));
+}
+
+const WORD = 1n << 64n;
+
+/** n > 0 without its factors of two. */
+function oddPart(n: bigint): bigint {
+  return n / (n & -n);
 }
 
 /** p(s u) for a scale s (coefficient k times s^k). */

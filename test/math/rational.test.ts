@@ -279,6 +279,35 @@ describe('Rational.ofFactored (lowest terms by gcds with the factors of the deno
   });
 });
 
+describe('Rational.ofWordFactors (lowest terms by one-word odd factors of the denominator) against mathjs', () => {
+  // mathjs gcd on BigNumbers (800 digits, more than any operand here) is exact.
+  const big = create(all, { number: 'BigNumber', precision: 800 });
+  const reference = (a: bigint, b: bigint): bigint => BigInt(big.gcd(big.bignumber(a.toString()), big.bignumber(b.toString())).toFixed());
+  // Odd factors below 2^64 with small primes in them (3, 5, 7 and 9 divide them often, as in the composition's denominators).
+  const oddFactor = fc.tuple(fc.bigInt({ min: 0n, max: 2n ** 62n }), fc.constantFrom(1n, 3n, 5n, 7n, 9n, 15n, 63n)).map(([x, s]) => { const f = (2n * x + 1n) * s; return f < 2n ** 64n ? f : s; });
+  test('num / (2^i prod f_j^e_j) reduces to num / g over den / g, g the mathjs gcd, for shared and coprime parts', () => {
+    fc.assert(
+      fc.property(
+        fc.array(fc.tuple(oddFactor, fc.integer({ min: 0, max: 8 })), { minLength: 1, maxLength: 3 }),
+        fc.integer({ min: 0, max: 300 }),
+        fc.bigInt({ min: -(2n ** 400n), max: 2n ** 400n }),
+        fc.integer({ min: 0, max: 9 }),
+        fc.integer({ min: 0, max: 200 }),
+        (fs, twos, x, share, numTwos) => {
+          const den = fs.reduce((d, [f, e]) => d * f ** BigInt(e), 1n) << BigInt(twos);
+          // A common part with den now and then: powers of the first factor and of a divisor of the last, and of two.
+          const last = fs[fs.length - 1]![0];
+          const num = ((x * fs[0]![0] ** BigInt(share) * reference(last, 45n)) << BigInt(numTwos));
+          const r = Rational.ofWordFactors(num, den, fs.map(([f]) => f));
+          const g = num === 0n ? den : reference(num < 0n ? -num : num, den);
+          expect([r.num, r.den]).toEqual([num / g, den / g]);
+        },
+      ),
+      { numRuns: 400, seed: 20261203 },
+    );
+  });
+});
+
 describe('float conversions over the whole binary64 range (decimal.js with every digit, ECMAScript BigInt)', () => {
   // 1100 significant digits hold any double exactly (a 53-bit integer times 2^-1074 has 767 significant digits),
   // and any quotient of them compared here; the exponent range covers 2^-1074 and 2^1024.
