@@ -5,8 +5,13 @@
  * and each analysis writes lo, hi and error per node into buffers the
  * program owns, allocating nothing per cell. Every operation rounds exactly
  * as the interval helpers of src/math/interval.ts and src/math/directed.ts do.
+ * The per-cell loop steps with the lean variants of nextUp, nextDown, addUp,
+ * mulUp and divUp (the same values bit for bit, src/math/next-float.ts): with
+ * the plain ones its two dozen call sites ran past V8's inlining budget, and
+ * the calls left out of line (about a quarter of the function's time in the
+ * corpus's three-input plans) returned their doubles boxed on the heap.
  */
-import { addUp, divUp, mulUp, nextDown, nextUp, subDown } from '../math/directed.js';
+import { addUp, addUpMagnitude, divUpMagnitude, mulUpMagnitude, nextDownLean, nextUp, nextUpLean, subDown } from '../math/directed.js';
 import { mag, type Interval } from '../math/interval.js';
 import { UnknownNodeError, type Program } from './nodes.js';
 import { ARITHMETICS } from '../family/arithmetic.js';
@@ -238,11 +243,11 @@ export function analyseFlat(program: Program, cell: readonly Interval[], segment
         const x = opA[i]!;
         const y = opB[i]!;
         if (op[i] === ADD) {
-          lo = nextDown(L[x]! + L[y]!);
-          hi = nextUp(H[x]! + H[y]!);
+          lo = nextDownLean(L[x]! + L[y]!);
+          hi = nextUpLean(H[x]! + H[y]!);
         } else {
-          lo = nextDown(L[x]! - H[y]!);
-          hi = nextUp(H[x]! - L[y]!);
+          lo = nextDownLean(L[x]! - H[y]!);
+          hi = nextUpLean(H[x]! - L[y]!);
         }
         if (known) {
           const k = known[i];
@@ -255,8 +260,8 @@ export function analyseFlat(program: Program, cell: readonly Interval[], segment
             }
           }
         }
-        const ee = addUp(E[x]!, E[y]!);
-        e = addUp(addUp(ee, mulUp(u, addUp(max(abs(lo), abs(hi)), ee))), eta);
+        const ee = addUpMagnitude(E[x]!, E[y]!);
+        e = addUpMagnitude(addUpMagnitude(ee, mulUpMagnitude(u, addUpMagnitude(max(abs(lo), abs(hi)), ee))), eta);
         break;
       }
       case MUL: {
@@ -278,15 +283,15 @@ export function analyseFlat(program: Program, cell: readonly Interval[], segment
           pl = min(min(p1, p2), min(p3, p4));
           ph = max(max(p1, p2), max(p3, p4));
         }
-        lo = nextDown(pl);
-        hi = nextUp(ph);
+        lo = nextDownLean(pl);
+        hi = nextUpLean(ph);
         const ea = E[x]!;
         const eb = E[y]!;
         const magB = max(abs(bl), abs(bh));
-        const ma = addUp(max(abs(al), abs(ah)), ea);
-        const mb = addUp(magB, eb);
-        const prop = addUp(mulUp(ma, eb), mulUp(magB, ea));
-        e = addUp(addUp(prop, mulUp(u, mulUp(ma, mb))), eta);
+        const ma = addUpMagnitude(max(abs(al), abs(ah)), ea);
+        const mb = addUpMagnitude(magB, eb);
+        const prop = addUpMagnitude(mulUpMagnitude(ma, eb), mulUpMagnitude(magB, ea));
+        e = addUpMagnitude(addUpMagnitude(prop, mulUpMagnitude(u, mulUpMagnitude(ma, mb))), eta);
         break;
       }
       case DIV: {
@@ -311,8 +316,8 @@ export function analyseFlat(program: Program, cell: readonly Interval[], segment
         const p2 = al / bh;
         const p3 = ah / bl;
         const p4 = ah / bh;
-        lo = nextDown(min(min(p1, p2), min(p3, p4)));
-        hi = nextUp(max(max(p1, p2), max(p3, p4)));
+        lo = nextDownLean(min(min(p1, p2), min(p3, p4)));
+        hi = nextUpLean(max(max(p1, p2), max(p3, p4)));
         if (known) {
           const k = known[i];
           if (k) {
@@ -325,8 +330,8 @@ export function analyseFlat(program: Program, cell: readonly Interval[], segment
           }
         }
         const q = max(abs(lo), abs(hi));
-        const prop = divUp(addUp(ea, mulUp(q, eb)), room);
-        e = addUp(addUp(prop, mulUp(u, addUp(q, prop))), eta);
+        const prop = divUpMagnitude(addUpMagnitude(ea, mulUpMagnitude(q, eb)), room);
+        e = addUpMagnitude(addUpMagnitude(prop, mulUpMagnitude(u, addUpMagnitude(q, prop))), eta);
         break;
       }
       case INDEX:

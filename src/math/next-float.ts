@@ -52,6 +52,39 @@ export function nextDown(x: number): number {
   return x <= 0 && x > -EVEN_SPACING ? x - MIN_VALUE : -nextUpByWords(-x);
 }
 
+/**
+ * The lean steps: nextUp and nextDown bit for bit, their fast path (the
+ * arithmetic range) inline and everything else handed to nextUp or nextDown
+ * themselves, so that they are smaller (56 bytes of V8 bytecode against 76
+ * and 85; 41 for `nextUpMagnitude`, which drops the sign test, for sums and
+ * products of non-negative magnitudes: the error bounds). TurboFan inlines
+ * calls within a budget of bytecode per optimised function (920 bytes by
+ * default), and a long function with many directed steps
+ * (src/ir/analyse-flat.ts) ran out of it: the calls left out of line return
+ * their doubles boxed on the heap. Any x gives the value nextUp or nextDown
+ * gives: x outside the fast path's test goes to them.
+ */
+export function nextUpLean(x: number): number {
+  const a = x < 0 ? -x : x;
+  return a >= STEP_LOW && a < STEP_HIGH ? x + a * STEP : nextUp(x);
+}
+
+/** nextDown(x), bit for bit, as lean as nextUpLean. */
+export function nextDownLean(x: number): number {
+  const a = x < 0 ? -x : x;
+  return a >= STEP_LOW && a < STEP_HIGH ? x - a * STEP : nextDown(x);
+}
+
+/** nextUp(x), bit for bit; leanest when x is a non-negative magnitude (a negative x, zero, NaN go to nextUp). */
+export function nextUpMagnitude(x: number): number {
+  return x >= STEP_LOW && x < STEP_HIGH ? x + x * STEP : nextUp(x);
+}
+
+/** nextDown(x), bit for bit; leanest when x is a non-negative magnitude (as nextUpMagnitude). */
+export function nextDownMagnitude(x: number): number {
+  return x >= STEP_LOW && x < STEP_HIGH ? x - x * STEP : nextDown(x);
+}
+
 /** nextUp outside the arithmetic range: zero, subnormal and tiny numbers, the largest binade, NaN and infinities. */
 function nextUpByWords(x: number): number {
   if (x !== x || x === POS_INF) return x;

@@ -6,7 +6,7 @@
  *     R * (a(T) - a_S(T)),
  * a(T) bounded above and a_S(T) below, both with directed rounding.
  */
-import { addDown, addUp, mulDown, mulUp, powDown, powUp, subDown, subUp } from '../math/directed.js';
+import { addDown, addDownMagnitude, addUp, mulDown, mulDownMagnitude, mulUp, powDown, powUp, subDown, subUp } from '../math/directed.js';
 import { containsZero, idiv, imul, isub, mag, mig, point, type Interval } from '../math/interval.js';
 import { Rational } from '../math/rational.js';
 import { analyseFlat, valueOf } from '../ir/analyse.js';
@@ -235,11 +235,15 @@ function layOut(terms: readonly SeriesTerm[]): TermLayout {
   return { h, start, powers };
 }
 
-/** Lower bound of term t's majorant value H(m) T^m on a cell with majorant arguments T. */
+/**
+ * Lower bound of term t's majorant value H(m) T^m on a cell with majorant arguments T.
+ * H(m) and T are magnitudes: the chain steps with mulDownMagnitude (mulDown bit for bit,
+ * without its sign test; this chain and the grade sum were a fifth of the corpus's longest plans).
+ */
 function laidOutValue(T: readonly number[], l: TermLayout, t: number): number {
   let v = l.h[t]!;
   const end = l.start[t + 1]!;
-  for (let p = l.start[t]!; p < end; p++) v = mulDown(v, T[l.powers[p]!]!);
+  for (let p = l.start[t]!; p < end; p++) v = mulDownMagnitude(v, T[l.powers[p]!]!);
   return v;
 }
 
@@ -255,7 +259,7 @@ export function addGrade(f: CellFacts, termsOfGrade: readonly SeriesTerm[], grad
   const l = termLayout(termsOfGrade);
   const T = f.T;
   let s = 0;
-  for (let t = 0; t < l.h.length; t++) s = addDown(s, laidOutValue(T, l, t));
+  for (let t = 0; t < l.h.length; t++) s = addDownMagnitude(s, laidOutValue(T, l, t));
   f.gradeSums[grade] = s;
 }
 

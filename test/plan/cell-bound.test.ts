@@ -178,6 +178,31 @@ describe('term layouts (the grade sums and the greedy choice over many cells)', 
     }
   });
 
+  test('at zero, subnormal, tiny and huge majorant arguments the laid-out values and grade sums are the plain chain bit for bit, and lower bounds (decimal.js)', () => {
+    // The lean steps (mulDownMagnitude, addDownMagnitude) hand these to nextDown: the edges of its fast path, 2^-969 and 2^1023.
+    const edges = [0, Number.MIN_VALUE, 2 ** -1060, 2 ** -1000, 2 ** -969, 2 ** -968 * 0.75, 1e-300, 0.3, 2 ** 300, 2 ** 1000];
+    for (let c = 0; c < edges.length; c++) {
+      const T = [0, 0, edges[c]!, edges[(c + 3) % edges.length]!, edges[(c + 7) % edges.length]!];
+      const f = facts(T, 1, 2);
+      for (let grade = 0; grade <= 5; grade++) {
+        const terms = termsOfGrade(4, [2, 3, 4], grade);
+        const values = termValuesInto(f, termLayout(terms), new Float64Array(terms.length));
+        let sum = 0;
+        terms.forEach((term, t) => {
+          expect(Object.is(values[t], termValue(f, term))).toBe(true);
+          let x = hyperCatalan(term.m);
+          term.m.forEach((e, k) => {
+            if (k >= 2 && e > 0) x = x.times(exact(T[k]!).pow(e));
+          });
+          if (Number.isFinite(values[t]!)) expect(exact(values[t]!).lte(x)).toBe(true);
+          sum = addDown(sum, values[t]!);
+        });
+        addGrade(f, terms, grade);
+        expect(Object.is(f.gradeSums[grade], sum)).toBe(true);
+      }
+    }
+  });
+
   test('a layout is kept per term list, and an empty grade sums to 0', () => {
     const terms = termsOfGrade(5, [2, 3, 4, 5], 4);
     expect(termLayout(terms)).toBe(termLayout(terms));
