@@ -10,7 +10,7 @@
  */
 import { Rational } from '../math/rational.js';
 import { headWork, taylorShift, taylorShiftHeads, type ShiftHeads } from '../series/recenter.js';
-import { countExactAgain } from '../math/rational.js';
+import { countExactAgain, exactWork } from '../math/rational.js';
 import type { ProgramBuilder, Ref, SegValues } from '../ir/builder.js';
 import { constantValue } from '../family/expr-eval.js';
 import type { Constants, Expr } from '../family/types.js';
@@ -25,7 +25,35 @@ export interface LinearForm {
 export const uniform = (c: Rational, segments: number): SegValues => new Array<Rational>(segments).fill(c);
 const allZero = (w: SegValues): boolean => w.every((v) => v.isZero());
 const isUniform = (w: SegValues): boolean => w.every((v) => v.eq(w[0]!));
-const zip = (a: SegValues, b: SegValues, f: (x: Rational, y: Rational) => Rational): SegValues => a.map((x, i) => f(x, b[i]!));
+
+/**
+ * f per segment. A form's values are mostly one object in every segment (`uniform`, a spec constant), so
+ * where a segment's pair is the one before it the result before it is handed out again (values are never
+ * changed) and the exact work that f counted for it (math/gcd.ts exactWork: f is a sum or product, or
+ * productOnce, whose count depends on the values alone) is counted again: the units are those of f
+ * computed per segment (gas-wide's coefficient forms were one product and its gcds per segment).
+ */
+function zip(a: SegValues, b: SegValues, f: (x: Rational, y: Rational) => Rational): SegValues {
+  const out = new Array<Rational>(a.length);
+  let steps = 0;
+  let words = 0;
+  for (let i = 0; i < a.length; i++) {
+    const x = a[i]!;
+    const y = b[i]!;
+    if (i > 0 && x === a[i - 1] && y === b[i - 1]) {
+      exactWork.steps += steps;
+      exactWork.words += words;
+      out[i] = out[i - 1]!;
+      continue;
+    }
+    steps = exactWork.steps;
+    words = exactWork.words;
+    out[i] = f(x, y);
+    steps = exactWork.steps - steps;
+    words = exactWork.words - words;
+  }
+  return out;
+}
 
 export const constantForm = (c: SegValues): LinearForm => ({ constant: c, terms: new Map() });
 
@@ -125,7 +153,9 @@ export function shiftedLinearForms(c: readonly LinearForm[], x0: SegValues, upTo
       let changed = seg === 0;
       for (let k = 0; k <= n; k++) {
         const v = part(c[k]!)?.[seg] ?? Rational.ZERO;
-        if (v !== vector[k]) changed = true;
+        // By value: equal values make the same group text (scaled forms hold equal values in new objects).
+        const was = vector[k];
+        if (v !== was && (was === undefined || v.num !== was.num || v.den !== was.den)) changed = true;
         vector[k] = v;
       }
       if (changed) group = shiftGroup(vector);

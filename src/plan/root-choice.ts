@@ -42,7 +42,7 @@ export function rootAt(family: Family, point: readonly Rational[]): Rational {
   // Each end's exact sign once: bisectNear starts from the same two (exact Horner sums of the whole polynomial).
   const sLo = signAt(c, lo);
   const sHi = signAt(c, hi);
-  const root = sLo * sHi > 0 ? null : bisectNear(c, lo, hi, sLo, sHi);
+  const root = sLo * sHi > 0 ? null : bisectNear(c, lo, hi, sLo, sHi, family.arithmetic === 'float32');
   if (root === null) {
     throw new RootcastError(
       `the polynomial has no sign change on the bracket at ${pointText(family, point)}; widen or move the bracket so it holds exactly one simple root for every input`,
@@ -78,8 +78,13 @@ function coefficientAt(family: Family, k: number, e: Expr, point: readonly Ratio
   }
 }
 
-/** Bisection with float64 signs between ends whose exact signs (sa at lo, sb at hi) differ; returns the final midpoint. */
-function bisectNear(c: readonly Rational[], lo: Rational, hi: Rational, sa: -1 | 0 | 1, sb: -1 | 0 | 1): Rational {
+/**
+ * Bisection with float64 signs between ends whose exact signs (sa at lo, sb at hi) differ; returns the final
+ * midpoint, or with `float32` (the caller rounds the result to binary32) the lower end as soon as both ends
+ * round to one finite binary32: every later bracket, and the final midpoint, lies between them, and rounding
+ * is monotone, so it rounds to that same binary32 (about half the steps; the caller's x0 is the same).
+ */
+function bisectNear(c: readonly Rational[], lo: Rational, hi: Rational, sa: -1 | 0 | 1, sb: -1 | 0 | 1, float32 = false): Rational {
   // Horner's rule from the top coefficient, as reduceRight from 0 did. A Float64Array: the
   // plain arrays were of two element kinds (small integers or doubles), and the second one
   // seen deoptimised the optimised code.
@@ -94,6 +99,10 @@ function bisectNear(c: readonly Rational[], lo: Rational, hi: Rational, sa: -1 |
   if (sa === 0) return lo;
   if (sb === 0) return hi;
   for (let i = 0; i < 200; i++) {
+    if (float32) {
+      const f = Math.fround(a);
+      if (f === Math.fround(b) && f !== Infinity && f !== -Infinity) return Rational.fromNumber(a);
+    }
     const m = a + (b - a) / 2;
     if (m <= a || m >= b) break;
     const sm = Math.sign(p(m));

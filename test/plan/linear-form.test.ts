@@ -15,7 +15,7 @@ import { shiftedForms } from '../../src/series/recenter.js';
 import { ProgramBuilder } from '../../src/ir/builder.js';
 import { evaluate } from '../../src/ir/evaluate.js';
 import { readSpec } from '../../src/reader/read.js';
-import { Rational } from '../../src/math/rational.js';
+import { exactWork, Rational } from '../../src/math/rational.js';
 import { exactDecimal } from '../support/exact-decimal.js';
 
 const D = Decimal.clone({ precision: 120 });
@@ -134,5 +134,44 @@ describe('linear forms', () => {
       }),
       { numRuns: 400, seed: 20261203 },
     );
+  });
+
+  test("a segment whose pair repeats the one before it gets that result again and counts f's exact work again: the values and counts of f per segment", () => {
+    // Reference: each segment's product, sum and difference computed on fresh copies of its values (Rational.mul and
+    // add counting their own gcds), and decimal.js's products of the same fractions. The spec's constants are one
+    // object in every segment (uniform), as formOf makes them; a run of equal objects, then another, then a new one.
+    const work = <T>(fn: () => T): { value: T; steps: number; words: number } => {
+      const [steps, words] = [exactWork.steps, exactWork.words];
+      const value = fn();
+      return { value, steps: exactWork.steps - steps, words: exactWork.words - words };
+    };
+    const b = q(-387n, 10000n);
+    const rg = q(831446n, 10000000n);
+    const other = q(123456789n, 1000000007n);
+    const weights = [b, b, b, rg, rg, other];
+    const scale = [rg, rg, rg, rg, rg, b];
+    const copy = (v: Rational): Rational => Rational.of(v.num, v.den);
+    const form = (w: Rational[]): LinearForm => ({ constant: w, terms: new Map([[0, w]]) });
+    // Copied before the count: Rational.of reduces (a gcd of its own).
+    const pairs = (): [Rational, Rational][] => weights.map((w, i) => [copy(w), copy(scale[i]!)]);
+    const fresh = [pairs(), pairs(), pairs(), pairs()];
+    const want = work(() => fresh[0]!.map(([w, s]) => w.mul(s)));
+    // Two products per segment in the form (the constant and atom 0's weight), each counted.
+    const wantBoth = work(() => fresh[1]!.flatMap(([w, s]) => [w.mul(s), w.mul(s)]));
+    const got = work(() => scaleForm(form(weights), scale));
+    expect(want.steps).toBeGreaterThan(0);
+    expect([got.steps, got.words]).toEqual([wantBoth.steps, wantBoth.words]);
+    const P = Decimal.clone({ precision: 60 });
+    const dec = (v: Rational): Decimal => new P(v.num.toString()).div(v.den.toString());
+    expect(got.value.terms.get(0)!.map(String)).toEqual(got.value.constant.map(String));
+    got.value.constant.forEach((v, i) => {
+      expect(v.eq(want.value[i]!)).toBe(true);
+      const product = dec(weights[i]!).times(dec(scale[i]!));
+      expect(dec(v).minus(product).abs().lte(product.abs().times(1e-50))).toBe(true);
+    });
+    const sums = work(() => addForms(form(weights), form(scale), -1));
+    const wantSums = work(() => [fresh[2]!, fresh[3]!].flatMap((segments) => segments.map(([w, s]) => w.sub(s))));
+    expect([sums.steps, sums.words]).toEqual([wantSums.steps, wantSums.words]);
+    sums.value.constant.forEach((v, i) => expect(dec(v).minus(dec(weights[i]!).minus(dec(scale[i]!))).abs().lte(1e-50)).toBe(true));
   });
 });

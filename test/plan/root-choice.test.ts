@@ -11,6 +11,7 @@
  */
 import { describe, expect, test } from '@jest/globals';
 import { Decimal } from 'decimal.js';
+import fc from 'fast-check';
 import { boxCentre, chooseRoot, plainRoot, rootAt } from '../../src/plan/root-choice.js';
 import { readSpec } from '../../src/reader/read.js';
 import { Rational } from '../../src/math/rational.js';
@@ -63,6 +64,39 @@ describe('root choice', () => {
     expect(new D(x0).minus(want).abs().toNumber()).toBeLessThanOrEqual(ulp);
     expect(choice.centre![0]!.eq(Rational.of(100n))).toBe(true);
     expect(choice.note).toContain('series recentred at x0 = ');
+  });
+
+  test('float32: at any point x0 is the float32 rounding of the float64 bisection run to its end, within one float32 ulp of the Cardano root (decimal.js)', () => {
+    // The bisection written out as it runs without the float32 stop: float64 signs of Horner's rule from the
+    // bracket ends, halved until the ends are adjacent doubles, the last midpoint returned.
+    const family = spring('[-1, 45]');
+    const full = (F: number): number => {
+      const p = (x: number): number => ((0.002 * x + 0) * x + 2) * x - F;
+      let a = -1;
+      let b = 45;
+      const sa = Math.sign(p(a));
+      for (let i = 0; i < 200; i++) {
+        const m = a + (b - a) / 2;
+        if (m <= a || m >= b) break;
+        const sm = Math.sign(p(m));
+        if (sm === 0) return m;
+        if (sm === sa) a = m;
+        else b = m;
+      }
+      return a + (b - a) / 2;
+    };
+    fc.assert(
+      fc.property(fc.integer({ min: 0, max: 200 * 2 ** 20 }), (k) => {
+        // Dyadic points of [0, 200], exact in float64 as in the exact rational the planner evaluates.
+        const F = k / 2 ** 20;
+        const x0 = rootAt(family, [Rational.fromNumber(F)]).toNumber();
+        expect(x0).toBe(Math.fround(full(F)));
+        const want = cardano(new D(F));
+        const ulp = 2 ** (Math.floor(Math.log2(Math.max(Math.abs(x0), 2 ** -126))) - 23);
+        expect(new D(x0).minus(want).abs().toNumber()).toBeLessThanOrEqual(ulp);
+      }),
+      { numRuns: 500, seed: 20261203 },
+    );
   });
 
   test('float64: x^2 - 2 on [0, 2] gives sqrt(2) to within one float64 ulp (decimal.js)', () => {
