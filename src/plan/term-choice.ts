@@ -21,14 +21,22 @@ export interface TermChoice {
 }
 
 /**
- * Each cell's lower bound of every pool term's majorant value H(m) T^m (a row per cell, in the
- * cells' order): the part of greedyTerms that does not depend on the
- * allowance, so greedy.ts computes it once for the truncation shares it tries
- * on one set of cells and one pool.
+ * Each cell's lower bound of every pool term's majorant value H(m) T^m, a row
+ * per term (in the pool's order) over the cells (in theirs): the part of
+ * greedyTerms that does not depend on the allowance, so greedy.ts computes it
+ * once for the truncation shares it tries on one set of cells and one pool.
+ * By term, because greedyTerms reads it term by term across the cells: with a
+ * row per cell each read was a cache line of another array (thousands of cells).
  */
 export function termValueTable(cells: readonly CellFacts[], pool: readonly SeriesTerm[]): Float64Array[] {
   const layout = termLayout(pool);
-  return cells.map((c) => termValuesInto(c, layout, new Float64Array(pool.length)));
+  const rows = pool.map(() => new Float64Array(cells.length));
+  const scratch = new Float64Array(pool.length);
+  for (let j = 0; j < cells.length; j++) {
+    termValuesInto(cells[j]!, layout, scratch);
+    for (let t = 0; t < pool.length; t++) rows[t]![j] = scratch[t]!;
+  }
+  return rows;
 }
 
 /**
@@ -53,8 +61,9 @@ export function greedyTerms(
   const score = new Array<number>(pool.length);
   for (let i = 0; i < pool.length; i++) {
     let s = -Infinity;
+    const row = values[i]!;
     for (let j = 0; j < cells.length; j++) {
-      const v = mulUp(cells[j]!.R, values[j]![i]!) / allow[j]!;
+      const v = mulUp(cells[j]!.R, row[j]!) / allow[j]!;
       if (v > s) s = v;
       else if (Number.isNaN(v)) {
         s = NaN;
@@ -69,7 +78,8 @@ export function greedyTerms(
   for (let n = 0; n < order.length; n++) {
     const i = order[n]!;
     spend(cells.length);
-    for (let j = 0; j < cells.length; j++) kept[j] = addDown(kept[j]!, values[j]![i]!);
+    const row = values[i]!;
+    for (let j = 0; j < cells.length; j++) kept[j] = addDown(kept[j]!, row[j]!);
     let ok = true;
     for (let j = 0; j < cells.length && ok; j++) ok = tailOf(j) <= allow[j]!;
     if (ok) {

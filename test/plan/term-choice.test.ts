@@ -12,7 +12,7 @@
 import { describe, expect, test } from '@jest/globals';
 import { Decimal } from 'decimal.js';
 import { greedyTerms, termValueTable } from '../../src/plan/term-choice.js';
-import type { CellFacts } from '../../src/plan/cell-bound.js';
+import { termLayout, termValuesInto, type CellFacts } from '../../src/plan/cell-bound.js';
 import { termsUpToGrade } from '../../src/series/hyper-catalan.js';
 
 const D = Decimal.clone({ precision: 60 });
@@ -87,18 +87,50 @@ describe('greedyTerms', () => {
     expect(greedyTerms([{ ...cell(0.1, 1), state: { kind: 'diverges', T: [0, 0, 0.3] } }], pool, () => 1)).toBeNull();
   });
 
+  test('cells that rank the terms differently: the choice is the definition\'s (rank by the largest share over the cells, shortest fitting prefix; tails in decimal.js)', () => {
+    const quartic = termsUpToGrade(3, [2, 3], 8)!;
+    const mixed = (T2: number, T3: number, R: number): CellFacts => {
+      const c: CellFacts = { ...cell(T2, R), T: [0, 0, T2, T3], Q: [0, 0, T2, T3] };
+      const sum = termValuesInto(c, termLayout(quartic), new Float64Array(quartic.length)).reduce((a, b) => a + b, 0);
+      return { ...c, aUpper: sum * (1 + 1e-9) };
+    };
+    // One cell led by the t2 terms, one by the t3 terms, one small: the ranking needs every cell's values.
+    const cells = [mixed(0.12, 0.002, 1), mixed(0.004, 0.09, 0.5), mixed(0.01, 0.01, 2)];
+    const own = cells.map((c) => termValuesInto(c, termLayout(quartic), new Float64Array(quartic.length)));
+    for (const allowed of [1e-2, 1e-3, 1e-4]) {
+      const score = quartic.map((_, t) => Math.max(...cells.map((c, j) => (c.R * own[j]![t]!) / allowed)));
+      const order = quartic.map((_, t) => t).sort((a, b) => score[b]! - score[a]! || quartic[a]!.grade - quartic[b]!.grade || a - b);
+      let want: number[] | null = null;
+      for (let n = 1; n <= order.length && !want; n++) {
+        const kept = order.slice(0, n);
+        const fits = cells.every((c, j) => {
+          const sum = kept.reduce((a, t) => a.plus(new D(own[j]![t]!)), new D(0));
+          return new D(c.aUpper).minus(sum).times(c.R).lte(allowed * (1 - 1e-9));
+        });
+        if (fits) want = kept.sort((a, b) => a - b);
+      }
+      const got = greedyTerms(cells, quartic, () => allowed, termValueTable(cells, quartic))!;
+      expect(got.terms.map((t) => quartic.indexOf(t))).toEqual(want);
+    }
+  });
+
   test('a term-value table shared across allowances (forms/greedy.ts) gives the choice each allowance gets alone', () => {
     // Three cells of the quartic t2, t3 mix (two active powers), pool up to grade 8.
     const quartic = termsUpToGrade(3, [2, 3], 8)!;
     // aUpper: the pool's own sum and a little more, so that tails reach every allowance below (a(T) itself is not needed here).
     const mixed = (T2: number, T3: number): CellFacts => {
       const c: CellFacts = { ...cell(T2, 1), T: [0, 0, T2, T3], Q: [0, 0, T2, T3] };
-      const sum = termValueTable([c], quartic)[0]!.reduce((a, b) => a + b, 0);
+      const sum = termValueTable([c], quartic).reduce((a, row) => a + row[0]!, 0);
       return { ...c, aUpper: sum * (1 + 1e-9) };
     };
     const cells = [mixed(0.05, 0.01), mixed(0.02, 0.04), mixed(0.08, 0.002)];
     const table = termValueTable(cells, quartic);
-    expect(table.map((row) => row.length)).toEqual([quartic.length, quartic.length, quartic.length]);
+    // A row per term over the cells, each value the cell's own (cell-bound.ts termValuesInto, tested against decimal.js there).
+    expect(table.length).toBe(quartic.length);
+    cells.forEach((c, j) => {
+      const own = termValuesInto(c, termLayout(quartic), new Float64Array(quartic.length));
+      table.forEach((row, t) => expect(Object.is(row[j], own[t])).toBe(true));
+    });
     for (const allowed of [1e-1, 1e-2, 1e-3, 3e-4]) {
       const alone = greedyTerms(cells, quartic, () => allowed);
       const shared = greedyTerms(cells, quartic, () => allowed, table);
