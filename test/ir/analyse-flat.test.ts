@@ -11,9 +11,8 @@
  */
 import { describe, expect, test } from '@jest/globals';
 import fc from 'fast-check';
+import { buildProgram, stepArb } from './support/random-programs.js';
 import { Decimal } from 'decimal.js';
-import { Rational } from '../../src/math/rational.js';
-import { ProgramBuilder, type Ref } from '../../src/ir/builder.js';
 import { analyseFlat, attachEnclosures } from '../../src/ir/analyse-flat.js';
 import type { Program } from '../../src/ir/nodes.js';
 import { ARITHMETICS } from '../../src/family/arithmetic.js';
@@ -128,28 +127,6 @@ function model(p: Program, cell: readonly Interval[], known: readonly (Interval 
   return { L, H, E };
 }
 
-type Step = { op: 'add' | 'sub' | 'mul' | 'div'; a: number; b: number } | { op: 'const'; num: number; den: number };
-const stepArb: fc.Arbitrary<Step> = fc.oneof(
-  fc.record({ op: fc.constantFrom('add' as const, 'sub' as const, 'mul' as const, 'div' as const), a: fc.nat(), b: fc.nat() }),
-  fc.record({ op: fc.constant('const' as const), num: fc.integer({ min: -999, max: 999 }), den: fc.integer({ min: 1, max: 97 }) }),
-);
-
-function build(steps: readonly Step[], arithmetic: 'float32' | 'float64'): Program {
-  const b = new ProgramBuilder(arithmetic, ['x', 'y']);
-  const refs: Ref[] = [b.input(0), b.input(1)];
-  for (const s of steps) {
-    if (s.op === 'const') {
-      refs.push(b.const(Rational.of(BigInt(s.num), BigInt(s.den))));
-      continue;
-    }
-    const a = refs[s.a % refs.length]!;
-    const c = refs[s.b % refs.length]!;
-    if (s.op === 'div') refs.push(b.div(a, b.add(b.const(Rational.int(2)), b.mul(c, c))));
-    else refs.push(b[s.op](a, c));
-  }
-  return b.finish(refs[refs.length - 1]!);
-}
-
 describe('analyseFlat against the model in decimal.js', () => {
   test.each(['float32', 'float64'] as const)('every node bit for bit, random programs (%s)', (arithmetic) => {
     fc.assert(
@@ -160,7 +137,7 @@ describe('analyseFlat against the model in decimal.js', () => {
         fc.boolean(),
         fc.boolean(),
         (steps, lo, width, ftz, hooked) => {
-          const p = build(steps, arithmetic);
+          const p = buildProgram(steps, arithmetic);
           const round = arithmetic === 'float32' ? Math.fround : (x: number) => x;
           const cell = [0, 1].map((k) => ({ lo: round(lo + k / 8), hi: round(lo + k / 8 + width) }));
           // A hook that narrows every third node to the middle half of its plain enclosure (sound or not, the analysis intersects it).

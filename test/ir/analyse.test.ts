@@ -6,8 +6,9 @@
  */
 import { describe, expect, test } from '@jest/globals';
 import fc from 'fast-check';
+import { buildProgram, stepArb } from './support/random-programs.js';
 import { Rational } from '../../src/math/rational.js';
-import { ProgramBuilder, type Ref } from '../../src/ir/builder.js';
+import { ProgramBuilder } from '../../src/ir/builder.js';
 import { analyse } from '../../src/ir/analyse.js';
 import { evaluate } from '../../src/ir/evaluate.js';
 import type { Program } from '../../src/ir/nodes.js';
@@ -42,30 +43,6 @@ function exactValue(p: Program, inputs: readonly number[]): Rational {
   return v[p.result]!;
 }
 
-type Step = { op: 'add' | 'sub' | 'mul' | 'div'; a: number; b: number } | { op: 'const'; num: number; den: number };
-
-const stepArb: fc.Arbitrary<Step> = fc.oneof(
-  fc.record({ op: fc.constantFrom('add' as const, 'sub' as const, 'mul' as const, 'div' as const), a: fc.nat(), b: fc.nat() }),
-  fc.record({ op: fc.constant('const' as const), num: fc.integer({ min: -999, max: 999 }), den: fc.integer({ min: 1, max: 97 }) }),
-);
-
-function build(steps: readonly Step[], arithmetic: 'float32' | 'float64'): Program {
-  const b = new ProgramBuilder(arithmetic, ['x', 'y']);
-  const refs: Ref[] = [b.input(0), b.input(1)];
-  for (const s of steps) {
-    if (s.op === 'const') {
-      refs.push(b.const(Rational.of(BigInt(s.num), BigInt(s.den))));
-      continue;
-    }
-    const a = refs[s.a % refs.length]!;
-    const c = refs[s.b % refs.length]!;
-    // Divide only by 2 + x*x (never near zero on any cell), so every program has a bound.
-    if (s.op === 'div') refs.push(b.div(a, b.add(b.const(Rational.int(2)), b.mul(c, c))));
-    else refs.push(b[s.op](a, c));
-  }
-  return b.finish(refs[refs.length - 1]!);
-}
-
 describe('rounding analysis', () => {
   test.each(['float32', 'float64'] as const)('|computed - exact| <= bound and exact in the interval, random programs (%s)', (arithmetic) => {
     fc.assert(
@@ -75,7 +52,7 @@ describe('rounding analysis', () => {
         fc.double({ min: 0.001, max: 2, noNaN: true }),
         fc.array(fc.double({ min: 0, max: 1, noNaN: true }), { minLength: 4, maxLength: 4 }),
         (steps, lo, width, us) => {
-          const p = build(steps, arithmetic);
+          const p = buildProgram(steps, arithmetic);
           const round = arithmetic === 'float32' ? Math.fround : (x: number) => x;
           const cell = [0, 1].map(() => ({ lo: round(lo), hi: round(lo + width) }));
           const an = analyse(p, cell);
