@@ -6,6 +6,7 @@
  * `gcd` splits off the powers of two and recognises a power of five before
  * it runs Lehmer's algorithm on what is left.
  */
+import { FLOAT64, HI, LO, WORDS } from './float-words.js';
 
 /**
  * Exact work done so far, for the planner's deterministic work meter
@@ -250,13 +251,6 @@ function roughBits(n: bigint): number {
   return x < 2 ** 1023 ? Math.floor(Math.log2(x)) + 1 : bitLength(n);
 }
 
-// A double's two 32-bit words (bitLength; rational.ts and next-float.ts have their own pairs).
-const BITS_F64 = new Float64Array(1);
-const BITS_U32 = new Uint32Array(BITS_F64.buffer);
-const BITS_LITTLE = new Uint8Array(new Uint16Array([1]).buffer)[0] === 1;
-const BITS_LO = BITS_LITTLE ? 0 : 1;
-const BITS_HI = BITS_LITTLE ? 1 : 0;
-
 /** Bits of n >= 0. */
 export function bitLength(n: bigint): number {
   if (n <= SMALL) return n <= 0n ? 0 : numberBits(Number(n));
@@ -266,10 +260,10 @@ export function bitLength(n: bigint): number {
     // exponent field, unless it is a power of two, which n may lie just below: then one shift settles
     // it (n >> e is 1 exactly when 2^e <= n). Read from the float's words, with no BigInt made (the
     // shift on every call, and Math.log2 beside it, were most of bitLength's time).
-    BITS_F64[0] = x;
-    const high = BITS_U32[BITS_HI]!;
+    FLOAT64[0] = x;
+    const high = WORDS[HI]!;
     const e = (high >>> 20) - 1023;
-    if ((high & 0xfffff) !== 0 || BITS_U32[BITS_LO] !== 0) return e + 1;
+    if ((high & 0xfffff) !== 0 || WORDS[LO] !== 0) return e + 1;
     return n >> BigInt(e) === 0n ? e : e + 1;
   }
   // Past the doubles' range: n < 2^k exactly when its low k bits are n (BigInt.asUintN returns n itself

@@ -2,16 +2,12 @@
  * The neighbours of a float64: nextUp and nextDown, the steps of directed
  * rounding (src/math/directed.ts) and of every outward-rounded interval.
  */
-const LITTLE = new Uint8Array(new Uint16Array([1]).buffer)[0] === 1;
-const LO = LITTLE ? 0 : 1;
-const HI = LITTLE ? 1 : 0;
+import { FLOAT64, HI, LO, WORDS } from './float-words.js';
 
 // Hot path: these run millions of times in the planner's interval loops. Globals
 // are bound once here (a global lookup is slow inside some hosts, such as
 // jest's vm contexts), and the step is done on the two 32-bit words of the
 // float, not through BigInt.
-const f64 = new Float64Array(1);
-const u32 = new Uint32Array(f64.buffer);
 const MIN_VALUE = Number.MIN_VALUE;
 const POS_INF = Infinity;
 
@@ -89,18 +85,18 @@ export function nextDownMagnitude(x: number): number {
 function nextUpByWords(x: number): number {
   if (x !== x || x === POS_INF) return x;
   if (x === 0) return MIN_VALUE;
-  f64[0] = x;
+  FLOAT64[0] = x;
   if (x > 0) {
     // magnitude + 1 ulp
-    const lo = (u32[LO]! + 1) >>> 0;
-    u32[LO] = lo;
-    if (lo === 0) u32[HI] = (u32[HI]! + 1) >>> 0;
+    const lo = (WORDS[LO]! + 1) >>> 0;
+    WORDS[LO] = lo;
+    if (lo === 0) WORDS[HI] = (WORDS[HI]! + 1) >>> 0;
   } else {
     // magnitude - 1 ulp (toward zero)
-    const lo = u32[LO]!;
-    u32[LO] = (lo - 1) >>> 0;
-    if (lo === 0) u32[HI] = (u32[HI]! - 1) >>> 0;
+    const lo = WORDS[LO]!;
+    WORDS[LO] = (lo - 1) >>> 0;
+    if (lo === 0) WORDS[HI] = (WORDS[HI]! - 1) >>> 0;
   }
-  return f64[0]!;
+  return FLOAT64[0]!;
 }
 

@@ -5,17 +5,11 @@
  */
 import { bitLength, bitsOf, countPasses, exactWork, gcd } from './gcd.js';
 import { nextDown, nextUp } from './next-float.js';
+import { FLOAT64, HI, LO, WORDS } from './float-words.js';
 import { float32FromDoubles, quotientUp, rounded, roundToBinary, SAFE, smallQuotient } from './binary-rounding.js';
 
 export { nextDown, nextUp, quotientUp };
 export { bitsOf, countExactAgain, countPasses, countProduct, exactWork, gcd, measureExact, wordsOf, type ExactWork } from './gcd.js';
-
-// A float's two 32-bit words, read without allocating (fromNumber; next-float.ts has its own pair).
-const SCRATCH_F64 = new Float64Array(1);
-const SCRATCH_U32 = new Uint32Array(SCRATCH_F64.buffer);
-const LITTLE = new Uint8Array(new Uint16Array([1]).buffer)[0] === 1;
-const LO = LITTLE ? 0 : 1;
-const HI = LITTLE ? 1 : 0;
 
 export class Rational {
   readonly num: bigint;
@@ -137,9 +131,9 @@ export class Rational {
     if (!Number.isFinite(x)) throw new RangeError(`not finite: ${x}`);
     if (x === 0) return Rational.ZERO;
     // The float's two 32-bit words from a shared scratch buffer (a DataView per call was a large part of the planner's garbage).
-    SCRATCH_F64[0] = x;
-    const hi = SCRATCH_U32[HI]!;
-    const lo = SCRATCH_U32[LO]!;
+    FLOAT64[0] = x;
+    const hi = WORDS[HI]!;
+    const lo = WORDS[LO]!;
     const bexp = (hi >>> 20) & 0x7ff;
     // The significand as an integer below 2^53, exact in a double.
     let mant = (hi & 0xfffff) * 2 ** 32 + lo;
