@@ -10,7 +10,7 @@
  */
 import { Rational } from '../math/rational.js';
 import { headWork, taylorShift, taylorShiftHeads, type ShiftHeads } from '../series/recenter.js';
-import { countExactAgain, exactWork } from '../math/rational.js';
+import { countExactAgain, measureExact, type ExactWork } from '../math/rational.js';
 import type { ProgramBuilder, Ref, SegValues } from '../ir/builder.js';
 import { constantValue } from '../family/expr-eval.js';
 import type { Constants, Expr } from '../family/types.js';
@@ -35,22 +35,18 @@ const isUniform = (w: SegValues): boolean => w.every((v) => v.eq(w[0]!));
  */
 function zip(a: SegValues, b: SegValues, f: (x: Rational, y: Rational) => Rational): SegValues {
   const out = new Array<Rational>(a.length);
-  let steps = 0;
-  let words = 0;
+  let last: ExactWork | null = null;
   for (let i = 0; i < a.length; i++) {
     const x = a[i]!;
     const y = b[i]!;
-    if (i > 0 && x === a[i - 1] && y === b[i - 1]) {
-      exactWork.steps += steps;
-      exactWork.words += words;
+    if (last && x === a[i - 1] && y === b[i - 1]) {
+      countExactAgain(last);
       out[i] = out[i - 1]!;
       continue;
     }
-    steps = exactWork.steps;
-    words = exactWork.words;
-    out[i] = f(x, y);
-    steps = exactWork.steps - steps;
-    words = exactWork.words - words;
+    const made = measureExact(() => f(x, y));
+    out[i] = made.value;
+    last = made;
   }
   return out;
 }
