@@ -129,6 +129,11 @@ export interface Family {
    * root, with `accuracy` the result's.
    */
   readonly foldResult?: true;
+  /**
+   * Set with foldResult only: the unfolded plan's cost, which a folded plan
+   * must come under to be chosen (src/plan/folded-floor.ts, refine.ts).
+   */
+  readonly foldBeat?: number;
   /** Field path -> position of its value in the file, for messages after parsing. */
   readonly positions: Readonly<Record<string, Pos>>;
 }

@@ -17,6 +17,7 @@ import { planSegments, segmentNeeds, type RefineAim, type SegmentNeeds } from '.
 import type { SegmentLayout } from './segments.js';
 import { layoutOnce } from './layout-memo.js';
 import { cannotWin, costFloor } from './cost-floor.js';
+import { foldedSkip, FOLDED_SKIP } from './folded-floor.js';
 import { tableText } from './refusals.js';
 import { tableLimitBit } from './table-limit.js';
 import { REFINE, SEGMENT_SEARCH } from './tuning.js';
@@ -48,7 +49,8 @@ export function refinedPlans(family: Family, box: Cell, fixed: readonly (number 
     const levels = fixed.map((k) => (k === null ? new Array<number>(coarseCount).fill(0) : null));
     const layout = refineFor(family, box, coarse, levels, order, aim, weighed);
     if (layout && 'skip' in layout) {
-      const row = refusedCandidate(layout.counts, layout.skip, false, layout.refine.map((r) => (r ? r.length : null)));
+      const refused = refusedCandidate(layout.counts, layout.skip, false, layout.refine.map((r) => (r ? r.length : null)));
+      const row = layout.skip.startsWith(FOLDED_SKIP) ? { ...refused, form: 'folded' as const } : refused;
       const key = `skip ${JSON.stringify(layout.refine)}`;
       if (!seen.has(key)) candidates.push(row);
       seen.add(key);
@@ -75,7 +77,7 @@ export function refinedPlans(family: Family, box: Cell, fixed: readonly (number 
  * `skip` (with the layout reached) when the layout cannot win among `weighed`:
  * refining further only adds segments, so it cannot win later either.
  */
-function refineFor(family: Family, box: Cell, coarse: readonly number[], levels: (number[] | null)[], order: number, aim: RefineAim, weighed: readonly Plan[]): SegmentLayout | (SegmentLayout & { readonly skip: string }) | null {
+export function refineFor(family: Family, box: Cell, coarse: readonly number[], levels: (number[] | null)[], order: number, aim: RefineAim, weighed: readonly Plan[]): SegmentLayout | (SegmentLayout & { readonly skip: string }) | null {
   for (;;) {
     let layout: SegmentLayout;
     try {
@@ -123,7 +125,10 @@ function refineFor(family: Family, box: Cell, coarse: readonly number[], levels:
         marked[part.input]![coarseCellOf(l, Math.floor(s / part.stride) % rows)] = true;
       }
     });
-    if (!any) return layout;
+    if (!any) {
+      const beaten = foldedSkip(family, layout);
+      return beaten === null ? layout : { ...layout, skip: beaten };
+    }
     let grew = false;
     levels.forEach((l, i) => {
       if (!l) return;

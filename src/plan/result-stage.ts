@@ -22,6 +22,7 @@ import { appendResult, resultAnalysisProgram } from './result-program.js';
 import { largestBudget, resultBound, type ResultEvaluation } from './result-bound.js';
 import { withCandidates } from './candidates.js';
 import { withDerivedBracket } from './derived-bracket.js';
+import { FOLDED_SKIP } from './folded-floor.js';
 import { FOLD, RESULT_BUDGET, WORK } from './tuning.js';
 import { spendAtMost, WorkLimitError } from './work.js';
 import type { Plan } from './types.js';
@@ -44,14 +45,14 @@ function planResult(family: Family, spec: ResultSpec, planRoot: (f: Family) => P
     if (!(e instanceof RootcastError)) throw e;
     refusal = e;
   }
-  const folded = foldedTrial(family, planRoot);
+  const folded = foldedTrial(family, planRoot, unfolded?.cost);
   if (!folded) {
     if (unfolded) return unfolded;
     throw refusal;
   }
   // The cheaper wins (a tie keeps the unfolded plan); both kinds of rows are shown.
   const best = unfolded && unfolded.cost <= folded.cost ? unfolded : folded;
-  const foldedRows = folded.candidates.filter((c) => c.refusal === null && c.form === 'folded');
+  const foldedRows = folded.candidates.filter((c) => c.form === 'folded' && (c.refusal === null || c.refusal.startsWith(FOLDED_SKIP)));
   return withCandidates(best, [...(unfolded?.candidates ?? []), ...foldedRows]);
 }
 
@@ -59,11 +60,14 @@ function planResult(family: Family, spec: ResultSpec, planRoot: (f: Family) => P
  * The folded trial (src/plan/forms/folded.ts): one input only, within
  * FOLD.workShare of the work limit; null when no folded plan meets the
  * target (its refusals are not the user's: the unfolded plan's stand).
+ * `beat`: the unfolded plan's cost (root and result, as compared above),
+ * with which the trial skips two-level layouts whose folded plans could not
+ * be chosen (folded-floor.ts, refine.ts); their rows are shown.
  */
-function foldedTrial(family: Family, planRoot: (f: Family) => Plan): Plan | null {
+function foldedTrial(family: Family, planRoot: (f: Family) => Plan, beat: number | undefined): Plan | null {
   if (family.inputs.length !== 1) return null;
   try {
-    return spendAtMost(WORK.limit * FOLD.workShare, () => planRoot({ ...family, foldResult: true }));
+    return spendAtMost(WORK.limit * FOLD.workShare, () => planRoot({ ...family, foldResult: true, ...(beat === undefined ? {} : { foldBeat: beat }) }));
   } catch (e) {
     if (e instanceof RootcastError || e instanceof WorkLimitError) return null;
     throw e;
@@ -118,7 +122,7 @@ function firstTry<T>(budgets: readonly number[], attempt: (b: number) => T): T {
 
 /** The root planned to an absolute budget; a refusal says it was for the result. */
 function planRootTo(family: Family, planRoot: (f: Family) => Plan, budget: number): Plan {
-  const { result: _result, foldResult: _fold, ...rest } = family;
+  const { result: _result, foldResult: _fold, foldBeat: _beat, ...rest } = family;
   const rootFamily: Family = { ...rest, accuracy: { kind: 'absolute', value: SpecNumber.parse(budgetText(budget)) } };
   try {
     return planRoot(rootFamily);

@@ -36,6 +36,8 @@ const SLOW = [
   'test/plan/table-free-trials.test.ts',
   // Plans eleven layouts of a quadratic in process to check the cost floor against them.
   'test/plan/cost-floor.test.ts',
+  // Plans ease-in-out-y's folded layouts in process to check the folded floor against them.
+  'test/plan/folded-floor.test.ts',
   'test/plan/first-plan.test.ts',
   // Sweeps two corpus specs' bracket check to its cell limit the plain way, for comparison: seconds on a busy machine.
   'test/plan/bracket-check-corpus.test.ts',
