@@ -113,6 +113,7 @@ export function poussinOver(y: PointValues, boxes: readonly Interval[], d: numbe
   let best = -1;
   let bestEstimate = 0;
   boxes.forEach((b, s) => {
+    if (!(b.hi > b.lo)) return;
     let sum = 0;
     for (let k = 0; k < refNum.length; k++) {
       const v = y.estimate(b.lo + ((b.hi - b.lo) * (refNum[k]! + 1)) / 2);
