@@ -32,6 +32,22 @@ export function constantFacts(node: object, stored: number, exact: Rational, seg
 }
 
 /**
+ * constantFacts' values for a table entry, not kept per node (the analysis keeps
+ * a program's table facts per segment in one array): lo, hi and the error written
+ * to out[k], out[count + k] and out[2 count + k]. The same numbers constantFacts
+ * gives, without its three objects and map entry per node and segment, which
+ * outlived the scavenges as long as the node did.
+ */
+export function entryFactsInto(stored: number, exact: Rational, out: Float64Array, k: number, count: number): void {
+  const b = boundsOf(exact);
+  const lo = b[0];
+  const hi = b[1];
+  out[k] = lo;
+  out[count + k] = hi;
+  out[2 * count + k] = constError(stored, exact, lo, hi);
+}
+
+/**
  * The binary64 enclosure of an exact value, kept by value: every program the
  * planner builds has new constant and table nodes, but their exact values
  * recur (one segment's coefficients in every trial that has the segment).
@@ -58,9 +74,11 @@ function boundsOf(exact: Rational): readonly [number, number] {
     boundsCount = 0;
     list = undefined;
   }
-  if (!list) boundsByValue.set(key, (list = []));
   const bounds = exact.toNumberBounds();
-  list.push({ num: exact.num, den: exact.den, bounds });
+  const known: KnownBounds = { num: exact.num, den: exact.den, bounds };
+  // A new key's list is made with its one entry: an empty list's first push gave it room for 17.
+  if (list) list.push(known);
+  else boundsByValue.set(key, [known]);
   boundsCount++;
   return bounds;
 }
