@@ -43,6 +43,7 @@ interface DerivativeParts {
   readonly width: readonly number[];
   readonly d1: { readonly lo: Float64Array; readonly hi: Float64Array };
   readonly d2: { readonly lo: Float64Array; readonly hi: Float64Array };
+  readonly segment: number;
 }
 
 /** A cell's tight enclosures, index = power j (null where unknown). */
@@ -111,7 +112,7 @@ export class CoefficientRanges {
   private readonly cache = new WeakMap<Interval, unknown>();
   private readonly noInputs = new Map<number, KeptCell>();
   /** Per cell (by identity) and segment: P', P'' with the inputs' variables in Bernstein form (bernsteinFirst). */
-  private readonly partials = new WeakMap<Cell, Map<number, DerivativeParts>>();
+  private readonly partials = new WeakMap<Cell, DerivativeParts | Map<number, DerivativeParts>>();
 
   /** `x0[s]` is segment s's expansion point. */
   constructor(
@@ -291,14 +292,17 @@ export class CoefficientRanges {
     // from the first call on. The polished form asks each cell at least twice (the Newton-only pass, then the
     // pass with the programs' rounding; 2 to 5 times per cell in lens-undistort, gas-molar-volume and
     // gas-wide): keeping it only from the second call transformed every cell's inputs twice.
-    let bySegment = this.partials.get(cell);
-    if (!bySegment) this.partials.set(cell, (bySegment = new Map()));
-    let p = bySegment.get(segment);
+    // Kept alone with its segment, in a map by segment only when a second segment asks (as `cell` keeps its
+    // enclosures), and the sides copied at their length (`scaled` pushes them into room for 17).
+    const kept = this.partials.get(cell);
+    let p = kept instanceof Map ? kept.get(segment) : kept !== undefined && kept.segment === segment ? kept : undefined;
     if (!p) {
       const { origin, width } = this.scaled(cell);
       const d = origin.length;
-      p = { origin, width, d1: bernsteinFirst(t.d1, origin, width, d), d2: bernsteinFirst(t.d2, origin, width, d) };
-      bySegment.set(segment, p);
+      p = { origin: origin.slice(), width: width.slice(), d1: bernsteinFirst(t.d1, origin, width, d), d2: bernsteinFirst(t.d2, origin, width, d), segment };
+      if (kept === undefined) this.partials.set(cell, p);
+      else if (kept instanceof Map) kept.set(segment, p);
+      else this.partials.set(cell, new Map([[kept.segment, kept], [segment, p]]));
     }
     const d = p.origin.length;
     const origin = [...p.origin, J.lo];
