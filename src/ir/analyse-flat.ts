@@ -15,7 +15,7 @@ import { addUp, addUpMagnitude, divUpMagnitude, mulUpMagnitude, nextDownLean, ne
 import { mag, type Interval } from '../math/interval.js';
 import { UnknownNodeError, type Program } from './nodes.js';
 import { ARITHMETICS } from '../family/arithmetic.js';
-import { constantFacts, entryFactsInto } from './constant-facts.js';
+import { constantFacts, tableFacts, type TableFacts } from './constant-facts.js';
 
 // Bound once: global lookups are slow in some hosts (jest's vm contexts), and analyse runs per cell.
 const { abs, max, min } = Math;
@@ -85,12 +85,9 @@ interface Compiled {
   readonly hi: Float64Array;
   readonly err: Float64Array;
   readonly errFtz: Float64Array;
-  /**
-   * The table nodes' indices (a table node's operand a is its place k here), and their facts per segment
-   * in one array: lo at k, hi at count + k, error at 2 count + k (one object per segment kept, not four).
-   */
+  /** The table nodes' indices (a table node's operand a is its place here), and their facts (constant-facts.ts tableFacts). */
   readonly tableNodes: number[];
-  readonly tables: Map<number, Float64Array>;
+  tables: TableFacts | null;
   readonly out: FlatAnalysis;
 }
 const compiledPrograms = new WeakMap<Program, Compiled>();
@@ -107,7 +104,7 @@ function compile(program: Program): Compiled {
     err: new Float64Array(count),
     errFtz: new Float64Array(count),
     tableNodes: [],
-    tables: new Map(),
+    tables: null,
     out: { lo: new Float64Array(count), hi: new Float64Array(count), err: new Float64Array(count), unbounded: -1 },
   };
   for (let i = 0; i < count; i++) {
@@ -160,24 +157,6 @@ function compile(program: Program): Compiled {
   return c;
 }
 
-/** The facts of every table node for one segment (computed once per program and segment), laid out as `tables`' entries. */
-function tableFacts(program: Program, c: Compiled, segment: number): Float64Array {
-  let t = c.tables.get(segment);
-  if (!t) {
-    const count = c.tableNodes.length;
-    t = new Float64Array(3 * count);
-    for (let k = 0; k < count; k++) {
-      const n = program.nodes[c.tableNodes[k]!]!;
-      if (n.kind !== 'table') continue;
-      const exact = n.exact[segment];
-      if (exact === undefined) throw new RangeError(`table has no segment ${segment}`);
-      entryFactsInto(n.values[segment]!, exact, t, k, count);
-    }
-    c.tables.set(segment, t);
-  }
-  return t;
-}
-
 /**
  * The segment and flush-to-zero come as plain arguments (as AnalyseOptions'
  * fields): an options object per cell was garbage, and its two shapes
@@ -197,7 +176,8 @@ export function analyseFlat(program: Program, cell: readonly Interval[], segment
   if (!c) compiledPrograms.set(program, (c = compile(program)));
   const known = hooks.get(program)?.(cell, segment) ?? null;
   const tableCount = c.tableNodes.length;
-  const table = tableCount > 0 ? tableFacts(program, c, segment) : null;
+  const table = tableCount > 0 ? (c.tables = tableFacts(program, c.tableNodes, c.tables, segment)).values : null;
+  const tableBase = 3 * tableCount * segment;
   const { op, a: opA, b: opB } = c;
   const constErr = ftz ? c.errFtz : c.err;
   const out = c.out;
@@ -343,9 +323,9 @@ export function analyseFlat(program: Program, cell: readonly Interval[], segment
         break;
       default:
         // TABLE: as a constant, for the cell's segment (the caller says which).
-        lo = table![opA[i]!]!;
-        hi = table![tableCount + opA[i]!]!;
-        e = table![2 * tableCount + opA[i]!]!;
+        lo = table![tableBase + opA[i]!]!;
+        hi = table![tableBase + tableCount + opA[i]!]!;
+        e = table![tableBase + 2 * tableCount + opA[i]!]!;
         break;
     }
     if (known) {
