@@ -15,7 +15,7 @@ import { addUp, addUpMagnitude, divUpMagnitude, mulUpMagnitude, nextDownLean, ne
 import { mag, type Interval } from '../math/interval.js';
 import { UnknownNodeError, type Program } from './nodes.js';
 import { ARITHMETICS } from '../family/arithmetic.js';
-import { constantFacts } from './constant-facts.js';
+import { constantFacts, tableFacts, type TableFacts } from './constant-facts.js';
 
 // Bound once: global lookups are slow in some hosts (jest's vm contexts), and analyse runs per cell.
 const { abs, max, min } = Math;
@@ -85,9 +85,9 @@ interface Compiled {
   readonly hi: Float64Array;
   readonly err: Float64Array;
   readonly errFtz: Float64Array;
-  /** The table nodes' indices (a table node's operand a is its place here), and their facts per segment, by that place. */
+  /** The table nodes' indices (a table node's operand a is its place here), and their facts (constant-facts.ts tableFacts). */
   readonly tableNodes: number[];
-  readonly tables: Map<number, { lo: Float64Array; hi: Float64Array; err: Float64Array }>;
+  tables: TableFacts | null;
   readonly out: FlatAnalysis;
 }
 const compiledPrograms = new WeakMap<Program, Compiled>();
@@ -104,7 +104,7 @@ function compile(program: Program): Compiled {
     err: new Float64Array(count),
     errFtz: new Float64Array(count),
     tableNodes: [],
-    tables: new Map(),
+    tables: null,
     out: { lo: new Float64Array(count), hi: new Float64Array(count), err: new Float64Array(count), unbounded: -1 },
   };
   for (let i = 0; i < count; i++) {
@@ -157,27 +157,6 @@ function compile(program: Program): Compiled {
   return c;
 }
 
-/** The facts of every table node for one segment (computed once per program and segment). */
-function tableFacts(program: Program, c: Compiled, segment: number): { lo: Float64Array; hi: Float64Array; err: Float64Array } {
-  let t = c.tables.get(segment);
-  if (!t) {
-    const count = c.tableNodes.length;
-    t = { lo: new Float64Array(count), hi: new Float64Array(count), err: new Float64Array(count) };
-    for (let k = 0; k < count; k++) {
-      const n = program.nodes[c.tableNodes[k]!]!;
-      if (n.kind !== 'table') continue;
-      const exact = n.exact[segment];
-      if (exact === undefined) throw new RangeError(`table has no segment ${segment}`);
-      const f = constantFacts(n, n.values[segment]!, exact, segment);
-      t.lo[k] = f.value.lo;
-      t.hi[k] = f.value.hi;
-      t.err[k] = f.error;
-    }
-    c.tables.set(segment, t);
-  }
-  return t;
-}
-
 /**
  * The segment and flush-to-zero come as plain arguments (as AnalyseOptions'
  * fields): an options object per cell was garbage, and its two shapes
@@ -196,7 +175,9 @@ export function analyseFlat(program: Program, cell: readonly Interval[], segment
   let c = compiledPrograms.get(program);
   if (!c) compiledPrograms.set(program, (c = compile(program)));
   const known = hooks.get(program)?.(cell, segment) ?? null;
-  const table = c.tableNodes.length > 0 ? tableFacts(program, c, segment) : null;
+  const tableCount = c.tableNodes.length;
+  const table = tableCount > 0 ? (c.tables = tableFacts(program, c.tableNodes, c.tables, segment)).values : null;
+  const tableBase = 3 * tableCount * segment;
   const { op, a: opA, b: opB } = c;
   const constErr = ftz ? c.errFtz : c.err;
   const out = c.out;
@@ -342,9 +323,9 @@ export function analyseFlat(program: Program, cell: readonly Interval[], segment
         break;
       default:
         // TABLE: as a constant, for the cell's segment (the caller says which).
-        lo = table!.lo[opA[i]!]!;
-        hi = table!.hi[opA[i]!]!;
-        e = table!.err[opA[i]!]!;
+        lo = table![tableBase + opA[i]!]!;
+        hi = table![tableBase + tableCount + opA[i]!]!;
+        e = table![tableBase + 2 * tableCount + opA[i]!]!;
         break;
     }
     if (known) {

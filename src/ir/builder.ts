@@ -11,6 +11,7 @@
  * constants combined with a table is again one table.
  */
 import { Rational } from '../math/rational.js';
+import { FLOAT64, HI, LO, WORDS } from '../math/float-words.js';
 import type { Arithmetic } from '../family/arithmetic.js';
 import { UnknownNodeError, type BinaryKind, type FineIndex, type Node, type Program } from './nodes.js';
 import { operands, renumber } from './operands.js';
@@ -353,13 +354,11 @@ function sameValues(a: SegValues, b: SegValues): boolean {
 }
 
 // A table's bucket: a hash of its rounded entries' bits (equal exact entries round alike).
-const HASH_F64 = new Float64Array(1);
-const HASH_U32 = new Uint32Array(HASH_F64.buffer);
 function tableHash(values: readonly number[]): number {
   let h = values.length;
   for (let k = 0; k < values.length; k++) {
-    HASH_F64[0] = values[k]!;
-    h = Math.imul(h ^ HASH_U32[0]!, 0x9e3779b1) ^ Math.imul(HASH_U32[1]!, 0x85ebca6b);
+    FLOAT64[0] = values[k]!;
+    h = Math.imul(h ^ WORDS[LO]!, 0x9e3779b1) ^ Math.imul(WORDS[HI]!, 0x85ebca6b);
   }
   return h;
 }

@@ -6,6 +6,7 @@
 import { nextUp } from '../math/directed.js';
 import type { Interval } from '../math/interval.js';
 import { Rational } from '../math/rational.js';
+import type { Program } from './nodes.js';
 
 const { abs, max } = Math;
 const isFinite = Number.isFinite;
@@ -29,6 +30,49 @@ export function constantFacts(node: object, stored: number, exact: Rational, seg
     bySegment.set(segment, f);
   }
   return f;
+}
+
+/**
+ * A program's table facts, for every segment in one array made at the first
+ * table read: segment s's lo of table place k at 3 count s + k, its hi count
+ * further on, its error 2 count further (count: the program's table nodes);
+ * `filled` says which segments are written. The same numbers constantFacts
+ * gives: per program two buffers (off the heap past 64 bytes), where a
+ * map per node, three objects per node and segment and an array per segment
+ * were kept as long as the program and copied by the scavenges.
+ */
+export interface TableFacts {
+  readonly values: Float64Array;
+  readonly filled: Uint8Array;
+}
+
+/** `kept` (made when null) with segment `segment` filled, for the program's table nodes at `tableNodes`. */
+export function tableFacts(program: Program, tableNodes: readonly number[], kept: TableFacts | null, segment: number): TableFacts {
+  const count = tableNodes.length;
+  let t = kept;
+  if (!t) {
+    let segments = 0;
+    for (const i of tableNodes) {
+      const n = program.nodes[i]!;
+      if (n.kind === 'table') segments = max(segments, n.exact.length);
+    }
+    t = { values: new Float64Array(3 * count * segments), filled: new Uint8Array(segments) };
+  }
+  if (t.filled[segment] !== 1) {
+    const base = 3 * count * segment;
+    for (let k = 0; k < count; k++) {
+      const n = program.nodes[tableNodes[k]!]!;
+      if (n.kind !== 'table') continue;
+      const exact = n.exact[segment];
+      if (exact === undefined) throw new RangeError(`table has no segment ${segment}`);
+      const b = boundsOf(exact);
+      t.values[base + k] = b[0];
+      t.values[base + count + k] = b[1];
+      t.values[base + 2 * count + k] = constError(n.values[segment]!, exact, b[0], b[1]);
+    }
+    t.filled[segment] = 1;
+  }
+  return t;
 }
 
 /**
@@ -58,9 +102,11 @@ function boundsOf(exact: Rational): readonly [number, number] {
     boundsCount = 0;
     list = undefined;
   }
-  if (!list) boundsByValue.set(key, (list = []));
   const bounds = exact.toNumberBounds();
-  list.push({ num: exact.num, den: exact.den, bounds });
+  const known: KnownBounds = { num: exact.num, den: exact.den, bounds };
+  // A new key's list is made with its one entry: an empty list's first push gave it room for 17.
+  if (list) list.push(known);
+  else boundsByValue.set(key, [known]);
   boundsCount++;
   return bounds;
 }

@@ -1,7 +1,8 @@
 /**
  * One float64's two 32-bit words, read and written without allocating: a
  * shared scratch buffer for the functions that take a double apart
- * (next-float.ts nextUpByWords, rational.ts fromNumber, gcd.ts bitLength).
+ * (next-float.ts nextUpByWords, rational.ts fromNumber, gcd.ts bitLength,
+ * ir/builder.ts tableHash).
  * Each writes FLOAT64[0] and reads WORDS at once, calling nothing in
  * between, so one buffer serves them all.
  */

@@ -86,8 +86,10 @@ export class Rational {
       n >>= k;
       den >>= k;
     }
-    for (const f of factors) {
-      if (f === 1n) continue;
+    for (let i = 0; i < factors.length; i++) {
+      const f = factors[i]!;
+      // A repeated factor has nothing left to remove (its first turn ended with no common part).
+      if (f === 1n || factors.indexOf(f) < i) continue;
       for (;;) {
         exactWork.steps += 2;
         countPasses(bits);

@@ -109,6 +109,16 @@ export function cellFacts(ap: AnalysisProgram, degree: number, cell: Cell, x0: n
  * zero or is unbounded.
  */
 export function pointLowerT(ap: AnalysisProgram, degree: number, pointCell: Cell, segment: number): number[] | null {
+  return pointLower(ap, degree, pointCell, segment)?.T ?? null;
+}
+
+/**
+ * pointLowerT with the lower bound of |r| at the point (`r`): every cell
+ * holding the point has R >= r as well (cellFacts' R bounds |r| over the cell
+ * from above), so its truncation bound at an order (cellTail) is at least
+ * r times the grade sums above that order at these T (gradeSumDown).
+ */
+export function pointLower(ap: AnalysisProgram, degree: number, pointCell: Cell, segment: number): { r: number; T: number[] } | null {
   // At a point interval arithmetic meets no dependency, only rounding: the Bernstein enclosures add nothing there.
   const an = analyseFlat(ap.program, pointCell, segment);
   if (ap.c1 !== null) {
@@ -119,7 +129,7 @@ export function pointLowerT(ap: AnalysisProgram, degree: number, pointCell: Cell
   const T = doubleZeros(degree + 1);
   // Rounding 0 down gives -2^-1074: a magnitude's lower bound is at least 0.
   for (const [k, ref] of ap.q) T[k] = Math.max(0, mulDown(powDown(rLeast, k - 1), mig(valueOf(an, ref))));
-  return T;
+  return { r: Number.isNaN(rLeast) ? 0 : Math.max(0, rLeast), T };
 }
 
 /**
@@ -256,11 +266,15 @@ export function termValuesInto(f: CellFacts, l: TermLayout, out: Float64Array): 
 
 /** Adds the lower-bounded sum of the grade-`grade` terms to the cell's grade sums. */
 export function addGrade(f: CellFacts, termsOfGrade: readonly SeriesTerm[], grade: number): void {
-  const l = termLayout(termsOfGrade);
-  const T = f.T;
+  f.gradeSums[grade] = gradeSumDown(f.T, termsOfGrade);
+}
+
+/** Lower bound of the sum of H(m) T^m over `terms` (one grade's), each product and the sum rounded down. */
+export function gradeSumDown(T: readonly number[], terms: readonly SeriesTerm[]): number {
+  const l = termLayout(terms);
   let s = 0;
   for (let t = 0; t < l.h.length; t++) s = addDownMagnitude(s, laidOutValue(T, l, t));
-  f.gradeSums[grade] = s;
+  return s;
 }
 
 /** The cell's truncation bound when every grade <= order is kept. */

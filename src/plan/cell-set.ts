@@ -182,27 +182,28 @@ export class CellSet {
 
   /** The truncation bound over all cells, absolute or relative to |x*|. */
   truncation(order: number, relative: boolean): number {
-    let worst = 0;
-    for (const c of this.cells) worst = Math.max(worst, this.cellBound(c, order, relative));
-    return worst;
+    return this.worst(order, relative).bound;
   }
 
   /**
-   * A cell whose bound is the largest at `order` (the first such), or null
-   * for no cells: one cell's bound is a lower bound of `truncation`, which is
-   * their maximum (the order search at a rounding floor reads it first).
+   * The truncation bound (the largest of the cells' bounds) and a cell whose
+   * bound it is (the first such; null for no cells), in one pass: one cell's
+   * bound is a lower bound of the truncation bound, so the order search reads
+   * that cell first at the next order (series-order.ts, the witness).
    */
-  worstCell(order: number, relative: boolean): CellFacts | null {
-    let worst: CellFacts | null = null;
+  worst(order: number, relative: boolean): { readonly bound: number; readonly cell: CellFacts | null } {
+    let bound = 0;
+    let cell: CellFacts | null = null;
     let most = -Infinity;
     for (const c of this.cells) {
       const b = this.cellBound(c, order, relative);
+      bound = Math.max(bound, b);
       if (b > most) {
         most = b;
-        worst = c;
+        cell = c;
       }
     }
-    return worst;
+    return { bound, cell };
   }
 
   cellBound(c: CellFacts, order: number, relative: boolean): number {

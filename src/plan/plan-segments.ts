@@ -23,6 +23,7 @@ import type { SegmentLayout } from './segments.js';
 import { choiceOnce, layoutOnce, rootOnce, sharedOf, type LayoutShared, type NeedsCells } from './layout-memo.js';
 import { analysisProgram, orderZeroSketch, CoefficientError, ZeroSlopeError, type AnalysisProgram, type Expansion } from './series-program.js';
 import { tableLimitBit } from './table-limit.js';
+import { floorOutOfReach, trialTables, type TrialTables } from './trial-tables.js';
 import { planFound } from './work.js';
 import { TermPool } from './term-pool.js';
 import { ECONOMISE, initialCellsPerSegment, LIMITS, REFINE, SEGMENT_SEARCH } from './tuning.js';
@@ -52,7 +53,10 @@ function planSegmentsInner(family: Family, box: Cell, layout: SegmentLayout, tho
   const x0 = expansion.x0.map((v) => v.toNumber());
   // A search trial checks it before the cells, which are most of a large layout's work: its refusal
   // then ranks below every refusal the cells give (refusals.ts moreActionable), as it proves less.
-  if (!thorough) refuseOverTable(family, box, layout, plain, true);
+  if (!thorough) {
+    refuseOverTable(family, box, layout, plain, true);
+    if (!plain) refuseBeyondTables(family, box, layout);
+  }
   let set = firstSet(family, box, layout, ap, x0, plain ? {} : sharedOf(family, box, layout));
   if (plain) plainRootAtCentre(family, set.centreFacts());
   if (!thorough) {
@@ -134,6 +138,27 @@ function refuseOverTable(family: Family, box: Cell, layout: SegmentLayout, plain
     tableLimitBit();
     refuseTable(family, layout.counts, least, true, beforeCells);
   }
+}
+
+/**
+ * A search trial none of whose plans can fit plan.max_table_bytes, proven
+ * from lower bounds of its truncation at the segments' corners
+ * (trial-tables.ts): refused before its cells, ranked as the order-0 check's
+ * refusal (UncertifiedTableRefusal), with the bytes the graded series would
+ * quote at its first program where that program is of the least order left.
+ */
+function refuseBeyondTables(family: Family, box: Cell, layout: SegmentLayout): void {
+  // Near the limit only, as the order-0 check (SEGMENT_SEARCH.tableCheckReach).
+  if (!(leastTableBytes(family, layout.segmentation.segments) * SEGMENT_SEARCH.tableCheckReach > family.plan.maxTableBytes)) return;
+  if (!floorOutOfReach(family, expansionFor(family, box, layout).expansion)) return;
+  const least = layoutTables(family, box, layout);
+  if (least && !fitsTable(family.plan.maxTableBytes, least.bytes)) refuseTable(family, layout.counts, least.bytes, true, true);
+}
+
+/** trialTables for a layout's recentred expansion and prefix (made once per layout, layout-memo.ts). */
+export function layoutTables(family: Family, box: Cell, layout: SegmentLayout): TrialTables | null {
+  const { expansion } = expansionFor(family, box, layout);
+  return trialTables(family, layout, expansion, prefixOf(family, expansion, layout, sharedOf(family, box, layout)));
 }
 
 /** Each segment's first cells: a grid of its box (initialCellsPerSegment cells). */

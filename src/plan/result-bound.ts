@@ -54,22 +54,20 @@ function hornerInterval(coeffs: readonly Interval[], x: Interval): Interval {
   return acc;
 }
 
-function enclosures(powers: readonly (Expr | null)[], cell: Cell, family: Family): Interval[] {
-  return powers.map((e) => (e ? encloseExpr(e, cell, family.constants) : point(0)));
-}
 
 /** Upper bound of |d result / dx| over the cell times the interval J of the unknown (`derivative` from derivativePowers). */
 export function slopeOver(family: Family, derivative: readonly (Expr | null)[], cell: Cell, J: Interval): number {
-  return slopeFrom(derivativeOver(family, derivative, cell), J);
+  return slopeFrom(coefficientsOver(family, derivative, cell), J);
 }
 
 /**
  * slopeOver in two steps, for a caller that asks about one cell with several
- * J (src/plan/forms/folded.ts, once per series order): the derivative's
- * coefficients enclosed over the cell, which do not depend on J...
+ * J (src/plan/forms/folded.ts, once per series order): the coefficients of a
+ * polynomial in the unknown (the derivative's, from derivativePowers, or the
+ * result's own powers) enclosed over the cell, which do not depend on J...
  */
-export function derivativeOver(family: Family, derivative: readonly (Expr | null)[], cell: Cell): readonly Interval[] {
-  return enclosures(derivative, cell, family);
+export function coefficientsOver(family: Family, powers: readonly (Expr | null)[], cell: Cell): Interval[] {
+  return powers.map((e) => (e ? encloseExpr(e, cell, family.constants) : point(0)));
 }
 
 /** ...then Horner's rule over J: the same operations as slopeOver's, so the same bound bit for bit. */
@@ -79,7 +77,7 @@ export function slopeFrom(coefficients: readonly Interval[], J: Interval): numbe
 
 /** Lower bound of |result| over the cell times the root's enclosure (what a relative part is divided by; 0 when it may vanish). */
 export function resultFloor(family: Family, spec: ResultSpec, cell: Cell, root: Interval): number {
-  return mig(hornerInterval(enclosures(spec.powers, cell, family), root));
+  return mig(hornerInterval(coefficientsOver(family, spec.powers, cell), root));
 }
 
 /**

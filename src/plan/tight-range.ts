@@ -43,6 +43,7 @@ interface DerivativeParts {
   readonly width: readonly number[];
   readonly d1: { readonly lo: Float64Array; readonly hi: Float64Array };
   readonly d2: { readonly lo: Float64Array; readonly hi: Float64Array };
+  readonly segment: number;
 }
 
 /** A cell's tight enclosures, index = power j (null where unknown). */
@@ -52,6 +53,14 @@ export interface TightCell {
   /** c'j / c'1 (r for j = 0, q_j for j >= 2). */
   readonly ratio: readonly (Interval | null)[];
 }
+
+/** A kept TightCell and the segment it is of. */
+interface KeptCell extends TightCell {
+  readonly segment: number;
+}
+
+/** Where `cell` builds its arrays before copying them at their length (a pushed array's first growth holds 17). */
+const scratchRow: (Interval | null)[] = [];
 
 function totalDegree(p: MultiPoly): number {
   let d = 0;
@@ -101,9 +110,9 @@ export class CoefficientRanges {
   private readonly share: FamilyShare;
   private readonly segments = new Map<number, SegmentTensors>();
   private readonly cache = new WeakMap<Interval, unknown>();
-  private readonly noInputs = new Map<number, TightCell>();
+  private readonly noInputs = new Map<number, KeptCell>();
   /** Per cell (by identity) and segment: P', P'' with the inputs' variables in Bernstein form (bernsteinFirst). */
-  private readonly partials = new WeakMap<Cell, Map<number, DerivativeParts>>();
+  private readonly partials = new WeakMap<Cell, DerivativeParts | Map<number, DerivativeParts>>();
 
   /** `x0[s]` is segment s's expansion point. */
   constructor(
@@ -215,6 +224,11 @@ export class CoefficientRanges {
    */
   cell(cell: readonly Interval[], segment: number): TightCell {
     const d = this.mid.length;
+    if (d === 0) {
+      let t = this.noInputs.get(segment);
+      if (!t) this.noInputs.set(segment, (t = this.computeCell(cell, 0, segment)));
+      return t;
+    }
     // Keyed by the identity of the cell's intervals (split cells share the sides they did not split).
     let level: WeakMap<Interval, unknown> = this.cache;
     for (let i = 0; i < d - 1; i++) {
@@ -222,35 +236,43 @@ export class CoefficientRanges {
       if (!next) level.set(cell[i]!, (next = new WeakMap()));
       level = next;
     }
-    let bySegment = (d === 0 ? this.noInputs : level.get(cell[d - 1]!)) as Map<number, TightCell> | undefined;
-    if (!bySegment) {
-      bySegment = new Map();
-      if (d > 0) level.set(cell[d - 1]!, bySegment);
-    }
-    let t = bySegment.get(segment);
+    // A cell lies in one segment: its enclosures are kept alone, and in a map by segment only
+    // when a second segment asks (a map per cell was a large part of what the scavenges copied).
+    const last = cell[d - 1]!;
+    const kept = level.get(last) as KeptCell | Map<number, KeptCell> | undefined;
+    let t = kept instanceof Map ? kept.get(segment) : kept !== undefined && kept.segment === segment ? kept : undefined;
     if (!t) {
-      const tensors = this.tensors(segment);
-      const { origin, width } = this.scaled(cell.slice(0, d));
-      // Built by push, so both arrays are always of one element kind (packed objects): the arrays
-      // `map` made were of two (V8's builtin and its inlined copy differ), and the optimised
-      // readers here and in src/plan/cell-bound.ts deoptimised on the second ("wrong map").
-      const n = tensors.shifted.length;
-      const shifted: (Interval | null)[] = [];
-      for (let j = 0; j < n; j++) {
-        const x = tensors.shifted[j];
-        shifted.push(x ? finite(bernsteinRange(x, origin, width)) : null);
-      }
-      const c1 = shifted[1] ?? null;
-      const divisible = c1 !== null && !containsZero(c1);
-      const ratio: (Interval | null)[] = [];
-      for (let j = 0; j < n; j++) {
-        const x = shifted[j];
-        ratio.push(x && divisible ? idiv(x, c1) : null);
-      }
-      t = { c1, shifted, ratio };
-      bySegment.set(segment, t);
+      t = this.computeCell(cell, d, segment);
+      if (kept === undefined) level.set(last, t);
+      else if (kept instanceof Map) kept.set(segment, t);
+      else level.set(last, new Map([[kept.segment, kept], [segment, t]]));
     }
     return t;
+  }
+
+  /** `cell`'s enclosures, computed (its arrays copied to their length from the scratch ones they are built in). */
+  private computeCell(cell: readonly Interval[], d: number, segment: number): KeptCell {
+    const tensors = this.tensors(segment);
+    const { origin, width } = this.scaled(cell.slice(0, d));
+    // Built by push, so both arrays are always of one element kind (packed objects): the arrays
+    // `map` made were of two (V8's builtin and its inlined copy differ), and the optimised
+    // readers here and in src/plan/cell-bound.ts deoptimised on the second ("wrong map").
+    const n = tensors.shifted.length;
+    const row = scratchRow;
+    row.length = 0;
+    for (let j = 0; j < n; j++) {
+      const x = tensors.shifted[j];
+      row.push(x ? finite(bernsteinRange(x, origin, width)) : null);
+    }
+    const shifted = row.slice();
+    const c1 = shifted[1] ?? null;
+    const divisible = c1 !== null && !containsZero(c1);
+    row.length = 0;
+    for (let j = 0; j < n; j++) {
+      const x = shifted[j];
+      row.push(x && divisible ? idiv(x, c1) : null);
+    }
+    return { c1, shifted, ratio: row.slice(), segment };
   }
 
   /**
@@ -270,14 +292,17 @@ export class CoefficientRanges {
     // from the first call on. The polished form asks each cell at least twice (the Newton-only pass, then the
     // pass with the programs' rounding; 2 to 5 times per cell in lens-undistort, gas-molar-volume and
     // gas-wide): keeping it only from the second call transformed every cell's inputs twice.
-    let bySegment = this.partials.get(cell);
-    if (!bySegment) this.partials.set(cell, (bySegment = new Map()));
-    let p = bySegment.get(segment);
+    // Kept alone with its segment, in a map by segment only when a second segment asks (as `cell` keeps its
+    // enclosures), and the sides copied at their length (`scaled` pushes them into room for 17).
+    const kept = this.partials.get(cell);
+    let p = kept instanceof Map ? kept.get(segment) : kept !== undefined && kept.segment === segment ? kept : undefined;
     if (!p) {
       const { origin, width } = this.scaled(cell);
       const d = origin.length;
-      p = { origin, width, d1: bernsteinFirst(t.d1, origin, width, d), d2: bernsteinFirst(t.d2, origin, width, d) };
-      bySegment.set(segment, p);
+      p = { origin: origin.slice(), width: width.slice(), d1: bernsteinFirst(t.d1, origin, width, d), d2: bernsteinFirst(t.d2, origin, width, d), segment };
+      if (kept === undefined) this.partials.set(cell, p);
+      else if (kept instanceof Map) kept.set(segment, p);
+      else this.partials.set(cell, new Map([[kept.segment, kept], [segment, p]]));
     }
     const d = p.origin.length;
     const origin = [...p.origin, J.lo];

@@ -262,6 +262,31 @@ export const GREEDY = {
   truncationShares: [0.95, 0.8, 0.6] as const,
 } as const;
 
+/** A search trial's least table bytes from point lower bounds of the truncation (src/plan/trial-tables.ts). */
+export const TRIAL_TABLES = {
+  /** Inputs at most: every corner of every segment's box is one analysis of the prefix program (2^d per segment). */
+  maxInputs: 3,
+  /**
+   * Grades above an order summed into the lower bound of its truncation at a
+   * point: more grades only raise it (every term is positive), and three are
+   * a few dozen terms at the orders the examples reach; battery-soc's 512
+   * segments rule out orders 0 and 1 with the first alone (2.2e-3 and 1.1e-3
+   * against its target 1e-3).
+   */
+  grades: 3,
+  /**
+   * Orders ruled out at most: where the tails at the corners stay above the
+   * target past this order the layout is far from planning (the cells refuse
+   * it or it climbs many orders), and the terms of high grades are many
+   * (degree 6: hundreds by grade 20); the forms then decide as before.
+   */
+  maxOrder: 8,
+  /** About this many segments sampled evenly (their corners' analyses are the check's main cost: all 1024 corners of battery-soc's 512 segments took as long as the cells the check saves). */
+  samples: 64,
+  /** The sampled segments of the largest order-0 tail whose neighbours within a stride are taken too. */
+  near: 4,
+} as const;
+
 /** The Newton-polished forms (src/plan/forms/polished.ts). */
 export const POLISH = {
   /** Step counts weighed with plan.newton_steps: auto. Each step roughly doubles the correct digits, so two steps after even a short series reach most targets; a larger count is the user's choice (plan.newton_steps: N). */

@@ -14,7 +14,7 @@ import { Decimal } from 'decimal.js';
 import { evaluate as run } from '../../src/ir/evaluate.js';
 import { derivativePowers } from '../../src/family/result-powers.js';
 import type { Family } from '../../src/family/types.js';
-import { derivativeOver, largestBudget, resultBound, resultFloor, slopeFrom, slopeOver } from '../../src/plan/result-bound.js';
+import { coefficientsOver, largestBudget, resultBound, resultFloor, slopeFrom, slopeOver } from '../../src/plan/result-bound.js';
 import { resultAnalysisProgram } from '../../src/plan/result-program.js';
 import { exactDecimal } from '../support/exact-decimal.js';
 import { oneBoxContext } from './support/form-context.js';
@@ -93,10 +93,10 @@ describe('slopeOver and resultFloor on one cell', () => {
     expect(L).toBeLessThan(1.8 * 1.5);
   });
 
-  test('derivativeOver then slopeFrom: slopeOver bit for bit for every J over one cell, and at least |2 (1 + s) x - 3| sampled in decimal.js', () => {
+  test('coefficientsOver then slopeFrom: slopeOver bit for bit for every J over one cell, and at least |2 (1 + s) x - 3| sampled in decimal.js', () => {
     // The folded form encloses the derivative's coefficients once per cell and reuses them at every series order.
     for (const cell of [[{ lo: 0.5, hi: 1 }], [{ lo: 0.61, hi: 0.62 }], [{ lo: 0.9, hi: 1 }]]) {
-      const over = derivativeOver(family, derivative, cell);
+      const over = coefficientsOver(family, derivative, cell);
       for (const [lo, hi] of [[0.4, 1], [0.85, 0.95], [-0.3, 0.1], [1.2, 1.2], [0.5, 0.5000001]] as const) {
         const J = { lo, hi };
         const L = slopeFrom(over, J);

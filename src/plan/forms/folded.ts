@@ -21,7 +21,7 @@ import { cellTail, type CellFacts } from '../cell-bound.js';
 import { chebyshevForm, economise } from '../economise.js';
 import { evaluate } from '../evaluate.js';
 import { planOf } from '../plan-of.js';
-import { derivativeOver, resultFloor, slopeFrom } from '../result-bound.js';
+import { coefficientsOver, resultFloor, slopeFrom } from '../result-bound.js';
 import { foldResult } from '../result-fold.js';
 import { collapsedSeries } from '../series-program.js';
 import { FOLD } from '../tuning.js';
@@ -116,7 +116,7 @@ function foldCells(ctx: FormContext, slopes: Slopes, n: number, widen: readonly 
     if (!root || !Number.isFinite(tail)) return null;
     const J = { lo: subDown(root.lo, tail), hi: addUp(root.hi, tail) };
     let over = slopes.over.get(c.cell);
-    if (!over) slopes.over.set(c.cell, (over = derivativeOver(family, slopes.derivative, c.cell)));
+    if (!over) slopes.over.set(c.cell, (over = coefficientsOver(family, slopes.derivative, c.cell)));
     const slope = slopeFrom(over, J);
     const scale = relative ? resultFloor(family, spec, c.cell, root) : 1;
     if (!Number.isFinite(slope) || !(scale > 0)) return null;

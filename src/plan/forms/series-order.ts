@@ -99,9 +99,10 @@ export function seriesOrderPlan(ctx: FormContext): Plan {
       if (floor ? !(bound < floorBar()) : bound > target && bound >= target * ORDER_SEARCH.refineBelow) continue;
       pool.settle();
     } else if (!pool.nextGrade(order)) break;
-    let trunc = set.truncation(order, relative);
+    let worst = set.worst(order, relative);
+    let trunc = worst.bound;
     if (!floor && refine && trunc > target && trunc >= target * ORDER_SEARCH.refineBelow) {
-      witness = set.worstCell(order, relative);
+      witness = worst.cell;
       continue;
     }
     if (refine && trunc > target * ORDER_SEARCH.refineAbove && trunc < target * ORDER_SEARCH.refineBelow) {
@@ -122,12 +123,14 @@ export function seriesOrderPlan(ctx: FormContext): Plan {
       }
       if (refine) {
         set.refineWorst(order, relative, LIMITS.cells);
-        trunc = set.truncation(order, relative);
+        worst = set.worst(order, relative);
+        trunc = worst.bound;
       }
     }
     if (floor) {
       if (!(trunc < floorBar())) {
-        witness = set.worstCell(order, relative);
+        // The cells are as `worst` saw them (only refineWorst changes them, and worst follows it).
+        witness = worst.cell;
         continue;
       }
     } else if (trunc > target || (!refine && addUp(trunc, lastRounding) > target)) continue;
@@ -156,8 +159,9 @@ export function seriesOrderPlan(ctx: FormContext): Plan {
         if (set.cellBound(witness, order, relative) > target) continue;
         pool.settle();
       } else if (!pool.nextGrade(order)) break;
-      if (set.truncation(order, relative) > target) {
-        witness = set.worstCell(order, relative);
+      const worst = set.worst(order, relative);
+      if (worst.bound > target) {
+        witness = worst.cell;
         continue;
       }
       const program = programOf(ctx);
