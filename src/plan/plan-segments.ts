@@ -53,10 +53,7 @@ function planSegmentsInner(family: Family, box: Cell, layout: SegmentLayout, tho
   const x0 = expansion.x0.map((v) => v.toNumber());
   // A search trial checks it before the cells, which are most of a large layout's work: its refusal
   // then ranks below every refusal the cells give (refusals.ts moreActionable), as it proves less.
-  if (!thorough) {
-    refuseOverTable(family, box, layout, plain, true);
-    if (!plain) refuseBeyondTables(family, box, layout);
-  }
+  if (!thorough) refuseOverTable(family, box, layout, plain, true);
   let set = firstSet(family, box, layout, ap, x0, plain ? {} : sharedOf(family, box, layout));
   if (plain) plainRootAtCentre(family, set.centreFacts());
   if (!thorough) {
@@ -126,7 +123,12 @@ function planSegmentsInner(family: Family, box: Cell, layout: SegmentLayout, tho
  * Where only the recentred forms apply, every plan holds the order-0 series'
  * tables (cost-floor.ts): when those alone outgrow plan.max_table_bytes no
  * plan fits, so no form is weighed. The sketch is built only near the limit
- * (SEGMENT_SEARCH.tableCheckReach).
+ * (SEGMENT_SEARCH.tableCheckReach). Before the cells (`beforeCells`, a
+ * search trial) and where rounding is far from the target, the least bytes
+ * of every form, proven from lower bounds of the truncation at the segments'
+ * corners (trial-tables.ts), are checked too: ranked as the order-0 check's
+ * refusal (UncertifiedTableRefusal), with the bytes the graded series would
+ * quote at its first program where that program is of the least order left.
  */
 function refuseOverTable(family: Family, box: Cell, layout: SegmentLayout, plain: boolean, beforeCells = false): void {
   const segments = layout.segmentation.segments;
@@ -138,21 +140,9 @@ function refuseOverTable(family: Family, box: Cell, layout: SegmentLayout, plain
     tableLimitBit();
     refuseTable(family, layout.counts, least, true, beforeCells);
   }
-}
-
-/**
- * A search trial none of whose plans can fit plan.max_table_bytes, proven
- * from lower bounds of its truncation at the segments' corners
- * (trial-tables.ts): refused before its cells, ranked as the order-0 check's
- * refusal (UncertifiedTableRefusal), with the bytes the graded series would
- * quote at its first program where that program is of the least order left.
- */
-function refuseBeyondTables(family: Family, box: Cell, layout: SegmentLayout): void {
-  // Near the limit only, as the order-0 check (SEGMENT_SEARCH.tableCheckReach).
-  if (!(leastTableBytes(family, layout.segmentation.segments) * SEGMENT_SEARCH.tableCheckReach > family.plan.maxTableBytes)) return;
-  if (!floorOutOfReach(family, expansionFor(family, box, layout).expansion)) return;
-  const least = layoutTables(family, box, layout);
-  if (least && !fitsTable(family.plan.maxTableBytes, least.bytes)) refuseTable(family, layout.counts, least.bytes, true, true);
+  if (!beforeCells || !floorOutOfReach(family, expansionFor(family, box, layout).expansion)) return;
+  const all = layoutTables(family, box, layout);
+  if (all && !fitsTable(family.plan.maxTableBytes, all.bytes)) refuseTable(family, layout.counts, all.bytes, true, true);
 }
 
 /** trialTables for a layout's recentred expansion and prefix (made once per layout, layout-memo.ts). */

@@ -25,7 +25,7 @@
  *
  * So the least is the smaller of the order-n0 program's and the cheapest
  * polished program's bytes, both built as the forms build them.
- * plan-segments.ts (refuseBeyondTables) refuses a trial near the limit whose
+ * plan-segments.ts (refuseOverTable, before the cells) refuses a trial near the limit whose
  * least is over plan.max_table_bytes, before its cells (an
  * UncertifiedTableRefusal, as the order-0 check's), where rounding is far
  * from the target (floorOutOfReach); the words are those of the graded
