@@ -14,6 +14,7 @@ import { roundTo } from '../family/arithmetic.js';
 import type { Program } from '../ir/nodes.js';
 import { rationalsOf, scaledArgument, scaledComposeAffine, scaledFromChebyshev, scaledOf, scaledToChebyshev, type Scaled } from '../series/chebyshev.js';
 import type { Family } from '../family/types.js';
+import type { Interval } from '../math/interval.js';
 import type { Cell } from './box.js';
 import { polynomialProgram, type Collapsed, type Expansion } from './series-program.js';
 
@@ -37,23 +38,39 @@ export interface ChebyshevForm {
   readonly tail: readonly (readonly bigint[])[];
 }
 
-/** Null when the input's scale 1 / half-width is beyond the arithmetic's range (a tiny or subnormal range): no such form. */
+/**
+ * The affine map u = (p - mid) * invHalf of the economised composite over
+ * one input, per segment of `sides` (each segment's analysed box along the
+ * input): one scale for every segment, 1 / half the widest side rounded to
+ * the arithmetic, or null when that is beyond its range (a tiny or subnormal
+ * range: no such form). folded-floor.ts builds its floor on the same map.
+ */
+export function segmentInvHalf(family: Family, sides: readonly Interval[]): Rational | null {
+  const half = Math.max(...sides.map((b) => (b.hi - b.lo) / 2));
+  if (!(half > 0)) return null;
+  const scale = roundTo(Rational.fromNumber(half).inverse(), family.arithmetic);
+  return Number.isFinite(scale) ? Rational.fromNumber(scale) : null;
+}
+
+/** Each side's midpoint rounded to the arithmetic: the mid of segmentInvHalf's map. */
+export function segmentMids(family: Family, sides: readonly Interval[]): Rational[] {
+  const half = Rational.of(1n, 2n);
+  return sides.map((b) => Rational.fromNumber(roundTo(Rational.fromNumber(b.lo).add(Rational.fromNumber(b.hi)).mul(half), family.arithmetic)));
+}
+
+/** Null when the input's scale is beyond the arithmetic's range (segmentInvHalf): no such form. */
 export function chebyshevForm(family: Family, c: Collapsed, boxes: readonly Cell[]): ChebyshevForm | null {
   const S = c.inR.length;
-  const mid: Rational[] = [];
   const cheb: Scaled[] = [];
   const tail: bigint[][] = [];
   const rho: Rational[] = [];
-  // One scale for every segment: half the width of a segment's analysed box (the widest).
-  const half = Math.max(...boxes.map((b) => (b[c.input]!.hi - b[c.input]!.lo) / 2));
-  if (!(half > 0)) return null;
-  const scale = roundTo(Rational.fromNumber(half).inverse(), family.arithmetic);
-  if (!Number.isFinite(scale)) return null;
-  const invHalf = Rational.fromNumber(scale);
+  const sides = boxes.map((b) => b[c.input]!);
+  const invHalf = segmentInvHalf(family, sides);
+  if (!invHalf) return null;
+  const mid = segmentMids(family, sides);
   for (let s = 0; s < S; s++) {
-    const { lo, hi } = boxes[s]![c.input]!;
-    const m = Rational.fromNumber(roundTo(Rational.fromNumber(lo).add(Rational.fromNumber(hi)).mul(Rational.of(1n, 2n)), family.arithmetic));
-    mid.push(m);
+    const { lo, hi } = sides[s]!;
+    const m = mid[s]!;
     // r = alpha + beta p, p = mid + u / invHalf  =>  r = (alpha + beta mid) + (beta / invHalf) u.
     const a = c.alpha[s]!.add(c.beta[s]!.mul(m));
     const b = c.beta[s]!.div(invHalf);

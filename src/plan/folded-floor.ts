@@ -35,15 +35,17 @@
  */
 import { Rational } from '../math/rational.js';
 import { addUp, nextDown, nextUp, subDown } from '../math/directed.js';
-import { iadd, imul, type Interval } from '../math/interval.js';
+import type { Interval } from '../math/interval.js';
 import { chebyshevExtrema, poussinFloor } from '../math/poussin.js';
-import { roundTo } from '../family/arithmetic.js';
 import { compileExprExact, type ExactFunction } from '../family/expr-eval.js';
 import type { Expr, Family } from '../family/types.js';
 import { ConstantOverflowError, ProgramBuilder } from '../ir/builder.js';
 import { COST_MODELS, costModelFor, programCost } from '../ir/cost/index.js';
 import { signAt } from '../series/recenter.js';
 import type { SegmentLayout } from './segments.js';
+import { segmentInvHalf, segmentMids } from './economise.js';
+import { hornerInterval } from './result-bound.js';
+import { bisectFloat, hornerFloat } from './root-choice.js';
 import { REFINE } from './tuning.js';
 
 export interface FoldedFloor {
@@ -140,16 +142,10 @@ export function poussinOver(y: PointValues, boxes: readonly Interval[], d: numbe
   return poussinFloor(points, values);
 }
 
-/** The layout's mid values (economise.ts chebyshevForm: each analysed box's midpoint, rounded to the arithmetic). */
-function midsOf(family: Family, boxes: readonly Interval[]): Rational[] {
-  const half = Rational.of(1n, 2n);
-  return boxes.map((b) => Rational.fromNumber(roundTo(Rational.fromNumber(b.lo).add(Rational.fromNumber(b.hi)).mul(half), family.arithmetic)));
-}
-
 /** Whether c_0 is proven a table other than mid's, from enclosures of y*(mid) at the segments where y's estimate is least and largest. */
 function c0Table(y: PointValues, boxes: readonly Interval[], family: Family, target: number): boolean {
   if (boxes.length < 2) return false;
-  const mids = midsOf(family, boxes);
+  const mids = segmentMids(family, boxes);
   const inBox = (s: number): boolean => {
     const [lo, hi] = [Rational.fromNumber(boxes[s]!.lo), Rational.fromNumber(boxes[s]!.hi)];
     return mids[s]!.cmp(lo) >= 0 && mids[s]!.cmp(hi) <= 0;
@@ -178,14 +174,12 @@ function c0Table(y: PointValues, boxes: readonly Interval[], family: Family, tar
 function withCost(family: Family, layout: SegmentLayout, degree: number, tableC0: boolean): FoldedFloor | null {
   const model = family.plan.costModel ? COST_MODELS[family.plan.costModel] : costModelFor(family.arithmetic);
   const boxes = layout.boxes.map((b) => b[0]!);
-  const half = Math.max(...boxes.map((b) => (b.hi - b.lo) / 2));
-  if (!(half > 0)) return null;
-  const scale = roundTo(Rational.fromNumber(half).inverse(), family.arithmetic);
-  if (!Number.isFinite(scale)) return null;
-  const mids = midsOf(family, boxes);
+  const invHalf = segmentInvHalf(family, boxes);
+  if (!invHalf) return null;
+  const mids = segmentMids(family, boxes);
   try {
     const b = new ProgramBuilder(family.arithmetic, family.inputs.map((i) => i.name), layout.segmentation);
-    const u = b.mul(b.sub(b.input(0), b.const(mids)), b.const(Rational.fromNumber(scale)));
+    const u = b.mul(b.sub(b.input(0), b.const(mids)), b.const(invHalf));
     let acc = u;
     for (let k = 1; k < degree; k++) acc = b.mul(acc, u);
     if (tableC0) {
@@ -223,20 +217,10 @@ export function pointValues(family: Family): PointValues | null {
   const lo = family.bracket![0].value;
   const hi = family.bracket![1].value;
   const [loN, hiN] = [lo.toNumber(), hi.toNumber()];
+  // The float64 bisection of the root choice (root-choice.ts), from the sign at the lower end, 80 halvings.
   const rootFloat = (c: readonly number[]): number => {
-    const f = (s: number): number => c.reduceRight((acc, ck) => acc * s + ck, 0);
-    let a = loN;
-    let b = hiN;
-    const sa = Math.sign(f(a));
-    for (let i = 0; i < 80; i++) {
-      const m = a + (b - a) / 2;
-      if (m <= a || m >= b) break;
-      const sm = Math.sign(f(m));
-      if (sm === 0) return m;
-      if (sm === sa) a = m;
-      else b = m;
-    }
-    return a + (b - a) / 2;
+    const cf = Float64Array.from(c);
+    return bisectFloat(cf, loN, hiN, Math.sign(hornerFloat(cf, loN)), false, 80);
   };
   const estimate = (x: number): number => {
     const s = rootFloat(floatCoeffs.map((f) => f(x)));
@@ -259,8 +243,7 @@ export function pointValues(family: Family): PointValues | null {
     const near = rootFloat(c.map((v) => v.toNumber()));
     const s = Number.isFinite(near) ? rootEnclosure(c, near, lo, hi) : null;
     if (!s) return null;
-    let acc = r[r.length - 1]!;
-    for (let k = r.length - 2; k >= 0; k--) acc = iadd(imul(acc, s), r[k]!);
+    const acc = hornerInterval(r, s);
     return Number.isFinite(acc.lo) && Number.isFinite(acc.hi) ? acc : null;
   };
   return { estimate, enclose };

@@ -48,7 +48,7 @@ export interface ResultEvaluation {
 }
 
 /** Horner's rule in outward-rounded intervals: sum_k c_k x^k. */
-function hornerInterval(coeffs: readonly Interval[], x: Interval): Interval {
+export function hornerInterval(coeffs: readonly Interval[], x: Interval): Interval {
   let acc = coeffs[coeffs.length - 1]!;
   for (let k = coeffs.length - 2; k >= 0; k--) acc = iadd(imul(acc, x), coeffs[k]!);
   return acc;

@@ -80,37 +80,45 @@ function coefficientAt(family: Family, k: number, e: Expr, point: readonly Ratio
 
 /**
  * Bisection with float64 signs between ends whose exact signs (sa at lo, sb at hi) differ; returns the final
- * midpoint, or with `float32` (the caller rounds the result to binary32) the lower end as soon as both ends
- * round to one finite binary32: every later bracket, and the final midpoint, lies between them, and rounding
- * is monotone, so it rounds to that same binary32 (about half the steps; the caller's x0 is the same).
+ * midpoint, or with `float32` the lower end as soon as both ends round to one binary32 (bisectFloat).
  */
 function bisectNear(c: readonly Rational[], lo: Rational, hi: Rational, sa: -1 | 0 | 1, sb: -1 | 0 | 1, float32 = false): Rational {
-  // Horner's rule from the top coefficient, as reduceRight from 0 did. A Float64Array: the
-  // plain arrays were of two element kinds (small integers or doubles), and the second one
-  // seen deoptimised the optimised code.
+  // A Float64Array: the plain arrays were of two element kinds (small integers or doubles), and the
+  // second one seen deoptimised the optimised code.
   const cf = Float64Array.from(c, (v) => v.toNumber());
-  const p = (x: number): number => {
-    let acc = 0;
-    for (let k = cf.length - 1; k >= 0; k--) acc = acc * x + cf[k]!;
-    return acc;
-  };
-  let a = lo.toNumber();
-  let b = hi.toNumber();
   if (sa === 0) return lo;
   if (sb === 0) return hi;
-  for (let i = 0; i < 200; i++) {
+  return Rational.fromNumber(bisectFloat(cf, lo.toNumber(), hi.toNumber(), sa, float32));
+}
+
+/** Horner's rule in float64 from the top coefficient (`cf[k]` the coefficient of x^k), as reduceRight from 0. */
+export function hornerFloat(cf: Float64Array, x: number): number {
+  let acc = 0;
+  for (let k = cf.length - 1; k >= 0; k--) acc = acc * x + cf[k]!;
+  return acc;
+}
+
+/**
+ * Bisection of hornerFloat(cf, .) between a < b, `sa` the sign taken at a: at most `steps` halvings, until
+ * no double lies between the ends; returns a midpoint where the sign is 0, else the final midpoint. With
+ * `float32` (the caller rounds the result to binary32) it returns the lower end as soon as both ends round
+ * to one finite binary32: every later bracket, and the final midpoint, lies between them, and rounding is
+ * monotone, so it rounds to that same binary32 (about half the steps; the caller's x0 is the same).
+ */
+export function bisectFloat(cf: Float64Array, a: number, b: number, sa: number, float32 = false, steps = 200): number {
+  for (let i = 0; i < steps; i++) {
     if (float32) {
       const f = Math.fround(a);
-      if (f === Math.fround(b) && f !== Infinity && f !== -Infinity) return Rational.fromNumber(a);
+      if (f === Math.fround(b) && f !== Infinity && f !== -Infinity) return a;
     }
     const m = a + (b - a) / 2;
     if (m <= a || m >= b) break;
-    const sm = Math.sign(p(m));
-    if (sm === 0) return Rational.fromNumber(m);
+    const sm = Math.sign(hornerFloat(cf, m));
+    if (sm === 0) return m;
     if (sm === sa) a = m;
     else b = m;
   }
-  return Rational.fromNumber(a + (b - a) / 2);
+  return a + (b - a) / 2;
 }
 
 export function pointText(family: Family, point: readonly Rational[]): string {
