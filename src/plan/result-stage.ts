@@ -23,6 +23,7 @@ import { largestBudget, resultBound, type ResultEvaluation } from './result-boun
 import { withCandidates } from './candidates.js';
 import { withDerivedBracket } from './derived-bracket.js';
 import { FOLDED_SKIP } from './folded-floor.js';
+import { withRootSeeds } from './root-seeds.js';
 import { FOLD, RESULT_BUDGET, WORK } from './tuning.js';
 import { spendAtMost, WorkLimitError } from './work.js';
 import type { Plan } from './types.js';
@@ -74,33 +75,48 @@ function foldedTrial(family: Family, planRoot: (f: Family) => Plan, beat: number
   }
 }
 
-/** The root planned to the cheapest budget, the result appended. */
+/**
+ * The root planned to the cheapest budget, the result appended. The shares
+ * of b_max are planned tightest first, and each root plan already made
+ * whose certified bound meets a looser budget is a candidate of that
+ * budget's segment search (root-seeds.ts): a plan
+ * for a tighter budget is a plan for the looser one too, so the looser
+ * search need not find it again to keep it, and its two-level layouts that
+ * cannot beat it are skipped (refine.ts). When the looser search keeps such
+ * a plan, nothing new was planned. Ties keep the plan of the earlier budget
+ * in the order first, then RESULT_BUDGET.shares.
+ */
 function planUnfolded(family: Family, spec: ResultSpec, planRoot: (f: Family) => Plan): Plan {
   const target = Number(family.accuracy.value);
   const program = resultAnalysisProgram(family, spec);
-  const tryBudget = (budget: number): { root: Plan; ev: ResultEvaluation } => {
-    const root = planRootTo(family, planRoot, budget);
-    return { root, ev: resultBound(family, spec, root.certifiedCells ?? [], root.absoluteBound, program) };
+  type Tried = { root: Plan; ev: ResultEvaluation; rank: number };
+  const tryBudget = (budget: number, rank: number, seeds: readonly Plan[] = []): Tried => {
+    const root = planRootTo(family, planRoot, budget, seeds);
+    return { root, ev: resultBound(family, spec, root.certifiedCells ?? [], root.absoluteBound, program), rank };
   };
-  const first = firstTry(RESULT_BUDGET.firstShares.map((share) => target * share), tryBudget);
-  const tried = [first];
+  const first = firstTry(RESULT_BUDGET.firstShares.map((share) => target * share), (b) => tryBudget(b, 0));
+  const tried: Tried[] = [first];
   const most = largestBudget(target, first.ev.cells);
   if (first.ev.cells.length === 0 || !(most > 0)) refuseNoRoom(family, first.ev);
   if (Number.isFinite(most)) {
-    for (const share of RESULT_BUDGET.shares) {
+    const shares = RESULT_BUDGET.shares.map((share, i) => ({ share, rank: i + 1 })).sort((a, b) => a.share - b.share);
+    for (const { share, rank } of shares) {
       const budget = most * share;
       if (tried.some((t) => t.root.family.accuracy.value.text === budgetText(budget))) continue;
+      const asked = Number(budgetText(budget));
+      const seeds = tried.map((t) => t.root).filter((r) => r.absoluteBound <= asked);
       try {
-        tried.push(tryBudget(budget));
+        const t = tryBudget(budget, rank, seeds);
+        if (!seeds.includes(t.root)) tried.push(t);
       } catch (e) {
         // A budget the root cannot reach: the looser ones tried already decide.
         if (!(e instanceof RootcastError)) throw e;
       }
     }
   }
-  const ok = tried.filter((t) => t.ev.total <= target).map((t) => withResult(family, spec, t.root, t.ev, target));
+  const ok = tried.filter((t) => t.ev.total <= target).map((t) => ({ plan: withResult(family, spec, t.root, t.ev, target), rank: t.rank }));
   if (ok.length === 0) refuseNoRoom(family, tried.reduce((a, b) => (b.ev.total < a.ev.total ? b : a)).ev);
-  return ok.reduce((a, b) => (b.cost < a.cost ? b : a));
+  return ok.reduce((a, b) => (b.plan.cost < a.plan.cost || (b.plan.cost === a.plan.cost && b.rank < a.rank) ? b : a)).plan;
 }
 
 /** Root budgets (shares of the target) tried in turn for the derived bracket's root plan: any plan's cells enclose the root, the loosest is the quickest. */
@@ -121,9 +137,9 @@ function firstTry<T>(budgets: readonly number[], attempt: (b: number) => T): T {
 }
 
 /** The root planned to an absolute budget; a refusal says it was for the result. */
-function planRootTo(family: Family, planRoot: (f: Family) => Plan, budget: number): Plan {
+function planRootTo(family: Family, planRoot: (f: Family) => Plan, budget: number, seeds: readonly Plan[] = []): Plan {
   const { result: _result, foldResult: _fold, foldBeat: _beat, ...rest } = family;
-  const rootFamily: Family = { ...rest, accuracy: { kind: 'absolute', value: SpecNumber.parse(budgetText(budget)) } };
+  const rootFamily = withRootSeeds({ ...rest, accuracy: { kind: 'absolute', value: SpecNumber.parse(budgetText(budget)) } }, seeds);
   try {
     return planRoot(rootFamily);
   } catch (e) {

@@ -18,6 +18,7 @@ import { cannotWin, costFloor } from './cost-floor.js';
 import { layoutOnce } from './layout-memo.js';
 import type { PlainTrial } from './plain-series.js';
 import { refinedPlans } from './refine.js';
+import { rootSeedsOf } from './root-seeds.js';
 import { moreActionable, QuotedFixRefusal, TableRefusal } from './refusals.js';
 import { QUOTED_FIX, REFINE, SEGMENT_SEARCH, WORK } from './tuning.js';
 import { leastTableBytes } from './plan-of.js';
@@ -146,6 +147,9 @@ export function searchSegments(
     stale = found.best && found.best.cost >= before ? stale + 1 : 0;
   }
   const all: Plan[] = [...tried.values()].filter((p): p is Plan => p !== null);
+  // The result stage's plans for tighter budgets (root-seeds.ts): weighed, and returned unchanged when kept.
+  const seeds = rootSeedsOf(family);
+  all.push(...seeds);
   if (free.some((f) => f) && !found.exhausted) {
     try {
       const refined = refinedPlans(family, box, fixed, all, (counts) => tried.get(counts.join('x')) ?? null);
@@ -160,7 +164,8 @@ export function searchSegments(
   candidates.push(...plain.candidates);
   if (plain.plan) all.push(plain.plan);
   if (all.length === 0) throw stoppedRefusal(found.refusal, found.exhausted);
-  return withCandidates(frugalChoice(all), candidates);
+  const chosen = frugalChoice(all);
+  return seeds.includes(chosen) ? chosen : withCandidates(chosen, candidates);
 }
 
 /**

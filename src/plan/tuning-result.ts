@@ -72,6 +72,9 @@ export const RESULT_BUDGET = {
    * turn; the cheapest plan that meets the target wins. A looser root is
    * usually cheaper, but a tighter one can change the form or the segments
    * the planner picks, so two splits are weighed; each is one more plan.
+   * They are planned tightest first: a looser budget's search weighs the
+   * tighter plans made before it (src/plan/root-seeds.ts). Ties keep the
+   * earlier share in this list.
    */
   shares: [0.9, 0.5] as const,
 } as const;
