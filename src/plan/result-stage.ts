@@ -79,22 +79,19 @@ function foldedTrial(family: Family, planRoot: (f: Family) => Plan, beat: number
  * The root planned to the cheapest budget, the result appended. The shares
  * of b_max are planned tightest first, and each root plan already made
  * whose certified bound meets a looser budget is a candidate of that
- * budget's segment search (root-seeds.ts): a plan
- * for a tighter budget is a plan for the looser one too, so the looser
- * search need not find it again to keep it, and its two-level layouts that
- * cannot beat it are skipped (refine.ts). When the looser search keeps such
- * a plan, nothing new was planned. Ties keep the plan of the earlier budget
- * in the order first, then RESULT_BUDGET.shares.
+ * budget's segment search (root-seeds.ts): a plan for a tighter budget is a
+ * plan for the looser one too, so the looser search need not find it again
+ * to keep it, and its two-level layouts that cannot beat it are skipped
+ * (refine.ts). When the looser search keeps such a plan, nothing new was
+ * planned, and its result bound is not computed again. Ties keep the plan
+ * of the earlier budget in the order first, then RESULT_BUDGET.shares.
  */
 function planUnfolded(family: Family, spec: ResultSpec, planRoot: (f: Family) => Plan): Plan {
   const target = Number(family.accuracy.value);
   const program = resultAnalysisProgram(family, spec);
   type Tried = { root: Plan; ev: ResultEvaluation; rank: number };
-  const tryBudget = (budget: number, rank: number, seeds: readonly Plan[] = []): Tried => {
-    const root = planRootTo(family, planRoot, budget, seeds);
-    return { root, ev: resultBound(family, spec, root.certifiedCells ?? [], root.absoluteBound, program), rank };
-  };
-  const first = firstTry(RESULT_BUDGET.firstShares.map((share) => target * share), (b) => tryBudget(b, 0));
+  const evaluated = (root: Plan, rank: number): Tried => ({ root, ev: resultBound(family, spec, root.certifiedCells ?? [], root.absoluteBound, program), rank });
+  const first = firstTry(RESULT_BUDGET.firstShares.map((share) => target * share), (b) => evaluated(planRootTo(family, planRoot, b), 0));
   const tried: Tried[] = [first];
   const most = largestBudget(target, first.ev.cells);
   if (first.ev.cells.length === 0 || !(most > 0)) refuseNoRoom(family, first.ev);
@@ -102,12 +99,12 @@ function planUnfolded(family: Family, spec: ResultSpec, planRoot: (f: Family) =>
     const shares = RESULT_BUDGET.shares.map((share, i) => ({ share, rank: i + 1 })).sort((a, b) => a.share - b.share);
     for (const { share, rank } of shares) {
       const budget = most * share;
-      if (tried.some((t) => t.root.family.accuracy.value.text === budgetText(budget))) continue;
-      const asked = Number(budgetText(budget));
-      const seeds = tried.map((t) => t.root).filter((r) => r.absoluteBound <= asked);
+      const text = budgetText(budget);
+      if (tried.some((t) => t.root.family.accuracy.value.text === text)) continue;
+      const seeds = tried.map((t) => t.root).filter((r) => r.absoluteBound <= Number(text));
       try {
-        const t = tryBudget(budget, rank, seeds);
-        if (!seeds.includes(t.root)) tried.push(t);
+        const root = planRootTo(family, planRoot, budget, seeds);
+        if (!seeds.includes(root)) tried.push(evaluated(root, rank));
       } catch (e) {
         // A budget the root cannot reach: the looser ones tried already decide.
         if (!(e instanceof RootcastError)) throw e;

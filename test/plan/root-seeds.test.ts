@@ -57,8 +57,8 @@ describe(`${SPEC}: root plans seeded with the tighter budgets' plans`, () => {
   test('a looser budget gets every plan made so far whose certified bound meets it, and keeps the tighter plan here unchanged', () => {
     const [first, tight, loose] = seeded.asked;
     expect(first!.seeds).toHaveLength(0);
-    for (const a of seeded.asked) {
-      const made = seeded.asked.filter((b) => b !== a && seeded.asked.indexOf(b) < seeded.asked.indexOf(a)).map((b) => b.plan);
+    for (const [i, a] of seeded.asked.entries()) {
+      const made = seeded.asked.slice(0, i).map((b) => b.plan);
       expect(a.seeds).toEqual(made.filter((p) => p.absoluteBound <= a.budget));
       for (const s of a.seeds) expect(s.absoluteBound).toBeLessThanOrEqual(a.budget);
     }
