@@ -84,6 +84,24 @@ export function foldedSkip(family: Family, layout: SegmentLayout): string | null
 const MOST_DEGREE = 12;
 
 /**
+ * The least degree of every folded plan on the layout that de la Vallee
+ * Poussin's theorem proves (as foldedFloor, up to MOST_DEGREE), 0 when
+ * none is proven or the floor does not apply (relative accuracy, no point
+ * enclosure). The folded form stops weighing further series orders once a
+ * plan reaches it (forms/folded.ts).
+ */
+export function leastFoldedDegree(family: Family, layout: SegmentLayout): number {
+  if (!family.result || !family.bracket || family.inputs.length !== 1 || family.accuracy.kind !== 'absolute') return 0;
+  const target = Number(family.accuracy.value);
+  const y = pointValues(family);
+  if (!y) return 0;
+  const boxes = layout.boxes.map((b) => b[0]!);
+  let d = 0;
+  while (d < MOST_DEGREE && poussinOver(y, boxes, d) > target) d++;
+  return d;
+}
+
+/**
  * The folded floor of a layout, or null when nothing above the plain
  * cost floor is proven (relative accuracy, degree 0, a point where the
  * root or result cannot be enclosed). Stops raising the degree once the

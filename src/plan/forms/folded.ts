@@ -23,6 +23,7 @@ import { evaluate } from '../evaluate.js';
 import { planOf } from '../plan-of.js';
 import { coefficientsOver, resultFloor, slopeFrom } from '../result-bound.js';
 import { foldResult } from '../result-fold.js';
+import { leastFoldedDegree } from '../folded-floor.js';
 import { collapsedSeries } from '../series-program.js';
 import { FOLD } from '../tuning.js';
 import type { Plan } from '../types.js';
@@ -48,8 +49,11 @@ export function foldedPlan(ctx: FormContext): Plan | null {
   const roomOf = (folds: readonly FoldCell[]): number => Math.min(...folds.map((f) => target * f.cell.rootMin - f.carried));
   let best: Plan | null = null;
   let firstFit: number | null = null;
+  // The least degree any folded plan on the layout has (folded-floor.ts), found when the first plan is.
+  let least: number | null = null;
+  let atLeast = false;
   const last = Math.min(family.plan.maxOrder, FOLD.maxOrder);
-  for (let n = 0; n <= last && (firstFit === null || n <= firstFit + FOLD.extraOrders); n++) {
+  for (let n = 0; n <= last && !atLeast && (firstFit === null || n <= firstFit + FOLD.extraOrders); n++) {
     const terms = pool.termsUpTo(n);
     if (!terms) break;
     const first = foldCells(ctx, slopes, n, null);
@@ -86,6 +90,8 @@ export function foldedPlan(ctx: FormContext): Plan | null {
         folded: true,
       };
       if (!best || plan.cost < best.cost) best = { ...plan, result };
+      // More orders leave more room to economisation, so a lower degree; none can go below the least.
+      atLeast = e.degree <= (least ??= leastFoldedDegree(family, layout));
       break;
     }
   }
