@@ -38,6 +38,7 @@ import { addUp, nextDown, nextUp, subDown } from '../math/directed.js';
 import type { Interval } from '../math/interval.js';
 import { chebyshevExtrema, poussinFloor } from '../math/poussin.js';
 import { compileExprExact, type ExactFunction } from '../family/expr-eval.js';
+import { exprNumber } from '../family/expr-number.js';
 import type { Expr, Family } from '../family/types.js';
 import { ConstantOverflowError, ProgramBuilder } from '../ir/builder.js';
 import { COST_MODELS, costModelFor, programCost } from '../ir/cost/index.js';
@@ -91,9 +92,21 @@ const MOST_DEGREE = 12;
  * plan reaches it (forms/folded.ts).
  */
 export function leastFoldedDegree(family: Family, layout: SegmentLayout): number {
-  if (!family.result || !family.bracket || family.inputs.length !== 1 || family.accuracy.kind !== 'absolute') return 0;
+  if (!family.result) return 0;
+  return leastDegree(family, layout, 'result');
+}
+
+/**
+ * The same for a polynomial in the one input within the target of y* =
+ * the result of the root (`result`) or the root itself (`root`: the
+ * economised form, forms/economised.ts, whose kept polynomial lies within
+ * the truncation plus the dropped terms, at most the target, of x* on every
+ * cell of its segment).
+ */
+export function leastDegree(family: Family, layout: SegmentLayout, of: 'result' | 'root'): number {
+  if (!family.bracket || family.inputs.length !== 1 || family.accuracy.kind !== 'absolute') return 0;
   const target = Number(family.accuracy.value);
-  const y = pointValues(family);
+  const y = pointValues(family, of);
   if (!y) return 0;
   const boxes = layout.boxes.map((b) => b[0]!);
   let d = 0;
@@ -218,8 +231,9 @@ interface PointValues {
   readonly enclose: (x: Rational) => Interval | null;
 }
 
-export function pointValues(family: Family): PointValues | null {
-  const spec = family.result!;
+export function pointValues(family: Family, of: 'result' | 'root' = 'result'): PointValues | null {
+  // The root alone is the result s: powers 0 and 1.
+  const spec = of === 'result' ? family.result! : { powers: [null, exprNumber(1, { line: 1, column: 1 })] };
   const constants = family.constants;
   let coeffs: (ExactFunction | null)[];
   let powers: (ExactFunction | null)[];
