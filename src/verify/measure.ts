@@ -7,7 +7,9 @@
  * The rules (the TypeScript and GLSL harnesses run this very code, the C
  * harness a port of it):
  *   bracket     spec bracket if any, else [x - 2B - tiny, x + 2B + tiny],
- *               tiny = 2^-60 * max(1, |x|) (a non-empty bracket even when B = 0);
+ *               tiny = 2^-60 * max(|x|, B, 2^-1000) (a non-empty bracket even
+ *               when B = 0, on the scale of the root and its bound: a fixed
+ *               2^-60 would take in a second root near a tiny one);
  *   resolution  2^(e - REFERENCE_BITS), 2^e <= max(|x|, B, 2^-1000) < 2^(e+1):
  *               the reference is 100 bits finer than the value it judges, so
  *               the measured error is exact to far more than the two digits
@@ -106,7 +108,7 @@ export function referenceResolution(x: number, absoluteBound: number): Rational 
 export function referenceBracket(bracket: FractionInterval | null, x: number, absoluteBound: number): FractionInterval {
   if (bracket) return bracket;
   const xe = fractionOfNumber(x);
-  const tiny = scaleFraction(fractionOfNumber(Math.max(1, Math.abs(x))), -60);
+  const tiny = scaleFraction(fractionOfNumber(Math.max(Math.abs(x), absoluteBound, 2 ** -1000)), -60);
   const half = addFractions(scaleFraction(fractionOfNumber(absoluteBound), 1), tiny);
   return { lo: subFractions(xe, half), hi: addFractions(xe, half) };
 }

@@ -4,6 +4,7 @@ import { Rational } from '../../src/math/rational.js';
 import { toRational } from '../../src/verify/fraction.js';
 import { measure, referenceBracket, referenceGridExponent, referenceResolution } from '../../src/verify/measure.js';
 import { pairCase, quadCase } from './fixtures/families.js';
+import { exactDecimal } from '../support/exact-decimal.js';
 
 const pow2 = (k: number): Rational => (k >= 0 ? Rational.of(1n << BigInt(k)) : Rational.of(1n, 1n << BigInt(-k)));
 
@@ -60,10 +61,31 @@ describe('measuring one result against the exact reference', () => {
     expect(referenceGridExponent(2 ** 120, 0)).toBe(0);
   });
 
-  test('the default bracket is x -+ (2B + 2^-60 max(1, |x|)), exactly', () => {
+  test('the default bracket is x -+ (2B + 2^-60 max(|x|, B, 2^-1000)), exactly', () => {
     const b = referenceBracket(null, 3, 0.25);
     const half = Rational.fromNumber(0.5).add(Rational.fromNumber(3).mul(pow2(-60)));
     expect(toRational(b.lo).eq(Rational.int(3).sub(half))).toBe(true);
     expect(toRational(b.hi).eq(Rational.int(3).add(half))).toBe(true);
+    // B above |x|: tiny follows B; both zero: 2^-1060.
+    const wide = referenceBracket(null, 2 ** -40, 2 ** -30);
+    expect(toRational(wide.hi).eq(pow2(-40).add(pow2(-29)).add(pow2(-90)))).toBe(true);
+    const zero = referenceBracket(null, 0, 0);
+    expect(toRational(zero.lo).eq(pow2(-1060).neg()) && toRational(zero.hi).eq(pow2(-1060))).toBe(true);
+  });
+
+  test('a tiny root beside another tiny root: the bracket takes in only the one within 2B', () => {
+    // x^2 + p x - q with p = 2^-100, q = 2^-200: roots 2^-100 (-1 +- sqrt 5) / 2 (the quadratic
+    // formula, here in decimal.js at 60 digits), about 4.9e-31 and -1.3e-30. A bracket widened by a
+    // fixed 2^-60 held both (no sign change); one on the scale of the root and bound holds the first.
+    const D = Decimal.clone({ precision: 60 });
+    const root = new D(5).sqrt().minus(1).div(2).times(new D(2).pow(-100));
+    const x = root.toNumber();
+    const m = measure(pair, 1e-40, x, [2 ** -100, 2 ** -200]);
+    expect(m.kind).toBe('measured');
+    if (m.kind === 'measured') {
+      // The measured error is |x - root| to the reference's resolution (2^-100 of x's binade); x's exact value.
+      const error = exactDecimal(D, x).minus(root).abs().toNumber();
+      expect(Math.abs(m.absolute - error)).toBeLessThanOrEqual(x * 2 ** -95);
+    }
   });
 });
