@@ -85,30 +85,32 @@ export function foldedSkip(family: Family, layout: SegmentLayout): string | null
 const MOST_DEGREE = 12;
 
 /**
- * The least degree of every folded plan on the layout that de la Vallee
- * Poussin's theorem proves (as foldedFloor, up to MOST_DEGREE), 0 when
- * none is proven or the floor does not apply (relative accuracy, no point
- * enclosure). The folded form stops weighing further series orders once a
- * plan reaches it (forms/folded.ts).
+ * What de la Vallee Poussin's bound is taken over: the target, y* at points
+ * (the result of the root, or the root itself) and each segment's analysed
+ * box along the input. Null where no floor applies: no result to fold, no
+ * bracket, more than one input, relative accuracy, or no point enclosure.
  */
-export function leastFoldedDegree(family: Family, layout: SegmentLayout): number {
-  if (!family.result) return 0;
-  return leastDegree(family, layout, 'result');
+function poussinGround(family: Family, layout: SegmentLayout, of: 'result' | 'root'): { target: number; y: PointValues; boxes: Interval[] } | null {
+  if ((of === 'result' && !family.result) || !family.bracket || family.inputs.length !== 1 || family.accuracy.kind !== 'absolute') return null;
+  const y = pointValues(family, of);
+  if (!y) return null;
+  return { target: Number(family.accuracy.value), y, boxes: layout.boxes.map((b) => b[0]!) };
 }
 
 /**
- * The same for a polynomial in the one input within the target of y* =
- * the result of the root (`result`) or the root itself (`root`: the
- * economised form, forms/economised.ts, whose kept polynomial lies within
- * the truncation plus the dropped terms, at most the target, of x* on every
- * cell of its segment).
+ * The least degree de la Vallee Poussin's theorem proves (as foldedFloor,
+ * up to MOST_DEGREE) for every polynomial in the one input within the
+ * target of y* on each segment: y* the result of the root (`result`: the
+ * folded form, forms/folded.ts) or the root itself (`root`: the economised
+ * form, forms/economised.ts, whose kept polynomial lies within the
+ * truncation plus the dropped terms, at most the target, of x* on every
+ * cell of its segment); 0 when none is proven or the floor does not apply.
+ * Both forms stop weighing further series orders once a plan reaches it.
  */
 export function leastDegree(family: Family, layout: SegmentLayout, of: 'result' | 'root'): number {
-  if (!family.bracket || family.inputs.length !== 1 || family.accuracy.kind !== 'absolute') return 0;
-  const target = Number(family.accuracy.value);
-  const y = pointValues(family, of);
-  if (!y) return 0;
-  const boxes = layout.boxes.map((b) => b[0]!);
+  const ground = poussinGround(family, layout, of);
+  if (!ground) return 0;
+  const { target, y, boxes } = ground;
   let d = 0;
   while (d < MOST_DEGREE && poussinOver(y, boxes, d) > target) d++;
   return d;
@@ -121,11 +123,9 @@ export function leastDegree(family: Family, layout: SegmentLayout, of: 'result' 
  * cost exceeds `enough` (the caller's bound): a higher degree only costs more.
  */
 export function foldedFloor(family: Family, layout: SegmentLayout, enough = Infinity): FoldedFloor | null {
-  if (!family.result || !family.bracket || family.inputs.length !== 1 || family.accuracy.kind !== 'absolute') return null;
-  const target = Number(family.accuracy.value);
-  const y = pointValues(family);
-  if (!y) return null;
-  const boxes = layout.boxes.map((b) => b[0]!);
+  const ground = poussinGround(family, layout, 'result');
+  if (!ground) return null;
+  const { target, y, boxes } = ground;
   let floor: FoldedFloor | null = null;
   let tableC0: boolean | null = null;
   for (let d = 0; d < MOST_DEGREE; d++) {

@@ -23,7 +23,7 @@ import { evaluate } from '../evaluate.js';
 import { planOf } from '../plan-of.js';
 import { coefficientsOver, resultFloor, slopeFrom } from '../result-bound.js';
 import { foldResult } from '../result-fold.js';
-import { leastFoldedDegree } from '../folded-floor.js';
+import { leastDegree } from '../folded-floor.js';
 import { collapsedSeries } from '../series-program.js';
 import { FOLD } from '../tuning.js';
 import type { Plan } from '../types.js';
@@ -49,7 +49,7 @@ export function foldedPlan(ctx: FormContext): Plan | null {
   const roomOf = (folds: readonly FoldCell[]): number => Math.min(...folds.map((f) => target * f.cell.rootMin - f.carried));
   let best: Plan | null = null;
   let firstFit: number | null = null;
-  // The least degree any folded plan on the layout has (folded-floor.ts), found when the first plan is.
+  // The least degree any folded plan on the layout has (folded-floor.ts leastDegree), found when the first plan is.
   let least: number | null = null;
   let atLeast = false;
   const last = Math.min(family.plan.maxOrder, FOLD.maxOrder);
@@ -91,7 +91,7 @@ export function foldedPlan(ctx: FormContext): Plan | null {
       };
       if (!best || plan.cost < best.cost) best = { ...plan, result };
       // More orders leave more room to economisation, so a lower degree; none can go below the least.
-      atLeast = e.degree <= (least ??= leastFoldedDegree(family, layout));
+      atLeast = e.degree <= (least ??= leastDegree(family, layout, 'result'));
       break;
     }
   }

@@ -1,7 +1,7 @@
 /**
  * forms/folded.ts and forms/economised.ts stop weighing series orders once a
  * plan has the least degree de la Vallee Poussin's theorem proves for the
- * layout (folded-floor.ts leastDegree, leastFoldedDegree): a speed rule.
+ * layout (folded-floor.ts leastDegree): a speed rule.
  * Checked on the examples with one input, each a family with an outside
  * definition: ease-in-out-y and ease-in-out (CSS ease-in-out, W3C CSS Easing
  * Functions Level 1), thermocouple-t (the ITS-90 type T reference function,
@@ -76,7 +76,7 @@ describe('the folded and economised forms stop at the least degree', () => {
     let all: Row[] | null = null;
     await jest.isolateModulesAsync(async () => {
       const actual = await import('../../../src/plan/folded-floor.js');
-      jest.unstable_mockModule('../../../src/plan/folded-floor.js', () => ({ ...actual, leastDegree: () => -1, leastFoldedDegree: () => -1 }));
+      jest.unstable_mockModule('../../../src/plan/folded-floor.js', () => ({ ...actual, leastDegree: () => -1 }));
       all = await rows();
     });
     // The registry of its own did use the replacement: it proves nothing.
