@@ -27,7 +27,7 @@ import { poleOver } from './coefficient-poles.js';
 import { decimalInterval, encloseExpr } from './expr-enclose.js';
 import { locate } from './locate.js';
 import { CoefficientRanges, intersect } from './tight-range.js';
-import { boxCentre } from './root-choice.js';
+import { boxCentre, noSignChange } from './root-choice.js';
 import { BRACKET_CHECK, initialCellsPerSegment } from './tuning.js';
 import { spend } from './work.js';
 
@@ -198,8 +198,14 @@ function splitInto(next: Round, r: Round, k: number, d: number, dim: number, wro
 export function certifyBracket(family: Family, box: Cell): void {
   if (!family.bracket) return;
   const signs = centreSigns(family);
-  // No sign change at the centre (or a pole there): the root choice refuses that in its own words.
-  if (!signs || signs[0] * signs[1] >= 0) return;
+  // A pole at the centre: the planner's cell checks refuse it at its division.
+  if (!signs) return;
+  // One sign at both ends at the box centre: no root in the bracket there, or two or more. Refused
+  // before any trial, in the root choice's words: the plain series (plain-series.ts) would otherwise
+  // plan, following one root inside the bracket beside another, which verify's reference cannot bisect.
+  if (signs[0] * signs[1] > 0) throw noSignChange(family, boxCentre(family));
+  // A root exactly at an end at the centre: the root choice takes that end (root-choice.ts rootAt).
+  if (signs[0] * signs[1] === 0) return;
   const ends = family.bracket.map((end, j): BracketEnd => {
     const tight = new CoefficientRanges(family, [end.value]);
     const zero = end.value.isZero();

@@ -43,12 +43,7 @@ export function rootAt(family: Family, point: readonly Rational[]): Rational {
   const sLo = signAt(c, lo);
   const sHi = signAt(c, hi);
   const root = sLo * sHi > 0 ? null : bisectNear(c, lo, hi, sLo, sHi, family.arithmetic === 'float32');
-  if (root === null) {
-    throw new RootcastError(
-      `the polynomial has no sign change on the bracket at ${pointText(family, point)}; widen or move the bracket so it holds exactly one simple root for every input`,
-      locate(family, 'root.bracket'),
-    );
-  }
+  if (root === null) throw noSignChange(family, point);
   const x0 = roundTo(root, family.arithmetic);
   if (!Number.isFinite(x0)) {
     throw new RootcastError(
@@ -57,6 +52,18 @@ export function rootAt(family: Family, point: readonly Rational[]): Rational {
     );
   }
   return Rational.fromNumber(x0);
+}
+
+/**
+ * The refusal of a bracket whose ends give P one sign at an input point: the
+ * bracket holds no root there, or two or more, so it does not say which root
+ * is wanted (the verifier's reference bisects in it, and would have none).
+ */
+export function noSignChange(family: Family, point: readonly Rational[]): RootcastError {
+  return new RootcastError(
+    `the polynomial has no sign change on the bracket at ${pointText(family, point)}; widen or move the bracket so it holds exactly one simple root for every input`,
+    locate(family, 'root.bracket'),
+  );
 }
 
 /** Coefficient k exactly at a point; a division by zero there is refused at that division. */

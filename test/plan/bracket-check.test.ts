@@ -9,7 +9,8 @@
  * examples/kiln-probe.yaml), so R = 100 ohm is T = 0 degC exactly and
  * P(10) = 1 - R/100 + 10 A + 100 B vanishes at R = 100 (1 + 10 A + 100 B)
  * = 103.9025 ohm (worked by hand). The second family is the factored
- * (x - y)(x - 1.2), whose roots y and 1.2 are known in closed form.
+ * (x - y)(x - 1.2), whose roots y and 1.2 are known in closed form. The
+ * bracket holding two roots is checked against the quadratic formula.
  */
 import { afterAll, beforeAll, describe, expect, test } from '@jest/globals';
 import { readFileSync, writeFileSync } from 'node:fs';
@@ -23,12 +24,25 @@ import { REPO, ensureBuilt, expectSpecRefusal, removeTempDirs, runMany, tempDir,
 const KILN = 'bench/corpus/cases/kiln-bad-bracket.yaml';
 let bad: CliRun;
 let moved: CliRun;
+let twoRoots: CliRun;
+let oneRoot: CliRun;
+
+/** -2 s^2 + s - x = 0, x in [0.01, 0.02]: the plain series about s = 0 follows the small root. */
+const TWO_ROOTS = (bracket: string): string =>
+  ['function: two_roots', 'unknown: s', 'degree: 2', 'coefficients:', '  0: -x', '  1: 1', '  2: -2', 'inputs:', '  x: [0.01, 0.02]', 'root:', `  bracket: ${bracket}`, 'accuracy:', '  absolute: 1e-6', 'arithmetic: float64', ''].join('\n');
+/** Both roots of -2 s^2 + s - x by the quadratic formula: (1 -+ sqrt(1 - 8 x)) / 4. */
+const quadraticRoots = (x: number): [number, number] => [(1 - Math.sqrt(1 - 8 * x)) / 4, (1 + Math.sqrt(1 - 8 * x)) / 4];
 beforeAll(async () => {
   ensureBuilt();
   // The refusal's advice, applied: the low end moved below the root 0 at R = 100.
   const dir = tempDir('bracket');
   writeFileSync(join(dir, 'kiln-moved.yaml'), readFileSync(join(REPO, KILN), 'utf8').replace('bracket: [10, 900]', 'bracket: [-5, 900]'));
-  [bad, moved] = await runMany([{ args: ['plan', KILN] }, { args: ['plan', join(dir, 'kiln-moved.yaml')] }], 2);
+  writeFileSync(join(dir, 'two-roots.yaml'), TWO_ROOTS('[-0.1, 0.6]'));
+  writeFileSync(join(dir, 'one-root.yaml'), TWO_ROOTS('[-0.1, 0.25]'));
+  [bad, moved, twoRoots, oneRoot] = await runMany(
+    [{ args: ['plan', KILN] }, { args: ['plan', join(dir, 'kiln-moved.yaml')] }, { args: ['plan', join(dir, 'two-roots.yaml')] }, { args: ['plan', join(dir, 'one-root.yaml')] }],
+    2,
+  );
 }, 300_000);
 afterAll(removeTempDirs);
 
@@ -51,6 +65,33 @@ describe('the bracket sign change is certified over the whole box', () => {
   test('applying the advice (low end below 0) plans', () => {
     expect(moved.code).toBe(0);
     expect(moved.stdout).toContain('the root in [-5, 900]');
+  });
+});
+
+describe('a bracket that holds two roots is refused, the plain series included', () => {
+  test('both roots lie in [-0.1, 0.6] over the whole box (quadratic formula), so P has one sign at both ends', () => {
+    for (const x of [0.01, 0.015, 0.02]) {
+      const [small, large] = quadraticRoots(x);
+      expect(small).toBeGreaterThan(-0.1);
+      expect(large).toBeLessThan(0.6);
+      expect(small).toBeLessThan(0.25);
+      expect(large).toBeGreaterThan(0.25);
+    }
+  });
+
+  test('refused at root.bracket with the box centre, though the plain series follows the small root inside it', () => {
+    // Before, the plain series planned here ("certified inside the bracket"), and verify then
+    // refused the spec: its reference bisects in the bracket, which has no sign change.
+    const line = expectSpecRefusal(twoRoots);
+    expect(twoRoots.code).toBe(2);
+    expect(line.field).toBe('root.bracket');
+    expect(line.line).toBe(11);
+    expect(line.message).toBe('the polynomial has no sign change on the bracket at x = 0.015; widen or move the bracket so it holds exactly one simple root for every input');
+  });
+
+  test('a bracket around the small root alone plans', () => {
+    expect(oneRoot.code).toBe(0);
+    expect(oneRoot.stdout).toContain('the root in [-0.1, 0.25]');
   });
 });
 
