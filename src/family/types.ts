@@ -134,6 +134,12 @@ export interface Family {
    * must come under to be chosen (src/plan/folded-floor.ts, refine.ts).
    */
   readonly foldBeat?: number;
+  /**
+   * Set by the planner's derived bracket only (never by the reader): the
+   * bracket was proved to hold one root (src/plan/derived-bracket.ts), so
+   * src/plan/one-root.ts does not prove it again.
+   */
+  readonly oneRootProved?: true;
   /** Field path -> position of its value in the file, for messages after parsing. */
   readonly positions: Readonly<Record<string, Pos>>;
 }

@@ -60,6 +60,11 @@ export class IntervalTensor {
     return new IntervalTensor(degrees, strides, lo, hi);
   }
 
+  /** A polynomial in one variable from enclosures of its coefficients (index = power): lo[k] <= c_k <= hi[k]. */
+  static univariate(lo: Float64Array, hi: Float64Array): IntervalTensor {
+    return new IntervalTensor([lo.length - 1], [1], lo, hi);
+  }
+
   get size(): number {
     return this.lo.length;
   }

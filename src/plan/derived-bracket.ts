@@ -55,6 +55,7 @@ export function withDerivedBracket(family: Family, root: Plan): Family {
   return {
     ...family,
     bracket: [a, b],
+    oneRootProved: true,
     // Refusals about the bracket point at result:, the field that asked for it.
     positions: { ...family.positions, 'root.bracket': family.positions['result'] ?? family.positions['root'] ?? { line: 1, column: 1 } },
   };

@@ -12,6 +12,7 @@ import { warmAnalysis } from '../ir/analyse-warm.js';
 import type { Family } from '../family/types.js';
 import { boxOf, type Cell } from './box.js';
 import { certifyBracket } from './bracket-check.js';
+import { certifyOneRoot } from './one-root.js';
 import { candidatesOf, refusedCandidate, withCandidates } from './candidates.js';
 import { locate } from './locate.js';
 import { applyOutsideBox } from './outside-box.js';
@@ -111,6 +112,7 @@ function confirmedFix(family: Family, refusal: QuotedFixRefusal, options: PlanOp
 function planWithinLimit(family: Family): Plan {
   const box = boxOf(family);
   certifyBracket(family, box.cell);
+  certifyOneRoot(family, box.cell);
   const knob = family.plan.segments;
   const perInput = typeof knob === 'object' ? knob : family.inputs.map(() => knob);
   // The plain series is one box: weighed unless the spec fixes a segment count above 1.

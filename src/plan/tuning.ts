@@ -268,6 +268,28 @@ export const BRACKET_CHECK = {
   exclusionWork: 200000,
 } as const;
 
+/** Proving that root.bracket holds one root only (src/plan/one-root.ts). */
+export const ONE_ROOT = {
+  /** Input cells the proof may visit in all: a sound bracket of the examples and the corpus needs 1 to 191 (gas-wide 29), so this bounds only a bracket that holds several roots or a slope that vanishes with P. */
+  maxCells: 4096,
+  /** An input cell narrower than this fraction of the box in every input is not split again: what fails there is reported. */
+  minFraction: 1 / 1024,
+  /** Pieces of the bracket one input cell may enclose P and P' on (each piece is halved until one of them excludes zero). */
+  maxPieces: 512,
+  /** A piece narrower than this fraction of the bracket is not halved again: the cell fails (a slope vanishing where P does, as at a double root). */
+  minPieceFraction: 1 / 65536,
+  /** Cells that fail whose centre is searched for several roots with exact arithmetic (a witness makes the refusal say how many and where): the first ones, of any size, so a bracket with several roots is refused early. */
+  witnessCells: 8,
+  /** Equal parts of the bracket whose ends' exact signs of P are compared at such a centre. */
+  witnessParts: 64,
+  /** Halvings of each part where the sign changes, so that the refusal can name the root to three digits (2^-12 of a part). */
+  witnessHalvings: 12,
+  /** Work units (work.ts) per input cell (its coefficients' enclosures), per piece (two Bernstein enclosures of degree n, about n^2 interval steps each) and per exact sign at a witness point. */
+  cellUnits: 20,
+  pieceUnits: 40,
+  signUnits: 100,
+} as const;
+
 /** The deterministic work limit of one plan (src/plan/work.ts). */
 export const WORK = {
   /**

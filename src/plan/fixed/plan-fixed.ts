@@ -21,8 +21,10 @@ import { countFixed, type FixedCounts, type FixedProgram } from '../../ir/fixed/
 import { termsOfGrade, type SeriesTerm } from '../../series/hyper-catalan.js';
 import type { Family } from '../../family/types.js';
 import { boxOf, grid } from '../box.js';
+import { certifyBracket, certifyRootInBracket } from '../bracket-check.js';
 import { addGrade, cellTail } from '../cell-bound.js';
 import { CellSet } from '../cell-set.js';
+import { certifyOneRoot } from '../one-root.js';
 import { LIMITS } from '../tuning.js';
 import { FIXED_PLAN } from './tuning.js';
 import { locate } from '../locate.js';
@@ -105,6 +107,10 @@ export function makeFixedPlan(family: Family): FixedPlan {
   const raw = rawBox(input.lo.value, input.hi.value, bits);
   // The planning family: the raw box's exact real ends, float64 for the float stages.
   const fam: Family = { ...family, inputs: [{ name: input.name, lo: rawNumber(raw.lo, bits), hi: rawNumber(raw.hi, bits) }] };
+  // root.bracket certified over the raw box, as makePlan certifies it (bracket-check.ts, one-root.ts).
+  const box = boxOf(fam).cell;
+  certifyBracket(fam, box);
+  certifyOneRoot(fam, box);
   refuseBelowResultGrid(family, fam, raw, bits);
   const counts: readonly number[] = knob !== 'auto' ? [knob] : family.bracket ? FIXED_PLAN.autoSegments : [1];
   let best: FixedPlan | null = null;
@@ -182,6 +188,7 @@ function planWith(family: Family, fam: Family, raw: { lo: bigint; hi: bigint }, 
   const set = new CellSet(ap, fam.degree, box, x0.map((v) => v.toNumber()), initial);
   set.repairBadCells(LIMITS.cells, false, true);
   refuseBadCells(fam, set.cells, false);
+  certifyRootInBracket(fam, x0.map((v) => v.toNumber()), set.cells);
 
   const active = [...ap.q.keys()];
   const byGrade: SeriesTerm[][] = [];

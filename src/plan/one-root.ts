@@ -1,0 +1,200 @@
+/**
+ * One root in root.bracket (DESIGN.md 1.4). bracket-check.ts proves that P
+ * changes sign between the ends for every input, so the bracket holds an odd
+ * number of roots; the emitted function, its header and the harnesses'
+ * bisection all mean one root. This proves it: for every input in the box,
+ * P has at most one root in [a, b].
+ *
+ * Over an input cell X, the bracket is cut into pieces, each halved until
+ * one of these holds over X and the piece S:
+ * - P excludes zero over X x S: no root there;
+ * - P' excludes zero over X x S: P is strictly monotone on S for every input
+ *   of X, so S holds a root only if P(ends of S) can differ in sign; where
+ *   they cannot, S holds none, and otherwise S holds at most one and P' has
+ *   one sign on it.
+ * When every piece that may hold a root has P' of one sign, the bracket holds
+ * at most one root for every input of X: just past a root P takes the sign
+ * it keeps through the root-free pieces and the pieces it rises (or falls)
+ * through, so it cannot cross zero again. Otherwise X is halved (the input
+ * widest relative to the box) and each half proved afresh.
+ *
+ * Enclosures: the coefficients over X by interval arithmetic
+ * (src/plan/expr-enclose.ts), P and P' over S by the Bernstein expansion in
+ * the unknown with those interval coefficients (src/math/bernstein.ts; the
+ * Bernstein coefficients of a polynomial with coefficients in intervals
+ * enclose every such polynomial's range, the transform being linear), and
+ * P at the ends of S by Horner's rule, all rounded outward.
+ *
+ * Where the proof fails on a cell at the size limit, the cell's centre is
+ * searched for several roots with exact arithmetic (signs of P at equally
+ * spaced points): a witness gives the refusal its roots; without one the
+ * refusal says the bracket may hold more than one. Both are one line at
+ * root.bracket. The proof counts its work (src/plan/work.ts) and visits at
+ * most ONE_ROOT.maxCells cells.
+ */
+import { RootcastError } from '../errors.js';
+import { iadd, imul, point, type Interval } from '../math/interval.js';
+import { bernsteinRange, IntervalTensor } from '../math/bernstein.js';
+import { nextUp } from '../math/rational.js';
+import { Rational } from '../math/rational.js';
+import { evalExprExact } from '../family/expr-eval.js';
+import type { Family } from '../family/types.js';
+import { signAt } from '../series/recenter.js';
+import { describeCell, short, split, widestDim, type Cell } from './box.js';
+import { poleOver } from './coefficient-poles.js';
+import { encloseExpr } from './expr-enclose.js';
+import { locate } from './locate.js';
+import { ONE_ROOT } from './tuning.js';
+import { spend } from './work.js';
+
+/** What one input cell's pieces show: at most one root in the bracket, a pole in the cell, or no proof. */
+type CellVerdict = 'one' | 'pole' | 'unproved';
+
+/**
+ * Refuses a bracket that may hold more than one root for some input of the
+ * box (a family whose bracket the planner derived and proved itself,
+ * derived-bracket.ts, is not checked again). Call after certifyBracket.
+ */
+export function certifyOneRoot(family: Family, box: Cell): void {
+  if (!family.bracket || family.oneRootProved) return;
+  const a = family.bracket[0].value.toNumberDown();
+  const b = family.bracket[1].value.toNumberUp();
+  const minWidth = box.map((c) => (c.hi - c.lo) * ONE_ROOT.minFraction);
+  const minPiece = (b - a) * ONE_ROOT.minPieceFraction;
+  const queue: Cell[] = [box];
+  let failed: Cell | null = null;
+  let witnesses = 0;
+  for (let head = 0; head < queue.length; head++) {
+    const cell = queue[head]!;
+    spend(ONE_ROOT.cellUnits);
+    if (cellVerdict(family, cell, a, b, minPiece) !== 'unproved') continue;
+    // The first cells that fail, whatever their size, are searched for a witness: a bracket with several roots is refused at once.
+    if (witnesses++ < ONE_ROOT.witnessCells) refuseWitnessed(family, cell);
+    const small = cell.every((c, i) => c.hi - c.lo <= minWidth[i]!);
+    if (small || queue.length + 2 > ONE_ROOT.maxCells) {
+      failed = failed ? hullOf(failed, cell) : cell.map((c) => ({ ...c }));
+      continue;
+    }
+    queue.push(...split(cell, widestDim(cell, box)));
+  }
+  if (!failed) return;
+  const [lo, hi] = family.bracket;
+  throw new RootcastError(
+    `root.bracket may hold more than one root for ${describeCell(family, failed)}: the slope P' can vanish between ${lo.text} and ${hi.text} where P can too, so the planner cannot prove that the bracket fixes one root; narrow root.bracket around the wanted root`,
+    locate(family, 'root.bracket'),
+  );
+}
+
+/** The pieces of [a, b] over one input cell (see the file comment). */
+function cellVerdict(family: Family, cell: Cell, a: number, b: number, minPiece: number): CellVerdict {
+  const c = family.coefficients.map((e) => (e === null ? point(0) : encloseExpr(e, cell, family.constants)));
+  if (c.some((v) => !(v.lo > -Infinity && v.hi < Infinity))) {
+    // A coefficient's pole in the cell is refused at its division by the planner's cell checks.
+    return family.coefficients.some((e) => e !== null && poleOver(e, cell, family.constants) !== null) ? 'pole' : 'unproved';
+  }
+  const p = tensorOf(c);
+  // The degree is at least 1, so P' has a coefficient.
+  const dp = tensorOf(c.slice(1).map((v, k) => imul(point(k + 1), v)));
+  const stack: [number, number][] = [[a, b]];
+  let sign = 0;
+  for (let pieces = 0; stack.length > 0; pieces++) {
+    if (pieces >= ONE_ROOT.maxPieces) return 'unproved';
+    spend(ONE_ROOT.pieceUnits);
+    const [lo, hi] = stack.pop()!;
+    const w = nextUp(hi - lo);
+    if (excludesZero(bernsteinRange(p, [lo], [w]))) continue;
+    const slope = bernsteinRange(dp, [lo], [w]);
+    if (excludesZero(slope)) {
+      // Monotone on the piece: a root only where P at its ends can differ in sign.
+      const atLo = hornerAt(c, lo);
+      const atHi = hornerAt(c, hi);
+      if ((atLo.lo > 0 && atHi.lo > 0) || (atLo.hi < 0 && atHi.hi < 0)) continue;
+      const s = slope.lo > 0 ? 1 : -1;
+      if (sign !== 0 && s !== sign) return 'unproved';
+      sign = s;
+      continue;
+    }
+    if (hi - lo <= minPiece) return 'unproved';
+    const mid = lo + (hi - lo) / 2;
+    stack.push([mid, hi], [lo, mid]);
+  }
+  return 'one';
+}
+
+/** The univariate Bernstein input of coefficient enclosures (index = power). */
+function tensorOf(c: readonly Interval[]): IntervalTensor {
+  return IntervalTensor.univariate(Float64Array.from(c, (v) => v.lo), Float64Array.from(c, (v) => v.hi));
+}
+
+function hornerAt(c: readonly Interval[], x: number): Interval {
+  const at = point(x);
+  let acc = c[c.length - 1]!;
+  for (let k = c.length - 2; k >= 0; k--) acc = iadd(imul(acc, at), c[k]!);
+  return acc;
+}
+
+function excludesZero(v: Interval): boolean {
+  return v.lo > 0 || v.hi < 0;
+}
+
+function hullOf(a: Cell, b: Cell): Cell {
+  return a.map((c, i) => ({ lo: Math.min(c.lo, b[i]!.lo), hi: Math.max(c.hi, b[i]!.hi) }));
+}
+
+/**
+ * At the centre of a cell the proof failed on, the exact signs of P at
+ * ONE_ROOT.witnessParts + 1 equally spaced points of the bracket: two or
+ * more sign changes (or zeros) prove as many roots, and the refusal names
+ * them. Otherwise it returns, and the cell is reported as unproved.
+ */
+function refuseWitnessed(family: Family, cell: Cell): void {
+  const centre = cell.map((c) => Rational.fromNumber(c.lo + (c.hi - c.lo) / 2));
+  let c: Rational[];
+  try {
+    c = family.coefficients.map((e) => (e === null ? Rational.ZERO : evalExprExact(e, centre, family.constants)));
+  } catch (e) {
+    if (e instanceof RangeError) return;
+    throw e;
+  }
+  const [lo, hi] = [family.bracket![0].value, family.bracket![1].value];
+  const n = ONE_ROOT.witnessParts;
+  const step = hi.sub(lo).div(Rational.fromNumber(n));
+  const sign = (at: Rational): number => {
+    spend(ONE_ROOT.signUnits);
+    return signAt(c, at);
+  };
+  const roots: number[] = [];
+  let prev: { s: number; at: Rational } | null = null;
+  for (let i = 0; i <= n; i++) {
+    const at = i === n ? hi : lo.add(step.mul(Rational.fromNumber(i)));
+    const s = sign(at);
+    if (s === 0) {
+      roots.push(at.toNumber());
+      prev = null;
+      continue;
+    }
+    if (prev && prev.s !== s) roots.push(bisected(sign, prev.at, at, prev.s));
+    prev = { s, at };
+  }
+  if (roots.length < 2) return;
+  const where = family.inputs.map((inp, i) => `${inp.name} = ${short(centre[i]!.toNumber())}`).join(', ');
+  const near = roots.map((r) => String(Number(r.toPrecision(3))));
+  const list = `${near.slice(0, -1).join(', ')} and ${near[near.length - 1]}`;
+  throw new RootcastError(
+    `the bracket holds ${roots.length} roots for ${where} (P changes sign near ${list}), so it does not fix which root the function returns; narrow root.bracket around the wanted one`,
+    locate(family, 'root.bracket'),
+  );
+}
+
+/** A root of P between lo and hi (sign(lo) = sLo, sign(hi) the other), halved ONE_ROOT.witnessHalvings times: the middle of what is left. */
+function bisected(sign: (at: Rational) => number, lo: Rational, hi: Rational, sLo: number): number {
+  const two = Rational.fromNumber(2);
+  for (let i = 0; i < ONE_ROOT.witnessHalvings; i++) {
+    const mid = lo.add(hi).div(two);
+    const s = sign(mid);
+    if (s === 0) return mid.toNumber();
+    if (s === sLo) lo = mid;
+    else hi = mid;
+  }
+  return lo.add(hi).div(two).toNumber();
+}
