@@ -33,10 +33,9 @@
  * most ONE_ROOT.maxCells cells.
  */
 import { RootcastError } from '../errors.js';
-import { iadd, imul, point, type Interval } from '../math/interval.js';
+import { iadd, imul, ineg, point, type Interval } from '../math/interval.js';
 import { bernsteinRange, IntervalTensor } from '../math/bernstein.js';
-import { nextUp } from '../math/rational.js';
-import { Rational } from '../math/rational.js';
+import { nextDown, nextUp, Rational } from '../math/rational.js';
 import { evalExprExact } from '../family/expr-eval.js';
 import type { Family } from '../family/types.js';
 import { signAt } from '../series/recenter.js';
@@ -47,8 +46,13 @@ import { locate } from './locate.js';
 import { ONE_ROOT } from './tuning.js';
 import { spend } from './work.js';
 
-/** What one input cell's pieces show: at most one root in the bracket, a pole in the cell, or no proof. */
-type CellVerdict = 'one' | 'pole' | 'unproved';
+/**
+ * What one input cell's pieces show: at most one root in the bracket, a pole
+ * in the cell, a coefficient beyond float64, or no proof (`scales`: no proof,
+ * and some term of Q fell below 2^-1000 of the largest, so float64 cannot
+ * tell the bracket's small values from zero).
+ */
+type CellVerdict = 'one' | 'pole' | 'overflow' | 'unproved' | 'scales';
 
 /**
  * Refuses a bracket that may hold more than one root for some input of the
@@ -59,62 +63,141 @@ export function certifyOneRoot(family: Family, box: Cell): void {
   if (!family.bracket || family.oneRootProved) return;
   const a = family.bracket[0].value.toNumberDown();
   const b = family.bracket[1].value.toNumberUp();
+  const scale = scaleOf(a, b);
   const minWidth = box.map((c) => (c.hi - c.lo) * ONE_ROOT.minFraction);
-  const minPiece = (b - a) * ONE_ROOT.minPieceFraction;
   const queue: Cell[] = [box];
   let failed: Cell | null = null;
+  let onlyScales = true;
   let witnesses = 0;
+  let smallWitnesses = 0;
   for (let head = 0; head < queue.length; head++) {
     const cell = queue[head]!;
     spend(ONE_ROOT.cellUnits);
-    if (cellVerdict(family, cell, a, b, minPiece) !== 'unproved') continue;
-    // The first cells that fail, whatever their size, are searched for a witness: a bracket with several roots is refused at once.
-    if (witnesses++ < ONE_ROOT.witnessCells) refuseWitnessed(family, cell);
+    const verdict = cellVerdict(family, cell, scale);
+    if (verdict === 'one' || verdict === 'pole') continue;
     const small = cell.every((c, i) => c.hi - c.lo <= minWidth[i]!);
-    if (small || queue.length + 2 > ONE_ROOT.maxCells) {
-      failed = failed ? hullOf(failed, cell) : cell.map((c) => ({ ...c }));
+    const last = small || queue.length + 2 > ONE_ROOT.maxCells;
+    // The first cells that fail, whatever their size, and the first that fail at the size limit
+    // are searched for a witness: a bracket with several roots is refused with them.
+    if ((verdict === 'unproved' || verdict === 'scales') && (witnesses++ < ONE_ROOT.witnessCells || (last && smallWitnesses++ < ONE_ROOT.witnessCells))) refuseWitnessed(family, cell);
+    if (!last) {
+      queue.push(...split(cell, widestDim(cell, box)));
       continue;
     }
-    queue.push(...split(cell, widestDim(cell, box)));
+    // A coefficient beyond float64 over the smallest cells: no series bound is finite there either,
+    // and the planner's cell checks refuse that in their own words.
+    if (verdict === 'overflow') continue;
+    failed = failed ? hullOf(failed, cell) : cell.map((c) => ({ ...c }));
+    if (verdict === 'unproved') onlyScales = false;
   }
   if (!failed) return;
   const [lo, hi] = family.bracket;
+  if (onlyScales) {
+    throw new RootcastError(
+      `the bracket [${lo.text}, ${hi.text}] is too wide to prove that it holds one root for ${describeCell(family, failed)}: P's terms over it differ by more than float64's range of scales, so its small values cannot be told from zero; narrow root.bracket around the wanted root`,
+      locate(family, 'root.bracket'),
+    );
+  }
   throw new RootcastError(
-    `root.bracket may hold more than one root for ${describeCell(family, failed)}: the slope P' can vanish between ${lo.text} and ${hi.text} where P can too, so the planner cannot prove that the bracket fixes one root; narrow root.bracket around the wanted root`,
+    `the bracket may hold more than one root for ${describeCell(family, failed)}: the slope P' can vanish between ${lo.text} and ${hi.text} where P can too, so the planner cannot prove that the bracket fixes one root; narrow root.bracket around the wanted root`,
     locate(family, 'root.bracket'),
   );
 }
 
-/** The pieces of [a, b] over one input cell (see the file comment). */
-function cellVerdict(family: Family, cell: Cell, a: number, b: number, minPiece: number): CellVerdict {
-  const c = family.coefficients.map((e) => (e === null ? point(0) : encloseExpr(e, cell, family.constants)));
-  if (c.some((v) => !(v.lo > -Infinity && v.hi < Infinity))) {
-    // A coefficient's pole in the cell is refused at its division by the planner's cell checks.
-    return family.coefficients.some((e) => e !== null && poleOver(e, cell, family.constants) !== null) ? 'pole' : 'unproved';
+/**
+ * The proof runs on Q(t) = 2^-F P(2^E t), t in [a 2^-E, b 2^-E] widened by
+ * an ulp: 2^E bounds the bracket's ends and 2^-F brings the largest
+ * coefficient near 1 on each cell, so nothing overflows even for a bracket
+ * near the float64 range (P(b) for b = 1e299 is beyond it). Q has the roots
+ * of P divided by 2^E, and Q' the signs of P', so each step of the proof is
+ * the same for Q.
+ */
+interface Scale {
+  readonly E: number;
+  readonly lo: number;
+  readonly hi: number;
+  readonly minPiece: number;
+}
+
+function scaleOf(a: number, b: number): Scale {
+  const m = Math.max(Math.abs(a), Math.abs(b));
+  let E = m > 0 ? Math.ceil(Math.log2(m)) : 0;
+  while (ldexp(1, E) < m) E++;
+  const lo = nextDown(ldexp(a, -E));
+  const hi = nextUp(ldexp(b, -E));
+  return { E, lo, hi, minPiece: (hi - lo) * ONE_ROOT.minPieceFraction };
+}
+
+/** x 2^n, in steps that stay within float64 when x 2^n does (exact but for a result below 2^-1022). */
+function ldexp(x: number, n: number): number {
+  while (n > 1000) {
+    x *= 2 ** 1000;
+    n -= 1000;
   }
-  const p = tensorOf(c);
-  // The degree is at least 1, so P' has a coefficient.
-  const dp = tensorOf(c.slice(1).map((v, k) => imul(point(k + 1), v)));
-  const stack: [number, number][] = [[a, b]];
+  while (n < -1000) {
+    x *= 2 ** -1000;
+    n += 1000;
+  }
+  return x * 2 ** n;
+}
+
+/** The coefficients of Q (see Scale) from P's over a cell, rounded outward; `lost` when a nonzero one fell below 2^-1000. */
+function scaled(c: readonly Interval[], E: number): { q: Interval[]; lost: boolean } {
+  let F = -Infinity;
+  c.forEach((v, k) => {
+    const m = Math.max(Math.abs(v.lo), Math.abs(v.hi));
+    if (m > 0) F = Math.max(F, k * E + Math.floor(Math.log2(m)) + 1);
+  });
+  if (F === -Infinity) F = 0;
+  let lost = false;
+  const q = c.map((v, k) => {
+    const lo = ldexp(v.lo, k * E - F);
+    const hi = ldexp(v.hi, k * E - F);
+    if ((v.lo !== 0 || v.hi !== 0) && Math.max(Math.abs(lo), Math.abs(hi)) < 2 ** -1000) lost = true;
+    return { lo: nextDown(lo), hi: nextUp(hi) };
+  });
+  return { q, lost };
+}
+
+/** The pieces of the bracket over one input cell (see the file comment). */
+function cellVerdict(family: Family, cell: Cell, scale: Scale): CellVerdict {
+  const raw = family.coefficients.map((e) => (e === null ? point(0) : encloseExpr(e, cell, family.constants)));
+  if (raw.some((v) => !(v.lo > -Infinity && v.hi < Infinity))) {
+    // A coefficient's pole in the cell is refused at its division by the planner's cell checks.
+    return family.coefficients.some((e) => e !== null && poleOver(e, cell, family.constants) !== null) ? 'pole' : 'overflow';
+  }
+  const { q: c, lost } = scaled(raw, scale.E);
+  const unproved = lost ? 'scales' : 'unproved';
+  // The degree is at least 1, so Q' has a coefficient. On a piece left of zero, Q(-u) and
+  // Q'(-u) are enclosed over u >= 0 (coefficients times (-1)^k): with the origin at the piece's
+  // end nearest zero, Bernstein's Taylor shift does not round the far end's large terms into the small ones.
+  const dc = c.slice(1).map((v, k) => imul(point(k + 1), v));
+  const right = { p: tensorOf(c), dp: tensorOf(dc) };
+  const left = { p: tensorOf(c.map((v, k) => (k % 2 === 0 ? v : ineg(v)))), dp: tensorOf(dc.map((v, k) => (k % 2 === 0 ? v : ineg(v)))) };
+  // Cut at zero first: there t^k has one sign on each side, so the Bernstein enclosures of a
+  // slope like 3 t^2 + d (d tiny against the bracket's scale) stay tight however wide the bracket.
+  const stack: [number, number][] = scale.lo < 0 && scale.hi > 0 ? [[0, scale.hi], [scale.lo, 0]] : [[scale.lo, scale.hi]];
   let sign = 0;
   for (let pieces = 0; stack.length > 0; pieces++) {
-    if (pieces >= ONE_ROOT.maxPieces) return 'unproved';
+    if (pieces >= ONE_ROOT.maxPieces) return unproved;
     spend(ONE_ROOT.pieceUnits);
     const [lo, hi] = stack.pop()!;
     const w = nextUp(hi - lo);
-    if (excludesZero(bernsteinRange(p, [lo], [w]))) continue;
-    const slope = bernsteinRange(dp, [lo], [w]);
+    // Q and Q' over [lo, hi].
+    const [side, origin] = hi <= 0 ? [left, -hi] : [right, lo];
+    if (excludesZero(bernsteinRange(side.p, [origin], [w]))) continue;
+    const slope = bernsteinRange(side.dp, [origin], [w]);
     if (excludesZero(slope)) {
-      // Monotone on the piece: a root only where P at its ends can differ in sign.
+      // Monotone on the piece: a root only where Q at its ends can differ in sign.
       const atLo = hornerAt(c, lo);
       const atHi = hornerAt(c, hi);
       if ((atLo.lo > 0 && atHi.lo > 0) || (atLo.hi < 0 && atHi.hi < 0)) continue;
       const s = slope.lo > 0 ? 1 : -1;
-      if (sign !== 0 && s !== sign) return 'unproved';
+      if (sign !== 0 && s !== sign) return unproved;
       sign = s;
       continue;
     }
-    if (hi - lo <= minPiece) return 'unproved';
+    if (hi - lo <= scale.minPiece) return unproved;
     const mid = lo + (hi - lo) / 2;
     stack.push([mid, hi], [lo, mid]);
   }

@@ -106,11 +106,26 @@ describe('one root where P\' vanishes in the bracket but P does not', () => {
     const e = refusal(readSpec('double.yaml', cubic('-x', '-3', '[2, 3]', '[-3, 3]')))!;
     expect(e).not.toBeNull();
     expect(e.location!.field).toBe('root.bracket');
-    const m = /^root\.bracket may hold more than one root for x in \[(\S+), (\S+)\]: the slope P' can vanish between -3 and 3 where P can too/.exec(e.message)!;
+    const m = /^the bracket may hold more than one root for x in \[(\S+), (\S+)\]: the slope P' can vanish between -3 and 3 where P can too/.exec(e.message)!;
     expect(m).not.toBeNull();
     expect(Number(m[1])).toBe(2);
     expect(Number(m[2])).toBeLessThan(2.01);
     expect(e.message).toMatch(/narrow root\.bracket around the wanted root$/);
+  });
+});
+
+describe('brackets on a large scale', () => {
+  test('s^3 + s - x over [-1e30, 1e30] is proved (P\' = 3 s^2 + 1 > 0; discriminant -(4 + 27 x^2) < 0: one real root)', () => {
+    // The slope's constant term is 2^-200 of its square term at the bracket's scale: proved by cutting at zero.
+    expect(refusal(readSpec('wide.yaml', cubic('-x', '1', '[0, 1]', '[-1e30, 1e30]')))).toBeNull();
+  });
+
+  test('a bracket whose terms span more than float64\'s scales is refused as too wide, not as holding several roots (bench/corpus/random/313.yaml)', () => {
+    // 0.001 s^3 against 1.53 s at s = 1.3e299: a ratio near 2^1980, beyond float64's 2^-1074 to 2^1024 (IEEE 754 binary64).
+    const file = 'bench/corpus/random/313.yaml';
+    const e = refusal(readSpec(file, readFileSync(join(REPO, file), 'utf8')))!;
+    expect(e.location!.field).toBe('root.bracket');
+    expect(e.message).toMatch(/^the bracket \[-1\.307e299, 1\.307e299\] is too wide to prove that it holds one root for x in \[1e\+300, 1e\+301\]: .*narrow root\.bracket around the wanted root$/);
   });
 });
 
