@@ -79,7 +79,9 @@ function betas(n: number): { lo: Float64Array; hi: Float64Array } {
     const hi = new Float64Array((n + 1) * (n + 1));
     for (let m = 0; m <= n; m++) {
       for (let j = 0; j <= m; j++) {
-        const [l, h] = Rational.of(binom(m, j), binom(n, j)).toNumberBounds();
+        // Not reduced (no gcd): the table is kept for the process, and the gcds work.ts counts would
+        // fall to whichever plan of the process first needs degree n, so its units would depend on the plans before it.
+        const [l, h] = Rational.of(binom(m, j), binom(n, j), true).toNumberBounds();
         lo[m * (n + 1) + j] = l;
         hi[m * (n + 1) + j] = h;
       }
