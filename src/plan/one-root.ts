@@ -42,6 +42,7 @@ import { signAt } from '../series/recenter.js';
 import { describeCell, short, split, widestDim, type Cell } from './box.js';
 import { poleOver } from './coefficient-poles.js';
 import { encloseExpr } from './expr-enclose.js';
+import { CoefficientRanges, intersect } from './tight-range.js';
 import { locate } from './locate.js';
 import { ONE_ROOT } from './tuning.js';
 import { spend } from './work.js';
@@ -61,9 +62,9 @@ type CellVerdict = 'one' | 'pole' | 'overflow' | 'unproved' | 'scales';
  */
 export function certifyOneRoot(family: Family, box: Cell): void {
   if (!family.bracket || family.oneRootProved) return;
-  const a = family.bracket[0].value.toNumberDown();
-  const b = family.bracket[1].value.toNumberUp();
-  const scale = scaleOf(a, b);
+  // P about zero first, then (only where that fails) about the bracket's midpoint: see Frame.
+  const frames = [frameOf(family, false)];
+  const frameAt = (i: number): Frame => (frames[i] ??= frameOf(family, true));
   const minWidth = box.map((c) => (c.hi - c.lo) * ONE_ROOT.minFraction);
   const queue: Cell[] = [box];
   let failed: Cell | null = null;
@@ -73,7 +74,7 @@ export function certifyOneRoot(family: Family, box: Cell): void {
   for (let head = 0; head < queue.length; head++) {
     const cell = queue[head]!;
     spend(ONE_ROOT.cellUnits);
-    const verdict = cellVerdict(family, cell, scale);
+    const verdict = verdictOf(family, cell, frameAt);
     if (verdict === 'one' || verdict === 'pole') continue;
     const small = cell.every((c, i) => c.hi - c.lo <= minWidth[i]!);
     const last = small || queue.length + 2 > ONE_ROOT.maxCells;
@@ -105,27 +106,64 @@ export function certifyOneRoot(family: Family, box: Cell): void {
 }
 
 /**
- * The proof runs on Q(t) = 2^-F P(2^E t), t in [a 2^-E, b 2^-E] widened by
- * an ulp: 2^E bounds the bracket's ends and 2^-F brings the largest
- * coefficient near 1 on each cell, so nothing overflows even for a bracket
- * near the float64 range (P(b) for b = 1e299 is beyond it). Q has the roots
- * of P divided by 2^E, and Q' the signs of P', so each step of the proof is
- * the same for Q.
+ * Where the proof works: P is expanded about a point m, P(m + v) =
+ * sum_j c'j v^j, and v is scaled, v = 2^E t with 2^E bounding the bracket's
+ * distance from m, so t runs over about [-1, 1]; each cell's coefficients
+ * are then scaled by 2^-F to bring the largest near 1:
+ *     Q(t) = 2^-F P(m + 2^E t) = sum_j 2^(jE - F) c'j t^j.
+ * Q has the roots of P mapped to t and Q' the signs of P', so each step of
+ * the proof is the same for Q, and nothing overflows even for a bracket near
+ * the float64 range. c'j over a cell is the intersection of its interval
+ * value and its Bernstein enclosure as a polynomial in the inputs
+ * (tight-range.ts, which avoids the dependency problem); where Q' is not
+ * known to keep its sign on a piece, P' over the cell and the piece is
+ * enclosed jointly the same way.
+ *
+ * Two points: m = 0, where the coefficients are the spec's own (c'j = c_j),
+ * and the bracket's midpoint. About the midpoint the powers of t stay near 1
+ * over the bracket and the terms do not cancel (a ray-torus quartic with a
+ * bracket [1.5, 2], test/fixtures/tight/torus-hit.yaml, is proved there and
+ * not about zero); but where a coefficient is not a polynomial in the
+ * inputs, its shift to the midpoint is by interval arithmetic, which widens
+ * it (gas-wide.yaml is proved about zero and not about the midpoint). A cell
+ * is proved when either proves it; the midpoint is tried only where zero fails.
  */
-interface Scale {
+interface Frame {
+  /** m exactly, and an enclosure of it. */
+  readonly m: Rational;
+  readonly mAt: Interval;
   readonly E: number;
+  /** The bracket in t, widened outward. */
   readonly lo: number;
   readonly hi: number;
   readonly minPiece: number;
+  readonly tight: CoefficientRanges;
 }
 
-function scaleOf(a: number, b: number): Scale {
-  const m = Math.max(Math.abs(a), Math.abs(b));
-  let E = m > 0 ? Math.ceil(Math.log2(m)) : 0;
-  while (ldexp(1, E) < m) E++;
-  const lo = nextDown(ldexp(a, -E));
-  const hi = nextUp(ldexp(b, -E));
-  return { E, lo, hi, minPiece: (hi - lo) * ONE_ROOT.minPieceFraction };
+function frameOf(family: Family, midpoint: boolean): Frame {
+  const [A, B] = [family.bracket![0].value, family.bracket![1].value];
+  const m = midpoint ? A.add(B).div(Rational.fromNumber(2)) : Rational.ZERO;
+  const [lo, hi] = [A.sub(m).toNumberDown(), B.sub(m).toNumberUp()];
+  const reach = Math.max(Math.abs(lo), Math.abs(hi));
+  let E = reach > 0 && reach < Infinity ? Math.ceil(Math.log2(reach)) : 0;
+  while (ldexp(1, E) < reach) E++;
+  const [tlo, thi] = [nextDown(ldexp(lo, -E)), nextUp(ldexp(hi, -E))];
+  const tight = new CoefficientRanges(family, [m]);
+  // The exact expansion at m, built and counted now (src/plan/work.ts), as certifyBracket builds its ends'.
+  tight.prepare(0);
+  const [mLo, mHi] = m.toNumberBounds();
+  return { m, mAt: { lo: mLo, hi: mHi }, E, lo: tlo, hi: thi, minPiece: (thi - tlo) * ONE_ROOT.minPieceFraction, tight };
+}
+
+/** The cell's verdict about zero, and about the midpoint where that gives no proof (see Frame). */
+function verdictOf(family: Family, cell: Cell, frameAt: (i: number) => Frame): CellVerdict {
+  const first = cellVerdict(family, cell, frameAt(0));
+  // A bracket centred on zero has its midpoint there: nothing else to try.
+  if ((first !== 'unproved' && first !== 'scales') || family.bracket![0].value.add(family.bracket![1].value).isZero()) return first;
+  const second = cellVerdict(family, cell, frameAt(1));
+  if (second === 'one' || second === 'pole' || second === 'overflow') return second;
+  // No proof either way: `scales` only when float64's range stopped both.
+  return first === 'scales' && second === 'scales' ? 'scales' : 'unproved';
 }
 
 /** x 2^n, in steps that stay within float64 when x 2^n does (exact but for a result below 2^-1022). */
@@ -141,7 +179,15 @@ function ldexp(x: number, n: number): number {
   return x * 2 ** n;
 }
 
-/** The coefficients of Q (see Scale) from P's over a cell, rounded outward; `lost` when a nonzero one fell below 2^-1000. */
+/** c'j = sum_k binom(k, j) m^(k - j) c_k from enclosures of c_k and m, by repeated synthetic division (outward rounded). */
+function shiftedAt(c: readonly Interval[], m: Interval): Interval[] {
+  const q = c.slice();
+  const n = q.length - 1;
+  for (let i = 0; i < n; i++) for (let k = n - 1; k >= i; k--) q[k] = iadd(q[k]!, imul(q[k + 1]!, m));
+  return q;
+}
+
+/** The coefficients of Q (see Frame) from c'j over a cell, rounded outward; `lost` when one of normal size fell below 2^-1000. */
 function scaled(c: readonly Interval[], E: number): { q: Interval[]; lost: boolean } {
   let F = -Infinity;
   c.forEach((v, k) => {
@@ -153,20 +199,26 @@ function scaled(c: readonly Interval[], E: number): { q: Interval[]; lost: boole
   const q = c.map((v, k) => {
     const lo = ldexp(v.lo, k * E - F);
     const hi = ldexp(v.hi, k * E - F);
-    if ((v.lo !== 0 || v.hi !== 0) && Math.max(Math.abs(lo), Math.abs(hi)) < 2 ** -1000) lost = true;
+    // Lost: a coefficient of normal size (not the dust of outward rounding about zero) scaled below 2^-1000.
+    if (Math.max(Math.abs(v.lo), Math.abs(v.hi)) >= 2 ** -1022 && Math.max(Math.abs(lo), Math.abs(hi)) < 2 ** -1000) lost = true;
     return { lo: nextDown(lo), hi: nextUp(hi) };
   });
   return { q, lost };
 }
 
 /** The pieces of the bracket over one input cell (see the file comment). */
-function cellVerdict(family: Family, cell: Cell, scale: Scale): CellVerdict {
+function cellVerdict(family: Family, cell: Cell, frame: Frame): CellVerdict {
   const raw = family.coefficients.map((e) => (e === null ? point(0) : encloseExpr(e, cell, family.constants)));
   if (raw.some((v) => !(v.lo > -Infinity && v.hi < Infinity))) {
     // A coefficient's pole in the cell is refused at its division by the planner's cell checks.
     return family.coefficients.some((e) => e !== null && poleOver(e, cell, family.constants) !== null) ? 'pole' : 'overflow';
   }
-  const { q: c, lost } = scaled(raw, scale.E);
+  const shifted = (frame.m.isZero() ? raw : shiftedAt(raw, frame.mAt)).map((v, j) => {
+    spend(frame.tight.shiftedUnits(j, 0));
+    return intersect(v, frame.tight.shiftedOnce(j, cell, 0));
+  });
+  if (shifted.some((v) => !(v.lo > -Infinity && v.hi < Infinity))) return 'overflow';
+  const { q: c, lost } = scaled(shifted, frame.E);
   const unproved = lost ? 'scales' : 'unproved';
   // The degree is at least 1, so Q' has a coefficient. On a piece left of zero, Q(-u) and
   // Q'(-u) are enclosed over u >= 0 (coefficients times (-1)^k): with the origin at the piece's
@@ -174,9 +226,15 @@ function cellVerdict(family: Family, cell: Cell, scale: Scale): CellVerdict {
   const dc = c.slice(1).map((v, k) => imul(point(k + 1), v));
   const right = { p: tensorOf(c), dp: tensorOf(dc) };
   const left = { p: tensorOf(c.map((v, k) => (k % 2 === 0 ? v : ineg(v)))), dp: tensorOf(dc.map((v, k) => (k % 2 === 0 ? v : ineg(v)))) };
-  // Cut at zero first: there t^k has one sign on each side, so the Bernstein enclosures of a
+  // Cut at t = 0 first: there t^k has one sign on each side, so the Bernstein enclosures of a
   // slope like 3 t^2 + d (d tiny against the bracket's scale) stay tight however wide the bracket.
-  const stack: [number, number][] = scale.lo < 0 && scale.hi > 0 ? [[0, scale.hi], [scale.lo, 0]] : [[scale.lo, scale.hi]];
+  const stack: [number, number][] =
+    frame.lo < 0 && frame.hi > 0
+      ? [
+          [0, frame.hi],
+          [frame.lo, 0],
+        ]
+      : [[frame.lo, frame.hi]];
   let sign = 0;
   for (let pieces = 0; stack.length > 0; pieces++) {
     if (pieces >= ONE_ROOT.maxPieces) return unproved;
@@ -186,22 +244,39 @@ function cellVerdict(family: Family, cell: Cell, scale: Scale): CellVerdict {
     // Q and Q' over [lo, hi].
     const [side, origin] = hi <= 0 ? [left, -hi] : [right, lo];
     if (excludesZero(bernsteinRange(side.p, [origin], [w]))) continue;
-    const slope = bernsteinRange(side.dp, [origin], [w]);
-    if (excludesZero(slope)) {
+    const s = slopeSign(bernsteinRange(side.dp, [origin], [w])) || jointSlopeSign(cell, frame, lo, hi);
+    if (s !== 0) {
       // Monotone on the piece: a root only where Q at its ends can differ in sign.
       const atLo = hornerAt(c, lo);
       const atHi = hornerAt(c, hi);
       if ((atLo.lo > 0 && atHi.lo > 0) || (atLo.hi < 0 && atHi.hi < 0)) continue;
-      const s = slope.lo > 0 ? 1 : -1;
       if (sign !== 0 && s !== sign) return unproved;
       sign = s;
       continue;
     }
-    if (hi - lo <= scale.minPiece) return unproved;
+    if (hi - lo <= frame.minPiece) return unproved;
     const mid = lo + (hi - lo) / 2;
     stack.push([mid, hi], [lo, mid]);
   }
   return 'one';
+}
+
+/** 1 or -1 where the enclosure of a slope excludes zero, else 0. */
+function slopeSign(v: Interval): number {
+  return v.lo > 0 ? 1 : v.hi < 0 ? -1 : 0;
+}
+
+/**
+ * The sign of P' over the cell and the piece [lo, hi] of t, enclosed jointly
+ * in the inputs and the unknown (tight-range.ts `derivatives`: P'(m - v) for
+ * v in J, so J = -2^E [lo, hi]); 0 where unknown.
+ */
+function jointSlopeSign(cell: Cell, frame: Frame, lo: number, hi: number): number {
+  const J = { lo: -ldexp(hi, frame.E), hi: -ldexp(lo, frame.E) };
+  if (!(J.lo > -Infinity && J.hi < Infinity)) return 0;
+  spend(ONE_ROOT.jointUnits);
+  const d = frame.tight.derivatives(cell, 0, J);
+  return d ? slopeSign(d.d1) : 0;
 }
 
 /** The univariate Bernstein input of coefficient enclosures (index = power). */

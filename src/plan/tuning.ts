@@ -288,6 +288,8 @@ export const ONE_ROOT = {
   cellUnits: 20,
   pieceUnits: 40,
   signUnits: 100,
+  /** Per joint enclosure of P' over a cell and a piece (tight-range.ts derivatives: a tensor of a few hundred entries). */
+  jointUnits: 400,
 } as const;
 
 /** The deterministic work limit of one plan (src/plan/work.ts). */

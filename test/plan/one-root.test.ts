@@ -138,6 +138,14 @@ describe('the shipped examples', () => {
   });
 });
 
+describe('brackets away from zero, multi-input families', () => {
+  test.each(['test/fixtures/tight/torus-hit.yaml', 'test/fixtures/tight/tunable-ease.yaml'])('%s: its bracket is proved to hold one root', (file) => {
+    // The torus (ray direction and tube radius as inputs, bracket [1.5, 2]) is proved only about the
+    // bracket's midpoint: about zero, its coefficients' powers of t in [1.5, 2] cancel.
+    expect(refusal(readSpec(file, readFileSync(join(REPO, file), 'utf8')))).toBeNull();
+  });
+});
+
 describe('random depressed cubics against mathjs polynomialRoot (fast-check)', () => {
   test('a proved bracket holds one root at sampled inputs; a witnessed refusal names the roots mathjs finds', () => {
     let proved = 0;
