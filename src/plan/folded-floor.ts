@@ -284,7 +284,7 @@ export function pointValues(family: Family, of: 'result' | 'root' = 'result'): P
 /**
  * A proven enclosure of the bracketed root: ends near the float64 estimate
  * where the polynomial's exact signs differ (signAt). The bracket holds
- * exactly one root for every input (bracket-check.ts certifyBracket), so a
+ * exactly one root for every input (bracket-check.ts certifyBracket, one-root.ts), so a
  * sign change inside it encloses that root.
  */
 function rootEnclosure(c: readonly Rational[], near: number, lo: Rational, hi: Rational): Interval | null {
