@@ -18,19 +18,24 @@
  * through, so it cannot cross zero again. Otherwise X is halved (the input
  * widest relative to the box) and each half proved afresh.
  *
- * Enclosures: the coefficients over X by interval arithmetic
- * (src/plan/expr-enclose.ts), P and P' over S by the Bernstein expansion in
- * the unknown with those interval coefficients (src/math/bernstein.ts; the
- * Bernstein coefficients of a polynomial with coefficients in intervals
- * enclose every such polynomial's range, the transform being linear), and
- * P at the ends of S by Horner's rule, all rounded outward.
+ * Enclosures (see Frame): P is taken about zero and, where that fails, about
+ * the bracket's midpoint, scaled by powers of two; its coefficients over X
+ * are the intersection of interval arithmetic (src/plan/expr-enclose.ts) and
+ * their Bernstein enclosures as polynomials in the inputs (tight-range.ts);
+ * P and P' over S are the Bernstein expansion in the unknown with those
+ * interval coefficients (src/math/bernstein.ts; the Bernstein coefficients
+ * of a polynomial with coefficients in intervals enclose every such
+ * polynomial's range, the transform being linear), P' also jointly in the
+ * inputs and the unknown, and P at the ends of S by Horner's rule, all
+ * rounded outward.
  *
- * Where the proof fails on a cell at the size limit, the cell's centre is
- * searched for several roots with exact arithmetic (signs of P at equally
- * spaced points): a witness gives the refusal its roots; without one the
- * refusal says the bracket may hold more than one. Both are one line at
- * root.bracket. The proof counts its work (src/plan/work.ts) and visits at
- * most ONE_ROOT.maxCells cells.
+ * Where the proof fails on a cell (the first few, whatever their size, and
+ * the first few at the size limit), the cell's centre is searched for
+ * several roots with exact arithmetic (signs of P at equally spaced points):
+ * a witness gives the refusal its roots; without one the refusal says the
+ * bracket may hold more than one, or that it is too wide for float64 to
+ * prove. Each is one line at root.bracket. The proof counts its work
+ * (src/plan/work.ts) and visits at most ONE_ROOT.maxCells cells.
  */
 import { RootcastError } from '../errors.js';
 import { iadd, imul, ineg, point, type Interval } from '../math/interval.js';

@@ -270,7 +270,7 @@ export const BRACKET_CHECK = {
 
 /** Proving that root.bracket holds one root only (src/plan/one-root.ts). */
 export const ONE_ROOT = {
-  /** Input cells the proof may visit in all: a sound bracket of the examples and the corpus needs 1 to 191 (gas-wide 29), so this bounds only a bracket that holds several roots or a slope that vanishes with P. */
+  /** Input cells the proof may visit in all: the sound brackets of the examples and the corpus need a few hundred at most, so this bounds only a bracket that holds several roots or a slope that vanishes with P. */
   maxCells: 4096,
   /** An input cell narrower than this fraction of the box in every input is not split again: what fails there is reported. */
   minFraction: 1 / 1024,
