@@ -13,6 +13,7 @@ import type { Family } from '../family/types.js';
 import { boxOf, type Cell } from './box.js';
 import { certifyBracket } from './bracket-check.js';
 import { certifyOneRoot } from './one-root.js';
+import { certifyIsolatedRoot } from './isolated-root.js';
 import { candidatesOf, refusedCandidate, withCandidates } from './candidates.js';
 import { locate } from './locate.js';
 import { applyOutsideBox } from './outside-box.js';
@@ -54,7 +55,10 @@ export function makePlan(family: Family, options: PlanOptions = {}): Plan {
   warmAnalysis(family.arithmetic);
   startWork(options.onWork ?? null);
   try {
-    return applyOutsideBox(planWithResult(family, planWithinLimit));
+    const plan = planWithResult(family, planWithinLimit);
+    // Without a bracket, the bound must not reach another root (the checks bisect within it).
+    certifyIsolatedRoot(family, plan);
+    return applyOutsideBox(plan);
   } catch (e) {
     if (e instanceof WorkLimitError) refuseWorkLimit(family);
     // A result spec plans its root to a budget of its own choosing: a quote would name that budget, not the spec's target.

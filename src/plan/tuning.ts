@@ -292,6 +292,12 @@ export const ONE_ROOT = {
   jointUnits: 400,
 } as const;
 
+/** Proving that a plan without root.bracket isolates its root within its bound (src/plan/isolated-root.ts). */
+export const ISOLATED_ROOT = {
+  /** Work units (work.ts) per certified cell: its coefficients' enclosures and one Horner pass of P'. */
+  cellUnits: 20,
+} as const;
+
 /** The deterministic work limit of one plan (src/plan/work.ts). */
 export const WORK = {
   /**
