@@ -28,7 +28,7 @@ function roots(x: number): [number, number] {
 }
 
 describe('a bound that reaches a second root is refused', () => {
-  test('the second root lies 1.65e-38 to 1.67e-38 away, within the float32 plan's bound', () => {
+  test('the second root lies 1.65e-38 to 1.67e-38 away, within the bound of the float32 plan', () => {
     for (const x of [0, 5e-41, 1e-40]) {
       const [small, large] = roots(x);
       expect(small).toBeGreaterThanOrEqual(0);
