@@ -20,11 +20,10 @@
  * When step 2 fails the refusal says to add root.bracket, as before.
  */
 import { RootcastError } from '../errors.js';
-import { iadd, imul, point, type Interval } from '../math/interval.js';
 import { SpecNumber } from '../family/spec-number.js';
 import type { Family } from '../family/types.js';
-import { describeCell, type Cell } from './box.js';
-import { encloseExpr } from './expr-enclose.js';
+import { describeCell } from './box.js';
+import { slopeOver } from './expr-enclose.js';
 import { locate } from './locate.js';
 import { DERIVED_BRACKET } from './tuning.js';
 import type { Plan } from './types.js';
@@ -61,13 +60,6 @@ export function withDerivedBracket(family: Family, root: Plan): Family {
   };
 }
 
-/** P'(x) = sum_k k c_k x^(k-1) over the cell and X, by Horner's rule in outward-rounded intervals. */
-function slopeOver(family: Family, cell: Cell, X: Interval): Interval {
-  const c = family.coefficients.map((e) => (e === null ? point(0) : encloseExpr(e, cell, family.constants)));
-  let acc = point(0);
-  for (let k = c.length - 1; k >= 1; k--) acc = iadd(imul(acc, X), imul(point(k), c[k]!));
-  return acc;
-}
 
 /** `v` rounded outward to DERIVED_BRACKET.digits significant digits, as decimal text. */
 function shortText(v: number, dir: 'up' | 'down'): string {

@@ -7,7 +7,7 @@
 import { containsZero, iadd, idiv, imul, ineg, interval, isub, mag, mig, point, type Interval } from '../math/interval.js';
 import type { Rational } from '../math/rational.js';
 import { constantValue } from '../family/expr-eval.js';
-import type { Constants, Expr } from '../family/types.js';
+import type { Constants, Expr, Family } from '../family/types.js';
 import type { Cell } from './box.js';
 
 /** A binary node of the expression tree whose kind is 'div'. */
@@ -84,4 +84,12 @@ export function ipow(x: Interval, n: number): Interval {
   if (n === 0) return point(1);
   if (n % 2 === 0) return interval(chain(mig(x)).lo, chain(mag(x)).hi);
   return interval(chain(x.lo).lo, chain(x.hi).hi);
+}
+
+/** P'(x) = sum_k k c_k x^(k-1) over the cell and X, by Horner's rule in outward-rounded intervals (the coefficients enclosed over the cell). */
+export function slopeOver(family: Family, cell: Cell, X: Interval): Interval {
+  const c = family.coefficients.map((e) => (e === null ? point(0) : encloseExpr(e, cell, family.constants)));
+  let acc = point(0);
+  for (let k = c.length - 1; k >= 1; k--) acc = iadd(imul(acc, X), imul(point(k), c[k]!));
+  return acc;
 }

@@ -20,10 +20,10 @@
  */
 import { RootcastError } from '../errors.js';
 import { addUp, mulUp, subDown } from '../math/directed.js';
-import { iadd, imul, point, type Interval } from '../math/interval.js';
+import type { Interval } from '../math/interval.js';
 import type { Family } from '../family/types.js';
 import { describeCell, short, type Cell } from './box.js';
-import { encloseExpr } from './expr-enclose.js';
+import { slopeOver } from './expr-enclose.js';
 import { locate } from './locate.js';
 import { widerAdvice } from './refusals.js';
 import { ISOLATED_ROOT } from './tuning.js';
@@ -55,13 +55,6 @@ function widened(J: Interval, B: number): Interval {
   return { lo: subDown(J.lo, w), hi: addUp(J.hi, w) };
 }
 
-/** P'(x) = sum_k k c_k x^(k-1) over the cell and X, by Horner's rule in outward-rounded intervals. */
-function slopeOver(family: Family, cell: Cell, X: Interval): Interval {
-  const c = family.coefficients.map((e) => (e === null ? point(0) : encloseExpr(e, cell, family.constants)));
-  let acc = point(0);
-  for (let k = c.length - 1; k >= 1; k--) acc = iadd(imul(acc, X), imul(point(k), c[k]!));
-  return acc;
-}
 
 function excludesZero(v: Interval): boolean {
   return v.lo > 0 || v.hi < 0;

@@ -97,7 +97,10 @@ function confirmedFix(family: Family, refusal: QuotedFixRefusal, options: PlanOp
     startWork(options.onWork ?? null, WORK.limit * QUOTED_FIX.workShare);
     try {
       // Whether it plans is all the check asks: it stops at the first plan (a search that found one returns one).
-      untilFirstPlan(() => planWithinLimit(edited));
+      // Without a bracket the user's run also proves that the chosen plan's bound isolates the root
+      // (isolated-root.ts), so the check plans the one box in full and proves it too.
+      if (edited.bracket) untilFirstPlan(() => planWithinLimit(edited));
+      else certifyIsolatedRoot(edited, planWithinLimit(edited));
       options.onQuoteCheck?.({ planned: true, firstPlanAt: workAtFirstPlan(), units: workUsed() });
       return quote;
     } catch (e) {
