@@ -15,7 +15,7 @@ import { describe, expect, test } from '@jest/globals';
 import { readSpec } from '../../src/reader/read.js';
 import { makePlan } from '../../src/plan/plan.js';
 import { RootcastError } from '../../src/errors.js';
-import { planAndMeasure } from '../support/quoted-fix.js';
+import { planAndMeasure, quotedEdits } from '../support/quoted-fix.js';
 
 const spec = (arithmetic: string, bracket: string | null): string =>
   ['function: second_root', 'unknown: s', 'degree: 2', 'coefficients:', '  0: -x', '  1: 0.69', '  2: -4.14e+37', 'inputs:', '  x: [0, 1e-40]', ...(bracket ? ['root:', `  bracket: ${bracket}`] : []), 'accuracy:', '  absolute: 9.08e-38', `arithmetic: ${arithmetic}`, ''].join('\n');
@@ -65,5 +65,22 @@ describe('a bound that reaches a second root is refused', () => {
     if (r.kind !== 'planned') return;
     expect(r.sound).toBe(true);
     expect(r.measured).toBeLessThanOrEqual(r.bound);
+  });
+});
+
+describe('a refusal quotes no fix that the isolation check would refuse', () => {
+  test('a float32 target of 1e-46 (below the floor) does not quote accuracy.absolute: 9.08e-38, which would not isolate the root', () => {
+    // Found by the same soak: the floor refusal quoted the floor as the fix, its check planned the
+    // first plan only, and the user's run of the edited spec was refused by the isolation check.
+    let message = '';
+    try {
+      makePlan(readSpec('floor.yaml', spec('float32', null).replace('absolute: 9.08e-38', 'absolute: 1e-46')));
+    } catch (e) {
+      if (!(e instanceof RootcastError)) throw e;
+      message = e.message;
+    }
+    expect(message).toContain('below the float32 rounding floor');
+    expect(quotedEdits(message)).toEqual([]);
+    expect(message).toContain('use arithmetic: float64');
   });
 });
