@@ -6,7 +6,7 @@
  * numbers nearest to lo and hi (and the float64 ones the harnesses start from):
  * every value a caller can pass for an in-range input lies in the analysed box.
  */
-import type { Interval } from '../math/interval.js';
+import { hull, type Interval } from '../math/interval.js';
 import { Rational } from '../math/rational.js';
 import { RootcastError } from '../errors.js';
 import { ARITHMETICS, roundNumber, roundTo } from '../family/arithmetic.js';
@@ -116,6 +116,11 @@ export function widestDim(cell: Cell, box: Cell): number {
     }
   });
   return best;
+}
+
+/** The smallest cell holding both (side by side, math/interval.ts hull). */
+export function hullOf(a: Cell, b: Cell): Cell {
+  return a.map((c, i) => hull(c, b[i]!));
 }
 
 export function describeCell(family: Family, cell: Cell): string {

@@ -60,7 +60,6 @@ export function withDerivedBracket(family: Family, root: Plan): Family {
   };
 }
 
-
 /** `v` rounded outward to DERIVED_BRACKET.digits significant digits, as decimal text. */
 function shortText(v: number, dir: 'up' | 'down'): string {
   if (v === 0) return '0';

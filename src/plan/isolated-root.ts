@@ -20,9 +20,9 @@
  */
 import { RootcastError } from '../errors.js';
 import { addUp, mulUp, subDown } from '../math/directed.js';
-import type { Interval } from '../math/interval.js';
+import { containsZero, type Interval } from '../math/interval.js';
 import type { Family } from '../family/types.js';
-import { describeCell, short, type Cell } from './box.js';
+import { describeCell, hullOf, short, type Cell } from './box.js';
 import { slopeOver } from './expr-enclose.js';
 import { locate } from './locate.js';
 import { widerAdvice } from './refusals.js';
@@ -37,8 +37,8 @@ export function certifyIsolatedRoot(family: Family, plan: Plan): void {
   for (const c of plan.certifiedCells ?? []) {
     spend(ISOLATED_ROOT.cellUnits);
     const J = c.rootRange;
-    if (J && excludesZero(slopeOver(family, c.cell, widened(J, B)))) continue;
-    failed = failed ? failed.map((v, i) => ({ lo: Math.min(v.lo, c.cell[i]!.lo), hi: Math.max(v.hi, c.cell[i]!.hi) })) : c.cell.map((v) => ({ ...v }));
+    if (J && !containsZero(slopeOver(family, c.cell, widened(J, B)))) continue;
+    failed = failed ? hullOf(failed, c.cell) : c.cell;
   }
   if (!failed) return;
   const kind = family.accuracy.kind;
@@ -53,9 +53,4 @@ function widened(J: Interval, B: number): Interval {
   const scale = Math.max(addUp(Math.max(Math.abs(J.lo), Math.abs(J.hi)), B), B, 2 ** -1000);
   const w = addUp(mulUp(3, B), mulUp(scale, 2 ** -60));
   return { lo: subDown(J.lo, w), hi: addUp(J.hi, w) };
-}
-
-
-function excludesZero(v: Interval): boolean {
-  return v.lo > 0 || v.hi < 0;
 }

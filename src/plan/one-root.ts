@@ -38,13 +38,13 @@
  * (src/plan/work.ts) and visits at most ONE_ROOT.maxCells cells.
  */
 import { RootcastError } from '../errors.js';
-import { iadd, imul, ineg, point, type Interval } from '../math/interval.js';
+import { containsZero, iadd, imul, ineg, point, type Interval } from '../math/interval.js';
 import { bernsteinRange, IntervalTensor } from '../math/bernstein.js';
 import { nextDown, nextUp, Rational } from '../math/rational.js';
 import { evalExprExact } from '../family/expr-eval.js';
 import type { Family } from '../family/types.js';
 import { signAt } from '../series/recenter.js';
-import { describeCell, short, split, widestDim, type Cell } from './box.js';
+import { describeCell, hullOf, short, split, widestDim, type Cell } from './box.js';
 import { poleOver } from './coefficient-poles.js';
 import { encloseExpr } from './expr-enclose.js';
 import { CoefficientRanges, intersect } from './tight-range.js';
@@ -68,8 +68,11 @@ type CellVerdict = 'one' | 'pole' | 'overflow' | 'unproved' | 'scales';
 export function certifyOneRoot(family: Family, box: Cell): void {
   if (!family.bracket || family.oneRootProved) return;
   // P about zero first, then (only where that fails) about the bracket's midpoint: see Frame.
-  const frames = [frameOf(family, false)];
-  const frameAt = (i: number): Frame => (frames[i] ??= frameOf(family, true));
+  // A bracket centred on zero has its midpoint there: nothing else to try.
+  const zero = frameOf(family, false);
+  const centred = family.bracket[0].value.add(family.bracket[1].value).isZero();
+  let midpoint: Frame | null = null;
+  const midpointFrame = (): Frame | null => (centred ? null : (midpoint ??= frameOf(family, true)));
   const minWidth = box.map((c) => (c.hi - c.lo) * ONE_ROOT.minFraction);
   const queue: Cell[] = [box];
   let failed: Cell | null = null;
@@ -79,7 +82,7 @@ export function certifyOneRoot(family: Family, box: Cell): void {
   for (let head = 0; head < queue.length; head++) {
     const cell = queue[head]!;
     spend(ONE_ROOT.cellUnits);
-    const verdict = verdictOf(family, cell, frameAt);
+    const verdict = verdictOf(family, cell, zero, midpointFrame);
     if (verdict === 'one' || verdict === 'pole') continue;
     const small = cell.every((c, i) => c.hi - c.lo <= minWidth[i]!);
     const last = small || queue.length + 2 > ONE_ROOT.maxCells;
@@ -93,7 +96,7 @@ export function certifyOneRoot(family: Family, box: Cell): void {
     // A coefficient beyond float64 over the smallest cells: no series bound is finite there either,
     // and the planner's cell checks refuse that in their own words.
     if (verdict === 'overflow') continue;
-    failed = failed ? hullOf(failed, cell) : cell.map((c) => ({ ...c }));
+    failed = failed ? hullOf(failed, cell) : cell;
     if (verdict === 'unproved') onlyScales = false;
   }
   if (!failed) return;
@@ -160,12 +163,22 @@ function frameOf(family: Family, midpoint: boolean): Frame {
   return { m, mAt: { lo: mLo, hi: mHi }, E, lo: tlo, hi: thi, minPiece: (thi - tlo) * ONE_ROOT.minPieceFraction, tight };
 }
 
-/** The cell's verdict about zero, and about the midpoint where that gives no proof (see Frame). */
-function verdictOf(family: Family, cell: Cell, frameAt: (i: number) => Frame): CellVerdict {
-  const first = cellVerdict(family, cell, frameAt(0));
-  // A bracket centred on zero has its midpoint there: nothing else to try.
-  if ((first !== 'unproved' && first !== 'scales') || family.bracket![0].value.add(family.bracket![1].value).isZero()) return first;
-  const second = cellVerdict(family, cell, frameAt(1));
+/**
+ * The cell's verdict about zero, and about the midpoint (`midpoint()`, null
+ * for a bracket centred on zero) where that gives no proof (see Frame). The
+ * coefficients are enclosed over the cell once, for both.
+ */
+function verdictOf(family: Family, cell: Cell, zero: Frame, midpoint: () => Frame | null): CellVerdict {
+  const raw = family.coefficients.map((e) => (e === null ? point(0) : encloseExpr(e, cell, family.constants)));
+  if (raw.some((v) => !(v.lo > -Infinity && v.hi < Infinity))) {
+    // A coefficient's pole in the cell is refused at its division by the planner's cell checks.
+    return family.coefficients.some((e) => e !== null && poleOver(e, cell, family.constants) !== null) ? 'pole' : 'overflow';
+  }
+  const first = cellVerdict(cell, raw, zero);
+  if (first !== 'unproved' && first !== 'scales') return first;
+  const m = midpoint();
+  if (!m) return first;
+  const second = cellVerdict(cell, raw, m);
   if (second === 'one' || second === 'pole' || second === 'overflow') return second;
   // No proof either way: `scales` only when float64's range stopped both.
   return first === 'scales' && second === 'scales' ? 'scales' : 'unproved';
@@ -211,13 +224,8 @@ function scaled(c: readonly Interval[], E: number): { q: Interval[]; lost: boole
   return { q, lost };
 }
 
-/** The pieces of the bracket over one input cell (see the file comment). */
-function cellVerdict(family: Family, cell: Cell, frame: Frame): CellVerdict {
-  const raw = family.coefficients.map((e) => (e === null ? point(0) : encloseExpr(e, cell, family.constants)));
-  if (raw.some((v) => !(v.lo > -Infinity && v.hi < Infinity))) {
-    // A coefficient's pole in the cell is refused at its division by the planner's cell checks.
-    return family.coefficients.some((e) => e !== null && poleOver(e, cell, family.constants) !== null) ? 'pole' : 'overflow';
-  }
+/** The pieces of the bracket over one input cell (see the file comment), from P's coefficients over it (`raw`, finite). */
+function cellVerdict(cell: Cell, raw: readonly Interval[], frame: Frame): CellVerdict {
   const shifted = (frame.m.isZero() ? raw : shiftedAt(raw, frame.mAt)).map((v, j) => {
     spend(frame.tight.shiftedUnits(j, 0));
     return intersect(v, frame.tight.shiftedOnce(j, cell, 0));
@@ -248,7 +256,7 @@ function cellVerdict(family: Family, cell: Cell, frame: Frame): CellVerdict {
     const w = nextUp(hi - lo);
     // Q and Q' over [lo, hi].
     const [side, origin] = hi <= 0 ? [left, -hi] : [right, lo];
-    if (excludesZero(bernsteinRange(side.p, [origin], [w]))) continue;
+    if (!containsZero(bernsteinRange(side.p, [origin], [w]))) continue;
     const s = slopeSign(bernsteinRange(side.dp, [origin], [w])) || jointSlopeSign(cell, frame, lo, hi);
     if (s !== 0) {
       // Monotone on the piece: a root only where Q at its ends can differ in sign.
@@ -296,13 +304,6 @@ function hornerAt(c: readonly Interval[], x: number): Interval {
   return acc;
 }
 
-function excludesZero(v: Interval): boolean {
-  return v.lo > 0 || v.hi < 0;
-}
-
-function hullOf(a: Cell, b: Cell): Cell {
-  return a.map((c, i) => ({ lo: Math.min(c.lo, b[i]!.lo), hi: Math.max(c.hi, b[i]!.hi) }));
-}
 
 /**
  * At the centre of a cell the proof failed on, the exact signs of P at
