@@ -14,6 +14,9 @@
  * P is strictly monotone there and the window holds x* alone. Otherwise the
  * plan is refused in one line naming the input region.
  *
+ * fixed32 plans without a bracket are checked the same way (their bound B
+ * includes the integer result's rounding).
+ *
  * Plans with root.bracket (one root proved in it, one-root.ts) and with
  * `result:` (a bracket derived and proved, derived-bracket.ts) are checked
  * in their brackets instead.
@@ -23,6 +26,7 @@ import { addUp, mulUp, subDown } from '../math/directed.js';
 import { containsZero, type Interval } from '../math/interval.js';
 import type { Family } from '../family/types.js';
 import { describeCell, hullOf, short, type Cell } from './box.js';
+import type { CellFacts } from './cell-bound.js';
 import { slopeOver } from './expr-enclose.js';
 import { locate } from './locate.js';
 import { widerAdvice } from './refusals.js';
@@ -31,10 +35,18 @@ import type { Plan } from './types.js';
 import { spend } from './work.js';
 
 export function certifyIsolatedRoot(family: Family, plan: Plan): void {
+  certifyIsolatedCells(family, plan.certifiedCells ?? [], plan.absoluteBound);
+}
+
+/**
+ * The same proof over certified cells and their bound B: a fixed32 plan's
+ * (src/plan/fixed/plan-fixed.ts), whose checks bisect in the same window
+ * around the value its integer stands for.
+ */
+export function certifyIsolatedCells(family: Family, cells: readonly CellFacts[], B: number): void {
   if (family.bracket || family.result) return;
-  const B = plan.absoluteBound;
   let failed: Cell | null = null;
-  for (const c of plan.certifiedCells ?? []) {
+  for (const c of cells) {
     spend(ISOLATED_ROOT.cellUnits);
     const J = c.rootRange;
     if (J && !containsZero(slopeOver(family, c.cell, widened(J, B)))) continue;
@@ -43,7 +55,7 @@ export function certifyIsolatedRoot(family: Family, plan: Plan): void {
   if (!failed) return;
   const kind = family.accuracy.kind;
   throw new RootcastError(
-    `the certified bound ${short(B)} does not isolate the root for ${describeCell(family, failed)}: the slope P' can vanish within 3 times the bound of it, so another root may lie within the bound's reach and the value would not say which root it is near; ${widerAdvice(family, ', ')}a tighter accuracy.${kind}, or add root.bracket around the wanted root`,
+    `the certified bound ${short(B)} does not isolate the root for ${describeCell(family, failed)}: the slope P' can vanish within 3 times the bound of it, so another root may lie within the bound's reach and the value would not say which root it is near; ${widerAdvice(family, ', ') || 'use '}a tighter accuracy.${kind}, or add root.bracket around the wanted root`,
     locate(family, `accuracy.${kind}`),
   );
 }

@@ -25,6 +25,7 @@ import { certifyBracket, certifyRootInBracket } from '../bracket-check.js';
 import { addGrade, cellTail } from '../cell-bound.js';
 import { CellSet } from '../cell-set.js';
 import { certifyOneRoot } from '../one-root.js';
+import { certifyIsolatedCells } from '../isolated-root.js';
 import { LIMITS } from '../tuning.js';
 import { FIXED_PLAN } from './tuning.js';
 import { locate } from '../locate.js';
@@ -297,6 +298,8 @@ function planWith(family: Family, fam: Family, raw: { lo: bigint; hi: bigint }, 
     }
     throw new RootcastError(`no fixed32 plan up to order ${family.plan.maxOrder} meets the target with ${S} segment${S === 1 ? '' : 's'}; raise plan.max_order, use more segments or loosen the accuracy`, locate(family, 'plan'));
   }
+  // Without a bracket the bound must isolate the root, as a float plan's must (isolated-root.ts).
+  certifyIsolatedCells(fam, set.cells, found.absoluteBound);
   if (found.tableBytes > family.plan.maxTableBytes) {
     throw new RootcastError(`the ${S} segment tables need ${found.tableBytes} bytes, more than plan.max_table_bytes ${family.plan.maxTableBytes}; raise it or use fewer segments`, locate(family, 'plan.segments'));
   }
