@@ -86,10 +86,26 @@ export function ipow(x: Interval, n: number): Interval {
   return interval(chain(x.lo).lo, chain(x.hi).hi);
 }
 
-/** P'(x) = sum_k k c_k x^(k-1) over the cell and X, by Horner's rule in outward-rounded intervals (the coefficients enclosed over the cell). */
-export function slopeOver(family: Family, cell: Cell, X: Interval): Interval {
-  const c = family.coefficients.map((e) => (e === null ? point(0) : encloseExpr(e, cell, family.constants)));
+/** The coefficients c_0..c_n of P enclosed over the cell (an absent one is zero). */
+export function enclosedCoefficients(family: Family, cell: Cell): Interval[] {
+  return family.coefficients.map((e) => (e === null ? point(0) : encloseExpr(e, cell, family.constants)));
+}
+
+/** P(x) = sum_k c_k x^k over X, by Horner's rule in outward-rounded intervals, from enclosed coefficients. */
+export function hornerValue(c: readonly Interval[], X: Interval): Interval {
+  let acc = point(0);
+  for (let k = c.length - 1; k >= 0; k--) acc = iadd(imul(acc, X), c[k]!);
+  return acc;
+}
+
+/** P'(x) = sum_k k c_k x^(k-1) over X, by Horner's rule in outward-rounded intervals, from enclosed coefficients. */
+export function hornerSlope(c: readonly Interval[], X: Interval): Interval {
   let acc = point(0);
   for (let k = c.length - 1; k >= 1; k--) acc = iadd(imul(acc, X), imul(point(k), c[k]!));
   return acc;
+}
+
+/** P'(x) over the cell and X, by Horner's rule in outward-rounded intervals (the coefficients enclosed over the cell). */
+export function slopeOver(family: Family, cell: Cell, X: Interval): Interval {
+  return hornerSlope(enclosedCoefficients(family, cell), X);
 }

@@ -296,6 +296,14 @@ export const ONE_ROOT = {
 export const ISOLATED_ROOT = {
   /** Work units (work.ts) per certified cell: its coefficients' enclosures and one Horner pass of P'. */
   cellUnits: 20,
+  /** Work units per piece of the window where P' over the whole window may vanish: two Horner passes. */
+  pieceUnits: 4,
+  /**
+   * Pieces at most per cell: the window cut so that each piece holds no root
+   * or keeps P' of one sign. 64 halvings reach 1/64 of the window at most
+   * (a second root within that of the critical point is not told apart).
+   */
+  maxPieces: 64,
 } as const;
 
 /** The deterministic work limit of one plan (src/plan/work.ts). */

@@ -298,8 +298,9 @@ function planWith(family: Family, fam: Family, raw: { lo: bigint; hi: bigint }, 
     }
     throw new RootcastError(`no fixed32 plan up to order ${family.plan.maxOrder} meets the target with ${S} segment${S === 1 ? '' : 's'}; raise plan.max_order, use more segments or loosen the accuracy`, locate(family, 'plan'));
   }
-  // Without a bracket the bound must isolate the root, as a float plan's must (isolated-root.ts).
-  certifyIsolatedCells(fam, set.cells, found.absoluteBound);
+  // Without a bracket the bound must isolate the root, as a float plan's must (isolated-root.ts);
+  // the fixed32 check's window is one result step wider than twice the bound (verify/fixed-judge.ts).
+  certifyIsolatedCells(fam, set.cells, found.absoluteBound, 2 ** -resultPoint);
   if (found.tableBytes > family.plan.maxTableBytes) {
     throw new RootcastError(`the ${S} segment tables need ${found.tableBytes} bytes, more than plan.max_table_bytes ${family.plan.maxTableBytes}; raise it or use fewer segments`, locate(family, 'plan.segments'));
   }
