@@ -15,7 +15,13 @@
  *               is the hint of the bisection's Newton shortcut);
  *   error       the distance from Y / 2^fr to the farther end of that cell,
  *               exact, then rounded up to a double: never less than the
- *               true error, and above it by at most 2^-40 of a result step.
+ *               true error, and above it by at most 2^-40 of a result step;
+ *   undecided   where the far end passes the bound and the near end does
+ *               not, the cell is bisected again on a grid 2^-64 finer, up to
+ *               4 times (a plan's bound can be within 2^-40 of a result step
+ *               of the true error: -1.6 s^3 - 1.7 s^2 + 3.6 s = x at raw
+ *               16240 with one result bit, whose bound exceeds the root by
+ *               3.8e-17, test/verify/fixed-judge.test.ts).
  * A point passes when that exact error is at most B. The worst point is the
  * first strict maximum; the first point without a sign change is kept.
  */
@@ -65,12 +71,32 @@ export function judgeFixedPoint(rule: FixedJudgeRule, raw: bigint, y: bigint): F
     lo = subFractions(yq, spread);
     hi = addFractions(yq, spread);
   }
-  const root = bisectRoot(c, lo, hi, Math.max(0, rule.resultBits + FIXED_REFERENCE_BITS), yq);
+  let s = Math.max(0, rule.resultBits + FIXED_REFERENCE_BITS);
+  let root = bisectRoot(c, lo, hi, s, yq);
   if (root === 'no-sign-change') return { kind: 'no-sign-change' };
-  const toLo = absFraction(subFractions(yq, root.lo));
-  const toHi = absFraction(subFractions(yq, root.hi));
-  const exact = compareFractions(toLo, toHi) >= 0 ? toLo : toHi;
-  return { kind: 'measured', exact, error: fractionToNumberUp(exact) };
+  let [near, far] = distances(yq, root);
+  // A cell whose far end passes the bound and whose near end does not leaves the point undecided
+  // (a bound can be tighter than the grid): the cell is bisected on a finer grid, a few times at most.
+  const bound = fractionOfNumber(rule.bound);
+  for (let round = 0; round < FIXED_REFINE_ROUNDS && compareFractions(far, bound) > 0 && compareFractions(near, bound) <= 0; round++) {
+    s += FIXED_REFINE_BITS;
+    const finer = bisectRoot(c, root.lo, root.hi, s, yq);
+    if (finer === 'no-sign-change') break;
+    root = finer;
+    [near, far] = distances(yq, root);
+  }
+  return { kind: 'measured', exact: far, error: fractionToNumberUp(far) };
+}
+
+/** Bits added to the grid per refinement of an undecided point, and the refinements at most (judgeFixedPoint). */
+export const FIXED_REFINE_BITS = 64;
+export const FIXED_REFINE_ROUNDS = 4;
+
+/** The distances from y to the nearer and to the farther end of the root's cell. */
+function distances(y: Fraction, root: { readonly lo: Fraction; readonly hi: Fraction }): [Fraction, Fraction] {
+  const toLo = absFraction(subFractions(y, root.lo));
+  const toHi = absFraction(subFractions(y, root.hi));
+  return compareFractions(toLo, toHi) >= 0 ? [toHi, toLo] : [toLo, toHi];
 }
 
 /** The running verdict of a fixed32 check. */

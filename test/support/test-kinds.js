@@ -38,6 +38,8 @@ const SLOW = [
   'test/plan/cost-floor.test.ts',
   // Plans ease-in-out-y's folded layouts in process to check the folded floor against them.
   'test/plan/folded-floor.test.ts',
+  // Plans and checks 60 random fixed32 families in process: about a minute.
+  'test/fixed/no-bracket-property.test.ts',
   'test/plan/first-plan.test.ts',
   // Sweeps two corpus specs' bracket check to its cell limit the plain way, for comparison: seconds on a busy machine.
   'test/plan/bracket-check-corpus.test.ts',

@@ -11,7 +11,7 @@
  */
 import { describe, expect, test } from '@jest/globals';
 import { Decimal } from 'decimal.js';
-import { FIXED_REFERENCE_BITS, fixedTallyPasses, judgeFixedPoint, newFixedTally, tallyFixedPoint, type FixedJudgeRule } from '../../src/verify/fixed-judge.js';
+import { FIXED_REFERENCE_BITS, FIXED_REFINE_BITS, fixedTallyPasses, judgeFixedPoint, newFixedTally, tallyFixedPoint, type FixedJudgeRule } from '../../src/verify/fixed-judge.js';
 import { visitFixedSamplePoints } from '../../src/verify/fixed-samples.js';
 import { fractionOfNumber, type Fraction } from '../../src/verify/fraction.js';
 
@@ -87,6 +87,65 @@ describe('judgeFixedPoint', () => {
     const u = newFixedTally();
     tallyFixedPoint(u, raw, judgeFixedPoint(rule(bound, false), raw, y + 400n), fractionOfNumber(bound));
     expect({ noSign: u.noSignChangeAt, pass: fixedTallyPasses(u, bound, 1e-3) }).toEqual({ noSign: raw, pass: false });
+  });
+});
+
+describe('judgeFixedPoint with a bound tighter than the reference grid', () => {
+  // -1.6 s^3 - 1.7 s^2 + 3.6 s - x = 0 at x = 16240 / 2^16, one result bit (a step of 1/2), Y = 0: found by
+  // test/fixed/no-bracket-property.test.ts, where the fixed32 plan's bound was 0.07140349779646347 and the
+  // root lies 3.8e-17 below it, far inside the first grid's 2^-41. The root by Newton's method in decimal.js
+  // at 60 digits (a general-purpose library, independent of the judge's exact fractions); mpmath's findroot
+  // at 50 digits gave 0.0714034977964634317987602381667... when this test was written.
+  const x = new D(16240).div(65536);
+  const p = (t: Decimal): Decimal => t.pow(3).mul('-1.6').minus(t.pow(2).mul('1.7')).plus(t.mul('3.6')).minus(x);
+  const dp = (t: Decimal): Decimal => t.pow(2).mul('-4.8').minus(t.mul('3.4')).plus('3.6');
+  let root = new D('0.07');
+  for (let i = 0; i < 12; i++) root = root.minus(p(root).div(dp(root)));
+  const cubic = (bound: number): FixedJudgeRule => ({
+    coefficients: (v) => {
+      const r = v[0]!;
+      return [
+        { num: -r.num, den: r.den },
+        { num: 36n, den: 10n },
+        { num: -17n, den: 10n },
+        { num: -16n, den: 10n },
+      ];
+    },
+    bracket: null,
+    inputBits: 16,
+    resultBits: 1,
+    bound,
+  });
+  const exactOf = (f: Fraction): Decimal => new D(f.num.toString()).div(f.den.toString());
+
+  test('the root lies below the bound by about 3.8e-17, less than the first grid step 2^-41', () => {
+    const gap = new D(0.07140349779646347).minus(root);
+    expect(gap.gt(0)).toBe(true);
+    expect(gap.lt('1e-16')).toBe(true);
+    expect(gap.lt(new D(2).pow(-41))).toBe(true);
+  });
+
+  test('the point is judged within the bound: the cell is refined until its far end is inside (before, 0.0714034977968 > the bound)', () => {
+    const j = judgeFixedPoint(cubic(0.07140349779646347), 16240n, 0n);
+    expect(j.kind).toBe('measured');
+    if (j.kind !== 'measured') return;
+    const exact = exactOf(j.exact);
+    // Never less than the true error, and within the refined grid of it.
+    expect(exact.gte(root)).toBe(true);
+    expect(exact.minus(root).lt(new D(2).pow(-(1 + FIXED_REFERENCE_BITS + FIXED_REFINE_BITS)))).toBe(true);
+    expect(exact.lte(new D(0.07140349779646347))).toBe(true);
+    const t = newFixedTally();
+    tallyFixedPoint(t, 16240n, j, fractionOfNumber(0.07140349779646347));
+    expect(fixedTallyPasses(t, 0.07140349779646347, 0.25)).toBe(true);
+  });
+
+  test('a bound just below the root still fails: refining never hides an error past the bound', () => {
+    const below = root.minus('1e-16').toNumber();
+    const j = judgeFixedPoint(cubic(below), 16240n, 0n);
+    expect(j.kind).toBe('measured');
+    const t = newFixedTally();
+    tallyFixedPoint(t, 16240n, j, fractionOfNumber(below));
+    expect(fixedTallyPasses(t, below, 0.25)).toBe(false);
   });
 });
 
