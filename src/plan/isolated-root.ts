@@ -58,11 +58,14 @@ export function certifyIsolatedCells(family: Family, cells: readonly CellFacts[]
   const reach = step > 0 ? '3 times the bound and a result step' : '3 times the bound';
   // fixed32 has no wider arithmetic; more result bits shrink the rounding part of the bound and the step.
   const first = family.fixed ? 'add fraction bits to fixed.result, use ' : widerAdvice(family, ', ') || 'use ';
-  throw new RootcastError(
+  throw new IsolationRefusal(
     `the certified bound ${short(B)} does not isolate the root for ${describeCell(family, failed)}: the slope P' can vanish within ${reach} of it where P can too, so another root may lie within the bound's reach and the value would not say which root it is near; ${first}a tighter accuracy.${kind}, or add root.bracket around the wanted root`,
     locate(family, `accuracy.${kind}`),
   );
 }
+
+/** The refusal of a bound that does not isolate its root (a quoted fix that meets it is worded apart: plan.ts confirmedFix). */
+export class IsolationRefusal extends RootcastError {}
 
 /** At most one root of P (coefficients c over the cell) in W, by the rule above. */
 function oneRootAtMost(c: readonly Interval[], W: Interval): boolean {

@@ -13,7 +13,7 @@ import type { Family } from '../family/types.js';
 import { boxOf, type Cell } from './box.js';
 import { certifyBracket } from './bracket-check.js';
 import { certifyOneRoot } from './one-root.js';
-import { certifyIsolatedRoot } from './isolated-root.js';
+import { certifyIsolatedRoot, IsolationRefusal } from './isolated-root.js';
 import { candidatesOf, refusedCandidate, withCandidates } from './candidates.js';
 import { locate } from './locate.js';
 import { applyOutsideBox } from './outside-box.js';
@@ -105,6 +105,8 @@ function confirmedFix(family: Family, refusal: QuotedFixRefusal, options: PlanOp
       return quote;
     } catch (e) {
       options.onQuoteCheck?.({ planned: false, firstPlanAt: null, units: workUsed() });
+      // The fix planned, but its bound reaches another root: loosening cannot help, and the refusal says what can.
+      if (e instanceof IsolationRefusal) return refusal.notIsolated;
       if (e instanceof QuotedFixRefusal && e.kind === 'floor' && quote.kind === 'floor' && e.best > quote.best) {
         quote = e.reword(family);
         continue;

@@ -153,6 +153,8 @@ export class QuotedFixRefusal extends RootcastError {
     readonly best: number,
     /** The same refusal, worded for another family (the spec as the user wrote it, when this one was met while checking a quote). */
     readonly reword: (family: Family) => QuotedFixRefusal,
+    /** The refusal without the quote when the fix plans but its bound does not isolate the root (isolated-root.ts): loosening cannot help then. */
+    readonly notIsolated: RootcastError = unquoted,
   ) {
     super(message, location);
   }
@@ -218,6 +220,10 @@ export function refuseFloor(family: Family, total: number, rounding: number, ste
     'floor',
     total,
     (f) => catchRefusal(() => refuseFloor(f, total, rounding, steps, tableBytes)),
+    new RootcastError(
+      `${head} (rounding alone ${short(rounding)}), and a looser accuracy.${kind} would not help: the plan that meets it has a bound that does not isolate the root (another root may lie within its reach); ${wider ? `use arithmetic: ${wider} or ` : ''}add root.bracket around the wanted root`,
+      at,
+    ),
   );
 }
 
