@@ -65,6 +65,10 @@ const family = fc
     return { text, what: `A=${r.a} B=${r.b} C=${r.c} x in [0, ${X}] result bits ${r.resultBits} target ${target}` };
   });
 
+/** ROOTCAST_FIXED_SEED and ROOTCAST_FIXED_RUNS draw another, longer sequence (a soak; CI runs the default). */
+const SEED = Number(process.env['ROOTCAST_FIXED_SEED'] ?? 20261219);
+const RUNS = Number(process.env['ROOTCAST_FIXED_RUNS'] ?? 60);
+
 function tryPlan(d: Drawn): FixedPlan | RootcastError {
   try {
     return makeFixedPlan(readSpec('random.yaml', d.text));
@@ -93,11 +97,11 @@ describe('random fixed32 families without a bracket', () => {
         expect(check.noSignChangeAt).toBeNull();
         expect(p.bound.total).toBeLessThanOrEqual(p.target);
       }),
-      { numRuns: 60, seed: 20261219, endOnFailure: true },
+      { numRuns: RUNS, seed: SEED, endOnFailure: true },
     );
     // Both outcomes occur, or the property says little (with c = 0 allowed, seed 20261219 gave 24 plans and
     // 36 refusals, 7 at the isolation check, two of which were checked by hand: a second root in the window).
-    expect(planned).toBeGreaterThanOrEqual(15);
-    expect(refused).toBeGreaterThanOrEqual(10);
-  }, 600_000);
+    expect(planned).toBeGreaterThanOrEqual(RUNS / 4);
+    expect(refused).toBeGreaterThanOrEqual(RUNS / 6);
+  }, 3_600_000);
 });
