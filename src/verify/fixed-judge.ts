@@ -41,6 +41,10 @@ import { bisectRoot, integerCoefficients } from './reference.js';
 /** Bits of the reference grid below the result's last fraction bit. */
 export const FIXED_REFERENCE_BITS = 40;
 
+/** Bits added to the grid per refinement of an undecided point, and the refinements at most (judgeFixedPoint). */
+export const FIXED_REFINE_BITS = 64;
+export const FIXED_REFINE_ROUNDS = 4;
+
 /** What judging a fixed32 point needs of the family, as exact data (the harness prints it as literals). */
 export interface FixedJudgeRule {
   /** The coefficients c0..c_degree at the exact input, from the spec's expressions. */
@@ -87,10 +91,6 @@ export function judgeFixedPoint(rule: FixedJudgeRule, raw: bigint, y: bigint): F
   }
   return { kind: 'measured', exact: far, error: fractionToNumberUp(far) };
 }
-
-/** Bits added to the grid per refinement of an undecided point, and the refinements at most (judgeFixedPoint). */
-export const FIXED_REFINE_BITS = 64;
-export const FIXED_REFINE_ROUNDS = 4;
 
 /** The distances from y to the nearer and to the farther end of the root's cell. */
 function distances(y: Fraction, root: { readonly lo: Fraction; readonly hi: Fraction }): [Fraction, Fraction] {
