@@ -16,7 +16,7 @@
  * and the end at fault.
  */
 import { RootcastError } from '../errors.js';
-import { iadd, imul, point, type Interval } from '../math/interval.js';
+import type { Interval } from '../math/interval.js';
 import { Rational } from '../math/rational.js';
 import { evalExprExact } from '../family/expr-eval.js';
 import type { Expr, Family } from '../family/types.js';
@@ -24,7 +24,7 @@ import { signAt } from '../series/recenter.js';
 import { describeCell, grid, short, split, widestDim, type Cell } from './box.js';
 import { rootEnclosure, type CellFacts } from './cell-bound.js';
 import { poleOver } from './coefficient-poles.js';
-import { decimalInterval, encloseExpr } from './expr-enclose.js';
+import { decimalInterval, enclosedCoefficients, hornerInterval } from './expr-enclose.js';
 import { locate } from './locate.js';
 import { CoefficientRanges, intersect } from './tight-range.js';
 import { boxCentre, noSignChange } from './root-choice.js';
@@ -64,8 +64,7 @@ export type EndVerdict = 'holds' | 'wrong' | 'unknown';
 export function endVerdict(c: readonly Interval[], cell: Cell, end: BracketEnd): EndVerdict {
   let v = c[0]!;
   if (!end.zero) {
-    let acc = c[c.length - 1]!;
-    for (let k = c.length - 2; k >= 0; k--) acc = iadd(imul(acc, end.at), c[k]!);
+    const acc = hornerInterval(c, end.at);
     v = holds(acc, end.sign) ? acc : intersect(acc, end.bernstein(cell));
   }
   if (holds(v, end.sign)) return 'holds';
@@ -243,7 +242,7 @@ export function certifyBracket(family: Family, box: Cell): void {
       for (let j = 0; j < 2; j++) {
         if (j === 0 ? bad & 1 : bad !== 0) continue;
         cell ??= cellAt(round, k, d);
-        c ??= family.coefficients.map((e) => (e === null ? point(0) : encloseExpr(e, cell!, family.constants)));
+        c ??= enclosedCoefficients(family, cell);
         const verdict = endVerdict(c, cell, ends[j]!);
         if (verdict === 'holds') continue;
         bad |= 1 << j;
@@ -342,9 +341,7 @@ export function plainRootAtCentre(family: Family, centre: CellFacts): void {
 function noZero(family: Family, cell: Cell, lo: number, hi: number, budget: { left: number }): boolean {
   const zeroFree = (x: Interval, inputs: Cell): boolean => {
     budget.left--;
-    const c = family.coefficients.map((e) => (e === null ? point(0) : encloseExpr(e, inputs, family.constants)));
-    let acc = c[c.length - 1]!;
-    for (let k = c.length - 2; k >= 0; k--) acc = iadd(imul(acc, x), c[k]!);
+    const acc = hornerInterval(enclosedCoefficients(family, inputs), x);
     return acc.lo > 0 || acc.hi < 0;
   };
   let parts: { x: Interval; inputs: Cell }[] = [{ x: { lo, hi }, inputs: cell }];

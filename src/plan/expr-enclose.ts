@@ -91,10 +91,10 @@ export function enclosedCoefficients(family: Family, cell: Cell): Interval[] {
   return family.coefficients.map((e) => (e === null ? point(0) : encloseExpr(e, cell, family.constants)));
 }
 
-/** P(x) = sum_k c_k x^k over X, by Horner's rule in outward-rounded intervals, from enclosed coefficients. */
-export function hornerValue(c: readonly Interval[], X: Interval): Interval {
-  let acc = point(0);
-  for (let k = c.length - 1; k >= 0; k--) acc = iadd(imul(acc, X), c[k]!);
+/** Horner's rule in outward-rounded intervals: sum_k c_k x^k. */
+export function hornerInterval(coeffs: readonly Interval[], x: Interval): Interval {
+  let acc = coeffs[coeffs.length - 1]!;
+  for (let k = coeffs.length - 2; k >= 0; k--) acc = iadd(imul(acc, x), coeffs[k]!);
   return acc;
 }
 

@@ -45,7 +45,7 @@ import { COST_MODELS, costModelFor, programCost } from '../ir/cost/index.js';
 import { signAt } from '../series/recenter.js';
 import type { SegmentLayout } from './segments.js';
 import { segmentInvHalf, segmentMids } from './economise.js';
-import { hornerInterval } from './result-bound.js';
+import { hornerInterval } from './expr-enclose.js';
 import { bisectFloat, hornerFloat } from './root-choice.js';
 import { REFINE } from './tuning.js';
 

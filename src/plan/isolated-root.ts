@@ -29,7 +29,7 @@ import { containsZero, type Interval } from '../math/interval.js';
 import type { Family } from '../family/types.js';
 import { describeCell, hullOf, short, type Cell } from './box.js';
 import type { CellFacts } from './cell-bound.js';
-import { enclosedCoefficients, hornerSlope, hornerValue } from './expr-enclose.js';
+import { enclosedCoefficients, hornerInterval, hornerSlope } from './expr-enclose.js';
 import { locate } from './locate.js';
 import { widerAdvice } from './refusals.js';
 import { ISOLATED_ROOT } from './tuning.js';
@@ -76,7 +76,7 @@ function oneRootAtMost(c: readonly Interval[], W: Interval): boolean {
   while (pending.length > 0) {
     const X = pending.pop()!;
     spend(ISOLATED_ROOT.pieceUnits);
-    if (!containsZero(hornerValue(c, X))) continue;
+    if (!containsZero(hornerInterval(c, X))) continue;
     const d = hornerSlope(c, X);
     const s = containsZero(d) ? 0 : d.lo > 0 ? 1 : -1;
     if (s !== 0 && (sign === 0 || s === sign)) {

@@ -45,7 +45,7 @@ import { nextDown, nextUp, Rational } from '../math/rational.js';
 import type { Family } from '../family/types.js';
 import { describeCell, hullOf, split, widestDim, type Cell } from './box.js';
 import { poleOver } from './coefficient-poles.js';
-import { encloseExpr } from './expr-enclose.js';
+import { enclosedCoefficients, hornerInterval } from './expr-enclose.js';
 import { CoefficientRanges, intersect } from './tight-range.js';
 import { locate } from './locate.js';
 import { refuseWitnessed } from './one-root-witness.js';
@@ -169,7 +169,7 @@ function frameOf(family: Family, midpoint: boolean): Frame {
  * coefficients are enclosed over the cell once, for both.
  */
 function verdictOf(family: Family, cell: Cell, zero: Frame, midpoint: () => Frame | null): CellVerdict {
-  const raw = family.coefficients.map((e) => (e === null ? point(0) : encloseExpr(e, cell, family.constants)));
+  const raw = enclosedCoefficients(family, cell);
   if (raw.some((v) => !(v.lo > -Infinity && v.hi < Infinity))) {
     // A coefficient's pole in the cell is refused at its division by the planner's cell checks.
     return family.coefficients.some((e) => e !== null && poleOver(e, cell, family.constants) !== null) ? 'pole' : 'overflow';
@@ -260,8 +260,8 @@ function cellVerdict(cell: Cell, raw: readonly Interval[], frame: Frame): CellVe
     const s = slopeSign(bernsteinRange(side.dp, [origin], [w])) || jointSlopeSign(cell, frame, lo, hi);
     if (s !== 0) {
       // Monotone on the piece: a root only where Q at its ends can differ in sign.
-      const atLo = hornerAt(c, lo);
-      const atHi = hornerAt(c, hi);
+      const atLo = hornerInterval(c, point(lo));
+      const atHi = hornerInterval(c, point(hi));
       if ((atLo.lo > 0 && atHi.lo > 0) || (atLo.hi < 0 && atHi.hi < 0)) continue;
       if (sign !== 0 && s !== sign) return unproved;
       sign = s;
@@ -295,11 +295,4 @@ function jointSlopeSign(cell: Cell, frame: Frame, lo: number, hi: number): numbe
 /** The univariate Bernstein input of coefficient enclosures (index = power). */
 function tensorOf(c: readonly Interval[]): IntervalTensor {
   return IntervalTensor.univariate(Float64Array.from(c, (v) => v.lo), Float64Array.from(c, (v) => v.hi));
-}
-
-function hornerAt(c: readonly Interval[], x: number): Interval {
-  const at = point(x);
-  let acc = c[c.length - 1]!;
-  for (let k = c.length - 2; k >= 0; k--) acc = iadd(imul(acc, at), c[k]!);
-  return acc;
 }

@@ -14,7 +14,7 @@
  * a lower bound of |y*| over the cell: the mignitude of result over C x J*.
  */
 import { addUp, divUp, mulUp, subDown } from '../math/directed.js';
-import { iadd, imul, mag, mig, point, type Interval } from '../math/interval.js';
+import { mag, mig, point, type Interval } from '../math/interval.js';
 import { analyseFlat, largestComputedFlat } from '../ir/analyse.js';
 import type { Program } from '../ir/nodes.js';
 import { ARITHMETICS } from '../family/arithmetic.js';
@@ -22,7 +22,7 @@ import { derivativePowers } from '../family/result-powers.js';
 import type { Expr, Family, ResultSpec } from '../family/types.js';
 import type { Cell } from './box.js';
 import type { CellFacts } from './cell-bound.js';
-import { encloseExpr } from './expr-enclose.js';
+import { encloseExpr, hornerInterval } from './expr-enclose.js';
 import { OVERFLOW_HEADROOM } from './tuning.js';
 
 /** One cell's facts for the result, independent of the root's budget but for J's widening. */
@@ -45,13 +45,6 @@ export interface ResultEvaluation {
   /** Largest slope bound over the cells. */
   readonly slope: number;
   readonly cells: readonly ResultCell[];
-}
-
-/** Horner's rule in outward-rounded intervals: sum_k c_k x^k. */
-export function hornerInterval(coeffs: readonly Interval[], x: Interval): Interval {
-  let acc = coeffs[coeffs.length - 1]!;
-  for (let k = coeffs.length - 2; k >= 0; k--) acc = iadd(imul(acc, x), coeffs[k]!);
-  return acc;
 }
 
 

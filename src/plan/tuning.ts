@@ -299,9 +299,10 @@ export const ISOLATED_ROOT = {
   /** Work units per piece of the window where P' over the whole window may vanish: two Horner passes. */
   pieceUnits: 4,
   /**
-   * Pieces at most per cell: the window cut so that each piece holds no root
-   * or keeps P' of one sign. 64 halvings reach 1/64 of the window at most
-   * (a second root within that of the critical point is not told apart).
+   * Pieces at most per cell (each halving adds one): the window cut so that
+   * each piece holds no root or keeps P' of one sign. It bounds the work on a
+   * cell whose window holds a second root or a double one, where the halving
+   * would not end; past it the cell is refused.
    */
   maxPieces: 64,
 } as const;
