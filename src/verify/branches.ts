@@ -12,8 +12,15 @@
  * (Mnemonics as the GNU objdump prints them; the Arm condition codes are those
  * of the Arm v7-M Architecture Reference Manual, section A7.3.) An
  * unconditional jump inside straight-line code would be a tail call or a
- * loop, so it is counted too. Predicated Thumb instructions after an IT are
- * not branches: they take their slot whether or not they execute.
+ * loop, so it is counted too, with one exception on Arm: a forward `b`
+ * whose target is the instruction right after a literal pool, with nothing
+ * between but the pool's words and alignment `nop`s, is the assembler's way
+ * past constants placed mid-function (Thumb-1 loads a literal within 1020
+ * bytes of the load, so a long Cortex-M0 function carries a pool inside it).
+ * It is taken on every call, so it costs the same time every call; it is
+ * counted apart (`poolJumps`), and the words and nops it skips are not
+ * instructions. Predicated Thumb instructions after an IT are not branches:
+ * they take their slot whether or not they execute.
  */
 import { spawnSync } from 'node:child_process';
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
@@ -49,6 +56,8 @@ export interface BranchCount {
   readonly conditionalBranches: number;
   readonly calls: number;
   readonly jumps: number;
+  /** Arm jumps past a mid-function literal pool (taken on every call; not counted in `jumps`). */
+  readonly poolJumps: number;
   /** The offending lines as objdump printed them, for failure messages. */
   readonly offending: readonly string[];
 }
@@ -108,19 +117,52 @@ export function countBranches(disassembly: string, functionName: string, target:
   let conditionalBranches = 0;
   let calls = 0;
   let jumps = 0;
+  let poolJumps = 0;
   const offending: string[] = [];
-  for (const line of functionLines(disassembly, functionName)) {
+  const lines = functionLines(disassembly, functionName);
+  for (let i = 0; i < lines.length; i++) {
+    const line = lines[i]!;
     const m = mnemonicOf(line, target);
     if (m === null) continue;
     instructions++;
     const kind = classify(target, m);
     if (kind === 'other') continue;
+    if (kind === 'jump' && target !== 'x86-64') {
+      const past = poolEnd(lines, i);
+      if (past !== null) {
+        poolJumps++;
+        i = past - 1;
+        continue;
+      }
+    }
     offending.push(line.trim());
     if (kind === 'conditional') conditionalBranches++;
     else if (kind === 'call') calls++;
     else jumps++;
   }
-  return { instructions, conditionalBranches, calls, jumps, offending };
+  return { instructions, conditionalBranches, calls, jumps, poolJumps, offending };
+}
+
+/**
+ * When the Arm jump at lines[at] goes forward past a literal pool (only data
+ * words and alignment nops between it and its target, at least one word),
+ * the index of the target's line; otherwise null.
+ */
+function poolEnd(lines: readonly string[], at: number): number | null {
+  const to = /^\s*[0-9a-f]+:\tb(?:\.n|\.w)?\t([0-9a-f]+) /.exec(lines[at]!);
+  if (!to) return null;
+  const dest = parseInt(to[1]!, 16);
+  let words = 0;
+  for (let k = at + 1; k < lines.length; k++) {
+    const address = /^\s*([0-9a-f]+):/.exec(lines[k]!);
+    if (!address) return null;
+    if (parseInt(address[1]!, 16) === dest) return words > 0 ? k : null;
+    const fields = lines[k]!.split('\t');
+    const op = (fields[1] ?? '').trim();
+    if (op === '.word' || op === '.short') words++;
+    else if (op !== 'nop') return null;
+  }
+  return null;
 }
 
 /** True when the target's compiler and objdump both run. */

@@ -63,6 +63,11 @@ export function checkFixedBranches(header: { path: string; text: string }, name:
 
 export function formatFixedBranchLine(name: string, reports: readonly FixedBranchReport[]): string {
   const bad = reports.some((r) => r.count.conditionalBranches + r.count.calls + r.count.jumps > 0);
-  const parts = reports.map((r) => `${r.label}: ${r.count.conditionalBranches} conditional branches, ${r.count.calls} calls, ${r.count.instructions} instructions`);
+  const parts = reports.map((r) => {
+    const c = r.count;
+    const jumps = c.jumps > 0 ? `, ${c.jumps} ${c.jumps === 1 ? 'jump' : 'jumps'}` : '';
+    const pools = c.poolJumps > 0 ? `, ${c.poolJumps} ${c.poolJumps === 1 ? 'jump' : 'jumps'} past a literal pool (taken every call)` : '';
+    return `${r.label}: ${c.conditionalBranches} conditional branches, ${c.calls} calls${jumps}, ${c.instructions} instructions${pools}`;
+  });
   return `branches ${name}: ${parts.join('; ')} ${bad ? 'FAIL' : 'PASS'}`;
 }

@@ -9,6 +9,7 @@
  */
 import { describe, expect, test } from '@jest/globals';
 import { compileAndCount, countBranches, formatBranchLine, mnemonicOf } from '../../src/verify/branches.js';
+import { countFixedCore, hasCore } from '../../src/verify/fixed-branches.js';
 
 // Shaped like objdump -d --no-show-raw-insn output (real lines from gcc 12 and arm-none-eabi-gcc 12 objects).
 const X86_DUMP = `
@@ -68,6 +69,32 @@ describe('countBranches', () => {
     expect(c.offending).toContain('e:\tbl\t0 <sqrtf>');
   });
 
+  test('cortex-m0: a forward b.n past a literal pool (only words and an alignment nop between) is a pool jump, not a jump; other b.n are jumps', () => {
+    // Lines of arm-none-eabi-gcc 12's -O2 Cortex-M0 code for a long straight-line function (a Pt1000 fixed32 plan of degree 9).
+    const dump = [
+      '',
+      '00000000 <rc_probe>:',
+      ' 3f6:\tadd\tr4, ip',
+      ' 3f8:\tb.n\t404 <rc_probe+0x404>',
+      ' 3fa:\tnop\t\t\t@ (mov r8, r8)',
+      ' 3fc:\t.word\t0xf66b970a',
+      ' 400:\t.word\t0x0000eaa0',
+      ' 404:\tlsls\tr5, r4, #16',
+      ' 406:\tb.n\t40c <rc_probe+0x40c>',
+      ' 408:\tmuls\tr5, r2',
+      ' 40a:\t.word\t0x00004cf8',
+      ' 40c:\tb.n\t410 <rc_probe+0x410>',
+      ' 40e:\tnop',
+      ' 410:\tb.n\t3f6 <rc_probe+0x3f6>',
+      ' 412:\tbx\tlr',
+      '',
+    ].join('\n');
+    const c = countBranches(dump, 'rc_probe', 'cortex-m4f');
+    // The pool jump at 3f8 skips a nop and two words; 406 skips an instruction, 40c no word, 410 goes back.
+    expect(c).toMatchObject({ instructions: 9, conditionalBranches: 0, calls: 0, jumps: 3, poolJumps: 1 });
+    expect(c.offending).toEqual(['406:\tb.n\t40c <rc_probe+0x40c>', '40c:\tb.n\t410 <rc_probe+0x410>', '410:\tb.n\t3f6 <rc_probe+0x3f6>']);
+  });
+
   test('mnemonics skip x86 prefixes and ignore data words', () => {
     expect(mnemonicOf('  2c:\trep ret', 'x86-64')).toBe('ret');
     expect(mnemonicOf('  1c:\t.word\t0x40395fae', 'cortex-m4f')).toBeNull();
@@ -78,7 +105,7 @@ describe('countBranches', () => {
   });
 
   test('the verify line names both targets and says FAIL when any is found', () => {
-    const clean = { instructions: 9, conditionalBranches: 0, calls: 0, jumps: 0, offending: [] };
+    const clean = { instructions: 9, conditionalBranches: 0, calls: 0, jumps: 0, poolJumps: 0, offending: [] };
     const line = formatBranchLine('f', [
       { target: 'x86-64', count: clean },
       { target: 'cortex-m4f', count: { ...clean, calls: 1 } },
@@ -110,5 +137,27 @@ describe.each(['x86-64', 'cortex-m4f'] as const)('compiled code on %s', (target)
     const c = compileAndCount(BRANCHY, 'line', target);
     expect(c.instructions).toBeGreaterThan(1);
     expect(c).toMatchObject({ conditionalBranches: 0, calls: 0, jumps: 0 });
+  });
+});
+
+// 200 multiply-adds with distinct 32-bit constants: Thumb-1 loads each from a
+// literal pool within 1020 bytes of the load, so gcc places pools inside the
+// function and jumps past them (the Cortex-M0's instruction set, Armv6-M).
+const LONG = [
+  '#include <stdint.h>',
+  'static inline int32_t poolfn(int32_t x)',
+  '{',
+  ...Array.from({ length: 200 }, (_, i) => `    x = (int32_t)((uint32_t)x * ${(0x9e3779b1 * (i + 1)) % 2 ** 32 | 1}u + ${(0x7f4a7c15 * (i + 3)) % 2 ** 32}u);`),
+  '    return x;',
+  '}',
+  '',
+].join('\n');
+
+describe('a long Cortex-M0 function with mid-function literal pools', () => {
+  test('its jumps past the pools are counted apart, and it has no other branch, call or jump', () => {
+    if (!hasCore('cortex-m0')) throw new Error('arm-none-eabi-gcc is missing (apt-get install gcc-arm-none-eabi)');
+    const c = countFixedCore({ path: 'long.h', text: LONG }, 'poolfn', 1, 'cortex-m0');
+    expect(c.poolJumps).toBeGreaterThanOrEqual(1);
+    expect(c).toMatchObject({ conditionalBranches: 0, calls: 0, jumps: 0, offending: [] });
   });
 });

@@ -37,6 +37,7 @@ import { chebyshevInW, degreeFor, economisedAt } from './economise-w.js';
 import { fixedLayout, rawBox, rawNumber, type FixedLayout } from './layout.js';
 import { fixedHorner, ResultRangeError } from './program.js';
 import { resultFloor } from './result-floor.js';
+import { confirmedFloorQuote, FinalRefusal, FixedFloorRefusal } from './floor-quote.js';
 import { checkWork, startWork, WorkLimitError } from '../work.js';
 
 export interface FixedBound {
@@ -74,11 +75,23 @@ export interface FixedPlan {
   readonly cells: number;
 }
 
-/** A refusal that no other segment count can lift (the shape of the family, the result format, the rounding floor). */
-class FinalRefusal extends RootcastError {}
-
-
+/**
+ * The fixed32 plan of the family, or a one-line refusal. A rounding-floor
+ * refusal quotes the best certified error only when the family with that
+ * target plans (floor-quote.ts); the check plans it as the user's next run
+ * would, to its first plan, which that run keeps (below).
+ */
 export function makeFixedPlan(family: Family): FixedPlan {
+  try {
+    return planFixed(family, false);
+  } catch (e) {
+    if (e instanceof FixedFloorRefusal) throw confirmedFloorQuote(family, e, (edited) => planFixed(edited, true));
+    throw e;
+  }
+}
+
+/** `firstPlanOnly`: stop at the first segment count that plans (a quote's check: the full run keeps a plan once it has one). */
+function planFixed(family: Family, firstPlanOnly: boolean): FixedPlan {
   const fixed = family.fixed;
   if (!fixed) throw new Error('makeFixedPlan needs a fixed32 family');
   // One work count per plan, as makePlan starts one (src/plan/work.ts): what an earlier plan of the process spent is not this plan's.
@@ -120,6 +133,7 @@ export function makeFixedPlan(family: Family): FixedPlan {
   for (const count of counts) {
     try {
       const p = planWith(family, fam, raw, fixedLayout(raw.lo, raw.hi, bits, count));
+      if (firstPlanOnly) return p;
       if (!best || p.cost < best.cost) {
         best = p;
         stale = 0;
@@ -132,7 +146,8 @@ export function makeFixedPlan(family: Family): FixedPlan {
         refuseWorkLimit(family);
       }
       if (!(e instanceof RootcastError)) throw e;
-      if (e instanceof FinalRefusal) throw e;
+      // A plan found stands whatever a later count meets (a quote's check stops at it).
+      if (e instanceof FinalRefusal && !best) throw e;
       firstError ??= e;
       if (best && ++stale >= FIXED_PLAN.staleCounts) break;
     }
@@ -211,7 +226,9 @@ function planWith(family: Family, fam: Family, raw: { lo: bigint; hi: bigint }, 
   const target = family.accuracy.value.toNumber();
   const resultPoint = family.fixed!.result;
   let found: FixedPlan | null = null;
+  // The least rounding part and the least certified error of the candidates (a floor refusal's figures).
   let floor = Infinity;
+  let least = Infinity;
   for (let order = 0; order <= family.plan.maxOrder && !found; order++) {
     if (!termsUpTo(order)) break;
     let trunc = set.truncation(order, false);
@@ -261,6 +278,7 @@ function planWith(family: Family, fam: Family, raw: { lo: bigint; hi: bigint }, 
           parts.total = Math.max(parts.total, addUp(addUp(t, x), r));
         });
         floor = Math.min(floor, parts.rounding);
+        least = Math.min(least, parts.total);
         if (parts.total > target) continue;
         const ops = countFixed(built.program);
         const tableBytes = built.program.nodes.reduce((sum, node) => sum + (node.kind === 'table' ? 4 * node.values.length : 0), 0);
@@ -291,10 +309,7 @@ function planWith(family: Family, fam: Family, raw: { lo: bigint; hi: bigint }, 
   }
   if (!found) {
     if (floor > target * FIXED_PLAN.truncationShare && Number.isFinite(floor)) {
-      throw new FinalRefusal(
-        `the target ${family.accuracy.value} is below the fixed32 rounding floor of this plan (rounding alone ${floor.toExponential(2)}; the result's last bit is 2^-${resultPoint}); add fraction bits to fixed.result or loosen the accuracy`,
-        locate(family, 'accuracy.absolute'),
-      );
+      throw new FixedFloorRefusal(family.accuracy.value, least, floor, resultPoint, locate(family, 'accuracy.absolute'));
     }
     throw new RootcastError(`no fixed32 plan up to order ${family.plan.maxOrder} meets the target with ${S} segment${S === 1 ? '' : 's'}; raise plan.max_order, use more segments or loosen the accuracy`, locate(family, 'plan'));
   }

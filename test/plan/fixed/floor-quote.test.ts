@@ -1,0 +1,109 @@
+/**
+ * plan/fixed/floor-quote.ts: a fixed32 rounding-floor refusal quotes the best
+ * certified error only when the spec with that target plans (issue 10 item
+ * 5: a floor a refusal quotes must work when the user applies it). Before,
+ * the refusal named "rounding alone 8.92e-6" for the Pt1000 example at 8e-6,
+ * and a user who set 8.92e-6 or 9e-6 got the same refusal again.
+ *
+ * Outside references: the Pt1000 example's equation is the Callendar-Van
+ * Dusen equation of IEC 60751 (R0 = 1000 ohm, A = 3.9083e-3,
+ * B = -5.775e-7), solved by the quadratic formula in decimal.js (60 digits);
+ * the quoted plan's program, evaluated exactly in BigInt, is measured
+ * against it, and against the exact check (src/verify/fixed-check.ts). The
+ * near-pair family s (s - 1)^2 = x has, by calculus (by hand), three real
+ * roots for 0 < x < 4/27, two of them above s = 1/3 (isolated-root-fixed.test.ts
+ * has its mathjs roots); with one result bit its plans' bounds reach them.
+ */
+import { describe, expect, test } from '@jest/globals';
+import { Decimal } from 'decimal.js';
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { RootcastError } from '../../../src/errors.js';
+import { evaluateFixed } from '../../../src/ir/fixed/evaluate.js';
+import { makeFixedPlan } from '../../../src/plan/fixed/plan-fixed.js';
+import { readSpec } from '../../../src/reader/read.js';
+import { checkFixedInProcess } from '../../../src/verify/fixed-check.js';
+import { checkFixedBranches, formatFixedBranchLine } from '../../../src/verify/fixed-branches.js';
+import { fixedFiles, fixedEmitInputOf } from '../../../src/cli/fixed/pipeline.js';
+import { REPO_ROOT } from '../../examples/support/repo.js';
+
+const D = Decimal.clone({ precision: 60 });
+// plan.max_order 20 keeps the climb past the floor short (the default, 40, climbs every order up to it first: about 8 s of CLI time).
+const TEXT = readFileSync(join(REPO_ROOT, 'examples/fixed32/pt1000-celsius.yaml'), 'utf8').replace('root:', 'plan:\n  max_order: 20\nroot:');
+const withTarget = (t: string): string => TEXT.replace('  absolute: 0.001', `  absolute: ${t}`);
+
+/** IEC 60751 inverted by the quadratic formula: T = (-A + sqrt(A^2 - 4 B (1 - R / R0))) / (2 B). */
+function celsius(r: Decimal): Decimal {
+  const A = new D('3.9083e-3');
+  const B = new D('-5.775e-7');
+  const c = new D(1).minus(r.div(1000));
+  return A.neg().plus(A.pow(2).minus(B.times(4).times(c)).sqrt()).div(B.times(2));
+}
+
+function refusalOf(plan: () => unknown): RootcastError {
+  try {
+    plan();
+  } catch (e) {
+    if (e instanceof RootcastError) return e;
+    throw e;
+  }
+  throw new Error('planned');
+}
+
+const QUOTE = /^the target (\S+) is below the fixed32 rounding floor of this plan: the best certified absolute error is (\S+) \(rounding alone (\S+); the result's last bit is 2\^-16\); set accuracy\.absolute: (\S+) or looser, or add fraction bits to fixed\.result$/;
+
+describe('the fixed32 floor refusal quotes a target that plans', () => {
+  const refused = refusalOf(() => makeFixedPlan(readSpec('pt.yaml', withTarget('8e-6'))));
+  const m = QUOTE.exec(refused.message);
+
+  test('Pt1000 at 8e-6: one located line at accuracy.absolute quoting the best certified error, above the rounding it names', () => {
+    expect(m).not.toBeNull();
+    expect(refused.location).toMatchObject({ file: 'pt.yaml', field: 'accuracy.absolute' });
+    expect(refused.toLine().split('\n')).toHaveLength(1);
+    const [, target, best, rounding, set] = m!;
+    expect(target).toBe('8e-6');
+    expect(set).toBe(best);
+    expect(Number(best)).toBeGreaterThan(Number(rounding));
+    expect(Number(rounding)).toBeGreaterThan(8e-6 / 2);
+  });
+
+  test('the quoted target plans, its bound within it, and the program meets IEC 60751 within the bound at 513 raw inputs', () => {
+    const quoted = m![4]!;
+    const plan = makeFixedPlan(readSpec('pt.yaml', withTarget(quoted)));
+    expect(plan.bound.total).toBeLessThanOrEqual(Number(quoted));
+    let worst = new D(0);
+    for (let j = 0; j <= 512; j++) {
+      const raw = plan.rawLo + ((plan.rawHi - plan.rawLo) * BigInt(j)) / 512n;
+      const y = evaluateFixed(plan.program, [raw], true);
+      const err = new D(y.toString()).div(65536).minus(celsius(new D(raw.toString()).div(65536))).abs();
+      if (err.gt(worst)) worst = err;
+    }
+    expect(worst.toNumber()).toBeLessThanOrEqual(plan.bound.total);
+    const check = checkFixedInProcess({ family: plan.family, program: plan.program, rawLo: plan.rawLo, rawHi: plan.rawHi, bound: plan.bound.total, target: plan.target }, 300, 1);
+    expect(check.pass).toBe(true);
+    // Its C is long enough for gcc to place a literal pool inside the Cortex-M0 function and jump past it
+    // (verify once said FAIL there, src/verify/branches.ts): still no conditional branch, call or other jump on any core.
+    const header = fixedFiles(fixedEmitInputOf(plan), ['c'], { harness: false }).find((f) => f.path.endsWith('.h'))!;
+    const reports = checkFixedBranches({ path: header.path, text: header.text }, 'pt1000_celsius', 1);
+    expect(reports.map((r) => r.core)).toEqual(['cortex-m0', 'cortex-m3', 'x86-64']);
+    expect(formatFixedBranchLine('pt1000_celsius', reports)).toMatch(/ PASS$/);
+  });
+
+  test('the rounding it names as a target is still refused (why the quote is the best certified error, not the rounding)', () => {
+    const rounding = m![3]!;
+    const again = refusalOf(() => makeFixedPlan(readSpec('pt.yaml', withTarget(rounding))));
+    expect(again.message).toMatch(/below the fixed32 rounding floor of this plan: the best certified absolute error is /);
+  });
+
+  test('near pair, one result bit, target 0.1: the plan a looser target finds does not isolate the root, and the refusal says loosening cannot help', () => {
+    const text = [
+      'function: near_pair', 'unknown: s', 'degree: 3', 'coefficients:', '  0: -x', '  1: 1', '  2: -2', '  3: 1',
+      'inputs:', '  x: [0, 0.1]', 'accuracy:', '  absolute: 0.1', 'arithmetic: fixed32', 'fixed:', '  inputs:', '    x: 16', '  result: 1', '',
+    ].join('\n');
+    const e = refusalOf(() => makeFixedPlan(readSpec('near-pair.yaml', text)));
+    expect(e.location).toMatchObject({ field: 'accuracy.absolute', line: 12 });
+    expect(e.message).toMatch(/^the target 0\.1 is below the fixed32 rounding floor of this plan \(rounding alone \S+; the result's last bit is 2\^-1\), and a looser accuracy\.absolute would not help: .* does not isolate the root .*; add fraction bits to fixed\.result or add root\.bracket around the wanted root$/);
+    // A looser target plans to a bound that the isolation proof refuses (isolated-root-fixed.test.ts has the window).
+    expect(refusalOf(() => makeFixedPlan(readSpec('near-pair.yaml', text.replace('absolute: 0.1', 'absolute: 0.3')))).message).toMatch(/does not isolate the root/);
+  });
+});
