@@ -41,7 +41,7 @@ const SLOW = [
   // Plans and checks 60 random fixed32 families in process: about a minute.
   'test/fixed/no-bracket-property.test.ts',
   // Plans the Pt1000 example's quoted floor with every auto segment count in process: half a minute under jest.
-  'test/plan/fixed/floor-quote.test.ts',
+  'test/plan/fixed/quoted-fixes.test.ts',
   'test/plan/first-plan.test.ts',
   // Sweeps two corpus specs' bracket check to its cell limit the plain way, for comparison: seconds on a busy machine.
   'test/plan/bracket-check-corpus.test.ts',

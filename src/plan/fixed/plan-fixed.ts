@@ -37,7 +37,7 @@ import { chebyshevInW, degreeFor, economisedAt } from './economise-w.js';
 import { fixedLayout, rawBox, rawNumber, type FixedLayout } from './layout.js';
 import { fixedHorner, ResultRangeError } from './program.js';
 import { resultFloor } from './result-floor.js';
-import { confirmedFloorQuote, FinalRefusal, FixedFloorRefusal } from './floor-quote.js';
+import { confirmedFloorQuote, confirmedOrderQuote, FinalRefusal, FixedFloorRefusal, FixedOrderRefusal } from './quoted-fixes.js';
 import { checkWork, startWork, WorkLimitError } from '../work.js';
 
 export interface FixedBound {
@@ -78,7 +78,7 @@ export interface FixedPlan {
 /**
  * The fixed32 plan of the family, or a one-line refusal. A rounding-floor
  * refusal quotes the best certified error only when the family with that
- * target plans (floor-quote.ts); the check plans it as the user's next run
+ * target plans (quoted-fixes.ts); the check plans it as the user's next run
  * would, to its first plan, which that run keeps (below).
  */
 export function makeFixedPlan(family: Family): FixedPlan {
@@ -86,16 +86,21 @@ export function makeFixedPlan(family: Family): FixedPlan {
     return planFixed(family, false);
   } catch (e) {
     if (e instanceof FixedFloorRefusal) throw confirmedFloorQuote(family, e, (edited) => planFixed(edited, true));
+    if (e instanceof FixedOrderRefusal) throw confirmedOrderQuote(family, e, (edited, limit) => planFixed(edited, true, limit));
     throw e;
   }
 }
 
-/** `firstPlanOnly`: stop at the first segment count that plans (a quote's check: the full run keeps a plan once it has one). */
-function planFixed(family: Family, firstPlanOnly: boolean): FixedPlan {
+/**
+ * `firstPlanOnly`: stop at the first segment count that plans (a quote's
+ * check: the full run keeps a plan once it has one); `workLimit`: the
+ * count's units (a quote's search for the order may use less).
+ */
+function planFixed(family: Family, firstPlanOnly: boolean, workLimit: number = FIXED_PLAN.workLimit): FixedPlan {
   const fixed = family.fixed;
   if (!fixed) throw new Error('makeFixedPlan needs a fixed32 family');
   // One work count per plan, as makePlan starts one (src/plan/work.ts): what an earlier plan of the process spent is not this plan's.
-  startWork(null, FIXED_PLAN.workLimit);
+  startWork(null, workLimit);
   if (family.inputs.length !== 1) {
     throw new RootcastError(
       `fixed32 plans take one input (the series collapsed to a polynomial in it); this spec has ${family.inputs.length}: use float32 or float64, or make the others constants`,
@@ -129,6 +134,8 @@ function planFixed(family: Family, firstPlanOnly: boolean): FixedPlan {
   const counts: readonly number[] = knob !== 'auto' ? [knob] : family.bracket ? FIXED_PLAN.autoSegments : [1];
   let best: FixedPlan | null = null;
   let firstError: RootcastError | null = null;
+  // Whether every count tried was refused for its order (the refusal then speaks of all of them).
+  let onlyOrders = true;
   let stale = 0;
   for (const count of counts) {
     try {
@@ -149,10 +156,11 @@ function planFixed(family: Family, firstPlanOnly: boolean): FixedPlan {
       // A plan found stands whatever a later count meets (a quote's check stops at it).
       if (e instanceof FinalRefusal && !best) throw e;
       firstError ??= e;
+      onlyOrders &&= e instanceof FixedOrderRefusal;
       if (best && ++stale >= FIXED_PLAN.staleCounts) break;
     }
   }
-  if (!best) throw firstError!;
+  if (!best) throw onlyOrders && counts.length > 1 && firstError instanceof FixedOrderRefusal ? firstError.overAllCounts() : firstError!;
   return best;
 }
 
@@ -229,15 +237,19 @@ function planWith(family: Family, fam: Family, raw: { lo: bigint; hi: bigint }, 
   // The least rounding part and the least certified error of the candidates (a floor refusal's figures).
   let floor = Infinity;
   let least = Infinity;
+  // The highest order whose terms were found (the terms limit can end the climb before plan.max_order).
+  let reached = -1;
   for (let order = 0; order <= family.plan.maxOrder && !found; order++) {
     if (!termsUpTo(order)) break;
+    reached = order;
     let trunc = set.truncation(order, false);
     if (trunc > target * FIXED_PLAN.refineAbove && trunc < target * FIXED_PLAN.refineBelow) {
       set.refineWorst(order, false, LIMITS.cells);
       trunc = set.truncation(order, false);
     }
     if (trunc > target * FIXED_PLAN.truncationShare) continue;
-    for (let n = order; n <= order + FIXED_PLAN.extraOrders; n++) {
+    // plan.max_order bounds the series order collapsed too, not only the climb.
+    for (let n = order; n <= Math.min(order + FIXED_PLAN.extraOrders, family.plan.maxOrder); n++) {
       const terms = termsUpTo(n);
       if (!terms) break;
       const collapsed = collapsedSeries(fam, expansion, terms);
@@ -311,7 +323,7 @@ function planWith(family: Family, fam: Family, raw: { lo: bigint; hi: bigint }, 
     if (floor > target * FIXED_PLAN.truncationShare && Number.isFinite(floor)) {
       throw new FixedFloorRefusal(family.accuracy.value, least, floor, resultPoint, locate(family, 'accuracy.absolute'));
     }
-    throw new RootcastError(`no fixed32 plan up to order ${family.plan.maxOrder} meets the target with ${S} segment${S === 1 ? '' : 's'}; raise plan.max_order, use more segments or loosen the accuracy`, locate(family, 'plan'));
+    throw new FixedOrderRefusal(family, S, reached);
   }
   // Without a bracket the bound must isolate the root, as a float plan's must (isolated-root.ts);
   // the fixed32 check's window is one result step wider than twice the bound (verify/fixed-judge.ts).

@@ -23,6 +23,8 @@ export const FIXED_PLAN = {
    * before it, one box).
    */
   workLimit: 6e8,
+  /** Share of workLimit the search for the order a refusal quotes past plan.max_order may use (quoted-fixes.ts; it only words a refusal), as WORK.orderHuntShare for float plans. */
+  orderHuntShare: 1 / 8,
   /**
    * Evenly spaced raw inputs tried as witnesses of the result grid's floor
    * (result-floor.ts) when the target is below half the result's last bit:

@@ -1,5 +1,7 @@
 /**
- * plan/fixed/floor-quote.ts: a fixed32 rounding-floor refusal quotes the best
+ * plan/fixed/quoted-fixes.ts: a fixed32 refusal quotes a number only when the
+ * spec with it plans, and the order refusal quotes the least plan.max_order
+ * that plans. A fixed32 rounding-floor refusal quotes the best
  * certified error only when the spec with that target plans (issue 10 item
  * 5: a floor a refusal quotes must work when the user applies it). Before,
  * the refusal named "rounding alone 8.92e-6" for the Pt1000 example at 8e-6,
@@ -49,6 +51,53 @@ function refusalOf(plan: () => unknown): RootcastError {
   }
   throw new Error('planned');
 }
+
+/** The example with plan.max_order set, and without root.bracket when `bracket` is false (one segment then). */
+function withMaxOrder(order: number, bracket: boolean): string {
+  const text = readFileSync(join(REPO_ROOT, 'examples/fixed32/pt1000-celsius.yaml'), 'utf8').replace('root:', `plan:\n  max_order: ${order}\nroot:`);
+  return bracket ? text : text.replace('root:\n  bracket: [-10, 900]\n', '');
+}
+
+/** The largest error of the plan's integers against IEC 60751 at 513 raw inputs across the box. */
+function worstAgainstIec(plan: ReturnType<typeof makeFixedPlan>): number {
+  let worst = new D(0);
+  for (let j = 0; j <= 512; j++) {
+    const raw = plan.rawLo + ((plan.rawHi - plan.rawLo) * BigInt(j)) / 512n;
+    const y = evaluateFixed(plan.program, [raw], true);
+    const err = new D(y.toString()).div(65536).minus(celsius(new D(raw.toString()).div(65536))).abs();
+    if (err.gt(worst)) worst = err;
+  }
+  return worst.toNumber();
+}
+
+describe('plan.max_order in fixed32', () => {
+  test('bounds the series order collapsed, not only the climb: max_order 1 plans at order 1 or less (it planned at order 4 before), within its bound of IEC 60751', () => {
+    const plan = makeFixedPlan(readSpec('pt.yaml', withMaxOrder(1, true)));
+    expect(plan.order).toBeLessThanOrEqual(1);
+    expect(plan.bound.total).toBeLessThanOrEqual(1e-3);
+    expect(worstAgainstIec(plan)).toBeLessThanOrEqual(plan.bound.total);
+  });
+
+  test('without a bracket (one segment), max_order 6: refused at plan.max_order (line 26) quoting the least order that plans, which plans soundly; one less is refused', () => {
+    const e = refusalOf(() => makeFixedPlan(readSpec('pt.yaml', withMaxOrder(6, false))));
+    expect(e.location).toMatchObject({ field: 'plan.max_order', line: 26 });
+    const m = /^plan\.max_order 6 is too small for a fixed32 plan with 1 segment that meets the target: the least that plans is (\d+); set plan\.max_order: (\d+) or more$/.exec(e.message);
+    expect(m).not.toBeNull();
+    const order = Number(m![2]);
+    expect(Number(m![1])).toBe(order);
+    const plan = makeFixedPlan(readSpec('pt.yaml', withMaxOrder(order, false)));
+    expect(plan.order).toBeLessThanOrEqual(order);
+    expect(plan.bound.total).toBeLessThanOrEqual(1e-3);
+    expect(worstAgainstIec(plan)).toBeLessThanOrEqual(plan.bound.total);
+    expect(refusalOf(() => makeFixedPlan(readSpec('pt.yaml', withMaxOrder(order - 1, false)))).message).toContain(`set plan.max_order: ${order} or more`);
+  });
+
+  test('with a bracket and auto segments, max_order 0: the refusal speaks of every segment count and quotes 1, which plans with more segments', () => {
+    const e = refusalOf(() => makeFixedPlan(readSpec('pt.yaml', withMaxOrder(0, true))));
+    expect(e.message).toBe('plan.max_order 0 is too small for a fixed32 plan with 1 to 64 segments that meets the target: the least that plans is 1; set plan.max_order: 1 or more');
+    expect(makeFixedPlan(readSpec('pt.yaml', withMaxOrder(1, true))).segments).toBeGreaterThan(1);
+  });
+});
 
 const QUOTE = /^the target (\S+) is below the fixed32 rounding floor of this plan: the best certified absolute error is (\S+) \(rounding alone (\S+); the result's last bit is 2\^-16\); set accuracy\.absolute: (\S+) or looser, or add fraction bits to fixed\.result$/;
 

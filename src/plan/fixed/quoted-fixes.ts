@@ -1,0 +1,187 @@
+/**
+ * The fixed32 refusals that quote a fix, and their checks (issue 10 item 5:
+ * a number a refusal quotes must plan when the user applies it).
+ *
+ * The rounding floor. A fixed32
+ * plan whose candidates all miss the target while their rounding alone
+ * leaves no room names the best certified error any candidate reached. That
+ * figure is quoted only after the family with `accuracy.absolute` set to it
+ * has been planned as the user's next run would plan it (plan-fixed.ts
+ * makeFixedPlan, with a fresh work count); a looser target takes another
+ * path through the orders and the economised degrees, so the check can meet
+ * a floor of its own, which is checked in turn (QUOTED_FIX.rounds in all).
+ * Without a quote that plans, the refusal is shown without a figure.
+ *
+ * The order. When every order up to plan.max_order misses the target (and
+ * rounding leaves room), the planner plans the family again with
+ * plan.max_order at its largest, within FIXED_PLAN.orderHuntShare of the
+ * work limit, to its first plan; that plan's series order is quoted once
+ * the family with plan.max_order set to it has planned too.
+ */
+import { RootcastError, type SourceLocation } from '../../errors.js';
+import type { Family } from '../../family/types.js';
+import { SpecNumber } from '../../family/spec-number.js';
+import { IsolationRefusal } from '../isolated-root.js';
+import { locate } from '../locate.js';
+import { upText } from '../refusals.js';
+import { LIMITS, QUOTED_FIX } from '../tuning.js';
+import { FIXED_PLAN } from './tuning.js';
+import { WorkLimitError } from '../work.js';
+
+/** A refusal that no other segment count can lift (the shape of the family, the result format). */
+export class FinalRefusal extends RootcastError {}
+
+/**
+ * The rounding floor of one fixed32 layout: `best` is the least certified
+ * error of its candidates, `rounding` the least rounding part, `resultPoint`
+ * the result's fraction bits. Thrown with the unquoted wording; `quoted`
+ * and `notIsolated` give the others.
+ */
+export class FixedFloorRefusal extends FinalRefusal {
+  constructor(
+    readonly target: SpecNumber,
+    readonly best: number,
+    readonly rounding: number,
+    readonly resultPoint: number,
+    location: SourceLocation | null,
+  ) {
+    super(`${floorHead(target, rounding, resultPoint)}; add fraction bits to fixed.result or loosen the accuracy`, location);
+  }
+
+  /** The text a quote sets accuracy.absolute to: at least `best`, three significant digits. */
+  get quote(): string {
+    return upText(this.best);
+  }
+
+  /** The refusal quoting `quote` (checked by confirmedFloorQuote before it is shown). */
+  quoted(quote: string): RootcastError {
+    return new RootcastError(
+      `the target ${this.target} is below the fixed32 rounding floor of this plan: the best certified absolute error is ${quote} (rounding alone ${this.rounding.toExponential(2)}; the result's last bit is 2^-${this.resultPoint}); set accuracy.absolute: ${quote} or looser, or add fraction bits to fixed.result`,
+      this.location,
+    );
+  }
+
+  /** The refusal when the looser target plans a bound that does not isolate the root: loosening cannot help. */
+  notIsolated(): RootcastError {
+    return new RootcastError(
+      `${floorHead(this.target, this.rounding, this.resultPoint)}, and a looser accuracy.absolute would not help: the plan that meets it has a bound that does not isolate the root (another root may lie within its reach); add fraction bits to fixed.result or add root.bracket around the wanted root`,
+      this.location,
+    );
+  }
+}
+
+function floorHead(target: SpecNumber, rounding: number, resultPoint: number): string {
+  return `the target ${target} is below the fixed32 rounding floor of this plan (rounding alone ${rounding.toExponential(2)}; the result's last bit is 2^-${resultPoint})`;
+}
+
+/**
+ * The floor refusal to show: quoting the best certified error when the
+ * family with that target plans (`planFirst` plans it as the user's run
+ * would, in a count of its own, and may stop at its first plan: that run
+ * keeps a plan once it has one, plan-fixed.ts), else without a figure.
+ */
+export function confirmedFloorQuote(family: Family, refusal: FixedFloorRefusal, planFirst: (edited: Family) => unknown): RootcastError {
+  let quote = refusal.quote;
+  for (let round = 0; round < QUOTED_FIX.rounds; round++) {
+    const edited: Family = { ...family, accuracy: { kind: 'absolute', value: SpecNumber.parse(quote) } };
+    try {
+      planFirst(edited);
+      return refusal.quoted(quote);
+    } catch (e) {
+      if (e instanceof IsolationRefusal) return refusal.notIsolated();
+      // The looser target met a floor of its own, above the quote: that one is checked next.
+      if (e instanceof FixedFloorRefusal && e.best > Number(quote)) {
+        quote = e.quote;
+        continue;
+      }
+      if (e instanceof WorkLimitError || e instanceof RootcastError) break;
+      throw e;
+    }
+  }
+  return refusal;
+}
+
+/**
+ * No order up to `reached` (plan.max_order, unless the series' terms
+ * outgrew the planner's limit first) meets the target with `segments`
+ * segments (null: every count of plan.segments: auto). Thrown unquoted.
+ */
+export class FixedOrderRefusal extends RootcastError {
+  constructor(
+    readonly family: Family,
+    readonly segments: number | null,
+    readonly reached: number,
+  ) {
+    super(`no fixed32 plan up to order ${reached} meets the target ${segmentsText(segments)}; ${orderAdvice(family, reached)}`, orderLocation(family));
+  }
+
+  /** The same refusal over every segment count tried. */
+  overAllCounts(): FixedOrderRefusal {
+    return new FixedOrderRefusal(this.family, null, this.reached);
+  }
+
+  quoted(order: number): RootcastError {
+    return new RootcastError(
+      `plan.max_order ${this.family.plan.maxOrder} is too small for a fixed32 plan ${segmentsText(this.segments)} that meets the target: the least that plans is ${order}; set plan.max_order: ${order} or more`,
+      this.location,
+    );
+  }
+}
+
+function segmentsText(segments: number | null): string {
+  if (segments === null) return `with ${FIXED_PLAN.autoSegments[0]} to ${FIXED_PLAN.autoSegments[FIXED_PLAN.autoSegments.length - 1]} segments`;
+  return `with ${segments} segment${segments === 1 ? '' : 's'}`;
+}
+
+function orderAdvice(family: Family, reached: number): string {
+  // Past `reached` the series' terms outgrew the planner's limit: a larger plan.max_order cannot help then.
+  const order = reached >= family.plan.maxOrder ? 'raise plan.max_order, ' : '';
+  const segments = !family.bracket ? 'add root.bracket (segments can then split the input), ' : family.plan.segments === 'auto' ? '' : 'use more segments (or plan.segments: auto), ';
+  return `${order}${segments}or loosen the accuracy`;
+}
+
+function orderLocation(family: Family): SourceLocation {
+  return family.positions['plan.max_order'] ? locate(family, 'plan.max_order') : { ...locate(family, 'accuracy.absolute'), field: 'plan.max_order' };
+}
+
+/**
+ * The order refusal to show: the least plan.max_order that plans, quoted.
+ * The series order of the first plan found with plan.max_order at its
+ * largest (`planFirst` plans a family to its first plan within `workLimit`
+ * units; this search within FIXED_PLAN.orderHuntShare of the limit) is one
+ * such order once the family with plan.max_order set to it plans in a full
+ * count, as the user's run would; a bisection between the spec's
+ * plan.max_order and it finds the least (a larger plan.max_order keeps every
+ * candidate a smaller one weighs, so a plan found stays found: with
+ * plan.segments: auto a smaller order with more segments may plan).
+ * Unquoted when none is found.
+ */
+export function confirmedOrderQuote(family: Family, refusal: FixedOrderRefusal, planFirst: (edited: Family, workLimit: number) => { readonly order: number }): RootcastError {
+  if (refusal.reached < family.plan.maxOrder) return refusal;
+  const withOrder = (maxOrder: number): Family => ({ ...family, plan: { ...family.plan, maxOrder } });
+  const plans = (maxOrder: number): boolean => {
+    try {
+      planFirst(withOrder(maxOrder), FIXED_PLAN.workLimit);
+      return true;
+    } catch (e) {
+      if (e instanceof WorkLimitError || e instanceof RootcastError) return false;
+      throw e;
+    }
+  };
+  let found: number;
+  try {
+    found = planFirst(withOrder(LIMITS.grade), FIXED_PLAN.workLimit * FIXED_PLAN.orderHuntShare).order;
+  } catch (e) {
+    if (e instanceof WorkLimitError || e instanceof RootcastError) return refusal;
+    throw e;
+  }
+  if (!(found > family.plan.maxOrder) || !plans(found)) return refusal;
+  let low = family.plan.maxOrder;
+  let high = found;
+  while (high - low > 1) {
+    const mid = Math.floor((low + high) / 2);
+    if (plans(mid)) high = mid;
+    else low = mid;
+  }
+  return refusal.quoted(high);
+}
