@@ -37,7 +37,7 @@ import { chebyshevInW, degreeFor, economisedAt } from './economise-w.js';
 import { fixedLayout, rawBox, rawNumber, type FixedLayout } from './layout.js';
 import { fixedHorner, ResultRangeError } from './program.js';
 import { resultFloor } from './result-floor.js';
-import { confirmedFloorQuote, confirmedOrderQuote, FinalRefusal, FixedFloorRefusal, FixedOrderRefusal } from './quoted-fixes.js';
+import { confirmedFloorQuote, confirmedOrderQuote, FinalRefusal, FixedFloorRefusal, FixedOrderRefusal, FixedTableRefusal } from './quoted-fixes.js';
 import { checkWork, startWork, WorkLimitError } from '../work.js';
 
 export interface FixedBound {
@@ -134,8 +134,9 @@ function planFixed(family: Family, firstPlanOnly: boolean, workLimit: number = F
   const counts: readonly number[] = knob !== 'auto' ? [knob] : family.bracket ? FIXED_PLAN.autoSegments : [1];
   let best: FixedPlan | null = null;
   let firstError: RootcastError | null = null;
-  // Whether every count tried was refused for its order (the refusal then speaks of all of them).
-  let onlyOrders = true;
+  // Whether every count tried was refused for its order or its tables only (the refusal then speaks of all of them), and the least bytes of the latter.
+  let orderOrTables = true;
+  let tableBytes: number | null = null;
   let stale = 0;
   for (const count of counts) {
     try {
@@ -156,11 +157,12 @@ function planFixed(family: Family, firstPlanOnly: boolean, workLimit: number = F
       // A plan found stands whatever a later count meets (a quote's check stops at it).
       if (e instanceof FinalRefusal && !best) throw e;
       firstError ??= e;
-      onlyOrders &&= e instanceof FixedOrderRefusal;
+      orderOrTables &&= e instanceof FixedOrderRefusal || e instanceof FixedTableRefusal;
+      if (e instanceof FixedTableRefusal) tableBytes = Math.min(tableBytes ?? Infinity, e.bytes);
       if (best && ++stale >= FIXED_PLAN.staleCounts) break;
     }
   }
-  if (!best) throw onlyOrders && counts.length > 1 && firstError instanceof FixedOrderRefusal ? firstError.overAllCounts() : firstError!;
+  if (!best) throw orderOrTables && counts.length > 1 && firstError instanceof FixedOrderRefusal ? firstError.overAllCounts(tableBytes) : firstError!;
   return best;
 }
 
@@ -329,7 +331,7 @@ function planWith(family: Family, fam: Family, raw: { lo: bigint; hi: bigint }, 
   // the fixed32 check's window is one result step wider than twice the bound (verify/fixed-judge.ts).
   certifyIsolatedCells(fam, set.cells, found.absoluteBound, 2 ** -resultPoint);
   if (found.tableBytes > family.plan.maxTableBytes) {
-    throw new RootcastError(`the ${S} segment tables need ${found.tableBytes} bytes, more than plan.max_table_bytes ${family.plan.maxTableBytes}; raise it or use fewer segments`, locate(family, 'plan.segments'));
+    throw new FixedTableRefusal(family, S, found.tableBytes);
   }
   return found;
 }

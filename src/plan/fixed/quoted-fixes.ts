@@ -111,31 +111,53 @@ export class FixedOrderRefusal extends RootcastError {
     readonly family: Family,
     readonly segments: number | null,
     readonly reached: number,
+    /** The least table bytes of a segment count refused only for plan.max_table_bytes (null: none was). */
+    readonly tableBytes: number | null = null,
   ) {
-    super(`no fixed32 plan up to order ${reached} meets the target ${segmentsText(segments)}; ${orderAdvice(family, reached)}`, orderLocation(family));
+    super(`no fixed32 plan up to order ${reached} meets the target ${segmentsText(family, segments, tableBytes)}; ${orderAdvice(family, reached, tableBytes)}`, orderLocation(family));
   }
 
-  /** The same refusal over every segment count tried. */
-  overAllCounts(): FixedOrderRefusal {
-    return new FixedOrderRefusal(this.family, null, this.reached);
+  /** The same refusal over every segment count tried, some of them refused for their tables (`tableBytes`, the least). */
+  overAllCounts(tableBytes: number | null): FixedOrderRefusal {
+    return new FixedOrderRefusal(this.family, null, this.reached, tableBytes);
   }
 
-  quoted(order: number): RootcastError {
+  /** Quoting the least plan.max_order that plans (`order`) and the plan.max_table_bytes that plans (`bytes`), each null when it does not. */
+  quoted(order: number | null, bytes: number | null): RootcastError {
+    const tables = bytes === null ? '' : `plan.max_table_bytes: ${bytes}`;
+    if (order === null) {
+      return new RootcastError(
+        `no fixed32 plan up to order ${this.reached} meets the target ${segmentsText(this.family, this.segments, this.tableBytes)}; set ${tables}`,
+        locate(this.family, 'plan.max_table_bytes'),
+      );
+    }
     return new RootcastError(
-      `plan.max_order ${this.family.plan.maxOrder} is too small for a fixed32 plan ${segmentsText(this.segments)} that meets the target: the least that plans is ${order}; set plan.max_order: ${order} or more`,
+      `plan.max_order ${this.family.plan.maxOrder} is too small for a fixed32 plan ${segmentsText(this.family, this.segments, this.tableBytes)} that meets the target: the least that plans is ${order}; set plan.max_order: ${order} or more${tables ? `, or ${tables}` : ''}`,
       this.location,
     );
   }
 }
 
-function segmentsText(segments: number | null): string {
-  if (segments === null) return `with ${FIXED_PLAN.autoSegments[0]} to ${FIXED_PLAN.autoSegments[FIXED_PLAN.autoSegments.length - 1]} segments`;
+function segmentsText(family: Family, segments: number | null, tableBytes: number | null): string {
+  const within = tableBytes === null ? '' : ` within plan.max_table_bytes ${family.plan.maxTableBytes}`;
+  if (segments === null) return `with ${FIXED_PLAN.autoSegments[0]} to ${FIXED_PLAN.autoSegments[FIXED_PLAN.autoSegments.length - 1]} segments${within}`;
   return `with ${segments} segment${segments === 1 ? '' : 's'}`;
 }
 
-function orderAdvice(family: Family, reached: number): string {
+/** The table refusal of one segment count: its plan meets the target, its tables need `bytes`. */
+export class FixedTableRefusal extends RootcastError {
+  constructor(
+    family: Family,
+    segments: number,
+    readonly bytes: number,
+  ) {
+    super(`the ${segments} segment tables need ${bytes} bytes, more than plan.max_table_bytes ${family.plan.maxTableBytes}; set plan.max_table_bytes: ${bytes} or use fewer segments`, locate(family, 'plan.segments'));
+  }
+}
+
+function orderAdvice(family: Family, reached: number, tableBytes: number | null): string {
   // Past `reached` the series' terms outgrew the planner's limit: a larger plan.max_order cannot help then.
-  const order = reached >= family.plan.maxOrder ? 'raise plan.max_order, ' : '';
+  const order = `${reached >= family.plan.maxOrder ? 'raise plan.max_order, ' : ''}${tableBytes === null ? '' : 'raise plan.max_table_bytes, '}`;
   const segments = !family.bracket ? 'add root.bracket (segments can then split the input), ' : family.plan.segments === 'auto' ? '' : 'use more segments (or plan.segments: auto), ';
   return `${order}${segments}or loosen the accuracy`;
 }
@@ -154,34 +176,42 @@ function orderLocation(family: Family): SourceLocation {
  * plan.max_order and it finds the least (a larger plan.max_order keeps every
  * candidate a smaller one weighs, so a plan found stays found: with
  * plan.segments: auto a smaller order with more segments may plan).
- * Unquoted when none is found.
+ * Where a segment count was refused only for plan.max_table_bytes, its
+ * table bytes are quoted beside it once the family with them plans.
+ * Unquoted when neither plans.
  */
 export function confirmedOrderQuote(family: Family, refusal: FixedOrderRefusal, planFirst: (edited: Family, workLimit: number) => { readonly order: number }): RootcastError {
-  if (refusal.reached < family.plan.maxOrder) return refusal;
-  const withOrder = (maxOrder: number): Family => ({ ...family, plan: { ...family.plan, maxOrder } });
-  const plans = (maxOrder: number): boolean => {
+  const plans = (edited: Family): boolean => {
     try {
-      planFirst(withOrder(maxOrder), FIXED_PLAN.workLimit);
+      planFirst(edited, FIXED_PLAN.workLimit);
       return true;
     } catch (e) {
       if (e instanceof WorkLimitError || e instanceof RootcastError) return false;
       throw e;
     }
   };
+  // The table bytes a count refused only for its tables needs: that count plans with them (the limit is checked last).
+  const bytes = refusal.tableBytes !== null && plans({ ...family, plan: { ...family.plan, maxTableBytes: refusal.tableBytes } }) ? refusal.tableBytes : null;
+  const order = refusal.reached < family.plan.maxOrder ? null : leastOrder(family, planFirst, plans);
+  return order === null && bytes === null ? refusal : refusal.quoted(order, bytes);
+}
+
+function leastOrder(family: Family, planFirst: (edited: Family, workLimit: number) => { readonly order: number }, plans: (edited: Family) => boolean): number | null {
+  const withOrder = (maxOrder: number): Family => ({ ...family, plan: { ...family.plan, maxOrder } });
   let found: number;
   try {
     found = planFirst(withOrder(LIMITS.grade), FIXED_PLAN.workLimit * FIXED_PLAN.orderHuntShare).order;
   } catch (e) {
-    if (e instanceof WorkLimitError || e instanceof RootcastError) return refusal;
+    if (e instanceof WorkLimitError || e instanceof RootcastError) return null;
     throw e;
   }
-  if (!(found > family.plan.maxOrder) || !plans(found)) return refusal;
+  if (!(found > family.plan.maxOrder) || !plans(withOrder(found))) return null;
   let low = family.plan.maxOrder;
   let high = found;
   while (high - low > 1) {
     const mid = Math.floor((low + high) / 2);
-    if (plans(mid)) high = mid;
+    if (plans(withOrder(mid))) high = mid;
     else low = mid;
   }
-  return refusal.quoted(high);
+  return high;
 }

@@ -92,6 +92,18 @@ describe('plan.max_order in fixed32', () => {
     expect(refusalOf(() => makeFixedPlan(readSpec('pt.yaml', withMaxOrder(order - 1, false)))).message).toContain(`set plan.max_order: ${order} or more`);
   });
 
+  test('max_order 2 and max_table_bytes 16: both fixes are quoted (the least order, and the bytes of a count refused only for its tables), and each plans soundly', () => {
+    const text = withMaxOrder(2, true).replace('  max_order: 2\n', '  max_order: 2\n  max_table_bytes: 16\n');
+    const e = refusalOf(() => makeFixedPlan(readSpec('pt.yaml', text)));
+    const m = /^plan\.max_order 2 is too small for a fixed32 plan with 1 to 64 segments within plan\.max_table_bytes 16 that meets the target: the least that plans is (\d+); set plan\.max_order: \1 or more, or plan\.max_table_bytes: (\d+)$/.exec(e.message);
+    expect(m).not.toBeNull();
+    for (const edited of [text.replace('max_order: 2', `max_order: ${m![1]}`), text.replace('max_table_bytes: 16', `max_table_bytes: ${m![2]}`)]) {
+      const plan = makeFixedPlan(readSpec('pt.yaml', edited));
+      expect(plan.bound.total).toBeLessThanOrEqual(1e-3);
+      expect(worstAgainstIec(plan)).toBeLessThanOrEqual(plan.bound.total);
+    }
+  });
+
   test('with a bracket and auto segments, max_order 0: the refusal speaks of every segment count and quotes 1, which plans with more segments', () => {
     const e = refusalOf(() => makeFixedPlan(readSpec('pt.yaml', withMaxOrder(0, true))));
     expect(e.message).toBe('plan.max_order 0 is too small for a fixed32 plan with 1 to 64 segments that meets the target: the least that plans is 1; set plan.max_order: 1 or more');
