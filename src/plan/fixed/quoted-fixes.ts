@@ -2,21 +2,20 @@
  * The fixed32 refusals that quote a fix, and their checks (issue 10 item 5:
  * a number a refusal quotes must plan when the user applies it).
  *
- * The rounding floor. A fixed32
- * plan whose candidates all miss the target while their rounding alone
- * leaves no room names the best certified error any candidate reached. That
- * figure is quoted only after the family with `accuracy.absolute` set to it
- * has been planned as the user's next run would plan it (plan-fixed.ts
- * makeFixedPlan, with a fresh work count); a looser target takes another
- * path through the orders and the economised degrees, so the check can meet
- * a floor of its own, which is checked in turn (QUOTED_FIX.rounds in all).
- * Without a quote that plans, the refusal is shown without a figure.
+ * The rounding floor. A fixed32 plan whose candidates all miss the target
+ * while their rounding alone leaves no room names the best certified error
+ * any candidate reached. That figure is quoted only after the family with
+ * `accuracy.absolute` set to it has been planned as the user's next run
+ * would plan it (plan-fixed.ts makeFixedPlan, with a fresh work count); a
+ * looser target takes another path through the orders and the economised
+ * degrees, so the check can meet a floor of its own, which is checked in
+ * turn (QUOTED_FIX.rounds in all). Without a quote that plans, the refusal
+ * is shown without a figure.
  *
  * The order. When every order up to plan.max_order misses the target (and
- * rounding leaves room), the planner plans the family again with
- * plan.max_order at its largest, within FIXED_PLAN.orderHuntShare of the
- * work limit, to its first plan; that plan's series order is quoted once
- * the family with plan.max_order set to it has planned too.
+ * rounding leaves room), the least plan.max_order that plans is quoted, and
+ * beside it the table bytes of a segment count refused only for
+ * plan.max_table_bytes, each once planned (confirmedOrderQuote).
  */
 import { RootcastError, type SourceLocation } from '../../errors.js';
 import type { Family } from '../../family/types.js';
