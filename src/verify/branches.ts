@@ -245,13 +245,18 @@ export function checkEmittedBranches(
 export function formatBranchLine(functionName: string, reports: readonly BranchReport[]): string {
   const parts = reports.map((r, i) => {
     const c = r.count;
-    const jumps = c.jumps > 0 ? `, ${c.jumps} ${c.jumps === 1 ? 'jump' : 'jumps'}` : '';
+    const jumps = `${c.jumps > 0 ? `, ${c.jumps} ${c.jumps === 1 ? 'jump' : 'jumps'}` : ''}${poolJumpsText(c)}`;
     return i === 0
       ? `${TOOLCHAINS[r.target].label}: ${c.conditionalBranches} conditional branches, ${c.calls} calls${jumps}`
       : `${TOOLCHAINS[r.target].label}: ${c.conditionalBranches}, ${c.calls}${jumps}`;
   });
   const bad = reports.some((r) => branchy(r.count));
   return `branches ${functionName}: ${parts.join('; ')} ${bad ? 'FAIL' : 'PASS'}`;
+}
+
+/** `, 1 jump past a literal pool (taken every call)` when there are any, else empty. */
+export function poolJumpsText(c: BranchCount): string {
+  return c.poolJumps > 0 ? `, ${c.poolJumps} ${c.poolJumps === 1 ? 'jump' : 'jumps'} past a literal pool (taken every call)` : '';
 }
 
 export function branchy(c: BranchCount): boolean {

@@ -9,7 +9,7 @@ import { spawnSync } from 'node:child_process';
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { countBranches, probeName, type BranchCount } from './branches.js';
+import { countBranches, poolJumpsText, probeName, type BranchCount } from './branches.js';
 
 export type FixedCore = 'cortex-m0' | 'cortex-m3' | 'x86-64';
 
@@ -66,8 +66,7 @@ export function formatFixedBranchLine(name: string, reports: readonly FixedBranc
   const parts = reports.map((r) => {
     const c = r.count;
     const jumps = c.jumps > 0 ? `, ${c.jumps} ${c.jumps === 1 ? 'jump' : 'jumps'}` : '';
-    const pools = c.poolJumps > 0 ? `, ${c.poolJumps} ${c.poolJumps === 1 ? 'jump' : 'jumps'} past a literal pool (taken every call)` : '';
-    return `${r.label}: ${c.conditionalBranches} conditional branches, ${c.calls} calls${jumps}, ${c.instructions} instructions${pools}`;
+    return `${r.label}: ${c.conditionalBranches} conditional branches, ${c.calls} calls${jumps}, ${c.instructions} instructions${poolJumpsText(c)}`;
   });
   return `branches ${name}: ${parts.join('; ')} ${bad ? 'FAIL' : 'PASS'}`;
 }

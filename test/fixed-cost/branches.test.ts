@@ -111,6 +111,10 @@ describe('countBranches', () => {
       { target: 'cortex-m4f', count: { ...clean, calls: 1 } },
     ]);
     expect(line).toBe('branches f: x86-64 gcc -O2: 0 conditional branches, 0 calls; cortex-m4f arm-none-eabi-gcc -O2: 0, 1 FAIL');
+    // A jump past a literal pool is named and does not fail the line.
+    expect(formatBranchLine('f', [{ target: 'x86-64', count: clean }, { target: 'cortex-m4f', count: { ...clean, poolJumps: 2 } }])).toBe(
+      'branches f: x86-64 gcc -O2: 0 conditional branches, 0 calls; cortex-m4f arm-none-eabi-gcc -O2: 0, 0, 2 jumps past a literal pool (taken every call) PASS',
+    );
   });
 });
 
