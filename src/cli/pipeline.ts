@@ -5,6 +5,7 @@
  */
 import type { EmitInput, PlanClaims } from '../emit/types.js';
 import type { Family } from '../family/types.js';
+import { makeFixedPlan, type FixedPlan } from '../plan/fixed/plan-fixed.js';
 import { makePlan, type Plan } from '../plan/plan.js';
 import { loadSpec } from '../reader/load.js';
 import { planProgress } from './progress.js';
@@ -20,6 +21,16 @@ export function planFamily(family: Family): Plan {
   const progress = planProgress(process.stderr, `planning ${family.functionName}`);
   try {
     return makePlan(family, { onWork: progress.observe });
+  } finally {
+    progress.stop();
+  }
+}
+
+/** Plans a fixed32 family, with the same progress display (src/plan/fixed/plan-fixed.ts). */
+export function planFixedFamily(family: Family): FixedPlan {
+  const progress = planProgress(process.stderr, `planning ${family.functionName}`);
+  try {
+    return makeFixedPlan(family, { onWork: progress.observe });
   } finally {
     progress.stop();
   }

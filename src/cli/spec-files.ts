@@ -9,13 +9,12 @@ import { emitFiles } from '../emit/files.js';
 import { fixedEmitFiles } from '../emit/fixed-files.js';
 import type { TargetName } from '../emit/outputs.js';
 import type { EmittedFile } from '../emit/types.js';
-import { makeFixedPlan } from '../plan/fixed/plan-fixed.js';
 import { loadSpec } from '../reader/load.js';
 import { fixedEmitInputOf, isFixedFamily } from './fixed/input.js';
-import { emitInputOf, planFamily } from './pipeline.js';
+import { emitInputOf, planFamily, planFixedFamily } from './pipeline.js';
 
 export function filesOfSpec(file: string, targets: readonly TargetName[], options: { readonly harness: boolean } = { harness: true }): EmittedFile[] {
   const family = loadSpec(file);
-  if (isFixedFamily(family)) return fixedEmitFiles(fixedEmitInputOf(makeFixedPlan(family)), targets, options);
+  if (isFixedFamily(family)) return fixedEmitFiles(fixedEmitInputOf(planFixedFamily(family)), targets, options);
   return emitFiles(emitInputOf(planFamily(family)), targets, options);
 }

@@ -2,12 +2,11 @@
 import { formatBoundUp } from '../../emit/literals/round-up.js';
 import { equationText } from '../../emit/header.js';
 import type { Plan } from '../../plan/plan.js';
-import { claimsOf, planFamily } from '../pipeline.js';
+import { claimsOf, planFamily, planFixedFamily } from '../pipeline.js';
 import { loadSpec } from '../../reader/load.js';
 import { GENERATOR, jsonOutput, reportRefusal } from '../refusal-json.js';
 import { isFixedFamily } from '../fixed/input.js';
 import { fixedPlanJson, fixedPlanText } from '../fixed/plan.js';
-import { makeFixedPlan } from '../../plan/fixed/plan-fixed.js';
 import { coarseCellsOf } from '../../plan/candidates.js';
 
 /**
@@ -24,7 +23,7 @@ export function runPlan(o: { specs: readonly string[]; json: boolean }, print: (
       // Read once: the fixed32 and the float pipelines both take the family.
       const family = loadSpec(spec);
       if (isFixedFamily(family)) {
-        const plan = makeFixedPlan(family);
+        const plan = planFixedFamily(family);
         if (o.json) results.push(fixedPlanJson(plan) as object);
         else texts.push(fixedPlanText(plan));
         continue;

@@ -14,14 +14,13 @@ import { RootcastError } from '../../errors.js';
 import { refuseTargetForFixed } from '../../emit/fixed-refuse.js';
 import { targetsOf, type TargetName } from '../../emit/outputs.js';
 import type { Family } from '../../family/types.js';
-import { makeFixedPlan } from '../../plan/fixed/plan-fixed.js';
 import { verifyJson } from '../../verify/json.js';
 import { reportHtml } from '../../verify/report/html.js';
 import { verify } from '../../verify/run.js';
 import type { VerifyInput, VerifyResult } from '../../verify/types.js';
 import { writeFiles } from '../files.js';
 import { startProgress, type ProgressStream } from '../progress.js';
-import { emitInputOf, planFamily } from '../pipeline.js';
+import { emitInputOf, planFamily, planFixedFamily } from '../pipeline.js';
 import { loadSpec } from '../../reader/load.js';
 import { jsonOutput, reportRefusal } from '../refusal-json.js';
 import { planJson } from './plan.js';
@@ -69,7 +68,7 @@ export function runVerify(o: VerifyCommandOptions, print: Print, printError: Pri
 function planned(family: Family, target: string): { input: VerifyInput; plan: { readonly generator: object } } {
   if (isFixedFamily(family)) {
     if (target !== 'all') refuseTargetForFixed(family, target as TargetName);
-    const plan = makeFixedPlan(family);
+    const plan = planFixedFamily(family);
     return { input: { kind: 'fixed32', emit: fixedEmitInputOf(plan) }, plan: fixedPlanJson(plan) };
   }
   const plan = planFamily(family);

@@ -8,7 +8,7 @@ import type { FixedEmitInput } from '../../emit/fixed-types.js';
 import { TARGETS, type TargetName } from '../../emit/outputs.js';
 import type { EmittedFile } from '../../emit/types.js';
 import type { Family } from '../../family/types.js';
-import { makeFixedPlan } from '../../plan/fixed/plan-fixed.js';
+import { planFixedFamily } from '../pipeline.js';
 import { fixedEmitInputOf } from './input.js';
 
 export { fixedEmitInputOf, fixedFamilyOf, isFixedFamily } from './input.js';
@@ -24,5 +24,5 @@ export function fixedFiles(input: FixedEmitInput, targets: readonly TargetName[]
 
 /** Every file `rootcast emit SPEC --target all` writes for a fixed32 spec. */
 export function fixedFilesOfSpec(family: Family): EmittedFile[] {
-  return fixedFiles(fixedEmitInputOf(makeFixedPlan(family)), TARGETS);
+  return fixedFiles(fixedEmitInputOf(planFixedFamily(family)), TARGETS);
 }

@@ -38,7 +38,7 @@ import { fixedLayout, rawBox, rawNumber, type FixedLayout } from './layout.js';
 import { fixedHorner, ResultRangeError } from './program.js';
 import { resultFloor } from './result-floor.js';
 import { confirmedFloorQuote, confirmedOrderQuote, FinalRefusal, FixedFloorRefusal, FixedOrderRefusal, FixedTableRefusal } from './quoted-fixes.js';
-import { checkWork, startWork, WorkLimitError } from '../work.js';
+import { checkWork, startWork, WorkLimitError, type WorkObserver } from '../work.js';
 
 export interface FixedBound {
   readonly kind: 'absolute';
@@ -81,26 +81,28 @@ export interface FixedPlan {
  * target plans (quoted-fixes.ts); the check plans it as the user's next run
  * would, to its first plan, which that run keeps (below).
  */
-export function makeFixedPlan(family: Family): FixedPlan {
+export function makeFixedPlan(family: Family, options: { readonly onWork?: WorkObserver } = {}): FixedPlan {
+  const observer = options.onWork ?? null;
   try {
-    return planFixed(family, false);
+    return planFixed(family, observer, false);
   } catch (e) {
-    if (e instanceof FixedFloorRefusal) throw confirmedFloorQuote(family, e, (edited) => planFixed(edited, true));
-    if (e instanceof FixedOrderRefusal) throw confirmedOrderQuote(family, e, (edited, limit) => planFixed(edited, true, limit));
+    if (e instanceof FixedFloorRefusal) throw confirmedFloorQuote(family, e, (edited) => planFixed(edited, observer, true));
+    if (e instanceof FixedOrderRefusal) throw confirmedOrderQuote(family, e, (edited, limit) => planFixed(edited, observer, true, limit));
     throw e;
   }
 }
 
 /**
- * `firstPlanOnly`: stop at the first segment count that plans (a quote's
- * check: the full run keeps a plan once it has one); `workLimit`: the
- * count's units (a quote's search for the order may use less).
+ * `observer`: watches the work units (a progress display; never changes the
+ * plan). `firstPlanOnly`: stop at the first segment count that plans (a
+ * quote's check: the full run keeps a plan once it has one); `workLimit`:
+ * the count's units (a quote's search for the order may use less).
  */
-function planFixed(family: Family, firstPlanOnly: boolean, workLimit: number = FIXED_PLAN.workLimit): FixedPlan {
+function planFixed(family: Family, observer: WorkObserver | null, firstPlanOnly: boolean, workLimit: number = FIXED_PLAN.workLimit): FixedPlan {
   const fixed = family.fixed;
   if (!fixed) throw new Error('makeFixedPlan needs a fixed32 family');
   // One work count per plan, as makePlan starts one (src/plan/work.ts): what an earlier plan of the process spent is not this plan's.
-  startWork(null, workLimit);
+  startWork(observer, workLimit);
   if (family.inputs.length !== 1) {
     throw new RootcastError(
       `fixed32 plans take one input (the series collapsed to a polynomial in it); this spec has ${family.inputs.length}: use float32 or float64, or make the others constants`,

@@ -23,6 +23,7 @@ import { join } from 'node:path';
 import { RootcastError } from '../../../src/errors.js';
 import { evaluateFixed } from '../../../src/ir/fixed/evaluate.js';
 import { makeFixedPlan } from '../../../src/plan/fixed/plan-fixed.js';
+import { FIXED_PLAN } from '../../../src/plan/fixed/tuning.js';
 import { readSpec } from '../../../src/reader/read.js';
 import { checkFixedInProcess } from '../../../src/verify/fixed-check.js';
 import { checkFixedBranches, formatFixedBranchLine } from '../../../src/verify/fixed-branches.js';
@@ -148,6 +149,15 @@ describe('the fixed32 floor refusal quotes a target that plans', () => {
     const reports = checkFixedBranches({ path: header.path, text: header.text }, 'pt1000_celsius', 1);
     expect(reports.map((r) => r.core)).toEqual(['cortex-m0', 'cortex-m3', 'x86-64']);
     expect(formatFixedBranchLine('pt1000_celsius', reports)).toMatch(/ PASS$/);
+  });
+
+  test('a progress observer sees the work of the plan and of the quote\'s check, within the fixed32 work limit, and the refusal is the same', () => {
+    const seen: { used: number; limit: number }[] = [];
+    const watched = refusalOf(() => makeFixedPlan(readSpec('pt.yaml', withTarget('8e-6')), { onWork: (used, limit) => seen.push({ used, limit }) }));
+    expect(watched.message).toBe(refused.message);
+    expect(seen.length).toBeGreaterThan(0);
+    for (const s of seen) expect(s).toEqual({ used: s.used, limit: FIXED_PLAN.workLimit });
+    expect(seen.every((s) => s.used <= s.limit)).toBe(true);
   });
 
   test('the rounding it names as a target is still refused (why the quote is the best certified error, not the rounding)', () => {
