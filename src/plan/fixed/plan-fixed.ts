@@ -322,6 +322,9 @@ function planWith(family: Family, fam: Family, raw: { lo: bigint; hi: bigint }, 
         break;
       }
     }
+    // Rounding alone leaves no room and the truncation is negligible next to it: more terms cannot
+    // help beyond the quote's last digit (FIXED_PLAN.negligibleTruncation), and the floor refusal stands.
+    if (!found && floor > target * FIXED_PLAN.truncationShare && trunc < FIXED_PLAN.negligibleTruncation * floor) break;
   }
   if (!found) {
     if (floor > target * FIXED_PLAN.truncationShare && Number.isFinite(floor)) {

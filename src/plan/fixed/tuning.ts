@@ -18,9 +18,11 @@ export const FIXED_PLAN = {
    * it would have ended at the limit instead of naming the floor. Such a
    * target, below what any int32 result can meet, is now refused before
    * planning (result-floor.ts); one between that and this planner's own
-   * floor still climbs (pt1000-celsius at 7.6e-6: 5.3e8 units, refused at
-   * the floor; at 1e-5 it meets this limit, 6.0e8, and keeps the plan found
-   * before it, one box).
+   * floor climbed every order (pt1000-celsius at 7.6e-6: 5.3e8 units,
+   * refused at the floor; at 1e-5 the auto search met this limit, 6.0e8, and
+   * kept the plan found before it, one box). Since session 20 the climb stops
+   * where rounding alone leaves no room and truncation is negligible next to
+   * it (negligibleTruncation, below).
    */
   workLimit: 6e8,
   /** Share of workLimit the search for the order a refusal quotes past plan.max_order may use (quoted-fixes.ts; it only words a refusal), as WORK.orderHuntShare for float plans. */
@@ -51,6 +53,19 @@ export const FIXED_PLAN = {
    */
   refineAbove: 1 / 4,
   refineBelow: 1e3,
+  /**
+   * Where rounding alone leaves no room (the floor refusal's condition), the
+   * climb of orders stops once the truncation bound is below this share of
+   * the least rounding: the collapsed polynomial has then converged, so its
+   * economised degrees and their rounding stay, and the best total moves by
+   * about the truncation, here below the quote's third digit (generated
+   * family c056 of session 20: 9.3494e-5 where it stopped against 9.3488e-5
+   * after every order to 40; at the float planner's 0.05,
+   * ORDER_SEARCH.negligibleTruncation, 9.3809e-5, which lost the plan for a
+   * target of 9.35e-5). pt1000-celsius at 8e-6 then refuses after 3.3e6
+   * units instead of every order up to plan.max_order.
+   */
+  negligibleTruncation: 1e-3,
   /** The truncation may take at most this share of the target; the rest is left to economisation and rounding. The same share decides the rounding floor refusal: rounding alone above it leaves no room. */
   truncationShare: 1 / 2,
   /** Orders past the first one whose truncation fits that are also collapsed and economised: a higher order changes the polynomial, and sometimes the economised degree drops. */

@@ -31,8 +31,7 @@ import { fixedFiles, fixedEmitInputOf } from '../../../src/cli/fixed/pipeline.js
 import { REPO_ROOT } from '../../examples/support/repo.js';
 
 const D = Decimal.clone({ precision: 60 });
-// plan.max_order 20 keeps the climb past the floor short (the default, 40, climbs every order up to it first: about 8 s of CLI time).
-const TEXT = readFileSync(join(REPO_ROOT, 'examples/fixed32/pt1000-celsius.yaml'), 'utf8').replace('root:', 'plan:\n  max_order: 20\nroot:');
+const TEXT = readFileSync(join(REPO_ROOT, 'examples/fixed32/pt1000-celsius.yaml'), 'utf8');
 const withTarget = (t: string): string => TEXT.replace('  absolute: 0.001', `  absolute: ${t}`);
 
 /** IEC 60751 inverted by the quadratic formula: T = (-A + sqrt(A^2 - 4 B (1 - R / R0))) / (2 B). */
@@ -158,6 +157,12 @@ describe('the fixed32 floor refusal quotes a target that plans', () => {
     expect(seen.length).toBeGreaterThan(0);
     for (const s of seen) expect(s).toEqual({ used: s.used, limit: FIXED_PLAN.workLimit });
     expect(seen.every((s) => s.used <= s.limit)).toBe(true);
+  });
+
+  test('the climb stops at the floor (truncation negligible next to rounding): the refusal and its check spend under a twentieth of the work limit (5.3e8 units of 6e8 before, at 7.6e-6)', () => {
+    let peak = 0;
+    refusalOf(() => makeFixedPlan(readSpec('pt.yaml', withTarget('8e-6')), { onWork: (used) => (peak = Math.max(peak, used)) }));
+    expect(peak).toBeLessThan(FIXED_PLAN.workLimit / 20);
   });
 
   test('the rounding it names as a target is still refused (why the quote is the best certified error, not the rounding)', () => {
