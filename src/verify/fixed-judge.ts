@@ -141,12 +141,12 @@ export interface FixedSummaryLabel {
  * up to two digits, `extra` what only the in-process check knows (an int32
  * overflow), empty elsewhere.
  */
-export function fixedSummaryText(label: FixedSummaryLabel, t: FixedTally, boundText: string, target: number, pass: boolean, extra: string): string {
+export function fixedSummaryText(label: FixedSummaryLabel, t: FixedTally, boundText: string, target: number, targetDecimals: number, pass: boolean, extra: string): string {
   const w = t.worst;
   const worst = w === null ? 'none' : `${formatE(w.error, 1)} at ${label.inputName} = ${w.at} / 2^${label.inputBits}`;
   const noSign = t.noSignChangeAt === null ? '' : `; no sign change in the bracket, first at raw ${t.noSignChangeAt}`;
   return (
     `check ${label.name} (${label.language}, fixed32): ${t.points} points; worst absolute error ${worst}${noSign}${extra}; ` +
-    `certified bound ${boundText}; target ${formatE(target, 1)}; ${pass ? 'PASS' : 'FAIL'}`
+    `certified bound ${boundText}; target ${formatE(target, targetDecimals)}; ${pass ? 'PASS' : 'FAIL'}`
   );
 }

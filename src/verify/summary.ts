@@ -16,7 +16,7 @@
  * (scripts/gen-harness.js copies them, renamed rc_*): keep them free of
  * imports beyond printf.ts and tally.ts.
  */
-import { formatEUp } from '../emit/literals/round-up.js';
+import { checkLineDecimals, formatEUp } from '../emit/literals/round-up.js';
 import type { Arithmetic } from '../family/arithmetic.js';
 import { formatE, formatG } from './printf.js';
 import type { TallyFigures } from './tally.js';
@@ -62,7 +62,8 @@ export function formatSummary(
   arithmetic: Arithmetic,
   language: SummaryLanguage,
 ): string {
-  return summaryText(s, formatEUp(s.bound, 1), functionName, arithmetic, language);
+  const decimals = checkLineDecimals(s.bound, s.targetAccuracy);
+  return summaryText(s, formatEUp(s.bound, decimals), decimals, functionName, arithmetic, language);
 }
 
 /**
@@ -70,7 +71,7 @@ export function formatSummary(
  * below the proven bound): the harnesses print it with the text the emitter
  * computed, so they need no decimal machinery of their own.
  */
-export function summaryText(s: TallyFigures, boundText: string, functionName: string, arithmetic: string, language: string): string {
+export function summaryText(s: TallyFigures, boundText: string, targetDecimals: number, functionName: string, arithmetic: string, language: string): string {
   const worst =
     s.worstAt.length === 0
       ? `worst ${s.kind} error none`
@@ -81,7 +82,7 @@ export function summaryText(s: TallyFigures, boundText: string, functionName: st
       : '';
   return (
     `check ${functionName} (${language}, ${arithmetic}): ${plural(s.points)}; ${worst}${noSign}; ` +
-    `certified bound ${boundText}; target ${formatE(s.targetAccuracy, 1)}; ${s.pass ? 'PASS' : 'FAIL'}`
+    `certified bound ${boundText}; target ${formatE(s.targetAccuracy, targetDecimals)}; ${s.pass ? 'PASS' : 'FAIL'}`
   );
 }
 

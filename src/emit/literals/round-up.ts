@@ -9,6 +9,15 @@ import { Rational } from '../../math/rational.js';
 import { layoutLikeEcmaScript, type DecimalDigits } from './decimal-text.js';
 
 export function roundUpDigits(value: number, significant: number): DecimalDigits {
+  return roundDigits(value, significant, true);
+}
+
+/** The same rounded DOWN: the largest decimal with that many significant digits that is <= the value. */
+export function roundDownDigits(value: number, significant: number): DecimalDigits {
+  return roundDigits(value, significant, false);
+}
+
+function roundDigits(value: number, significant: number, up: boolean): DecimalDigits {
   if (!Number.isFinite(value) || value < 0) throw new RangeError(`not a finite non-negative number: ${value}`);
   if (!Number.isInteger(significant) || significant < 1) throw new RangeError(`bad digit count: ${significant}`);
   if (value === 0) return { negative: false, digits: '0', point: 1 };
@@ -17,10 +26,10 @@ export function roundUpDigits(value: number, significant: number): DecimalDigits
   let n = Math.floor(Math.log10(value)) + 1;
   while (x.cmp(pow10(n - 1)) < 0) n--;
   while (x.cmp(pow10(n)) >= 0) n++;
-  // m = ceil(x / 10^(n - significant)), an integer with `significant` digits (or 10^significant).
+  // m = ceil (or floor) of x / 10^(n - significant), an integer with `significant` digits (or 10^significant).
   const scaled = x.div(pow10(n - significant));
   let m = scaled.num / scaled.den;
-  if (m * scaled.den < scaled.num) m += 1n;
+  if (up && m * scaled.den < scaled.num) m += 1n;
   if (m === 10n ** BigInt(significant)) {
     m = 10n ** BigInt(significant - 1);
     n += 1;
@@ -59,6 +68,33 @@ export function formatEUp(value: number, precision: number): string {
   const mantissa = precision > 0 ? `${digits[0]}.${digits.slice(1)}` : digits;
   const n = Math.abs(e);
   return `${mantissa}e${e < 0 ? '-' : '+'}${n < 10 ? '0' : ''}${n}`;
+}
+
+/**
+ * Decimals after the point with which a check line prints the certified
+ * bound (rounded up, formatEUp) beside its target (C's %.Ne: to nearest,
+ * ties to even): one (`9.3e-06`) unless a bound within its target would
+ * then print above it (bound 9.3488e-5, target 9.35e-5: `9.4e-05` and
+ * `9.3e-05`), else the fewest, up to 16, with which it does not.
+ */
+export function checkLineDecimals(bound: number, target: number): number {
+  if (!(bound >= 0 && bound <= target) || !Number.isFinite(target)) return 1;
+  const t = Rational.fromNumber(target);
+  for (let decimals = 1; decimals < 16; decimals++) {
+    const up = decimalValue(roundUpDigits(bound, decimals + 1));
+    const above = roundUpDigits(target, decimals + 1);
+    const below = roundDownDigits(target, decimals + 1);
+    const [hi, lo] = [decimalValue(above), decimalValue(below)];
+    // The target to nearest: the closer of the two neighbours, a tie to the one with an even last digit.
+    const side = t.sub(lo).cmp(hi.sub(t));
+    const nearest = side < 0 || (side === 0 && Number(below.digits.at(-1)) % 2 === 0) ? lo : hi;
+    if (up.cmp(nearest) <= 0) return decimals;
+  }
+  return 16;
+}
+
+function decimalValue(d: DecimalDigits): Rational {
+  return Rational.parseDecimal(`${d.digits}e${d.point - d.digits.length}`);
 }
 
 function pow10(k: number): Rational {

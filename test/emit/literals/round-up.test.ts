@@ -5,7 +5,7 @@
 import { describe, expect, test } from '@jest/globals';
 import { Decimal } from 'decimal.js';
 import fc from 'fast-check';
-import { formatBoundUp, formatEUp, roundUpDigits } from '../../../src/emit/literals/round-up.js';
+import { checkLineDecimals, formatBoundUp, formatEUp, roundDownDigits, roundUpDigits } from '../../../src/emit/literals/round-up.js';
 import { formatE } from '../../../src/verify/printf.js';
 import { Rational } from '../../../src/math/rational.js';
 
@@ -84,5 +84,48 @@ describe('formatEUp (the summary line\'s bound)', () => {
     expect(formatEUp(0.25, 1)).toBe(formatE(0.25, 1)); // exactly representable: 2.5e-01 either way
     expect(formatEUp(0, 1)).toBe('0.0e+00');
     expect(formatEUp(9.96e-5, 1)).toBe('1.0e-04');
+  });
+});
+
+describe('roundDownDigits', () => {
+  test('is decimal.js ROUND_DOWN of the exact value to 1 to 6 significant digits', () => {
+    fc.assert(
+      fc.property(positives, fc.integer({ min: 1, max: 6 }), (x, n) => {
+        const d = roundDownDigits(x, n);
+        const expected = new Decimal(exactDecimal(x)).toSignificantDigits(n, Decimal.ROUND_DOWN);
+        expect(new Decimal(`${d.digits}e${d.point - d.digits.length}`).eq(expected)).toBe(true);
+      }),
+      { numRuns: 300, seed: 20261220 },
+    );
+  });
+});
+
+describe('checkLineDecimals (the summary line prints a bound within its target at or below it)', () => {
+  test('a generated spec\'s bound 9.3488e-5 within its target 9.35e-5: two decimals, 9.35e-05 and 9.35e-05 (one decimal printed 9.4e-05 beside 9.3e-05)', () => {
+    expect([formatEUp(9.3488e-5, 1), formatE(9.35e-5, 1)]).toEqual(['9.4e-05', '9.3e-05']);
+    const d = checkLineDecimals(9.3488e-5, 9.35e-5);
+    expect(d).toBe(2);
+    expect([formatEUp(9.3488e-5, d), formatE(9.35e-5, d)]).toEqual(['9.35e-05', '9.35e-05']);
+  });
+
+  test('one decimal where that already shows the relation, and for a bound above its target (the line says FAIL)', () => {
+    expect(checkLineDecimals(7.843825752375812e-4, 0.001)).toBe(1);
+    expect(checkLineDecimals(9.28e-6, 9.28e-6)).toBe(1);
+    expect(checkLineDecimals(5e-4, 4e-4)).toBe(1);
+    expect(checkLineDecimals(Infinity, 1e-3)).toBe(1);
+  });
+
+  test('for any bound within its target, the bound rounded up prints at or below the target as C printf("%.Ne") rounds it (decimal.js comparison of the printed texts)', () => {
+    fc.assert(
+      fc.property(positives, fc.double({ min: 0.98, max: 1, noNaN: true }), (target, share) => {
+        const bound = target * share;
+        const d = checkLineDecimals(bound, target);
+        if (d === 16) return;
+        expect(new Decimal(formatEUp(bound, d)).lte(new Decimal(formatE(target, d)))).toBe(true);
+        // The fewest: one decimal less would print the bound above the target.
+        if (d > 1) expect(new Decimal(formatEUp(bound, d - 1)).gt(new Decimal(formatE(target, d - 1)))).toBe(true);
+      }),
+      { numRuns: 500, seed: 20261220 },
+    );
   });
 });
