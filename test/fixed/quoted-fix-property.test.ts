@@ -72,7 +72,7 @@ const family = fc
 
 /** ROOTCAST_FIXED_SEED and ROOTCAST_FIXED_RUNS draw another, longer sequence (a soak; CI runs the default). */
 const SEED = Number(process.env['ROOTCAST_FIXED_SEED'] ?? 20261220);
-const RUNS = Number(process.env['ROOTCAST_FIXED_RUNS'] ?? 40);
+const RUNS = Number(process.env['ROOTCAST_FIXED_RUNS'] ?? 100);
 
 function tryPlan(text: string): FixedPlan | RootcastError {
   try {
