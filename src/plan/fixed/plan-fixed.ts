@@ -37,7 +37,7 @@ import { chebyshevInW, degreeFor, economisedAt } from './economise-w.js';
 import { fixedLayout, rawBox, rawNumber, type FixedLayout } from './layout.js';
 import { fixedHorner, ResultRangeError } from './program.js';
 import { resultFloor } from './result-floor.js';
-import { confirmedFloorQuote, confirmedOrderQuote, FinalRefusal, FixedFloorRefusal, FixedOrderRefusal, FixedTableRefusal } from './quoted-fixes.js';
+import { confirmedFloorQuote, confirmedGridQuote, confirmedOrderQuote, FinalRefusal, FixedFloorRefusal, FixedOrderRefusal, FixedTableRefusal, GridFloorRefusal } from './quoted-fixes.js';
 import { checkWork, startWork, WorkLimitError, type WorkObserver } from '../work.js';
 
 export interface FixedBound {
@@ -87,6 +87,7 @@ export function makeFixedPlan(family: Family, options: { readonly onWork?: WorkO
     return planFixed(family, observer, false);
   } catch (e) {
     if (e instanceof FixedFloorRefusal) throw confirmedFloorQuote(family, e, (edited) => planFixed(edited, observer, true));
+    if (e instanceof GridFloorRefusal) throw confirmedGridQuote(family, e, (edited) => planFixed(edited, observer, true));
     if (e instanceof FixedOrderRefusal) throw confirmedOrderQuote(family, e, (edited, limit) => planFixed(edited, observer, true, limit));
     throw e;
   }
@@ -171,9 +172,11 @@ function planFixed(family: Family, observer: WorkObserver | null, firstPlanOnly:
 /**
  * A target below half the result's last bit may be below what any int32
  * result can meet: where a witness input proves it (result-floor.ts), the
- * refusal comes before planning, which would climb every order of every
- * segment count to find its own, higher floor (pt1000-celsius at 1e-6:
- * 4.94e8 units, 18 to 21 s of CPU at a514942). The fix it names is the floor refusal's.
+ * refusal comes before planning and says so (when it was made, planning
+ * climbed every order of every segment count to find its own, higher floor:
+ * pt1000-celsius at 1e-6, 4.94e8 units, 18 to 21 s of CPU at a514942). The
+ * planner's own floor is then found by planning at the witness's distance,
+ * and quoted once checked (quoted-fixes.ts confirmedGridQuote).
  */
 function refuseBelowResultGrid(family: Family, fam: Family, raw: { lo: bigint; hi: bigint }, bits: number): void {
   const resultPoint = family.fixed!.result;
@@ -184,8 +187,9 @@ function refuseBelowResultGrid(family: Family, fam: Family, raw: { lo: bigint; h
   checkWork();
   if (!floor || !(floor.distance > target)) return;
   const input = family.inputs[0]!.name;
-  throw new FinalRefusal(
-    `the target ${family.accuracy.value} is below the fixed32 rounding floor of any plan: the result's last bit is 2^-${resultPoint}, and at ${input} = ${floor.input.toNumber()} the root is at least ${downText(floor.distance)} from every value the result can hold; add fraction bits to fixed.result or loosen the accuracy`,
+  throw new GridFloorRefusal(
+    `the target ${family.accuracy.value} is below the fixed32 rounding floor of any plan: the result's last bit is 2^-${resultPoint}, and at ${input} = ${floor.input.toNumber()} the root is at least ${downText(floor.distance)} from every value the result can hold`,
+    floor.distance,
     locate(family, 'accuracy.absolute'),
   );
 }

@@ -80,24 +80,67 @@ function floorHead(target: SpecNumber, rounding: number, resultPoint: number): s
  * keeps a plan once it has one, plan-fixed.ts), else without a figure.
  */
 export function confirmedFloorQuote(family: Family, refusal: FixedFloorRefusal, planFirst: (edited: Family) => unknown): RootcastError {
-  let quote = refusal.quote;
-  for (let round = 0; round < QUOTED_FIX.rounds; round++) {
+  const checked = checkedTarget(family, refusal.quote, QUOTED_FIX.rounds, planFirst);
+  return checked === null ? refusal : checked === NOT_ISOLATED ? refusal.notIsolated() : refusal.quoted(checked);
+}
+
+/**
+ * The refusal of a target below what any int32 result can meet
+ * (plan-fixed.ts refuseBelowResultGrid): at `input` the root is at least
+ * `distance` from every value the result can hold. Thrown without a quote;
+ * `quoted` adds the planner's own floor, found by planning at `distance`.
+ */
+export class GridFloorRefusal extends FinalRefusal {
+  constructor(
+    readonly head: string,
+    readonly distance: number,
+    location: SourceLocation | null,
+  ) {
+    super(`${head}; add fraction bits to fixed.result or loosen the accuracy`, location);
+  }
+
+  quoted(quote: string): RootcastError {
+    return new RootcastError(`${this.head}; the best certified absolute error of a plan is ${quote}: set accuracy.absolute: ${quote} or looser, or add fraction bits to fixed.result`, this.location);
+  }
+}
+
+/**
+ * The grid's refusal, quoting the planner's own floor: the family planned
+ * at the grid's distance meets that floor (a FixedFloorRefusal), whose best
+ * certified error is then checked as any floor quote is (one more round for
+ * the first, which only finds the floor).
+ */
+export function confirmedGridQuote(family: Family, refusal: GridFloorRefusal, planFirst: (edited: Family) => unknown): RootcastError {
+  const checked = checkedTarget(family, upText(refusal.distance), QUOTED_FIX.rounds + 1, planFirst);
+  return checked === null || checked === NOT_ISOLATED ? refusal : refusal.quoted(checked);
+}
+
+const NOT_ISOLATED = Symbol('the plan does not isolate the root');
+
+/**
+ * The target text that plans, starting at `quote` and moving to the floor a
+ * check meets above it, for `rounds` checks at most; NOT_ISOLATED when a
+ * check plans a bound that does not isolate the root; null otherwise.
+ */
+function checkedTarget(family: Family, first: string, rounds: number, planFirst: (edited: Family) => unknown): string | typeof NOT_ISOLATED | null {
+  let quote = first;
+  for (let round = 0; round < rounds; round++) {
     const edited: Family = { ...family, accuracy: { kind: 'absolute', value: SpecNumber.parse(quote) } };
     try {
       planFirst(edited);
-      return refusal.quoted(quote);
+      return quote;
     } catch (e) {
-      if (e instanceof IsolationRefusal) return refusal.notIsolated();
+      if (e instanceof IsolationRefusal) return NOT_ISOLATED;
       // The looser target met a floor of its own, above the quote: that one is checked next.
       if (e instanceof FixedFloorRefusal && e.best > Number(quote)) {
         quote = e.quote;
         continue;
       }
-      if (e instanceof WorkLimitError || e instanceof RootcastError) break;
+      if (e instanceof WorkLimitError || e instanceof RootcastError) return null;
       throw e;
     }
   }
-  return refusal;
+  return null;
 }
 
 /**

@@ -7,8 +7,9 @@
  * checked against the quadratic formula's root in decimal.js (60 digits):
  * the bound is never above the true distance from that root to the nearest
  * multiple of 2^-16, and never above half the step. A target below it is
- * refused before planning, in one located line; a bracket on which the root
- * is not the only one gives no bound.
+ * refused in one located line, which quotes the planner's own floor (a
+ * target that plans); a bracket on which the root is not the only one gives
+ * no bound.
  */
 import { describe, expect, test } from '@jest/globals';
 import { Decimal } from 'decimal.js';
@@ -19,7 +20,6 @@ import type { Family } from '../../../src/family/types.js';
 import { rawBox, rawNumber } from '../../../src/plan/fixed/layout.js';
 import { makeFixedPlan } from '../../../src/plan/fixed/plan-fixed.js';
 import { resultFloor } from '../../../src/plan/fixed/result-floor.js';
-import { workUsed } from '../../../src/plan/work.js';
 import { readSpec } from '../../../src/reader/read.js';
 import { REPO_ROOT } from '../../examples/support/repo.js';
 
@@ -69,7 +69,7 @@ describe('the result grid floor of any fixed32 plan', () => {
     expect(resultFloor(fam, raw, 16, 16)).toBeNull();
   });
 
-  test('a target below it is refused before planning, in one located line naming the witness', () => {
+  test('a target below it is refused in one located line naming the witness, and the planner\'s own floor as the target to set, which plans', () => {
     let line = '';
     try {
       makeFixedPlan(readSpec('pt.yaml', TEXT.replace('  absolute: 0.001', '  absolute: 1e-6')));
@@ -77,13 +77,14 @@ describe('the result grid floor of any fixed32 plan', () => {
       if (!(e instanceof RootcastError)) throw e;
       line = e.toLine();
     }
-    const m = /^pt\.yaml:\d+:\d+: accuracy\.absolute: the target 1e-6 is below the fixed32 rounding floor of any plan: the result's last bit is 2\^-16, and at R = (\S+) the root is at least (\S+) from every value the result can hold; add fraction bits to fixed\.result or loosen the accuracy$/.exec(line);
+    const m = /^pt\.yaml:\d+:\d+: accuracy\.absolute: the target 1e-6 is below the fixed32 rounding floor of any plan: the result's last bit is 2\^-16, and at R = (\S+) the root is at least (\S+) from every value the result can hold; the best certified absolute error of a plan is (\S+): set accuracy\.absolute: \3 or looser, or add fraction bits to fixed\.result$/.exec(line);
     expect(m).not.toBeNull();
     const steps = celsius(new D(m![1]!)).div(STEP);
     const f = steps.minus(steps.floor());
     expect(new D(m![2]!).lte(Decimal.min(f, new D(1).minus(f)).times(STEP))).toBe(true);
-    // No order was climbed: the witnesses' exact arithmetic (about 2.3e5 units) is under 1 % of the
-    // 4.94e8 units the climb to the planner's own floor took at a514942 (FIXED_PLAN.workLimit's note).
-    expect(workUsed()).toBeLessThan(4.94e6);
+    // The quote lies above the witness's distance (no plan can beat it) and plans.
+    expect(Number(m![3])).toBeGreaterThan(Number(m![2]));
+    const plan = makeFixedPlan(readSpec('pt.yaml', TEXT.replace('  absolute: 0.001', `  absolute: ${m![3]}`)));
+    expect(plan.bound.total).toBeLessThanOrEqual(Number(m![3]));
   });
 });
