@@ -18,19 +18,19 @@ export function planSpec(file: string): Plan {
 
 /** Plans a family already read (see planSpec). */
 export function planFamily(family: Family): Plan {
-  const progress = planProgress(process.stderr, `planning ${family.functionName}`);
-  try {
-    return makePlan(family, { onWork: progress.observe });
-  } finally {
-    progress.stop();
-  }
+  return withProgress(family, (onWork) => makePlan(family, { onWork }));
 }
 
 /** Plans a fixed32 family, with the same progress display (src/plan/fixed/plan-fixed.ts). */
 export function planFixedFamily(family: Family): FixedPlan {
+  return withProgress(family, (onWork) => makeFixedPlan(family, { onWork }));
+}
+
+/** Runs a planner with a progress display on stderr (a bar on a terminal after a second; nothing otherwise). */
+function withProgress<T>(family: Family, plan: (onWork: (used: number, limit: number) => void) => T): T {
   const progress = planProgress(process.stderr, `planning ${family.functionName}`);
   try {
-    return makeFixedPlan(family, { onWork: progress.observe });
+    return plan(progress.observe);
   } finally {
     progress.stop();
   }

@@ -18,9 +18,8 @@
 import { describe, expect, test } from '@jest/globals';
 import fc from 'fast-check';
 import { RootcastError } from '../../src/errors.js';
-import { makeFixedPlan, type FixedPlan } from '../../src/plan/fixed/plan-fixed.js';
-import { readSpec } from '../../src/reader/read.js';
 import { checkFixedInProcess } from '../../src/verify/fixed-check.js';
+import { planOrRefusal } from './support.js';
 
 const num = (x: number): string => Number(x.toPrecision(4)).toString();
 
@@ -69,22 +68,13 @@ const family = fc
 const SEED = Number(process.env['ROOTCAST_FIXED_SEED'] ?? 20261219);
 const RUNS = Number(process.env['ROOTCAST_FIXED_RUNS'] ?? 60);
 
-function tryPlan(d: Drawn): FixedPlan | RootcastError {
-  try {
-    return makeFixedPlan(readSpec('random.yaml', d.text));
-  } catch (e) {
-    if (e instanceof RootcastError) return e;
-    throw e;
-  }
-}
-
 describe('random fixed32 families without a bracket', () => {
   test('each plans and passes the exact check at every sampled point (a sign change in every window), or is refused in one located line', () => {
     let planned = 0;
     let refused = 0;
     fc.assert(
       fc.property(family, (d) => {
-        const p = tryPlan(d);
+        const p = planOrRefusal(d.text);
         if (p instanceof RootcastError) {
           refused++;
           expect(p.location).not.toBeNull();

@@ -18,9 +18,9 @@
 import { describe, expect, test } from '@jest/globals';
 import fc from 'fast-check';
 import { RootcastError } from '../../src/errors.js';
-import { makeFixedPlan, type FixedPlan } from '../../src/plan/fixed/plan-fixed.js';
-import { readSpec } from '../../src/reader/read.js';
+import type { FixedPlan } from '../../src/plan/fixed/plan-fixed.js';
 import { checkFixedInProcess } from '../../src/verify/fixed-check.js';
+import { planOrRefusal } from './support.js';
 import { applyEdits } from '../support/quoted-fix.js';
 
 const num = (x: number): string => Number(x.toPrecision(3)).toString();
@@ -74,15 +74,6 @@ const family = fc
 const SEED = Number(process.env['ROOTCAST_FIXED_SEED'] ?? 20261220);
 const RUNS = Number(process.env['ROOTCAST_FIXED_RUNS'] ?? 100);
 
-function tryPlan(text: string): FixedPlan | RootcastError {
-  try {
-    return makeFixedPlan(readSpec('random.yaml', text));
-  } catch (e) {
-    if (e instanceof RootcastError) return e;
-    throw e;
-  }
-}
-
 /** Each fix a refusal quotes (`set FIELD: VALUE`, and alternatives after `, or FIELD: VALUE`), as a one-field edit. */
 function quotedFixes(message: string): { field: string; value: string }[] {
   const advice = message.slice(message.lastIndexOf(';') + 1);
@@ -102,7 +93,7 @@ describe('random bracketed fixed32 families near their limits', () => {
     let planned = 0;
     fc.assert(
       fc.property(family, (d) => {
-        const p = tryPlan(d.text);
+        const p = planOrRefusal(d.text);
         if (!(p instanceof RootcastError)) {
           planned++;
           expectSound(p, d.what);
@@ -112,7 +103,7 @@ describe('random bracketed fixed32 families near their limits', () => {
         expect(p.toLine()).not.toContain('\n');
         for (const fix of quotedFixes(p.message)) {
           kinds.set(fix.field, (kinds.get(fix.field) ?? 0) + 1);
-          const fixed = tryPlan(applyEdits(d.text, [fix]));
+          const fixed = planOrRefusal(applyEdits(d.text, [fix]));
           if (fixed instanceof RootcastError) throw new Error(`${d.what}: quoted ${fix.field}: ${fix.value} ("${p.message}") was refused: ${fixed.message}`);
           expectSound(fixed, `${d.what} with ${fix.field}: ${fix.value}`);
         }

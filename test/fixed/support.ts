@@ -1,6 +1,7 @@
 /** Shared helpers of the fixed32 tests: the example spec's text, specs edited from it, and a plan in one call. */
 import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
+import { RootcastError } from '../../src/errors.js';
 import { readSpec } from '../../src/reader/read.js';
 import { makeFixedPlan, type FixedPlan } from '../../src/plan/fixed/plan-fixed.js';
 import type { Family } from '../../src/family/types.js';
@@ -22,6 +23,16 @@ export function familyOf(text: string, file = 'spec.yaml'): Family {
 
 export function planOf(text: string): FixedPlan {
   return makeFixedPlan(readSpec('spec.yaml', text));
+}
+
+/** The plan of a spec text, or the RootcastError its reading or planning throws (any other error is rethrown). */
+export function planOrRefusal(text: string, file = 'random.yaml'): FixedPlan | RootcastError {
+  try {
+    return makeFixedPlan(readSpec(file, text));
+  } catch (e) {
+    if (e instanceof RootcastError) return e;
+    throw e;
+  }
 }
 
 /** The one-line refusal a spec text gets (reading and planning), or null. */

@@ -25,11 +25,11 @@
  */
 import { describe, expect, test } from '@jest/globals';
 import { polynomialRoot, type Complex } from 'mathjs';
-import { RootcastError } from '../../../src/errors.js';
 import { makeFixedPlan } from '../../../src/plan/fixed/plan-fixed.js';
 import { readSpec } from '../../../src/reader/read.js';
 import { checkFixedInProcess } from '../../../src/verify/fixed-check.js';
 import { planAndMeasure } from '../../support/quoted-fix.js';
+import { refusalOf } from './support/iec60751.js';
 
 const spec = (arithmetic: 'fixed32' | 'float32', absolute: string, resultBits = 8): string =>
   [
@@ -49,16 +49,6 @@ const spec = (arithmetic: 'fixed32' | 'float32', absolute: string, resultBits = 
     ...(arithmetic === 'fixed32' ? ['fixed:', '  inputs:', '    x: 16', `  result: ${resultBits}`] : []),
     '',
   ].join('\n');
-
-function refusalOf(plan: () => unknown): RootcastError {
-  try {
-    plan();
-  } catch (e) {
-    if (e instanceof RootcastError) return e;
-    throw e;
-  }
-  throw new Error('planned');
-}
 
 /** The real roots at x, ascending (mathjs). */
 function rootsAt(x: number): number[] {

@@ -9,26 +9,16 @@
  * take are refused in one located line.
  */
 import { describe, expect, test } from '@jest/globals';
-import { Decimal } from 'decimal.js';
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { RootcastError } from '../../../src/errors.js';
-import { evaluateFixed } from '../../../src/ir/fixed/evaluate.js';
 import { makeFixedPlan } from '../../../src/plan/fixed/plan-fixed.js';
 import { readSpec } from '../../../src/reader/read.js';
 import { REPO_ROOT } from '../../examples/support/repo.js';
+import { celsius, D, worstAgainstIec } from './support/iec60751.js';
 
-const D = Decimal.clone({ precision: 60 });
 const PATH = 'examples/fixed32/pt1000-celsius.yaml';
 const TEXT = readFileSync(join(REPO_ROOT, PATH), 'utf8');
-
-/** IEC 60751 inverted by the quadratic formula: T = (-A + sqrt(A^2 - 4 B (1 - R / R0))) / (2 B). */
-function celsius(r: Decimal): Decimal {
-  const A = new D('3.9083e-3');
-  const B = new D('-5.775e-7');
-  const c = new D(1).minus(r.div(1000));
-  return A.neg().plus(A.pow(2).minus(B.times(4).times(c)).sqrt()).div(B.times(2));
-}
 
 function refusal(text: string): string {
   try {
@@ -51,13 +41,7 @@ describe('makeFixedPlan', () => {
     expect(plan.bound.total).toBeLessThanOrEqual(plan.target);
     // The raw box covers [1000, 3904.82] ohm: 3904.82 * 2^16 = 255906283.52 lies in its last raw step.
     expect([plan.rawLo, plan.rawHi]).toEqual([1000n << 16n, 255906284n]);
-    let worst = new D(0);
-    for (let j = 0; j <= 512; j++) {
-      const raw = plan.rawLo + ((plan.rawHi - plan.rawLo) * BigInt(j)) / 512n;
-      const y = evaluateFixed(plan.program, [raw], true);
-      const err = new D(y.toString()).div(65536).minus(celsius(new D(raw.toString()).div(65536))).abs();
-      if (err.gt(worst)) worst = err;
-    }
+    const worst = worstAgainstIec(plan);
     if (worst.gt(plan.bound.total)) throw new Error(`measured ${worst.toExponential(3)} > bound ${plan.bound.total}`);
     // Not vacuous: the result's own last bit (2^-17 after rounding) is already a fair share of it.
     expect(worst.gt(plan.bound.total / 100)).toBe(true);
