@@ -140,6 +140,8 @@ function planFixed(family: Family, observer: WorkObserver | null, firstPlanOnly:
   // Whether every count tried was refused for its order or its tables only (the refusal then speaks of all of them), and the least bytes of the latter.
   let orderOrTables = true;
   let tableBytes: number | null = null;
+  // The floor refusal with the least best error (another count may plan, or reach a lower floor: more segments, lower degrees).
+  let leastFloor: FixedFloorRefusal | null = null;
   let stale = 0;
   for (const count of counts) {
     try {
@@ -162,10 +164,13 @@ function planFixed(family: Family, observer: WorkObserver | null, firstPlanOnly:
       firstError ??= e;
       orderOrTables &&= e instanceof FixedOrderRefusal || e instanceof FixedTableRefusal;
       if (e instanceof FixedTableRefusal) tableBytes = Math.min(tableBytes ?? Infinity, e.bytes);
+      if (e instanceof FixedFloorRefusal && (!leastFloor || e.best < leastFloor.best)) leastFloor = e;
       if (best && ++stale >= FIXED_PLAN.staleCounts) break;
     }
   }
-  if (!best) throw orderOrTables && counts.length > 1 && firstError instanceof FixedOrderRefusal ? firstError.overAllCounts(tableBytes) : firstError!;
+  // An order fix first, then the lowest floor (as the float planner's choice among its trials' refusals), else the first refusal.
+  if (!best && firstError instanceof FixedOrderRefusal) throw orderOrTables && counts.length > 1 ? firstError.overAllCounts(tableBytes) : firstError;
+  if (!best) throw leastFloor ?? firstError!;
   return best;
 }
 

@@ -31,12 +31,14 @@ import { WorkLimitError } from '../work.js';
 export class FinalRefusal extends RootcastError {}
 
 /**
- * The rounding floor of one fixed32 layout: `best` is the least certified
+ * The rounding floor of one fixed32 layout (not final: with auto segments
+ * another count may plan; session 20 found three of 60 generated quadratics
+ * refused at one segment's floor that plan with two): `best` is the least certified
  * error of its candidates, `rounding` the least rounding part, `resultPoint`
  * the result's fraction bits. Thrown with the unquoted wording; `quoted`
  * and `notIsolated` give the others.
  */
-export class FixedFloorRefusal extends FinalRefusal {
+export class FixedFloorRefusal extends RootcastError {
   constructor(
     readonly target: SpecNumber,
     readonly best: number,

@@ -37,6 +37,25 @@ function withMaxOrder(order: number, bracket: boolean): string {
   return bracket ? text : text.replace('root:\n  bracket: [-10, 900]\n', '');
 }
 
+describe('a floor of one segment count does not end the auto search', () => {
+  // A generated quadratic (session 20): 1.4 s^2 + 0.9 s - x = 0, x in [0, 0.0333], ten result bits, target 8.3e-4.
+  const text = [
+    'function: two_segments', 'unknown: s', 'degree: 2', 'coefficients:', '  0: -x', '  1: 0.9', '  2: 1.4', 'inputs:', '  x: [0, 0.0333]',
+    'root:', '  bracket: [-0.161, 0.321]', 'accuracy:', '  absolute: 0.00083', 'arithmetic: fixed32', 'fixed:', '  inputs:', '    x: 16', '  result: 10', '',
+  ].join('\n');
+
+  test('one segment alone is refused at its rounding floor; auto plans with more segments, within the target, and the exact check passes (it was refused before)', () => {
+    const one = refusalOf(() => makeFixedPlan(readSpec('two.yaml', text.replace('root:', 'plan:\n  segments: 1\nroot:'))));
+    expect(one.message).toMatch(/^the target 0\.00083 is below the fixed32 rounding floor of this plan/);
+    const plan = makeFixedPlan(readSpec('two.yaml', text));
+    expect(plan.segments).toBeGreaterThan(1);
+    expect(plan.bound.total).toBeLessThanOrEqual(8.3e-4);
+    const check = checkFixedInProcess({ family: plan.family, program: plan.program, rawLo: plan.rawLo, rawHi: plan.rawHi, bound: plan.bound.total, target: plan.target }, 2000, 1);
+    expect(check.pass).toBe(true);
+    expect(check.worstError).toBeLessThanOrEqual(plan.bound.total);
+  });
+});
+
 describe('plan.max_order in fixed32', () => {
   test('bounds the series order collapsed, not only the climb: max_order 1 plans at order 1 or less (it planned at order 4 before), within its bound of IEC 60751', () => {
     const plan = makeFixedPlan(readSpec('pt.yaml', withMaxOrder(1, true)));
@@ -119,10 +138,10 @@ describe('the fixed32 floor refusal quotes a target that plans', () => {
     expect(seen.every((s) => s.used <= s.limit)).toBe(true);
   });
 
-  test('the climb stops at the floor (truncation negligible next to rounding): the refusal and its check spend under a twentieth of the work limit (5.3e8 units of 6e8 before, at 7.6e-6)', () => {
+  test('the climb stops at the floor (truncation negligible next to rounding): the refusal (every auto segment count) and its check spend under a tenth of the work limit (5.3e8 units of 6e8 before, at 7.6e-6)', () => {
     let peak = 0;
     refusalOf(() => makeFixedPlan(readSpec('pt.yaml', withTarget('8e-6')), { onWork: (used) => (peak = Math.max(peak, used)) }));
-    expect(peak).toBeLessThan(FIXED_PLAN.workLimit / 20);
+    expect(peak).toBeLessThan(FIXED_PLAN.workLimit / 10);
   });
 
   test('the rounding it names as a target is still refused (why the quote is the best certified error, not the rounding)', () => {
