@@ -10,7 +10,7 @@ import { evaluateFixed, FixedOverflowError } from '../ir/fixed/evaluate.js';
 import { fixedEdgePoints } from '../ir/fixed/edges.js';
 import type { FixedProgram } from '../ir/fixed/nodes.js';
 import type { Family } from '../family/types.js';
-import { checkLineDecimals, formatEUp } from '../emit/literals/round-up.js';
+import { checkLineFigures } from '../emit/literals/round-up.js';
 import { coefficientEvaluator } from './coefficients.js';
 import { fixedSummaryText, fixedTallyPasses, judgeFixedPoint, newFixedTally, tallyFixedPoint, type FixedJudgeRule, type FixedTally } from './fixed-judge.js';
 import { visitFixedSamplePoints } from './fixed-samples.js';
@@ -93,6 +93,6 @@ export function checkFixedInProcess(c: FixedCheckInput, samples: number, seed: n
 /** The summary line, the one every fixed32 check prints (fixed-judge.ts), with the int32 overflow only this check can see. */
 export function fixedSummaryLine(name: string, inputName: string, bits: number, language: string, s: FixedCheck): string {
   const overflow = s.overflowAt === null ? '' : `; a value left int32 (node ${s.overflowAt.node}) at raw ${s.overflowAt.raw}`;
-  const decimals = checkLineDecimals(s.bound, s.target);
-  return fixedSummaryText({ name, inputName, inputBits: bits, language }, s.tally, formatEUp(s.bound, decimals), s.target, decimals, s.pass, overflow);
+  const f = checkLineFigures(s.bound, s.target);
+  return fixedSummaryText({ name, inputName, inputBits: bits, language }, s.tally, f.boundText, s.target, f.targetDecimals, s.pass, overflow);
 }

@@ -66,12 +66,13 @@ export type FixedJudgement =
 export function judgeFixedPoint(rule: FixedJudgeRule, raw: bigint, y: bigint): FixedJudgement {
   const yq = scaleFraction({ num: y, den: 1n }, -rule.resultBits);
   const c = integerCoefficients(rule.coefficients([scaleFraction({ num: raw, den: 1n }, -rule.inputBits)]));
+  const bound = fractionOfNumber(rule.bound);
   let lo: Fraction;
   let hi: Fraction;
   if (rule.bracket !== null) {
     ({ lo, hi } = rule.bracket);
   } else {
-    const spread = addFractions(scaleFraction(fractionOfNumber(rule.bound), 1), scaleFraction({ num: 1n, den: 1n }, -rule.resultBits));
+    const spread = addFractions(scaleFraction(bound, 1), scaleFraction({ num: 1n, den: 1n }, -rule.resultBits));
     lo = subFractions(yq, spread);
     hi = addFractions(yq, spread);
   }
@@ -81,7 +82,6 @@ export function judgeFixedPoint(rule: FixedJudgeRule, raw: bigint, y: bigint): F
   let [near, far] = distances(yq, root);
   // A cell whose far end passes the bound and whose near end does not leaves the point undecided
   // (a bound can be tighter than the grid): the cell is bisected on a finer grid, a few times at most.
-  const bound = fractionOfNumber(rule.bound);
   for (let round = 0; round < FIXED_REFINE_ROUNDS && compareFractions(far, bound) > 0 && compareFractions(near, bound) <= 0; round++) {
     s += FIXED_REFINE_BITS;
     const finer = bisectRoot(c, root.lo, root.hi, s, yq);

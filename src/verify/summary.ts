@@ -16,7 +16,7 @@
  * (scripts/gen-harness.js copies them, renamed rc_*): keep them free of
  * imports beyond printf.ts and tally.ts.
  */
-import { checkLineDecimals, formatEUp } from '../emit/literals/round-up.js';
+import { checkLineFigures } from '../emit/literals/round-up.js';
 import type { Arithmetic } from '../family/arithmetic.js';
 import { formatE, formatG } from './printf.js';
 import type { TallyFigures } from './tally.js';
@@ -62,8 +62,8 @@ export function formatSummary(
   arithmetic: Arithmetic,
   language: SummaryLanguage,
 ): string {
-  const decimals = checkLineDecimals(s.bound, s.targetAccuracy);
-  return summaryText(s, formatEUp(s.bound, decimals), decimals, functionName, arithmetic, language);
+  const f = checkLineFigures(s.bound, s.targetAccuracy);
+  return summaryText(s, f.boundText, f.targetDecimals, functionName, arithmetic, language);
 }
 
 /**

@@ -7,7 +7,7 @@
  * pass, 1 on fail. The machinery is templates/c/check.c.hbs; this file fills
  * in the family: box, bounds, constants and coefficient expressions.
  */
-import { checkLineDecimals, formatEUp } from '../literals/round-up.js';
+import { checkLineFigures } from '../literals/round-up.js';
 import { cLiteral } from '../literals/c.js';
 import { renderTemplate } from '../templates.js';
 import type { EmitInput, EmittedFile } from '../types.js';
@@ -45,8 +45,7 @@ export function cHarness(input: EmitInput): EmittedFile {
     hasEdgePoints: parts.edgePoints.length > 0,
     edgeRows: parts.edgePoints.map((p) => p.map(double).join(', ')),
     bound: double(claims.bound.total),
-    boundText: formatEUp(claims.bound.total, checkLineDecimals(claims.bound.total, claims.target)),
-    targetDecimals: String(checkLineDecimals(claims.bound.total, claims.target)),
+    ...checkLineFigures(claims.bound.total, claims.target),
     target: double(claims.target),
     absoluteBound: double(claims.absoluteBound),
     constantDeclarations: parts.usedConstants.map((c) => `static rc_real ${cConstantName(c)};`),

@@ -5,7 +5,7 @@
  */
 import { fixedEdgePoints } from '../../ir/fixed/edges.js';
 import { usedConstantsOf } from './used-constants.js';
-import { checkLineDecimals, formatEUp } from '../literals/round-up.js';
+import { checkLineFigures } from '../literals/round-up.js';
 import { cLiteral } from '../literals/c.js';
 import { renderTemplate } from '../templates.js';
 import { cCommentLines } from '../c/function.js';
@@ -41,8 +41,7 @@ export function cFixedHarness(input: FixedEmitInput): EmittedFile {
     edgeCount: String(edges.length),
     edgeRows: [...edges.map(int64), '0'].join(', '),
     bound: double(claims.bound.total),
-    boundText: formatEUp(claims.bound.total, checkLineDecimals(claims.bound.total, claims.target)),
-    targetDecimals: String(checkLineDecimals(claims.bound.total, claims.target)),
+    ...checkLineFigures(claims.bound.total, claims.target),
     target: double(claims.target),
     constantDeclarations: used.map((c) => `static rc_real ${cConstantName(c)};`),
     constantLines: used.map((c) => `${cConstantName(c)} = ${cRealDecimal(family.constants[c]!.value)};`),

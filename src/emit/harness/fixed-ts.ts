@@ -9,7 +9,7 @@ import { fixedEdgePoints } from '../../ir/fixed/edges.js';
 import { cCommentLines } from '../c/function.js';
 import { fixedHeaderLines } from '../fixed-header.js';
 import type { FixedEmitInput } from '../fixed-types.js';
-import { checkLineDecimals, formatEUp } from '../literals/round-up.js';
+import { checkLineFigures } from '../literals/round-up.js';
 import { tsLiteral } from '../literals/ts.js';
 import { renderTemplate } from '../templates.js';
 import type { EmittedFile } from '../types.js';
@@ -35,8 +35,7 @@ export function tsFixedHarness(input: FixedEmitInput): EmittedFile {
       .map((v) => `${v}n`)
       .join(', '),
     bound: double(claims.bound.total),
-    boundText: formatEUp(claims.bound.total, checkLineDecimals(claims.bound.total, claims.target)),
-    targetDecimals: String(checkLineDecimals(claims.bound.total, claims.target)),
+    ...checkLineFigures(claims.bound.total, claims.target),
     target: double(claims.target),
     constantLines: usedConstantsOf(family).map((c) => `const ${tsConstantName(c)}: rc_Fraction = ${tsRational(family.constants[c]!.value)};`),
     bracket: family.bracket ? `{ lo: ${tsRational(family.bracket[0].value)}, hi: ${tsRational(family.bracket[1].value)} }` : 'null',

@@ -9,7 +9,7 @@
  * (templates/glsl/check-machinery.js.hbs, written by scripts/gen-harness.js);
  * this file fills in the family and the snippet text.
  */
-import { checkLineDecimals, formatEUp } from '../literals/round-up.js';
+import { checkLineFigures } from '../literals/round-up.js';
 import { renderTemplate } from '../templates.js';
 import { glslFunction } from '../glsl/function.js';
 import { refuseUnlessFloat32 } from '../glsl/refuse.js';
@@ -42,8 +42,7 @@ export function glslHarness(input: EmitInput): EmittedFile {
     hasEdgePoints: parts.edgePoints.length > 0,
     edgeRows: parts.edgePoints.map((p) => p.map(double).join(', ')),
     bound: double(claims.bound.total),
-    boundText: formatEUp(claims.bound.total, checkLineDecimals(claims.bound.total, claims.target)),
-    targetDecimals: String(checkLineDecimals(claims.bound.total, claims.target)),
+    ...checkLineFigures(claims.bound.total, claims.target),
     target: double(claims.target),
     absoluteBound: double(claims.absoluteBound),
     relative: claims.bound.kind === 'relative' ? 'true' : 'false',

@@ -9,7 +9,7 @@
  * written by scripts/gen-harness.js); this file fills in the family: box,
  * bounds, constants and coefficient expressions.
  */
-import { checkLineDecimals, formatEUp } from '../literals/round-up.js';
+import { checkLineFigures } from '../literals/round-up.js';
 import { tsLiteral } from '../literals/ts.js';
 import { renderTemplate } from '../templates.js';
 import type { EmitInput, EmittedFile } from '../types.js';
@@ -38,8 +38,7 @@ export function tsHarness(input: EmitInput): EmittedFile {
     hasEdgePoints: parts.edgePoints.length > 0,
     edgeRows: parts.edgePoints.map((p) => p.map(double).join(', ')),
     bound: double(claims.bound.total),
-    boundText: formatEUp(claims.bound.total, checkLineDecimals(claims.bound.total, claims.target)),
-    targetDecimals: String(checkLineDecimals(claims.bound.total, claims.target)),
+    ...checkLineFigures(claims.bound.total, claims.target),
     target: double(claims.target),
     absoluteBound: double(claims.absoluteBound),
     relative: claims.bound.kind === 'relative' ? 'true' : 'false',

@@ -93,6 +93,12 @@ export function checkLineDecimals(bound: number, target: number): number {
   return 16;
 }
 
+/** The bound's text and the target's decimals for a check line (checkLineDecimals): what every check line and harness prints them with. */
+export function checkLineFigures(bound: number, target: number): { readonly boundText: string; readonly targetDecimals: number } {
+  const targetDecimals = checkLineDecimals(bound, target);
+  return { boundText: formatEUp(bound, targetDecimals), targetDecimals };
+}
+
 function decimalValue(d: DecimalDigits): Rational {
   return Rational.parseDecimal(`${d.digits}e${d.point - d.digits.length}`);
 }
