@@ -225,15 +225,7 @@ function orderLocation(family: Family): SourceLocation {
  * Unquoted when neither plans.
  */
 export function confirmedOrderQuote(family: Family, refusal: FixedOrderRefusal, planFirst: (edited: Family, workLimit: number) => { readonly order: number }): RootcastError {
-  const plans = (edited: Family): boolean => {
-    try {
-      planFirst(edited, FIXED_PLAN.workLimit);
-      return true;
-    } catch (e) {
-      if (e instanceof WorkLimitError || e instanceof RootcastError) return false;
-      throw e;
-    }
-  };
+  const plans = (edited: Family): boolean => orNull(() => planFirst(edited, FIXED_PLAN.workLimit)) !== null;
   // The table bytes a count refused only for its tables needs: that count plans with them (the limit is checked last).
   const bytes = refusal.tableBytes !== null && plans({ ...family, plan: { ...family.plan, maxTableBytes: refusal.tableBytes } }) ? refusal.tableBytes : null;
   const order = refusal.reached < family.plan.maxOrder ? null : leastOrder(family, planFirst, plans);
@@ -242,14 +234,8 @@ export function confirmedOrderQuote(family: Family, refusal: FixedOrderRefusal, 
 
 function leastOrder(family: Family, planFirst: (edited: Family, workLimit: number) => { readonly order: number }, plans: (edited: Family) => boolean): number | null {
   const withOrder = (maxOrder: number): Family => ({ ...family, plan: { ...family.plan, maxOrder } });
-  let found: number;
-  try {
-    found = planFirst(withOrder(LIMITS.grade), FIXED_PLAN.workLimit * FIXED_PLAN.orderHuntShare).order;
-  } catch (e) {
-    if (e instanceof WorkLimitError || e instanceof RootcastError) return null;
-    throw e;
-  }
-  if (!(found > family.plan.maxOrder) || !plans(withOrder(found))) return null;
+  const found = orNull(() => planFirst(withOrder(LIMITS.grade), FIXED_PLAN.workLimit * FIXED_PLAN.orderHuntShare))?.order;
+  if (found === undefined || !(found > family.plan.maxOrder) || !plans(withOrder(found))) return null;
   let low = family.plan.maxOrder;
   let high = found;
   while (high - low > 1) {
@@ -258,4 +244,14 @@ function leastOrder(family: Family, planFirst: (edited: Family, workLimit: numbe
     else low = mid;
   }
   return high;
+}
+
+/** What `plan` returns, or null where it is refused or stops at the work limit (any other error is thrown). */
+function orNull<T>(plan: () => T): T | null {
+  try {
+    return plan();
+  } catch (e) {
+    if (e instanceof WorkLimitError || e instanceof RootcastError) return null;
+    throw e;
+  }
 }
